@@ -1,0 +1,116 @@
+import { z } from "zod";
+
+/*
+ * The one validation schema for the model parameters (../shared/physics-model.md §2), shared by
+ * the API, the forms, the worker and the command line. Keys carry their units.
+ * Messages name the rule, so the command line can print "field: rule" on one line.
+ */
+
+const finite = (what: string) =>
+  z.number({ error: `${what} must be a number` }).refine(Number.isFinite, { message: `${what} must be finite` });
+
+const isHalfInteger = (j: number) => Math.abs(j * 2 - Math.round(j * 2)) < 1e-9 && j >= 0.5;
+
+/** Material parameters of a paramagnet (no measurement conditions). */
+export const materialShape = {
+  ionDensityPerM3: finite("ion density").min(0, "must be ≥ 0 m⁻³").max(1e30, "must be ≤ 1e30 m⁻³"),
+  landeG: finite("Landé g").gt(0, "must be > 0").max(10, "must be ≤ 10"),
+  totalJ: finite("J")
+    .max(50, "must be ≤ 50")
+    .refine(isHalfInteger, { message: "must be a positive multiple of 1/2 (1/2, 1, 3/2, …)" }),
+  curieWeissK: finite("Curie–Weiss temperature").min(-1000, "must be ≥ −1000 K").max(1000, "must be ≤ 1000 K"),
+  gilbertDamping: finite("Gilbert damping").min(0, "must be ≥ 0").max(10, "must be ≤ 10"),
+  epsInf: finite("ε∞").gt(0, "must be > 0").max(100, "must be ≤ 100"),
+  sellmeierB: finite("Sellmeier B").min(0, "must be ≥ 0").max(100, "must be ≤ 100"),
+  sellmeierWavelengthNm: finite("Sellmeier wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
+  oscillatorStrength: finite("oscillator strength").min(0, "must be ≥ 0").max(100, "must be ≤ 100"),
+  oscillatorWavelengthNm: finite("oscillator wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
+  oscillatorDampingRadPerS: finite("oscillator damping").min(0, "must be ≥ 0 rad/s").max(1e17, "must be ≤ 1e17 rad/s"),
+  gyrationPerT: finite("gyration").min(-10, "must be ≥ −10 T⁻¹").max(10, "must be ≤ 10 T⁻¹"),
+  magneticScale: finite("magnetic scale").min(0, "must be ≥ 0").max(1000, "must be ≤ 1000").default(1),
+} as const;
+
+/** Measurement conditions. */
+export const conditionsShape = {
+  temperatureK: finite("temperature").gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
+  fieldT: finite("field").min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T"),
+  lengthM: finite("length").gt(0, "must be > 0 m").max(100, "must be ≤ 100 m"),
+} as const;
+
+type WithTemps = { temperatureK: number; curieWeissK: number };
+const temperatureAboveCurieWeiss = <T extends WithTemps>(v: T, ctx: z.RefinementCtx) => {
+  if (!(v.temperatureK > v.curieWeissK)) {
+    ctx.addIssue({
+      code: "custom",
+      path: ["temperatureK"],
+      message: `must be above the Curie–Weiss temperature (${v.curieWeissK} K); the ordered phase is not modelled`,
+    });
+  }
+};
+
+/** A stored parameter set's model: material + conditions. */
+export const modelParamsSchema = z
+  .strictObject({ ...materialShape, ...conditionsShape })
+  .superRefine(temperatureAboveCurieWeiss);
+
+export type ModelParams = z.infer<typeof modelParamsSchema>;
+export type ModelParamsInput = z.input<typeof modelParamsSchema>;
+export type ModelParamKey = keyof ModelParams;
+
+export const MAX_WAVELENGTHS = 5000;
+
+/** A spectrum request (command line, worker, API): model + wavelengths + method. */
+export const spectrumRequestSchema = z
+  .strictObject({
+    ...materialShape,
+    ...conditionsShape,
+    wavelengthsNm: z
+      .array(finite("wavelength").gt(0, "each wavelength must be > 0 nm"), { error: "wavelengthsNm must be a list of numbers" })
+      .min(1, "must hold at least one wavelength")
+      .max(MAX_WAVELENGTHS, `must hold at most ${MAX_WAVELENGTHS} wavelengths`),
+    method: z.enum(["analytic", "llg"], { error: 'must be "analytic" or "llg"' }),
+    intensityWPerM2: finite("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²").optional(),
+  })
+  .superRefine(temperatureAboveCurieWeiss)
+  .superRefine((v, ctx) => {
+    for (let i = 1; i < v.wavelengthsNm.length; i++) {
+      const prev = v.wavelengthsNm[i - 1]!;
+      const cur = v.wavelengthsNm[i]!;
+      if (!(cur > prev)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["wavelengthsNm", i],
+          message: cur === prev ? `duplicate wavelength ${cur} nm; values must be strictly increasing` : `must be strictly increasing (${cur} nm follows ${prev} nm)`,
+        });
+        return;
+      }
+    }
+    if (v.sellmeierB > 0) {
+      const first = v.wavelengthsNm[0];
+      if (first !== undefined && !(first > v.sellmeierWavelengthNm)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["wavelengthsNm", 0],
+          message: `every wavelength must be above the Sellmeier pole (${v.sellmeierWavelengthNm} nm) when sellmeierB > 0`,
+        });
+      }
+    }
+    if (v.oscillatorDampingRadPerS === 0 && v.wavelengthsNm.includes(v.oscillatorWavelengthNm)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["wavelengthsNm"],
+        message: `must not contain the oscillator wavelength (${v.oscillatorWavelengthNm} nm) when its damping is 0`,
+      });
+    }
+  });
+
+export type SpectrumRequest = z.infer<typeof spectrumRequestSchema>;
+export type SpectrumRequestInput = z.input<typeof spectrumRequestSchema>;
+
+/** One line per problem: "field: rule". Used by the command line and the API's `fields`. */
+export function formatIssues(error: z.ZodError): string[] {
+  return error.issues.map((issue) => {
+    const path = issue.path.length > 0 ? issue.path.map(String).join(".") : "(input)";
+    return `${path}: ${issue.message}`;
+  });
+}
