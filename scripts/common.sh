@@ -1,0 +1,47 @@
+# Shared steps of scripts/demo.sh and scripts/test.sh. Sourced, not run.
+# Every step is idempotent: it does nothing when its work is already done.
+
+log() { printf '\033[1m[gyrolux]\033[0m %s\n' "$*" >&2; }
+
+as_root() {
+  if [ "$(id -u)" = 0 ]; then "$@"; else sudo "$@"; fi
+}
+
+# Installs node_modules from the lock file when missing or older than the lock.
+ensure_node_modules() {
+  if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "installing dependencies (npm ci)"
+    npm ci --no-audit --no-fund
+  fi
+}
+
+# Debian's Chromium for the browser tests; never a downloaded browser.
+ensure_chromium() {
+  if [ ! -x "${GYROLUX_CHROMIUM:-/usr/bin/chromium}" ]; then
+    log "installing Debian's chromium"
+    as_root apt-get update -qq
+    as_root env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+  fi
+}
+
+# A long random secret kept beside the data dir of this checkout, so sessions survive restarts.
+ensure_auth_secret() {
+  if [ -z "${AUTH_SECRET:-}" ]; then
+    mkdir -p .data
+    [ -s .data/auth-secret ] || node -e 'process.stdout.write(require("node:crypto").randomBytes(32).toString("base64url"))' > .data/auth-secret
+    AUTH_SECRET="$(cat .data/auth-secret)"
+    export AUTH_SECRET
+  fi
+  export AUTH_TRUST_HOST=true
+}
+
+# Waits until the web server answers /api/health (any status: 503 still means the server is up).
+wait_for_http() {
+  local url="$1" tries="${2:-120}"
+  for _ in $(seq "$tries"); do
+    if curl -s -o /dev/null "$url"; then return 0; fi
+    sleep 0.5
+  done
+  log "no answer from $url"
+  return 1
+}
