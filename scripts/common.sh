@@ -39,7 +39,7 @@ ensure_auth_secret() {
 wait_for_http() {
   local url="$1" tries="${2:-120}"
   for _ in $(seq "$tries"); do
-    if curl -s -o /dev/null "$url"; then return 0; fi
+    if node -e 'fetch(process.argv[1]).then(() => process.exit(0), () => process.exit(1))' "$url"; then return 0; fi
     sleep 0.5
   done
   log "no answer from $url"
