@@ -1,0 +1,236 @@
+import type { LabRole } from "./schema";
+import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
+import type { ModelParams } from "@/lib/physics/schema";
+
+/*
+ * The invented demo world seeded by db/seed.ts. Every lab, person and sample here is made up.
+ * Fixed ids make the seed idempotent (insert … on conflict do nothing) and give browser tests
+ * stable links. No "server-only" marker: the seed script runs under plain Node.
+ */
+
+export const DEMO_PASSWORD = "gyrolux-demo";
+
+export const DEMO_LAB = {
+  id: "6a1f0c2e-5b1d-4c1e-9f00-00000000a001",
+  name: "Lindqvist Moor Faraday Laboratory",
+} as const;
+
+export const OTHER_LAB = {
+  id: "6a1f0c2e-5b1d-4c1e-9f00-00000000a002",
+  name: "Blackfen Optics Lab",
+} as const;
+
+export interface DemoUser {
+  id: string;
+  email: string;
+  name: string;
+  siteRole: "admin" | "member";
+  memberships: { labId: string; role: LabRole }[];
+}
+
+export const DEMO_USERS = {
+  lead: {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000b001",
+    email: "lead@demo.gyrolux.test",
+    name: "Dr. Oriane Castellanos-Whitby",
+    siteRole: "member",
+    memberships: [{ labId: DEMO_LAB.id, role: "owner" }],
+  },
+  postdoc: {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000b002",
+    email: "postdoc@demo.gyrolux.test",
+    name: "Dr. Tomasz Elbrecht",
+    siteRole: "member",
+    memberships: [{ labId: DEMO_LAB.id, role: "editor" }],
+  },
+  student: {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000b003",
+    email: "student@demo.gyrolux.test",
+    name: "Priya Anand-Lowe",
+    siteRole: "member",
+    memberships: [{ labId: DEMO_LAB.id, role: "viewer" }],
+  },
+  outsider: {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000b004",
+    email: "outsider@demo.gyrolux.test",
+    name: "Dr. Kofi Mensah-Rudd",
+    siteRole: "member",
+    memberships: [{ labId: OTHER_LAB.id, role: "owner" }],
+  },
+  admin: {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000b005",
+    email: "admin@demo.gyrolux.test",
+    name: "Site Administrator (demo)",
+    siteRole: "admin",
+    memberships: [],
+  },
+} as const satisfies Record<string, DemoUser>;
+
+export interface DemoVersion {
+  /** Who saved this version. */
+  by: keyof typeof DEMO_USERS;
+  /** How many days before the seed the version was saved (history shows a plausible timeline). */
+  daysAgo: number;
+  name: string;
+  description: string;
+  tags: string[];
+  params: ModelParams;
+}
+
+export interface DemoSet {
+  id: string;
+  labId: string;
+  /** Oldest first; the last one is the set's current state. */
+  versions: DemoVersion[];
+}
+
+const INVENTED = "Invented demo data, not a measurement.";
+
+const borateGlass: ModelParams = {
+  ionDensityPerM3: 5e27,
+  landeG: 1.5,
+  totalJ: 6,
+  curieWeissK: -2,
+  gilbertDamping: 0.01,
+  magneticScale: 1,
+  epsInf: 1,
+  sellmeierB: 1.5,
+  sellmeierWavelengthNm: 110,
+  oscillatorStrength: 0.01,
+  oscillatorWavelengthNm: 240,
+  oscillatorDampingRadPerS: 1e14,
+  gyrationPerT: 3e-3,
+  temperatureK: 293.15,
+  fieldT: 1,
+  lengthM: 0.02,
+};
+
+// Dy³⁺ (⁶H₁₅/₂): g = 4/3, J = 15/2 (Hund's rules); the optical figures are invented.
+const dysprosiumGarnet: ModelParams = {
+  ...TERBIUM_GARNET_DEFAULTS,
+  ionDensityPerM3: 1.26e28,
+  landeG: 4 / 3,
+  totalJ: 7.5,
+  curieWeissK: -3,
+  sellmeierB: 2.65,
+  sellmeierWavelengthNm: 132,
+  oscillatorStrength: 0.012,
+  oscillatorWavelengthNm: 245,
+  gyrationPerT: 3.1e-3,
+};
+
+// Ce³⁺ (²F₅/₂): g = 6/7, J = 5/2; the optical figures are invented.
+const ceriumGlass: ModelParams = {
+  ...borateGlass,
+  ionDensityPerM3: 3e27,
+  landeG: 6 / 7,
+  totalJ: 2.5,
+  curieWeissK: -1,
+  oscillatorWavelengthNm: 310,
+  gyrationPerT: 2e-3,
+};
+
+export const DEMO_SETS: DemoSet[] = [
+  {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c001",
+    labId: DEMO_LAB.id,
+    versions: [
+      {
+        by: "lead",
+        daysAgo: 21,
+        name: "Terbium gallium garnet — handbook values",
+        description: `Handbook figures for TGG at room temperature, 1 T, 20 mm rod. ${INVENTED}`,
+        tags: ["TGG", "reference"],
+        params: { ...TERBIUM_GARNET_DEFAULTS, lengthM: 0.02 },
+      },
+      {
+        by: "postdoc",
+        daysAgo: 14,
+        name: "Terbium gallium garnet — handbook values",
+        description: `Handbook figures for TGG at room temperature, 1 T, 10 mm crystal (the rod we actually mount). ${INVENTED}`,
+        tags: ["TGG", "reference", "room-temperature"],
+        params: { ...TERBIUM_GARNET_DEFAULTS },
+      },
+    ],
+  },
+  {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c002",
+    labId: DEMO_LAB.id,
+    versions: [
+      {
+        by: "postdoc",
+        daysAgo: 12,
+        name: "Tb-doped borate glass — sample LM-B7",
+        description: `Terbium-doped borate glass, first guess before the fit. ${INVENTED}`,
+        tags: ["glass", "Tb"],
+        params: { ...borateGlass, gyrationPerT: 2.5e-3 },
+      },
+      {
+        by: "postdoc",
+        daysAgo: 9,
+        name: "Tb-doped borate glass — sample LM-B7",
+        description: `Terbium-doped borate glass; gyration fitted to the 633 nm run. ${INVENTED}`,
+        tags: ["glass", "Tb", "fitted"],
+        params: { ...borateGlass },
+      },
+      {
+        by: "lead",
+        daysAgo: 3,
+        name: "Tb-doped borate glass — sample LM-B7",
+        description: `Terbium-doped borate glass; gyration fitted to the 633 nm run, Curie–Weiss θ from the susceptibility sweep. ${INVENTED}`,
+        tags: ["glass", "Tb", "fitted"],
+        params: { ...borateGlass },
+      },
+    ],
+  },
+  {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c003",
+    labId: DEMO_LAB.id,
+    versions: [
+      {
+        by: "lead",
+        daysAgo: 7,
+        name: "Terbium gallium garnet — 77 K (liquid nitrogen)",
+        description: `The handbook garnet cooled in the liquid-nitrogen cryostat. ${INVENTED}`,
+        tags: ["TGG", "cryogenic"],
+        params: { ...TERBIUM_GARNET_DEFAULTS, temperatureK: 77 },
+      },
+      {
+        by: "postdoc",
+        daysAgo: 5,
+        name: "Terbium gallium garnet — 77 K (liquid nitrogen)",
+        description: `The handbook garnet cooled in the liquid-nitrogen cryostat, 0.5 T (the cryostat's magnet). ${INVENTED}`,
+        tags: ["TGG", "cryogenic"],
+        params: { ...TERBIUM_GARNET_DEFAULTS, temperatureK: 77, fieldT: 0.5 },
+      },
+    ],
+  },
+  {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c004",
+    labId: DEMO_LAB.id,
+    versions: [
+      {
+        by: "postdoc",
+        daysAgo: 2,
+        name: "Dysprosium gallium garnet — what-if",
+        description: `A dysprosium analogue of the garnet for comparison (Dy³⁺: g = 4/3, J = 15/2). ${INVENTED}`,
+        tags: ["Dy", "what-if"],
+        params: dysprosiumGarnet,
+      },
+    ],
+  },
+  {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c005",
+    labId: OTHER_LAB.id,
+    versions: [
+      {
+        by: "outsider",
+        daysAgo: 4,
+        name: "Cerium-doped glass — Blackfen batch 3",
+        description: `Another lab's set; members of other labs must not see it. ${INVENTED}`,
+        tags: ["Ce", "glass"],
+        params: ceriumGlass,
+      },
+    ],
+  },
+];

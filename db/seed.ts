@@ -1,0 +1,119 @@
+import { eq, sql } from "drizzle-orm";
+import { hashPassword } from "@/lib/auth/password";
+import { modelParamsSchema } from "@/lib/physics/schema";
+import { createDb, createPool } from "./connection";
+import { DEMO_LAB, DEMO_PASSWORD, DEMO_SETS, DEMO_USERS, OTHER_LAB } from "./demo-data";
+import { auditLog, labMemberships, labs, parameterSets, parameterSetVersions, users } from "./schema";
+import { scriptEnv } from "./script-env";
+
+/*
+ * Idempotent demo seed: fixed ids + "on conflict do nothing", so running it twice (or on a
+ * database where people already edited the demo sets) changes nothing that exists.
+ */
+
+const DAY_MS = 24 * 60 * 60 * 1000;
+
+async function main(): Promise<void> {
+  const pool = createPool({ url: scriptEnv.DATABASE_URL, max: 1 });
+  const db = createDb(pool);
+  const now = Date.now();
+  let created = 0;
+  try {
+    const passwordHash = await hashPassword(DEMO_PASSWORD);
+    await db.transaction(async (tx) => {
+      await tx
+        .insert(labs)
+        .values([
+          { id: DEMO_LAB.id, name: DEMO_LAB.name },
+          { id: OTHER_LAB.id, name: OTHER_LAB.name },
+        ])
+        .onConflictDoNothing();
+
+      const userIds = new Map<string, string>();
+      for (const [key, user] of Object.entries(DEMO_USERS)) {
+        const inserted = await tx
+          .insert(users)
+          .values({ id: user.id, email: user.email, name: user.name, passwordHash, siteRole: user.siteRole })
+          .onConflictDoNothing()
+          .returning({ id: users.id });
+        created += inserted.length;
+        // Someone may have signed up with a demo address before the seed ran: use that row.
+        const [row] = await tx
+          .select({ id: users.id })
+          .from(users)
+          .where(eq(sql`lower(${users.email})`, user.email.toLowerCase()));
+        if (!row) throw new Error(`demo user ${user.email} missing after insert`);
+        userIds.set(key, row.id);
+        for (const membership of user.memberships) {
+          await tx
+            .insert(labMemberships)
+            .values({ labId: membership.labId, userId: row.id, role: membership.role })
+            .onConflictDoNothing();
+        }
+      }
+
+      for (const set of DEMO_SETS) {
+        const existing = await tx.select({ id: parameterSets.id }).from(parameterSets).where(eq(parameterSets.id, set.id));
+        if (existing.length > 0) continue;
+        const first = set.versions[0];
+        const last = set.versions[set.versions.length - 1];
+        if (!first || !last) continue;
+        const idOf = (who: keyof typeof DEMO_USERS) => {
+          const id = userIds.get(who);
+          if (!id) throw new Error(`unknown demo user ${who}`);
+          return id;
+        };
+        const at = (daysAgo: number) => new Date(now - daysAgo * DAY_MS);
+        // The seed is data at rest like any other: validate it with the same schema as the API.
+        for (const version of set.versions) modelParamsSchema.parse(version.params);
+        const inserted = await tx
+          .insert(parameterSets)
+          .values({
+            id: set.id,
+            labId: set.labId,
+            name: last.name,
+            description: last.description,
+            tags: last.tags,
+            params: last.params,
+            version: set.versions.length,
+            createdById: idOf(first.by),
+            createdAt: at(first.daysAgo),
+            updatedById: idOf(last.by),
+            updatedAt: at(last.daysAgo),
+          })
+          .onConflictDoNothing()
+          .returning({ id: parameterSets.id });
+        if (inserted.length === 0) continue;
+        created += 1;
+        await tx.insert(parameterSetVersions).values(
+          set.versions.map((version, index) => ({
+            setId: set.id,
+            version: index + 1,
+            name: version.name,
+            description: version.description,
+            tags: version.tags,
+            params: version.params,
+            createdById: idOf(version.by),
+            createdAt: at(version.daysAgo),
+          })),
+        );
+        await tx.insert(auditLog).values({
+          actorId: null,
+          action: "demo.seed",
+          targetType: "parameter_set",
+          targetId: set.id,
+          labId: set.labId,
+          details: { versions: set.versions.length },
+        });
+      }
+    });
+    console.log(created > 0 ? `[seed] demo data seeded (${created} new rows of users/sets)` : "[seed] demo data already present");
+  } finally {
+    await pool.end();
+  }
+}
+
+main().catch((error: unknown) => {
+  console.error("[seed] failed:", error instanceof Error ? error.message : error);
+  process.exit(1);
+});
