@@ -1,0 +1,35 @@
+/* Number formatting shared by tables, readouts and exports. */
+
+/** Engineering-friendly: 4 significant digits, exponent outside 1e-3…1e5. */
+export function fmt(value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "–";
+  if (value === 0) return "0";
+  const abs = Math.abs(value);
+  if (abs >= 1e5 || abs < 1e-3) return value.toExponential(digits - 1).replace("e+", "e");
+  return Number(value.toPrecision(digits)).toString();
+}
+
+export function fmtPercent(share: number | null | undefined, digits = 1): string {
+  if (share === null || share === undefined || !Number.isFinite(share)) return "–";
+  return `${(share * 100).toFixed(digits)} %`;
+}
+
+/** Lengths in the unit a lab would use: µm, mm, m or km. */
+export function fmtLength(m: number | null | undefined): string {
+  if (m === null || m === undefined || !Number.isFinite(m)) return "–";
+  if (m < 1e-3) return `${fmt(m * 1e6, 3)} µm`;
+  if (m < 1) return `${fmt(m * 1e3, 3)} mm`;
+  if (m < 1e3) return `${fmt(m, 3)} m`;
+  return `${fmt(m / 1e3, 3)} km`;
+}
+
+export function fmtNm(nm: number): string {
+  return `${Number(nm.toPrecision(6))} nm`;
+}
+
+/** The label physics-model §4.3 requires on every result computed with magneticScale ≠ 1. */
+export function magneticScaleLabel(magneticScale: number | undefined): string | null {
+  if (magneticScale === undefined || magneticScale === 1) return null;
+  const shown = Number.isInteger(magneticScale) ? magneticScale.toFixed(1) : String(Number(magneticScale.toPrecision(3)));
+  return `magnetic-dipole part × ${shown}, not first-principles`;
+}
