@@ -1,0 +1,40 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { DEMO_PASSWORD, DEMO_USERS } from "@/db/demo-data";
+import { isDemoSeeded } from "@/db/queries/demo";
+import { SignInForm, type DemoAccount } from "./_components/sign-in-form";
+
+export const metadata: Metadata = { title: "Sign in" };
+
+const DEMO_ACCOUNTS: DemoAccount[] = [
+  { email: DEMO_USERS.lead.email, name: DEMO_USERS.lead.name, role: "Owner — manages members and sets" },
+  { email: DEMO_USERS.postdoc.email, name: DEMO_USERS.postdoc.name, role: "Editor — creates and edits sets" },
+  { email: DEMO_USERS.student.email, name: DEMO_USERS.student.name, role: "Viewer — reads only" },
+];
+
+// Only same-site paths, so a crafted link cannot send someone elsewhere after signing in.
+function safeRedirect(value: string | string[] | undefined): string {
+  const path = Array.isArray(value) ? value[0] : value;
+  return path && path.startsWith("/") && !path.startsWith("//") ? path : "/parameter-sets";
+}
+
+export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const [params, demo] = await Promise.all([searchParams, isDemoSeeded()]);
+  return (
+    <div className="space-y-8">
+      <section className="rounded-lg border border-ink/10 bg-paper-raised p-6 shadow-sm sm:p-8">
+        <h1 className="text-xl font-semibold">Sign in to Gyrolux</h1>
+        <SignInForm
+          redirectTo={safeRedirect(params.callbackUrl ?? params.redirectTo)}
+          demo={demo ? { accounts: DEMO_ACCOUNTS, password: DEMO_PASSWORD } : null}
+        />
+        <p className="mt-6 text-sm text-ink-soft">
+          New here?{" "}
+          <Link href="/sign-up" className="font-medium text-lux-dark underline underline-offset-4">
+            Create an account
+          </Link>
+        </p>
+      </section>
+    </div>
+  );
+}

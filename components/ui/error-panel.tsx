@@ -1,0 +1,41 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { ApiError, describeError } from "@/lib/query/fetcher";
+import { Button } from "./button";
+
+interface Health {
+  status: string;
+  database: string;
+}
+
+// Server errors reach the browser without their message in production, so ask /api/health
+// whether the database is the cause instead of guessing.
+async function fetchHealth(): Promise<Health> {
+  const response = await fetch("/api/health", { headers: { Accept: "application/json" } });
+  return (await response.json()) as Health;
+}
+
+export function ErrorPanel({ error, retry }: { error: unknown; retry?: () => void }) {
+  const health = useQuery({ queryKey: ["health"], queryFn: fetchHealth, retry: false, staleTime: 0 });
+  const databaseDown =
+    (error instanceof ApiError && error.code === "db_unavailable") || health.data?.database === "down";
+
+  const message = databaseDown
+    ? "The database is not reachable right now, so nothing can be loaded or saved. Your stored data is not affected; try again in a minute."
+    : error instanceof ApiError
+      ? describeError(error)
+      : "This page could not be shown because of an unexpected error.";
+
+  return (
+    <div role="alert" className="rounded-lg border border-ember bg-ember-light px-5 py-4">
+      <h2 className="font-semibold">{databaseDown ? "Database unavailable" : "Something went wrong"}</h2>
+      <p className="mt-1 text-sm">{message}</p>
+      {retry ? (
+        <Button variant="secondary" className="mt-4" onClick={retry}>
+          Try again
+        </Button>
+      ) : null}
+    </div>
+  );
+}

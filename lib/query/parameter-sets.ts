@@ -1,0 +1,136 @@
+"use client";
+
+import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { ModelParams } from "@/lib/physics/schema";
+import { apiFetch } from "./fetcher";
+import type { ItemResponse, ItemsResponse, ParameterSet, ParameterSetSummary, ParameterSetVersion } from "./types";
+
+export interface ParameterSetFilter {
+  labId?: string;
+  q?: string;
+  tag?: string;
+}
+
+export interface ParameterSetDraft {
+  name: string;
+  description: string;
+  tags: string[];
+  params: ModelParams;
+}
+
+const LIST_ROOT = ["parameter-sets"] as const;
+
+export const parameterSetKeys = {
+  lists: () => LIST_ROOT,
+  list: (filter: ParameterSetFilter) =>
+    [...LIST_ROOT, { labId: filter.labId ?? "", q: filter.q ?? "", tag: filter.tag ?? "" }] as const,
+  detail: (id: string) => ["parameter-set", id] as const,
+  versions: (id: string) => ["parameter-set", id, "versions"] as const,
+};
+
+function listPath(filter: ParameterSetFilter): string {
+  const search = new URLSearchParams();
+  if (filter.labId) search.set("labId", filter.labId);
+  if (filter.q) search.set("q", filter.q);
+  if (filter.tag) search.set("tag", filter.tag);
+  const qs = search.toString();
+  return qs ? `/api/parameter-sets?${qs}` : "/api/parameter-sets";
+}
+
+export const parameterSetsQuery = (filter: ParameterSetFilter) =>
+  queryOptions({
+    queryKey: parameterSetKeys.list(filter),
+    queryFn: ({ signal }) => apiFetch<ItemsResponse<ParameterSetSummary>>(listPath(filter), { signal }).then((r) => r.items),
+  });
+
+export const parameterSetQuery = (id: string) =>
+  queryOptions({
+    queryKey: parameterSetKeys.detail(id),
+    queryFn: ({ signal }) =>
+      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(id)}`, { signal }).then((r) => r.item),
+  });
+
+export const parameterSetVersionsQuery = (id: string) =>
+  queryOptions({
+    queryKey: parameterSetKeys.versions(id),
+    queryFn: ({ signal }) =>
+      apiFetch<ItemsResponse<ParameterSetVersion>>(`/api/parameter-sets/${encodeURIComponent(id)}/versions`, { signal }).then(
+        (r) => r.items,
+      ),
+  });
+
+export function useParameterSets(filter: ParameterSetFilter) {
+  return useQuery({ ...parameterSetsQuery(filter), placeholderData: (previous) => previous });
+}
+
+export function useParameterSet(id: string) {
+  return useQuery(parameterSetQuery(id));
+}
+
+export function useParameterSetVersions(id: string) {
+  return useQuery(parameterSetVersionsQuery(id));
+}
+
+/** After any write the list, the set and its versions may all have changed. */
+function useInvalidateSet() {
+  const queryClient = useQueryClient();
+  return (item: ParameterSet | null, id: string) => {
+    if (item) queryClient.setQueryData(parameterSetKeys.detail(id), item);
+    void queryClient.invalidateQueries({ queryKey: parameterSetKeys.lists() });
+    void queryClient.invalidateQueries({ queryKey: parameterSetKeys.versions(id) });
+    if (!item) queryClient.removeQueries({ queryKey: parameterSetKeys.detail(id), exact: true });
+  };
+}
+
+export function useCreateParameterSet() {
+  const invalidate = useInvalidateSet();
+  return useMutation({
+    mutationFn: (input: ParameterSetDraft & { labId: string }) =>
+      apiFetch<ItemResponse<ParameterSet>>("/api/parameter-sets", { method: "POST", json: input }).then((r) => r.item),
+    onSuccess: (item) => invalidate(item, item.id),
+  });
+}
+
+export function useUpdateParameterSet(id: string) {
+  const invalidate = useInvalidateSet();
+  return useMutation({
+    mutationFn: (input: Partial<ParameterSetDraft> & { version: number }) =>
+      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(id)}`, { method: "PATCH", json: input }).then(
+        (r) => r.item,
+      ),
+    onSuccess: (item) => invalidate(item, id),
+  });
+}
+
+export function useDeleteParameterSet(id: string) {
+  const invalidate = useInvalidateSet();
+  return useMutation({
+    mutationFn: () => apiFetch<void>(`/api/parameter-sets/${encodeURIComponent(id)}`, { method: "DELETE" }),
+    onSuccess: () => invalidate(null, id),
+  });
+}
+
+export function useRestoreVersion(id: string) {
+  const invalidate = useInvalidateSet();
+  return useMutation({
+    mutationFn: (input: { restore: number; currentVersion: number }) =>
+      apiFetch<ItemResponse<ParameterSet>>(
+        `/api/parameter-sets/${encodeURIComponent(id)}/versions/${input.restore}/restore`,
+        { method: "POST", json: { version: input.currentVersion } },
+      ).then((r) => r.item),
+    onSuccess: (item) => invalidate(item, id),
+  });
+}
+
+export function useSaveViewState(id: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (viewState: Record<string, unknown>) =>
+      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(id)}/view-state`, {
+        method: "PUT",
+        json: { viewState },
+      }).then((r) => r.item),
+    // The view state is not a version, so only the cached set changes.
+    onSuccess: (item) => queryClient.setQueryData(parameterSetKeys.detail(id), item),
+  });
+}

@@ -1,0 +1,39 @@
+"use client";
+
+import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { apiFetch } from "./fetcher";
+import type { ApiToken, ItemsResponse } from "./types";
+
+export const tokenKeys = { all: () => ["tokens"] as const };
+
+export const tokensQuery = () =>
+  queryOptions({
+    queryKey: tokenKeys.all(),
+    queryFn: ({ signal }) => apiFetch<ItemsResponse<ApiToken>>("/api/tokens", { signal }).then((r) => r.items),
+  });
+
+export function useTokens() {
+  return useQuery(tokensQuery());
+}
+
+export interface CreatedToken {
+  item: ApiToken;
+  /** The secret; the server keeps only its hash, so this is the one chance to copy it. */
+  token: string;
+}
+
+export function useCreateToken() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (name: string) => apiFetch<CreatedToken>("/api/tokens", { method: "POST", json: { name } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: tokenKeys.all() }),
+  });
+}
+
+export function useRevokeToken() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => apiFetch<void>(`/api/tokens/${encodeURIComponent(id)}`, { method: "DELETE" }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: tokenKeys.all() }),
+  });
+}

@@ -1,0 +1,50 @@
+import { describe, expect, it } from "vitest";
+import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
+import { changedFields, diffSnapshots, formatValue, type SetSnapshot } from "@/lib/model/diff";
+import { PARAM_META } from "@/lib/model/param-meta";
+
+const base: SetSnapshot = { name: "TGG 293 K", description: "Room temperature", tags: ["tgg", "garnet"], params: TERBIUM_GARNET_DEFAULTS };
+
+describe("diffSnapshots", () => {
+  it("lists name, description, tags and every model parameter, none changed for identical snapshots", () => {
+    const rows = diffSnapshots(base, { ...base, params: { ...base.params } });
+    expect(rows.map((r) => r.key)).toEqual(["name", "description", "tags", ...PARAM_META.map((m) => m.key)]);
+    expect(rows.some((r) => r.changed)).toBe(false);
+  });
+
+  it("marks a changed parameter with its unit and both values", () => {
+    const rows = changedFields(base, { ...base, params: { ...base.params, temperatureK: 77 } });
+    expect(rows).toEqual([{ key: "temperatureK", label: "Temperature", unit: "K", before: "293.15", after: "77", changed: true }]);
+  });
+
+  it("marks text fields and ignores tag order, spacing and duplicates", () => {
+    const rows = changedFields(base, { ...base, name: "TGG 77 K", tags: [" garnet", "tgg", "tgg"] });
+    expect(rows.map((r) => r.key)).toEqual(["name"]);
+    const tagRows = changedFields(base, { ...base, tags: ["tgg"] });
+    expect(tagRows).toEqual([{ key: "tags", label: "Tags", unit: "", before: "garnet, tgg", after: "tgg", changed: true }]);
+  });
+
+  it("treats a missing value (half-filled form) as a change shown as a dash", () => {
+    const { fieldT: _dropped, ...rest } = TERBIUM_GARNET_DEFAULTS;
+    const rows = changedFields(base, { ...base, params: rest });
+    expect(rows).toEqual([{ key: "fieldT", label: "Field B0", unit: "T", before: "1", after: "—", changed: true }]);
+  });
+
+  it("tells apart values that differ only far down the mantissa", () => {
+    const rows = changedFields(base, { ...base, params: { ...base.params, ionDensityPerM3: 1.27260001e28 } });
+    expect(rows[0]?.before).toBe("1.2726e28");
+    expect(rows[0]?.after).toBe("1.27260001e28");
+  });
+});
+
+describe("formatValue", () => {
+  it("writes large and small magnitudes in e-notation and the rest plainly", () => {
+    expect(formatValue(1e14)).toBe("1e14");
+    expect(formatValue(5.395e-3)).toBe("0.005395");
+    expect(formatValue(2.5e-5)).toBe("2.5e-5");
+    expect(formatValue(-8)).toBe("-8");
+    expect(formatValue(0)).toBe("0");
+    expect(formatValue(293.15)).toBe("293.15");
+    expect(formatValue(Number.NaN)).toBe("—");
+  });
+});
