@@ -1,0 +1,33 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import { INPUT_CLASS } from "@/components/ui/text-field";
+
+const DEBOUNCE_MS = 300;
+
+/** Typing updates ?q= once the user pauses, so each keystroke does not become a request. */
+export function SearchBox({ value, onSearch }: { value: string; onSearch: (q: string) => void }) {
+  const [text, setText] = useState(value);
+
+  useEffect(() => {
+    if (text.trim() === value) return;
+    const timer = setTimeout(() => onSearch(text.trim()), DEBOUNCE_MS);
+    return () => clearTimeout(timer);
+  }, [text, value, onSearch]);
+
+  return (
+    <div className="w-full sm:w-72">
+      <label htmlFor="sets-search" className="block text-sm font-medium">
+        Search
+      </label>
+      <input
+        id="sets-search"
+        type="search"
+        placeholder="Name or description"
+        value={text}
+        onChange={(event) => setText(event.target.value)}
+        className={`mt-1 ${INPUT_CLASS}`}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,123 @@
+"use client";
+
+import { useSearchParams } from "next/navigation";
+import { useCallback, useMemo } from "react";
+import { Button, LinkButton } from "@/components/ui/button";
+import { ErrorPanel } from "@/components/ui/error-panel";
+import { PageHeader } from "@/components/ui/page-header";
+import { SkeletonRows } from "@/components/ui/skeleton";
+import { INPUT_CLASS } from "@/components/ui/text-field";
+import { useSearchUpdate } from "@/components/ui/use-search-update";
+import { useLabs } from "@/lib/query/labs";
+import { useParameterSets } from "@/lib/query/parameter-sets";
+import { hasRole } from "@/lib/query/types";
+import { SearchBox } from "./search-box";
+import { SetsTable } from "./sets-table";
+import { parseSort, sortSets, type SortKey } from "./sort";
+
+export function SetsBrowser() {
+  const searchParams = useSearchParams();
+  const update = useSearchUpdate();
+  const q = searchParams.get("q") ?? "";
+  const labId = searchParams.get("lab") ?? "";
+  const tag = searchParams.get("tag") ?? "";
+  const sort = parseSort(searchParams.get("sort"), searchParams.get("dir"));
+
+  const labs = useLabs();
+  const sets = useParameterSets({ labId, q, tag });
+  const canCreate = labs.data?.some((lab) => hasRole(lab.role, "editor")) ?? false;
+  const filtered = q !== "" || labId !== "" || tag !== "";
+
+  const sorted = useMemo(() => sortSets(sets.data ?? [], sort.key, sort.dir), [sets.data, sort.key, sort.dir]);
+  const onSearch = useCallback((text: string) => update({ q: text }), [update]);
+  const onSort = (key: SortKey) => {
+    const dir = key === sort.key ? (sort.dir === "asc" ? "desc" : "asc") : key === "updated" ? "desc" : "asc";
+    update({ sort: key, dir });
+  };
+  const onTag = (t: string) => update({ tag: t === tag ? null : t });
+
+  return (
+    <>
+      <PageHeader
+        title="Parameter sets"
+        lead="Versioned model parameters of your labs. Every save keeps the previous version."
+        actions={canCreate ? <LinkButton href="/parameter-sets/new">New parameter set</LinkButton> : null}
+      />
+
+      <div className="mb-4 flex flex-wrap items-end gap-4" role="search" aria-label="Filter parameter sets">
+        <SearchBox value={q} onSearch={onSearch} />
+        <div className="w-full sm:w-60">
+          <label htmlFor="sets-lab" className="block text-sm font-medium">
+            Lab
+          </label>
+          <select id="sets-lab" value={labId} onChange={(event) => update({ lab: event.target.value })} className={`mt-1 ${INPUT_CLASS}`}>
+            <option value="">All my labs</option>
+            {labs.data?.map((lab) => (
+              <option key={lab.id} value={lab.id}>
+                {lab.name}
+              </option>
+            ))}
+          </select>
+        </div>
+        {tag ? (
+          <p className="flex items-center gap-2 pb-2 text-sm">
+            Tag:
+            <button
+              type="button"
+              onClick={() => update({ tag: null })}
+              aria-label={`Remove tag filter ${tag}`}
+              className="rounded-full border border-lux bg-lux px-2.5 py-0.5 text-xs text-white"
+            >
+              {tag} <span aria-hidden="true">×</span>
+            </button>
+          </p>
+        ) : null}
+        {sets.isFetching && !sets.isPending ? (
+          <p className="pb-2 text-sm text-ink-soft" role="status">
+            Updating…
+          </p>
+        ) : null}
+      </div>
+
+      {sets.isPending ? (
+        <SkeletonRows label="Loading parameter sets" />
+      ) : sets.isError ? (
+        <ErrorPanel error={sets.error} retry={() => void sets.refetch()} />
+      ) : sorted.length === 0 ? (
+        <EmptyState filtered={filtered} canCreate={canCreate} onClear={() => update({ q: null, lab: null, tag: null })} />
+      ) : (
+        <SetsTable items={sorted} sortKey={sort.key} sortDir={sort.dir} onSort={onSort} activeTag={tag} onTag={onTag} />
+      )}
+    </>
+  );
+}
+
+function EmptyState({ filtered, canCreate, onClear }: { filtered: boolean; canCreate: boolean; onClear: () => void }) {
+  return (
+    <div className="rounded-lg border border-dashed border-ink/20 bg-paper-raised px-6 py-10 text-center">
+      {filtered ? (
+        <>
+          <p className="font-medium">No parameter set matches these filters.</p>
+          <p className="mt-1 text-sm text-ink-soft">Try other words, another lab or no tag.</p>
+          <Button variant="secondary" className="mt-4" onClick={onClear}>
+            Clear filters
+          </Button>
+        </>
+      ) : (
+        <>
+          <p className="font-medium">No parameter sets yet</p>
+          <p className="mt-1 text-sm text-ink-soft">
+            {canCreate
+              ? "Start from the terbium-garnet defaults and adjust them to your sample."
+              : "An editor of your lab can create the first one; you will see it here."}
+          </p>
+          {canCreate ? (
+            <LinkButton href="/parameter-sets/new" className="mt-4">
+              Create a parameter set
+            </LinkButton>
+          ) : null}
+        </>
+      )}
+    </div>
+  );
+}
