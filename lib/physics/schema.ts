@@ -114,3 +114,33 @@ export function formatIssues(error: z.ZodError): string[] {
     return `${path}: ${issue.message}`;
   });
 }
+
+/**
+ * Request for a spin trace (one wavelength, both circular drives; physics-model.md §7): the model
+ * parameters plus the wavelength, the intensity (0 → the linear-regime drive of §7) and the number
+ * of lock-in periods shown after the ramp.
+ */
+export const spinTraceRequestSchema = z
+  .strictObject({
+    ...materialShape,
+    ...conditionsShape,
+    wavelengthNm: finite("wavelength").gt(0, "must be > 0 nm").max(1e9, "must be ≤ 1e9 nm"),
+    intensityWPerM2: finite("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²"),
+    periods: finite("periods").int("must be a whole number").min(1, "must be ≥ 1").max(50, "must be ≤ 50"),
+  })
+  .superRefine(temperatureAboveCurieWeiss)
+  .superRefine((v, ctx) => {
+    if (v.sellmeierB > 0 && !(v.wavelengthNm > v.sellmeierWavelengthNm)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["wavelengthNm"],
+        message: `must be above the Sellmeier pole (${v.sellmeierWavelengthNm} nm) when sellmeierB > 0`,
+      });
+    }
+    if (v.fieldT === 0 || v.ionDensityPerM3 === 0) {
+      ctx.addIssue({ code: "custom", path: ["fieldT"], message: "a spin trace needs spins in a nonzero field (fieldT ≠ 0, ionDensityPerM3 > 0)" });
+    }
+  });
+
+export type SpinTraceRequest = z.infer<typeof spinTraceRequestSchema>;
+export type SpinTraceRequestInput = z.input<typeof spinTraceRequestSchema>;

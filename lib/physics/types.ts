@@ -29,3 +29,44 @@ export interface SpectrumResult {
 
 /** Progress is the fraction done, 0…1. */
 export type ProgressCallback = (fractionDone: number) => void;
+
+/**
+ * Column form of a spectrum, for transfer between a worker and the page (typed arrays are
+ * transferable). magneticShare and verdetRadPerTm use NaN for null; δMz arrays likewise.
+ */
+export interface SpectrumArrays {
+  magnetizationAPerM: number;
+  wavelengthNm: Float64Array;
+  thetaRad: Float64Array;
+  thetaElectricRad: Float64Array;
+  thetaMagneticRad: Float64Array;
+  thetaCrossRad: Float64Array;
+  ellipticityRad: Float64Array;
+  magneticShare: Float64Array;
+  verdetRadPerTm: Float64Array;
+  deltaMzPlusAPerM?: Float64Array;
+  deltaMzMinusAPerM?: Float64Array;
+  maxRelDeviationFromAnalytic?: number;
+  warnings: string[];
+}
+
+/** Complex number as plain data (crosses worker boundaries unchanged). */
+export interface ComplexValue {
+  re: number;
+  im: number;
+}
+
+/** Time trace of u = M/|M| under the "+" drive at one wavelength, with the lock-in result. */
+export interface SpinTraceResult {
+  /** Time in drive periods, from the start of the ramp. */
+  timePeriods: Float64Array;
+  ux: Float64Array;
+  uy: Float64Array;
+  uz: Float64Array;
+  chiPlus: ComplexValue;
+  chiMinus: ComplexValue;
+  chiPlusAnalytic: ComplexValue;
+  chiMinusAnalytic: ComplexValue;
+  deltaMzPlusAPerM: number | null;
+  deltaMzMinusAPerM: number | null;
+}
