@@ -78,7 +78,6 @@ function useInvalidateSet() {
     if (item) queryClient.setQueryData(parameterSetKeys.detail(id), item);
     void queryClient.invalidateQueries({ queryKey: parameterSetKeys.lists() });
     void queryClient.invalidateQueries({ queryKey: parameterSetKeys.versions(id) });
-    if (!item) queryClient.removeQueries({ queryKey: parameterSetKeys.detail(id), exact: true });
   };
 }
 
@@ -106,6 +105,8 @@ export function useDeleteParameterSet(id: string) {
   const invalidate = useInvalidateSet();
   return useMutation({
     mutationFn: () => apiFetch<void>(`/api/parameter-sets/${encodeURIComponent(id)}`, { method: "DELETE" }),
+    // The detail entry is left to expire: removing it now would make the open page refetch a 404
+    // in the moment before it navigates away.
     onSuccess: () => invalidate(null, id),
   });
 }

@@ -1,0 +1,26 @@
+"use client";
+
+import { SetEditor } from "@/components/parameter-sets/set-editor";
+import { SetReadOnly } from "@/components/parameter-sets/set-read-only";
+import { ErrorPanel } from "@/components/ui/error-panel";
+import { SkeletonRows } from "@/components/ui/skeleton";
+import { useParameterSet } from "@/lib/query/parameter-sets";
+import { hasRole } from "@/lib/query/types";
+import { SetHeader } from "./set-header";
+
+export function SetDetail({ id }: { id: string }) {
+  const set = useParameterSet(id);
+  const item = set.data;
+  // Once loaded, a failed background refetch must not unmount the editor and lose the user's edits.
+  if (!item) {
+    if (set.isError) return <ErrorPanel error={set.error} retry={() => void set.refetch()} />;
+    return <SkeletonRows label="Loading the parameter set" rows={8} />;
+  }
+
+  return (
+    <>
+      <SetHeader item={item} current="detail" />
+      {hasRole(item.role, "editor") ? <SetEditor initial={item} /> : <SetReadOnly item={item} />}
+    </>
+  );
+}

@@ -1,0 +1,60 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Alert } from "@/components/ui/alert";
+import { Button, LinkButton } from "@/components/ui/button";
+import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
+import { ApiError, describeError } from "@/lib/query/fetcher";
+import { useCreateParameterSet } from "@/lib/query/parameter-sets";
+import type { Lab } from "@/lib/query/types";
+import { mapServerFields, setFormResolver, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
+import { SetFields } from "./set-fields";
+import { useUnsavedGuard } from "./use-unsaved-guard";
+
+/** A new set starts from the terbium-garnet defaults in the first lab the caller can edit. */
+export function NewSetForm({ labs, initialLabId }: { labs: Lab[]; initialLabId?: string }) {
+  const router = useRouter();
+  const create = useCreateParameterSet();
+  const [generalError, setGeneralError] = useState<string | null>(null);
+  const labId = labs.some((l) => l.id === initialLabId) ? initialLabId! : (labs[0]?.id ?? "");
+
+  const form = useForm<SetFormInput, unknown, SetFormOutput>({
+    defaultValues: toFormValues({ labId, name: "", description: "", tags: [], params: TERBIUM_GARNET_DEFAULTS }),
+    resolver: setFormResolver,
+    mode: "onTouched",
+  });
+  useUnsavedGuard(form.formState.isDirty && !create.isSuccess);
+
+  const onSubmit = form.handleSubmit((values) => {
+    setGeneralError(null);
+    create.mutate(values, {
+      onSuccess: (item) => router.push(`/parameter-sets/${item.id}`),
+      onError: (error) => {
+        if (error instanceof ApiError && error.fields) {
+          const { field, other } = mapServerFields(error.fields);
+          for (const [path, message] of field) form.setError(path, { type: "server", message });
+          setGeneralError(other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message);
+          return;
+        }
+        setGeneralError(describeError(error));
+      },
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-6">
+      {generalError ? <Alert tone="warning" title="Not created">{generalError}</Alert> : null}
+      <SetFields form={form} labs={labs} />
+      <div className="sticky bottom-0 flex justify-end gap-2 border-t border-ink/10 bg-paper/95 py-3 backdrop-blur">
+        <LinkButton variant="secondary" href="/parameter-sets">
+          Cancel
+        </LinkButton>
+        <Button type="submit" disabled={create.isPending || create.isSuccess}>
+          {create.isPending ? "Creating…" : "Create parameter set"}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,135 @@
+"use client";
+
+import { useQueryClient } from "@tanstack/react-query";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
+import { ApiError, describeError } from "@/lib/query/fetcher";
+import { parameterSetQuery, useDeleteParameterSet, useUpdateParameterSet } from "@/lib/query/parameter-sets";
+import type { ParameterSet } from "@/lib/query/types";
+import { ConflictBanner } from "./conflict-banner";
+import { mapServerFields, setFormResolver, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
+import { SetFields } from "./set-fields";
+import { useUnsavedGuard } from "./use-unsaved-guard";
+
+function currentFromConflict(error: ApiError): ParameterSet | null {
+  const body = error.body as { error?: { current?: ParameterSet }; current?: ParameterSet } | null;
+  return body?.error?.current ?? body?.current ?? null;
+}
+
+/**
+ * Edits one set. `base` is the server version the form was loaded from; saves send its number, so
+ * a save over someone else's newer version is refused (409) instead of silently replacing it.
+ */
+export function SetEditor({ initial }: { initial: ParameterSet }) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const [base, setBase] = useState(initial);
+  const [conflict, setConflict] = useState<ParameterSet | null>(null);
+  const [generalError, setGeneralError] = useState<string | null>(null);
+  const [savedVersion, setSavedVersion] = useState<number | null>(null);
+  const [confirmDelete, setConfirmDelete] = useState(false);
+
+  const form = useForm<SetFormInput, unknown, SetFormOutput>({
+    defaultValues: toFormValues(initial),
+    resolver: setFormResolver,
+    mode: "onTouched",
+  });
+  const update = useUpdateParameterSet(initial.id);
+  const remove = useDeleteParameterSet(initial.id);
+  useUnsavedGuard(form.formState.isDirty);
+
+  const loadServerVersion = (item: ParameterSet) => {
+    setBase(item);
+    setConflict(null);
+    form.reset(toFormValues(item));
+  };
+
+  const save = (values: SetFormOutput, version: number) => {
+    setGeneralError(null);
+    setSavedVersion(null);
+    update.mutate(
+      { version, name: values.name, description: values.description, tags: values.tags, params: values.params },
+      {
+        onSuccess: (item) => {
+          loadServerVersion(item);
+          setSavedVersion(item.version);
+        },
+        onError: async (error) => {
+          if (error instanceof ApiError && error.code === "stale_version") {
+            const current = currentFromConflict(error) ?? (await queryClient.fetchQuery({ ...parameterSetQuery(initial.id), staleTime: 0 }));
+            setConflict(current);
+            return;
+          }
+          if (error instanceof ApiError && error.fields) {
+            const { field, other } = mapServerFields(error.fields);
+            for (const [path, message] of field) form.setError(path, { type: "server", message });
+            setGeneralError(other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message);
+            return;
+          }
+          setGeneralError(describeError(error));
+        },
+      },
+    );
+  };
+
+  const onSave = form.handleSubmit((values) => save(values, base.version));
+  const onOverwrite = form.handleSubmit((values) => {
+    if (conflict) save(values, conflict.version);
+  });
+
+  return (
+    <form onSubmit={onSave} noValidate className="space-y-6">
+      {conflict ? (
+        <ConflictBanner
+          current={conflict}
+          mine={form.watch()}
+          pending={update.isPending}
+          onOverwrite={() => void onOverwrite()}
+          onDiscard={() => loadServerVersion(conflict)}
+        />
+      ) : null}
+      {generalError ? <Alert tone="warning" title="Not saved">{generalError}</Alert> : null}
+      {savedVersion !== null && !form.formState.isDirty ? <Alert tone="success">Saved as version {savedVersion}.</Alert> : null}
+
+      <SetFields form={form} />
+
+      <div className="sticky bottom-0 flex flex-wrap items-center justify-between gap-3 border-t border-ink/10 bg-paper/95 py-3 backdrop-blur">
+        <p className="text-sm text-ink-soft" aria-live="polite">
+          {form.formState.isDirty ? "Unsaved changes" : `Showing version ${base.version}`}
+        </p>
+        <div className="flex gap-2">
+          <Button variant="danger" onClick={() => setConfirmDelete(true)}>
+            Delete
+          </Button>
+          <Button type="submit" disabled={update.isPending || conflict !== null}>
+            {update.isPending ? "Saving…" : "Save"}
+          </Button>
+        </div>
+      </div>
+
+      <ConfirmDialog
+        open={confirmDelete}
+        title={`Delete “${base.name}”?`}
+        confirmLabel="Delete parameter set"
+        destructive
+        pending={remove.isPending}
+        error={remove.isError ? describeError(remove.error) : null}
+        onCancel={() => setConfirmDelete(false)}
+        onConfirm={() =>
+          remove.mutate(undefined, {
+            onSuccess: () => {
+              form.reset(form.getValues());
+              router.push("/parameter-sets");
+            },
+          })
+        }
+      >
+        The set and all its versions disappear for everyone in the lab. The audit log keeps a record that it existed.
+      </ConfirmDialog>
+    </form>
+  );
+}
