@@ -266,3 +266,57 @@ export function deltaMzFromCone(magnetizationAPerM: number, cone: number): numbe
   const c2 = cone * cone;
   return (-s * Math.abs(magnetizationAPerM) * c2) / (1 + Math.sqrt(1 - c2));
 }
+
+export interface FreeLlgOptions {
+  w0: number;
+  alpha: number;
+  u0: [number, number, number];
+  /** Scaled times at which to report u (ascending, ≥ 0). */
+  sampleTimes: number[];
+  relativeTolerance?: number;
+}
+
+/**
+ * Free LLG (h = 0) from u0, sampled at the given scaled times with odex's dense output; used to check
+ * precession and Gilbert decay (§4.1, §8). Returns the samples and the largest | |u| − 1 | seen.
+ */
+export function freeLlgTrajectory(o: FreeLlgOptions): { samples: [number, number, number][]; normError: number } {
+  const { w0, alpha, sampleTimes } = o;
+  const k = 1 / (1 + alpha * alpha);
+  const out = [0, 0, 0];
+  const f = (_t: number, y: number[]): number[] => {
+    const ux = y[0]!;
+    const uy = y[1]!;
+    const uz = y[2]!;
+    const ax = uy * w0;
+    const ay = -ux * w0;
+    const bx = -uz * ay;
+    const by = uz * ax;
+    const bz = ux * ay - uy * ax;
+    const damp = alpha / Math.sqrt(ux * ux + uy * uy + uz * uz);
+    out[0] = -(ax + damp * bx) * k;
+    out[1] = -(ay + damp * by) * k;
+    out[2] = -(damp * bz) * k;
+    return out;
+  };
+  const rtol = o.relativeTolerance ?? 1e-10;
+  const solver = new Solver(3);
+  solver.relativeTolerance = rtol;
+  solver.absoluteTolerance = rtol;
+  solver.maxSteps = 1_000_000;
+  solver.denseOutput = true;
+  const samples: [number, number, number][] = [];
+  let normError = 0;
+  let next = 0;
+  const tEnd = sampleTimes[sampleTimes.length - 1] ?? 0;
+  const res = solver.solve(f, 0, [...o.u0], tEnd, (nr, _xOld, x, y, dense) => {
+    normError = Math.max(normError, Math.abs(Math.hypot(y[0]!, y[1]!, y[2]!) - 1));
+    while (next < sampleTimes.length && sampleTimes[next]! <= x) {
+      const t = sampleTimes[next]!;
+      samples.push(nr === 1 || !dense ? [y[0]!, y[1]!, y[2]!] : [dense(0, t), dense(1, t), dense(2, t)]);
+      next++;
+    }
+  });
+  if (res.outcome !== 0) throw new LlgIntegrationError(`LLG integration did not finish (odex outcome ${res.outcome})`);
+  return { samples, normError };
+}

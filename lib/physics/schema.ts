@@ -109,9 +109,14 @@ export type SpectrumRequestInput = z.input<typeof spectrumRequestSchema>;
 
 /** One line per problem: "field: rule". Used by the command line and the API's `fields`. */
 export function formatIssues(error: z.ZodError): string[] {
-  return error.issues.map((issue) => {
+  return error.issues.flatMap((issue) => {
     const path = issue.path.length > 0 ? issue.path.map(String).join(".") : "(input)";
-    return `${path}: ${issue.message}`;
+    // Name each unknown key as the field, so "field: rule" holds for them too.
+    if (issue.code === "unrecognized_keys") {
+      const prefix = issue.path.length > 0 ? `${path}.` : "";
+      return issue.keys.map((key) => `${prefix}${key}: unknown key (not a model parameter)`);
+    }
+    return [`${path}: ${issue.message}`];
   });
 }
 
