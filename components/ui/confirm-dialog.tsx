@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useRef, type ReactNode } from "react";
+import { useEffect, useId, useRef, type ReactNode } from "react";
 import { Button } from "./button";
 
 export interface ConfirmDialogProps {
@@ -22,6 +22,7 @@ export interface ConfirmDialogProps {
  */
 export function ConfirmDialog({ open, title, children, confirmLabel, destructive, pending, error, onConfirm, onCancel }: ConfirmDialogProps) {
   const ref = useRef<HTMLDialogElement>(null);
+  const titleId = useId();
 
   useEffect(() => {
     const dialog = ref.current;
@@ -33,14 +34,14 @@ export function ConfirmDialog({ open, title, children, confirmLabel, destructive
   return (
     <dialog
       ref={ref}
-      aria-labelledby="confirm-dialog-title"
+      aria-labelledby={titleId}
       onCancel={(event) => {
         event.preventDefault();
         onCancel();
       }}
       className="m-auto w-[min(28rem,calc(100vw-2rem))] rounded-lg border border-ink/15 bg-paper-raised p-6 text-ink shadow-xl"
     >
-      <h2 id="confirm-dialog-title" className="text-lg font-semibold">
+      <h2 id={titleId} className="text-lg font-semibold">
         {title}
       </h2>
       {children ? <div className="mt-2 text-sm text-ink-soft">{children}</div> : null}

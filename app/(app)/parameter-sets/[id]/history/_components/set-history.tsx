@@ -1,0 +1,44 @@
+"use client";
+
+import { useState } from "react";
+import { ErrorPanel } from "@/components/ui/error-panel";
+import { SkeletonRows } from "@/components/ui/skeleton";
+import { useParameterSet, useParameterSetVersions } from "@/lib/query/parameter-sets";
+import { hasRole } from "@/lib/query/types";
+import { SetHeader } from "../../_components/set-header";
+import { VersionCompare } from "./version-compare";
+import { VersionList } from "./version-list";
+
+export function SetHistory({ id }: { id: string }) {
+  const set = useParameterSet(id);
+  const versions = useParameterSetVersions(id);
+  const [restored, setRestored] = useState<{ from: number; to: number } | null>(null);
+
+  if (!set.data || !versions.data) {
+    const error = set.error ?? versions.error;
+    if (error) return <ErrorPanel error={error} retry={() => void Promise.all([set.refetch(), versions.refetch()])} />;
+    return <SkeletonRows label="Loading the version history" rows={6} />;
+  }
+
+  const item = set.data;
+  return (
+    <>
+      <SetHeader item={item} current="history" />
+      {restored ? (
+        <p role="status" className="mb-4 rounded-md border border-lux bg-lux-light px-4 py-3 text-sm">
+          Restored: version {restored.to} now holds the content of version {restored.from}.
+        </p>
+      ) : null}
+      <div className="grid gap-8 xl:grid-cols-[22rem_1fr]">
+        <VersionList
+          setId={id}
+          versions={versions.data}
+          currentVersion={item.version}
+          canRestore={hasRole(item.role, "editor")}
+          onRestored={(from, to) => setRestored({ from, to })}
+        />
+        <VersionCompare versions={versions.data} />
+      </div>
+    </>
+  );
+}
