@@ -1,0 +1,37 @@
+import { changeMember } from "@/db/queries/labs";
+import type { LabRole } from "@/db/schema";
+import { readJson } from "@/lib/api/body";
+import { ApiError, notFound } from "@/lib/api/errors";
+import { isUuid } from "@/lib/api/ids";
+import { apiRoute, json, noContent } from "@/lib/api/route";
+import { changeMemberSchema } from "@/lib/api/schemas";
+import { requireCaller, requireLabRole, type Caller } from "@/lib/auth/access";
+
+type Params = { id: string; userId: string };
+
+async function change(options: { caller: Caller; labId: string; userId: string; role: LabRole | null }) {
+  if (!isUuid(options.userId)) throw notFound("No such member.");
+  const result = await changeMember({ actorId: options.caller.id, labId: options.labId, userId: options.userId, role: options.role });
+  if (!result.ok && result.reason === "not_member") throw notFound("No such member.");
+  if (!result.ok) throw new ApiError("conflict", "A lab needs at least one owner: make someone else owner first.");
+  return result.member;
+}
+
+/** PATCH /api/labs/{id}/members/{userId} { role } (owner) → { item } */
+export const PATCH = apiRoute<Params>(async (request, { params }) => {
+  const { id, userId } = await params;
+  const caller = await requireCaller(request);
+  // Authorize before reading the body, as everywhere: a non-owner learns nothing from validation.
+  const access = await requireLabRole(caller, id, "owner");
+  const { role } = await readJson(request, changeMemberSchema);
+  return json({ item: await change({ caller, labId: access.labId, userId, role }) });
+});
+
+/** DELETE /api/labs/{id}/members/{userId} (owner) → 204 */
+export const DELETE = apiRoute<Params>(async (request, { params }) => {
+  const { id, userId } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireLabRole(caller, id, "owner");
+  await change({ caller, labId: access.labId, userId, role: null });
+  return noContent();
+});

@@ -1,0 +1,37 @@
+import { deleteParameterSet, getParameterSet, updateParameterSet } from "@/db/queries/parameter-sets";
+import { readJson } from "@/lib/api/body";
+import { notFound } from "@/lib/api/errors";
+import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
+import { apiRoute, json, noContent } from "@/lib/api/route";
+import { updateParameterSetSchema } from "@/lib/api/schemas";
+import { requireCaller } from "@/lib/auth/access";
+
+type Params = { id: string };
+
+/** GET /api/parameter-sets/{id} (viewer) → { item } */
+export const GET = apiRoute<Params>(async (request, { params }) => {
+  const { id } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireParameterSetRole(caller, id, "viewer");
+  const item = await getParameterSet({ id, labId: access.labId, role: access.role });
+  if (!item) throw notFound("No such parameter set.");
+  return json({ item });
+});
+
+/** PATCH /api/parameter-sets/{id} { version, name?, description?, tags?, params? } (editor) → { item } */
+export const PATCH = apiRoute<Params>(async (request, { params }) => {
+  const { id } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireParameterSetRole(caller, id, "editor");
+  const input = await readJson(request, updateParameterSetSchema);
+  return json({ item: await updateParameterSet({ caller, id, labId: access.labId, role: access.role, input }) });
+});
+
+/** DELETE /api/parameter-sets/{id} (editor) → 204 */
+export const DELETE = apiRoute<Params>(async (request, { params }) => {
+  const { id } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireParameterSetRole(caller, id, "editor");
+  if (!(await deleteParameterSet({ caller, id, labId: access.labId }))) throw notFound("No such parameter set.");
+  return noContent();
+});

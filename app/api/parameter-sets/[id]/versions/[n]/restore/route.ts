@@ -1,0 +1,29 @@
+import { restoreParameterSetVersion } from "@/db/queries/parameter-sets";
+import { readOptionalJson } from "@/lib/api/body";
+import { notFound } from "@/lib/api/errors";
+import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
+import { apiRoute, json } from "@/lib/api/route";
+import { restoreVersionSchema } from "@/lib/api/schemas";
+import { requireCaller } from "@/lib/auth/access";
+
+/**
+ * POST /api/parameter-sets/{id}/versions/{n}/restore { version? } (editor) → { item }: a new
+ * version whose content equals version n. `version`, when sent, is the current version the
+ * client saw (stale → 409 stale_version).
+ */
+export const POST = apiRoute<{ id: string; n: string }>(async (request, { params }) => {
+  const { id, n } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireParameterSetRole(caller, id, "editor");
+  if (!/^[1-9][0-9]{0,8}$/.test(n)) throw notFound(`This parameter set has no version ${n}.`);
+  const body = await readOptionalJson(request, restoreVersionSchema);
+  const item = await restoreParameterSetVersion({
+    caller,
+    id,
+    labId: access.labId,
+    role: access.role,
+    restoreVersion: Number(n),
+    expectedVersion: body.version,
+  });
+  return json({ item });
+});

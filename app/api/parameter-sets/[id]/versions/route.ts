@@ -1,0 +1,15 @@
+import { listParameterSetVersions } from "@/db/queries/parameter-sets";
+import { notFound } from "@/lib/api/errors";
+import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
+import { apiRoute, json } from "@/lib/api/route";
+import { requireCaller } from "@/lib/auth/access";
+
+/** GET /api/parameter-sets/{id}/versions (viewer) → { items } newest first */
+export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
+  const { id } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireParameterSetRole(caller, id, "viewer");
+  const items = await listParameterSetVersions({ id, labId: access.labId });
+  if (!items) throw notFound("No such parameter set.");
+  return json({ items });
+});

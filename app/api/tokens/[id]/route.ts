@@ -1,0 +1,13 @@
+import { revokeToken } from "@/db/queries/tokens";
+import { notFound } from "@/lib/api/errors";
+import { isUuid } from "@/lib/api/ids";
+import { apiRoute, noContent } from "@/lib/api/route";
+import { requireCaller } from "@/lib/auth/access";
+
+/** DELETE /api/tokens/{id} → 204 (revokes one of the caller's own tokens) */
+export const DELETE = apiRoute<{ id: string }>(async (request, { params }) => {
+  const { id } = await params;
+  const caller = await requireCaller(request);
+  if (!isUuid(id) || !(await revokeToken({ userId: caller.id, tokenId: id }))) throw notFound("No such token.");
+  return noContent();
+});

@@ -1,0 +1,134 @@
+import "server-only";
+import { and, asc, eq, sql } from "drizzle-orm";
+import { db } from "../client";
+import { labMemberships, labs, users, type LabRole, type SiteRole } from "../schema";
+import { recordAudit } from "./audit";
+
+/** A lab and the user's own membership role in it (null when not a member); null when no such lab. */
+export async function getLabAccess(options: {
+  labId: string;
+  userId: string;
+}): Promise<{ labId: string; labName: string; role: LabRole | null } | null> {
+  const [row] = await db
+    .select({ labId: labs.id, labName: labs.name, role: labMemberships.role })
+    .from(labs)
+    .leftJoin(labMemberships, and(eq(labMemberships.labId, labs.id), eq(labMemberships.userId, options.userId)))
+    .where(eq(labs.id, options.labId))
+    .limit(1);
+  return row ?? null;
+}
+
+export interface LabSummary {
+  id: string;
+  name: string;
+  role: LabRole;
+}
+
+/** The caller's labs; a site admin gets every lab, as owner. */
+export async function listLabs(options: { userId: string; siteRole: SiteRole }): Promise<LabSummary[]> {
+  if (options.siteRole === "admin") {
+    const rows = await db.select({ id: labs.id, name: labs.name }).from(labs).orderBy(asc(labs.name));
+    return rows.map((row) => ({ ...row, role: "owner" as const }));
+  }
+  return db
+    .select({ id: labs.id, name: labs.name, role: labMemberships.role })
+    .from(labMemberships)
+    .innerJoin(labs, eq(labs.id, labMemberships.labId))
+    .where(eq(labMemberships.userId, options.userId))
+    .orderBy(asc(labs.name));
+}
+
+export interface MemberSummary {
+  userId: string;
+  email: string;
+  name: string;
+  role: LabRole;
+}
+
+const memberColumns = { userId: users.id, email: users.email, name: users.name, role: labMemberships.role };
+
+/** Members of a lab the caller was already authorized for (requireLabRole). */
+export async function listMembers(options: { labId: string }): Promise<MemberSummary[]> {
+  return db
+    .select(memberColumns)
+    .from(labMemberships)
+    .innerJoin(users, eq(users.id, labMemberships.userId))
+    .where(eq(labMemberships.labId, options.labId))
+    .orderBy(sql`case ${labMemberships.role} when 'owner' then 0 when 'editor' then 1 else 2 end`, asc(users.name));
+}
+
+export type AddMemberResult = { ok: true; member: MemberSummary } | { ok: false; reason: "no_user" | "already_member" };
+
+export async function addMember(options: { actorId: string; labId: string; email: string; role: LabRole }): Promise<AddMemberResult> {
+  return db.transaction(async (tx) => {
+    const [user] = await tx
+      .select({ id: users.id, email: users.email, name: users.name })
+      .from(users)
+      .where(eq(sql`lower(${users.email})`, options.email.trim().toLowerCase()))
+      .limit(1);
+    if (!user) return { ok: false as const, reason: "no_user" as const };
+    const inserted = await tx
+      .insert(labMemberships)
+      .values({ labId: options.labId, userId: user.id, role: options.role })
+      .onConflictDoNothing()
+      .returning({ role: labMemberships.role });
+    const row = inserted[0];
+    if (!row) return { ok: false as const, reason: "already_member" as const };
+    await recordAudit({
+      tx,
+      entry: { actorId: options.actorId, action: "member.add", targetType: "user", targetId: user.id, labId: options.labId, details: { role: row.role } },
+    });
+    return { ok: true as const, member: { userId: user.id, email: user.email, name: user.name, role: row.role } };
+  });
+}
+
+export type ChangeMemberResult = { ok: true; member: MemberSummary | null } | { ok: false; reason: "not_member" | "last_owner" };
+
+/**
+ * Changes a member's role (role given) or removes them (role null). The lab must keep an owner:
+ * the membership rows are locked so two owners demoting each other at once cannot both succeed.
+ */
+export async function changeMember(options: {
+  actorId: string;
+  labId: string;
+  userId: string;
+  role: LabRole | null;
+}): Promise<ChangeMemberResult> {
+  return db.transaction(async (tx) => {
+    const rows = await tx
+      .select({ userId: labMemberships.userId, role: labMemberships.role })
+      .from(labMemberships)
+      .where(eq(labMemberships.labId, options.labId))
+      .for("update");
+    const target = rows.find((row) => row.userId === options.userId);
+    if (!target) return { ok: false as const, reason: "not_member" as const };
+    const otherOwners = rows.filter((row) => row.role === "owner" && row.userId !== options.userId).length;
+    if (target.role === "owner" && options.role !== "owner" && otherOwners === 0) {
+      return { ok: false as const, reason: "last_owner" as const };
+    }
+    const where = and(eq(labMemberships.labId, options.labId), eq(labMemberships.userId, options.userId));
+    if (options.role === null) {
+      await tx.delete(labMemberships).where(where);
+    } else {
+      await tx.update(labMemberships).set({ role: options.role }).where(where);
+    }
+    await recordAudit({
+      tx,
+      entry: {
+        actorId: options.actorId,
+        action: options.role === null ? "member.remove" : "member.role",
+        targetType: "user",
+        targetId: options.userId,
+        labId: options.labId,
+        details: { from: target.role, to: options.role },
+      },
+    });
+    if (options.role === null) return { ok: true as const, member: null };
+    const [member] = await tx
+      .select(memberColumns)
+      .from(labMemberships)
+      .innerJoin(users, eq(users.id, labMemberships.userId))
+      .where(where);
+    return { ok: true as const, member: member ?? null };
+  });
+}

@@ -1,0 +1,403 @@
+import "server-only";
+import { and, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
+import { uniqueViolation } from "@/lib/api/db-errors";
+import { ApiError, notFound } from "@/lib/api/errors";
+import type { CreateParameterSetInput, UpdateParameterSetInput } from "@/lib/api/schemas";
+import type { ModelParams } from "@/lib/physics/schema";
+import { db, type Database } from "../client";
+import { labMemberships, labs, parameterSets, parameterSetVersions, users, type LabRole } from "../schema";
+import { recordAudit } from "./audit";
+import type { Caller } from "./caller";
+
+/*
+ * Parameter sets and their immutable versions. Callers pass the lab they were authorized for
+ * (lib/auth/access.ts requireLabRole) and every query filters on it, so a set id from another
+ * lab finds nothing.
+ */
+
+type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+type Executor = Database | Tx;
+
+export interface UserRef {
+  id: string;
+  name: string;
+}
+
+export interface ParameterSetSummary {
+  id: string;
+  labId: string;
+  labName: string;
+  name: string;
+  description: string;
+  tags: string[];
+  version: number;
+  createdAt: string;
+  updatedAt: string;
+  createdBy: UserRef;
+  updatedBy: UserRef;
+  role: LabRole;
+}
+
+export interface ParameterSet extends ParameterSetSummary {
+  params: ModelParams;
+  viewState: Record<string, unknown> | null;
+}
+
+export interface ParameterSetVersion {
+  version: number;
+  name: string;
+  description: string;
+  tags: string[];
+  params: ModelParams;
+  createdAt: string;
+  createdBy: UserRef;
+}
+
+const NOT_FOUND = "No such parameter set.";
+const createdByUser = alias(users, "created_by_user");
+const updatedByUser = alias(users, "updated_by_user");
+
+const summaryColumns = {
+  id: parameterSets.id,
+  labId: parameterSets.labId,
+  labName: labs.name,
+  name: parameterSets.name,
+  description: parameterSets.description,
+  tags: parameterSets.tags,
+  version: parameterSets.version,
+  createdAt: parameterSets.createdAt,
+  updatedAt: parameterSets.updatedAt,
+  createdById: createdByUser.id,
+  createdByName: createdByUser.name,
+  updatedById: updatedByUser.id,
+  updatedByName: updatedByUser.name,
+};
+
+type SummaryRow = {
+  [K in keyof typeof summaryColumns]: (typeof summaryColumns)[K]["_"]["data"];
+};
+
+function toSummary(row: SummaryRow, role: LabRole): ParameterSetSummary {
+  return {
+    id: row.id,
+    labId: row.labId,
+    labName: row.labName,
+    name: row.name,
+    description: row.description,
+    tags: row.tags,
+    version: row.version,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+    createdBy: { id: row.createdById, name: row.createdByName },
+    updatedBy: { id: row.updatedById, name: row.updatedByName },
+    role,
+  };
+}
+
+// LIKE wildcards in a search box are literal text to the user.
+const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+/** Sets in the caller's labs (every lab for a site admin), newest edit first. */
+export async function listParameterSets(options: {
+  caller: Caller;
+  labId?: string;
+  q?: string;
+  tag?: string;
+}): Promise<ParameterSetSummary[]> {
+  const isAdmin = options.caller.siteRole === "admin";
+  const conditions: (SQL | undefined)[] = [];
+  if (!isAdmin) conditions.push(eq(labMemberships.userId, options.caller.id));
+  if (options.labId) conditions.push(eq(parameterSets.labId, options.labId));
+  if (options.q) {
+    const pattern = `%${escapeLike(options.q)}%`;
+    conditions.push(or(ilike(parameterSets.name, pattern), ilike(parameterSets.description, pattern)));
+  }
+  if (options.tag) conditions.push(sql`${options.tag} = any(${parameterSets.tags})`);
+
+  const rows = await db
+    .select({ ...summaryColumns, memberRole: labMemberships.role })
+    .from(parameterSets)
+    .innerJoin(labs, eq(labs.id, parameterSets.labId))
+    .innerJoin(createdByUser, eq(createdByUser.id, parameterSets.createdById))
+    .innerJoin(updatedByUser, eq(updatedByUser.id, parameterSets.updatedById))
+    .leftJoin(labMemberships, and(eq(labMemberships.labId, parameterSets.labId), eq(labMemberships.userId, options.caller.id)))
+    .where(and(...conditions))
+    .orderBy(desc(parameterSets.updatedAt), desc(parameterSets.id));
+  return rows.flatMap((row) => {
+    const role: LabRole | null = isAdmin ? "owner" : row.memberRole;
+    return role ? [toSummary(row, role)] : [];
+  });
+}
+
+/** The lab a set belongs to (for requireLabRole), or null when there is no such set. */
+export async function findParameterSetLabId(options: { id: string }): Promise<string | null> {
+  const [row] = await db.select({ labId: parameterSets.labId }).from(parameterSets).where(eq(parameterSets.id, options.id)).limit(1);
+  return row?.labId ?? null;
+}
+
+async function loadItem(executor: Executor, options: { id: string; labId: string; role: LabRole }): Promise<ParameterSet | null> {
+  const [row] = await executor
+    .select({ ...summaryColumns, params: parameterSets.params, viewState: parameterSets.viewState })
+    .from(parameterSets)
+    .innerJoin(labs, eq(labs.id, parameterSets.labId))
+    .innerJoin(createdByUser, eq(createdByUser.id, parameterSets.createdById))
+    .innerJoin(updatedByUser, eq(updatedByUser.id, parameterSets.updatedById))
+    .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
+    .limit(1);
+  if (!row) return null;
+  return { ...toSummary(row, options.role), params: row.params, viewState: row.viewState ?? null };
+}
+
+async function requireItem(executor: Executor, options: { id: string; labId: string; role: LabRole }): Promise<ParameterSet> {
+  const item = await loadItem(executor, options);
+  if (!item) throw notFound(NOT_FOUND);
+  return item;
+}
+
+export async function getParameterSet(options: { id: string; labId: string; role: LabRole }): Promise<ParameterSet | null> {
+  return loadItem(db, options);
+}
+
+function duplicateName(error: unknown, name: string): ApiError | null {
+  if (uniqueViolation(error) !== "parameter_sets_lab_name_unique") return null;
+  return new ApiError("conflict", `A parameter set named “${name}” already exists in this lab.`, {
+    fields: { name: "This lab already has a parameter set with this name." },
+  });
+}
+
+export async function createParameterSet(options: {
+  caller: Caller;
+  role: LabRole;
+  input: CreateParameterSetInput;
+}): Promise<ParameterSet> {
+  const { caller, input } = options;
+  try {
+    return await db.transaction(async (tx) => {
+      const [row] = await tx
+        .insert(parameterSets)
+        .values({
+          labId: input.labId,
+          name: input.name,
+          description: input.description,
+          tags: input.tags,
+          params: input.params,
+          version: 1,
+          createdById: caller.id,
+          updatedById: caller.id,
+        })
+        .returning({ id: parameterSets.id, createdAt: parameterSets.createdAt });
+      if (!row) throw new Error("insert into parameter_sets returned no row");
+      await tx.insert(parameterSetVersions).values({
+        setId: row.id,
+        version: 1,
+        name: input.name,
+        description: input.description,
+        tags: input.tags,
+        params: input.params,
+        createdById: caller.id,
+        createdAt: row.createdAt,
+      });
+      await recordAudit({
+        tx,
+        entry: { actorId: caller.id, action: "parameter_set.create", targetType: "parameter_set", targetId: row.id, labId: input.labId, details: { name: input.name, version: 1 } },
+      });
+      return requireItem(tx, { id: row.id, labId: input.labId, role: options.role });
+    });
+  } catch (error) {
+    throw duplicateName(error, input.name) ?? error;
+  }
+}
+
+interface Content {
+  name: string;
+  description: string;
+  tags: string[];
+  params: ModelParams;
+}
+
+/**
+ * Saves new content as version current+1 (with its immutable snapshot), after locking the row and
+ * checking the version the client edited. Shared by PATCH and restore.
+ */
+async function saveNewVersion(
+  tx: Tx,
+  options: {
+    caller: Caller;
+    id: string;
+    labId: string;
+    role: LabRole;
+    expectedVersion: number | undefined;
+    content: (current: Content & { version: number }) => Promise<Content> | Content;
+    audit: { action: string; details: Record<string, unknown> };
+  },
+): Promise<ParameterSet> {
+  const [current] = await tx
+    .select({
+      version: parameterSets.version,
+      name: parameterSets.name,
+      description: parameterSets.description,
+      tags: parameterSets.tags,
+      params: parameterSets.params,
+    })
+    .from(parameterSets)
+    .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
+    .for("update");
+  if (!current) throw notFound(NOT_FOUND);
+  if (options.expectedVersion !== undefined && options.expectedVersion !== current.version) {
+    const latest = await requireItem(tx, options);
+    throw new ApiError(
+      "stale_version",
+      `Someone saved version ${current.version} after the version ${options.expectedVersion} you edited. Reload and apply your changes again.`,
+      { extra: { current: latest } },
+    );
+  }
+  const next = await options.content(current);
+  const version = current.version + 1;
+  const now = new Date();
+  await tx
+    .update(parameterSets)
+    .set({ ...next, version, updatedById: options.caller.id, updatedAt: now })
+    .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)));
+  await tx.insert(parameterSetVersions).values({ setId: options.id, version, ...next, createdById: options.caller.id, createdAt: now });
+  await recordAudit({
+    tx,
+    entry: {
+      actorId: options.caller.id,
+      action: options.audit.action,
+      targetType: "parameter_set",
+      targetId: options.id,
+      labId: options.labId,
+      details: { ...options.audit.details, version },
+    },
+  });
+  return requireItem(tx, options);
+}
+
+export async function updateParameterSet(options: {
+  caller: Caller;
+  id: string;
+  labId: string;
+  role: LabRole;
+  input: UpdateParameterSetInput;
+}): Promise<ParameterSet> {
+  const { input } = options;
+  const changed = (["name", "description", "tags", "params"] as const).filter((key) => input[key] !== undefined);
+  try {
+    return await db.transaction((tx) =>
+      saveNewVersion(tx, {
+        ...options,
+        expectedVersion: input.version,
+        content: (current) => ({
+          name: input.name ?? current.name,
+          description: input.description ?? current.description,
+          tags: input.tags ?? current.tags,
+          params: input.params ?? current.params,
+        }),
+        audit: { action: "parameter_set.update", details: { changed } },
+      }),
+    );
+  } catch (error) {
+    throw duplicateName(error, input.name ?? "") ?? error;
+  }
+}
+
+export async function restoreParameterSetVersion(options: {
+  caller: Caller;
+  id: string;
+  labId: string;
+  role: LabRole;
+  restoreVersion: number;
+  expectedVersion?: number;
+}): Promise<ParameterSet> {
+  let restoredName = "";
+  try {
+    return await db.transaction((tx) =>
+      saveNewVersion(tx, {
+        ...options,
+        expectedVersion: options.expectedVersion,
+        content: async () => {
+          const [old] = await tx
+            .select({
+              name: parameterSetVersions.name,
+              description: parameterSetVersions.description,
+              tags: parameterSetVersions.tags,
+              params: parameterSetVersions.params,
+            })
+            .from(parameterSetVersions)
+            .where(and(eq(parameterSetVersions.setId, options.id), eq(parameterSetVersions.version, options.restoreVersion)));
+          if (!old) throw notFound(`This parameter set has no version ${options.restoreVersion}.`);
+          restoredName = old.name;
+          return old;
+        },
+        audit: { action: "parameter_set.restore", details: { restoredVersion: options.restoreVersion } },
+      }),
+    );
+  } catch (error) {
+    throw duplicateName(error, restoredName) ?? error;
+  }
+}
+
+export async function deleteParameterSet(options: { caller: Caller; id: string; labId: string }): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .delete(parameterSets)
+      .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
+      .returning({ name: parameterSets.name, version: parameterSets.version });
+    if (!row) return false;
+    await recordAudit({
+      tx,
+      entry: { actorId: options.caller.id, action: "parameter_set.delete", targetType: "parameter_set", targetId: options.id, labId: options.labId, details: row },
+    });
+    return true;
+  });
+}
+
+export async function listParameterSetVersions(options: { id: string; labId: string }): Promise<ParameterSetVersion[] | null> {
+  const exists = await findParameterSetLabId({ id: options.id });
+  if (exists !== options.labId) return null;
+  const rows = await db
+    .select({
+      version: parameterSetVersions.version,
+      name: parameterSetVersions.name,
+      description: parameterSetVersions.description,
+      tags: parameterSetVersions.tags,
+      params: parameterSetVersions.params,
+      createdAt: parameterSetVersions.createdAt,
+      createdById: users.id,
+      createdByName: users.name,
+    })
+    .from(parameterSetVersions)
+    .innerJoin(parameterSets, eq(parameterSets.id, parameterSetVersions.setId))
+    .innerJoin(users, eq(users.id, parameterSetVersions.createdById))
+    .where(and(eq(parameterSetVersions.setId, options.id), eq(parameterSets.labId, options.labId)))
+    .orderBy(desc(parameterSetVersions.version));
+  return rows.map((row) => ({
+    version: row.version,
+    name: row.name,
+    description: row.description,
+    tags: row.tags,
+    params: row.params,
+    createdAt: row.createdAt.toISOString(),
+    createdBy: { id: row.createdById, name: row.createdByName },
+  }));
+}
+
+/** Stores the workbench's view state; not a content change, so no new version. */
+export async function saveParameterSetViewState(options: {
+  caller: Caller;
+  id: string;
+  labId: string;
+  role: LabRole;
+  viewState: Record<string, unknown> | null;
+}): Promise<ParameterSet> {
+  return db.transaction(async (tx) => {
+    const rows = await tx
+      .update(parameterSets)
+      .set({ viewState: options.viewState })
+      .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
+      .returning({ id: parameterSets.id });
+    if (rows.length === 0) throw notFound(NOT_FOUND);
+    return requireItem(tx, options);
+  });
+}

@@ -1,0 +1,87 @@
+import "server-only";
+import { and, desc, eq, isNull, lt, or } from "drizzle-orm";
+import { db } from "../client";
+import { apiTokens, users, type User } from "../schema";
+import { recordAudit } from "./audit";
+
+export interface TokenSummary {
+  id: string;
+  name: string;
+  createdAt: string;
+  lastUsedAt: string | null;
+}
+
+const summary = (row: { id: string; name: string; createdAt: Date; lastUsedAt: Date | null }): TokenSummary => ({
+  id: row.id,
+  name: row.name,
+  createdAt: row.createdAt.toISOString(),
+  lastUsedAt: row.lastUsedAt?.toISOString() ?? null,
+});
+
+export async function listTokens(options: { userId: string }): Promise<TokenSummary[]> {
+  const rows = await db
+    .select()
+    .from(apiTokens)
+    .where(and(eq(apiTokens.userId, options.userId), isNull(apiTokens.revokedAt)))
+    .orderBy(desc(apiTokens.createdAt));
+  return rows.map(summary);
+}
+
+export async function createToken(options: { userId: string; name: string; tokenHash: string }): Promise<TokenSummary> {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(apiTokens)
+      .values({ userId: options.userId, name: options.name, tokenHash: options.tokenHash })
+      .returning();
+    if (!row) throw new Error("insert into api_tokens returned no row");
+    await recordAudit({
+      tx,
+      entry: { actorId: options.userId, action: "token.create", targetType: "api_token", targetId: row.id, details: { name: row.name } },
+    });
+    return summary(row);
+  });
+}
+
+/** Revokes one of the caller's own tokens; false when there is no such live token of theirs. */
+export async function revokeToken(options: { userId: string; tokenId: string }): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const rows = await tx
+      .update(apiTokens)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(apiTokens.id, options.tokenId), eq(apiTokens.userId, options.userId), isNull(apiTokens.revokedAt)))
+      .returning({ id: apiTokens.id, name: apiTokens.name });
+    const row = rows[0];
+    if (!row) return false;
+    await recordAudit({
+      tx,
+      entry: { actorId: options.userId, action: "token.revoke", targetType: "api_token", targetId: row.id, details: { name: row.name } },
+    });
+    return true;
+  });
+}
+
+// last_used_at is a hint for the settings page; writing it at most once a minute spares a write
+// per API call.
+const LAST_USED_GRANULARITY_MS = 60 * 1000;
+
+/** The user a live (not revoked) token belongs to, or null. */
+export async function findUserByTokenHash(options: { tokenHash: string }): Promise<User | null> {
+  const [row] = await db
+    .select({ user: users, tokenId: apiTokens.id })
+    .from(apiTokens)
+    .innerJoin(users, eq(users.id, apiTokens.userId))
+    .where(and(eq(apiTokens.tokenHash, options.tokenHash), isNull(apiTokens.revokedAt)))
+    .limit(1);
+  if (!row) return null;
+  const now = new Date();
+  await db
+    .update(apiTokens)
+    .set({ lastUsedAt: now })
+    .where(
+      and(
+        eq(apiTokens.id, row.tokenId),
+        or(isNull(apiTokens.lastUsedAt), lt(apiTokens.lastUsedAt, new Date(now.getTime() - LAST_USED_GRANULARITY_MS))),
+      ),
+    );
+  return row.user;
+}

@@ -1,0 +1,89 @@
+import type { z } from "zod";
+import { ApiError, validationError } from "./errors";
+
+/** Largest request body the API accepts (shared contract). */
+export const MAX_BODY_BYTES = 64 * 1024;
+
+/*
+ * Reads a JSON request body under the 64 KiB limit. The limit is enforced on the bytes actually
+ * read, not only on Content-Length, because chunked requests carry no length.
+ */
+async function readText(request: Request): Promise<string> {
+  const declared = request.headers.get("content-length");
+  if (declared !== null && Number(declared) > MAX_BODY_BYTES) throw tooLarge();
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > MAX_BODY_BYTES) {
+      await reader.cancel().catch(() => undefined);
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  const bytes = new Uint8Array(total);
+  let offset = 0;
+  for (const chunk of chunks) {
+    bytes.set(chunk, offset);
+    offset += chunk.byteLength;
+  }
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    throw new ApiError("bad_json", "The request body is not valid UTF-8.");
+  }
+}
+
+const tooLarge = () => new ApiError("payload_too_large", `The request body is larger than ${MAX_BODY_BYTES / 1024} KiB.`);
+
+function requireJsonContentType(request: Request): void {
+  const type = request.headers.get("content-type") ?? "";
+  const mediaType = type.split(";")[0]?.trim().toLowerCase() ?? "";
+  if (mediaType !== "application/json" && !mediaType.endsWith("+json")) {
+    throw new ApiError("unsupported_media_type", "Send the body as JSON (Content-Type: application/json).");
+  }
+}
+
+function parseJson(text: string): unknown {
+  try {
+    // JSON cannot carry NaN or Infinity, but 1e999 parses to Infinity; the schemas' finite checks
+    // turn that into a validation error with a field, not a stored Infinity (which would become null).
+    return JSON.parse(text);
+  } catch {
+    throw new ApiError("bad_json", "The request body is not valid JSON.");
+  }
+}
+
+/** Parses and validates a required JSON body. */
+export async function readJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.infer<S>> {
+  requireJsonContentType(request);
+  const text = await readText(request);
+  if (text.trim() === "") throw new ApiError("bad_json", "The request body is empty; send a JSON object.");
+  const result = schema.safeParse(parseJson(text));
+  if (!result.success) throw validationError(result.error);
+  return result.data;
+}
+
+/** Like readJson, but an absent/empty body counts as `{}` (e.g. restore's optional version). */
+export async function readOptionalJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.infer<S>> {
+  const declared = request.headers.get("content-length");
+  const hasType = request.headers.get("content-type") !== null;
+  if (!hasType && (declared === null || declared === "0")) {
+    const text = await readText(request);
+    if (text.trim() === "") return parseWith(schema, {});
+    throw new ApiError("unsupported_media_type", "Send the body as JSON (Content-Type: application/json).");
+  }
+  requireJsonContentType(request);
+  const text = await readText(request);
+  return parseWith(schema, text.trim() === "" ? {} : parseJson(text));
+}
+
+function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) throw validationError(result.error);
+  return result.data;
+}

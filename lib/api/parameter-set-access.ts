@@ -1,0 +1,16 @@
+import "server-only";
+import { findParameterSetLabId } from "@/db/queries/parameter-sets";
+import type { LabRole } from "@/db/schema";
+import { requireLabRole, type Caller, type LabAccess } from "@/lib/auth/access";
+import { notFound } from "./errors";
+import { isUuid } from "./ids";
+
+const NOT_FOUND = "No such parameter set.";
+
+/** Resolves a set's lab and checks the caller's role there (404 for unknown ids and non-members alike). */
+export async function requireParameterSetRole(caller: Caller, id: string, minRole: LabRole): Promise<LabAccess> {
+  if (!isUuid(id)) throw notFound(NOT_FOUND);
+  const labId = await findParameterSetLabId({ id });
+  if (!labId) throw notFound(NOT_FOUND);
+  return requireLabRole(caller, labId, minRole, { notFoundMessage: NOT_FOUND });
+}

@@ -1,0 +1,80 @@
+import "server-only";
+import { headers as nextHeaders } from "next/headers";
+import type { Caller } from "@/db/queries/caller";
+import { getLabAccess } from "@/db/queries/labs";
+import { findUserByTokenHash } from "@/db/queries/tokens";
+import { findUserById } from "@/db/queries/users";
+import type { LabRole } from "@/db/schema";
+import { ApiError, forbidden, notFound, unauthenticated } from "@/lib/api/errors";
+import { isUuid } from "@/lib/api/ids";
+import { auth } from "./config";
+import { bearerToken, hashToken } from "./tokens";
+
+export type { Caller } from "@/db/queries/caller";
+
+/*
+ * The one authorization module. Route handlers and server actions get the caller here and ask
+ * requireLabRole for every lab-scoped resource; nothing else decides who may do what.
+ */
+
+const RANK: Record<LabRole, number> = { viewer: 1, editor: 2, owner: 3 };
+
+export function roleAtLeast(role: LabRole, min: LabRole): boolean {
+  return RANK[role] >= RANK[min];
+}
+
+/**
+ * The caller from `Authorization: Bearer glx_…` or else the session cookie; null when neither.
+ * A bearer header that is present but wrong is an error, not a fall-back to the cookie, so a
+ * script with a revoked token fails loudly. The user row is re-read so deleted users lose access.
+ */
+export async function getCaller(request?: Request): Promise<Caller | null> {
+  const headers = request?.headers ?? (await nextHeaders());
+  const token = bearerToken(headers);
+  if (token === "malformed") throw new ApiError("unauthenticated", "The Authorization header must be `Bearer glx_…`.");
+  if (token !== null) {
+    const user = await findUserByTokenHash({ tokenHash: hashToken(token) });
+    if (!user) throw new ApiError("unauthenticated", "This API token is unknown or revoked.");
+    return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "token" };
+  }
+  const session = await auth();
+  const id = session?.user?.id;
+  if (!id || !isUuid(id)) return null;
+  const user = await findUserById({ id });
+  if (!user) return null;
+  return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "session" };
+}
+
+/** The caller, or 401. */
+export async function requireCaller(request?: Request): Promise<Caller> {
+  const caller = await getCaller(request);
+  if (!caller) throw unauthenticated();
+  return caller;
+}
+
+export interface LabAccess {
+  labId: string;
+  labName: string;
+  /** The caller's effective role; site admins act as owner. */
+  role: LabRole;
+}
+
+/**
+ * Non-member (or unknown/malformed lab id) → 404, so a lab's existence does not leak;
+ * member below `minRole` → 403; site admin → owner everywhere.
+ */
+export async function requireLabRole(
+  caller: Caller,
+  labId: string,
+  minRole: LabRole,
+  options: { notFoundMessage?: string } = {},
+): Promise<LabAccess> {
+  const missing = () => notFound(options.notFoundMessage ?? "No such lab.");
+  if (!isUuid(labId)) throw missing();
+  const access = await getLabAccess({ labId, userId: caller.id });
+  if (!access) throw missing();
+  const role: LabRole | null = caller.siteRole === "admin" ? "owner" : access.role;
+  if (!role) throw missing();
+  if (!roleAtLeast(role, minRole)) throw forbidden(`This needs the ${minRole} role in ${access.labName}; you are ${role}.`);
+  return { labId: access.labId, labName: access.labName, role };
+}

@@ -1,0 +1,88 @@
+"use server";
+
+import { AuthError, CredentialsSignin } from "next-auth";
+import { headers } from "next/headers";
+import { isDbUnavailable } from "@/lib/api/db-errors";
+import { zodFields } from "@/lib/api/errors";
+import { clientIp } from "./client-ip";
+import { signIn, signOut } from "./config";
+import { rateLimitMessage, signInWaitSeconds } from "./rate-limit";
+import { safeRedirectTarget } from "./redirect-target";
+import { signInSchema, signUpSchema } from "./schemas";
+import { EMAIL_TAKEN_MESSAGE, registerAccount } from "./sign-up";
+
+/** State of the sign-in/sign-up forms (useActionState). */
+export interface AuthFormState {
+  error?: string;
+  fields?: Record<string, string>;
+}
+
+const WRONG_CREDENTIALS = "Wrong e-mail or password.";
+const UNAVAILABLE = "Signing in is unavailable right now (the database is not reachable). Try again shortly.";
+
+const text = (formData: FormData, key: string) => {
+  const value = formData.get(key);
+  return typeof value === "string" ? value : undefined;
+};
+
+/**
+ * Signs in and redirects to the form's `redirectTo` (default /parameter-sets). signIn throws a
+ * redirect (NEXT_REDIRECT) on success, which must propagate; it throws AuthError on failure.
+ */
+async function signInAndRedirect(options: { email: string; password: string; redirectTo: string }): Promise<AuthFormState> {
+  try {
+    await signIn("credentials", { ...options });
+  } catch (error) {
+    if (error instanceof CredentialsSignin && error.code === "rate_limited") {
+      const wait = await signInWaitSeconds({ email: options.email, ip: clientIp(await headers()) }).catch(() => 60);
+      return { error: rateLimitMessage(Math.max(wait, 1)) };
+    }
+    if (error instanceof CredentialsSignin) return { error: WRONG_CREDENTIALS };
+    // Anything else thrown inside authorize (a lost database) arrives as a CallbackRouteError.
+    if (error instanceof AuthError) return { error: isDbUnavailable(error) || error.type === "CallbackRouteError" ? UNAVAILABLE : WRONG_CREDENTIALS };
+    throw error;
+  }
+  return {};
+}
+
+export async function signInAction(_prev: AuthFormState, formData: FormData): Promise<AuthFormState> {
+  const parsed = signInSchema.safeParse({ email: text(formData, "email"), password: text(formData, "password") });
+  if (!parsed.success) return { error: "Check the highlighted fields.", fields: zodFields(parsed.error) };
+  const redirectTo = safeRedirectTarget(text(formData, "redirectTo"));
+  try {
+    const wait = await signInWaitSeconds({ email: parsed.data.email, ip: clientIp(await headers()) });
+    if (wait > 0) return { error: rateLimitMessage(wait) };
+  } catch (error) {
+    if (isDbUnavailable(error)) return { error: UNAVAILABLE };
+    throw error;
+  }
+  return signInAndRedirect({ ...parsed.data, redirectTo });
+}
+
+export async function signUpAction(_prev: AuthFormState, formData: FormData): Promise<AuthFormState> {
+  const parsed = signUpSchema.safeParse({
+    name: text(formData, "name"),
+    email: text(formData, "email"),
+    password: text(formData, "password"),
+  });
+  const fields = parsed.success ? {} : zodFields(parsed.error);
+  const confirm = text(formData, "confirmPassword");
+  if (confirm !== undefined && confirm !== text(formData, "password")) fields.confirmPassword = "The passwords do not match.";
+  if (!parsed.success || Object.keys(fields).length > 0) return { error: "Check the highlighted fields.", fields };
+  try {
+    const result = await registerAccount(parsed.data);
+    if (!result.ok) return { error: EMAIL_TAKEN_MESSAGE, fields: { email: EMAIL_TAKEN_MESSAGE } };
+  } catch (error) {
+    if (isDbUnavailable(error)) return { error: "Signing up is unavailable right now (the database is not reachable). Try again shortly." };
+    throw error;
+  }
+  return signInAndRedirect({
+    email: parsed.data.email,
+    password: parsed.data.password,
+    redirectTo: safeRedirectTarget(text(formData, "redirectTo")),
+  });
+}
+
+export async function signOutAction(): Promise<void> {
+  await signOut({ redirectTo: "/sign-in" });
+}

@@ -1,0 +1,25 @@
+import { createHash, randomBytes } from "node:crypto";
+
+/*
+ * API tokens: "glx_" + 32 random bytes in base64url (256 bits, so a fast sha256 is enough; no
+ * salt or slow hash is needed for secrets that cannot be guessed). Only the hash is stored.
+ */
+export const TOKEN_PREFIX = "glx_";
+
+export function generateToken(): { token: string; tokenHash: string } {
+  const token = `${TOKEN_PREFIX}${randomBytes(32).toString("base64url")}`;
+  return { token, tokenHash: hashToken(token) };
+}
+
+export function hashToken(token: string): string {
+  return createHash("sha256").update(token, "utf8").digest("hex");
+}
+
+/** The token from `Authorization: Bearer glx_…`, null when there is no bearer header at all. */
+export function bearerToken(headers: Headers): string | null | "malformed" {
+  const header = headers.get("authorization");
+  if (header === null) return null;
+  const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
+  if (!match?.[1] || !match[1].startsWith(TOKEN_PREFIX) || match[1].length > 200) return "malformed";
+  return match[1];
+}
