@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { DEMO_PASSWORD, DEMO_USERS } from "@/db/demo-data";
 import { isDemoSeeded } from "@/db/queries/demo";
+import { safeRedirectTarget } from "@/lib/auth/redirect-target";
 import { SignInForm, type DemoAccount } from "./_components/sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
@@ -12,10 +13,8 @@ const DEMO_ACCOUNTS: DemoAccount[] = [
   { email: DEMO_USERS.student.email, name: DEMO_USERS.student.name, role: "Viewer — reads only" },
 ];
 
-// Only same-site paths, so a crafted link cannot send someone elsewhere after signing in.
-function safeRedirect(value: string | string[] | undefined): string {
-  const path = Array.isArray(value) ? value[0] : value;
-  return path && path.startsWith("/") && !path.startsWith("//") ? path : "/parameter-sets";
+function first(value: string | string[] | undefined): string | undefined {
+  return Array.isArray(value) ? value[0] : value;
 }
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
@@ -25,7 +24,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       <section className="rounded-lg border border-ink/10 bg-paper-raised p-6 shadow-sm sm:p-8">
         <h1 className="text-xl font-semibold">Sign in to Gyrolux</h1>
         <SignInForm
-          redirectTo={safeRedirect(params.callbackUrl ?? params.redirectTo)}
+          redirectTo={safeRedirectTarget(first(params.callbackUrl) ?? first(params.redirectTo))}
           demo={demo ? { accounts: DEMO_ACCOUNTS, password: DEMO_PASSWORD } : null}
         />
         <p className="mt-6 text-sm text-ink-soft">

@@ -1,0 +1,120 @@
+"use client";
+
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
+import { ErrorPanel } from "@/components/ui/error-panel";
+import { SkeletonRows } from "@/components/ui/skeleton";
+import { INPUT_CLASS } from "@/components/ui/text-field";
+import { describeError } from "@/lib/query/fetcher";
+import { useChangeMemberRole, useLabMembers, useRemoveMember } from "@/lib/query/labs";
+import { hasRole, type Lab, type LabMember, type LabRole } from "@/lib/query/types";
+import { AddMemberForm } from "./add-member-form";
+import { ROLE_LABEL, ROLE_MEANING, ROLES } from "./role-text";
+
+export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: string }) {
+  const members = useLabMembers(lab.id);
+  const isOwner = hasRole(lab.role, "owner");
+  const changeRole = useChangeMemberRole(lab.id);
+  const remove = useRemoveMember(lab.id);
+  const [removing, setRemoving] = useState<LabMember | null>(null);
+  const headingId = `lab-${lab.id}`;
+
+  return (
+    <section aria-labelledby={headingId}>
+      <h2 id={headingId} className="text-lg font-semibold">
+        {lab.name}
+      </h2>
+      <p className="text-sm text-ink-soft">
+        Your role: {ROLE_LABEL[lab.role]} ({ROLE_MEANING[lab.role]}).
+      </p>
+
+      {changeRole.isError ? (
+        <p role="alert" className="mt-3 rounded-md border border-ember bg-ember-light px-4 py-2 text-sm">
+          Role not changed: {describeError(changeRole.error)}
+        </p>
+      ) : null}
+
+      <div className="mt-4">
+        {members.isPending ? (
+          <SkeletonRows label={`Loading members of ${lab.name}`} rows={3} />
+        ) : members.isError ? (
+          <ErrorPanel error={members.error} retry={() => void members.refetch()} />
+        ) : (
+          <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+            <table className="w-full text-sm">
+              <caption className="sr-only">Members of {lab.name}</caption>
+              <thead className="border-b border-ink/10 bg-paper-sunk/70">
+                <tr>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">Name</th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">E-mail</th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">Role</th>
+                  {isOwner ? <th scope="col" className="px-3 py-2 text-left font-semibold"><span className="sr-only">Actions</span></th> : null}
+                </tr>
+              </thead>
+              <tbody className="divide-y divide-ink/10">
+                {members.data.map((member) => (
+                  <tr key={member.userId}>
+                    <td className="px-3 py-2">
+                      {member.name}
+                      {member.userId === currentUserId ? <span className="ml-1 text-ink-soft">(you)</span> : null}
+                    </td>
+                    <td className="px-3 py-2 text-ink-soft">{member.email}</td>
+                    <td className="px-3 py-2">
+                      {isOwner ? (
+                        <>
+                          <label htmlFor={`role-${lab.id}-${member.userId}`} className="sr-only">
+                            Role of {member.name}
+                          </label>
+                          <select
+                            id={`role-${lab.id}-${member.userId}`}
+                            value={member.role}
+                            disabled={changeRole.isPending}
+                            onChange={(event) => changeRole.mutate({ userId: member.userId, role: event.target.value as LabRole })}
+                            className={`w-32 ${INPUT_CLASS} py-1`}
+                          >
+                            {ROLES.map((role) => (
+                              <option key={role} value={role}>
+                                {ROLE_LABEL[role]}
+                              </option>
+                            ))}
+                          </select>
+                        </>
+                      ) : (
+                        ROLE_LABEL[member.role]
+                      )}
+                    </td>
+                    {isOwner ? (
+                      <td className="px-3 py-2 text-right">
+                        <Button variant="danger" className="py-1" onClick={() => { remove.reset(); setRemoving(member); }}>
+                          Remove<span className="sr-only"> {member.name}</span>
+                        </Button>
+                      </td>
+                    ) : null}
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </div>
+
+      {isOwner ? <AddMemberForm labId={lab.id} labName={lab.name} /> : null}
+
+      <ConfirmDialog
+        open={removing !== null}
+        title={`Remove ${removing?.name ?? ""} from ${lab.name}?`}
+        confirmLabel="Remove member"
+        destructive
+        pending={remove.isPending}
+        error={remove.isError ? describeError(remove.error) : null}
+        onCancel={() => setRemoving(null)}
+        onConfirm={() => {
+          if (removing) remove.mutate(removing.userId, { onSuccess: () => setRemoving(null) });
+        }}
+      >
+        They lose access to the lab&apos;s parameter sets at once. Their earlier versions keep their name.
+      </ConfirmDialog>
+    </section>
+  );
+}

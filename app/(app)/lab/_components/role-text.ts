@@ -1,0 +1,11 @@
+import type { LabRole } from "@/lib/query/types";
+
+export const ROLES: readonly LabRole[] = ["owner", "editor", "viewer"];
+
+export const ROLE_LABEL: Record<LabRole, string> = { owner: "Owner", editor: "Editor", viewer: "Viewer" };
+
+export const ROLE_MEANING: Record<LabRole, string> = {
+  owner: "manages members and edits sets",
+  editor: "creates, edits and deletes sets",
+  viewer: "reads sets",
+};
