@@ -149,7 +149,10 @@ export function lockIn(o: LockInOptions): LockInResult {
     solver.absoluteTolerance = atol.slice(0, n);
     solver.maxSteps = 1_000_000;
     solver.initialStepSize = lastStep;
-    solver.maxStepSize = Math.PI / 2;
+    // Half a drive period at most. Measured for 2 + 1 periods at rtol 1e-6: about 320 derivative
+    // evaluations per drive with odex's default step-number sequence (2, 4, 6, …), which beat the
+    // other four sequences; π/2 cost ~30 % more, longer caps gave no gain.
+    solver.maxStepSize = Math.PI;
     let solOut: ((nr: number, xOld: number, x: number, y: number[], dense?: (c: number, x: number) => number) => void) | undefined;
     const tr = o.trace;
     if (tr) {

@@ -1,0 +1,51 @@
+/*
+ * Benchmark (not a test): 256-wavelength terbium-garnet spectrum, 300–3000 nm, 293.15 K, 1 T
+ * (physics-model.md §9 parameters), single-threaded. Prints the median time of several runs after
+ * a JIT warm-up for the numerical (LLG) and analytic paths, and the largest numerical-vs-analytic
+ * relative deviation of χ±. Targets: numerical ≤ 100 ms at ≤ 1e-4, analytic ≤ 2 ms.
+ */
+import type { SpectrumRequest } from "../lib/physics/schema";
+import { computeSpectrum } from "../lib/physics/spectrum";
+
+const wavelengthsNm = Array.from({ length: 256 }, (_, i) => 300 + (2700 * i) / 255);
+const tgg: Omit<SpectrumRequest, "method"> = {
+  ionDensityPerM3: 1.2726e28,
+  landeG: 1.5,
+  totalJ: 6,
+  curieWeissK: -8,
+  gilbertDamping: 0.01,
+  epsInf: 1,
+  sellmeierB: 2.7325,
+  sellmeierWavelengthNm: 135.83,
+  oscillatorStrength: 0.015,
+  oscillatorWavelengthNm: 258,
+  oscillatorDampingRadPerS: 1e14,
+  gyrationPerT: 5.395e-3,
+  magneticScale: 1,
+  temperatureK: 293.15,
+  fieldT: 1,
+  lengthM: 0.01,
+  wavelengthsNm,
+};
+
+function medianMs(run: () => void, warmup: number, repeats: number): number {
+  for (let i = 0; i < warmup; i++) run();
+  const times: number[] = [];
+  for (let i = 0; i < repeats; i++) {
+    const t0 = performance.now();
+    run();
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  return times[Math.floor(times.length / 2)]!;
+}
+
+let deviation = Number.NaN;
+const llgMs = medianMs(() => {
+  deviation = computeSpectrum({ ...tgg, method: "llg" }).maxRelDeviationFromAnalytic ?? Number.NaN;
+}, 3, 9);
+const analyticMs = medianMs(() => computeSpectrum({ ...tgg, method: "analytic" }), 20, 51);
+
+console.log(`numerical (llg) spectrum, 256 wavelengths 300–3000 nm, single thread: ${llgMs.toFixed(1)} ms (median of 9, target ≤ 100 ms)`);
+console.log(`analytic spectrum, 256 wavelengths: ${analyticMs.toFixed(3)} ms (median of 51, target ≤ 2 ms)`);
+console.log(`largest numerical-vs-analytic relative deviation of χ±: ${deviation.toExponential(2)} (target ≤ 1e-4)`);
