@@ -1,0 +1,8 @@
+import type { Metadata } from "next";
+import { ScratchWorkbench } from "@/components/workbench/scratch-workbench";
+
+export const metadata: Metadata = { title: "Workbench · Gyrolux" };
+
+export default function WorkbenchScratchPage() {
+  return <ScratchWorkbench />;
+}

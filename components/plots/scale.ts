@@ -1,0 +1,52 @@
+import { scaleLinear, scaleLog, type ScaleContinuousNumeric } from "d3";
+
+/*
+ * Scale helpers shared by the plots: d3 does the mathematics (domains, ticks, formats); React
+ * renders the SVG.
+ */
+
+export type ScaleType = "log" | "linear";
+export type NumScale = ScaleContinuousNumeric<number, number>;
+
+export function makeScale(type: ScaleType, domain: [number, number], range: [number, number], nice = true): NumScale {
+  const s: NumScale = type === "log" ? scaleLog().domain(domain).range(range) : scaleLinear().domain(domain).range(range);
+  return nice && type === "linear" ? s.nice() : s;
+}
+
+export interface Tick {
+  value: number;
+  label: string;
+  major: boolean;
+}
+
+/** Ticks with labels; on log axes the minor ticks get an empty label. */
+export function ticksOf(scale: NumScale, type: ScaleType, count: number): Tick[] {
+  // Log axes label only the "nice" ticks (1, 2, 5 × 10ⁿ); linear axes use d3's precision-aware default.
+  const format = type === "log" ? scale.tickFormat(count, "~g") : scale.tickFormat(count);
+  const values = scale.ticks(count);
+  // A log axis spanning less than a decade gets few labelled ticks; fall back to labelling all.
+  const labelled = values.map((v) => format(v));
+  const anyLabel = labelled.some((l) => l !== "");
+  return values.map((value, i) => ({ value, label: anyLabel ? labelled[i]! : String(value), major: anyLabel ? labelled[i] !== "" : true }));
+}
+
+/** Extent of finite values across several arrays, padded so lines don't touch the frame. */
+export function paddedExtent(arrays: readonly (readonly (number | null)[])[], log = false): [number, number] | null {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const a of arrays) {
+    for (const v of a) {
+      if (v === null || !Number.isFinite(v) || (log && v <= 0)) continue;
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
+  }
+  if (!Number.isFinite(lo)) return null;
+  if (log) return lo === hi ? [lo / 2, hi * 2] : [lo / 1.2, hi * 1.2];
+  if (lo === hi) {
+    const d = lo === 0 ? 1 : Math.abs(lo) * 0.1;
+    return [lo - d, hi + d];
+  }
+  const pad = (hi - lo) * 0.05;
+  return [lo - pad, hi + pad];
+}

@@ -1,0 +1,5 @@
+"use client";
+
+export function SpinTracePanel(_props: Record<string, unknown>) {
+  return <p className="text-sm text-ink-soft">Not available yet.</p>;
+}

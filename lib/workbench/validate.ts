@@ -1,0 +1,103 @@
+import { modelParamsSchema, spectrumRequestSchema, type ModelParamKey, type ModelParams, type SpectrumRequest } from "@/lib/physics/schema";
+import { PARAM_META } from "@/lib/model/param-meta";
+import { rangeSchema, type WavelengthRange } from "./view-state";
+import { wavelengthGrid } from "./units";
+
+/*
+ * From what the user typed to a request the worker may see. The model schema in lib/physics is the
+ * one validator; this only turns text into numbers and issues into per-field messages, so an
+ * out-of-range value is flagged at its field and never sent to the worker.
+ */
+
+export type ParamDrafts = Record<ModelParamKey, string>;
+export type FieldErrors<K extends string> = Partial<Record<K, string>>;
+
+export function draftsFromParams(params: ModelParams): ParamDrafts {
+  const out = {} as ParamDrafts;
+  for (const m of PARAM_META) out[m.key] = String(params[m.key] ?? "");
+  return out;
+}
+
+/** Accepts "1.27e28", " 293.15 ", "−8" (typographic minus) and "1,5" is rejected (ambiguous). */
+export function parseNumber(text: string): number | null {
+  const t = text.trim().replace(/\u2212/g, "-");
+  if (t === "" || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(t)) return null;
+  const v = Number(t);
+  return Number.isFinite(v) ? v : null;
+}
+
+export function validateParams(drafts: ParamDrafts): { params: ModelParams | null; errors: FieldErrors<ModelParamKey> } {
+  const errors: FieldErrors<ModelParamKey> = {};
+  const candidate: Record<string, number> = {};
+  for (const m of PARAM_META) {
+    const v = parseNumber(drafts[m.key] ?? "");
+    if (v === null) errors[m.key] = "must be a number";
+    else candidate[m.key] = v;
+  }
+  const parsed = modelParamsSchema.safeParse(candidate);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      const k = issue.path[0] as ModelParamKey | undefined;
+      if (k && !errors[k]) errors[k] = issue.message;
+    }
+  }
+  return Object.keys(errors).length > 0 || !parsed.success ? { params: null, errors } : { params: parsed.data, errors };
+}
+
+export interface RangeDrafts {
+  fromNm: string;
+  toNm: string;
+  points: string;
+  spacing: "log" | "linear";
+}
+
+export function draftsFromRange(range: WavelengthRange): RangeDrafts {
+  return { fromNm: String(range.fromNm), toNm: String(range.toNm), points: String(range.points), spacing: range.spacing };
+}
+
+export function validateRange(drafts: RangeDrafts): { range: WavelengthRange | null; errors: FieldErrors<"fromNm" | "toNm" | "points"> } {
+  const errors: FieldErrors<"fromNm" | "toNm" | "points"> = {};
+  const from = parseNumber(drafts.fromNm);
+  const to = parseNumber(drafts.toNm);
+  const points = parseNumber(drafts.points);
+  if (from === null) errors.fromNm = "must be a number";
+  if (to === null) errors.toNm = "must be a number";
+  if (points === null) errors.points = "must be a number";
+  if (from === null || to === null || points === null) return { range: null, errors };
+  const parsed = rangeSchema.safeParse({ fromNm: from, toNm: to, points, spacing: drafts.spacing });
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      const k = issue.path[0] as "fromNm" | "toNm" | "points" | undefined;
+      if (k && !errors[k]) errors[k] = issue.message;
+    }
+    return { range: null, errors };
+  }
+  return { range: parsed.data, errors };
+}
+
+/**
+ * The full spectrum request, checked by the shared request schema (wavelengths above the
+ * Sellmeier pole, etc.). Wavelength problems are reported against the range's start field.
+ */
+export function buildRequest(
+  params: ModelParams,
+  range: WavelengthRange,
+  method: "analytic" | "llg",
+): { request: SpectrumRequest | null; rangeError: string | null } {
+  const wavelengthsNm = wavelengthGrid(range.fromNm, range.toNm, range.points, range.spacing);
+  const parsed = spectrumRequestSchema.safeParse({ ...params, wavelengthsNm, method });
+  if (parsed.success) return { request: parsed.data, rangeError: null };
+  const issue = parsed.error.issues[0];
+  return { request: null, rangeError: issue ? issue.message : "invalid wavelength range" };
+}
+
+/** Marker wavelengths that a request with these parameters can compute (above the Sellmeier pole, …). */
+export function computableMarkers(params: ModelParams, markersNm: readonly number[]): number[] {
+  return markersNm.filter(
+    (nm) =>
+      Number.isFinite(nm) &&
+      nm > 0 &&
+      !(params.sellmeierB > 0 && nm <= params.sellmeierWavelengthNm) &&
+      !(params.oscillatorDampingRadPerS === 0 && nm === params.oscillatorWavelengthNm),
+  );
+}
