@@ -11,6 +11,8 @@ import { type DielectricParams, gyration, permittivity, polderSusceptibilities, 
 import { type SpectrumRequest, formatIssues, spectrumRequestSchema } from "./schema";
 import type { ProgressCallback, SpectrumArrays, SpectrumPoint, SpectrumResult } from "./types";
 
+import { passivityLimitNm } from "./verdet";
+
 export { rotatorLength45M, passivityLimitNm, verdetToGyration, gyrationToVerdet } from "./verdet";
 export type { VerdetReference, GyrationConversionParams, PassivityParams } from "./verdet";
 
@@ -122,9 +124,8 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
   }
   if (!Number.isFinite(ctx.magnetizationAPerM)) throw new NonFiniteResultError("magnetizationAPerM: computed value is not finite");
 
-  const gainWavelengths: number[] = [];
-  const coneTooLarge: number[] = [];
-  const unsettled: number[] = [];
+  const flags = new Uint8Array(n);
+  out.flags = flags;
   let maxDeviation = 0;
   const omegaE = angularFrequencyFromNm(request.oscillatorWavelengthNm);
   const { gilbertDamping: alpha, magneticScale, fieldT, lengthM } = request;
@@ -139,7 +140,7 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
 
     // Passivity (§5.3): Im ε± = −ΓE ω ωE (f ωE ± 2Kω)/|D|²; with ΓE = 0 both are exactly real.
     if (request.oscillatorDampingRadPerS > 0 && request.oscillatorStrength * omegaE < 2 * Math.abs(ctx.gyrationK) * omega) {
-      gainWavelengths.push(wavelengthNm);
+      flags[i] = flags[i]! | WAVELENGTH_FLAG_GAIN;
     }
 
     const polder1 = polderSusceptibilities(ctx.omega0, ctx.omegaM, alpha, ctx.sign, omega);
@@ -154,7 +155,7 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
       const gammaMu0 = gyromagneticRatio(request.landeG) * MU0_N_PER_A2;
       const hScaled = withIntensity && h0 > 0 ? (gammaMu0 * h0) / omega : undefined;
       const r = llgSusceptibilities({ omega, omega0: ctx.omega0, omegaM: ctx.omegaM, alpha, hScaled });
-      if (!r.settled) unsettled.push(wavelengthNm);
+      if (!r.settled) flags[i] = flags[i]! | WAVELENGTH_FLAG_UNSETTLED;
       chiPlus1 = cx(r.plusRe, r.plusIm);
       chiMinus1 = cx(r.minusRe, r.minusIm);
       maxDeviation = Math.max(maxDeviation, relDeviation(r.plusRe, r.plusIm, polder1.plus), relDeviation(r.minusRe, r.minusIm, polder1.minus));
@@ -220,7 +221,7 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
       if (hasSpins && h0 > 0) {
         dPlus = deltaMzFromCone(ctx.magnetizationAPerM, conePlus);
         dMinus = deltaMzFromCone(ctx.magnetizationAPerM, coneMinus);
-        if (dPlus === null || dMinus === null) coneTooLarge.push(wavelengthNm);
+        if (dPlus === null || dMinus === null) flags[i] = flags[i]! | WAVELENGTH_FLAG_CONE;
         if ((dPlus !== null && !Number.isFinite(dPlus)) || (dMinus !== null && !Number.isFinite(dMinus))) {
           throw new NonFiniteResultError(`wavelengthsNm.${i}: computed deltaMz is not finite at ${wavelengthNm} nm`);
         }
@@ -236,38 +237,61 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
       for (let i = start; i < end; i++) computeOne(i);
     },
     finish(): SpectrumArrays {
-      if (gainWavelengths.length > 0) {
-        const limit = passivityLimitFromContext(ctx);
-        out.warnings.push(
-          `passivity: ε± has gain (Im ε± > 0) where f·ωE < 2|κE μ0 M0|·ω, i.e. below ${formatNm(limit)} nm; affected wavelengths (nm): ${listWavelengths(gainWavelengths)}`,
-        );
-      }
-      if (coneTooLarge.length > 0) {
-        out.warnings.push(`intensity: the precession cone reaches |C| ≥ 1, so δMz is undefined (null) at (nm): ${listWavelengths(coneTooLarge)}`);
-      }
-      if (unsettled.length > 0) {
-        out.warnings.push(
-          `llg: the free-precession transient cannot be given time to decay (|ω0/ω| > 0.05 with small damping) at (nm): ${listWavelengths(unsettled)}; the deviation from the analytic form may exceed 1e-4 there`,
-        );
-      }
       if (isLlg) {
         if (!Number.isFinite(maxDeviation)) throw new NonFiniteResultError("maxRelDeviationFromAnalytic: computed value is not finite");
         out.maxRelDeviationFromAnalytic = maxDeviation;
       }
+      out.warnings = spectrumWarnings(request, out);
       return out;
     },
   };
 }
 
-function formatNm(v: number): string {
-  return Number.isFinite(v) ? String(Number(v.toPrecision(5))) : "∞";
+/** ε± has gain here (§5.3). */
+export const WAVELENGTH_FLAG_GAIN = 1;
+/** The precession cone reached |C| ≥ 1, δMz null (§4.5). */
+export const WAVELENGTH_FLAG_CONE = 2;
+/** The LLG transient could not be settled (§7). */
+export const WAVELENGTH_FLAG_UNSETTLED = 4;
+
+/**
+ * Warning texts from the per-wavelength flags (§5.3, §4.5, §7). A pure function of the request and
+ * the columns, so the pool can rebuild one set of warnings after merging chunks.
+ */
+export function spectrumWarnings(
+  request: Pick<SpectrumRequest, "gyrationPerT" | "oscillatorStrength" | "oscillatorWavelengthNm" | "oscillatorDampingRadPerS">,
+  arrays: Pick<SpectrumArrays, "wavelengthNm" | "flags" | "magnetizationAPerM">,
+): string[] {
+  const warnings: string[] = [];
+  const flags = arrays.flags;
+  if (!flags) return warnings;
+  const pick = (bit: number) => {
+    const list: number[] = [];
+    for (let i = 0; i < flags.length; i++) if (flags[i]! & bit) list.push(arrays.wavelengthNm[i]!);
+    return list;
+  };
+  const gain = pick(WAVELENGTH_FLAG_GAIN);
+  if (gain.length > 0) {
+    const limit = passivityLimitNm({ ...request, magnetizationAPerM: arrays.magnetizationAPerM });
+    warnings.push(
+      `passivity: ε± has gain (Im ε± > 0) where f·ωE < 2|κE μ0 M0|·ω, i.e. below ${formatNm(limit)} nm; affected wavelengths (nm): ${listWavelengths(gain)}`,
+    );
+  }
+  const cone = pick(WAVELENGTH_FLAG_CONE);
+  if (cone.length > 0) {
+    warnings.push(`intensity: the precession cone reaches |C| ≥ 1, so δMz is undefined (null) at (nm): ${listWavelengths(cone)}`);
+  }
+  const unsettled = pick(WAVELENGTH_FLAG_UNSETTLED);
+  if (unsettled.length > 0) {
+    warnings.push(
+      `llg: the free-precession transient cannot be given time to decay (|ω0/ω| > 0.05 with small damping) at (nm): ${listWavelengths(unsettled)}; the deviation from the analytic form may exceed 1e-4 there`,
+    );
+  }
+  return warnings;
 }
 
-function passivityLimitFromContext(ctx: RunContext): number {
-  const f = ctx.request.oscillatorStrength;
-  const k = Math.abs(ctx.gyrationK);
-  if (k === 0) return 0;
-  return f === 0 ? Infinity : (2 * k * ctx.request.oscillatorWavelengthNm) / f;
+function formatNm(v: number): string {
+  return Number.isFinite(v) ? String(Number(v.toPrecision(5))) : "∞";
 }
 
 export interface SpectrumOptions {

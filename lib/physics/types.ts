@@ -48,6 +48,11 @@ export interface SpectrumArrays {
   deltaMzMinusAPerM?: Float64Array;
   maxRelDeviationFromAnalytic?: number;
   warnings: string[];
+  /**
+   * Per-wavelength warning flags (WAVELENGTH_FLAG_* in lib/physics/spectrum.ts), so that chunks
+   * computed in separate workers can be merged and their warnings rebuilt as one set.
+   */
+  flags?: Uint8Array;
 }
 
 /** Complex number as plain data (crosses worker boundaries unchanged). */

@@ -1,0 +1,227 @@
+/*
+ * A small pool of spectrum web workers (browser only, no React). A numerical spectrum is split
+ * into contiguous wavelength chunks, one per worker; progress is aggregated by chunk size; the
+ * chunks are merged back in order. The analytic path runs in one worker (it takes ~1 ms).
+ */
+import { type Remote, proxy, wrap } from "comlink";
+import { arraysToResult, spectrumWarnings } from "../physics/spectrum";
+import type { SpectrumResult } from "../physics/types";
+import type { SpectrumArrays, SpectrumRequest, SpectrumWorkerApi, SpinTraceRequest, SpinTraceResult } from "./protocol";
+
+export { arraysToResult };
+
+/** Contiguous [start, end) ranges covering 0…n in at most `parts` non-empty chunks whose sizes differ by ≤ 1. */
+export function splitRanges(n: number, parts: number): [number, number][] {
+  const k = Math.max(1, Math.min(Math.floor(parts), n));
+  const ranges: [number, number][] = [];
+  const base = Math.floor(n / k);
+  const extra = n % k;
+  let start = 0;
+  for (let i = 0; i < k && start < n; i++) {
+    const end = start + base + (i < extra ? 1 : 0);
+    ranges.push([start, end]);
+    start = end;
+  }
+  return ranges;
+}
+
+/** One sub-request per range: the same parameters with a slice of the wavelength list. */
+export function splitRequest(request: SpectrumRequest, parts: number): { request: SpectrumRequest; range: [number, number] }[] {
+  return splitRanges(request.wavelengthsNm.length, parts).map((range) => ({
+    request: { ...request, wavelengthsNm: request.wavelengthsNm.slice(range[0], range[1]) },
+    range,
+  }));
+}
+
+/** Overall fraction done: chunk fractions weighted by chunk size. */
+export function aggregateProgress(fractions: readonly number[], sizes: readonly number[]): number {
+  let done = 0;
+  let total = 0;
+  sizes.forEach((size, i) => {
+    done += Math.min(1, Math.max(0, fractions[i] ?? 0)) * size;
+    total += size;
+  });
+  return total === 0 ? 1 : done / total;
+}
+
+function concat(parts: (Float64Array | undefined)[]): Float64Array | undefined {
+  if (parts.some((p) => p === undefined)) return undefined;
+  const total = parts.reduce((s, p) => s + p!.length, 0);
+  const out = new Float64Array(total);
+  let offset = 0;
+  for (const p of parts) {
+    out.set(p!, offset);
+    offset += p!.length;
+  }
+  return out;
+}
+
+/**
+ * Merges chunk results (in wavelength order) into one: columns concatenated, the largest
+ * deviation kept, warnings rebuilt from the merged per-wavelength flags (chunk warnings without
+ * flags are kept, deduplicated).
+ */
+export function mergeArrays(request: SpectrumRequest, parts: SpectrumArrays[]): SpectrumArrays {
+  if (parts.length === 0) throw new Error("mergeArrays: no chunks");
+  const col = (key: "wavelengthNm" | "thetaRad" | "thetaElectricRad" | "thetaMagneticRad" | "thetaCrossRad" | "ellipticityRad" | "magneticShare" | "verdetRadPerTm") =>
+    concat(parts.map((p) => p[key]))!;
+  const merged: SpectrumArrays = {
+    magnetizationAPerM: parts[0]!.magnetizationAPerM,
+    wavelengthNm: col("wavelengthNm"),
+    thetaRad: col("thetaRad"),
+    thetaElectricRad: col("thetaElectricRad"),
+    thetaMagneticRad: col("thetaMagneticRad"),
+    thetaCrossRad: col("thetaCrossRad"),
+    ellipticityRad: col("ellipticityRad"),
+    magneticShare: col("magneticShare"),
+    verdetRadPerTm: col("verdetRadPerTm"),
+    warnings: [],
+  };
+  const dPlus = concat(parts.map((p) => p.deltaMzPlusAPerM));
+  const dMinus = concat(parts.map((p) => p.deltaMzMinusAPerM));
+  if (dPlus && dMinus) {
+    merged.deltaMzPlusAPerM = dPlus;
+    merged.deltaMzMinusAPerM = dMinus;
+  }
+  const deviations = parts.map((p) => p.maxRelDeviationFromAnalytic).filter((d): d is number => d !== undefined);
+  if (deviations.length > 0) merged.maxRelDeviationFromAnalytic = Math.max(...deviations);
+  if (parts.every((p) => p.flags !== undefined)) {
+    const flags = new Uint8Array(merged.wavelengthNm.length);
+    let offset = 0;
+    for (const p of parts) {
+      flags.set(p.flags!, offset);
+      offset += p.flags!.length;
+    }
+    merged.flags = flags;
+    merged.warnings = spectrumWarnings(request, merged);
+  } else {
+    merged.warnings = [...new Set(parts.flatMap((p) => p.warnings))];
+  }
+  return merged;
+}
+
+const abortError = () => new DOMException("Cancelled", "AbortError");
+
+interface PoolWorker {
+  worker: Worker;
+  api: Remote<SpectrumWorkerApi>;
+}
+
+export interface SpectrumPoolOptions {
+  size?: number;
+  createWorker?: () => Worker;
+}
+
+export interface PoolRunOptions {
+  onProgress?: (fractionDone: number) => void;
+  signal?: AbortSignal;
+}
+
+export class SpectrumPool {
+  readonly size: number;
+  private readonly createWorker: () => Worker;
+  private workers: (PoolWorker | undefined)[] = [];
+  private disposed = false;
+
+  constructor(opts: SpectrumPoolOptions = {}) {
+    const cores = typeof navigator !== "undefined" ? navigator.hardwareConcurrency : undefined;
+    this.size = Math.max(1, Math.floor(opts.size ?? Math.min(cores || 2, 4)));
+    this.createWorker =
+      opts.createWorker ?? (() => new Worker(new URL("../../workers/spectrum.worker.ts", import.meta.url), { type: "module" }));
+  }
+
+  private worker(i: number): PoolWorker {
+    if (this.disposed) throw new Error("SpectrumPool: disposed");
+    let w = this.workers[i];
+    if (!w) {
+      const worker = this.createWorker();
+      w = { worker, api: wrap<SpectrumWorkerApi>(worker) };
+      this.workers[i] = w;
+    }
+    return w;
+  }
+
+  /** Computes a spectrum across the pool; rejects with DOMException("Cancelled", "AbortError") on abort. */
+  spectrum(request: SpectrumRequest, opts: PoolRunOptions = {}): Promise<SpectrumResult> {
+    const { signal, onProgress } = opts;
+    if (signal?.aborted) return Promise.reject(abortError());
+    const parts = request.method === "llg" ? this.size : 1;
+    const chunks = splitRequest(request, parts);
+    const sizes = chunks.map((c) => c.range[1] - c.range[0]);
+    const fractions = chunks.map(() => 0);
+    const used = chunks.map((_, i) => this.worker(i));
+    return new Promise<SpectrumResult>((resolve, reject) => {
+      let settled = false;
+      const onAbort = () => {
+        if (settled) return;
+        settled = true;
+        for (const w of used) w.api.cancel().catch(() => undefined);
+        reject(abortError());
+      };
+      signal?.addEventListener("abort", onAbort, { once: true });
+      Promise.all(
+        chunks.map((chunk, i) =>
+          used[i]!.api.spectrum(
+            chunk.request,
+            proxy((f: number) => {
+              fractions[i] = f;
+              if (!settled) onProgress?.(aggregateProgress(fractions, sizes));
+            }),
+          ),
+        ),
+      ).then(
+        (arrays) => {
+          signal?.removeEventListener("abort", onAbort);
+          if (settled) return;
+          settled = true;
+          try {
+            resolve(arraysToResult(mergeArrays(request, arrays)));
+          } catch (err) {
+            reject(err);
+          }
+        },
+        (err: unknown) => {
+          signal?.removeEventListener("abort", onAbort);
+          if (settled) return;
+          settled = true;
+          // Stop the other chunks: one failure fails the whole spectrum.
+          for (const w of used) w.api.cancel().catch(() => undefined);
+          reject(err);
+        },
+      );
+    });
+  }
+
+  /** Spin trace on the first worker. On abort the worker is terminated (a trace cannot be interrupted). */
+  spinTrace(request: SpinTraceRequest, opts: PoolRunOptions = {}): Promise<SpinTraceResult> {
+    const { signal } = opts;
+    if (signal?.aborted) return Promise.reject(abortError());
+    const w = this.worker(0);
+    return new Promise<SpinTraceResult>((resolve, reject) => {
+      const onAbort = () => {
+        w.worker.terminate();
+        if (this.workers[0] === w) this.workers[0] = undefined;
+        reject(abortError());
+      };
+      signal?.addEventListener("abort", onAbort, { once: true });
+      w.api.spinTrace(request).then(
+        (r) => {
+          signal?.removeEventListener("abort", onAbort);
+          opts.onProgress?.(1);
+          resolve(r);
+        },
+        (err: unknown) => {
+          signal?.removeEventListener("abort", onAbort);
+          reject(err);
+        },
+      );
+    });
+  }
+
+  /** Terminates every worker; the pool cannot be used afterwards. */
+  dispose(): void {
+    this.disposed = true;
+    for (const w of this.workers) w?.worker.terminate();
+    this.workers = [];
+  }
+}
