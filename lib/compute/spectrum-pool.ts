@@ -175,7 +175,10 @@ export class SpectrumPool {
           if (settled) return;
           settled = true;
           try {
-            resolve(arraysToResult(mergeArrays(request, arrays)));
+            const result = arraysToResult(mergeArrays(request, arrays));
+            // Progress messages travel separately from results and may lag; finish at 1.
+            onProgress?.(1);
+            resolve(result);
           } catch (err) {
             reject(err);
           }
