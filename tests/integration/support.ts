@@ -1,0 +1,182 @@
+import { describe } from "vitest";
+import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
+import type { ModelParams } from "@/lib/physics/schema";
+
+/*
+ * HTTP helpers for the integration tests. They talk to a running server (scripts/test.sh starts
+ * `next start` on a fresh, migrated and seeded database) and use only its public endpoints.
+ * Use http://localhost:PORT, not 127.0.0.1: Next rewrites 127.x hosts.
+ */
+
+export const BASE_URL = process.env.GYROLUX_TEST_BASE_URL?.replace(/\/$/, "");
+
+/** `describe`, skipped (not failed) when no server is given, so `vitest run` of unit tests stays green. */
+export const describeHttp = describe.skipIf(!BASE_URL);
+
+export const DEMO_PASSWORD = "gyrolux-demo";
+export const DEMO = {
+  owner: "lead@demo.gyrolux.test",
+  editor: "postdoc@demo.gyrolux.test",
+  viewer: "student@demo.gyrolux.test",
+  outsider: "outsider@demo.gyrolux.test",
+  admin: "admin@demo.gyrolux.test",
+} as const;
+export const DEMO_LAB_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000a001";
+export const OTHER_LAB_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000a002";
+export const DEMO_GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
+export const OTHER_LAB_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c005";
+
+export const validParams = (overrides: Partial<ModelParams> = {}): ModelParams => ({ ...TERBIUM_GARNET_DEFAULTS, ...overrides });
+
+let counter = 0;
+/** A name no other test (or earlier run against the same database) uses. */
+export function uniqueName(prefix: string): string {
+  counter += 1;
+  return `${prefix} ${Date.now().toString(36)}-${process.pid}-${counter}`;
+}
+
+export function uniqueEmail(prefix: string): string {
+  return `${uniqueName(prefix).replace(/[^a-z0-9]+/gi, "-").toLowerCase()}@integ.gyrolux.test`;
+}
+
+export interface ApiResponse<T = any> {
+  status: number;
+  headers: Headers;
+  body: T;
+}
+
+export interface RequestOptions {
+  /** Sent as JSON with Content-Type application/json. */
+  json?: unknown;
+  /** Sent as is (for malformed bodies); set the content type yourself. */
+  body?: string;
+  headers?: Record<string, string>;
+}
+
+/** An HTTP client with a cookie jar (session) and/or a bearer token. */
+export class Client {
+  private readonly cookies = new Map<string, string>();
+
+  constructor(private readonly bearer?: string) {}
+
+  get base(): string {
+    if (!BASE_URL) throw new Error("GYROLUX_TEST_BASE_URL is not set");
+    return BASE_URL;
+  }
+
+  cookieHeader(): string {
+    return [...this.cookies].map(([name, value]) => `${name}=${value}`).join("; ");
+  }
+
+  hasCookie(prefix: string): boolean {
+    return [...this.cookies.keys()].some((name) => name.startsWith(prefix));
+  }
+
+  storeCookies(response: Response): void {
+    for (const line of response.headers.getSetCookie()) {
+      const [pair = "", ...attributes] = line.split(";");
+      const eq = pair.indexOf("=");
+      if (eq < 0) continue;
+      const name = pair.slice(0, eq).trim();
+      const value = pair.slice(eq + 1).trim();
+      const expired = attributes.some((a) => /^\s*max-age=0\s*$/i.test(a)) || value === "";
+      if (expired) this.cookies.delete(name);
+      else this.cookies.set(name, value);
+    }
+  }
+
+  async raw(method: string, path: string, init: { body?: BodyInit; headers?: Record<string, string> } = {}): Promise<Response> {
+    const headers: Record<string, string> = { ...init.headers };
+    if (this.cookies.size > 0) headers.cookie = this.cookieHeader();
+    if (this.bearer) headers.authorization = `Bearer ${this.bearer}`;
+    const response = await fetch(`${this.base}${path}`, { method, headers, body: init.body, redirect: "manual" });
+    this.storeCookies(response);
+    return response;
+  }
+
+  async request<T = any>(method: string, path: string, options: RequestOptions = {}): Promise<ApiResponse<T>> {
+    const headers: Record<string, string> = { ...options.headers };
+    let body: string | undefined = options.body;
+    if (options.json !== undefined) {
+      body = JSON.stringify(options.json);
+      headers["content-type"] ??= "application/json";
+    }
+    const response = await this.raw(method, path, { body, headers });
+    const text = await response.text();
+    let parsed: unknown = text;
+    if ((response.headers.get("content-type") ?? "").includes("json") && text) parsed = JSON.parse(text);
+    return { status: response.status, headers: response.headers, body: parsed as T };
+  }
+
+  get<T = any>(path: string, options?: RequestOptions) {
+    return this.request<T>("GET", path, options);
+  }
+  post<T = any>(path: string, json?: unknown, options?: RequestOptions) {
+    return this.request<T>("POST", path, { ...options, json });
+  }
+  patch<T = any>(path: string, json?: unknown, options?: RequestOptions) {
+    return this.request<T>("PATCH", path, { ...options, json });
+  }
+  put<T = any>(path: string, json?: unknown, options?: RequestOptions) {
+    return this.request<T>("PUT", path, { ...options, json });
+  }
+  delete<T = any>(path: string, options?: RequestOptions) {
+    return this.request<T>("DELETE", path, options);
+  }
+}
+
+/**
+ * Posts the credentials form the way the browser does (Auth.js: csrf token, then
+ * /api/auth/callback/credentials) and returns the raw response; the client keeps the cookies.
+ */
+export async function attemptSignIn(client: Client, email: string, password: string): Promise<Response> {
+  const csrf = await client.raw("GET", "/api/auth/csrf");
+  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+  const form = new URLSearchParams({ csrfToken, email, password, callbackUrl: `${client.base}/parameter-sets` });
+  return client.raw("POST", "/api/auth/callback/credentials", {
+    body: form.toString(),
+    headers: { "content-type": "application/x-www-form-urlencoded" },
+  });
+}
+
+/** A client signed in with a session cookie; throws when the sign-in fails. */
+export async function signIn(email: string, password = DEMO_PASSWORD): Promise<Client> {
+  const client = new Client();
+  const response = await attemptSignIn(client, email, password);
+  const location = response.headers.get("location") ?? "";
+  await response.body?.cancel();
+  if (response.status !== 302 || location.includes("error=") || !client.hasCookie("authjs.session-token")) {
+    throw new Error(`sign-in as ${email} failed: ${response.status} ${location}`);
+  }
+  return client;
+}
+
+/** Creates an API token for the signed-in client; returns the secret. */
+export async function createApiToken(client: Client, name = uniqueName("integ token")): Promise<{ id: string; token: string }> {
+  const response = await client.post("/api/tokens", { name });
+  if (response.status !== 201) throw new Error(`token creation failed: ${response.status} ${JSON.stringify(response.body)}`);
+  return { id: response.body.item.id, token: response.body.token };
+}
+
+/** A fresh account via the JSON sign-up endpoint (its own personal lab). */
+export async function signUp(options: { name?: string; email?: string; password?: string } = {}) {
+  const email = options.email ?? uniqueEmail("integ");
+  const password = options.password ?? "correct horse battery";
+  const response = await new Client().post("/api/sign-up", { name: options.name ?? "Integration Tester", email, password });
+  if (response.status !== 201) throw new Error(`sign-up failed: ${response.status} ${JSON.stringify(response.body)}`);
+  return { email, password, userId: response.body.user.id as string, labId: response.body.labId as string };
+}
+
+/** Creates a parameter set in the demo lab as the given client. */
+export async function createSet(client: Client, overrides: Record<string, unknown> = {}) {
+  const response = await client.post("/api/parameter-sets", {
+    labId: DEMO_LAB_ID,
+    name: uniqueName("Integ set"),
+    description: "created by an integration test",
+    tags: ["integ"],
+    params: validParams(),
+    ...overrides,
+  });
+  if (response.status !== 201) throw new Error(`create failed: ${response.status} ${JSON.stringify(response.body)}`);
+  return response.body.item;
+}
