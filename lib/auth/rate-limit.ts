@@ -9,31 +9,41 @@ import { signInFailures } from "@/db/schema";
  * counted; a success clears them, so tests and demos that sign in often are never limited.
  *
  * From the 5th failure within 15 minutes on, the next attempt must wait 30 s × 2^(n−5) after the
- * latest failure, capped at 15 minutes.
+ * latest failure, capped at 15 minutes. The client address can be forged (X-Forwarded-For), so a
+ * second, looser cap counts the e-mail's failures from every address (20 free): guessing stays
+ * slow even when the address rotates, at the price that a determined attacker can slow down the
+ * real owner's sign-in for up to 15 minutes.
  */
 
 export const FAILURE_WINDOW_MS = 15 * 60 * 1000;
 export const FREE_FAILURES = 5;
+export const FREE_FAILURES_ANY_ADDRESS = 20;
 const BASE_DELAY_MS = 30 * 1000;
 
 function normalise(email: string): string {
   return email.trim().toLowerCase().slice(0, 320);
 }
 
+function waitMs(failures: Date[], free: number, now: number): number {
+  const latest = failures[0];
+  if (failures.length < free || !latest) return 0;
+  const delayMs = Math.min(FAILURE_WINDOW_MS, BASE_DELAY_MS * 2 ** (failures.length - free));
+  return latest.getTime() + delayMs - now;
+}
+
 /** Seconds the caller must still wait, or 0 when an attempt is allowed. */
 export async function signInWaitSeconds(options: { email: string; ip: string }): Promise<number> {
-  const since = new Date(Date.now() - FAILURE_WINDOW_MS);
+  const now = Date.now();
   const rows = await db
-    .select({ at: signInFailures.at })
+    .select({ at: signInFailures.at, ip: signInFailures.ip })
     .from(signInFailures)
-    .where(and(eq(signInFailures.email, normalise(options.email)), eq(signInFailures.ip, options.ip), gt(signInFailures.at, since)))
+    .where(and(eq(signInFailures.email, normalise(options.email)), gt(signInFailures.at, new Date(now - FAILURE_WINDOW_MS))))
     .orderBy(desc(signInFailures.at))
-    .limit(64);
-  const latest = rows[0];
-  if (rows.length < FREE_FAILURES || !latest) return 0;
-  const delayMs = Math.min(FAILURE_WINDOW_MS, BASE_DELAY_MS * 2 ** (rows.length - FREE_FAILURES));
-  const waitMs = latest.at.getTime() + delayMs - Date.now();
-  return waitMs > 0 ? Math.ceil(waitMs / 1000) : 0;
+    .limit(256);
+  const fromHere = rows.filter((row) => row.ip === options.ip).map((row) => row.at);
+  const anywhere = rows.map((row) => row.at);
+  const wait = Math.max(waitMs(fromHere, FREE_FAILURES, now), waitMs(anywhere, FREE_FAILURES_ANY_ADDRESS, now));
+  return wait > 0 ? Math.ceil(wait / 1000) : 0;
 }
 
 export async function recordSignInFailure(options: { email: string; ip: string }): Promise<void> {

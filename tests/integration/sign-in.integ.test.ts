@@ -44,6 +44,29 @@ describeHttp("sign-up and sign-in", () => {
     await expect(signIn(other.email, other.password)).resolves.toBeInstanceOf(Client);
   });
 
+  it("rotating X-Forwarded-For does not escape the per-e-mail cap (20 failures from any address)", async () => {
+    const account = await signUp();
+    const from = (n: number) => ({ "x-forwarded-for": `198.51.100.${n}` });
+    for (let i = 0; i < 20; i++) {
+      const client = new Client();
+      const csrf = await client.raw("GET", "/api/auth/csrf");
+      const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+      const response = await client.raw("POST", "/api/auth/callback/credentials", {
+        body: new URLSearchParams({ csrfToken, email: account.email, password: `wrong ${i}` }).toString(),
+        headers: { "content-type": "application/x-www-form-urlencoded", ...from(i) },
+      });
+      expect(isFailure(response), `attempt ${i + 1}`).toBe(true);
+    }
+    const client = new Client();
+    const csrf = await client.raw("GET", "/api/auth/csrf");
+    const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+    const limited = await client.raw("POST", "/api/auth/callback/credentials", {
+      body: new URLSearchParams({ csrfToken, email: account.email, password: account.password }).toString(),
+      headers: { "content-type": "application/x-www-form-urlencoded", ...from(99) },
+    });
+    expect(limited.status).toBe(429);
+  });
+
   it("a session cookie signs requests until sign-out", async () => {
     const account = await signUp();
     const client = await signIn(account.email, account.password);
