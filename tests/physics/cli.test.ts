@@ -1,0 +1,108 @@
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { TGG } from "./fixtures";
+
+const dir = mkdtempSync(join(tmpdir(), "gyrolux-cli-"));
+let count = 0;
+
+// The first test spawns exactly what users type (npx tsx); the others load the same tsx loader into
+// node directly, which skips npx's start-up and keeps the suite quick on busy machines.
+function run(content: string | null, viaNpx = false) {
+  const file = join(dir, `p${count++}.json`);
+  if (content !== null) writeFileSync(file, content);
+  const [cmd, args] = viaNpx ? ["npx", ["tsx", "scripts/spectrum.ts", file]] : [process.execPath, ["--import", "tsx", "scripts/spectrum.ts", file]];
+  const r = spawnSync(cmd, args as string[], { cwd: process.cwd(), encoding: "utf8" });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr, stderrLines: r.stderr.split("\n").filter((l) => l.length > 0) };
+}
+
+const valid = { ...TGG, lengthM: 0.01, wavelengthsNm: [632.8, 1064], method: "analytic" };
+
+describe("command line", () => {
+  it("prints the spectrum as JSON for a valid file", () => {
+    const r = run(JSON.stringify(valid), true);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe("");
+    const out = JSON.parse(r.stdout);
+    expect(out.magnetizationAPerM).toBeGreaterThan(0);
+    expect(out.points).toHaveLength(2);
+    expect(Object.keys(out.points[0]).sort()).toEqual(
+      ["ellipticityRad", "magneticShare", "thetaCrossRad", "thetaElectricRad", "thetaMagneticRad", "thetaRad", "verdetRadPerTm", "wavelengthNm"].sort(),
+    );
+    // Published TGG −134 rad/(T m) at 632.8 nm (see spectrum.test.ts for sources).
+    expect(out.points[0].verdetRadPerTm).toBeCloseTo(-134, 0);
+    expect(out.maxRelDeviationFromAnalytic).toBeUndefined();
+    expect(out.warnings).toBeUndefined();
+  });
+
+  it("adds maxRelDeviationFromAnalytic for method llg; null share and Verdet at zero field", () => {
+    const r = run(JSON.stringify({ ...valid, method: "llg" }));
+    expect(r.status).toBe(0);
+    expect(JSON.parse(r.stdout).maxRelDeviationFromAnalytic).toBeLessThan(1e-4);
+    const z = JSON.parse(run(JSON.stringify({ ...valid, fieldT: 0 })).stdout);
+    expect(z.points[0].magneticShare).toBeNull();
+    expect(z.points[0].verdetRadPerTm).toBeNull();
+  });
+
+  it("rejects an unknown key with exit 2 and one line naming it", () => {
+    const r = run(JSON.stringify({ ...valid, colour: "blue" }));
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe("");
+    expect(r.stderrLines).toHaveLength(1);
+    expect(r.stderrLines[0]).toMatch(/^colour: unknown key/);
+  });
+
+  it("rejects duplicate wavelengths", () => {
+    const r = run(JSON.stringify({ ...valid, wavelengthsNm: [632.8, 632.8] }));
+    expect(r.status).toBe(2);
+    expect(r.stderrLines).toHaveLength(1);
+    expect(r.stderrLines[0]).toMatch(/^wavelengthsNm\.1: duplicate wavelength/);
+  });
+
+  it('rejects the string "NaN" (JSON has no NaN literal) and a NaN literal as malformed JSON', () => {
+    const r = run(JSON.stringify({ ...valid, temperatureK: "NaN" }));
+    expect(r.status).toBe(2);
+    expect(r.stderrLines).toHaveLength(1);
+    expect(r.stderrLines[0]).toMatch(/^temperatureK: /);
+    const lit = run(JSON.stringify(valid).replace('"temperatureK":293.15', '"temperatureK":NaN'));
+    expect(lit.status).toBe(2);
+    expect(lit.stderrLines).toHaveLength(1);
+    expect(lit.stderrLines[0]).toMatch(/malformed JSON/);
+  });
+
+  it.each([
+    [{ temperatureK: -5 }, /^temperatureK: /],
+    [{ curieWeissK: 400, temperatureK: 300 }, /^temperatureK: must be above the Curie–Weiss/],
+    [{ totalJ: 2.2 }, /^totalJ: /],
+    [{ lengthM: -1 }, /^lengthM: /],
+    [{ wavelengthsNm: [] }, /^wavelengthsNm: /],
+    [{ wavelengthsNm: Array.from({ length: 5001 }, (_, i) => 300 + i) }, /^wavelengthsNm: must hold at most 5000/],
+  ] as const)("rejects physically meaningless input %#", (over, pattern) => {
+    const r = run(JSON.stringify({ ...valid, ...over }));
+    expect(r.status).toBe(2);
+    expect(r.stderrLines).toHaveLength(1);
+    expect(r.stderrLines[0]).toMatch(pattern);
+  });
+
+  it("reports a missing file and malformed JSON on one line with exit 2", () => {
+    const missing = run(null);
+    expect(missing.status).toBe(2);
+    expect(missing.stderrLines).toHaveLength(1);
+    expect(missing.stderrLines[0]).toMatch(/cannot read/);
+    const bad = run("{ not json");
+    expect(bad.status).toBe(2);
+    expect(bad.stderrLines).toHaveLength(1);
+  });
+
+  it("prints passivity warnings on stderr and in the JSON, with exit 0", () => {
+    const r = run(JSON.stringify({ ...valid, temperatureK: 4, fieldT: 5, oscillatorStrength: 0.005, wavelengthsNm: [400, 632.8, 1064] }));
+    expect(r.status).toBe(0);
+    expect(r.stderrLines.length).toBeGreaterThan(0);
+    expect(r.stderrLines.every((l) => l.startsWith("warning:"))).toBe(true);
+    const out = JSON.parse(r.stdout);
+    expect(out.warnings).toHaveLength(1);
+    expect(out.warnings[0]).toMatch(/passivity/);
+  });
+});
