@@ -6,8 +6,7 @@ import bcrypt from "bcryptjs";
  */
 const COST = 10;
 
-export const PASSWORD_MIN_LENGTH = 8;
-export const PASSWORD_MAX_LENGTH = 72; // bcrypt ignores bytes past 72
+export { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "./password-rules";
 
 export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, COST);

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "./password";
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "./password-rules";
 
-/** Sign-in and sign-up inputs, shared by the server actions, the sign-up API and the forms. */
+/** Sign-in and sign-up inputs, shared by the server actions, the sign-up API and the forms (client-safe). */
 
 const email = z
   .string({ error: "Enter your e-mail address." })
