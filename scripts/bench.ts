@@ -28,7 +28,8 @@ const tgg: Omit<SpectrumRequest, "method"> = {
   wavelengthsNm,
 };
 
-function medianMs(run: () => void, warmup: number, repeats: number): number {
+/** Median and fastest wall time of `repeats` runs after `warmup` runs (the fastest is the least disturbed by other load). */
+function timeMs(run: () => void, warmup: number, repeats: number): { median: number; min: number } {
   for (let i = 0; i < warmup; i++) run();
   const times: number[] = [];
   for (let i = 0; i < repeats; i++) {
@@ -37,15 +38,17 @@ function medianMs(run: () => void, warmup: number, repeats: number): number {
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);
-  return times[Math.floor(times.length / 2)]!;
+  return { median: times[Math.floor(times.length / 2)]!, min: times[0]! };
 }
 
 let deviation = Number.NaN;
-const llgMs = medianMs(() => {
+const llg = timeMs(() => {
   deviation = computeSpectrum({ ...tgg, method: "llg" }).maxRelDeviationFromAnalytic ?? Number.NaN;
 }, 3, 9);
-const analyticMs = medianMs(() => computeSpectrum({ ...tgg, method: "analytic" }), 20, 51);
+const analytic = timeMs(() => computeSpectrum({ ...tgg, method: "analytic" }), 20, 51);
 
-console.log(`numerical (llg) spectrum, 256 wavelengths 300–3000 nm, single thread: ${llgMs.toFixed(1)} ms (median of 9, target ≤ 100 ms)`);
-console.log(`analytic spectrum, 256 wavelengths: ${analyticMs.toFixed(3)} ms (median of 51, target ≤ 2 ms)`);
+console.log(
+  `numerical (llg) spectrum, 256 wavelengths 300–3000 nm, single thread: ${llg.median.toFixed(1)} ms median of 9, fastest ${llg.min.toFixed(1)} ms (target ≤ 100 ms)`,
+);
+console.log(`analytic spectrum, 256 wavelengths: ${analytic.median.toFixed(3)} ms median of 51, fastest ${analytic.min.toFixed(3)} ms (target ≤ 2 ms)`);
 console.log(`largest numerical-vs-analytic relative deviation of χ±: ${deviation.toExponential(2)} (target ≤ 1e-4)`);
