@@ -7,7 +7,7 @@ import { z } from "zod";
  */
 
 const finite = (what: string) =>
-  z.number({ error: `${what} must be a number` }).refine(Number.isFinite, { message: `${what} must be finite` });
+  z.number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) }).refine(Number.isFinite, { message: `${what} must be finite` });
 
 const isHalfInteger = (j: number) => Math.abs(j * 2 - Math.round(j * 2)) < 1e-9 && j >= 0.5;
 
@@ -65,10 +65,10 @@ export const spectrumRequestSchema = z
     ...materialShape,
     ...conditionsShape,
     wavelengthsNm: z
-      .array(finite("wavelength").gt(0, "each wavelength must be > 0 nm"), { error: "wavelengthsNm must be a list of numbers" })
+      .array(finite("wavelength").gt(0, "each wavelength must be > 0 nm"), { error: (issue) => (issue.input === undefined ? "wavelengthsNm is required" : "wavelengthsNm must be a list of numbers") })
       .min(1, "must hold at least one wavelength")
       .max(MAX_WAVELENGTHS, `must hold at most ${MAX_WAVELENGTHS} wavelengths`),
-    method: z.enum(["analytic", "llg"], { error: 'must be "analytic" or "llg"' }),
+    method: z.enum(["analytic", "llg"], { error: (issue) => (issue.input === undefined ? 'method is required ("analytic" or "llg")' : 'must be "analytic" or "llg"') }),
     intensityWPerM2: finite("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²").optional(),
   })
   .superRefine(temperatureAboveCurieWeiss)
