@@ -92,7 +92,7 @@ describe("share arithmetic (common practice, no source)", () => {
   it("a flat magnetic part at 17 % of the total at 800 nm gives the 1/(λ²−λE²) share at 1550 nm", () => {
     // This checks the share arithmetic only. With θe ∝ 1/(n(λ²−λE²)) (constant n, ΓE = 0) and θm flat,
     // share(1550) = 0.17 / (0.17 + 0.83 r), r = (800² − λE²)/(1550² − λE²) = 0.2455 for λE = 258 nm:
-    // 45.5 %. (The brief's "near 70 %" does not follow from this dispersion; see the report.)
+    // 45.5 %. The often-quoted "near 70 %" does not follow from this dispersion (README, Model).
     const base: Partial<SpectrumRequest> = {
       epsInf: 1.95 ** 2, sellmeierB: 0, oscillatorStrength: 0, oscillatorDampingRadPerS: 0, gilbertDamping: 0,
     };
