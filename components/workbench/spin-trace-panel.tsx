@@ -1,5 +1,264 @@
 "use client";
 
-export function SpinTracePanel(_props: Record<string, unknown>) {
-  return <p className="text-sm text-ink-soft">Not available yet.</p>;
+import { useMemo, useRef, useState } from "react";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
+import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
+import { useElementWidth } from "@/components/plots/use-element-size";
+import { spinTraceRequestSchema, type ModelParams } from "@/lib/physics/schema";
+import { isAbortError, type SpinTraceResult, type WorkbenchPool } from "@/lib/workbench/engine";
+import { fmt } from "@/lib/workbench/format";
+import { COMPONENT_COLORS, SERIES_STYLE } from "@/lib/workbench/palette";
+import { parseNumber } from "@/lib/workbench/validate";
+import type { ViewState } from "@/lib/workbench/view-state";
+
+type TraceView = ViewState["spinTrace"];
+
+/** Intensities for the static ΔMz curve: 1e12 … 1e17 W/m² in half decades. */
+const INTENSITIES = Array.from({ length: 11 }, (_, i) => 10 ** (12 + i / 2));
+
+const INPUT = "mt-1 w-40 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
+
+interface ComplexValue {
+  re: number;
+  im: number;
+}
+
+function relDev(a: ComplexValue, b: ComplexValue): number {
+  const d = Math.hypot(a.re - b.re, a.im - b.im);
+  const n = Math.hypot(b.re, b.im);
+  return n === 0 ? NaN : d / n;
+}
+
+function fmtComplex(z: ComplexValue): string {
+  return `${fmt(z.re)} ${z.im < 0 ? "−" : "+"} ${fmt(Math.abs(z.im))} i`;
+}
+
+export function SpinTracePanel({
+  pool,
+  params,
+  view,
+  onView,
+  banner,
+  fileBase,
+}: {
+  pool: WorkbenchPool | null;
+  params: ModelParams | null;
+  view: TraceView;
+  onView: (next: TraceView) => void;
+  banner: string | null;
+  fileBase: string;
+}) {
+  const [drafts, setDrafts] = useState({ wavelengthNm: String(view.wavelengthNm), intensityWPerM2: String(view.intensityWPerM2), periods: String(view.periods) });
+  const [trace, setTrace] = useState<SpinTraceResult | null>(null);
+  const [traceState, setTraceState] = useState<"idle" | "running" | "failed">("idle");
+  const [traceError, setTraceError] = useState<string | null>(null);
+  const [curve, setCurve] = useState<{ intensity: number[]; plus: (number | null)[]; minus: (number | null)[] } | null>(null);
+  const [curveProgress, setCurveProgress] = useState<number | null>(null);
+  const [curveError, setCurveError] = useState<string | null>(null);
+  const abort = useRef<AbortController | null>(null);
+  const [wrapRef, width] = useElementWidth<HTMLDivElement>();
+  const svgA = useRef<SVGSVGElement>(null);
+  const svgB = useRef<SVGSVGElement>(null);
+  const svgC = useRef<SVGSVGElement>(null);
+
+  const wl = parseNumber(drafts.wavelengthNm);
+  const intensity = parseNumber(drafts.intensityWPerM2);
+  const periods = parseNumber(drafts.periods);
+  const request =
+    params && wl !== null && intensity !== null && periods !== null
+      ? spinTraceRequestSchema.safeParse({ ...params, wavelengthNm: wl, intensityWPerM2: intensity, periods })
+      : null;
+  const issue = request && !request.success ? request.error.issues[0] : null;
+  const fieldError = (k: string) => (issue && issue.path[0] === k ? issue.message : drafts[k as keyof typeof drafts] !== undefined && parseNumber(drafts[k as keyof typeof drafts]) === null ? "must be a number" : null);
+
+  const runTrace = () => {
+    if (!pool || !request?.success) return;
+    abort.current?.abort();
+    const ac = new AbortController();
+    abort.current = ac;
+    const r = request.data;
+    onView({ wavelengthNm: r.wavelengthNm, intensityWPerM2: r.intensityWPerM2, periods: r.periods });
+    setTraceState("running");
+    setTraceError(null);
+    pool.spinTrace(r, { signal: ac.signal }).then(
+      (res) => {
+        setTrace(res);
+        setTraceState("idle");
+      },
+      (e: unknown) => {
+        if (isAbortError(e)) return setTraceState("idle");
+        setTraceState("failed");
+        setTraceError(e instanceof Error ? e.message : String(e));
+      },
+    );
+  };
+
+  const runCurve = async () => {
+    if (!pool || !params || wl === null) return;
+    abort.current?.abort();
+    const ac = new AbortController();
+    abort.current = ac;
+    setCurveError(null);
+    setCurveProgress(0);
+    const plus: (number | null)[] = [];
+    const minus: (number | null)[] = [];
+    try {
+      for (let i = 0; i < INTENSITIES.length; i++) {
+        const res = await pool.spectrum({ ...params, wavelengthsNm: [wl], method: "llg", intensityWPerM2: INTENSITIES[i]! }, { signal: ac.signal });
+        const p = res.points[0];
+        plus.push(p?.deltaMzPlusAPerM == null ? null : Math.abs(p.deltaMzPlusAPerM));
+        minus.push(p?.deltaMzMinusAPerM == null ? null : Math.abs(p.deltaMzMinusAPerM));
+        setCurveProgress((i + 1) / INTENSITIES.length);
+      }
+      setCurve({ intensity: INTENSITIES, plus, minus });
+    } catch (e) {
+      if (!isAbortError(e)) setCurveError(e instanceof Error ? e.message : String(e));
+    } finally {
+      setCurveProgress(null);
+    }
+  };
+
+  const traceSeries = useMemo<{ xs: number[]; uxy: PlotSeries[]; uz: PlotSeries[] } | null>(() => {
+    if (!trace) return null;
+    const xs = Array.from(trace.timePeriods);
+    const s = trace.uz.length > 0 && trace.uz[0]! < 0 ? -1 : 1;
+    return {
+      xs,
+      uxy: [
+        { key: "ux", label: "ux", color: COMPONENT_COLORS.ux, dash: undefined, width: 1.8, values: Array.from(trace.ux) },
+        { key: "uy", label: "uy", color: COMPONENT_COLORS.uy, dash: "6 3", width: 1.8, values: Array.from(trace.uy) },
+      ],
+      uz: [{ key: "uz", label: `uz − (${s})`, color: COMPONENT_COLORS.uz, dash: undefined, width: 1.8, values: Array.from(trace.uz, (v) => v - s) }],
+    };
+  }, [trace]);
+
+  const curveSeries = useMemo<PlotSeries[] | null>(
+    () =>
+      curve
+        ? [
+            { key: "plus", label: "|ΔMz| under the “+” drive", color: SERIES_STYLE.magnetic.color, dash: undefined, width: 2, values: curve.plus },
+            { key: "minus", label: "|ΔMz| under the “−” drive", color: SERIES_STYLE.electric.color, dash: "8 4", width: 2, values: curve.minus },
+          ]
+        : null,
+    [curve],
+  );
+
+  const input = (key: keyof typeof drafts, label: string) => {
+    const id = `trace-${key}`;
+    const err = fieldError(key);
+    return (
+      <div>
+        <label htmlFor={id} className="block text-sm font-medium">
+          {label}
+        </label>
+        <input
+          id={id}
+          className={INPUT}
+          inputMode="decimal"
+          value={drafts[key]}
+          aria-invalid={err ? true : undefined}
+          aria-describedby={err ? `${id}-error` : undefined}
+          onChange={(e) => setDrafts((d) => ({ ...d, [key]: e.target.value }))}
+        />
+        {err ? (
+          <p id={`${id}-error`} className="mt-1 max-w-56 text-xs text-ember">
+            {err}
+          </p>
+        ) : null}
+      </div>
+    );
+  };
+
+  return (
+    <div ref={wrapRef} className="space-y-4">
+      <p className="text-sm text-ink-soft">
+        The spins under the “+” circular drive after switch-on (smooth ramp, then lock-in; physics-model §7), and χ± demodulated from the
+        trace beside the Polder values. Intensity 0 uses the small linear-regime drive.
+      </p>
+      <div className="flex flex-wrap items-end gap-3">
+        {input("wavelengthNm", "Trace wavelength (nm)")}
+        {input("intensityWPerM2", "Drive intensity (W/m²)")}
+        {input("periods", "Lock-in periods")}
+        <Button onClick={runTrace} disabled={!pool || !request?.success || traceState === "running"}>
+          {traceState === "running" ? "Running…" : "Run spin trace"}
+        </Button>
+      </div>
+      {!params ? <p className="text-sm text-ember">Fix the flagged parameters first.</p> : null}
+      {traceError ? <Alert tone="warning" title="Spin trace failed">{traceError}</Alert> : null}
+
+      {trace && traceSeries ? (
+        <>
+          <LinePlot title="Transverse magnetization after switch-on" xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="u (1)" series={traceSeries.uxy} width={width} height={240} banner={banner} svgRef={svgA} />
+          <PlotExportButtons svgRef={svgA} fileBase={`${fileBase}-spin-trace-uxy`} plotName="transverse magnetization plot" />
+          <LinePlot title="Longitudinal magnetization: uz − s" xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="uz − s (1)" series={traceSeries.uz} width={width} height={200} legend={false} svgRef={svgB} />
+          <PlotExportButtons svgRef={svgB} fileBase={`${fileBase}-spin-trace-uz`} plotName="longitudinal magnetization plot" />
+          <table className="w-full max-w-3xl text-sm tabular-nums">
+            <caption className="text-left font-semibold">Susceptibility at {fmt(view.wavelengthNm, 5)} nm</caption>
+            <thead className="text-left text-xs text-ink-soft">
+              <tr>
+                <th scope="col" className="py-1 pr-3 font-medium">Mode</th>
+                <th scope="col" className="py-1 pr-3 font-medium">χ from the trace (LLG)</th>
+                <th scope="col" className="py-1 pr-3 font-medium">χ analytic (Polder)</th>
+                <th scope="col" className="py-1 pr-3 font-medium">Relative deviation</th>
+                <th scope="col" className="py-1 font-medium">Static ΔMz (A/m)</th>
+              </tr>
+            </thead>
+            <tbody>
+              <tr>
+                <th scope="row" className="py-1 pr-3 text-left font-medium">“+”</th>
+                <td className="py-1 pr-3">{fmtComplex(trace.chiPlus)}</td>
+                <td className="py-1 pr-3">{fmtComplex(trace.chiPlusAnalytic)}</td>
+                <td className="py-1 pr-3">{fmt(relDev(trace.chiPlus, trace.chiPlusAnalytic), 2)}</td>
+                <td className="py-1">{fmt(trace.deltaMzPlusAPerM)}</td>
+              </tr>
+              <tr>
+                <th scope="row" className="py-1 pr-3 text-left font-medium">“−”</th>
+                <td className="py-1 pr-3">{fmtComplex(trace.chiMinus)}</td>
+                <td className="py-1 pr-3">{fmtComplex(trace.chiMinusAnalytic)}</td>
+                <td className="py-1 pr-3">{fmt(relDev(trace.chiMinus, trace.chiMinusAnalytic), 2)}</td>
+                <td className="py-1">{fmt(trace.deltaMzMinusAPerM)}</td>
+              </tr>
+            </tbody>
+          </table>
+        </>
+      ) : traceState === "running" ? (
+        <p role="status" className="text-sm text-ink-soft">Integrating the LLG equation in a worker…</p>
+      ) : (
+        <p className="text-sm text-ink-soft">No trace yet. Choose a wavelength and intensity and run it.</p>
+      )}
+
+      <div className="space-y-2 border-t border-ink/10 pt-4">
+        <div className="flex flex-wrap items-center gap-3">
+          <Button variant="secondary" onClick={() => void runCurve()} disabled={!pool || !params || wl === null || curveProgress !== null}>
+            ΔMz against intensity at {wl ?? "–"} nm
+          </Button>
+          {curveProgress !== null ? (
+            <progress aria-label="ΔMz curve progress" value={curveProgress} max={1} className="w-48" />
+          ) : null}
+        </div>
+        {curveError ? <Alert tone="warning" title="ΔMz curve failed">{curveError}</Alert> : null}
+        {curve && curveSeries ? (
+          <>
+            <LinePlot
+              title="Static change of Mz against optical intensity (numerical LLG, log-log)"
+              xs={curve.intensity}
+              xType="log"
+              yType="log"
+              xLabel="Intensity in the medium (W/m²)"
+              yLabel="|ΔMz| (A/m)"
+              series={curveSeries}
+              width={width}
+              height={280}
+              banner={banner}
+              svgRef={svgC}
+            />
+            <p className="text-xs text-ink-soft">ΔMz has the opposite sign to M0 (the cone shortens Mz, §4.5); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.</p>
+            <PlotExportButtons svgRef={svgC} fileBase={`${fileBase}-delta-mz`} plotName="ΔMz against intensity plot" />
+          </>
+        ) : null}
+      </div>
+    </div>
+  );
 }

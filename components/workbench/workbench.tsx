@@ -61,12 +61,19 @@ const SAVE_TEXT: Record<ViewSaveStatus, string> = {
 };
 
 export function Workbench({ set, initialParams, initialViewState, canSaveView }: WorkbenchProps) {
-  const [pool, setPool] = useState<WorkbenchPool | null>(null);
+  // Workers start lazily on first use; the side pool serves maps, compare and the spin trace so
+  // that cancelling the main run never cancels them (see createPool).
+  const [pools, setPools] = useState<{ main: WorkbenchPool; side: WorkbenchPool } | null>(null);
   useEffect(() => {
-    const p = createPool();
-    setPool(p);
-    return () => p.dispose();
+    const next = { main: createPool(), side: createPool({ size: 1 }) };
+    setPools(next);
+    return () => {
+      next.main.dispose();
+      next.side.dispose();
+    };
   }, []);
+  const pool = pools?.main ?? null;
+  const sidePool = pools?.side ?? null;
 
   const { viewState, setViewState, saveStatus, saveError } = useViewState({ setId: set?.id ?? null, canSave: canSaveView, initial: initialViewState });
   const onView = useCallback((patch: Partial<ViewState>) => setViewState((v) => ({ ...v, ...patch })), [setViewState]);
@@ -196,18 +203,18 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
 
           {viewState.panels.spinTrace ? (
             <PanelFrame title="Spin trace">
-              <SpinTracePanel pool={pool} params={params} view={viewState.spinTrace} onView={(spinTrace: ViewState["spinTrace"]) => onView({ spinTrace })} banner={scaleLabel} fileBase={fileBase} />
+              <SpinTracePanel pool={sidePool} params={params} view={viewState.spinTrace} onView={(spinTrace: ViewState["spinTrace"]) => onView({ spinTrace })} banner={scaleLabel} fileBase={fileBase} />
             </PanelFrame>
           ) : null}
           {viewState.panels.maps ? (
             <PanelFrame title="Maps of the magnetic share">
-              <MapsPanel pool={pool} params={params} range={range} banner={scaleLabel} fileBase={fileBase} />
+              <MapsPanel pool={sidePool} params={params} range={range} banner={scaleLabel} fileBase={fileBase} />
             </PanelFrame>
           ) : null}
           {viewState.panels.compare ? (
             <PanelFrame title="Compare parameter sets">
               <ComparePanel
-                pool={pool}
+                pool={sidePool}
                 current={params ? { label: set ? `${set.name} (this view)` : "Scratch", params } : null}
                 setId={set?.id ?? null}
                 range={range}

@@ -1,5 +1,5 @@
-import { arraysToResult, computeSpectrum, computeSpectrumArraysAsync } from "@/lib/physics/spectrum";
-import { computeSpinTrace } from "@/lib/physics/spin-trace";
+import { SpectrumPool } from "@/lib/compute/spectrum-pool";
+import { computeSpectrum } from "@/lib/physics/spectrum";
 import type { SpectrumRequest, SpinTraceRequest } from "@/lib/physics/schema";
 import type { SpectrumResult, SpinTraceResult } from "@/lib/physics/types";
 
@@ -26,38 +26,18 @@ export function computeAnalyticNow(request: SpectrumRequest): SpectrumResult {
   return computeSpectrum({ ...request, method: "analytic" });
 }
 
-function abortError(): DOMException {
-  return new DOMException("The run was cancelled.", "AbortError");
-}
-
 /**
- * Stand-in until lib/compute/spectrum-pool.ts lands: the same contract, computed on this thread in
- * short chunks. Replace the body of createPool with `new SpectrumPool()` then.
+ * A worker pool. The pool's cancel reaches every job on a worker, so the workbench keeps the main
+ * spectrum and the side panels (maps, compare, spin trace) in separate pools: cancelling the
+ * main run must not kill a map.
  */
-function createChunkedPool(): WorkbenchPool {
+export function createPool(opts: { size?: number } = {}): WorkbenchPool {
+  const pool = new SpectrumPool(opts);
   return {
-    async spectrum(request, opts = {}) {
-      const { signal, onProgress } = opts;
-      if (signal?.aborted) throw abortError();
-      try {
-        const arrays = await computeSpectrumArraysAsync(request, { chunkMs: 8, onProgress, shouldCancel: () => signal?.aborted === true });
-        return arraysToResult(arrays);
-      } catch (e) {
-        if (signal?.aborted) throw abortError();
-        throw e;
-      }
-    },
-    async spinTrace(request, opts = {}) {
-      if (opts.signal?.aborted) throw abortError();
-      await new Promise((r) => setTimeout(r, 0));
-      return computeSpinTrace(request);
-    },
-    dispose() {},
+    spectrum: (request, runOpts) => pool.spectrum(request, runOpts ?? {}),
+    spinTrace: (request, runOpts) => pool.spinTrace(request, runOpts ?? {}),
+    dispose: () => pool.dispose(),
   };
-}
-
-export function createPool(): WorkbenchPool {
-  return createChunkedPool();
 }
 
 export function isAbortError(error: unknown): boolean {

@@ -1,0 +1,179 @@
+import { readFileSync } from "node:fs";
+import type { Browser, BrowserContext, Locator, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+
+/*
+ * The workbench end to end, as an editor of the demo lab: open the terbium gallium garnet set,
+ * let the numerical run finish, read the marker table, change the temperature and watch the run
+ * restart, cancel a long run, export CSV, and check that the main thread never blocks > 50 ms.
+ */
+
+const RUN_TIMEOUT = 120_000;
+// 50 ms is the product's bar against a production build; `next dev` (React's development build)
+// is several times slower, so a dev run may raise it through the environment.
+const LONG_TASK_MS = Number(process.env.GYROLUX_E2E_LONGTASK_MS ?? 50);
+
+// Runs in the page before any script: records long tasks and every progress value shown, so the
+// test can assert on things that happen faster than it can poll.
+const INIT_SCRIPT = `
+  window.__longTasks = [];
+  window.__progress = [];
+  try {
+    new PerformanceObserver((list) => {
+      for (const e of list.getEntries()) window.__longTasks.push({ duration: e.duration, start: e.startTime });
+    }).observe({ type: "longtask", buffered: true });
+  } catch (e) { window.__longTaskUnsupported = String(e); }
+  const watch = () => {
+    const seen = new WeakSet();
+    new MutationObserver(() => {
+      const bar = document.querySelector('[role="progressbar"]');
+      if (!bar) return;
+      const v = Number(bar.getAttribute("aria-valuenow"));
+      const last = window.__progress[window.__progress.length - 1];
+      if (last !== v) window.__progress.push(v);
+      if (!seen.has(bar)) seen.add(bar);
+    }).observe(document, { subtree: true, childList: true, attributes: true, attributeFilter: ["aria-valuenow"] });
+  };
+  if (document.readyState === "loading") document.addEventListener("DOMContentLoaded", watch); else watch();
+`;
+
+interface WindowProbe {
+  __longTasks: { duration: number; start: number }[];
+  __progress: number[];
+}
+
+class WorkbenchPage {
+  constructor(readonly page: Page) {}
+
+  get progress(): Locator {
+    return this.page.getByRole("progressbar", { name: "Numerical run progress" });
+  }
+  get badge(): Locator {
+    return this.page.getByText(/^numerical, max deviation from linear response: \d/);
+  }
+  get markerTable(): Locator {
+    return this.page.getByRole("table", { name: /Values at markers/ });
+  }
+
+  async waitForNumericalRun(): Promise<void> {
+    await this.badge.waitFor({ state: "visible", timeout: RUN_TIMEOUT });
+    await expect.poll(() => this.progress.getAttribute("aria-valuenow"), { timeout: RUN_TIMEOUT }).toBe("100");
+  }
+
+  /** A cell of the marker row whose wavelength cell reads e.g. "1550 nm", by column header. */
+  async valueAt(wavelength: string, column = "Magnetic share"): Promise<string> {
+    const headers = await this.markerTable.locator("thead th").allInnerTexts();
+    const col = headers.findIndex((h) => h.trim() === column);
+    expect(col).toBeGreaterThan(0);
+    const row = this.markerTable.getByRole("row").filter({ has: this.page.getByRole("rowheader", { name: wavelength, exact: true }) });
+    const cells = await row.locator("th, td").allInnerTexts();
+    return cells[col]!.trim();
+  }
+
+  async setField(label: string, value: string): Promise<void> {
+    const input = this.page.getByLabel(label, { exact: true });
+    await input.fill(value);
+  }
+
+  async resetProbes(): Promise<void> {
+    await this.page.evaluate(() => {
+      const w = window as unknown as WindowProbe;
+      w.__longTasks = [];
+      w.__progress = [];
+    });
+  }
+
+  async probes(): Promise<WindowProbe> {
+    return this.page.evaluate(() => {
+      const w = window as unknown as WindowProbe;
+      return { __longTasks: w.__longTasks, __progress: w.__progress };
+    });
+  }
+}
+
+describe("workbench", () => {
+  let browser: Browser;
+  let context: BrowserContext;
+  let page: Page;
+  let wb: WorkbenchPage;
+
+  beforeAll(async () => {
+    browser = await launchBrowser();
+    context = await newContext(browser);
+    await context.addInitScript({ content: INIT_SCRIPT });
+    page = await context.newPage();
+    wb = new WorkbenchPage(page);
+    await signInAs(page, DEMO.editor);
+  });
+
+  afterAll(async () => {
+    await context?.close();
+    await browser?.close();
+  });
+
+  it("runs, restarts, cancels and exports without blocking the main thread", async () => {
+    // Find the demo set through the API from the signed-in page.
+    await page.goto("/parameter-sets");
+    const setId = await page.evaluate(async () => {
+      const r = await fetch("/api/parameter-sets?q=Terbium", { headers: { Accept: "application/json" } });
+      const body = (await r.json()) as { items: { id: string; name: string }[] };
+      return body.items.find((s) => s.name.toLowerCase().includes("terbium gallium garnet"))?.id ?? null;
+    });
+    expect(setId, "the seeded demo lab has a terbium gallium garnet set").toBeTruthy();
+
+    await page.goto(`/workbench/${setId}`, { timeout: RUN_TIMEOUT });
+    await page.getByRole("heading", { level: 1 }).waitFor({ timeout: RUN_TIMEOUT });
+
+    // 1. First numerical run finishes; the marker table has the 1550 nm line.
+    await wb.waitForNumericalRun();
+    const share1550 = await wb.valueAt("1550 nm");
+    expect(share1550).toMatch(/^\d+(\.\d+)? %$/);
+    const verdet1550 = await wb.valueAt("1550 nm", "V (rad/(T·m))");
+
+    // 2. Raise the temperature: the run restarts with progress and ends with a new value.
+    //    Both parts scale with M0 (physics-model §6.4), so the share barely moves with temperature;
+    //    the Verdet constant does. Long tasks are measured over this whole numerical run.
+    await wb.resetProbes();
+    const temperature = page.getByLabel("Temperature", { exact: true });
+    const before = await temperature.inputValue();
+    await wb.setField("Temperature", String(Number(before) + 56.85));
+    await expect.poll(async () => (await wb.probes()).__progress.some((v) => v < 100), { timeout: RUN_TIMEOUT }).toBe(true);
+    await wb.waitForNumericalRun();
+    await expect.poll(() => wb.valueAt("1550 nm", "V (rad/(T·m))"), { timeout: RUN_TIMEOUT }).not.toBe(verdet1550);
+    expect(await wb.valueAt("1550 nm")).toMatch(/^\d+(\.\d+)? %$/);
+    const probes = await wb.probes();
+    const progressSeen = probes.__progress;
+    expect(progressSeen[progressSeen.length - 1]).toBe(100);
+    const longest = Math.max(0, ...probes.__longTasks.map((t) => t.duration));
+    expect(probes.__longTasks.filter((t) => t.duration > LONG_TASK_MS), `long tasks over ${LONG_TASK_MS} ms during a numerical run (longest ${longest.toFixed(0)} ms)`).toEqual([]);
+
+    // 3. A long run (5000 points) can be cancelled; the analytic preview stays on screen.
+    await wb.setField("Points (≤ 5000)", "5000");
+    await expect.poll(() => page.getByRole("button", { name: "Cancel" }).isEnabled(), { timeout: RUN_TIMEOUT }).toBe(true);
+    await page.getByRole("button", { name: "Cancel" }).click();
+    await page.getByText("Numerical run cancelled").waitFor({ timeout: 30_000 });
+    await expect.poll(() => wb.badge.isVisible()).toBe(false);
+    expect(await page.getByRole("img", { name: /Faraday rotation/ }).isVisible()).toBe(true);
+
+    // ...then back to 256 points and let it finish.
+    await wb.setField("Points (≤ 5000)", "256");
+    await wb.waitForNumericalRun();
+
+    // 4. CSV export: # header, one column row, one row per wavelength.
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Export CSV" }).click()]);
+    const file = outputPath("workbench-spectrum.csv");
+    await download.saveAs(file);
+    const lines = readFileSync(file, "utf8").trimEnd().split("\n");
+    const header = lines.filter((l) => l.startsWith("#"));
+    const body = lines.filter((l) => !l.startsWith("#"));
+    expect(header.some((l) => /^# parameter set: .*Terbium gallium garnet/i.test(l))).toBe(true);
+    expect(header.some((l) => /^# version: \d+/.test(l))).toBe(true);
+    expect(header.some((l) => l.includes("Gyrolux model: one gyrotropic oscillator + LLG spins, physics-model §"))).toBe(true);
+    expect(header.some((l) => l.startsWith("# method: llg"))).toBe(true);
+    expect(body[0]).toBe("wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m");
+    expect(body.length - 1).toBe(256);
+
+    await page.screenshot({ path: outputPath("workbench.png"), fullPage: true });
+  });
+});
