@@ -63,9 +63,14 @@ export function useChangeMemberRole(labId: string) {
 }
 
 export function useRemoveMember(labId: string) {
+  const queryClient = useQueryClient();
   const invalidate = useInvalidateLab();
   return useMutation({
     mutationFn: (userId: string) => apiFetch<void>(membersPath(labId, userId), { method: "DELETE" }),
-    onSuccess: invalidate,
+    onSuccess: (_result, userId) => {
+      // Drop the row at once; the refetch that follows confirms it.
+      queryClient.setQueryData<LabMember[]>(labKeys.members(labId), (old) => old?.filter((m) => m.userId !== userId));
+      invalidate();
+    },
   });
 }

@@ -49,11 +49,11 @@ export function AddMemberForm({ labId, labName }: { labId: string; labName: stri
             className={`mt-1 ${INPUT_CLASS}`}
           />
         </div>
-        <div>
+        <div className="w-full sm:w-72">
           <label htmlFor={`add-role-${labId}`} className="block text-sm font-medium">
             Role
           </label>
-          <select id={`add-role-${labId}`} value={role} onChange={(event) => setRole(event.target.value as LabRole)} className={`mt-1 w-40 ${INPUT_CLASS}`}>
+          <select id={`add-role-${labId}`} value={role} onChange={(event) => setRole(event.target.value as LabRole)} className={`mt-1 ${INPUT_CLASS}`}>
             {ROLES.map((r) => (
               <option key={r} value={r}>
                 {ROLE_LABEL[r]} — {ROLE_MEANING[r]}

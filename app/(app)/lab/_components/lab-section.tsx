@@ -66,12 +66,13 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
                           <label htmlFor={`role-${lab.id}-${member.userId}`} className="sr-only">
                             Role of {member.name}
                           </label>
+                          <div className="w-32">
                           <select
                             id={`role-${lab.id}-${member.userId}`}
-                            value={member.role}
+                            value={changeRole.isPending && changeRole.variables.userId === member.userId ? changeRole.variables.role : member.role}
                             disabled={changeRole.isPending}
                             onChange={(event) => changeRole.mutate({ userId: member.userId, role: event.target.value as LabRole })}
-                            className={`w-32 ${INPUT_CLASS} py-1`}
+                            className={`${INPUT_CLASS} py-1`}
                           >
                             {ROLES.map((role) => (
                               <option key={role} value={role}>
@@ -79,6 +80,7 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
                               </option>
                             ))}
                           </select>
+                          </div>
                         </>
                       ) : (
                         ROLE_LABEL[member.role]

@@ -8,11 +8,11 @@ import type { ParameterSetVersion } from "@/lib/query/types";
 
 function VersionSelect({ id, label, value, versions, onChange }: { id: string; label: string; value: number; versions: ParameterSetVersion[]; onChange: (v: number) => void }) {
   return (
-    <div>
+    <div className="w-44">
       <label htmlFor={id} className="block text-sm font-medium">
         {label}
       </label>
-      <select id={id} value={value} onChange={(event) => onChange(Number(event.target.value))} className={`mt-1 w-44 ${INPUT_CLASS}`}>
+      <select id={id} value={value} onChange={(event) => onChange(Number(event.target.value))} className={`mt-1 ${INPUT_CLASS}`}>
         {versions.map((v) => (
           <option key={v.version} value={v.version}>
             Version {v.version}
