@@ -33,6 +33,13 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
   pages: { signIn: "/sign-in" },
   trustHost: true,
+  // A wrong password is an expected outcome, not a server error; keep the log for real failures.
+  logger: {
+    error(error) {
+      if (error instanceof CredentialsSignin) return;
+      console.error("[auth]", error);
+    },
+  },
   providers: [
     Credentials({
       id: "credentials",
