@@ -6,6 +6,7 @@
 #   bash db/pg.sh stop             stop (no-op when not running)
 #   bash db/pg.sh status           exit 0 when running, 3 when not
 #   bash db/pg.sh create-db NAME   drop NAME if it exists and create it fresh, owned by gyrolux
+#   bash db/pg.sh drop-db NAME     drop NAME if the server is running and NAME exists
 #
 # Env: GYROLUX_PG_PORT (54329), GYROLUX_PG_DATA (/tmp/gyrolux-pg-$PORT),
 #      DATABASE_URL (its database name is created on start; default gyrolux),
@@ -171,10 +172,20 @@ cmd_create_db() {
   psql_admin -c "CREATE DATABASE \"$name\" OWNER $APP_ROLE"
 }
 
+cmd_drop_db() {
+  local name="${1:-}"
+  [[ -n "$name" ]] || die "usage: bash db/pg.sh drop-db NAME"
+  valid_ident "$name" || die "database name '$name' must be a plain identifier"
+  BIN="$(find_bin || true)"
+  [[ -n "$BIN" ]] && pg_running || return 0
+  psql_admin -c "DROP DATABASE IF EXISTS \"$name\" WITH (FORCE)"
+}
+
 case "${1:-}" in
   start) cmd_start ;;
   stop) cmd_stop ;;
   status) cmd_status ;;
   create-db) cmd_create_db "${2:-}" ;;
-  *) echo "usage: bash db/pg.sh start|stop|status|create-db NAME" >&2; exit 2 ;;
+  drop-db) cmd_drop_db "${2:-}" ;;
+  *) echo "usage: bash db/pg.sh start|stop|status|create-db NAME|drop-db NAME" >&2; exit 2 ;;
 esac
