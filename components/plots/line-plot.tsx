@@ -55,7 +55,10 @@ const M = { top: 30, right: 18, bottom: 50, left: 76 };
 function LinePlotImpl(props: LinePlotProps) {
   const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true } = props;
   const innerW = Math.max(40, width - M.left - M.right);
+  const legendRows = useMemo(() => (legend && series.length > 1 ? layoutLegend(series, innerW) : []), [legend, series, innerW]);
+  const legendH = legendRows.length > 0 ? legendRows.length * 18 + 6 : 0;
   const innerH = Math.max(40, height - M.top - M.bottom);
+  const totalH = height + legendH;
 
   const xScale = useMemo(() => {
     const ext = paddedExtent([xs], xType === "log") ?? [1, 10];
@@ -144,8 +147,8 @@ function LinePlotImpl(props: LinePlotProps) {
       onKeyDown={onKeyDown}
       className="rounded-md focus-visible:outline-2"
     >
-      <svg ref={svgRef} xmlns="http://www.w3.org/2000/svg" width={width} height={height} viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} fontFamily={AXIS_FONT}>
-        <rect x={0} y={0} width={width} height={height} fill="#ffffff" />
+      <svg ref={svgRef} xmlns="http://www.w3.org/2000/svg" width={width} height={totalH} viewBox={`0 0 ${width} ${totalH}`} role="img" aria-label={title} fontFamily={AXIS_FONT}>
+        <rect x={0} y={0} width={width} height={totalH} fill="#ffffff" />
         <text x={M.left} y={16} fontSize={12} fontWeight={600} fill="#1d2433">
           {title}
         </text>
@@ -202,11 +205,10 @@ function LinePlotImpl(props: LinePlotProps) {
             </g>
           ) : null}
         </g>
-        {legend && series.length > 1 ? (
-          <g transform={`translate(${M.left + 10},${M.top + 8})`}>
-            <rect x={-6} y={-6} width={Math.max(...series.map((s) => s.label.length)) * 6.4 + 52} height={series.length * 16 + 6} fill="#ffffff" opacity={0.85} rx={4} />
-            {series.map((s, i) => (
-              <g key={s.key} transform={`translate(0,${i * 16 + 5})`}>
+        {legendRows.map((row, r) => (
+          <g key={`legend${r}`} transform={`translate(${M.left},${height + r * 18 + 4})`}>
+            {row.map(({ s, x }) => (
+              <g key={s.key} transform={`translate(${x},0)`}>
                 <line x1={0} x2={30} y1={0} y2={0} stroke={s.color} strokeWidth={s.width} strokeDasharray={s.dash} />
                 <text x={38} dy="0.32em" fontSize={11} fill="#1d2433">
                   {s.label}
@@ -214,7 +216,7 @@ function LinePlotImpl(props: LinePlotProps) {
               </g>
             ))}
           </g>
-        ) : null}
+        ))}
         {onCursorChange ? (
           <rect
             x={M.left}
@@ -231,6 +233,22 @@ function LinePlotImpl(props: LinePlotProps) {
       </svg>
     </div>
   );
+}
+
+/** Legend entries flowing left to right in rows no wider than the plot (text width estimated). */
+function layoutLegend(series: readonly PlotSeries[], maxW: number): { s: PlotSeries; x: number }[][] {
+  const rows: { s: PlotSeries; x: number }[][] = [[]];
+  let x = 0;
+  for (const s of series) {
+    const w = 44 + s.label.length * 6.3;
+    if (x > 0 && x + w > maxW) {
+      rows.push([]);
+      x = 0;
+    }
+    rows[rows.length - 1]!.push({ s, x });
+    x += w + 12;
+  }
+  return rows;
 }
 
 export const LinePlot = memo(LinePlotImpl);

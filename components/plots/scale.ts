@@ -1,4 +1,4 @@
-import { scaleLinear, scaleLog, type ScaleContinuousNumeric } from "d3";
+import { format as d3format, scaleLinear, scaleLog, type ScaleContinuousNumeric } from "d3";
 
 /*
  * Scale helpers shared by the plots: d3 does the mathematics (domains, ticks, formats); React
@@ -22,8 +22,11 @@ export interface Tick {
 /** Ticks with labels; on log axes the minor ticks get an empty label. */
 export function ticksOf(scale: NumScale, type: ScaleType, count: number): Tick[] {
   // Log axes label only the "nice" ticks (1, 2, 5 × 10ⁿ); linear axes use d3's precision-aware default.
-  const format = type === "log" ? scale.tickFormat(count, "~g") : scale.tickFormat(count);
   const values = scale.ticks(count);
+  // Very small or large linear ticks (a spin cone of 1e-5, uz − s of 1e-10) read better as exponents.
+  const maxAbs = Math.max(0, ...values.map(Math.abs));
+  const tiny = type === "linear" && maxAbs > 0 && (maxAbs < 1e-3 || maxAbs >= 1e6);
+  const format = type === "log" ? scale.tickFormat(count, "~g") : tiny ? d3format("~e") : scale.tickFormat(count);
   // A log axis spanning less than a decade gets few labelled ticks; fall back to labelling all.
   const labelled = values.map((v) => format(v));
   const anyLabel = labelled.some((l) => l !== "");

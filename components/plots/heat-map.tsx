@@ -1,0 +1,143 @@
+"use client";
+
+import { contours, geoPath, geoTransform, interpolateCividis } from "d3";
+import { memo, useMemo, type Ref } from "react";
+import { AXIS_FONT, XAxis, YAxis } from "./axes";
+import { makeScale, type ScaleType } from "./scale";
+
+/*
+ * A heat map of a 0…1 quantity on a grid that is uniform in its axis scales (log-spaced
+ * wavelengths on a log axis, etc.), with d3-contour lines at chosen levels. Cividis is
+ * colour-blind safe and its lightness rises monotonically, so the map also reads in grey.
+ */
+
+export interface HeatMapProps {
+  title: string;
+  xs: readonly number[];
+  ys: readonly number[];
+  xType: ScaleType;
+  yType: ScaleType;
+  /** Row-major: values[j * xs.length + i] at (xs[i], ys[j]); null = undefined there. */
+  values: readonly (number | null)[];
+  levels: readonly number[];
+  xLabel: string;
+  yLabel: string;
+  width: number;
+  height?: number;
+  banner?: string | null;
+  svgRef?: Ref<SVGSVGElement>;
+}
+
+const M = { top: 30, right: 96, bottom: 50, left: 76 };
+
+/** Cell edges around uniformly spaced centres (geometric for log axes). */
+function edges(centres: readonly number[], type: ScaleType): [number, number] {
+  const n = centres.length;
+  const a = centres[0]!;
+  const b = centres[n - 1]!;
+  if (n < 2) return type === "log" ? [a / 1.1, a * 1.1] : [a - 0.5, a + 0.5];
+  if (type === "log") {
+    const r = Math.sqrt(centres[1]! / a);
+    return [a / r, b * r];
+  }
+  const h = (centres[1]! - a) / 2;
+  return [a - h, b + h];
+}
+
+function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLabel, width, height = 300, banner, svgRef }: HeatMapProps) {
+  const innerW = Math.max(40, width - M.left - M.right);
+  const innerH = Math.max(40, height - M.top - M.bottom);
+  const nx = xs.length;
+  const ny = ys.length;
+
+  const xScale = useMemo(() => makeScale(xType, edges(xs, xType), [M.left, M.left + innerW], false), [xs, xType, innerW]);
+  const yScale = useMemo(() => makeScale(yType, edges(ys, yType), [M.top + innerH, M.top], false), [ys, yType, innerH]);
+
+  const cells = useMemo(() => {
+    const cw = innerW / nx;
+    const ch = innerH / ny;
+    const out: { key: number; x: number; y: number; w: number; h: number; fill: string }[] = [];
+    for (let j = 0; j < ny; j++) {
+      for (let i = 0; i < nx; i++) {
+        const v = values[j * nx + i];
+        out.push({
+          key: j * nx + i,
+          x: M.left + i * cw,
+          y: M.top + innerH - (j + 1) * ch,
+          // Overlap by a fraction of a pixel so anti-aliasing leaves no hairlines between cells.
+          w: cw + 0.5,
+          h: ch + 0.5,
+          fill: v === null || v === undefined || !Number.isFinite(v) ? "#d9d6cf" : interpolateCividis(Math.min(1, Math.max(0, v))),
+        });
+      }
+    }
+    return out;
+  }, [values, nx, ny, innerW, innerH]);
+
+  const contourPaths = useMemo(() => {
+    if (nx < 2 || ny < 2) return [];
+    const grid = values.map((v) => (v === null || !Number.isFinite(v) ? -1 : v));
+    const project = geoTransform({
+      point(x, y) {
+        // Contour coordinates run over cell edges 0…nx, 0…ny; the value of cell i sits at i + 0.5.
+        this.stream.point(M.left + (x / nx) * innerW, M.top + innerH - (y / ny) * innerH);
+      },
+    });
+    const path = geoPath(project);
+    return contours().size([nx, ny]).thresholds([...levels])(grid).map((c) => ({ level: c.value, d: path(c) ?? "" }));
+  }, [values, nx, ny, levels, innerW, innerH]);
+
+  const noContour = contourPaths.every((c) => c.d === "");
+  const legendStops = useMemo(() => Array.from({ length: 11 }, (_, k) => k / 10), []);
+  const lx = M.left + innerW + 24;
+
+  return (
+    <svg ref={svgRef} xmlns="http://www.w3.org/2000/svg" width={width} height={height} viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} fontFamily={AXIS_FONT}>
+      <rect x={0} y={0} width={width} height={height} fill="#ffffff" />
+      <text x={M.left} y={16} fontSize={12} fontWeight={600} fill="#1d2433">
+        {title}
+      </text>
+      {banner ? (
+        <text x={M.left + innerW} y={16} fontSize={11} textAnchor="end" fill="#b4541a" fontWeight={600}>
+          {banner}
+        </text>
+      ) : null}
+      <g>
+        {cells.map((c) => (
+          <rect key={c.key} x={c.x} y={c.y} width={c.w} height={c.h} fill={c.fill} />
+        ))}
+      </g>
+      {contourPaths.map((c) => (
+        <g key={c.level}>
+          <path d={c.d} fill="none" stroke="#ffffff" strokeWidth={4} opacity={0.9} />
+          <path d={c.d} fill="none" stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
+        </g>
+      ))}
+      {noContour && levels.length > 0 ? (
+        <text x={M.left + 8} y={M.top + 16} fontSize={11} fill="#ffffff" fontWeight={600}>
+          {`The ${levels.map((l) => `${Math.round(l * 100)} %`).join(", ")} level is not reached in this map`}
+        </text>
+      ) : null}
+      <YAxis scale={yScale} type={yType} x={M.left} width={0} label={yLabel} />
+      <XAxis scale={xScale} type={xType} y={M.top + innerH} height={0} label={xLabel} />
+      <g aria-hidden="true">
+        <defs>
+          <linearGradient id="heat-legend" x1="0" x2="0" y1="1" y2="0">
+            {legendStops.map((t) => (
+              <stop key={t} offset={t} stopColor={interpolateCividis(t)} />
+            ))}
+          </linearGradient>
+        </defs>
+        <rect x={lx} y={M.top} width={14} height={innerH} fill="url(#heat-legend)" stroke="#4a5468" strokeWidth={0.5} />
+        {[0, 0.25, 0.5, 0.75, 1].map((t) => (
+          <text key={t} x={lx + 20} y={M.top + innerH - t * innerH} dy="0.32em" fontSize={10} fill="#4a5468">
+            {`${Math.round(t * 100)} %`}
+          </text>
+        ))}
+        <line x1={lx - 3} x2={lx + 17} y1={M.top + innerH / 2} y2={M.top + innerH / 2} stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
+      </g>
+    </svg>
+  );
+}
+
+export const HeatMap = memo(HeatMapImpl);
