@@ -8,10 +8,23 @@ const DEBOUNCE_MS = 300;
 /** Typing updates ?q= once the user pauses, so each keystroke does not become a request. */
 export function SearchBox({ value, onSearch }: { value: string; onSearch: (q: string) => void }) {
   const [text, setText] = useState(value);
+  const [seen, setSeen] = useState(value);
+  const [sent, setSent] = useState<string | null>(null);
+
+  // When ?q= changes from elsewhere ("Clear filters", back button), show it; an echo of our own
+  // debounced update must not overwrite what the user typed since.
+  if (value !== seen) {
+    setSeen(value);
+    if (value !== sent) setText(value);
+  }
 
   useEffect(() => {
-    if (text.trim() === value) return;
-    const timer = setTimeout(() => onSearch(text.trim()), DEBOUNCE_MS);
+    const q = text.trim();
+    if (q === value) return;
+    const timer = setTimeout(() => {
+      setSent(q);
+      onSearch(q);
+    }, DEBOUNCE_MS);
     return () => clearTimeout(timer);
   }, [text, value, onSearch]);
 

@@ -1,7 +1,7 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { useCallback, useMemo, useState } from "react";
+import { useCallback, useMemo } from "react";
 import { Button, LinkButton } from "@/components/ui/button";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { PageHeader } from "@/components/ui/page-header";
@@ -23,8 +23,6 @@ export function SetsBrowser() {
   const tag = searchParams.get("tag") ?? "";
   const sort = parseSort(searchParams.get("sort"), searchParams.get("dir"));
 
-  // Remounts the search box when filters are cleared from outside it, so its text empties too.
-  const [searchKey, setSearchKey] = useState(0);
   const labs = useLabs();
   const sets = useParameterSets({ labId, q, tag });
   const canCreate = labs.data?.some((lab) => hasRole(lab.role, "editor")) ?? false;
@@ -37,10 +35,7 @@ export function SetsBrowser() {
     update({ sort: key, dir });
   };
   const onTag = (t: string) => update({ tag: t === tag ? null : t });
-  const clearFilters = () => {
-    setSearchKey((k) => k + 1);
-    update({ q: null, lab: null, tag: null });
-  };
+  const clearFilters = () => update({ q: null, lab: null, tag: null });
 
   return (
     <>
@@ -51,7 +46,7 @@ export function SetsBrowser() {
       />
 
       <div className="mb-4 flex flex-wrap items-end gap-4" role="search" aria-label="Filter parameter sets">
-        <SearchBox key={searchKey} value={q} onSearch={onSearch} />
+        <SearchBox value={q} onSearch={onSearch} />
         <div className="w-full sm:w-60">
           <label htmlFor="sets-lab" className="block text-sm font-medium">
             Lab
