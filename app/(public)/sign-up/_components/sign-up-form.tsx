@@ -2,13 +2,11 @@
 
 import { useActionState, useState } from "react";
 import { signUpAction } from "@/lib/auth/actions";
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/auth/password-rules";
+import { signUpSchema } from "@/lib/auth/schemas";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
-
-// Same bounds as lib/auth/password.ts, which cannot be imported here: it pulls bcrypt into the bundle.
-const PASSWORD_MIN_LENGTH = 8;
-const PASSWORD_MAX_LENGTH = 72;
 
 export function SignUpForm() {
   const [state, formAction, pending] = useActionState(signUpAction, {});
@@ -26,11 +24,15 @@ export function SignUpForm() {
       className="mt-6 space-y-4"
       noValidate
       onSubmit={(event) => {
-        // Checked here for a quick answer; the server action checks again.
+        // The server action's own schema, for a quick answer; the action checks again.
         const errors: Record<string, string> = {};
-        if (!values.name.trim()) errors.name = "Enter your name.";
-        if (!values.email.includes("@")) errors.email = "Enter a valid e-mail address.";
-        if (values.password.length < PASSWORD_MIN_LENGTH) errors.password = `Use at least ${PASSWORD_MIN_LENGTH} characters.`;
+        const parsed = signUpSchema.safeParse(values);
+        if (!parsed.success) {
+          for (const issue of parsed.error.issues) {
+            const key = String(issue.path[0] ?? "");
+            errors[key] ??= issue.message;
+          }
+        }
         if (values.confirmPassword !== values.password) errors.confirmPassword = "The two passwords differ.";
         setLocalError(errors);
         if (Object.keys(errors).length > 0) event.preventDefault();
