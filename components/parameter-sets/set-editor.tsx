@@ -66,7 +66,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
           }
           if (error instanceof ApiError && error.fields) {
             const { field, other } = mapServerFields(error.fields);
-            for (const [path, message] of field) form.setError(path, { type: "server", message });
+            field.forEach(([path, message], i) => form.setError(path, { type: "server", message }, { shouldFocus: i === 0 }));
             setGeneralError(other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message);
             return;
           }
