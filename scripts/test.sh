@@ -24,7 +24,8 @@ started=$(date +%s)
 server_pid=""
 cleanup() {
   local rc=$?
-  [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null || true
+  # The server runs in its own process group so that it and every child it forked stop together.
+  [ -n "$server_pid" ] && kill -- "-$server_pid" 2>/dev/null || true
   bash db/pg.sh drop-db "$RUN_DB" >/dev/null 2>&1 || true
   log "npm test finished in $(( $(date +%s) - started )) s (exit $rc)"
   exit $rc
@@ -41,7 +42,7 @@ npx tsx db/seed.ts
 log "building the production app"
 npx next build
 log "serving it on $GYROLUX_TEST_BASE_URL"
-npx next start -p "$TEST_PORT" > "${TMPDIR:-/tmp}/gyrolux-test-server-$TEST_PORT.log" 2>&1 &
+setsid node_modules/.bin/next start -p "$TEST_PORT" > "${TMPDIR:-/tmp}/gyrolux-test-server-$TEST_PORT.log" 2>&1 &
 server_pid=$!
 wait_for_http "$GYROLUX_TEST_BASE_URL/api/health"
 
