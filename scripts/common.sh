@@ -11,7 +11,9 @@ as_root() {
 ensure_node_modules() {
   if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
     log "installing dependencies (npm ci)"
-    npm ci --no-audit --no-fund
+    # --include=dev: the scripts export NODE_ENV=production, which would otherwise drop the
+    # build and test tools.
+    npm ci --include=dev --no-audit --no-fund
   fi
 }
 
