@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
+import type { LabSummary, MemberSummary } from "@/lib/api/dto";
 import { db } from "../client";
 import { labMemberships, labs, users, type LabRole, type SiteRole } from "../schema";
 import { recordAudit } from "./audit";
@@ -18,12 +19,6 @@ export async function getLabAccess(options: {
   return row ?? null;
 }
 
-export interface LabSummary {
-  id: string;
-  name: string;
-  role: LabRole;
-}
-
 /** The caller's labs; a site admin gets every lab, as owner. */
 export async function listLabs(options: { userId: string; siteRole: SiteRole }): Promise<LabSummary[]> {
   if (options.siteRole === "admin") {
@@ -36,13 +31,6 @@ export async function listLabs(options: { userId: string; siteRole: SiteRole }):
     .innerJoin(labs, eq(labs.id, labMemberships.labId))
     .where(eq(labMemberships.userId, options.userId))
     .orderBy(asc(labs.name));
-}
-
-export interface MemberSummary {
-  userId: string;
-  email: string;
-  name: string;
-  role: LabRole;
 }
 
 const memberColumns = { userId: users.id, email: users.email, name: users.name, role: labMemberships.role };

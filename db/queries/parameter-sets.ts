@@ -3,6 +3,7 @@ import { and, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { uniqueViolation } from "@/lib/api/db-errors";
 import { ApiError, notFound } from "@/lib/api/errors";
+import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/api/dto";
 import type { CreateParameterSetInput, UpdateParameterSetInput } from "@/lib/api/schemas";
 import type { ModelParams } from "@/lib/physics/schema";
 import { db, type Database } from "../client";
@@ -18,41 +19,6 @@ import type { Caller } from "./caller";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 type Executor = Database | Tx;
-
-export interface UserRef {
-  id: string;
-  name: string;
-}
-
-export interface ParameterSetSummary {
-  id: string;
-  labId: string;
-  labName: string;
-  name: string;
-  description: string;
-  tags: string[];
-  version: number;
-  createdAt: string;
-  updatedAt: string;
-  createdBy: UserRef;
-  updatedBy: UserRef;
-  role: LabRole;
-}
-
-export interface ParameterSet extends ParameterSetSummary {
-  params: ModelParams;
-  viewState: Record<string, unknown> | null;
-}
-
-export interface ParameterSetVersion {
-  version: number;
-  name: string;
-  description: string;
-  tags: string[];
-  params: ModelParams;
-  createdAt: string;
-  createdBy: UserRef;
-}
 
 const NOT_FOUND = "No such parameter set.";
 const createdByUser = alias(users, "created_by_user");

@@ -1,15 +1,9 @@
 import "server-only";
 import { and, desc, eq, isNull, lt, or } from "drizzle-orm";
+import type { TokenSummary } from "@/lib/api/dto";
 import { db } from "../client";
 import { apiTokens, users, type User } from "../schema";
 import { recordAudit } from "./audit";
-
-export interface TokenSummary {
-  id: string;
-  name: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-}
 
 const summary = (row: { id: string; name: string; createdAt: Date; lastUsedAt: Date | null }): TokenSummary => ({
   id: row.id,

@@ -1,71 +1,19 @@
-import type { ModelParams } from "@/lib/physics/schema";
+import type { LabRole } from "@/lib/api/dto";
 
-/* Response shapes of the REST API (shared-contract/foundation.md), as the browser sees them. */
+/* Response shapes of the REST API (shared-contract/foundation.md): one definition, lib/api/dto.ts. */
 
-export type LabRole = "owner" | "editor" | "viewer";
-
-export interface UserRef {
-  id: string;
-  name: string;
-}
-
-export interface ParameterSetSummary {
-  id: string;
-  labId: string;
-  labName: string;
-  name: string;
-  description: string;
-  tags: string[];
-  version: number;
-  createdAt: string;
-  updatedAt: string;
-  createdBy: UserRef;
-  updatedBy: UserRef;
-  role: LabRole;
-}
-
-export interface ParameterSet extends ParameterSetSummary {
-  params: ModelParams;
-  viewState: Record<string, unknown> | null;
-}
-
-export interface ParameterSetVersion {
-  version: number;
-  name: string;
-  description: string;
-  tags: string[];
-  params: ModelParams;
-  createdAt: string;
-  createdBy: UserRef;
-}
-
-export interface Lab {
-  id: string;
-  name: string;
-  role: LabRole;
-}
-
-export interface LabMember {
-  userId: string;
-  email: string;
-  name: string;
-  role: LabRole;
-}
-
-export interface ApiToken {
-  id: string;
-  name: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-}
-
-export interface ItemsResponse<T> {
-  items: T[];
-}
-
-export interface ItemResponse<T> {
-  item: T;
-}
+export type {
+  ItemResponse,
+  ItemsResponse,
+  LabRole,
+  ParameterSet,
+  ParameterSetSummary,
+  ParameterSetVersion,
+  UserRef,
+  LabSummary as Lab,
+  MemberSummary as LabMember,
+  TokenSummary as ApiToken,
+} from "@/lib/api/dto";
 
 const RANK: Record<LabRole, number> = { viewer: 0, editor: 1, owner: 2 };
 

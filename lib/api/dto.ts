@@ -1,0 +1,78 @@
+import type { ModelParams } from "@/lib/physics/schema";
+
+/*
+ * The JSON shapes the REST API answers with (shared-contract/foundation.md), in one place for
+ * both sides: db/queries builds them, lib/query reads them. Types only and no server import, so
+ * the browser bundle can import it.
+ */
+
+export type LabRole = "owner" | "editor" | "viewer";
+
+export interface UserRef {
+  id: string;
+  name: string;
+}
+
+export interface ParameterSetSummary {
+  id: string;
+  labId: string;
+  labName: string;
+  name: string;
+  description: string;
+  tags: string[];
+  version: number;
+  /** ISO 8601 */
+  createdAt: string;
+  /** ISO 8601 */
+  updatedAt: string;
+  createdBy: UserRef;
+  updatedBy: UserRef;
+  /** The caller's role in the set's lab (site admins: owner). */
+  role: LabRole;
+}
+
+export interface ParameterSet extends ParameterSetSummary {
+  params: ModelParams;
+  viewState: Record<string, unknown> | null;
+}
+
+/** One immutable snapshot of a set (GET …/versions). */
+export interface ParameterSetVersion {
+  version: number;
+  name: string;
+  description: string;
+  tags: string[];
+  params: ModelParams;
+  createdAt: string;
+  createdBy: UserRef;
+}
+
+/** A lab with the caller's role in it (GET /api/labs). */
+export interface LabSummary {
+  id: string;
+  name: string;
+  role: LabRole;
+}
+
+export interface MemberSummary {
+  userId: string;
+  email: string;
+  name: string;
+  role: LabRole;
+}
+
+/** An API token as listed; the secret itself appears only once, in the create response. */
+export interface TokenSummary {
+  id: string;
+  name: string;
+  createdAt: string;
+  lastUsedAt: string | null;
+}
+
+export interface ItemsResponse<T> {
+  items: T[];
+}
+
+export interface ItemResponse<T> {
+  item: T;
+}
