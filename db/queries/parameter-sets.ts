@@ -182,6 +182,24 @@ interface Content {
   params: ModelParams;
 }
 
+const CONTENT_KEYS = ["name", "description", "tags", "params"] as const satisfies readonly (keyof Content)[];
+
+/**
+ * Equality of JSON values regardless of object key order (jsonb does not keep the order the client
+ * sent); array order counts.
+ */
+function sameJson(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  if (Array.isArray(a) || Array.isArray(b)) {
+    return Array.isArray(a) && Array.isArray(b) && a.length === b.length && a.every((item, i) => sameJson(item, b[i]));
+  }
+  if (a === null || b === null || typeof a !== "object" || typeof b !== "object") return false;
+  const aKeys = Object.keys(a);
+  const bRecord = b as Record<string, unknown>;
+  if (aKeys.length !== Object.keys(bRecord).length) return false;
+  return aKeys.every((key) => Object.hasOwn(bRecord, key) && sameJson((a as Record<string, unknown>)[key], bRecord[key]));
+}
+
 /**
  * Saves new content as version current+1 (with its immutable snapshot), after locking the row and
  * checking the version the client edited. Shared by PATCH and restore.
@@ -195,7 +213,9 @@ async function saveNewVersion(
     role: LabRole;
     expectedVersion: number | undefined;
     content: (current: Content & { version: number }) => Promise<Content> | Content;
-    audit: { action: string; details: Record<string, unknown> };
+    /** When the new content equals the current one: save nothing and answer the item as it is. */
+    skipIfUnchanged?: boolean;
+    audit: { action: string; details: (changed: (keyof Content)[]) => Record<string, unknown> };
   },
 ): Promise<ParameterSet> {
   const [current] = await tx
@@ -219,6 +239,9 @@ async function saveNewVersion(
     );
   }
   const next = await options.content(current);
+  const changed = CONTENT_KEYS.filter((key) => !sameJson(next[key], current[key]));
+  // A save that changes nothing must not add a version identical to the current one.
+  if (options.skipIfUnchanged && changed.length === 0) return requireItem(tx, options);
   const version = current.version + 1;
   const now = new Date();
   await tx
@@ -234,7 +257,7 @@ async function saveNewVersion(
       targetType: "parameter_set",
       targetId: options.id,
       labId: options.labId,
-      details: { ...options.audit.details, version },
+      details: { ...options.audit.details(changed), version },
     },
   });
   return requireItem(tx, options);
@@ -248,7 +271,6 @@ export async function updateParameterSet(options: {
   input: UpdateParameterSetInput;
 }): Promise<ParameterSet> {
   const { input } = options;
-  const changed = (["name", "description", "tags", "params"] as const).filter((key) => input[key] !== undefined);
   try {
     return await db.transaction((tx) =>
       saveNewVersion(tx, {
@@ -260,7 +282,8 @@ export async function updateParameterSet(options: {
           tags: input.tags ?? current.tags,
           params: input.params ?? current.params,
         }),
-        audit: { action: "parameter_set.update", details: { changed } },
+        skipIfUnchanged: true,
+        audit: { action: "parameter_set.update", details: (changed) => ({ changed }) },
       }),
     );
   } catch (error) {
@@ -296,7 +319,7 @@ export async function restoreParameterSetVersion(options: {
           restoredName = old.name;
           return old;
         },
-        audit: { action: "parameter_set.restore", details: { restoredVersion: options.restoreVersion } },
+        audit: { action: "parameter_set.restore", details: () => ({ restoredVersion: options.restoreVersion }) },
       }),
     );
   } catch (error) {
@@ -364,6 +387,17 @@ export async function saveParameterSetViewState(options: {
       .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
       .returning({ id: parameterSets.id });
     if (rows.length === 0) throw notFound(NOT_FOUND);
+    await recordAudit({
+      tx,
+      entry: {
+        actorId: options.caller.id,
+        action: "parameter_set.view_state",
+        targetType: "parameter_set",
+        targetId: options.id,
+        labId: options.labId,
+        details: { cleared: options.viewState === null },
+      },
+    });
     return requireItem(tx, options);
   });
 }

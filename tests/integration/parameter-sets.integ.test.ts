@@ -83,6 +83,36 @@ describeHttp("parameter sets: lifecycle", () => {
     expect((await viewer.get(`/api/parameter-sets/${item.id}/versions`)).status).toBe(404);
   });
 
+  it("a PATCH that changes nothing → 200 with the item as it was and no new version", async () => {
+    const set = await createSet(editor, { params: validParams({ temperatureK: 250 }) });
+
+    const onlyVersion = await editor.patch(`/api/parameter-sets/${set.id}`, { version: 1 });
+    expect(onlyVersion.status).toBe(200);
+    expect(onlyVersion.body.item).toEqual(set);
+
+    // The same values sent back (parameters in another key order, as a form might) are no change either.
+    const reordered = Object.fromEntries(Object.entries(set.params).reverse());
+    const sameValues = await editor.patch(`/api/parameter-sets/${set.id}`, {
+      version: 1,
+      name: set.name,
+      description: set.description,
+      tags: set.tags,
+      params: reordered,
+    });
+    expect(sameValues.status).toBe(200);
+    expect(sameValues.body.item).toMatchObject({ version: 1, updatedAt: set.updatedAt });
+
+    const versions = await viewer.get(`/api/parameter-sets/${set.id}/versions`);
+    expect(versions.body.items.map((v: any) => v.version)).toEqual([1]);
+
+    // A stale version is still a conflict, and a real change still makes version 2.
+    const real = await editor.patch(`/api/parameter-sets/${set.id}`, { version: 1, description: "changed" });
+    expect(real.body.item.version).toBe(2);
+    const stale = await editor.patch(`/api/parameter-sets/${set.id}`, { version: 1 });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe("stale_version");
+  });
+
   it("duplicate names in a lab → 409 conflict with fields.name (create, rename and restore)", async () => {
     const first = await createSet(editor);
     const duplicate = await editor.post("/api/parameter-sets", { labId: DEMO_LAB_ID, name: first.name, params: validParams() });

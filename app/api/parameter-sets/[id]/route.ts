@@ -18,7 +18,10 @@ export const GET = apiRoute<Params>(async (request, { params }) => {
   return json({ item });
 });
 
-/** PATCH /api/parameter-sets/{id} { version, name?, description?, tags?, params? } (editor) → { item } */
+/**
+ * PATCH /api/parameter-sets/{id} { version, name?, description?, tags?, params? } (editor) → { item }
+ * with version+1; a body that changes nothing answers the item unchanged and adds no version.
+ */
 export const PATCH = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
