@@ -57,7 +57,8 @@ export const viewStateSchema = z.object({
   viewState: z
     .record(z.string(), z.unknown(), { error: "viewState must be a JSON object." })
     .nullable()
-    .refine((value) => value === null || JSON.stringify(value).length <= VIEW_STATE_MAX_BYTES, {
+    // Bytes of UTF-8, not UTF-16 code units: the limit is a storage size.
+    .refine((value) => value === null || new TextEncoder().encode(JSON.stringify(value)).byteLength <= VIEW_STATE_MAX_BYTES, {
       message: `viewState must be at most ${VIEW_STATE_MAX_BYTES / 1024} KiB of JSON.`,
     }),
 });
@@ -71,7 +72,12 @@ export const listParameterSetsQuery = z.object({
 export const labRoleSchema = z.enum(["owner", "editor", "viewer"], { error: 'Role must be "owner", "editor" or "viewer".' });
 
 export const addMemberSchema = z.object({
-  email: z.string({ error: "Enter an e-mail address." }).trim().toLowerCase().pipe(z.email({ error: "Enter a valid e-mail address." })),
+  email: z
+    .string({ error: "Enter an e-mail address." })
+    .trim()
+    .toLowerCase()
+    .max(320, "That e-mail address is too long.")
+    .pipe(z.email({ error: "Enter a valid e-mail address." })),
   role: labRoleSchema,
 });
 
