@@ -4,29 +4,12 @@
  * a JIT warm-up for the numerical (LLG) and analytic paths, and the largest numerical-vs-analytic
  * relative deviation of χ±. Targets: numerical ≤ 100 ms at ≤ 1e-4, analytic ≤ 2 ms.
  */
+import { TERBIUM_GARNET_DEFAULTS } from "../lib/model/defaults";
 import type { SpectrumRequest } from "../lib/physics/schema";
 import { computeSpectrum } from "../lib/physics/spectrum";
 
 const wavelengthsNm = Array.from({ length: 256 }, (_, i) => 300 + (2700 * i) / 255);
-const tgg: Omit<SpectrumRequest, "method"> = {
-  ionDensityPerM3: 1.2726e28,
-  landeG: 1.5,
-  totalJ: 6,
-  curieWeissK: -8,
-  gilbertDamping: 0.01,
-  epsInf: 1,
-  sellmeierB: 2.7325,
-  sellmeierWavelengthNm: 135.83,
-  oscillatorStrength: 0.015,
-  oscillatorWavelengthNm: 258,
-  oscillatorDampingRadPerS: 1e14,
-  gyrationPerT: 5.395e-3,
-  magneticScale: 1,
-  temperatureK: 293.15,
-  fieldT: 1,
-  lengthM: 0.01,
-  wavelengthsNm,
-};
+const tgg: Omit<SpectrumRequest, "method"> = { ...TERBIUM_GARNET_DEFAULTS, wavelengthsNm };
 
 /** Median and fastest wall time of `repeats` runs after `warmup` runs (the fastest is the least disturbed by other load). */
 function timeMs(run: () => void, warmup: number, repeats: number): { median: number; min: number } {
