@@ -2,24 +2,23 @@
 
 import { Button } from "@/components/ui/button";
 import { downloadText } from "@/components/plots/export-image";
-import type { ModelParams } from "@/lib/physics/schema";
 import { buildSpectrumCsv, buildSpectrumJson, exportFileName, type ExportMeta } from "@/lib/workbench/export";
 import type { ComputedSpectrum } from "./use-spectrum-run";
 
 export function ExportBar({
   shown,
-  params,
   setName,
   setId,
   version,
 }: {
   shown: ComputedSpectrum | null;
-  params: ModelParams | null;
   setName: string;
   setId: string | null;
   version: number | null;
 }) {
-  const ready = shown !== null && params !== null;
+  // The export is of the result on screen, with the parameters it was computed from, so it stays
+  // available (and correct) while newer inputs are invalid or their run failed.
+  const ready = shown !== null;
   const meta = (): ExportMeta => ({ setName, setId, version, method: shown!.method, exportedAt: new Date().toISOString() });
   return (
     <section aria-label="Export" className="flex flex-wrap items-center gap-2">
@@ -27,7 +26,7 @@ export function ExportBar({
       <Button
         variant="secondary"
         disabled={!ready}
-        onClick={() => downloadText(buildSpectrumCsv(meta(), params!, shown!.result), exportFileName(setName, "spectrum", "csv"), "text/csv")}
+        onClick={() => downloadText(buildSpectrumCsv(meta(), shown!.params, shown!.result), exportFileName(setName, "spectrum", "csv"), "text/csv")}
       >
         Export CSV
       </Button>
@@ -35,7 +34,7 @@ export function ExportBar({
         variant="secondary"
         disabled={!ready}
         onClick={() =>
-          downloadText(buildSpectrumJson(meta(), params!, shown!.result), exportFileName(setName, "spectrum", "json"), "application/json")
+          downloadText(buildSpectrumJson(meta(), shown!.params, shown!.result), exportFileName(setName, "spectrum", "json"), "application/json")
         }
       >
         Export JSON

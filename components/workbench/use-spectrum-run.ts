@@ -1,7 +1,7 @@
 "use client";
 
 import { useCallback, useEffect, useRef, useState } from "react";
-import type { SpectrumRequest } from "@/lib/physics/schema";
+import type { ModelParams, SpectrumRequest } from "@/lib/physics/schema";
 import type { SpectrumResult } from "@/lib/physics/types";
 import { computeAnalyticNow, isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
 import { wavelengthGrid } from "@/lib/workbench/units";
@@ -23,6 +23,12 @@ export interface ComputedSpectrum {
   method: "analytic" | "llg";
   result: SpectrumResult;
   markers: SpectrumResult | null;
+  /**
+   * The model parameters this result was computed from. While an edit is pending, invalid or its
+   * run failed, the screen keeps an older result, so its labels (magneticScale, B0, L) and exports
+   * must come from here, not from the inputs as they are now.
+   */
+  params: ModelParams;
   /** Grid points of the full request; the preview may use fewer. */
   requestedPoints: number;
 }
@@ -55,6 +61,11 @@ function previewGrid(request: SpectrumRequest): number[] {
   return wavelengthGrid(w[0]!, w[w.length - 1]!, PREVIEW_POINTS, "log");
 }
 
+function paramsOf(request: SpectrumRequest): ModelParams {
+  const { wavelengthsNm: _w, method: _m, intensityWPerM2: _i, ...params } = request;
+  return params;
+}
+
 function errorText(error: unknown): string {
   if (error instanceof Error && error.message) return error.message;
   return String(error);
@@ -85,7 +96,7 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
         const grid = previewGrid(request);
         const result = computeAnalyticNow({ ...request, wavelengthsNm: grid, method: "analytic" });
         const markers = markersNm.length > 0 ? computeAnalyticNow({ ...request, wavelengthsNm: [...markersNm], method: "analytic" }) : null;
-        setPreview({ key, method: "analytic", result, markers, requestedPoints: request.wavelengthsNm.length });
+        setPreview({ key, method: "analytic", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
         setError(null);
       } catch (e) {
         setStatus("failed");
@@ -119,7 +130,7 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
       ]).then(
         ([result, markers]) => {
           if (ac.signal.aborted) return;
-          setNumerical({ key, method: "llg", result, markers, requestedPoints: request.wavelengthsNm.length });
+          setNumerical({ key, method: "llg", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
           setProgress(1);
           setStatus("done");
         },

@@ -99,7 +99,9 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
   const markersForRun = useMemo(() => (params ? normalizeMarkers(computableMarkers(params, viewState.markersNm)) : []), [params, viewState.markersNm]);
   const run = useSpectrumRun({ request: built.request, markersNm: markersForRun, pool });
 
-  const shownParams = params ?? initialParams;
+  // Labels, unit conversions and exports describe the result on screen, which may be older than
+  // the inputs (typing, invalid input, failed run); physics-model §4.3 needs the label of that result.
+  const shownParams = run.shown?.params ?? params ?? initialParams;
   const geometry = useMemo(() => ({ fieldT: shownParams.fieldT, lengthM: shownParams.lengthM }), [shownParams.fieldT, shownParams.lengthM]);
   const scaleLabel = magneticScaleLabel(shownParams.magneticScale);
   const setName = set?.name ?? "Scratch (terbium garnet defaults)";
@@ -145,7 +147,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
       </header>
 
       <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
-        <aside aria-label="Parameters" className="space-y-6 lg:max-h-[calc(100vh-4rem)] lg:overflow-y-auto lg:pr-2">
+        <aside aria-label="Parameters" className="space-y-6 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:pr-2">
           <RangeControls drafts={rangeDrafts} errors={rangeErrors} requestError={built.rangeError} onChange={onRange} />
           <ParameterPanel drafts={drafts} errors={errors} onChange={onParam} />
         </aside>
@@ -185,7 +187,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
                 onRemove={removeMarker}
                 onReset={resetMarkers}
               />
-              <ExportBar shown={run.shown} params={params} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} />
+              <ExportBar shown={run.shown} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} />
             </>
           ) : (
             <EmptyResult invalid={invalid} />
@@ -203,12 +205,12 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
 
           {viewState.panels.spinTrace ? (
             <PanelFrame title="Spin trace">
-              <SpinTracePanel pool={sidePool} params={params} view={viewState.spinTrace} onView={(spinTrace: ViewState["spinTrace"]) => onView({ spinTrace })} banner={scaleLabel} fileBase={fileBase} />
+              <SpinTracePanel pool={sidePool} params={params} view={viewState.spinTrace} onView={(spinTrace: ViewState["spinTrace"]) => onView({ spinTrace })} fileBase={fileBase} />
             </PanelFrame>
           ) : null}
           {viewState.panels.maps ? (
             <PanelFrame title="Maps of the magnetic share">
-              <MapsPanel pool={sidePool} params={params} range={range} banner={scaleLabel} fileBase={fileBase} />
+              <MapsPanel pool={sidePool} params={params} range={range} fileBase={fileBase} />
             </PanelFrame>
           ) : null}
           {viewState.panels.compare ? (
