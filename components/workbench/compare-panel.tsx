@@ -6,16 +6,16 @@ import { Alert } from "@/components/ui/alert";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
-import { modelParamsSchema, type ModelParams } from "@/lib/physics/schema";
+import { modelParamsSchema, type ModelParams, type SpectrumRequest } from "@/lib/physics/schema";
 import type { SpectrumResult } from "@/lib/physics/types";
 import { describeError } from "@/lib/query/fetcher";
 import { parameterSetQuery, parameterSetVersionsQuery, useParameterSets, useParameterSetVersions } from "@/lib/query/parameter-sets";
 import { normalizeMarkers } from "@/lib/workbench/derived";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
-import { fmt, fmtPercent } from "@/lib/workbench/format";
+import { fmt, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
 import { COMPARE_COLORS, COMPARE_DASHES } from "@/lib/workbench/palette";
 import { fromNm, rotationTo, wavelengthGrid, X_AXIS_TITLE, Y_MODE_LABEL } from "@/lib/workbench/units";
-import { computableMarkers } from "@/lib/workbench/validate";
+import { checkedSpectrumRequest, computableMarkers } from "@/lib/workbench/validate";
 import type { ViewState, WavelengthRange } from "@/lib/workbench/view-state";
 
 /*
@@ -27,6 +27,12 @@ import type { ViewState, WavelengthRange } from "@/lib/workbench/view-state";
 
 const MAX_COMPARE = 5;
 const COMPARE_POINTS = 256;
+
+/** A legend and table label that carries the magneticScale label of physics-model §4.3 when it applies. */
+function entryLabel(label: string, params: ModelParams): string {
+  const scale = magneticScaleLabel(params.magneticScale);
+  return scale ? `${label} (${scale})` : label;
+}
 
 interface Entry {
   key: string;
@@ -100,7 +106,7 @@ export function ComparePanel({
         setEntries={setQueries.flatMap((q) => {
           if (!q.data) return [];
           const parsed = modelParamsSchema.safeParse(q.data.params);
-          return parsed.success ? [{ key: `set:${q.data.id}`, label: `${q.data.name} v${q.data.version}`, params: parsed.data }] : [];
+          return parsed.success ? [{ key: `set:${q.data.id}`, label: entryLabel(`${q.data.name} v${q.data.version}`, parsed.data), params: parsed.data }] : [];
         })}
         setId={setId}
         range={range}
@@ -163,10 +169,10 @@ function CompareResults({
     ? (versions.data ?? []).flatMap((v) => {
         if (!selected.includes(`version:${v.version}`)) return [];
         const parsed = modelParamsSchema.safeParse(v.params);
-        return parsed.success ? [{ key: `version:${v.version}`, label: `Version ${v.version}`, params: parsed.data }] : [];
+        return parsed.success ? [{ key: `version:${v.version}`, label: entryLabel(`Version ${v.version}`, parsed.data), params: parsed.data }] : [];
       })
     : [];
-  const entries: Entry[] = [...(current ? [{ key: "current", label: current.label, params: current.params }] : []), ...setEntries, ...versionEntries];
+  const entries: Entry[] = [...(current ? [{ key: "current", label: entryLabel(current.label, current.params), params: current.params }] : []), ...setEntries, ...versionEntries];
   const entriesKey = JSON.stringify(entries.map((e) => [e.key, e.params]));
 
   const [computed, setComputed] = useState<Computed[]>([]);
@@ -184,9 +190,18 @@ function CompareResults({
     Promise.all(
       entries.map(async (entry) => {
         const markersNm = normalizeMarkers(computableMarkers(entry.params, view.markersNm));
+        let gridRequest: SpectrumRequest;
+        let markerRequest: SpectrumRequest | null;
+        try {
+          // Another set may not reach down to this range (Sellmeier pole): say so instead of sending it.
+          gridRequest = checkedSpectrumRequest({ ...entry.params, wavelengthsNm: grid, method: "analytic" });
+          markerRequest = markersNm.length > 0 ? checkedSpectrumRequest({ ...entry.params, wavelengthsNm: markersNm, method: "analytic" }) : null;
+        } catch (e) {
+          throw new Error(`${entry.label}: ${e instanceof Error ? e.message : String(e)}`);
+        }
         const [g, m] = await Promise.all([
-          pool.spectrum({ ...entry.params, wavelengthsNm: grid, method: "analytic" }, { signal: ac.signal }),
-          markersNm.length > 0 ? pool.spectrum({ ...entry.params, wavelengthsNm: markersNm, method: "analytic" }, { signal: ac.signal }) : Promise.resolve(null),
+          pool.spectrum(gridRequest, { signal: ac.signal }),
+          markerRequest ? pool.spectrum(markerRequest, { signal: ac.signal }) : Promise.resolve(null),
         ]);
         return { entry, grid: g, markers: m };
       }),

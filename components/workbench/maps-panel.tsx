@@ -8,7 +8,9 @@ import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
 import type { ModelParams } from "@/lib/physics/schema";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
+import { magneticScaleLabel } from "@/lib/workbench/format";
 import { wavelengthGrid } from "@/lib/workbench/units";
+import { checkedSpectrumRequest } from "@/lib/workbench/validate";
 import type { WavelengthRange } from "@/lib/workbench/view-state";
 
 /*
@@ -28,7 +30,16 @@ interface MapData {
   ys: number[];
   values: (number | null)[];
   yType: "log" | "linear";
+  /** The magneticScale label of the parameters this map was computed from (physics-model §4.3). */
+  banner: string | null;
 }
+
+/** What differs between the two maps; everything else is drawn the same way. */
+const MAP_VIEW: Record<MapKind, { title: string; yLabel: string; file: string; plotName: string }> = {
+  temperature: { title: "Magnetic share over wavelength × temperature (analytic)", yLabel: "Temperature (K)", file: "share-map-temperature", plotName: "temperature map" },
+  field: { title: "Magnetic share over wavelength × |field| (analytic)", yLabel: "|B0| (T)", file: "share-map-field", plotName: "field map" },
+};
+const MAP_KINDS: MapKind[] = ["temperature", "field"];
 
 function rowsFor(kind: MapKind, params: ModelParams): { ys: number[]; yType: "log" | "linear" } {
   if (kind === "temperature") {
@@ -45,13 +56,11 @@ export function MapsPanel({
   pool,
   params,
   range,
-  banner,
   fileBase,
 }: {
   pool: WorkbenchPool | null;
   params: ModelParams | null;
   range: WavelengthRange | null;
-  banner: string | null;
   fileBase: string;
 }) {
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
@@ -60,8 +69,6 @@ export function MapsPanel({
   const [progress, setProgress] = useState(0);
   const [error, setError] = useState<string | null>(null);
   const abort = useRef<AbortController | null>(null);
-  const svgT = useRef<SVGSVGElement>(null);
-  const svgB = useRef<SVGSVGElement>(null);
 
   useEffect(() => () => abort.current?.abort(), []);
 
@@ -80,11 +87,11 @@ export function MapsPanel({
       for (let j = 0; j < ys.length; j++) {
         const y = ys[j]!;
         const rowParams = kind === "temperature" ? { ...params, temperatureK: y } : { ...params, fieldT: y };
-        const res = await pool.spectrum({ ...rowParams, wavelengthsNm: xs, method: "analytic" }, { signal: ac.signal });
+        const res = await pool.spectrum(checkedSpectrumRequest({ ...rowParams, wavelengthsNm: xs, method: "analytic" }), { signal: ac.signal });
         for (const p of res.points) values.push(p.magneticShare);
         setProgress((j + 1) / ys.length);
       }
-      setMaps((m) => ({ ...m, [kind]: { kind, xs, ys: kind === "field" ? ys.map(Math.abs) : ys, values, yType } }));
+      setMaps((m) => ({ ...m, [kind]: { kind, xs, ys: kind === "field" ? ys.map(Math.abs) : ys, values, yType, banner: magneticScaleLabel(params.magneticScale) } }));
     } catch (e) {
       if (!isAbortError(e)) setError(e instanceof Error ? e.message : String(e));
     } finally {
@@ -121,46 +128,35 @@ export function MapsPanel({
       {!params || !range ? <p className="text-sm text-ember">Fix the flagged inputs first.</p> : null}
       {error ? <Alert tone="warning" title="Map failed">{error}</Alert> : null}
       {anyMap ? <p className="text-xs text-ink-soft">Maps are computed on request; recompute after changing parameters.</p> : null}
-      {maps.temperature ? (
-        <>
-          <HeatMap
-            title="Magnetic share over wavelength × temperature (analytic)"
-            xs={maps.temperature.xs}
-            ys={maps.temperature.ys}
-            xType="log"
-            yType="linear"
-            values={maps.temperature.values}
-            levels={LEVELS}
-            xLabel="Wavelength (nm)"
-            yLabel="Temperature (K)"
-            width={width}
-            height={300}
-            banner={banner}
-            svgRef={svgT}
-          />
-          <PlotExportButtons svgRef={svgT} fileBase={`${fileBase}-share-map-temperature`} plotName="temperature map" />
-        </>
-      ) : null}
-      {maps.field ? (
-        <>
-          <HeatMap
-            title="Magnetic share over wavelength × |field| (analytic)"
-            xs={maps.field.xs}
-            ys={maps.field.ys}
-            xType="log"
-            yType="log"
-            values={maps.field.values}
-            levels={LEVELS}
-            xLabel="Wavelength (nm)"
-            yLabel="|B0| (T)"
-            width={width}
-            height={300}
-            banner={banner}
-            svgRef={svgB}
-          />
-          <PlotExportButtons svgRef={svgB} fileBase={`${fileBase}-share-map-field`} plotName="field map" />
-        </>
-      ) : null}
+      {MAP_KINDS.map((kind) => {
+        const map = maps[kind];
+        return map ? <MapPlot key={kind} map={map} width={width} fileBase={fileBase} /> : null;
+      })}
     </div>
+  );
+}
+
+function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBase: string }) {
+  const svg = useRef<SVGSVGElement>(null);
+  const view = MAP_VIEW[map.kind];
+  return (
+    <>
+      <HeatMap
+        title={view.title}
+        xs={map.xs}
+        ys={map.ys}
+        xType="log"
+        yType={map.yType}
+        values={map.values}
+        levels={LEVELS}
+        xLabel="Wavelength (nm)"
+        yLabel={view.yLabel}
+        width={width}
+        height={300}
+        banner={map.banner}
+        svgRef={svg}
+      />
+      <PlotExportButtons svgRef={svg} fileBase={`${fileBase}-${view.file}`} plotName={view.plotName} />
+    </>
   );
 }

@@ -8,9 +8,9 @@ import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
 import { spinTraceRequestSchema, type ModelParams } from "@/lib/physics/schema";
 import { isAbortError, type SpinTraceResult, type WorkbenchPool } from "@/lib/workbench/engine";
-import { fmt } from "@/lib/workbench/format";
+import { fmt, magneticScaleLabel } from "@/lib/workbench/format";
 import { COMPONENT_COLORS, SERIES_STYLE } from "@/lib/workbench/palette";
-import { parseNumber } from "@/lib/workbench/validate";
+import { checkedSpectrumRequest, parseNumber } from "@/lib/workbench/validate";
 import type { ViewState } from "@/lib/workbench/view-state";
 
 type TraceView = ViewState["spinTrace"];
@@ -40,21 +40,20 @@ export function SpinTracePanel({
   params,
   view,
   onView,
-  banner,
   fileBase,
 }: {
   pool: WorkbenchPool | null;
   params: ModelParams | null;
   view: TraceView;
   onView: (next: TraceView) => void;
-  banner: string | null;
   fileBase: string;
 }) {
   const [drafts, setDrafts] = useState({ wavelengthNm: String(view.wavelengthNm), intensityWPerM2: String(view.intensityWPerM2), periods: String(view.periods) });
-  const [trace, setTrace] = useState<SpinTraceResult | null>(null);
+  // Each result keeps the magneticScale label of the parameters it was computed from (§4.3).
+  const [trace, setTrace] = useState<(SpinTraceResult & { banner: string | null }) | null>(null);
   const [traceState, setTraceState] = useState<"idle" | "running" | "failed">("idle");
   const [traceError, setTraceError] = useState<string | null>(null);
-  const [curve, setCurve] = useState<{ intensity: number[]; plus: (number | null)[]; minus: (number | null)[] } | null>(null);
+  const [curve, setCurve] = useState<{ intensity: number[]; plus: (number | null)[]; minus: (number | null)[]; banner: string | null } | null>(null);
   const [curveProgress, setCurveProgress] = useState<number | null>(null);
   const [curveError, setCurveError] = useState<string | null>(null);
   const abort = useRef<AbortController | null>(null);
@@ -84,7 +83,7 @@ export function SpinTracePanel({
     setTraceError(null);
     pool.spinTrace(r, { signal: ac.signal }).then(
       (res) => {
-        setTrace(res);
+        setTrace({ ...res, banner: magneticScaleLabel(r.magneticScale) });
         setTraceState("idle");
       },
       (e: unknown) => {
@@ -95,8 +94,19 @@ export function SpinTracePanel({
     );
   };
 
+  // The curve's requests, checked before any is sent: an out-of-range wavelength disables the button.
+  const curveRequests = (() => {
+    if (!params || wl === null) return null;
+    try {
+      return INTENSITIES.map((intensityWPerM2) => checkedSpectrumRequest({ ...params, wavelengthsNm: [wl], method: "llg", intensityWPerM2 }));
+    } catch {
+      return null;
+    }
+  })();
+
   const runCurve = async () => {
-    if (!pool || !params || wl === null) return;
+    if (!pool || !params || !curveRequests) return;
+    const banner = magneticScaleLabel(params.magneticScale);
     abort.current?.abort();
     const ac = new AbortController();
     abort.current = ac;
@@ -105,14 +115,14 @@ export function SpinTracePanel({
     const plus: (number | null)[] = [];
     const minus: (number | null)[] = [];
     try {
-      for (let i = 0; i < INTENSITIES.length; i++) {
-        const res = await pool.spectrum({ ...params, wavelengthsNm: [wl], method: "llg", intensityWPerM2: INTENSITIES[i]! }, { signal: ac.signal });
+      for (let i = 0; i < curveRequests.length; i++) {
+        const res = await pool.spectrum(curveRequests[i]!, { signal: ac.signal });
         const p = res.points[0];
         plus.push(p?.deltaMzPlusAPerM == null ? null : Math.abs(p.deltaMzPlusAPerM));
         minus.push(p?.deltaMzMinusAPerM == null ? null : Math.abs(p.deltaMzMinusAPerM));
         setCurveProgress((i + 1) / INTENSITIES.length);
       }
-      setCurve({ intensity: INTENSITIES, plus, minus });
+      setCurve({ intensity: INTENSITIES, plus, minus, banner });
     } catch (e) {
       if (!isAbortError(e)) setCurveError(e instanceof Error ? e.message : String(e));
     } finally {
@@ -190,12 +200,15 @@ export function SpinTracePanel({
 
       {trace && traceSeries ? (
         <>
-          <LinePlot title="Transverse magnetization after switch-on" xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="u (1)" series={traceSeries.uxy} width={width} height={240} banner={banner} svgRef={svgA} />
+          <LinePlot title="Transverse magnetization after switch-on" xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="u (1)" series={traceSeries.uxy} width={width} height={240} banner={trace.banner} svgRef={svgA} />
           <PlotExportButtons svgRef={svgA} fileBase={`${fileBase}-spin-trace-uxy`} plotName="transverse magnetization plot" />
           <LinePlot title="Longitudinal magnetization: uz − s" xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="uz − s (1)" series={traceSeries.uz} width={width} height={200} legend={false} svgRef={svgB} />
           <PlotExportButtons svgRef={svgB} fileBase={`${fileBase}-spin-trace-uz`} plotName="longitudinal magnetization plot" />
           <table className="w-full max-w-3xl text-sm tabular-nums">
-            <caption className="text-left font-semibold">Susceptibility at {fmt(view.wavelengthNm, 5)} nm</caption>
+            <caption className="text-left font-semibold">
+              Susceptibility at {fmt(view.wavelengthNm, 5)} nm
+              {trace.banner ? <span className="ml-2 text-xs font-semibold text-ember">{trace.banner}</span> : null}
+            </caption>
             <thead className="text-left text-xs text-ink-soft">
               <tr>
                 <th scope="col" className="py-1 pr-3 font-medium">Mode</th>
@@ -231,7 +244,7 @@ export function SpinTracePanel({
 
       <div className="space-y-2 border-t border-ink/10 pt-4">
         <div className="flex flex-wrap items-center gap-3">
-          <Button variant="secondary" onClick={() => void runCurve()} disabled={!pool || !params || wl === null || curveProgress !== null}>
+          <Button variant="secondary" onClick={() => void runCurve()} disabled={!pool || !curveRequests || curveProgress !== null}>
             ΔMz against intensity at {wl ?? "–"} nm
           </Button>
           {curveProgress !== null ? (
@@ -251,7 +264,7 @@ export function SpinTracePanel({
               series={curveSeries}
               width={width}
               height={280}
-              banner={banner}
+              banner={curve.banner}
               svgRef={svgC}
             />
             <p className="text-xs text-ink-soft">ΔMz has the opposite sign to M0 (the cone shortens Mz, §4.5); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.</p>

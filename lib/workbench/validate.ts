@@ -1,3 +1,4 @@
+import type { z } from "zod";
 import { modelParamsSchema, spectrumRequestSchema, type ModelParamKey, type ModelParams, type SpectrumRequest } from "@/lib/physics/schema";
 import { PARAM_META } from "@/lib/model/param-meta";
 import { rangeSchema, type WavelengthRange } from "./view-state";
@@ -100,4 +101,17 @@ export function computableMarkers(params: ModelParams, markersNm: readonly numbe
       !(params.sellmeierB > 0 && nm <= params.sellmeierWavelengthNm) &&
       !(params.oscillatorDampingRadPerS === 0 && nm === params.oscillatorWavelengthNm),
   );
+}
+
+/**
+ * A spectrum request checked by the shared schema before it is sent, for the panels that build
+ * their own requests (maps, comparison, ΔMz curve): anything out of range becomes an error on the
+ * page and never reaches a worker.
+ */
+export function checkedSpectrumRequest(input: z.input<typeof spectrumRequestSchema>): SpectrumRequest {
+  const parsed = spectrumRequestSchema.safeParse(input);
+  if (parsed.success) return parsed.data;
+  const issue = parsed.error.issues[0];
+  const where = issue && issue.path.length > 0 ? `${String(issue.path[0])}: ` : "";
+  throw new Error(issue ? `${where}${issue.message}` : "invalid spectrum request");
 }
