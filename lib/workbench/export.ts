@@ -21,6 +21,18 @@ export const CSV_COLUMNS = [
   "verdet_rad_per_T_m",
 ] as const;
 
+/** Meaning and unit of each CSV column, written into the header so the file explains itself. */
+export const CSV_COLUMN_MEANING: Record<(typeof CSV_COLUMNS)[number], string> = {
+  wavelength_nm: "vacuum wavelength (nm)",
+  theta_rad: "total Faraday rotation θ over the sample length L at the field B0 (rad)",
+  theta_electric_rad: "electric-dipole part θe (rad)",
+  theta_magnetic_rad: "magnetic-dipole part θm (rad)",
+  theta_cross_rad: "cross term θx = θ − θe − θm (rad)",
+  ellipticity_rad: "ellipticity η (rad)",
+  magnetic_share: "|θm| / (|θe| + |θm|) (fraction 0…1; empty when both parts are 0)",
+  verdet_rad_per_T_m: "Verdet constant θ / (B0 L) (rad/(T·m); empty when B0 = 0)",
+};
+
 export interface ExportMeta {
   setName: string;
   setId: string | null;
@@ -63,6 +75,11 @@ export function csvHeaderLines(meta: ExportMeta, params: ModelParams, result: Sp
   ];
   const scale = magneticScaleLabel(params.magneticScale);
   if (scale) lines.push(`# label: ${scale}`);
+  lines.push(`# geometry: L = ${cell(params.lengthM)} m, B0 = ${cell(params.fieldT)} T`);
+  for (const column of CSV_COLUMNS) {
+    const scaled = scale && (column === "theta_magnetic_rad" || column === "theta_rad" || column === "magnetic_share" || column === "verdet_rad_per_T_m");
+    lines.push(`# column ${column}: ${CSV_COLUMN_MEANING[column]}${scaled ? `; ${scale}` : ""}`);
+  }
   for (const w of result.warnings ?? []) lines.push(`# warning: ${oneLine(w)}`);
   return lines;
 }

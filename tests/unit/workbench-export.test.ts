@@ -39,10 +39,20 @@ describe("CSV export", () => {
     expect(body[2]).toBe("1550,0,0,0,0,0,,");
   });
 
+  it("names every column with its meaning and unit in the header", () => {
+    for (const column of CSV_COLUMNS) {
+      expect(header.some((l) => l.startsWith(`# column ${column}: `) && /\(.*\)/.test(l)), column).toBe(true);
+    }
+    expect(header).toContain("# column verdet_rad_per_T_m: Verdet constant θ / (B0 L) (rad/(T·m); empty when B0 = 0)");
+    expect(header.some((l) => l.startsWith("# geometry: L = 0.01 m, B0 = 1 T"))).toBe(true);
+  });
+
   it("labels a non-unit magnetic scale", () => {
     const scaled = buildSpectrumCsv(meta, { ...TERBIUM_GARNET_DEFAULTS, magneticScale: 3 }, result);
     expect(scaled).toContain("# label: magnetic-dipole part × 3.0, not first-principles");
+    expect(scaled).toContain("# column theta_magnetic_rad: magnetic-dipole part θm (rad); magnetic-dipole part × 3.0, not first-principles");
     expect(csv).not.toContain("# label:");
+    expect(csv).not.toContain("not first-principles");
   });
 });
 
