@@ -141,10 +141,21 @@ function MarkerTableImpl({
 export function SafetyNote() {
   return (
     <aside aria-label="Safety note" className="rounded-md border border-ink/10 bg-paper-sunk px-3 py-2 text-xs leading-relaxed text-ink-soft">
-      <strong className="font-semibold text-ink">Safety, before building a rotator from these numbers:</strong> strong magnets attract
-      ferromagnetic objects and can disturb pacemakers and other implants — mark the stray-field zone. Check the laser class and wear
-      eyewear rated for the wavelength. Low-temperature runs use cryogens (cold burns, oxygen depletion). Local rules and your laser
-      safety officer take precedence.
+      <strong className="font-semibold text-ink">Safety, before building a rotator from these numbers:</strong>
+      <ul className="mt-1 list-disc space-y-0.5 pl-4">
+        <li>
+          Laser: check the laser&apos;s safety class, and wear eyewear rated for its wavelength and power whenever the beam path is open.
+        </li>
+        <li>
+          Magnet: strong fields attract ferromagnetic tools and objects and can disturb pacemakers and other implants. Mark the
+          stray-field zone and keep people with implants out of it.
+        </li>
+        <li>
+          Cryogens, for low-temperature runs: they cause cold burns and can displace oxygen. Wear a face shield and cryogenic gloves
+          and work in a ventilated room.
+        </li>
+        <li>Your local rules and your laser safety officer take precedence over this note.</li>
+      </ul>
     </aside>
   );
 }
