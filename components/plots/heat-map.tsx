@@ -1,8 +1,9 @@
 "use client";
 
 import { contours, geoPath, geoTransform, interpolateCividis } from "d3";
-import { memo, useMemo, type Ref } from "react";
-import { AXIS_FONT, XAxis, YAxis } from "./axes";
+import { memo, useId, useMemo, type Ref } from "react";
+import { XAxis, YAxis } from "./axes";
+import { frameTop, PlotFrame } from "./plot-frame";
 import { makeScale, type ScaleType } from "./scale";
 
 /*
@@ -28,7 +29,7 @@ export interface HeatMapProps {
   svgRef?: Ref<SVGSVGElement>;
 }
 
-const M = { top: 30, right: 96, bottom: 50, left: 76 };
+const MARGIN = { right: 96, bottom: 50, left: 76 };
 
 /** Cell edges around uniformly spaced centres (geometric for log axes). */
 function edges(centres: readonly number[], type: ScaleType): [number, number] {
@@ -45,13 +46,15 @@ function edges(centres: readonly number[], type: ScaleType): [number, number] {
 }
 
 function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLabel, width, height = 300, banner, svgRef }: HeatMapProps) {
+  const M = { ...MARGIN, top: frameTop(banner) };
+  const legendId = `heat-legend-${useId().replace(/[^\w-]/g, "")}`;
   const innerW = Math.max(40, width - M.left - M.right);
   const innerH = Math.max(40, height - M.top - M.bottom);
   const nx = xs.length;
   const ny = ys.length;
 
-  const xScale = useMemo(() => makeScale(xType, edges(xs, xType), [M.left, M.left + innerW], false), [xs, xType, innerW]);
-  const yScale = useMemo(() => makeScale(yType, edges(ys, yType), [M.top + innerH, M.top], false), [ys, yType, innerH]);
+  const xScale = useMemo(() => makeScale(xType, edges(xs, xType), [M.left, M.left + innerW], false), [xs, xType, innerW, M.left]);
+  const yScale = useMemo(() => makeScale(yType, edges(ys, yType), [M.top + innerH, M.top], false), [ys, yType, innerH, M.top]);
 
   const cells = useMemo(() => {
     const cw = innerW / nx;
@@ -72,7 +75,7 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
       }
     }
     return out;
-  }, [values, nx, ny, innerW, innerH]);
+  }, [values, nx, ny, innerW, innerH, M.left, M.top]);
 
   const contourPaths = useMemo(() => {
     if (nx < 2 || ny < 2) return [];
@@ -85,23 +88,14 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
     });
     const path = geoPath(project);
     return contours().size([nx, ny]).thresholds([...levels])(grid).map((c) => ({ level: c.value, d: path(c) ?? "" }));
-  }, [values, nx, ny, levels, innerW, innerH]);
+  }, [values, nx, ny, levels, innerW, innerH, M.left, M.top]);
 
   const noContour = contourPaths.every((c) => c.d === "");
   const legendStops = useMemo(() => Array.from({ length: 11 }, (_, k) => k / 10), []);
   const lx = M.left + innerW + 24;
 
   return (
-    <svg ref={svgRef} xmlns="http://www.w3.org/2000/svg" width={width} height={height} viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} fontFamily={AXIS_FONT}>
-      <rect x={0} y={0} width={width} height={height} fill="#ffffff" />
-      <text x={M.left} y={16} fontSize={12} fontWeight={600} fill="#1d2433">
-        {title}
-      </text>
-      {banner ? (
-        <text x={M.left + innerW} y={16} fontSize={11} textAnchor="end" fill="#b4541a" fontWeight={600}>
-          {banner}
-        </text>
-      ) : null}
+    <PlotFrame title={title} banner={banner} width={width} height={height} left={M.left} svgRef={svgRef}>
       <g>
         {cells.map((c) => (
           <rect key={c.key} x={c.x} y={c.y} width={c.w} height={c.h} fill={c.fill} />
@@ -122,13 +116,13 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
       <XAxis scale={xScale} type={xType} y={M.top + innerH} height={0} label={xLabel} />
       <g aria-hidden="true">
         <defs>
-          <linearGradient id="heat-legend" x1="0" x2="0" y1="1" y2="0">
+          <linearGradient id={legendId} x1="0" x2="0" y1="1" y2="0">
             {legendStops.map((t) => (
               <stop key={t} offset={t} stopColor={interpolateCividis(t)} />
             ))}
           </linearGradient>
         </defs>
-        <rect x={lx} y={M.top} width={14} height={innerH} fill="url(#heat-legend)" stroke="#4a5468" strokeWidth={0.5} />
+        <rect x={lx} y={M.top} width={14} height={innerH} fill={`url(#${legendId})`} stroke="#4a5468" strokeWidth={0.5} />
         {[0, 0.25, 0.5, 0.75, 1].map((t) => (
           <text key={t} x={lx + 20} y={M.top + innerH - t * innerH} dy="0.32em" fontSize={10} fill="#4a5468">
             {`${Math.round(t * 100)} %`}
@@ -136,7 +130,7 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
         ))}
         <line x1={lx - 3} x2={lx + 17} y1={M.top + innerH / 2} y2={M.top + innerH / 2} stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
       </g>
-    </svg>
+    </PlotFrame>
   );
 }
 

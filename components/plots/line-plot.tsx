@@ -1,8 +1,9 @@
 "use client";
 
 import { line } from "d3";
-import { memo, useMemo, type KeyboardEvent, type MouseEvent, type Ref } from "react";
-import { AXIS_FONT, XAxis, YAxis } from "./axes";
+import { memo, useId, useMemo, type KeyboardEvent, type MouseEvent, type Ref } from "react";
+import { XAxis, YAxis } from "./axes";
+import { frameTop, PlotFrame } from "./plot-frame";
 import { makeScale, paddedExtent, type ScaleType } from "./scale";
 
 /*
@@ -50,10 +51,12 @@ export interface LinePlotProps {
   legend?: boolean;
 }
 
-const M = { top: 30, right: 18, bottom: 50, left: 76 };
+const MARGIN = { right: 18, bottom: 50, left: 76 };
 
 function LinePlotImpl(props: LinePlotProps) {
   const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true } = props;
+  const M = { ...MARGIN, top: frameTop(banner) };
+  const clipId = `clip-${useId().replace(/[^\w-]/g, "")}`;
   const innerW = Math.max(40, width - M.left - M.right);
   const legendRows = useMemo(() => (legend && series.length > 1 ? layoutLegend(series, innerW) : []), [legend, series, innerW]);
   const legendH = legendRows.length > 0 ? legendRows.length * 18 + 6 : 0;
@@ -68,12 +71,12 @@ function LinePlotImpl(props: LinePlotProps) {
     for (const x of xs) if (Number.isFinite(x) && (xType !== "log" || x > 0)) { lo = Math.min(lo, x); hi = Math.max(hi, x); }
     const dom: [number, number] = Number.isFinite(lo) && lo < hi ? [lo, hi] : ext;
     return makeScale(xType, dom, [M.left, M.left + innerW], false);
-  }, [xs, xType, innerW]);
+  }, [xs, xType, innerW, M.left]);
 
   const yScale = useMemo(() => {
     const dom = yDomain ?? paddedExtent(series.map((s) => s.values), yType === "log") ?? (yType === "log" ? [1, 10] : [-1, 1]);
     return makeScale(yType, dom as [number, number], [M.top + innerH, M.top], yDomain === undefined);
-  }, [series, yDomain, yType, innerH]);
+  }, [series, yDomain, yType, innerH, M.top]);
 
   const paths = useMemo(() => {
     return series.map((s) => {
@@ -147,24 +150,15 @@ function LinePlotImpl(props: LinePlotProps) {
       onKeyDown={onKeyDown}
       className="rounded-md focus-visible:outline-2"
     >
-      <svg ref={svgRef} xmlns="http://www.w3.org/2000/svg" width={width} height={totalH} viewBox={`0 0 ${width} ${totalH}`} role="img" aria-label={title} fontFamily={AXIS_FONT}>
-        <rect x={0} y={0} width={width} height={totalH} fill="#ffffff" />
-        <text x={M.left} y={16} fontSize={12} fontWeight={600} fill="#1d2433">
-          {title}
-        </text>
-        {banner ? (
-          <text x={M.left + innerW} y={16} fontSize={11} textAnchor="end" fill="#b4541a" fontWeight={600}>
-            {banner}
-          </text>
-        ) : null}
+      <PlotFrame title={title} banner={banner} width={width} height={totalH} left={M.left} svgRef={svgRef}>
         <YAxis scale={yScale} type={yType} x={M.left} width={innerW} label={yLabel} />
         <XAxis scale={xScale} type={xType} y={M.top + innerH} height={innerH} label={xLabel} />
         <defs>
-          <clipPath id={`clip-${title.replace(/\W+/g, "-")}`}>
+          <clipPath id={clipId}>
             <rect x={M.left} y={M.top} width={innerW} height={innerH} />
           </clipPath>
         </defs>
-        <g clipPath={`url(#clip-${title.replace(/\W+/g, "-")})`}>
+        <g clipPath={`url(#${clipId})`}>
           {hLines.map((h) => (
             <g key={`h${h.y}`}>
               <line x1={M.left} x2={M.left + innerW} y1={yScale(h.y)} y2={yScale(h.y)} stroke="#8a93a6" strokeDasharray="5 4" />
@@ -230,7 +224,7 @@ function LinePlotImpl(props: LinePlotProps) {
             onClick={(e) => onPick?.(xScale.invert(localX(e)))}
           />
         ) : null}
-      </svg>
+      </PlotFrame>
     </div>
   );
 }
