@@ -19,7 +19,6 @@ import {
   Y_MODES,
   Y_UNIT_SHORT,
   type Geometry,
-  type XUnit,
   type YMode,
 } from "@/lib/workbench/units";
 import type { ViewState } from "@/lib/workbench/view-state";
@@ -91,37 +90,34 @@ function SpectrumPanelsImpl({
   const cp = cursor !== null ? points[cursor] : undefined;
   const yUnit = Y_UNIT_SHORT[yMode];
   const yLabel = yMode === "verdet" ? Y_MODE_LABEL.verdet : `Rotation (${yUnit}) at ${geometry.fieldT} T, ${geometry.lengthM * 1000} mm`;
+  // Both plots share the x axis, the cursor, the markers and the readout below them.
+  const shared = {
+    xs,
+    xType: xScale,
+    xLabel: X_AXIS_TITLE[xUnit],
+    width,
+    cursorIndex: cursor,
+    onCursorChange: setCursor,
+    onPick: pick,
+    markers,
+    banner,
+    describedBy: "spectrum-readout",
+  };
 
   return (
     <section aria-label="Spectrum" className="space-y-3">
       <div className="flex flex-wrap items-end gap-x-4 gap-y-2 text-sm">
-        <label className="flex flex-col gap-1">
-          <span className="text-xs font-medium text-ink-soft">x axis</span>
-          <select className={SELECT} value={xUnit} onChange={(e) => onView({ xUnit: e.target.value as XUnit })}>
-            {X_UNITS.map((u) => (
-              <option key={u} value={u}>
-                {X_AXIS_TITLE[u]}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="text-xs font-medium text-ink-soft">x scale</span>
-          <select className={SELECT} value={xScale} onChange={(e) => onView({ xScale: e.target.value === "linear" ? "linear" : "log" })}>
-            <option value="log">log</option>
-            <option value="linear">linear</option>
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="text-xs font-medium text-ink-soft">y axis</span>
-          <select className={SELECT} value={yMode} onChange={(e) => onView({ yMode: e.target.value as YMode })}>
-            {Y_MODES.map((m) => (
-              <option key={m} value={m}>
-                {Y_MODE_LABEL[m]}
-              </option>
-            ))}
-          </select>
-        </label>
+        <AxisSelect label="x axis" value={xUnit} options={X_UNITS.map((u) => [u, X_AXIS_TITLE[u]])} onChange={(u) => onView({ xUnit: u })} />
+        <AxisSelect
+          label="x scale"
+          value={xScale}
+          options={[
+            ["log", "log"],
+            ["linear", "linear"],
+          ]}
+          onChange={(scale) => onView({ xScale: scale })}
+        />
+        <AxisSelect label="y axis" value={yMode} options={Y_MODES.map((m) => [m, Y_MODE_LABEL[m]])} onChange={(m) => onView({ yMode: m })} />
         <fieldset className="flex flex-wrap items-center gap-3">
           <legend className="sr-only">Curves</legend>
           {TOGGLES.map((k) => (
@@ -141,23 +137,7 @@ function SpectrumPanelsImpl({
       </div>
 
       <div ref={wrapRef} className="space-y-2">
-        <LinePlot
-          title={`Faraday rotation and its parts (${methodLabel})`}
-          xs={xs}
-          xType={xScale}
-          xLabel={X_AXIS_TITLE[xUnit]}
-          yLabel={yLabel}
-          series={series}
-          width={width}
-          height={340}
-          cursorIndex={cursor}
-          onCursorChange={setCursor}
-          onPick={pick}
-          markers={markers}
-          banner={banner}
-          svgRef={spectrumSvg}
-          describedBy="spectrum-readout"
-        />
+        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel})`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} />
         <PlotExportButtons svgRef={spectrumSvg} fileBase={`${fileBase}-spectrum`} plotName="spectrum plot" />
 
         <div id="spectrum-readout" aria-live="polite" className="min-h-12 rounded-md bg-paper-sunk px-3 py-2 text-xs tabular-nums text-ink">
@@ -180,24 +160,15 @@ function SpectrumPanelsImpl({
         {view.panels.share ? (
           <>
             <LinePlot
+              {...shared}
               title={`Magnetic share |θm| / (|θe| + |θm|) — ${crossingText}`}
-              xs={xs}
-              xType={xScale}
-              xLabel={X_AXIS_TITLE[xUnit]}
               yLabel="Magnetic share (%)"
               series={shareSeries}
-              width={width}
               height={240}
               yDomain={shareDomain}
-              cursorIndex={cursor}
-              onCursorChange={setCursor}
-              onPick={pick}
-              markers={markers}
               hLines={hLines}
               dots={dots}
-              banner={banner}
               svgRef={shareSvg}
-              describedBy="spectrum-readout"
               legend={false}
             />
             <p data-testid="share-crossing" className="text-sm">
@@ -208,6 +179,22 @@ function SpectrumPanelsImpl({
         ) : null}
       </div>
     </section>
+  );
+}
+
+/** A labelled select of the plot controls; the visible text is the control's accessible name. */
+function AxisSelect<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: readonly (readonly [T, string])[]; onChange: (value: T) => void }) {
+  return (
+    <label className="flex flex-col gap-1">
+      <span className="text-xs font-medium text-ink-soft">{label}</span>
+      <select className={SELECT} value={value} onChange={(e) => onChange(options.find(([v]) => v === e.target.value)?.[0] ?? value)}>
+        {options.map(([v, text]) => (
+          <option key={v} value={v}>
+            {text}
+          </option>
+        ))}
+      </select>
+    </label>
   );
 }
 
