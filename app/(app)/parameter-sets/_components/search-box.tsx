@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useState } from "react";
-import { INPUT_CLASS } from "@/components/ui/text-field";
+import { Field } from "@/components/ui/text-field";
 
 const DEBOUNCE_MS = 300;
 
@@ -29,18 +29,8 @@ export function SearchBox({ value, onSearch }: { value: string; onSearch: (q: st
   }, [text, value, onSearch]);
 
   return (
-    <div className="w-full sm:w-72">
-      <label htmlFor="sets-search" className="block text-sm font-medium">
-        Search
-      </label>
-      <input
-        id="sets-search"
-        type="search"
-        placeholder="Name or description"
-        value={text}
-        onChange={(event) => setText(event.target.value)}
-        className={`mt-1 ${INPUT_CLASS}`}
-      />
-    </div>
+    <Field id="sets-search" label="Search" className="w-full sm:w-72">
+      {(control) => <input {...control} type="search" placeholder="Name or description" value={text} onChange={(event) => setText(event.target.value)} />}
+    </Field>
   );
 }

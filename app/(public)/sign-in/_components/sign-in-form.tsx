@@ -17,52 +17,37 @@ interface SignInFormProps {
   demo: { accounts: DemoAccount[]; password: string } | null;
 }
 
+const FIELDS = [
+  { name: "email", id: "sign-in-email", type: "email", label: "E-mail", autoComplete: "username" },
+  { name: "password", id: "sign-in-password", type: "password", label: "Password", autoComplete: "current-password" },
+] as const;
+
 export function SignInForm({ redirectTo, demo }: SignInFormProps) {
   const [state, formAction, pending] = useActionState(signInAction, {});
   // Controlled, so a failed attempt keeps what was typed and the demo buttons can fill them.
-  const [email, setEmail] = useState("");
-  const [password, setPassword] = useState("");
+  const [values, setValues] = useState({ email: "", password: "" });
 
   return (
     <>
       <form action={formAction} className="mt-6 space-y-4" noValidate>
         <input type="hidden" name="redirectTo" value={redirectTo} />
         {state?.error ? <Alert tone="warning">{state.error}</Alert> : null}
-        <TextField
-          id="sign-in-email"
-          name="email"
-          type="email"
-          label="E-mail"
-          autoComplete="username"
-          required
-          value={email}
-          onChange={(event) => setEmail(event.target.value)}
-          error={state?.fields?.email}
-        />
-        <TextField
-          id="sign-in-password"
-          name="password"
-          type="password"
-          label="Password"
-          autoComplete="current-password"
-          required
-          value={password}
-          onChange={(event) => setPassword(event.target.value)}
-          error={state?.fields?.password}
-        />
+        {FIELDS.map((field) => (
+          <TextField
+            key={field.name}
+            {...field}
+            required
+            value={values[field.name]}
+            onChange={(event) => setValues((v) => ({ ...v, [field.name]: event.target.value }))}
+            error={state?.fields?.[field.name]}
+          />
+        ))}
         <Button type="submit" className="w-full" disabled={pending}>
           {pending ? "Signing in…" : "Sign in"}
         </Button>
       </form>
       {demo ? (
-        <DemoAccounts
-          accounts={demo.accounts}
-          password={demo.password}
-          onPick={(account) => {
-            setEmail(account.email);
-            setPassword(demo.password);
-          }}
-        />
+        <DemoAccounts accounts={demo.accounts} password={demo.password} onPick={(account) => setValues({ email: account.email, password: demo.password })} />
       ) : null}
     </>
   );

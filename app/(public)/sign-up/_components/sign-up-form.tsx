@@ -8,6 +8,22 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
 
+const FIELDS = [
+  { name: "name", id: "sign-up-name", label: "Name", autoComplete: "name" },
+  { name: "email", id: "sign-up-email", type: "email", label: "E-mail", autoComplete: "email" },
+  {
+    name: "password",
+    id: "sign-up-password",
+    type: "password",
+    label: "Password",
+    autoComplete: "new-password",
+    minLength: PASSWORD_MIN_LENGTH,
+    maxLength: PASSWORD_MAX_LENGTH,
+    hint: `At least ${PASSWORD_MIN_LENGTH} characters.`,
+  },
+  { name: "confirmPassword", id: "sign-up-confirm", type: "password", label: "Confirm password", autoComplete: "new-password" },
+] as const;
+
 export function SignUpForm() {
   const [state, formAction, pending] = useActionState(signUpAction, {});
   const [values, setValues] = useState({ name: "", email: "", password: "", confirmPassword: "" });
@@ -39,43 +55,9 @@ export function SignUpForm() {
       }}
     >
       {state?.error ? <Alert tone="warning">{state.error}</Alert> : null}
-      <TextField id="sign-up-name" name="name" label="Name" autoComplete="name" required value={values.name} onChange={set("name")} error={fieldError("name")} />
-      <TextField
-        id="sign-up-email"
-        name="email"
-        type="email"
-        label="E-mail"
-        autoComplete="email"
-        required
-        value={values.email}
-        onChange={set("email")}
-        error={fieldError("email")}
-      />
-      <TextField
-        id="sign-up-password"
-        name="password"
-        type="password"
-        label="Password"
-        autoComplete="new-password"
-        required
-        minLength={PASSWORD_MIN_LENGTH}
-        maxLength={PASSWORD_MAX_LENGTH}
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-        value={values.password}
-        onChange={set("password")}
-        error={fieldError("password")}
-      />
-      <TextField
-        id="sign-up-confirm"
-        name="confirmPassword"
-        type="password"
-        label="Confirm password"
-        autoComplete="new-password"
-        required
-        value={values.confirmPassword}
-        onChange={set("confirmPassword")}
-        error={fieldError("confirmPassword")}
-      />
+      {FIELDS.map((field) => (
+        <TextField key={field.name} {...field} required value={values[field.name]} onChange={set(field.name)} error={fieldError(field.name)} />
+      ))}
       <Button type="submit" className="w-full" disabled={pending}>
         {pending ? "Creating account…" : "Create account"}
       </Button>
