@@ -1,9 +1,10 @@
 import { zodResolver } from "@hookform/resolvers/zod";
-import type { FieldErrors, Resolver } from "react-hook-form";
+import type { FieldErrors, Resolver, UseFormReturn } from "react-hook-form";
 import { z } from "zod";
 import { PARAM_META } from "@/lib/model/param-meta";
 import { modelParamsSchema, type ModelParamKey } from "@/lib/physics/schema";
 import type { ParameterSet } from "@/lib/query/types";
+import { ApiError, describeError } from "@/lib/query/fetcher";
 import type { SetSnapshot } from "@/lib/model/diff";
 
 /** "a, b ,, a" → ["a", "b"]: the tag box takes a comma-separated list. */
@@ -77,4 +78,15 @@ export function mapServerFields(fields: Record<string, string>): { field: [FormF
     else other.push(`${path}: ${message}`);
   }
   return { field, other };
+}
+
+/**
+ * A failed create or save: the server's per-field messages go to their fields (the first one gets
+ * the focus); the returned text, for the form's alert, holds the rest.
+ */
+export function showServerError(form: UseFormReturn<SetFormInput, unknown, SetFormOutput>, error: unknown): string {
+  if (!(error instanceof ApiError && error.fields)) return describeError(error);
+  const { field, other } = mapServerFields(error.fields);
+  field.forEach(([path, message], i) => form.setError(path, { type: "server", message }, { shouldFocus: i === 0 }));
+  return other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message;
 }

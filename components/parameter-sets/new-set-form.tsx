@@ -6,10 +6,9 @@ import { useForm } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
 import { Button, LinkButton } from "@/components/ui/button";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
-import { ApiError, describeError } from "@/lib/query/fetcher";
 import { useCreateParameterSet } from "@/lib/query/parameter-sets";
 import type { Lab } from "@/lib/query/types";
-import { mapServerFields, setFormResolver, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
+import { setFormResolver, showServerError, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { SetFields } from "./set-fields";
 import { useUnsavedGuard } from "./use-unsaved-guard";
 
@@ -31,15 +30,7 @@ export function NewSetForm({ labs, initialLabId }: { labs: Lab[]; initialLabId?:
     setGeneralError(null);
     create.mutate(values, {
       onSuccess: (item) => router.push(`/parameter-sets/${item.id}`),
-      onError: (error) => {
-        if (error instanceof ApiError && error.fields) {
-          const { field, other } = mapServerFields(error.fields);
-          field.forEach(([path, message], i) => form.setError(path, { type: "server", message }, { shouldFocus: i === 0 }));
-          setGeneralError(other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message);
-          return;
-        }
-        setGeneralError(describeError(error));
-      },
+      onError: (error) => setGeneralError(showServerError(form, error)),
     });
   });
 

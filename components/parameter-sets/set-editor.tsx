@@ -11,7 +11,7 @@ import { ApiError, describeError } from "@/lib/query/fetcher";
 import { parameterSetQuery, useDeleteParameterSet, useUpdateParameterSet } from "@/lib/query/parameter-sets";
 import type { ParameterSet } from "@/lib/query/types";
 import { ConflictBanner } from "./conflict-banner";
-import { mapServerFields, setFormResolver, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
+import { setFormResolver, showServerError, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { SetFields } from "./set-fields";
 import { useUnsavedGuard } from "./use-unsaved-guard";
 
@@ -64,13 +64,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
             setConflict(current);
             return;
           }
-          if (error instanceof ApiError && error.fields) {
-            const { field, other } = mapServerFields(error.fields);
-            field.forEach(([path, message], i) => form.setError(path, { type: "server", message }, { shouldFocus: i === 0 }));
-            setGeneralError(other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message);
-            return;
-          }
-          setGeneralError(describeError(error));
+          setGeneralError(showServerError(form, error));
         },
       },
     );
