@@ -39,3 +39,9 @@ export function ErrorPanel({ error, retry }: { error: unknown; retry?: () => voi
     </div>
   );
 }
+
+/** The body of an error.tsx: the panel, in a <main> of its own where no layout provides one. */
+export function RouteError({ error, retry, standalone = false }: { error: unknown; retry: () => void; standalone?: boolean }) {
+  const panel = <ErrorPanel error={error} retry={retry} />;
+  return standalone ? <main className="mx-auto max-w-xl px-6 py-24">{panel}</main> : <div className="max-w-2xl">{panel}</div>;
+}
