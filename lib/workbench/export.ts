@@ -77,7 +77,8 @@ export function csvHeaderLines(meta: ExportMeta, params: ModelParams, result: Sp
   if (scale) lines.push(`# label: ${scale}`);
   lines.push(`# geometry: L = ${cell(params.lengthM)} m, B0 = ${cell(params.fieldT)} T`);
   for (const column of CSV_COLUMNS) {
-    const scaled = scale && (column === "theta_magnetic_rad" || column === "theta_rad" || column === "magnetic_share" || column === "verdet_rad_per_T_m");
+    // Every column but the wavelength and the electric-dipole part (μ = 1, §6.1) depends on χ±.
+    const scaled = scale && column !== "wavelength_nm" && column !== "theta_electric_rad";
     lines.push(`# column ${column}: ${CSV_COLUMN_MEANING[column]}${scaled ? `; ${scale}` : ""}`);
   }
   for (const w of result.warnings ?? []) lines.push(`# warning: ${oneLine(w)}`);

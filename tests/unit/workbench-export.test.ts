@@ -52,6 +52,7 @@ describe("CSV export", () => {
     expect(scaled).toContain("# label: magnetic-dipole part × 3.0, not first-principles");
     expect(scaled).toContain("# column theta_magnetic_rad: magnetic-dipole part θm (rad); magnetic-dipole part × 3.0, not first-principles");
     expect(csv).not.toContain("# label:");
+    expect(scaled).toContain("# column theta_electric_rad: electric-dipole part θe (rad)\n");
     expect(csv).not.toContain("not first-principles");
   });
 });
