@@ -55,19 +55,19 @@ function MarkerTableImpl({
           <caption className="px-3 pt-3 pb-1 text-left font-semibold">
             Values at markers
             <span className="ml-2 text-xs font-normal text-ink-soft">({methodLabel}; rotations at B0 = {fieldT} T and the set&apos;s length)</span>
-            {banner ? <span className="ml-2 text-xs font-semibold text-ember">{banner}</span> : null}
+            {banner ? <span className="mt-0.5 block text-xs font-semibold text-ember">{banner}</span> : null}
           </caption>
           <thead className="text-left text-xs text-ink-soft">
             <tr className="border-b border-ink/10">
-              <th scope="col" className="px-3 py-2 font-medium">Wavelength</th>
-              <th scope="col" className="px-3 py-2 font-medium">θ (rad)</th>
-              <th scope="col" className="px-3 py-2 font-medium">θe (rad)</th>
-              <th scope="col" className="px-3 py-2 font-medium">θm (rad)</th>
-              <th scope="col" className="px-3 py-2 font-medium">Magnetic share</th>
-              <th scope="col" className="px-3 py-2 font-medium">V (rad/(T·m))</th>
-              <th scope="col" className="px-3 py-2 font-medium">L45</th>
-              <th scope="col" className="px-3 py-2 font-medium">θm / θ</th>
-              <th scope="col" className="px-3 py-2 font-medium"><span className="sr-only">Remove</span></th>
+              <th scope="col" className="px-2.5 py-2 font-medium">Wavelength</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">θ (rad)</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">θe (rad)</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">θm (rad)</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">Magnetic share</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">V (rad/(T·m))</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">L45</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">θm / θ</th>
+              <th scope="col" className="px-2.5 py-2 font-medium"><span className="sr-only">Remove</span></th>
             </tr>
           </thead>
           <tbody>
@@ -84,13 +84,13 @@ function MarkerTableImpl({
               return (
                 <tr key={nm} className="border-b border-ink/5 last:border-0">
                   <th scope="row" className="px-3 py-1.5 text-left font-medium">{`${nm} nm`}</th>
-                  <td className="px-3 py-1.5">{fmt(v?.thetaRad)}</td>
-                  <td className="px-3 py-1.5">{fmt(v?.thetaElectricRad)}</td>
-                  <td className="px-3 py-1.5">{fmt(v?.thetaMagneticRad)}</td>
-                  <td className="px-3 py-1.5">{fmtPercent(v?.magneticShare, 2)}</td>
-                  <td className="px-3 py-1.5">{fmt(v?.verdetRadPerTm)}</td>
-                  <td className="px-3 py-1.5">{fmtLength(v?.length45M)}</td>
-                  <td className="px-3 py-1.5">{fmt(v?.signedRatio)}</td>
+                  <td className="px-2.5 py-1.5">{fmt(v?.thetaRad)}</td>
+                  <td className="px-2.5 py-1.5">{fmt(v?.thetaElectricRad)}</td>
+                  <td className="px-2.5 py-1.5">{fmt(v?.thetaMagneticRad)}</td>
+                  <td className="px-2.5 py-1.5">{fmtPercent(v?.magneticShare, 2)}</td>
+                  <td className="px-2.5 py-1.5">{fmt(v?.verdetRadPerTm)}</td>
+                  <td className="px-2.5 py-1.5">{fmtLength(v?.length45M)}</td>
+                  <td className="px-2.5 py-1.5">{fmt(v?.signedRatio)}</td>
                   <td className="px-3 py-1.5 text-right">
                     <Button variant="quiet" className="text-xs" aria-label={`Remove marker at ${nm} nm`} onClick={() => onRemove(nm)}>
                       Remove
