@@ -6,7 +6,7 @@ import { SignOutButton } from "./sign-out-button";
 /** The signed-in frame: a left rail on wide screens, a top strip on narrow ones. */
 export function AppRail({ userName, userEmail }: { userName: string; userEmail: string }) {
   return (
-    <aside className="border-b border-ink/10 bg-paper-sunk/60 md:sticky md:top-0 md:flex md:h-screen md:w-60 md:shrink-0 md:flex-col md:border-r md:border-b-0">
+    <aside className="border-b border-ink/10 bg-paper-sunk/60 md:sticky md:top-0 md:flex md:h-screen md:w-60 md:overflow-y-auto md:shrink-0 md:flex-col md:border-r md:border-b-0">
       <div className="flex items-center justify-between px-4 py-4 md:block">
         <Link href="/parameter-sets" className="rounded-md">
           <Wordmark className="text-lg" />
