@@ -178,4 +178,24 @@ describe("workbench", () => {
 
     await page.screenshot({ path: outputPath("workbench.png"), fullPage: true });
   });
+
+  it("labels a scaled magnetic-dipole part on plots, marker table and export, and keeps it with the last good result", async () => {
+    const label = "magnetic-dipole part × 3.0, not first-principles";
+    await page.goto("/workbench", { timeout: RUN_TIMEOUT });
+    await wb.waitForNumericalRun();
+    await wb.setField("Magnetic-part scale", "3");
+    await page.getByRole("img", { name: new RegExp(`^Faraday rotation .*${label}`) }).waitFor({ timeout: RUN_TIMEOUT });
+    await expect.poll(() => wb.markerTable.locator("caption").innerText(), { timeout: RUN_TIMEOUT }).toContain(label);
+
+    // Out-of-range input: nothing is computed, the scaled result stays and is still exported as such.
+    await wb.setField("Magnetic-part scale", "-2");
+    await page.getByText("Some inputs are out of range; nothing is computed until they are fixed.").waitFor();
+    expect(await wb.markerTable.locator("caption").innerText()).toContain(label);
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Export CSV" }).click()]);
+    const file = outputPath("workbench-scaled.csv");
+    await download.saveAs(file);
+    const header = readFileSync(file, "utf8").split("\n").filter((l) => l.startsWith("#"));
+    expect(header).toContain(`# label: ${label}`);
+    expect(header.some((l) => l.startsWith("# parameters: ") && l.includes("magneticScale=3;"))).toBe(true);
+  });
 });
