@@ -27,7 +27,7 @@ export const PARAM_META: readonly ParamMeta[] = [
   { key: "curieWeissK", label: "Curie–Weiss θ", unit: "K", step: "any", group: "spins",
     help: "Mean-field interaction temperature; negative for antiferromagnetic coupling. Terbium garnet: about −8 K." },
   { key: "gilbertDamping", label: "Gilbert damping α", unit: "", step: "any", group: "spins",
-    help: "Dimensionless damping of the spin precession in the LLG equation; 0.01 is a typical placeholder." },
+    help: "Dimensionless damping of the spin precession in the LLG equation; 0.01 is illustrative (no measured value for a terbium garnet)." },
   { key: "magneticScale", label: "Magnetic-part scale", unit: "×", step: "any", group: "spins",
     help: "Multiplies the magnetic-dipole part only, for fits and what-ifs; 1 is first-principles." },
   { key: "epsInf", label: "Background ε∞", unit: "", step: "any", group: "optics",
