@@ -139,7 +139,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
           {set ? (
             <p className="mt-1 text-xs text-ink-soft">
               Parameter edits here are what-ifs and do not change the stored set. {SAVE_TEXT[saveStatus]}
-              {saveError ? `: ${saveError}` : "."}
+              {saveError ? `: ${saveError}` : saveStatus === "saving" ? "" : "."}
             </p>
           ) : null}
         </div>
