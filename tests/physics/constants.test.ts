@@ -43,14 +43,19 @@ describe("CODATA 2018 constants", () => {
     expect(relErr(VACUUM_IMPEDANCE_OHM, 376.730313668)).toBeLessThan(1e-10);
     // μ0 = 4π × 1e-7 × (1 + 5.5e-10) (CODATA 2018: μ0/(4π 1e-7) = 1.00000000055).
     expect(relErr(MU0_N_PER_A2 / (4 * Math.PI * 1e-7), 1.00000000055)).toBeLessThan(1e-10);
+    // μB / kB = 0.67171381563 K/T (CODATA 2018 "Bohr magneton in K/T"; from memory): the scale of the
+    // Brillouin argument x = g μB J B/(kB T).
+    expect(relErr(BOHR_MAGNETON_J_PER_T / BOLTZMANN_J_PER_K, 0.67171381563)).toBeLessThan(1e-10);
     // e / m_e = 1.75882001076e11 C/kg (CODATA 2018 electron charge-to-mass quotient).
     expect(relErr(ELEMENTARY_CHARGE_C / ELECTRON_MASS_KG, 1.75882001076e11)).toBeLessThan(1e-10);
   });
 
   it("give the free-electron gyromagnetic ratio γe/2π = 28.02495 GHz/T", () => {
-    // CODATA 2018: γe/2π = 28 024.951 4242 MHz/T.
+    // CODATA 2018: γe/2π = 28 024.951 4242 MHz/T (physics-model.md §8 quotes 28.02495 GHz/T).
     const gammaOver2Pi = gyromagneticRatio(ELECTRON_G_FACTOR) / (2 * Math.PI);
     expect(relErr(gammaOver2Pi, 28.0249514242e9)).toBeLessThan(1e-9);
+    // γ is linear in g: the terbium value g = 3/2 gives 20.99 GHz/T (product reference value, physics-model.md §9).
+    expect(Math.abs(gyromagneticRatio(1.5) / (2 * Math.PI) / 1e9 - 20.99)).toBeLessThan(0.005);
   });
 
   it("convert wavelength to angular frequency", () => {
