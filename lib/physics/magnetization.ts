@@ -1,7 +1,7 @@
 /*
  * Static magnetization of a paramagnet: Brillouin function with a Curie–Weiss (Weiss molecular)
  * mean field, physics-model.md §3. Formulas: C. Kittel, "Introduction to Solid State Physics",
- * 8th ed., ch. 11 (Brillouin function, Curie law) and ch. 14 (Curie–Weiss mean field).
+ * 8th ed., ch. 11 (Brillouin function, Curie law) and ch. 12 (Curie–Weiss mean field; chapter numbers from memory).
  */
 import { BOHR_MAGNETON_J_PER_T, BOLTZMANN_J_PER_K, MU0_N_PER_A2 } from "./constants";
 
