@@ -1,7 +1,8 @@
 "use client";
 
 import { contours, geoPath, geoTransform, interpolateCividis } from "d3";
-import { memo, useId, useMemo, type Ref } from "react";
+import { memo, useCallback, useId, useMemo, useState, type KeyboardEvent, type PointerEvent, type Ref } from "react";
+import { cellAt, formatShare, moveCell, type Cell, type CellGeometry } from "@/lib/workbench/maps";
 import { XAxis, YAxis } from "./axes";
 import { frameTop, PlotFrame } from "./plot-frame";
 import { makeScale, type ScaleType } from "./scale";
@@ -10,6 +11,8 @@ import { makeScale, type ScaleType } from "./scale";
  * A heat map of a 0…1 quantity on a grid that is uniform in its axis scales (log-spaced
  * wavelengths on a log axis, etc.), with d3-contour lines at chosen levels. Cividis is
  * colour-blind safe and its lightness rises monotonically, so the map also reads in grey.
+ * Hovering, or the arrow keys while the map has focus, reads out the cell under the cursor in a
+ * live region beside the SVG (not in it, so exports stay clean).
  */
 
 export interface HeatMapProps {
@@ -27,6 +30,8 @@ export interface HeatMapProps {
   height?: number;
   banner?: string | null;
   svgRef?: Ref<SVGSVGElement>;
+  /** The readout of one cell; the default names the axes by their labels. */
+  describeCell?: (x: number, y: number, value: number | null) => string;
 }
 
 const MARGIN = { right: 96, bottom: 50, left: 76 };
@@ -45,9 +50,25 @@ function edges(centres: readonly number[], type: ScaleType): [number, number] {
   return [a - h, b + h];
 }
 
-function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLabel, width, height = 300, banner, svgRef }: HeatMapProps) {
+const fmtAxis = (v: number) => String(Number(v.toPrecision(4)));
+
+function defaultDescribe(xLabel: string, yLabel: string) {
+  return (x: number, y: number, value: number | null) => `${xLabel} ${fmtAxis(x)}, ${yLabel} ${fmtAxis(y)}: ${formatShare(value)}`;
+}
+
+/** Sets a ref of either kind. */
+function assignRef<T>(ref: Ref<T> | undefined, value: T | null) {
+  if (typeof ref === "function") ref(value);
+  else if (ref) (ref as { current: T | null }).current = value;
+}
+
+function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLabel, width, height = 300, banner, svgRef, describeCell }: HeatMapProps) {
   const M = { ...MARGIN, top: frameTop(banner) };
-  const legendId = `heat-legend-${useId().replace(/[^\w-]/g, "")}`;
+  const uid = useId().replace(/[^\w-]/g, "");
+  const legendId = `heat-legend-${uid}`;
+  const hintId = `heat-hint-${uid}`;
+  const readoutId = `heat-readout-${uid}`;
+  const [cell, setCell] = useState<Cell | null>(null);
   const innerW = Math.max(40, width - M.left - M.right);
   const innerH = Math.max(40, height - M.top - M.bottom);
   const nx = xs.length;
@@ -55,6 +76,10 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
 
   const xScale = useMemo(() => makeScale(xType, edges(xs, xType), [M.left, M.left + innerW], false), [xs, xType, innerW, M.left]);
   const yScale = useMemo(() => makeScale(yType, edges(ys, yType), [M.top + innerH, M.top], false), [ys, yType, innerH, M.top]);
+
+  const geometry: CellGeometry = { left: M.left, top: M.top, width: innerW, height: innerH, nx, ny };
+  // A cell from an older, larger grid must not index past the new one.
+  const shownCell = cell && cell.i < nx && cell.j < ny ? cell : null;
 
   const cells = useMemo(() => {
     const cw = innerW / nx;
@@ -90,23 +115,76 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
     return contours().size([nx, ny]).thresholds([...levels])(grid).map((c) => ({ level: c.value, d: path(c) ?? "" }));
   }, [values, nx, ny, levels, innerW, innerH, M.left, M.top]);
 
-  const noContour = contourPaths.every((c) => c.d === "");
-  const legendStops = useMemo(() => Array.from({ length: 11 }, (_, k) => k / 10), []);
-  const lx = M.left + innerW + 24;
-
-  return (
-    <PlotFrame title={title} banner={banner} width={width} height={height} left={M.left} svgRef={svgRef}>
+  // Memoized elements: moving the readout re-renders only the highlight, not the 2000 cells.
+  const cellLayer = useMemo(
+    () => (
       <g>
         {cells.map((c) => (
           <rect key={c.key} x={c.x} y={c.y} width={c.w} height={c.h} fill={c.fill} />
         ))}
       </g>
-      {contourPaths.map((c) => (
+    ),
+    [cells],
+  );
+  const contourLayer = useMemo(
+    () =>
+      contourPaths.map((c) => (
         <g key={c.level}>
           <path d={c.d} fill="none" stroke="#ffffff" strokeWidth={4} opacity={0.9} />
           <path d={c.d} fill="none" stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
         </g>
-      ))}
+      )),
+    [contourPaths],
+  );
+
+  // The SVG root belongs to PlotFrame; make it focusable and point it at the keyboard hint.
+  const frameRef = useCallback(
+    (el: SVGSVGElement | null) => {
+      if (el) {
+        el.setAttribute("tabindex", "0");
+        el.setAttribute("aria-describedby", `${hintId} ${readoutId}`);
+        el.setAttribute("class", "rounded-md focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-lux");
+      }
+      assignRef(svgRef, el);
+    },
+    [svgRef, hintId, readoutId],
+  );
+
+  const onPointerMove = (e: PointerEvent<SVGRectElement>) => {
+    const svg = e.currentTarget.ownerSVGElement;
+    const rect = svg?.getBoundingClientRect();
+    if (!rect || rect.width === 0 || rect.height === 0) return;
+    // SVG user units per CSS pixel (1 unless the SVG is scaled by CSS).
+    const px = ((e.clientX - rect.left) * width) / rect.width;
+    const py = ((e.clientY - rect.top) * height) / rect.height;
+    const next = cellAt(px, py, geometry);
+    setCell((prev) => (prev && next && prev.i === next.i && prev.j === next.j ? prev : next));
+  };
+
+  const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
+    const next = moveCell(shownCell, e.key, nx, ny, e.shiftKey);
+    if (next === undefined) return;
+    e.preventDefault();
+    setCell(next);
+  };
+
+  const describe = describeCell ?? defaultDescribe(xLabel, yLabel);
+  const readout = shownCell
+    ? describe(xs[shownCell.i]!, ys[shownCell.j]!, values[shownCell.j * nx + shownCell.i] ?? null)
+    : "Point at the map, or focus it and use the arrow keys, to read a cell.";
+  const cw = innerW / Math.max(1, nx);
+  const ch = innerH / Math.max(1, ny);
+
+  const noContour = contourPaths.every((c) => c.d === "");
+  const legendStops = useMemo(() => Array.from({ length: 11 }, (_, k) => k / 10), []);
+  const lx = M.left + innerW + 24;
+
+  return (
+    // Key presses on the focused SVG bubble to this wrapper (PlotFrame owns the SVG element).
+    <div onKeyDown={onKeyDown} onBlur={() => setCell(null)}>
+    <PlotFrame title={title} banner={banner} width={width} height={height} left={M.left} svgRef={frameRef}>
+      {cellLayer}
+      {contourLayer}
       {noContour && levels.length > 0 ? (
         <text x={M.left + 8} y={M.top + 16} fontSize={11} fill="#ffffff" fontWeight={600}>
           {`The ${levels.map((l) => `${Math.round(l * 100)} %`).join(", ")} level is not reached in this map`}
@@ -130,7 +208,36 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
         ))}
         <line x1={lx - 3} x2={lx + 17} y1={M.top + innerH / 2} y2={M.top + innerH / 2} stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
       </g>
+      {shownCell ? (
+        <rect
+          x={M.left + shownCell.i * cw}
+          y={M.top + innerH - (shownCell.j + 1) * ch}
+          width={cw}
+          height={ch}
+          fill="none"
+          stroke="#ffffff"
+          strokeWidth={2}
+          pointerEvents="none"
+        />
+      ) : null}
+      <rect
+        x={M.left}
+        y={M.top}
+        width={innerW}
+        height={innerH}
+        fill="transparent"
+        style={{ cursor: "crosshair" }}
+        onPointerMove={onPointerMove}
+        onPointerLeave={() => setCell(null)}
+      />
     </PlotFrame>
+    <p id={hintId} className="sr-only">
+      Arrow keys move between cells (Shift: ten cells), Home and End go to the ends of a row, Page Up and Page Down to the ends of a column, Escape clears.
+    </p>
+    <p id={readoutId} aria-live="polite" data-testid="heat-map-readout" className="mt-1 min-h-5 text-xs tabular-nums text-ink">
+      {readout}
+    </p>
+    </div>
   );
 }
 

@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useRef, useState } from "react";
+import { useCallback, useEffect, useId, useRef, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { HeatMap } from "@/components/plots/heat-map";
@@ -9,48 +9,61 @@ import { useElementWidth } from "@/components/plots/use-element-size";
 import type { ModelParams } from "@/lib/physics/schema";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
 import { magneticScaleLabel } from "@/lib/workbench/format";
-import { wavelengthGrid } from "@/lib/workbench/units";
+import {
+  DEFAULT_FIELD_AXIS,
+  formatShare,
+  MAP_COLS,
+  MAP_METHOD_LABEL,
+  MAP_ROWS,
+  mapProgress,
+  maxDeviation,
+  methodCaption,
+  planMap,
+  rowParams,
+  type FieldAxisDrafts,
+  type MapKind,
+  type MapMethod,
+  type MapProblem,
+} from "@/lib/workbench/maps";
 import { checkedSpectrumRequest } from "@/lib/workbench/validate";
 import type { WavelengthRange } from "@/lib/workbench/view-state";
 
 /*
  * Magnetic share over wavelength × temperature and wavelength × field. Each row is one spectrum
- * request to the worker pool. The maps use the analytic (Polder) method: a 64 × 32 map would be
- * 2048 numerical LLG wavelengths (~10 s), and the numerical run agrees with it to ~1e-5 anyway.
+ * request to the worker pool, with the chosen method: analytic (Polder linear response, ~1 ms a
+ * row) or numerical LLG (split across the pool's workers, ~0.2 ms per wavelength, so a 64 × 32 map
+ * takes well under a second). lib/workbench/maps.ts builds the grid and keeps everything out of
+ * the numerical path's range away from the workers.
  */
 
-type MapKind = "temperature" | "field";
-const COLS = 64;
-const ROWS = 32;
 const LEVELS = [0.5];
+const INPUT =
+  "block w-24 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
 
 interface MapData {
   kind: MapKind;
+  method: MapMethod;
   xs: number[];
   ys: number[];
   values: (number | null)[];
   yType: "log" | "linear";
   /** The magneticScale label of the parameters this map was computed from (physics-model §4.3). */
   banner: string | null;
+  /** Numerical maps: the largest deviation from linear response over all rows. */
+  deviation: number | undefined;
+  notes: string[];
+  warnings: string[];
 }
 
 /** What differs between the two maps; everything else is drawn the same way. */
-const MAP_VIEW: Record<MapKind, { title: string; yLabel: string; file: string; plotName: string }> = {
-  temperature: { title: "Magnetic share over wavelength × temperature (analytic)", yLabel: "Temperature (K)", file: "share-map-temperature", plotName: "temperature map" },
-  field: { title: "Magnetic share over wavelength × |field| (analytic)", yLabel: "|B0| (T)", file: "share-map-field", plotName: "field map" },
+const MAP_VIEW: Record<MapKind, { title: string; yLabel: string; yName: string; yUnit: string; file: string; plotName: string }> = {
+  temperature: { title: "Magnetic share over wavelength × temperature", yLabel: "Temperature (K)", yName: "temperature", yUnit: "K", file: "share-map-temperature", plotName: "temperature map" },
+  field: { title: "Magnetic share over wavelength × |field|", yLabel: "|B0| (T)", yName: "|B0|", yUnit: "T", file: "share-map-field", plotName: "field map" },
 };
 const MAP_KINDS: MapKind[] = ["temperature", "field"];
+const METHOD_SHORT: Record<MapMethod, string> = { analytic: "analytic", llg: "numerical LLG" };
 
-function rowsFor(kind: MapKind, params: ModelParams): { ys: number[]; yType: "log" | "linear" } {
-  if (kind === "temperature") {
-    // Above the Curie–Weiss temperature (the ordered phase is not modelled) and within the 1–400 K of the numerical path.
-    const lo = Math.max(1, params.curieWeissK + 1);
-    return { ys: wavelengthGrid(lo, Math.max(lo + 1, 400), ROWS, "linear"), yType: "linear" };
-  }
-  // Same sign as the set's field; 0.01–10 T, log-spaced.
-  const sign = params.fieldT < 0 ? -1 : 1;
-  return { ys: wavelengthGrid(0.01, 10, ROWS, "log").map((b) => b * sign), yType: "log" };
-}
+const fmt = (v: number) => String(Number(v.toPrecision(4)));
 
 export function MapsPanel({
   pool,
@@ -63,35 +76,70 @@ export function MapsPanel({
   range: WavelengthRange | null;
   fileBase: string;
 }) {
+  const id = useId().replace(/[^\w-]/g, "");
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
   const [maps, setMaps] = useState<Partial<Record<MapKind, MapData>>>({});
-  const [running, setRunning] = useState<MapKind | null>(null);
+  const [method, setMethod] = useState<MapMethod>("analytic");
+  const [fieldAxis, setFieldAxis] = useState<FieldAxisDrafts>(DEFAULT_FIELD_AXIS);
+  const [running, setRunning] = useState<{ kind: MapKind; method: MapMethod } | null>(null);
   const [progress, setProgress] = useState(0);
   const [error, setError] = useState<string | null>(null);
   const abort = useRef<AbortController | null>(null);
 
   useEffect(() => () => abort.current?.abort(), []);
 
+  const plans = params && range ? { temperature: planMap("temperature", method, params, range, fieldAxis), field: planMap("field", method, params, range, fieldAxis) } : null;
+  const problemsAt = (control: MapProblem["control"]) => {
+    if (!plans) return [];
+    const all = [...plans.temperature.problems, ...plans.field.problems].filter((p) => p.control === control).map((p) => p.message);
+    return [...new Set(all)];
+  };
+  const methodProblems = problemsAt("method");
+  const fieldAxisProblems = problemsAt("fieldAxis");
+
   const run = async (kind: MapKind) => {
-    if (!pool || !params || !range) return;
+    if (!pool || !params || !range || !plans) return;
+    const { plan } = plans[kind];
+    if (!plan) return;
     abort.current?.abort();
     const ac = new AbortController();
     abort.current = ac;
-    setRunning(kind);
+    setRunning({ kind, method: plan.method });
     setProgress(0);
     setError(null);
-    const xs = wavelengthGrid(range.fromNm, range.toNm, COLS, "log");
-    const { ys, yType } = rowsFor(kind, params);
     const values: (number | null)[] = [];
+    const deviations: (number | undefined)[] = [];
+    const warnings = new Set<string>();
+    const rows = plan.ys.length;
     try {
-      for (let j = 0; j < ys.length; j++) {
-        const y = ys[j]!;
-        const rowParams = kind === "temperature" ? { ...params, temperatureK: y } : { ...params, fieldT: y };
-        const res = await pool.spectrum(checkedSpectrumRequest({ ...rowParams, wavelengthsNm: xs, method: "analytic" }), { signal: ac.signal });
+      for (let j = 0; j < rows; j++) {
+        const request = checkedSpectrumRequest({ ...rowParams(plan, params, j), wavelengthsNm: plan.xs, method: plan.method });
+        const res = await pool.spectrum(request, {
+          signal: ac.signal,
+          onProgress: (f) => {
+            if (!ac.signal.aborted) setProgress(mapProgress(j, f, rows));
+          },
+        });
         for (const p of res.points) values.push(p.magneticShare);
-        setProgress((j + 1) / ys.length);
+        deviations.push(res.maxRelDeviationFromAnalytic);
+        for (const w of res.warnings ?? []) warnings.add(w);
+        setProgress(mapProgress(j + 1, 0, rows));
       }
-      setMaps((m) => ({ ...m, [kind]: { kind, xs, ys: kind === "field" ? ys.map(Math.abs) : ys, values, yType, banner: magneticScaleLabel(params.magneticScale) } }));
+      setMaps((m) => ({
+        ...m,
+        [kind]: {
+          kind,
+          method: plan.method,
+          xs: plan.xs,
+          ys: kind === "field" ? plan.ys.map(Math.abs) : plan.ys,
+          values,
+          yType: plan.yType,
+          banner: magneticScaleLabel(params.magneticScale),
+          deviation: plan.method === "llg" ? maxDeviation(deviations) : undefined,
+          notes: plan.notes,
+          warnings: [...warnings],
+        },
+      }));
     } catch (e) {
       if (!isAbortError(e)) setError(e instanceof Error ? e.message : String(e));
     } finally {
@@ -100,24 +148,77 @@ export function MapsPanel({
   };
 
   const anyMap = maps.temperature !== undefined || maps.field !== undefined;
+  const canRun = (kind: MapKind) => Boolean(pool && plans?.[kind].plan) && running === null;
+  const methodErrorId = `${id}-method-error`;
+  const axisErrorId = `${id}-axis-error`;
 
   return (
     <div ref={wrapRef} className="space-y-4">
       <p className="text-sm text-ink-soft">
-        Magnetic share |θm| / (|θe| + |θm|) computed in a worker, {COLS} log-spaced wavelengths over the current range × {ROWS} rows.
-        Method: <strong>analytic (Polder linear response)</strong>. The dashed line is the 50 % contour. Colours: cividis (colour-blind safe,
-        lightness rises with the share, so it also reads in grey).
+        Magnetic share |θm| / (|θe| + |θm|) computed in the worker pool, {MAP_COLS} log-spaced wavelengths over the current range × {MAP_ROWS} rows.
+        The dashed line is the 50 % contour. Colours: cividis (colour-blind safe, lightness rises with the share, so it also reads in grey).
       </p>
+      <div className="flex flex-wrap items-start gap-6">
+        <fieldset className="space-y-1 text-sm" aria-describedby={methodProblems.length > 0 ? methodErrorId : undefined}>
+          <legend className="mb-1 text-xs font-semibold tracking-wide text-ink-soft uppercase">Map method</legend>
+          {(Object.keys(MAP_METHOD_LABEL) as MapMethod[]).map((m) => (
+            <label key={m} className="flex items-center gap-1.5">
+              <input type="radio" name={`${id}-method`} value={m} checked={method === m} disabled={running !== null} onChange={() => setMethod(m)} />
+              {MAP_METHOD_LABEL[m]}
+            </label>
+          ))}
+          {methodProblems.length > 0 ? (
+            <div id={methodErrorId} role="alert" className="max-w-md space-y-1 text-xs text-ember">
+              {methodProblems.map((p) => (
+                <p key={p}>{p}</p>
+              ))}
+            </div>
+          ) : null}
+        </fieldset>
+        <fieldset className="space-y-1 text-sm">
+          <legend className="mb-1 text-xs font-semibold tracking-wide text-ink-soft uppercase">Field map axis, |B0| (T)</legend>
+          <div className="flex items-end gap-2">
+            {(["fromT", "toT"] as const).map((k) => (
+              <div key={k}>
+                <label htmlFor={`${id}-${k}`} className="text-xs font-medium">
+                  {k === "fromT" ? "From" : "To"}
+                </label>
+                <input
+                  id={`${id}-${k}`}
+                  type="text"
+                  inputMode="decimal"
+                  autoComplete="off"
+                  className={`mt-1 ${INPUT}`}
+                  value={fieldAxis[k]}
+                  disabled={running !== null}
+                  aria-invalid={fieldAxisProblems.length > 0 ? true : undefined}
+                  aria-describedby={fieldAxisProblems.length > 0 ? axisErrorId : `${id}-axis-hint`}
+                  onChange={(e) => setFieldAxis((a) => ({ ...a, [k]: e.target.value }))}
+                />
+              </div>
+            ))}
+          </div>
+          {fieldAxisProblems.length > 0 ? (
+            <p id={axisErrorId} role="alert" className="max-w-md text-xs text-ember">
+              {fieldAxisProblems.join(" ")}
+            </p>
+          ) : (
+            <p id={`${id}-axis-hint`} className="max-w-md text-xs text-ink-soft">
+              Log-spaced, with the sign of the set&apos;s field. Numerical LLG: 0.01–10 T.
+            </p>
+          )}
+        </fieldset>
+      </div>
       <div className="flex flex-wrap items-center gap-2">
-        <Button onClick={() => void run("temperature")} disabled={!pool || !params || !range || running !== null}>
+        <Button onClick={() => void run("temperature")} disabled={!canRun("temperature")}>
           Compute wavelength × temperature map
         </Button>
-        <Button variant="secondary" onClick={() => void run("field")} disabled={!pool || !params || !range || running !== null}>
+        <Button variant="secondary" onClick={() => void run("field")} disabled={!canRun("field")}>
           Compute wavelength × field map
         </Button>
         {running ? (
           <>
-            <progress aria-label={`Map progress (${running})`} value={progress} max={1} className="w-40" />
+            <progress aria-label={`Map progress (${running.kind}, ${METHOD_SHORT[running.method]})`} value={progress} max={1} className="w-40" />
             <span className="text-xs tabular-nums text-ink-soft">{Math.round(progress * 100)} %</span>
             <Button variant="quiet" onClick={() => abort.current?.abort()}>
               Cancel map
@@ -127,7 +228,7 @@ export function MapsPanel({
       </div>
       {!params || !range ? <p className="text-sm text-ember">Fix the flagged inputs first.</p> : null}
       {error ? <Alert tone="warning" title="Map failed">{error}</Alert> : null}
-      {anyMap ? <p className="text-xs text-ink-soft">Maps are computed on request; recompute after changing parameters.</p> : null}
+      {anyMap ? <p className="text-xs text-ink-soft">Maps are computed on request; recompute after changing parameters or the method.</p> : null}
       {MAP_KINDS.map((kind) => {
         const map = maps[kind];
         return map ? <MapPlot key={kind} map={map} width={width} fileBase={fileBase} /> : null;
@@ -139,10 +240,15 @@ export function MapsPanel({
 function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBase: string }) {
   const svg = useRef<SVGSVGElement>(null);
   const view = MAP_VIEW[map.kind];
+  // Stable, so the memoized heat map does not redraw while a new map's progress ticks.
+  const describeCell = useCallback(
+    (x: number, y: number, v: number | null) => `Wavelength ${fmt(x)} nm, ${view.yName} ${fmt(y)} ${view.yUnit}: magnetic share ${formatShare(v)}`,
+    [view],
+  );
   return (
-    <>
+    <figure className="space-y-1" data-testid={`share-map-${map.kind}`}>
       <HeatMap
-        title={view.title}
+        title={`${view.title} (${METHOD_SHORT[map.method]})`}
         xs={map.xs}
         ys={map.ys}
         xType="log"
@@ -155,8 +261,24 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
         height={300}
         banner={map.banner}
         svgRef={svg}
+        describeCell={describeCell}
       />
+      <figcaption className="space-y-0.5 text-xs text-ink-soft">
+        <span className="block" data-testid={`share-map-${map.kind}-method`}>
+          {methodCaption(map.method, map.ys.length, map.deviation)}
+        </span>
+        {map.notes.map((n) => (
+          <span key={n} className="block">
+            {n}
+          </span>
+        ))}
+        {map.warnings.map((w) => (
+          <span key={w} className="block text-ember">
+            {w}
+          </span>
+        ))}
+      </figcaption>
       <PlotExportButtons svgRef={svg} fileBase={`${fileBase}-${view.file}`} plotName={view.plotName} />
-    </>
+    </figure>
   );
 }
