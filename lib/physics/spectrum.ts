@@ -6,7 +6,7 @@
 import { type Complex, abs, cx, rootDecaying, sub } from "./complex";
 import { MU0_N_PER_A2, VACUUM_IMPEDANCE_OHM, angularFrequencyFromNm, gyromagneticRatio } from "./constants";
 import { deltaMzFromCone, llgSusceptibilities } from "./llg";
-import { staticMagnetization as staticMagnetizationCore } from "./magnetization";
+import { type MagnetizationParams, staticMagnetization as staticMagnetizationCore } from "./magnetization";
 import { type DielectricParams, gyration, permittivity, polderSusceptibilities, rotations } from "./optics";
 import { type SpectrumRequest, formatIssues, spectrumRequestSchema } from "./schema";
 import type { ProgressCallback, SpectrumArrays, SpectrumPoint, SpectrumResult } from "./types";
@@ -41,14 +41,7 @@ export class SpectrumCancelledError extends Error {
 }
 
 /** M0 in A/m for the parameters in force (§3.2, long rod). */
-export function staticMagnetization(params: {
-  ionDensityPerM3: number;
-  landeG: number;
-  totalJ: number;
-  curieWeissK: number;
-  temperatureK: number;
-  fieldT: number;
-}): number {
+export function staticMagnetization(params: MagnetizationParams): number {
   return staticMagnetizationCore(params);
 }
 
