@@ -1,6 +1,6 @@
 "use client";
 
-import { useCallback, useEffect, useRef, useState } from "react";
+import { startTransition, useCallback, useEffect, useRef, useState } from "react";
 import type { ModelParams, SpectrumRequest } from "@/lib/physics/schema";
 import type { SpectrumResult } from "@/lib/physics/types";
 import { computeAnalyticNow, isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
@@ -96,7 +96,11 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
         const grid = previewGrid(request);
         const result = computeAnalyticNow({ ...request, wavelengthsNm: grid, method: "analytic" });
         const markers = markersNm.length > 0 ? computeAnalyticNow({ ...request, wavelengthsNm: [...markersNm], method: "analytic" }) : null;
-        setPreview({ key, method: "analytic", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
+        // Redrawing every plot is the heavy part of a result; as a transition React renders it in
+        // short slices, so typing and the progress bar stay responsive (no main-thread task > 50 ms).
+        startTransition(() => {
+          setPreview({ key, method: "analytic", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
+        });
         setError(null);
       } catch (e) {
         setStatus("failed");
@@ -130,9 +134,12 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
       ]).then(
         ([result, markers]) => {
           if (ac.signal.aborted) return;
-          setNumerical({ key, method: "llg", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
-          setProgress(1);
-          setStatus("done");
+          // One transition, so "done" and the result it describes appear together.
+          startTransition(() => {
+            setNumerical({ key, method: "llg", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
+            setProgress(1);
+            setStatus("done");
+          });
         },
         (e: unknown) => {
           if (controller.current !== ac) return; // superseded by a newer run

@@ -112,6 +112,15 @@ export interface SpectrumPoolOptions {
   createWorker?: () => Worker;
 }
 
+/**
+ * Workers for a machine with `cores` logical cores: one core stays with the page's own thread so
+ * that input and drawing keep up while a spectrum is computed (on 2 cores, two busy workers made
+ * the page's tasks stretch past 50 ms); at most 4, since a 256-point spectrum is only ~50 ms of work.
+ */
+export function defaultPoolSize(cores: number | undefined): number {
+  return Math.max(1, Math.min((cores || 2) - 1, 4));
+}
+
 export interface PoolRunOptions {
   onProgress?: (fractionDone: number) => void;
   signal?: AbortSignal;
@@ -124,8 +133,7 @@ export class SpectrumPool {
   private disposed = false;
 
   constructor(opts: SpectrumPoolOptions = {}) {
-    const cores = typeof navigator !== "undefined" ? navigator.hardwareConcurrency : undefined;
-    this.size = Math.max(1, Math.floor(opts.size ?? Math.min(cores || 2, 4)));
+    this.size = Math.max(1, Math.floor(opts.size ?? defaultPoolSize(typeof navigator !== "undefined" ? navigator.hardwareConcurrency : undefined)));
     this.createWorker =
       opts.createWorker ?? (() => new Worker(new URL("../../workers/spectrum.worker.ts", import.meta.url), { type: "module" }));
   }
