@@ -1,7 +1,7 @@
 import { expose } from "comlink";
 import { afterEach, describe, expect, it } from "vitest";
 import { createSpectrumWorkerApi } from "@/lib/compute/worker-api";
-import { SpectrumPool, aggregateProgress, arraysToResult, mergeArrays, splitRanges, splitRequest } from "@/lib/compute/spectrum-pool";
+import { SpectrumPool, aggregateProgress, defaultPoolSize, arraysToResult, mergeArrays, splitRanges, splitRequest } from "@/lib/compute/spectrum-pool";
 import type { SpectrumRequest } from "@/lib/physics/schema";
 import { computeSpectrum, computeSpectrumArrays } from "@/lib/physics/spectrum";
 import { TGG } from "./fixtures";
@@ -59,6 +59,18 @@ describe("split and merge helpers", () => {
     const zeroField = arraysToResult(computeSpectrumArrays(request({ fieldT: 0, wavelengthsNm: [500] })));
     expect(zeroField.points[0]!.magneticShare).toBeNull();
     expect(zeroField.points[0]!.verdetRadPerTm).toBeNull();
+  });
+});
+
+describe("pool size", () => {
+  it("leaves one core to the page, keeps at least one worker and uses at most four", () => {
+    expect(defaultPoolSize(1)).toBe(1);
+    expect(defaultPoolSize(2)).toBe(1);
+    expect(defaultPoolSize(3)).toBe(2);
+    expect(defaultPoolSize(16)).toBe(4);
+    // navigator.hardwareConcurrency may be missing (0 or undefined): assume 2 cores.
+    expect(defaultPoolSize(undefined)).toBe(1);
+    expect(defaultPoolSize(0)).toBe(1);
   });
 });
 
