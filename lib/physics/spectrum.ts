@@ -6,7 +6,7 @@
 import { type Complex, abs, cx, rootDecaying, sub } from "./complex";
 import { MU0_N_PER_A2, VACUUM_IMPEDANCE_OHM, angularFrequencyFromNm, gyromagneticRatio } from "./constants";
 import { deltaMzFromCone, llgSusceptibilities } from "./llg";
-import { type MagnetizationParams, staticMagnetization as staticMagnetizationCore } from "./magnetization";
+import { staticMagnetization } from "./magnetization";
 import { type DielectricParams, gyration, permittivity, polderSusceptibilities, rotations } from "./optics";
 import { type SpectrumRequest, formatIssues, spectrumRequestSchema } from "./schema";
 import type { ProgressCallback, SpectrumArrays, SpectrumPoint, SpectrumResult } from "./types";
@@ -40,10 +40,8 @@ export class SpectrumCancelledError extends Error {
   }
 }
 
-/** M0 in A/m for the parameters in force (§3.2, long rod). */
-export function staticMagnetization(params: MagnetizationParams): number {
-  return staticMagnetizationCore(params);
-}
+/** M0 in A/m for the parameters in force (§3.2, long rod); re-exported for the UI's one import. */
+export { staticMagnetization };
 
 /** Everything that is fixed for a run, derived once (§3–5). */
 interface RunContext {
@@ -57,7 +55,7 @@ interface RunContext {
 }
 
 function runContext(request: SpectrumRequest): RunContext {
-  const m0 = staticMagnetizationCore(request);
+  const m0 = staticMagnetization(request);
   const gamma = gyromagneticRatio(request.landeG);
   return {
     request,
