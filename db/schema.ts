@@ -114,6 +114,9 @@ export const parameterSetVersions = pgTable(
     description: text("description").notNull(),
     tags: text("tags").array().notNull(),
     params: jsonb("params").$type<ModelParams>().notNull(),
+    // Where a version came from when it was not typed in (e.g. a fit to measurements: the data
+    // used, the free parameters, values ± σ, correlation, χ²); null for ordinary edits.
+    provenance: jsonb("provenance").$type<Record<string, unknown>>(),
     createdById: uuid("created_by")
       .notNull()
       .references(() => users.id),

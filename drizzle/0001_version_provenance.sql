@@ -1,0 +1,1 @@
+ALTER TABLE "parameter_set_versions" ADD COLUMN "provenance" jsonb;
