@@ -209,7 +209,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
             </PanelFrame>
           ) : null}
           {viewState.panels.maps ? (
-            <PanelFrame title="Maps of the magnetic share">
+            <PanelFrame title="Maps over wavelength × temperature and field">
               <MapsPanel pool={sidePool} params={params} range={range} fileBase={fileBase} />
             </PanelFrame>
           ) : null}
