@@ -1,6 +1,6 @@
 "use client";
 
-import { memo, useMemo, useRef } from "react";
+import { memo, useDeferredValue, useMemo, useRef } from "react";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
@@ -33,8 +33,8 @@ const MODE_STYLE = {
 const positiveOrNull = (v: number | null) => (v !== null && v > 0 && Number.isFinite(v) ? v : null);
 
 function AbsorptionPanelImpl({
-  points,
-  markerPoints,
+  points: pointsNow,
+  markerPoints: markerPointsNow,
   lengthM,
   xUnit,
   xScale,
@@ -50,6 +50,9 @@ function AbsorptionPanelImpl({
   banner: string | null;
   fileBase: string;
 }) {
+  // Drawn after the rotation plots, at low priority: a new result never holds up the page for these.
+  const points = useDeferredValue(pointsNow);
+  const markerPoints = useDeferredValue(markerPointsNow);
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
   const tSvg = useRef<SVGSVGElement>(null);
   const aSvg = useRef<SVGSVGElement>(null);
