@@ -1,7 +1,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { FieldErrors, Resolver, UseFormReturn } from "react-hook-form";
 import { z } from "zod";
-import { PARAM_META } from "@/lib/model/param-meta";
+import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 import { modelParamsSchema, type ModelParamKey } from "@/lib/physics/schema";
 import type { ParameterSet } from "@/lib/query/types";
 import { ApiError, describeError } from "@/lib/query/fetcher";
@@ -51,15 +51,16 @@ export function toFormValues(set: Pick<ParameterSet, "labId" | "name" | "descrip
 
 /** The form's current content as a snapshot for the diff (unparsed, so half-filled values show). */
 export function formSnapshot(values: SetFormInput): SetSnapshot {
-  const params: Partial<Record<ModelParamKey, number>> = {};
+  const params: SetSnapshot["params"] = {};
   for (const meta of PARAM_META) {
     const value = values.params?.[meta.key];
     if (typeof value === "number") params[meta.key] = value;
   }
+  for (const meta of FLAG_META) params[meta.key] = values.params?.[meta.key] === true;
   return { name: values.name ?? "", description: values.description ?? "", tags: parseTags(values.tags ?? ""), params };
 }
 
-const PARAM_KEYS = new Set<string>(PARAM_META.map((m) => m.key));
+const PARAM_KEYS = new Set<string>([...PARAM_META, ...FLAG_META].map((m) => m.key));
 const TOP_FIELDS = new Set(["labId", "name", "description", "tags"]);
 
 export type FormFieldPath = "labId" | "name" | "description" | "tags" | `params.${ModelParamKey}`;

@@ -1,10 +1,11 @@
 "use client";
 
 import type { UseFormReturn } from "react-hook-form";
-import { PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
+import { FLAG_META, PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
 import { Field } from "@/components/ui/text-field";
 import type { Lab } from "@/lib/query/types";
 import { parseTags, type SetFormInput, type SetFormOutput } from "./form-schema";
+import { FlagInput } from "./flag-input";
 import { ParamInput } from "./param-input";
 
 const GROUPS: ParamMeta["group"][] = ["spins", "optics", "conditions"];
@@ -71,6 +72,9 @@ export function SetFields({ form, labs }: SetFieldsProps) {
           <legend className="px-1 text-sm font-semibold tracking-wide text-lux-dark uppercase">{PARAM_GROUP_LABEL[group]}</legend>
           {PARAM_META.filter((meta) => meta.group === group).map((meta) => (
             <ParamInput key={meta.key} meta={meta} register={register} error={errors.params?.[meta.key]} />
+          ))}
+          {FLAG_META.filter((meta) => meta.group === group).map((meta) => (
+            <FlagInput key={meta.key} meta={meta} register={register} />
           ))}
         </fieldset>
       ))}

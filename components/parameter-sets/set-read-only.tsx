@@ -1,5 +1,5 @@
-import { formatValue } from "@/lib/model/diff";
-import { PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
+import { formatFlag, formatValue } from "@/lib/model/diff";
+import { FLAG_META, PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
 import type { ParameterSet } from "@/lib/query/types";
 
 const GROUPS: ParamMeta["group"][] = ["spins", "optics", "conditions"];
@@ -31,6 +31,12 @@ export function SetReadOnly({ item }: { item: ParameterSet }) {
                 <dd className="tabular-nums">
                   {formatValue(item.params[meta.key])} <span className="text-ink-soft">{meta.unit}</span>
                 </dd>
+              </div>
+            ))}
+            {FLAG_META.filter((m) => m.group === group).map((meta) => (
+              <div key={meta.key}>
+                <dt className="font-medium">{meta.label}</dt>
+                <dd>{formatFlag(item.params[meta.key])}</dd>
               </div>
             ))}
           </dl>

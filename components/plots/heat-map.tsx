@@ -8,7 +8,7 @@ import { frameTop, PlotFrame } from "./plot-frame";
 import { makeScale, type ScaleType } from "./scale";
 
 /*
- * A heat map of a 0…1 quantity on a grid that is uniform in its axis scales (log-spaced
+ * A heat map of a quantity (by default a 0…1 share; any range with `domain`) on a grid that is uniform in its axis scales (log-spaced
  * wavelengths on a log axis, etc.), with d3-contour lines at chosen levels. Cividis is
  * colour-blind safe and its lightness rises monotonically, so the map also reads in grey.
  * Hovering, or the arrow keys while the map has focus, reads out the cell under the cursor in a
@@ -32,9 +32,17 @@ export interface HeatMapProps {
   svgRef?: Ref<SVGSVGElement>;
   /** The readout of one cell; the default names the axes by their labels. */
   describeCell?: (x: number, y: number, value: number | null) => string;
+  /** Values mapped onto the colour scale's ends (default 0…1, a share). */
+  domain?: readonly [number, number];
+  /** Legend tick text (default: a share in %). */
+  formatLegend?: (value: number) => string;
+  /** Said inside the map when no contour level is reached (default names the levels in %). */
+  noLevelText?: string;
 }
 
-const MARGIN = { right: 96, bottom: 50, left: 76 };
+const MARGIN = { right: 112, bottom: 50, left: 76 };
+const SHARE_DOMAIN: readonly [number, number] = [0, 1];
+const sharePercent = (v: number) => `${Math.round(v * 100)} %`;
 
 /** Cell edges around uniformly spaced centres (geometric for log axes). */
 function edges(centres: readonly number[], type: ScaleType): [number, number] {
@@ -62,7 +70,28 @@ function assignRef<T>(ref: Ref<T> | undefined, value: T | null) {
   else if (ref) (ref as { current: T | null }).current = value;
 }
 
-function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLabel, width, height = 300, banner, svgRef, describeCell }: HeatMapProps) {
+function HeatMapImpl({
+  title,
+  xs,
+  ys,
+  xType,
+  yType,
+  values,
+  levels,
+  xLabel,
+  yLabel,
+  width,
+  height = 300,
+  banner,
+  svgRef,
+  describeCell,
+  domain = SHARE_DOMAIN,
+  formatLegend = sharePercent,
+  noLevelText,
+}: HeatMapProps) {
+  const [lo, hi] = domain;
+  const span = hi - lo || 1;
+  const toUnit = (v: number) => Math.min(1, Math.max(0, (v - lo) / span));
   const M = { ...MARGIN, top: frameTop(banner) };
   const uid = useId().replace(/[^\w-]/g, "");
   const legendId = `heat-legend-${uid}`;
@@ -95,16 +124,17 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
           // Overlap by a fraction of a pixel so anti-aliasing leaves no hairlines between cells.
           w: cw + 0.5,
           h: ch + 0.5,
-          fill: v === null || v === undefined || !Number.isFinite(v) ? "#d9d6cf" : interpolateCividis(Math.min(1, Math.max(0, v))),
+          fill: v === null || v === undefined || !Number.isFinite(v) ? "#d9d6cf" : interpolateCividis(Math.min(1, Math.max(0, (v - lo) / span))),
         });
       }
     }
     return out;
-  }, [values, nx, ny, innerW, innerH, M.left, M.top]);
+  }, [values, nx, ny, innerW, innerH, M.left, M.top, lo, span]);
 
   const contourPaths = useMemo(() => {
     if (nx < 2 || ny < 2) return [];
-    const grid = values.map((v) => (v === null || !Number.isFinite(v) ? -1 : v));
+    // Undefined cells sit below the whole range, so they never reach a level.
+    const grid = values.map((v) => (v === null || !Number.isFinite(v) ? lo - span : v));
     const project = geoTransform({
       point(x, y) {
         // Contour coordinates run over cell edges 0…nx, 0…ny; the value of cell i sits at i + 0.5.
@@ -113,7 +143,7 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
     });
     const path = geoPath(project);
     return contours().size([nx, ny]).thresholds([...levels])(grid).map((c) => ({ level: c.value, d: path(c) ?? "" }));
-  }, [values, nx, ny, levels, innerW, innerH, M.left, M.top]);
+  }, [values, nx, ny, levels, innerW, innerH, M.left, M.top, lo, span]);
 
   // Memoized elements: moving the readout re-renders only the highlight, not the 2000 cells.
   const cellLayer = useMemo(
@@ -187,7 +217,7 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
       {contourLayer}
       {noContour && levels.length > 0 ? (
         <text x={M.left + 8} y={M.top + 16} fontSize={11} fill="#ffffff" fontWeight={600}>
-          {`The ${levels.map((l) => `${Math.round(l * 100)} %`).join(", ")} level is not reached in this map`}
+          {noLevelText ?? `The ${levels.map(formatLegend).join(", ")} level is not reached in this map`}
         </text>
       ) : null}
       <YAxis scale={yScale} type={yType} x={M.left} width={0} label={yLabel} />
@@ -203,10 +233,12 @@ function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLab
         <rect x={lx} y={M.top} width={14} height={innerH} fill={`url(#${legendId})`} stroke="#4a5468" strokeWidth={0.5} />
         {[0, 0.25, 0.5, 0.75, 1].map((t) => (
           <text key={t} x={lx + 20} y={M.top + innerH - t * innerH} dy="0.32em" fontSize={10} fill="#4a5468">
-            {`${Math.round(t * 100)} %`}
+            {formatLegend(lo + t * span)}
           </text>
         ))}
-        <line x1={lx - 3} x2={lx + 17} y1={M.top + innerH / 2} y2={M.top + innerH / 2} stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
+        {levels.map((l) => (
+          <line key={l} x1={lx - 3} x2={lx + 17} y1={M.top + innerH - toUnit(l) * innerH} y2={M.top + innerH - toUnit(l) * innerH} stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
+        ))}
       </g>
       {shownCell ? (
         <rect

@@ -1,17 +1,27 @@
 "use client";
 
-import { useCallback, useEffect, useId, useRef, useState } from "react";
+import { useCallback, useEffect, useId, useMemo, useRef, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { HeatMap } from "@/components/plots/heat-map";
+import { LinePlot } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
 import type { ModelParams } from "@/lib/physics/schema";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
-import { magneticScaleLabel } from "@/lib/workbench/format";
+import { fmt as fmtNum, magneticScaleLabel } from "@/lib/workbench/format";
+import { SERIES_STYLE } from "@/lib/workbench/palette";
 import {
+  axisIndependence,
   DEFAULT_FIELD_AXIS,
-  formatShare,
+  formatQuantity,
+  MAP_QUANTITIES,
+  MAP_QUANTITY_VIEW,
+  maxColumnChange,
+  quantityDomain,
+  quantityLevels,
+  quantityOf,
+  type MapQuantity,
   MAP_COLS,
   MAP_METHOD_LABEL,
   MAP_ROWS,
@@ -29,14 +39,14 @@ import { checkedSpectrumRequest } from "@/lib/workbench/validate";
 import type { WavelengthRange } from "@/lib/workbench/view-state";
 
 /*
- * Magnetic share over wavelength × temperature and wavelength × field. Each row is one spectrum
+ * The magnetic share, θ, θe, θm or the Verdet constant over wavelength × temperature and
+ * wavelength × field (a select per map; one computation serves them all). Each row is one spectrum
  * request to the worker pool, with the chosen method: analytic (Polder linear response, ~1 ms a
  * row) or numerical LLG (split across the pool's workers, ~0.2 ms per wavelength, so a 64 × 32 map
  * takes well under a second). lib/workbench/maps.ts builds the grid and keeps everything out of
  * the numerical path's range away from the workers.
  */
 
-const LEVELS = [0.5];
 const INPUT =
   "block w-24 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
 
@@ -45,8 +55,16 @@ interface MapData {
   method: MapMethod;
   xs: number[];
   ys: number[];
-  values: (number | null)[];
+  /** Row-major values of every quantity, from the same row runs. */
+  values: Record<MapQuantity, (number | null)[]>;
   yType: "log" | "linear";
+  /** The model knows the share is independent of T and B without it (§6.4, §5.5). */
+  diamagneticTerm: boolean;
+  /** The set's own temperature or |field|: the row a curve is drawn from when the axis does not matter. */
+  ownY: number;
+  /** Sample length and field the rotations are for (shown with θ). */
+  lengthM: number;
+  fieldT: number;
   /** The magneticScale label of the parameters this map was computed from (physics-model §4.3). */
   banner: string | null;
   /** Numerical maps: the largest deviation from linear response over all rows. */
@@ -57,8 +75,8 @@ interface MapData {
 
 /** What differs between the two maps; everything else is drawn the same way. */
 const MAP_VIEW: Record<MapKind, { title: string; yLabel: string; yName: string; yUnit: string; file: string; plotName: string }> = {
-  temperature: { title: "Magnetic share over wavelength × temperature", yLabel: "Temperature (K)", yName: "temperature", yUnit: "K", file: "share-map-temperature", plotName: "temperature map" },
-  field: { title: "Magnetic share over wavelength × |field|", yLabel: "|B0| (T)", yName: "|B0|", yUnit: "T", file: "share-map-field", plotName: "field map" },
+  temperature: { title: "over wavelength × temperature", yLabel: "Temperature (K)", yName: "temperature", yUnit: "K", file: "map-temperature", plotName: "temperature map" },
+  field: { title: "over wavelength × |field|", yLabel: "|B0| (T)", yName: "|B0|", yUnit: "T", file: "map-field", plotName: "field map" },
 };
 const MAP_KINDS: MapKind[] = ["temperature", "field"];
 const METHOD_SHORT: Record<MapMethod, string> = { analytic: "analytic", llg: "numerical LLG" };
@@ -107,7 +125,7 @@ export function MapsPanel({
     setRunning({ kind, method: plan.method });
     setProgress(0);
     setError(null);
-    const values: (number | null)[] = [];
+    const values = Object.fromEntries(MAP_QUANTITIES.map((q) => [q, [] as (number | null)[]])) as Record<MapQuantity, (number | null)[]>;
     const deviations: (number | undefined)[] = [];
     const warnings = new Set<string>();
     const rows = plan.ys.length;
@@ -120,7 +138,7 @@ export function MapsPanel({
             if (!ac.signal.aborted) setProgress(mapProgress(j, f, rows));
           },
         });
-        for (const p of res.points) values.push(p.magneticShare);
+        for (const p of res.points) for (const q of MAP_QUANTITIES) values[q].push(quantityOf(p, q));
         deviations.push(res.maxRelDeviationFromAnalytic);
         for (const w of res.warnings ?? []) warnings.add(w);
         setProgress(mapProgress(j + 1, 0, rows));
@@ -134,6 +152,10 @@ export function MapsPanel({
           ys: kind === "field" ? plan.ys.map(Math.abs) : plan.ys,
           values,
           yType: plan.yType,
+          diamagneticTerm: params.diamagneticTerm === true,
+          ownY: kind === "temperature" ? params.temperatureK : Math.abs(params.fieldT),
+          lengthM: params.lengthM,
+          fieldT: params.fieldT,
           banner: magneticScaleLabel(params.magneticScale),
           deviation: plan.method === "llg" ? maxDeviation(deviations) : undefined,
           notes: plan.notes,
@@ -155,8 +177,10 @@ export function MapsPanel({
   return (
     <div ref={wrapRef} className="space-y-4">
       <p className="text-sm text-ink-soft">
-        Magnetic share |θm| / (|θe| + |θm|) computed in the worker pool, {MAP_COLS} log-spaced wavelengths over the current range × {MAP_ROWS} rows.
-        The dashed line is the 50 % contour. Colours: cividis (colour-blind safe, lightness rises with the share, so it also reads in grey).
+        The magnetic share |θm| / (|θe| + |θm|), θ, θe, θm or the Verdet constant, computed in the worker pool, {MAP_COLS} log-spaced wavelengths over the
+        current range × {MAP_ROWS} rows; choose the quantity under each map. Dashed lines: the 50 % contour of the share, or where a signed quantity
+        changes sign. Colours: cividis (colour-blind safe, lightness rises with the value, so it also reads in grey). Where the quantity does not depend
+        on the map&apos;s second axis, the map says so and shows a curve against wavelength instead of stripes.
       </p>
       <div className="flex flex-wrap items-start gap-6">
         <fieldset className="space-y-1 text-sm" aria-describedby={methodProblems.length > 0 ? methodErrorId : undefined}>
@@ -239,31 +263,98 @@ export function MapsPanel({
 
 function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBase: string }) {
   const svg = useRef<SVGSVGElement>(null);
+  const selectId = useId();
+  const [quantity, setQuantity] = useState<MapQuantity>("share");
   const view = MAP_VIEW[map.kind];
+  const qView = MAP_QUANTITY_VIEW[quantity];
+  const values = map.values[quantity];
+  const nx = map.xs.length;
+  const ny = map.ys.length;
+  const change = useMemo(() => maxColumnChange(values, nx, ny), [values, nx, ny]);
+  const independence = axisIndependence(quantity, map.kind, map.diamagneticTerm, change);
+  const domain = useMemo(() => quantityDomain(values, quantity), [values, quantity]);
+  const levels = useMemo(() => quantityLevels(domain, quantity), [domain, quantity]);
+  // The row at the set's own temperature or field, for the curve drawn instead of stripes.
+  const ownRow = useMemo(() => {
+    let best = 0;
+    map.ys.forEach((y, j) => {
+      if (Math.abs(y - map.ownY) < Math.abs(map.ys[best]! - map.ownY)) best = j;
+    });
+    return best;
+  }, [map.ys, map.ownY]);
+  const curve = useMemo(() => {
+    const row = values.slice(ownRow * nx, ownRow * nx + nx).map((v) => (v === null ? null : quantity === "share" ? v * 100 : v));
+    return [{ key: quantity, label: qView.label, color: SERIES_STYLE.total.color, dash: undefined, width: 2.2, values: row }];
+  }, [values, ownRow, nx, quantity, qView.label]);
   // Stable, so the memoized heat map does not redraw while a new map's progress ticks.
   const describeCell = useCallback(
-    (x: number, y: number, v: number | null) => `Wavelength ${fmt(x)} nm, ${view.yName} ${fmt(y)} ${view.yUnit}: magnetic share ${formatShare(v)}`,
-    [view],
+    (x: number, y: number, v: number | null) => `Wavelength ${fmt(x)} nm, ${view.yName} ${fmt(y)} ${view.yUnit}: ${qView.short} ${formatQuantity(v, quantity)}`,
+    [view, qView, quantity],
   );
+  const formatLegend = useCallback((v: number) => (quantity === "share" ? `${Math.round(v * 100)} %` : fmtNum(v, 3)), [quantity]);
+  const unitNote = quantity === "verdet" ? "" : quantity === "share" ? "" : ` for L = ${fmt(map.lengthM * 1000)} mm${map.kind === "temperature" ? ` at ${fmt(map.fieldT)} T` : ""}`;
+  const title = `${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} ${view.title} (${METHOD_SHORT[map.method]})`;
+  const noLevelText = quantity === "share" ? undefined : `${qView.short} keeps one sign over this map`;
   return (
     <figure className="space-y-1" data-testid={`share-map-${map.kind}`}>
-      <HeatMap
-        title={`${view.title} (${METHOD_SHORT[map.method]})`}
-        xs={map.xs}
-        ys={map.ys}
-        xType="log"
-        yType={map.yType}
-        values={map.values}
-        levels={LEVELS}
-        xLabel="Wavelength (nm)"
-        yLabel={view.yLabel}
-        width={width}
-        height={300}
-        banner={map.banner}
-        svgRef={svg}
-        describeCell={describeCell}
-      />
+      <label htmlFor={selectId} className="flex flex-wrap items-center gap-2 text-sm">
+        <span className="font-medium">Show on the {view.plotName}</span>
+        <select id={selectId} className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux" value={quantity} onChange={(e) => setQuantity(e.target.value as MapQuantity)}>
+          {MAP_QUANTITIES.map((q) => (
+            <option key={q} value={q}>
+              {MAP_QUANTITY_VIEW[q].label}
+            </option>
+          ))}
+        </select>
+      </label>
+      {independence.independent ? (
+        <>
+          <p role="note" data-testid={`map-${map.kind}-independent`} className="max-w-3xl rounded-md border border-ink/15 bg-paper-sunk px-3 py-2 text-sm text-ink">
+            {independence.reason}
+          </p>
+          {change !== null ? (
+            <LinePlot
+              title={`${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} against wavelength at ${view.yName} ${fmt(map.ys[ownRow]!)} ${view.yUnit} (${METHOD_SHORT[map.method]})`}
+              xs={map.xs}
+              xType="log"
+              xLabel="Wavelength (nm)"
+              yLabel={quantity === "share" ? "Magnetic share (%)" : `${qView.short} (${qView.unit})${unitNote}`}
+              series={curve}
+              width={width}
+              height={240}
+              legend={false}
+              banner={map.banner}
+              svgRef={svg}
+            />
+          ) : null}
+        </>
+      ) : (
+        <HeatMap
+          title={title}
+          xs={map.xs}
+          ys={map.ys}
+          xType="log"
+          yType={map.yType}
+          values={values}
+          levels={levels}
+          xLabel="Wavelength (nm)"
+          yLabel={view.yLabel}
+          width={width}
+          height={300}
+          banner={map.banner}
+          svgRef={svg}
+          describeCell={describeCell}
+          domain={domain}
+          formatLegend={formatLegend}
+          noLevelText={noLevelText}
+        />
+      )}
       <figcaption className="space-y-0.5 text-xs text-ink-soft">
+        {!independence.independent && change !== null ? (
+          <span className="block" data-testid={`map-${map.kind}-change`}>
+            {`Along the ${view.yName} axis ${qView.short} changes by up to ${(change.relative * 100).toPrecision(3)} % of its largest value at one wavelength (${fmt(map.xs[change.column]!)} nm)${unitNote ? `; rotations${unitNote}` : ""}.`}
+          </span>
+        ) : null}
         <span className="block" data-testid={`share-map-${map.kind}-method`}>
           {methodCaption(map.method, map.ys.length, map.deviation)}
         </span>
@@ -278,7 +369,7 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
           </span>
         ))}
       </figcaption>
-      <PlotExportButtons svgRef={svg} fileBase={`${fileBase}-${view.file}`} plotName={view.plotName} />
+      <PlotExportButtons svgRef={svg} fileBase={`${fileBase}-${qView.file}-${view.file}`} plotName={view.plotName} />
     </figure>
   );
 }

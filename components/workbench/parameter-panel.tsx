@@ -2,7 +2,7 @@
 
 import { memo } from "react";
 import type { ModelParamKey } from "@/lib/physics/schema";
-import { PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
+import { FLAG_META, PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
 import { PARAM_RANGES } from "@/lib/workbench/param-ranges";
 import type { FieldErrors, ParamDrafts } from "@/lib/workbench/validate";
 
@@ -63,6 +63,24 @@ function ParameterPanelImpl({
               </div>
             );
           })}
+          {FLAG_META.filter((f) => f.group === group).map((f) => (
+            <div key={f.key}>
+              <label className="flex items-start gap-2 text-sm font-medium">
+                <input
+                  type="checkbox"
+                  name={f.key}
+                  className="mt-0.5"
+                  checked={drafts[f.key] === "true"}
+                  aria-describedby={`param-${f.key}-help`}
+                  onChange={(e) => onChange(f.key, e.target.checked ? "true" : "false")}
+                />
+                {f.label}
+              </label>
+              <p id={`param-${f.key}-help`} className="mt-1 text-xs leading-snug text-ink-soft">
+                {f.help}
+              </p>
+            </div>
+          ))}
         </fieldset>
       ))}
     </div>

@@ -5,6 +5,7 @@ import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
 import type { SpectrumPoint } from "@/lib/physics/types";
+import { formatTransmission } from "@/lib/workbench/absorption-view";
 import { describeCrossing, shareCrossingsNm } from "@/lib/workbench/crossing";
 import { fmt, fmtPercent } from "@/lib/workbench/format";
 import { SERIES_STYLE, type SeriesKey } from "@/lib/workbench/palette";
@@ -34,7 +35,8 @@ function seriesValues(points: readonly SpectrumPoint[], key: SeriesKey, yMode: Y
     electric: (p) => p.thetaElectricRad,
     magnetic: (p) => p.thetaMagneticRad,
     cross: (p) => p.thetaCrossRad,
-    ellipticity: (p) => p.ellipticityRad,
+    // The transmitted ellipticity angle atan(tanh η) (§1), never η beyond the small-dichroism form.
+    ellipticity: (p) => p.ellipticityAngleRad ?? p.ellipticityRad,
   };
   return points.map((p) => rotationTo(pick[key](p), yMode, g));
 }
@@ -70,7 +72,7 @@ function SpectrumPanelsImpl({
     const keys: SeriesKey[] = [...TOGGLES.filter((k) => on[k]), ...(showEllipticity ? (["ellipticity"] as const) : [])];
     return keys.map((k) => {
       const s = SERIES_STYLE[k];
-      return { key: k, label: s.label, color: s.color, dash: s.dash, width: s.width, values: seriesValues(points, k, yMode, geometry) };
+      return { key: k, label: k === "ellipticity" ? "Ellipticity angle atan(tanh η)" : s.label, color: s.color, dash: s.dash, width: s.width, values: seriesValues(points, k, yMode, geometry) };
     });
   }, [points, on, showEllipticity, yMode, geometry]);
 
@@ -148,7 +150,8 @@ function SpectrumPanelsImpl({
               <Readout term="θe" value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
               <Readout term="θm" value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
               <Readout term="θx" value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="η" value={`${fmt(rotationTo(cp.ellipticityRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term="Ellipticity angle" value={`${fmt(rotationTo(cp.ellipticityAngleRad ?? cp.ellipticityRad, yMode, geometry))} ${yUnit}${Math.abs(cp.ellipticityRad) > 0.1 ? " (η large)" : ""}`} />
+              <Readout term="T+ / T−" value={`${formatTransmission(cp.transmissionPlus ?? null)} / ${formatTransmission(cp.transmissionMinus ?? null)}`} />
               <Readout term="Magnetic share" value={fmtPercent(cp.magneticShare)} />
               <Readout term="V" value={`${fmt(cp.verdetRadPerTm)} rad/(T·m)`} />
             </dl>

@@ -12,6 +12,7 @@ import { fmt, magneticScaleLabel } from "@/lib/workbench/format";
 import { COMPONENT_COLORS, SERIES_STYLE } from "@/lib/workbench/palette";
 import { checkedSpectrumRequest, parseNumber } from "@/lib/workbench/validate";
 import type { ViewState } from "@/lib/workbench/view-state";
+import { staleText, traceInputsOf, type TraceInputs } from "@/lib/workbench/spin-trace-view";
 
 type TraceView = ViewState["spinTrace"];
 
@@ -50,10 +51,11 @@ export function SpinTracePanel({
 }) {
   const [drafts, setDrafts] = useState({ wavelengthNm: String(view.wavelengthNm), intensityWPerM2: String(view.intensityWPerM2), periods: String(view.periods) });
   // Each result keeps the magneticScale label of the parameters it was computed from (§4.3).
-  const [trace, setTrace] = useState<(SpinTraceResult & { banner: string | null }) | null>(null);
+  // Each result also keeps the inputs it came from, so it can be marked stale when they change.
+  const [trace, setTrace] = useState<(SpinTraceResult & { banner: string | null; inputs: TraceInputs }) | null>(null);
   const [traceState, setTraceState] = useState<"idle" | "running" | "failed">("idle");
   const [traceError, setTraceError] = useState<string | null>(null);
-  const [curve, setCurve] = useState<{ intensity: number[]; plus: (number | null)[]; minus: (number | null)[]; banner: string | null } | null>(null);
+  const [curve, setCurve] = useState<{ intensity: number[]; plus: (number | null)[]; minus: (number | null)[]; banner: string | null; inputs: TraceInputs } | null>(null);
   const [curveProgress, setCurveProgress] = useState<number | null>(null);
   const [curveError, setCurveError] = useState<string | null>(null);
   const abort = useRef<AbortController | null>(null);
@@ -70,6 +72,9 @@ export function SpinTracePanel({
       ? spinTraceRequestSchema.safeParse({ ...params, wavelengthNm: wl, intensityWPerM2: intensity, periods })
       : null;
   const issue = request && !request.success ? request.error.issues[0] : null;
+  const currentInputs = request?.success ? traceInputsOf(request.data) : null;
+  const traceStale = trace ? staleText("trace", trace.inputs, currentInputs) : null;
+  const curveStale = curve ? staleText("ΔMz curve", curve.inputs, params && wl !== null ? { params, wavelengthNm: wl } : null) : null;
   const fieldError = (k: string) => (issue && issue.path[0] === k ? issue.message : drafts[k as keyof typeof drafts] !== undefined && parseNumber(drafts[k as keyof typeof drafts]) === null ? "must be a number" : null);
 
   const runTrace = () => {
@@ -83,7 +88,7 @@ export function SpinTracePanel({
     setTraceError(null);
     pool.spinTrace(r, { signal: ac.signal }).then(
       (res) => {
-        setTrace({ ...res, banner: magneticScaleLabel(r.magneticScale) });
+        setTrace({ ...res, banner: magneticScaleLabel(r.magneticScale), inputs: traceInputsOf(r) });
         setTraceState("idle");
       },
       (e: unknown) => {
@@ -105,8 +110,9 @@ export function SpinTracePanel({
   })();
 
   const runCurve = async () => {
-    if (!pool || !params || !curveRequests) return;
+    if (!pool || !params || !curveRequests || wl === null) return;
     const banner = magneticScaleLabel(params.magneticScale);
+    const inputs: TraceInputs = { params, wavelengthNm: wl };
     abort.current?.abort();
     const ac = new AbortController();
     abort.current = ac;
@@ -122,7 +128,7 @@ export function SpinTracePanel({
         minus.push(p?.deltaMzMinusAPerM == null ? null : Math.abs(p.deltaMzMinusAPerM));
         setCurveProgress((i + 1) / INTENSITIES.length);
       }
-      setCurve({ intensity: INTENSITIES, plus, minus, banner });
+      setCurve({ intensity: INTENSITIES, plus, minus, banner, inputs });
     } catch (e) {
       if (!isAbortError(e)) setCurveError(e instanceof Error ? e.message : String(e));
     } finally {
@@ -199,14 +205,20 @@ export function SpinTracePanel({
       {traceError ? <Alert tone="warning" title="Spin trace failed">{traceError}</Alert> : null}
 
       {trace && traceSeries ? (
-        <>
-          <LinePlot title="Transverse magnetization after switch-on" xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="u (1)" series={traceSeries.uxy} width={width} height={240} banner={trace.banner} svgRef={svgA} />
+        <div data-testid="spin-trace-result" data-stale={traceStale ? "true" : "false"} className="space-y-3">
+          {traceStale ? (
+            <p role="status" data-testid="spin-trace-stale" className="rounded-md border border-ember bg-ember-light px-3 py-2 text-sm text-ink">
+              {traceStale}
+            </p>
+          ) : null}
+          <div className={traceStale ? "space-y-3 opacity-60" : "space-y-3"}>
+          <LinePlot title={`Transverse magnetization after switch-on at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`} xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="u (1)" series={traceSeries.uxy} width={width} height={240} banner={trace.banner} svgRef={svgA} />
           <PlotExportButtons svgRef={svgA} fileBase={`${fileBase}-spin-trace-uxy`} plotName="transverse magnetization plot" />
-          <LinePlot title="Longitudinal magnetization: uz − s" xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="uz − s (1)" series={traceSeries.uz} width={width} height={200} legend={false} svgRef={svgB} />
+          <LinePlot title={`Longitudinal magnetization: uz − s at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`} xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="uz − s (1)" series={traceSeries.uz} width={width} height={200} legend={false} svgRef={svgB} />
           <PlotExportButtons svgRef={svgB} fileBase={`${fileBase}-spin-trace-uz`} plotName="longitudinal magnetization plot" />
           <table className="w-full max-w-3xl text-sm tabular-nums">
             <caption className="text-left font-semibold">
-              Susceptibility at {fmt(view.wavelengthNm, 5)} nm
+              Susceptibility at {fmt(trace.inputs.wavelengthNm, 5)} nm{traceStale ? " (stale)" : ""}
               {trace.banner ? <span className="ml-2 text-xs font-semibold text-ember">{trace.banner}</span> : null}
             </caption>
             <thead className="text-left text-xs text-ink-soft">
@@ -235,7 +247,8 @@ export function SpinTracePanel({
               </tr>
             </tbody>
           </table>
-        </>
+          </div>
+        </div>
       ) : traceState === "running" ? (
         <p role="status" className="text-sm text-ink-soft">Integrating the LLG equation in a worker…</p>
       ) : (
@@ -253,9 +266,14 @@ export function SpinTracePanel({
         </div>
         {curveError ? <Alert tone="warning" title="ΔMz curve failed">{curveError}</Alert> : null}
         {curve && curveSeries ? (
-          <>
+          <div data-stale={curveStale ? "true" : "false"} className="space-y-2">
+            {curveStale ? (
+              <p role="status" className="rounded-md border border-ember bg-ember-light px-3 py-2 text-sm text-ink">
+                {curveStale}
+              </p>
+            ) : null}
             <LinePlot
-              title="Static change of Mz against optical intensity (numerical LLG, log-log)"
+              title={`Static change of Mz against optical intensity at ${fmt(curve.inputs.wavelengthNm, 5)} nm (numerical LLG, log-log)${curveStale ? " (stale)" : ""}`}
               xs={curve.intensity}
               xType="log"
               yType="log"
@@ -269,7 +287,7 @@ export function SpinTracePanel({
             />
             <p className="text-xs text-ink-soft">ΔMz has the opposite sign to M0 (the cone shortens Mz, §4.5); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.</p>
             <PlotExportButtons svgRef={svgC} fileBase={`${fileBase}-delta-mz`} plotName="ΔMz against intensity plot" />
-          </>
+          </div>
         ) : null}
       </div>
     </div>

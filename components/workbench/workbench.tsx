@@ -28,6 +28,7 @@ import { SpectrumPanels } from "./spectrum-panels";
 import { SpinTracePanel } from "./spin-trace-panel";
 import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
+import { AbsorptionPanel, OpaqueNote } from "./absorption-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useViewState, type ViewSaveStatus } from "./use-view-state";
 
@@ -177,6 +178,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
                 fileBase={fileBase}
                 methodLabel={methodLabel}
               />
+              <OpaqueNote points={run.shown.result.points} lengthM={geometry.lengthM} />
               <MarkerTable
                 markersNm={viewState.markersNm}
                 result={run.shown.markers}
@@ -188,6 +190,9 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
                 onReset={resetMarkers}
               />
               <ExportBar shown={run.shown} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} />
+              <PanelFrame title="Absorption and transmission">
+                <AbsorptionPanel points={run.shown.result.points} markerPoints={run.shown.markers?.points ?? null} lengthM={geometry.lengthM} xUnit={viewState.xUnit} xScale={viewState.xScale} banner={scaleLabel} fileBase={fileBase} />
+              </PanelFrame>
             </>
           ) : (
             <EmptyResult invalid={invalid} />
@@ -209,7 +214,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
             </PanelFrame>
           ) : null}
           {viewState.panels.maps ? (
-            <PanelFrame title="Maps of the magnetic share">
+            <PanelFrame title="Maps over wavelength × temperature and field">
               <MapsPanel pool={sidePool} params={params} range={range} fileBase={fileBase} />
             </PanelFrame>
           ) : null}

@@ -63,8 +63,22 @@ function concat(parts: (Float64Array | undefined)[]): Float64Array | undefined {
  */
 export function mergeArrays(request: SpectrumRequest, parts: SpectrumArrays[]): SpectrumArrays {
   if (parts.length === 0) throw new Error("mergeArrays: no chunks");
-  const col = (key: "wavelengthNm" | "thetaRad" | "thetaElectricRad" | "thetaMagneticRad" | "thetaCrossRad" | "ellipticityRad" | "magneticShare" | "verdetRadPerTm") =>
-    concat(parts.map((p) => p[key]))!;
+  const col = (
+    key:
+      | "wavelengthNm"
+      | "thetaRad"
+      | "thetaElectricRad"
+      | "thetaMagneticRad"
+      | "thetaCrossRad"
+      | "ellipticityRad"
+      | "magneticShare"
+      | "verdetRadPerTm"
+      | "absorptionPlusPerM"
+      | "absorptionMinusPerM"
+      | "transmissionPlus"
+      | "transmissionMinus"
+      | "ellipticityAngleRad",
+  ) => concat(parts.map((p) => p[key]))!;
   const merged: SpectrumArrays = {
     magnetizationAPerM: parts[0]!.magnetizationAPerM,
     wavelengthNm: col("wavelengthNm"),
@@ -75,8 +89,15 @@ export function mergeArrays(request: SpectrumRequest, parts: SpectrumArrays[]): 
     ellipticityRad: col("ellipticityRad"),
     magneticShare: col("magneticShare"),
     verdetRadPerTm: col("verdetRadPerTm"),
+    absorptionPlusPerM: col("absorptionPlusPerM"),
+    absorptionMinusPerM: col("absorptionMinusPerM"),
+    transmissionPlus: col("transmissionPlus"),
+    transmissionMinus: col("transmissionMinus"),
+    ellipticityAngleRad: col("ellipticityAngleRad"),
     warnings: [],
   };
+  const dia = concat(parts.map((p) => p.thetaDiamagneticRad));
+  if (dia) merged.thetaDiamagneticRad = dia;
   const dPlus = concat(parts.map((p) => p.deltaMzPlusAPerM));
   const dMinus = concat(parts.map((p) => p.deltaMzMinusAPerM));
   if (dPlus && dMinus) {

@@ -19,6 +19,12 @@ function spectrumTransferables(a: SpectrumArrays): ArrayBuffer[] {
     a.verdetRadPerTm,
     a.deltaMzPlusAPerM,
     a.deltaMzMinusAPerM,
+    a.thetaDiamagneticRad,
+    a.absorptionPlusPerM,
+    a.absorptionMinusPerM,
+    a.transmissionPlus,
+    a.transmissionMinus,
+    a.ellipticityAngleRad,
     a.flags,
   ];
   return arrays.filter((x): x is Float64Array | Uint8Array => x !== undefined).map((x) => x.buffer as ArrayBuffer);

@@ -1,5 +1,5 @@
-import type { ModelParamKey } from "@/lib/physics/schema";
-import { PARAM_META } from "./param-meta";
+import type { ModelFlagKey, ModelParamKey, NumericModelParamKey } from "@/lib/physics/schema";
+import { FLAG_META, PARAM_META } from "./param-meta";
 
 /*
  * Field-by-field comparison of two snapshots of a parameter set, for the history page and the
@@ -11,7 +11,7 @@ export interface SetSnapshot {
   name: string;
   description: string;
   tags: readonly string[];
-  params: Partial<Record<ModelParamKey, number>>;
+  params: Partial<Record<NumericModelParamKey, number> & Record<ModelFlagKey, boolean>>;
 }
 
 export type DiffFieldKey = "name" | "description" | "tags" | ModelParamKey;
@@ -81,7 +81,18 @@ export function diffSnapshots(before: SetSnapshot, after: SetSnapshot): FieldDif
       changed: !sameNumber(a, b),
     });
   }
+  // A switch that was never stored is off (its default), so old versions do not show a change.
+  for (const meta of FLAG_META) {
+    const a = before.params[meta.key] === true;
+    const b = after.params[meta.key] === true;
+    rows.push({ key: meta.key, label: meta.label, unit: "", before: formatFlag(a), after: formatFlag(b), changed: a !== b });
+  }
   return rows;
+}
+
+/** A model switch as the diff and the read-only view say it. */
+export function formatFlag(on: boolean | undefined): string {
+  return on === true ? "on" : "off";
 }
 
 export function changedFields(before: SetSnapshot, after: SetSnapshot): FieldDiff[] {

@@ -1,4 +1,4 @@
-import type { ModelParamKey } from "@/lib/physics/schema";
+import type { ModelFlagKey, NumericModelParamKey } from "@/lib/physics/schema";
 
 /*
  * What a scientist needs to fill in a model parameter: label, unit, one sentence of help and a
@@ -7,7 +7,7 @@ import type { ModelParamKey } from "@/lib/physics/schema";
  */
 
 export interface ParamMeta {
-  key: ModelParamKey;
+  key: NumericModelParamKey;
   label: string;
   /** Unit as shown to the user (plain text). */
   unit: string;
@@ -50,6 +50,23 @@ export const PARAM_META: readonly ParamMeta[] = [
     help: "Applied field μ0·H along the beam; negative points against the propagation. 1 T is a typical rotator magnet." },
   { key: "lengthM", label: "Sample length", unit: "m", step: "any", group: "conditions",
     help: "Optical path through the sample along the field; a 10 mm crystal is 0.01 m." },
+];
+
+/**
+ * The model's on/off switches, shown as labelled checkboxes. Kept apart from PARAM_META (the
+ * numeric parameters), so nothing that walks the numbers (number boxes, ranges, a fit's free
+ * parameters) can pick a switch up.
+ */
+export interface FlagMeta {
+  key: ModelFlagKey;
+  label: string;
+  help: string;
+  group: ParamMeta["group"];
+}
+
+export const FLAG_META: readonly FlagMeta[] = [
+  { key: "diamagneticTerm", label: "Diamagnetic (bound-electron) term", group: "optics",
+    help: "Adds the classical bound-electron gyration of every pole of ε (physics-model §5.5, the Becquerel form V = (e/2mₑc) λ |dn/dλ|). It follows the field, not the spins, so with it the share moves with temperature and field and a set without spins still rotates. Off by default." },
 ];
 
 export const PARAM_GROUP_LABEL: Record<ParamMeta["group"], string> = {

@@ -28,6 +28,11 @@ export const materialShape = {
   oscillatorDampingRadPerS: finite("oscillator damping").min(0, "must be ≥ 0 rad/s").max(1e17, "must be ≤ 1e17 rad/s"),
   gyrationPerT: finite("gyration").min(-10, "must be ≥ −10 T⁻¹").max(10, "must be ≤ 10 T⁻¹"),
   magneticScale: finite("magnetic scale").min(0, "must be ≥ 0").max(1000, "must be ≤ 1000").default(1),
+  /**
+   * The classical bound-electron (diamagnetic) gyration of §5.5, added to G when true. A switch,
+   * not a number, so it never appears among the numeric parameters a fit may free. Absent = off.
+   */
+  diamagneticTerm: z.boolean({ error: "diamagneticTerm must be true or false" }).optional(),
 } as const;
 
 /** Measurement conditions. */
@@ -56,6 +61,11 @@ export const modelParamsSchema = z
 export type ModelParams = z.infer<typeof modelParamsSchema>;
 export type ModelParamsInput = z.input<typeof modelParamsSchema>;
 export type ModelParamKey = keyof ModelParams;
+/** The on/off switches of the model (§5.5); never freed by a fit, never shown as a number box. */
+export type ModelFlagKey = "diamagneticTerm";
+/** The numeric model parameters: the ones a form shows as number boxes and a fit may vary. */
+export type NumericModelParamKey = Exclude<ModelParamKey, ModelFlagKey>;
+export const MODEL_FLAG_KEYS: readonly ModelFlagKey[] = ["diamagneticTerm"];
 
 export const MAX_WAVELENGTHS = 5000;
 

@@ -3,11 +3,12 @@
  * parts (physics-model.md). Pure and synchronous at its core; an async chunked variant yields to
  * the event loop so a worker can receive cancel messages while it runs.
  */
-import { type Complex, abs, cx, rootDecaying, sub } from "./complex";
+import { type Complex, abs, add, cx, rootDecaying, sub } from "./complex";
 import { MU0_N_PER_A2, VACUUM_IMPEDANCE_OHM, angularFrequencyFromNm, gyromagneticRatio } from "./constants";
 import { deltaMzFromCone, llgSusceptibilities } from "./llg";
 import { staticMagnetization } from "./magnetization";
-import { type DielectricParams, gyration, permittivity, polderSusceptibilities, rotations } from "./optics";
+import { absorptionCoefficientPerM, ellipticityAngleRad, transmissionOf } from "./absorption";
+import { type DielectricParams, diamagneticGyration, diamagneticRotationRad, gyration, permittivity, polderSusceptibilities, rotations } from "./optics";
 import { type SpectrumRequest, formatIssues, spectrumRequestSchema } from "./schema";
 import type { ProgressCallback, SpectrumArrays, SpectrumPoint, SpectrumResult } from "./types";
 
@@ -107,8 +108,15 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
     ellipticityRad: new Float64Array(n),
     magneticShare: new Float64Array(n),
     verdetRadPerTm: new Float64Array(n),
+    absorptionPlusPerM: new Float64Array(n),
+    absorptionMinusPerM: new Float64Array(n),
+    transmissionPlus: new Float64Array(n),
+    transmissionMinus: new Float64Array(n),
+    ellipticityAngleRad: new Float64Array(n),
     warnings: [],
   };
+  const withDiamagnetic = request.diamagneticTerm === true;
+  if (withDiamagnetic) out.thetaDiamagneticRad = new Float64Array(n);
   if (withIntensity) {
     out.deltaMzPlusAPerM = new Float64Array(n);
     out.deltaMzMinusAPerM = new Float64Array(n);
@@ -126,7 +134,10 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
     const wavelengthNm = request.wavelengthsNm[i]!;
     const omega = angularFrequencyFromNm(wavelengthNm);
     const eps = permittivity(ctx.dielectric, wavelengthNm, omega);
-    const g = gyration(ctx.dielectric, ctx.gyrationK, omega);
+    // §5.5: with the diamagnetic term on, G is G + G_dia everywhere; off, G is untouched (bit for bit).
+    const gDia = withDiamagnetic ? diamagneticGyration(ctx.dielectric, fieldT, omega) : null;
+    const gSpin = gyration(ctx.dielectric, ctx.gyrationK, omega);
+    const g = gDia ? add(gSpin, gDia) : gSpin;
     const nIso = rootDecaying(eps).re;
 
     // Passivity (§5.3): Im ε± = −ΓE ω ωE (f ωE ± 2Kω)/|D|²; with ΓE = 0 both are exactly real.
@@ -183,8 +194,14 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
     const denom = Math.abs(rot.thetaElectricRad) + Math.abs(rot.thetaMagneticRad);
     const share = denom === 0 ? null : Math.abs(rot.thetaMagneticRad) / denom;
     const verdet = fieldT === 0 ? null : rot.thetaRad / (fieldT * lengthM);
+    const thetaDia = gDia ? diamagneticRotationRad(omega, lengthM, eps, gDia) : null;
+    const alphaPlus = absorptionCoefficientPerM(omega, rot.nPlus.im);
+    const alphaMinus = absorptionCoefficientPerM(omega, rot.nMinus.im);
 
     const values: [string, number | null][] = [
+      ["thetaDiamagneticRad", thetaDia],
+      ["absorptionPlusPerM", alphaPlus],
+      ["absorptionMinusPerM", alphaMinus],
       ["thetaRad", rot.thetaRad],
       ["thetaElectricRad", rot.thetaElectricRad],
       ["thetaMagneticRad", rot.thetaMagneticRad],
@@ -205,6 +222,13 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
     out.ellipticityRad[i] = rot.ellipticityRad;
     out.magneticShare[i] = nullable(share);
     out.verdetRadPerTm[i] = nullable(verdet);
+    if (thetaDia !== null) out.thetaDiamagneticRad![i] = thetaDia;
+    out.absorptionPlusPerM[i] = alphaPlus;
+    out.absorptionMinusPerM[i] = alphaMinus;
+    // Gain (α < 0, §5.3) can overflow exp: the transmission is then +∞, which the UI shows as gain.
+    out.transmissionPlus[i] = transmissionOf(alphaPlus, lengthM);
+    out.transmissionMinus[i] = transmissionOf(alphaMinus, lengthM);
+    out.ellipticityAngleRad[i] = ellipticityAngleRad(rot.ellipticityRad);
 
     if (withIntensity) {
       let dPlus: number | null = 0;
@@ -348,7 +372,13 @@ export function arraysToResult(a: SpectrumArrays): SpectrumResult {
       ellipticityRad: a.ellipticityRad[i]!,
       magneticShare: orNull(a.magneticShare[i]!),
       verdetRadPerTm: orNull(a.verdetRadPerTm[i]!),
+      absorptionPlusPerM: a.absorptionPlusPerM[i]!,
+      absorptionMinusPerM: a.absorptionMinusPerM[i]!,
+      transmissionPlus: a.transmissionPlus[i]!,
+      transmissionMinus: a.transmissionMinus[i]!,
+      ellipticityAngleRad: a.ellipticityAngleRad[i]!,
     };
+    if (a.thetaDiamagneticRad) p.thetaDiamagneticRad = a.thetaDiamagneticRad[i]!;
     if (a.deltaMzPlusAPerM && a.deltaMzMinusAPerM) {
       p.deltaMzPlusAPerM = orNull(a.deltaMzPlusAPerM[i]!);
       p.deltaMzMinusAPerM = orNull(a.deltaMzMinusAPerM[i]!);

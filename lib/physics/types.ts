@@ -17,6 +17,22 @@ export interface SpectrumPoint {
   /** Static change of Mz under the "+" / "−" circular drive (only with an intensity). */
   deltaMzPlusAPerM?: number | null;
   deltaMzMinusAPerM?: number | null;
+  /**
+   * Rotation of the diamagnetic term alone (§5.5), a sub-part of θe; only when diamagneticTerm is on.
+   */
+  thetaDiamagneticRad?: number;
+  /*
+   * Absorption (lib/physics/absorption.ts). Every result of this engine carries them; they are
+   * optional so that results saved before they existed still read.
+   */
+  /** Intensity absorption coefficient α± = −2 ω Im n± / c of each circular mode (1/m; < 0 is gain). */
+  absorptionPlusPerM?: number;
+  absorptionMinusPerM?: number;
+  /** Internal one-pass transmission exp(−α± L) of each circular mode (surface reflections excluded). */
+  transmissionPlus?: number;
+  transmissionMinus?: number;
+  /** Ellipticity angle of the transmitted light, atan(tanh η) (§1); |·| ≤ π/4. */
+  ellipticityAngleRad?: number;
 }
 
 export interface SpectrumResult {
@@ -46,6 +62,13 @@ export interface SpectrumArrays {
   verdetRadPerTm: Float64Array;
   deltaMzPlusAPerM?: Float64Array;
   deltaMzMinusAPerM?: Float64Array;
+  /** Only when diamagneticTerm is on (§5.5). */
+  thetaDiamagneticRad?: Float64Array;
+  absorptionPlusPerM: Float64Array;
+  absorptionMinusPerM: Float64Array;
+  transmissionPlus: Float64Array;
+  transmissionMinus: Float64Array;
+  ellipticityAngleRad: Float64Array;
   maxRelDeviationFromAnalytic?: number;
   warnings: string[];
   /**

@@ -1,4 +1,5 @@
 import type { ModelParams } from "@/lib/physics/schema";
+import type { SpectrumPoint } from "@/lib/physics/types";
 import { parseNumber } from "./validate";
 import { wavelengthGrid } from "./units";
 import type { WavelengthRange } from "./view-state";
@@ -258,4 +259,137 @@ export function moveCell(cell: Cell | null, key: string, nx: number, ny: number,
 export function formatShare(v: number | null | undefined): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return "undefined (no magnetic or electric rotation)";
   return `${(v * 100).toFixed(1)} %`;
+}
+
+/* ---------- what a map shows ---------- */
+
+/** The quantities a map can show; all come from the same row runs. */
+export type MapQuantity = "share" | "theta" | "thetaElectric" | "thetaMagnetic" | "verdet";
+
+export const MAP_QUANTITIES: readonly MapQuantity[] = ["share", "theta", "thetaElectric", "thetaMagnetic", "verdet"];
+
+export const MAP_QUANTITY_VIEW: Record<MapQuantity, { label: string; short: string; unit: string; file: string }> = {
+  share: { label: "Magnetic share |θm| / (|θe| + |θm|)", short: "magnetic share", unit: "%", file: "share" },
+  theta: { label: "Rotation θ", short: "θ", unit: "rad", file: "theta" },
+  thetaElectric: { label: "Electric-dipole part θe", short: "θe", unit: "rad", file: "theta-electric" },
+  thetaMagnetic: { label: "Magnetic-dipole part θm", short: "θm", unit: "rad", file: "theta-magnetic" },
+  verdet: { label: "Verdet constant V", short: "V", unit: "rad/(T·m)", file: "verdet" },
+};
+
+/** The value a map cell shows for a computed point (share as a fraction 0…1; null where undefined). */
+export function quantityOf(point: SpectrumPoint, q: MapQuantity): number | null {
+  switch (q) {
+    case "share":
+      return point.magneticShare;
+    case "theta":
+      return point.thetaRad;
+    case "thetaElectric":
+      return point.thetaElectricRad;
+    case "thetaMagnetic":
+      return point.thetaMagneticRad;
+    case "verdet":
+      return point.verdetRadPerTm;
+  }
+}
+
+/** A value of a quantity with its unit, as the readout and the legend say it. */
+export function formatQuantity(v: number | null | undefined, q: MapQuantity): string {
+  if (q === "share") return formatShare(v);
+  if (v === null || v === undefined || !Number.isFinite(v)) return "undefined";
+  const abs = Math.abs(v);
+  const text = v === 0 ? "0" : abs >= 1e5 || abs < 1e-3 ? v.toExponential(2).replace("e+", "e") : String(Number(v.toPrecision(4)));
+  return `${text} ${MAP_QUANTITY_VIEW[q].unit}`;
+}
+
+/**
+ * The largest change along the second axis within one wavelength column, relative to the largest
+ * |value| in that column, over all columns; null when no column has two defined values. A column
+ * of zeros counts as constant (0).
+ */
+export function maxColumnChange(values: readonly (number | null)[], nx: number, ny: number): { relative: number; column: number } | null {
+  let best: { relative: number; column: number } | null = null;
+  for (let i = 0; i < nx; i++) {
+    let lo = Infinity;
+    let hi = -Infinity;
+    let big = 0;
+    let count = 0;
+    for (let j = 0; j < ny; j++) {
+      const v = values[j * nx + i];
+      if (v === null || v === undefined || !Number.isFinite(v)) continue;
+      lo = Math.min(lo, v);
+      hi = Math.max(hi, v);
+      big = Math.max(big, Math.abs(v));
+      count++;
+    }
+    if (count < 2) continue;
+    const relative = big === 0 ? 0 : (hi - lo) / big;
+    if (!best || relative > best.relative) best = { relative, column: i };
+  }
+  return best;
+}
+
+/** Relative change below which a column counts as constant along the second axis (round-off level). */
+export const CONSTANT_REL_TOL = 1e-9;
+
+export interface AxisIndependence {
+  /** True: the map would be vertical stripes; show the words and a curve against wavelength instead. */
+  independent: boolean;
+  /** Why, in words, for above the map; null when the quantity does depend on the axis. */
+  reason: string | null;
+}
+
+const AXIS_NAME: Record<MapKind, string> = { temperature: "temperature", field: "field" };
+
+/**
+ * Whether a map's quantity depends on its second axis, from the model and from the data:
+ * - the model: without the diamagnetic term both parts scale with M0 (physics-model §6.4), so the
+ *   magnetic share depends on wavelength only, to first order in G and χ;
+ * - the data: every column constant to CONSTANT_REL_TOL (e.g. no spins, or B0 = 0).
+ */
+export function axisIndependence(
+  q: MapQuantity,
+  kind: MapKind,
+  diamagneticTerm: boolean,
+  change: { relative: number } | null,
+): AxisIndependence {
+  const axis = AXIS_NAME[kind];
+  const what = MAP_QUANTITY_VIEW[q].short;
+  const measured = change === null ? "" : ` Largest relative change along the ${axis} axis in this map: ${change.relative === 0 ? "0" : change.relative.toExponential(1)}.`;
+  if (change === null) {
+    return { independent: true, reason: `The ${what} is undefined on this whole map (for example, no field or no rotation), so there is nothing to draw.` };
+  }
+  if (change.relative <= CONSTANT_REL_TOL) {
+    return {
+      independent: true,
+      reason: `The ${what} does not depend on ${axis} here: every wavelength column is constant to 1e-9.${measured} Shown against wavelength only.`,
+    };
+  }
+  if (q === "share" && !diamagneticTerm) {
+    return {
+      independent: true,
+      reason: `In this model the magnetic share does not depend on ${axis}: without the diamagnetic term both parts scale with the static magnetization M0 (physics-model §6.4), so only wavelength separates them (to first order in the gyration and χ).${measured} Shown against wavelength only; switch on the diamagnetic term for a part that does not follow M0.`,
+    };
+  }
+  return { independent: false, reason: null };
+}
+
+/** The colour range of a map: the share on 0…1, other quantities on their own finite range. */
+export function quantityDomain(values: readonly (number | null)[], q: MapQuantity): [number, number] {
+  if (q === "share") return [0, 1];
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of values) {
+    if (v === null || !Number.isFinite(v)) continue;
+    lo = Math.min(lo, v);
+    hi = Math.max(hi, v);
+  }
+  if (!Number.isFinite(lo)) return [0, 1];
+  if (lo === hi) return lo === 0 ? [-1, 1] : [lo - Math.abs(lo) * 0.5, hi + Math.abs(hi) * 0.5];
+  return [lo, hi];
+}
+
+/** Contour levels: 50 % for the share; the sign change (0) where a signed quantity crosses it. */
+export function quantityLevels(domain: [number, number], q: MapQuantity): number[] {
+  if (q === "share") return [0.5];
+  return domain[0] < 0 && domain[1] > 0 ? [0] : [];
 }

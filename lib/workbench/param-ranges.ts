@@ -1,4 +1,4 @@
-import type { ModelParamKey } from "@/lib/physics/schema";
+import type { NumericModelParamKey } from "@/lib/physics/schema";
 
 /*
  * The valid range of each parameter as shown beside its field. It mirrors the bounds in
@@ -25,7 +25,7 @@ function fmtBound(x: number): string {
   return Math.abs(x) >= 1e5 ? x.toExponential().replace("e+", "e") : String(x);
 }
 
-export const PARAM_RANGES: Record<ModelParamKey, ParamRange> = {
+export const PARAM_RANGES: Record<NumericModelParamKey, ParamRange> = {
   ionDensityPerM3: r(0, 1e30, false, " m⁻³"),
   landeG: r(0, 10, true),
   totalJ: { min: 0.5, max: 50, minExclusive: false, text: "1/2, 1, 3/2, … ≤ 50" },

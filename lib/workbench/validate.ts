@@ -1,6 +1,6 @@
 import type { z } from "zod";
 import { modelParamsSchema, spectrumRequestSchema, type ModelParamKey, type ModelParams, type SpectrumRequest } from "@/lib/physics/schema";
-import { PARAM_META } from "@/lib/model/param-meta";
+import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 import { rangeSchema, type WavelengthRange } from "./view-state";
 import { wavelengthGrid } from "./units";
 
@@ -10,12 +10,14 @@ import { wavelengthGrid } from "./units";
  * out-of-range value is flagged at its field and never sent to the worker.
  */
 
+/** What the user typed, per parameter; a switch (FLAG_META) is held as "true" or "false". */
 export type ParamDrafts = Record<ModelParamKey, string>;
 export type FieldErrors<K extends string> = Partial<Record<K, string>>;
 
 export function draftsFromParams(params: ModelParams): ParamDrafts {
   const out = {} as ParamDrafts;
   for (const m of PARAM_META) out[m.key] = String(params[m.key] ?? "");
+  for (const f of FLAG_META) out[f.key] = params[f.key] === true ? "true" : "false";
   return out;
 }
 
@@ -29,7 +31,8 @@ export function parseNumber(text: string): number | null {
 
 export function validateParams(drafts: ParamDrafts): { params: ModelParams | null; errors: FieldErrors<ModelParamKey> } {
   const errors: FieldErrors<ModelParamKey> = {};
-  const candidate: Record<string, number> = {};
+  const candidate: Record<string, number | boolean> = {};
+  for (const f of FLAG_META) candidate[f.key] = drafts[f.key] === "true";
   for (const m of PARAM_META) {
     const v = parseNumber(drafts[m.key] ?? "");
     if (v === null) errors[m.key] = "must be a number";

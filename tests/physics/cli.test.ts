@@ -29,7 +29,21 @@ describe("command line", () => {
     expect(out.magnetizationAPerM).toBeGreaterThan(0);
     expect(out.points).toHaveLength(2);
     expect(Object.keys(out.points[0]).sort()).toEqual(
-      ["ellipticityRad", "magneticShare", "thetaCrossRad", "thetaElectricRad", "thetaMagneticRad", "thetaRad", "verdetRadPerTm", "wavelengthNm"].sort(),
+      [
+        "absorptionMinusPerM",
+        "absorptionPlusPerM",
+        "ellipticityAngleRad",
+        "ellipticityRad",
+        "magneticShare",
+        "thetaCrossRad",
+        "thetaElectricRad",
+        "thetaMagneticRad",
+        "thetaRad",
+        "transmissionMinus",
+        "transmissionPlus",
+        "verdetRadPerTm",
+        "wavelengthNm",
+      ].sort(),
     );
     // Published TGG −134 rad/(T m) at 632.8 nm (Wikipedia "Verdet constant"; sources and tolerance in
     // spectrum.test.ts), which is also the product reference value the §9 κE is calibrated to; ±0.5 here.
@@ -45,6 +59,20 @@ describe("command line", () => {
     const z = JSON.parse(run(JSON.stringify({ ...valid, fieldT: 0 })).stdout);
     expect(z.points[0].magneticShare).toBeNull();
     expect(z.points[0].verdetRadPerTm).toBeNull();
+  });
+
+  it("takes the diamagnetic switch (§5.5): a per-point diamagnetic part when on, a one-line error when not a boolean", () => {
+    const on = run(JSON.stringify({ ...valid, diamagneticTerm: true }));
+    expect(on.status).toBe(0);
+    const p = JSON.parse(on.stdout).points[0];
+    // Diamagnetic sign (§8): the bound-electron part alone rotates with V > 0 for B0 > 0.
+    expect(p.thetaDiamagneticRad).toBeGreaterThan(0);
+    const off = JSON.parse(run(JSON.stringify({ ...valid, diamagneticTerm: false })).stdout).points[0];
+    expect(off.thetaDiamagneticRad).toBeUndefined();
+    const bad = run(JSON.stringify({ ...valid, diamagneticTerm: "yes" }));
+    expect(bad.status).toBe(2);
+    expect(bad.stderrLines).toHaveLength(1);
+    expect(bad.stderrLines[0]).toMatch(/^diamagneticTerm: /);
   });
 
   it("rejects an unknown key with exit 2 and one line naming it", () => {

@@ -1,14 +1,14 @@
 import { describe, expect, it } from "vitest";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import { changedFields, diffSnapshots, formatValue, type SetSnapshot } from "@/lib/model/diff";
-import { PARAM_META } from "@/lib/model/param-meta";
+import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 
 const base: SetSnapshot = { name: "TGG 293 K", description: "Room temperature", tags: ["tgg", "garnet"], params: TERBIUM_GARNET_DEFAULTS };
 
 describe("diffSnapshots", () => {
   it("lists name, description, tags and every model parameter, none changed for identical snapshots", () => {
     const rows = diffSnapshots(base, { ...base, params: { ...base.params } });
-    expect(rows.map((r) => r.key)).toEqual(["name", "description", "tags", ...PARAM_META.map((m) => m.key)]);
+    expect(rows.map((r) => r.key)).toEqual(["name", "description", "tags", ...PARAM_META.map((m) => m.key), ...FLAG_META.map((m) => m.key)]);
     expect(rows.some((r) => r.changed)).toBe(false);
   });
 
@@ -28,6 +28,14 @@ describe("diffSnapshots", () => {
     const { fieldT: _dropped, ...rest } = TERBIUM_GARNET_DEFAULTS;
     const rows = changedFields(base, { ...base, params: rest });
     expect(rows).toEqual([{ key: "fieldT", label: "Field B0", unit: "T", before: "1", after: "—", changed: true }]);
+  });
+
+  it("reads a switch that was never stored as off, and shows a switched term as off → on", () => {
+    const { diamagneticTerm: _absent, ...old } = { ...TERBIUM_GARNET_DEFAULTS, diamagneticTerm: undefined };
+    expect(changedFields({ ...base, params: old }, { ...base, params: { ...old, diamagneticTerm: false } })).toEqual([]);
+    expect(changedFields({ ...base, params: old }, { ...base, params: { ...old, diamagneticTerm: true } })).toEqual([
+      { key: "diamagneticTerm", label: "Diamagnetic (bound-electron) term", unit: "", before: "off", after: "on", changed: true },
+    ]);
   });
 
   it("tells apart values that differ only far down the mantissa", () => {

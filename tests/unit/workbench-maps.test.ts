@@ -1,6 +1,17 @@
 import { describe, expect, it } from "vitest";
+import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import type { ModelParams } from "@/lib/physics/schema";
+import { computeSpectrum } from "@/lib/physics/spectrum";
 import {
+  axisIndependence,
+  CONSTANT_REL_TOL,
+  formatQuantity,
+  MAP_QUANTITIES,
+  maxColumnChange,
+  quantityDomain,
+  quantityLevels,
+  quantityOf,
+  type MapQuantity,
   cellAt,
   DEFAULT_FIELD_AXIS,
   formatShare,
@@ -175,5 +186,75 @@ describe("progress and caption", () => {
   it("formats the share", () => {
     expect(formatShare(0.1234)).toBe("12.3 %");
     expect(formatShare(null)).toMatch(/undefined/);
+  });
+});
+
+describe("what a map shows and when it says so in words", () => {
+  it("finds the largest change along the second axis, column by column", () => {
+    // 3 columns × 2 rows; column 1 changes by 2 of its largest |value| 4 → 0.5.
+    const values = [1, 2, 0, 1, 4, 0];
+    expect(maxColumnChange(values, 3, 2)).toEqual({ relative: 0.5, column: 1 });
+    expect(maxColumnChange([null, null, 1, null], 2, 2)).toBeNull();
+    expect(maxColumnChange([0, 0, 0, 0], 2, 2)).toEqual({ relative: 0, column: 0 });
+  });
+
+  it("says a quantity constant to 1e-9 along the axis does not depend on it", () => {
+    const r = axisIndependence("theta", "temperature", true, { relative: 5e-10 });
+    expect(r.independent).toBe(true);
+    expect(r.reason).toMatch(/does not depend on temperature/);
+    expect(axisIndependence("theta", "temperature", true, { relative: 0.3 }).independent).toBe(false);
+    expect(axisIndependence("verdet", "field", false, null).reason).toMatch(/undefined/);
+  });
+
+  it("knows from the model that the share is independent of T and B without the diamagnetic term, and not with it", () => {
+    expect(axisIndependence("share", "temperature", false, { relative: 3e-6 }).independent).toBe(true);
+    expect(axisIndependence("share", "field", false, { relative: 3e-6 }).reason).toMatch(/diamagnetic term/);
+    expect(axisIndependence("share", "temperature", true, { relative: 3e-3 }).independent).toBe(false);
+  });
+
+  it("reads each quantity from a computed point, and ranges and levels fit the quantity", () => {
+    const p = { wavelengthNm: 632.8, thetaRad: -1.34, thetaElectricRad: -1.385, thetaMagneticRad: 0.045, thetaCrossRad: 0, ellipticityRad: 0, magneticShare: 0.031, verdetRadPerTm: -134 };
+    expect(MAP_QUANTITIES.map((q) => quantityOf(p, q))).toEqual([0.031, -1.34, -1.385, 0.045, -134]);
+    expect(quantityDomain([0.2, 0.4], "share")).toEqual([0, 1]);
+    expect(quantityDomain([-3, null, 2], "theta")).toEqual([-3, 2]);
+    expect(quantityLevels([-3, 2], "theta")).toEqual([0]);
+    expect(quantityLevels([-3, -2], "verdet")).toEqual([]);
+    expect(quantityLevels([0, 1], "share")).toEqual([0.5]);
+    expect(formatQuantity(-134, "verdet")).toBe("-134 rad/(T·m)");
+  });
+});
+
+describe("maps computed by the engine", () => {
+  const rowsOf = (kind: "temperature" | "field", over: Partial<ModelParams>, q: MapQuantity) => {
+    const base = { ...TERBIUM_GARNET_DEFAULTS, ...over };
+    const planned = planMap(kind, "analytic", base, range, DEFAULT_FIELD_AXIS);
+    if (!planned.plan) throw new Error("no plan");
+    const plan = planned.plan;
+    const values: (number | null)[] = [];
+    plan.ys.forEach((_, j) => {
+      const r = computeSpectrum({ ...rowParams(plan, base, j), wavelengthsNm: plan.xs, method: "analytic" });
+      for (const pt of r.points) values.push(quantityOf(pt, q));
+    });
+    return maxColumnChange(values, plan.xs.length, plan.ys.length);
+  };
+
+  it("without the diamagnetic term the share is stripes (first-order constant); with it the share moves with T and B", () => {
+    // Both parts ∝ M0 (§6.4): only the second-order terms in G and χ move the share.
+    const offT = rowsOf("temperature", {}, "share")!.relative;
+    const offB = rowsOf("field", { temperatureK: 4 }, "share")!.relative;
+    const onT = rowsOf("temperature", { diamagneticTerm: true }, "share")!.relative;
+    const onB = rowsOf("field", { diamagneticTerm: true, temperatureK: 4 }, "share")!.relative;
+    // Off: below 1e-5 (measured 1.2e-7 over T, 1.6e-6 over B at 4 K). On: the diamagnetic part does
+    // not follow M0, so the share moves by ~20 % over 1–400 K; over B only where M0 saturates (4 K).
+    expect(offT).toBeLessThan(1e-5);
+    expect(offB).toBeLessThan(1e-5);
+    expect(onT).toBeGreaterThan(0.05);
+    expect(onB).toBeGreaterThan(100 * offB);
+  });
+
+  it("no spins with the term on: θ is exactly the same at every temperature (detected from the data)", () => {
+    const change = rowsOf("temperature", { ionDensityPerM3: 0, diamagneticTerm: true }, "theta")!;
+    expect(change.relative).toBeLessThanOrEqual(CONSTANT_REL_TOL);
+    expect(axisIndependence("theta", "temperature", true, change).independent).toBe(true);
   });
 });
