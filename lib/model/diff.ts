@@ -1,4 +1,5 @@
 import type { ModelParamKey } from "@/lib/physics/schema";
+import { formatNumberInput } from "./number-text";
 import { PARAM_META } from "./param-meta";
 
 /*
@@ -32,9 +33,7 @@ export interface FieldDiff {
  */
 export function formatValue(value: number | undefined): string {
   if (value === undefined || Number.isNaN(value)) return "—";
-  const magnitude = Math.abs(value);
-  if (value !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return value.toExponential().replace("e+", "e");
-  return String(value);
+  return formatNumberInput(value);
 }
 
 function normaliseTags(tags: readonly string[]): string[] {
