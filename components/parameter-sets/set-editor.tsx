@@ -1,7 +1,6 @@
 "use client";
 
 import { useQueryClient } from "@tanstack/react-query";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
@@ -15,7 +14,7 @@ import { formatIssues, modelParamsSchema } from "@/lib/physics/schema";
 import { ConflictBanner, type MergePreview } from "./conflict-banner";
 import { setFormResolver, showServerError, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { SetFields } from "./set-fields";
-import { useUnsavedGuard } from "./use-unsaved-guard";
+import { useGuardedRouter, useUnsavedGuard } from "./use-unsaved-guard";
 
 function currentFromConflict(error: ApiError): ParameterSet | null {
   const body = error.body as { error?: { current?: ParameterSet }; current?: ParameterSet } | null;
@@ -27,7 +26,7 @@ function currentFromConflict(error: ApiError): ParameterSet | null {
  * a save over someone else's newer version is refused (409) instead of silently replacing it.
  */
 export function SetEditor({ initial }: { initial: ParameterSet }) {
-  const router = useRouter();
+  const router = useGuardedRouter();
   const queryClient = useQueryClient();
   const [base, setBase] = useState(initial);
   const [conflict, setConflict] = useState<ParameterSet | null>(null);
@@ -43,7 +42,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
   });
   const update = useUpdateParameterSet(initial.id);
   const remove = useDeleteParameterSet(initial.id);
-  useUnsavedGuard(form.formState.isDirty);
+  const guard = useUnsavedGuard(form.formState.isDirty);
 
   const loadServerVersion = (item: ParameterSet) => {
     setBase(item);
@@ -140,6 +139,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
         onConfirm={() =>
           remove.mutate(undefined, {
             onSuccess: () => {
+              guard.release();
               form.reset(form.getValues());
               router.push("/parameter-sets");
             },
@@ -148,6 +148,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
       >
         The set and all its versions disappear for everyone in the lab. The audit log keeps a record that it existed.
       </ConfirmDialog>
+      {guard.dialog}
     </form>
   );
 }
