@@ -49,7 +49,7 @@ export function PlotFrame({
         {title}
       </text>
       {banner ? (
-        <text x={left} y={BANNER_Y} fontSize={11} fill="#b4541a" fontWeight={600}>
+        <text x={left} y={BANNER_Y} fontSize={11} fill="#a0470f" fontWeight={600}>
           {banner}
         </text>
       ) : null}
