@@ -63,7 +63,7 @@ function assignRef<T>(ref: Ref<T> | undefined, value: T | null) {
 }
 
 function HeatMapImpl({ title, xs, ys, xType, yType, values, levels, xLabel, yLabel, width, height = 300, banner, svgRef, describeCell }: HeatMapProps) {
-  const M = { ...MARGIN, top: frameTop(banner) };
+  const M = { ...MARGIN, top: frameTop(banner, { title, width, left: MARGIN.left }) };
   const uid = useId().replace(/[^\w-]/g, "");
   const legendId = `heat-legend-${uid}`;
   const hintId = `heat-hint-${uid}`;
