@@ -51,7 +51,14 @@ export function RailMenu({ brand, children }: { brand: ReactNode; children: Reac
           Menu
         </button>
       </div>
-      <div id="rail-panel" className={`${open ? "flex" : "hidden"} flex-col md:flex md:min-h-0 md:flex-1`}>
+      {/* Following a link closes the menu, also a link to the page already shown. */}
+      <div
+        id="rail-panel"
+        className={`${open ? "flex" : "hidden"} flex-col md:flex md:min-h-0 md:flex-1`}
+        onClick={(event) => {
+          if ((event.target as Element).closest("a")) setOpen(false);
+        }}
+      >
         {children}
       </div>
     </>
