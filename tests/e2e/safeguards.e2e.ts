@@ -243,6 +243,21 @@ describe("safeguards in the browser", () => {
     });
   });
 
+  it("checks the name in Save as new as it is typed, so no stale message stays", async () => {
+    await withPage(DEMO.editor, "save-as-new", async (page) => {
+      await page.goto("/workbench", { timeout: 120_000 });
+      await page.getByRole("button", { name: "Save as new parameter set" }).click({ timeout: 60_000 });
+      const form = page.getByRole("form", { name: "Save as new parameter set" });
+      const name = form.getByLabel("Name", { exact: true });
+      expect(await name.getAttribute("maxlength")).toBe("120");
+      await name.fill("   ");
+      await form.getByRole("button", { name: "Save", exact: true }).click();
+      await form.getByText("Enter a name.").waitFor();
+      await name.fill("What-if from the browser test");
+      await expect.poll(() => form.getByText("Enter a name.").count()).toBe(0);
+    });
+  });
+
   it("creates a set from the form without asking to leave", async () => {
     await withPage(DEMO.editor, "create-no-guard", async (page) => {
       await page.goto("/parameter-sets/new");
