@@ -47,3 +47,13 @@ wait_for_http() {
   log "no answer from $url"
   return 1
 }
+
+# A fingerprint of everything the production build is made from (sources, lock file, config), so
+# `npm run demo` can skip `next build` when nothing changed since the last one.
+build_fingerprint() {
+  {
+    find app components lib workers db public types proxy.ts next.config.mjs package-lock.json \
+      tailwind.config.ts postcss.config.mjs tsconfig.json -type f -print0 2>/dev/null | LC_ALL=C sort -z | xargs -0 sha256sum
+    echo "distDir=${GYROLUX_NEXT_DIST_DIR:-.next}"
+  } | sha256sum | cut -d' ' -f1
+}

@@ -16,7 +16,14 @@ ensure_auth_secret
 bash db/pg.sh start
 npx tsx db/migrate.ts
 npx tsx db/seed.ts
-log "building the production app"
-npx next build
+build_dir="${GYROLUX_NEXT_DIST_DIR:-.next}"
+fingerprint="$(build_fingerprint)"
+if [ "${GYROLUX_FORCE_BUILD:-0}" != 1 ] && [ -f "$build_dir/BUILD_ID" ] && [ "$(cat "$build_dir/gyrolux-build-fingerprint" 2>/dev/null)" = "$fingerprint" ]; then
+  log "the production build in $build_dir is up to date; skipping next build (GYROLUX_FORCE_BUILD=1 rebuilds)"
+else
+  log "building the production app"
+  npx next build
+  echo "$fingerprint" > "$build_dir/gyrolux-build-fingerprint"
+fi
 log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Ctrl-C stops the web server; 'bash db/pg.sh stop' stops PostgreSQL."
 exec npx next start -p "$PORT"

@@ -19,14 +19,19 @@ export GYROLUX_TEST_OUTPUT="${GYROLUX_TEST_OUTPUT:-$PWD/test-results}"
 export NODE_ENV=production
 export AUTH_SECRET="test-secret-$(date +%s%N)-$$-not-for-production"
 export AUTH_TRUST_HOST=true
+# Its own build folder: a demo served from this checkout keeps its .next untouched.
+export GYROLUX_NEXT_DIST_DIR="${GYROLUX_TEST_NEXT_DIST_DIR:-.next-test}"
 
 started=$(date +%s)
 server_pid=""
+pg_was_running=0
 cleanup() {
   local rc=$?
   # The server runs in its own process group so that it and every child it forked stop together.
   [ -n "$server_pid" ] && kill -- "-$server_pid" 2>/dev/null || true
   bash db/pg.sh drop-db "$RUN_DB" >/dev/null 2>&1 || true
+  # Stop the test database only when this run started it.
+  [ "$pg_was_running" = 0 ] && { bash db/pg.sh stop >/dev/null 2>&1 || true; }
   log "npm test finished in $(( $(date +%s) - started )) s (exit $rc)"
   exit $rc
 }
@@ -34,6 +39,7 @@ trap cleanup EXIT
 
 ensure_node_modules
 ensure_chromium
+bash db/pg.sh status >/dev/null 2>&1 && pg_was_running=1
 bash db/pg.sh start
 bash db/pg.sh create-db "$RUN_DB"
 npx tsx db/migrate.ts

@@ -7,7 +7,11 @@ function withUnit(value: string, unit: string): string {
   return unit && value !== "—" && value !== "" ? `${value} ${unit}` : value || "—";
 }
 
-/** Both snapshots side by side; changed rows are tinted and labelled, so colour is not the only cue. */
+/**
+ * One row per field. A changed field reads as a sentence: old value → new value, each with its
+ * unit, and beside it how much a number moved relative to where it was. The arrow and the words
+ * carry the change; the tint of the row only repeats it.
+ */
 export function DiffTable({ rows, beforeLabel, afterLabel, caption }: { rows: FieldDiff[]; beforeLabel: string; afterLabel: string; caption: string }) {
   const [onlyChanged, setOnlyChanged] = useState(true);
   const changedCount = rows.filter((r) => r.changed).length;
@@ -34,22 +38,40 @@ export function DiffTable({ rows, beforeLabel, afterLabel, caption }: { rows: Fi
                   Field
                 </th>
                 <th scope="col" className="px-3 py-2 text-left font-semibold">
-                  {beforeLabel}
+                  {beforeLabel} <span aria-hidden="true">→</span>
+                  <span className="sr-only">to</span> {afterLabel}
                 </th>
-                <th scope="col" className="px-3 py-2 text-left font-semibold">
-                  {afterLabel}
+                <th scope="col" className="px-3 py-2 text-right font-semibold">
+                  Relative change
                 </th>
               </tr>
             </thead>
             <tbody className="divide-y divide-ink/10">
               {shown.map((row) => (
-                <tr key={row.key} className={row.changed ? "bg-ember-light/60" : ""}>
-                  <th scope="row" className="px-3 py-2 text-left font-medium">
+                <tr key={row.key} className={row.changed ? "bg-lux-light/40" : ""}>
+                  <th scope="row" className={`border-l-4 px-3 py-2 text-left align-top font-medium ${row.changed ? "border-lux" : "border-transparent"}`}>
                     {row.label}
-                    {row.changed ? <span className="ml-2 rounded bg-ember px-1.5 py-0.5 text-xs font-semibold text-white">changed</span> : null}
                   </th>
-                  <td className="px-3 py-2 break-words tabular-nums">{withUnit(row.before, row.unit)}</td>
-                  <td className={`px-3 py-2 break-words tabular-nums ${row.changed ? "font-semibold" : ""}`}>{withUnit(row.after, row.unit)}</td>
+                  <td className="px-3 py-2 break-words tabular-nums [overflow-wrap:anywhere]">
+                    {row.changed ? (
+                      <>
+                        <span className="text-ink-soft">{withUnit(row.before, row.unit)}</span>
+                        <span aria-hidden="true" className="px-1.5 text-lux-dark">
+                          →
+                        </span>
+                        <span className="sr-only"> changed to </span>
+                        <span>{withUnit(row.after, row.unit)}</span>
+                      </>
+                    ) : (
+                      <>
+                        {withUnit(row.after, row.unit)}
+                        <span className="sr-only"> (unchanged)</span>
+                      </>
+                    )}
+                  </td>
+                  <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums text-ink-soft">
+                    {row.relative ?? (row.changed ? "edited" : "")}
+                  </td>
                 </tr>
               ))}
             </tbody>

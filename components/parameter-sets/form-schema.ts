@@ -3,6 +3,7 @@ import type { FieldErrors, Resolver, UseFormReturn } from "react-hook-form";
 import { z } from "zod";
 import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 import { modelParamsSchema, type ModelParamKey } from "@/lib/physics/schema";
+import { descriptionSchema, setNameSchema, tagsSchema } from "@/lib/api/schemas";
 import type { ParameterSet } from "@/lib/query/types";
 import { ApiError, describeError } from "@/lib/query/fetcher";
 import type { SetSnapshot } from "@/lib/model/diff";
@@ -13,17 +14,15 @@ export function parseTags(text: string): string[] {
 }
 
 /*
- * The form's schema wraps the model's own modelParamsSchema unchanged, so the form enforces exactly
- * the ranges the API enforces.
+ * The form's schema is made of the API's own field schemas (lib/api/schemas.ts) and the model's
+ * modelParamsSchema, unchanged, so the form enforces exactly the limits the API enforces; only the
+ * tag box's text is split into a list first.
  */
 export const setFormSchema = z.object({
   labId: z.string().min(1, "Choose a lab"),
-  name: z.string().trim().min(1, "Required").max(200, "At most 200 characters"),
-  description: z.string().trim().max(4000, "At most 4000 characters"),
-  tags: z
-    .string()
-    .transform(parseTags)
-    .pipe(z.array(z.string().max(40, "Each tag at most 40 characters")).max(20, "At most 20 tags")),
+  name: setNameSchema,
+  description: descriptionSchema,
+  tags: z.string().transform(parseTags).pipe(tagsSchema),
   params: modelParamsSchema,
 });
 
@@ -32,17 +31,49 @@ export type SetFormOutput = z.output<typeof setFormSchema>;
 
 const zod = zodResolver(setFormSchema);
 
+/**
+ * What a number box holds in the form: the number, NaN for an empty box, or the text itself when
+ * it is not a number (see ParamInput), so the message can tell "Required" from "Not a number".
+ */
+export type ParamBoxValue = number | string;
+
+export const REQUIRED_MESSAGE = "Required";
+export const NOT_A_NUMBER_MESSAGE = "Not a number";
+
+/** The first message in a nested error (a list's per-item errors are reported on the list). */
+function firstMessage(error: unknown): string | undefined {
+  if (!error || typeof error !== "object") return undefined;
+  const message = (error as { message?: unknown }).message;
+  if (typeof message === "string") return message;
+  for (const value of Object.values(error)) {
+    const nested = firstMessage(value);
+    if (nested) return nested;
+  }
+  return undefined;
+}
+
 /*
- * Number inputs are read with valueAsNumber, so an empty box arrives as NaN and the schema would
- * say "must be a number"; for an empty box "Required" is the helpful message.
+ * Two adjustments to zod's errors: an empty number box says "Required" and unreadable text says
+ * "Not a number" (the model schema would say "must be a number" for both), and a per-tag error
+ * ("Each tag at most 40 characters.") is shown on the tag box, which has no per-tag fields.
  */
 export const setFormResolver: Resolver<SetFormInput, unknown, SetFormOutput> = async (values, context, options) => {
   const result = await zod(values, context, options);
-  const empty = PARAM_META.filter((meta) => Number.isNaN(values.params?.[meta.key]));
-  if (empty.length === 0) return result;
-  const paramErrors: Record<string, { type: string; message: string }> = { ...(result.errors.params as object | undefined) };
-  for (const meta of empty) paramErrors[meta.key] = { type: "required", message: "Required" };
-  return { values: {}, errors: { ...result.errors, params: paramErrors } as FieldErrors<SetFormInput> };
+  const boxes = (values.params ?? {}) as Partial<Record<ModelParamKey, ParamBoxValue>>;
+  const empty = PARAM_META.filter((meta) => typeof boxes[meta.key] === "number" && Number.isNaN(boxes[meta.key]));
+  const unreadable = PARAM_META.filter((meta) => typeof boxes[meta.key] === "string");
+  const tagsError = result.errors.tags;
+  const tagsNeedMessage = tagsError !== undefined && typeof tagsError.message !== "string";
+  if (empty.length === 0 && unreadable.length === 0 && !tagsNeedMessage) return result;
+  const errors: Record<string, unknown> = { ...result.errors };
+  if (tagsNeedMessage) errors.tags = { type: "too_big", message: firstMessage(tagsError) ?? "Check the tags." };
+  if (empty.length > 0 || unreadable.length > 0) {
+    const paramErrors: Record<string, { type: string; message: string }> = { ...(result.errors.params as object | undefined) };
+    for (const meta of empty) paramErrors[meta.key] = { type: "required", message: REQUIRED_MESSAGE };
+    for (const meta of unreadable) paramErrors[meta.key] = { type: "nan", message: NOT_A_NUMBER_MESSAGE };
+    errors.params = paramErrors;
+  }
+  return { values: {}, errors: errors as FieldErrors<SetFormInput> };
 };
 
 export function toFormValues(set: Pick<ParameterSet, "labId" | "name" | "description" | "tags" | "params">): SetFormInput {
@@ -74,8 +105,11 @@ export function mapServerFields(fields: Record<string, string>): { field: [FormF
   const other: string[] = [];
   for (const [path, message] of Object.entries(fields)) {
     const bare = path.startsWith("params.") ? path.slice("params.".length) : path;
+    const top = path.split(".")[0] ?? path;
     if (PARAM_KEYS.has(bare)) field.push([`params.${bare as ModelParamKey}`, message]);
     else if (TOP_FIELDS.has(path)) field.push([path as FormFieldPath, message]);
+    // "tags.3": the form has one box for all tags.
+    else if (top === "tags") field.push(["tags", message]);
     else other.push(`${path}: ${message}`);
   }
   return { field, other };

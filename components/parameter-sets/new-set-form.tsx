@@ -1,6 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
@@ -10,11 +9,11 @@ import { useCreateParameterSet } from "@/lib/query/parameter-sets";
 import type { Lab } from "@/lib/query/types";
 import { setFormResolver, showServerError, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { SetFields } from "./set-fields";
-import { useUnsavedGuard } from "./use-unsaved-guard";
+import { useGuardedRouter, useUnsavedGuard } from "./use-unsaved-guard";
 
 /** A new set starts from the terbium-garnet defaults in the first lab the caller can edit. */
 export function NewSetForm({ labs, initialLabId }: { labs: Lab[]; initialLabId?: string }) {
-  const router = useRouter();
+  const router = useGuardedRouter();
   const create = useCreateParameterSet();
   const [generalError, setGeneralError] = useState<string | null>(null);
   const labId = labs.some((l) => l.id === initialLabId) ? initialLabId! : (labs[0]?.id ?? "");
@@ -24,12 +23,15 @@ export function NewSetForm({ labs, initialLabId }: { labs: Lab[]; initialLabId?:
     resolver: setFormResolver,
     mode: "onTouched",
   });
-  useUnsavedGuard(form.formState.isDirty && !create.isSuccess);
+  const guard = useUnsavedGuard(form.formState.isDirty && !create.isSuccess);
 
   const onSubmit = form.handleSubmit((values) => {
     setGeneralError(null);
     create.mutate(values, {
-      onSuccess: (item) => router.push(`/parameter-sets/${item.id}`),
+      onSuccess: (item) => {
+        guard.release();
+        router.push(`/parameter-sets/${item.id}`);
+      },
       onError: (error) => setGeneralError(showServerError(form, error)),
     });
   });
@@ -46,6 +48,7 @@ export function NewSetForm({ labs, initialLabId }: { labs: Lab[]; initialLabId?:
           {create.isPending ? "Creating…" : "Create parameter set"}
         </Button>
       </div>
+      {guard.dialog}
     </form>
   );
 }

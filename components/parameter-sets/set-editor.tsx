@@ -1,7 +1,6 @@
 "use client";
 
 import { useQueryClient } from "@tanstack/react-query";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
@@ -10,10 +9,12 @@ import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { ApiError, describeError } from "@/lib/query/fetcher";
 import { parameterSetQuery, useDeleteParameterSet, useUpdateParameterSet } from "@/lib/query/parameter-sets";
 import type { ParameterSet } from "@/lib/query/types";
-import { ConflictBanner } from "./conflict-banner";
+import { mergeOntoNewer } from "@/lib/model/merge";
+import { formatIssues, modelParamsSchema } from "@/lib/physics/schema";
+import { ConflictBanner, type MergePreview } from "./conflict-banner";
 import { setFormResolver, showServerError, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { SetFields } from "./set-fields";
-import { useUnsavedGuard } from "./use-unsaved-guard";
+import { useGuardedRouter, useUnsavedGuard } from "./use-unsaved-guard";
 
 function currentFromConflict(error: ApiError): ParameterSet | null {
   const body = error.body as { error?: { current?: ParameterSet }; current?: ParameterSet } | null;
@@ -25,13 +26,14 @@ function currentFromConflict(error: ApiError): ParameterSet | null {
  * a save over someone else's newer version is refused (409) instead of silently replacing it.
  */
 export function SetEditor({ initial }: { initial: ParameterSet }) {
-  const router = useRouter();
+  const router = useGuardedRouter();
   const queryClient = useQueryClient();
   const [base, setBase] = useState(initial);
   const [conflict, setConflict] = useState<ParameterSet | null>(null);
   const [generalError, setGeneralError] = useState<string | null>(null);
   const [savedVersion, setSavedVersion] = useState<number | null>(null);
   const [confirmDelete, setConfirmDelete] = useState(false);
+  const [preview, setPreview] = useState<(MergePreview & { params: SetFormOutput["params"] | null; error: string | null }) | null>(null);
 
   const form = useForm<SetFormInput, unknown, SetFormOutput>({
     defaultValues: toFormValues(initial),
@@ -40,11 +42,12 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
   });
   const update = useUpdateParameterSet(initial.id);
   const remove = useDeleteParameterSet(initial.id);
-  useUnsavedGuard(form.formState.isDirty);
+  const guard = useUnsavedGuard(form.formState.isDirty);
 
   const loadServerVersion = (item: ParameterSet) => {
     setBase(item);
     setConflict(null);
+    setPreview(null);
     form.reset(toFormValues(item));
   };
 
@@ -62,6 +65,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
           if (error instanceof ApiError && error.code === "stale_version") {
             const current = currentFromConflict(error) ?? (await queryClient.fetchQuery({ ...parameterSetQuery(initial.id), staleTime: 0 }));
             setConflict(current);
+            setPreview(null);
             return;
           }
           setGeneralError(showServerError(form, error));
@@ -71,9 +75,24 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
   };
 
   const onSave = form.handleSubmit((values) => save(values, base.version));
-  const onOverwrite = form.handleSubmit((values) => {
-    if (conflict) save(values, conflict.version);
+  // Only this user's changes (form vs. the version they started from) go on top of the newer version.
+  const onPreviewMerge = form.handleSubmit((values) => {
+    if (!conflict) return;
+    const { merged, mine, clashes } = mergeOntoNewer({ base, mine: values, theirs: conflict });
+    const checked = modelParamsSchema.safeParse(merged.params);
+    setPreview({
+      merged,
+      mine,
+      clashes,
+      params: checked.success ? checked.data : null,
+      error: checked.success ? null : `The merged values cannot be saved together: ${formatIssues(checked.error).join("; ")}. Edit the form, then try again.`,
+    });
   });
+  const onSaveMerged = () => {
+    if (!conflict || !preview?.params) return;
+    const { merged } = preview;
+    save({ labId: conflict.labId, name: merged.name, description: merged.description, tags: [...merged.tags], params: preview.params }, conflict.version);
+  };
 
   return (
     <form onSubmit={onSave} noValidate className="space-y-6">
@@ -82,7 +101,11 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
           current={conflict}
           mine={form.watch()}
           pending={update.isPending}
-          onOverwrite={() => void onOverwrite()}
+          preview={preview}
+          previewError={preview?.error ?? null}
+          onPreviewMerge={() => void onPreviewMerge()}
+          onCancelMerge={() => setPreview(null)}
+          onSaveMerged={onSaveMerged}
           onDiscard={() => loadServerVersion(conflict)}
         />
       ) : null}
@@ -116,6 +139,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
         onConfirm={() =>
           remove.mutate(undefined, {
             onSuccess: () => {
+              guard.release();
               form.reset(form.getValues());
               router.push("/parameter-sets");
             },
@@ -124,6 +148,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
       >
         The set and all its versions disappear for everyone in the lab. The audit log keeps a record that it existed.
       </ConfirmDialog>
+      {guard.dialog}
     </form>
   );
 }

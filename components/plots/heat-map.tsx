@@ -92,7 +92,7 @@ function HeatMapImpl({
   const [lo, hi] = domain;
   const span = hi - lo || 1;
   const toUnit = (v: number) => Math.min(1, Math.max(0, (v - lo) / span));
-  const M = { ...MARGIN, top: frameTop(banner) };
+  const M = { ...MARGIN, top: frameTop(banner, { title, width, left: MARGIN.left }) };
   const uid = useId().replace(/[^\w-]/g, "");
   const legendId = `heat-legend-${uid}`;
   const hintId = `heat-hint-${uid}`;

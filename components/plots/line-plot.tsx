@@ -55,7 +55,7 @@ const MARGIN = { right: 18, bottom: 50, left: 76 };
 
 function LinePlotImpl(props: LinePlotProps) {
   const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true } = props;
-  const M = { ...MARGIN, top: frameTop(banner) };
+  const M = { ...MARGIN, top: frameTop(banner, { title, width, left: MARGIN.left }) };
   const clipId = `clip-${useId().replace(/[^\w-]/g, "")}`;
   const innerW = Math.max(40, width - M.left - M.right);
   const legendRows = useMemo(() => (legend && series.length > 1 ? layoutLegend(series, innerW) : []), [legend, series, innerW]);

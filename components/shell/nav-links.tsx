@@ -19,7 +19,7 @@ function isActive(pathname: string, href: string): boolean {
 export function NavLinks() {
   const pathname = usePathname();
   return (
-    <ul className="flex gap-1 overflow-x-auto md:flex-col md:overflow-visible">
+    <ul className="flex flex-col gap-1">
       {NAV_ITEMS.map((item) => {
         const active = isActive(pathname, item.href);
         return (

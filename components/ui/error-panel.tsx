@@ -3,6 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { ApiError, describeError } from "@/lib/query/fetcher";
 import { Button } from "./button";
+import { NotFoundContent } from "./not-found-content";
 
 interface Health {
   status: string;
@@ -16,7 +17,16 @@ async function fetchHealth(): Promise<Health> {
   return (await response.json()) as Health;
 }
 
+/**
+ * A failed load. A 404 (an unknown id, or a set of a lab the caller is not in: the API answers both
+ * alike) is not "something went wrong" and no retry will fix it, so it gets the not-found page.
+ */
 export function ErrorPanel({ error, retry }: { error: unknown; retry?: () => void }) {
+  if (error instanceof ApiError && error.status === 404) return <NotFoundContent />;
+  return <LoadErrorPanel error={error} retry={retry} />;
+}
+
+function LoadErrorPanel({ error, retry }: { error: unknown; retry?: () => void }) {
   const health = useQuery({ queryKey: ["health"], queryFn: fetchHealth, retry: false, staleTime: 0 });
   const databaseDown =
     (error instanceof ApiError && error.code === "db_unavailable") || health.data?.database === "down";

@@ -1,4 +1,5 @@
 import type { ModelFlagKey, ModelParamKey, NumericModelParamKey } from "@/lib/physics/schema";
+import { formatNumberInput } from "./number-text";
 import { FLAG_META, PARAM_META } from "./param-meta";
 
 /*
@@ -24,6 +25,8 @@ export interface FieldDiff {
   before: string;
   after: string;
   changed: boolean;
+  /** For a changed number: "+12.5 %", "−73.7 %", "×1000", "sign reversed", "from 0"; else null. */
+  relative: string | null;
 }
 
 /**
@@ -32,9 +35,30 @@ export interface FieldDiff {
  */
 export function formatValue(value: number | undefined): string {
   if (value === undefined || Number.isNaN(value)) return "—";
-  const magnitude = Math.abs(value);
-  if (value !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return value.toExponential().replace("e+", "e");
-  return String(value);
+  return formatNumberInput(value);
+}
+
+const MINUS = "\u2212";
+
+function signed(text: string, negative: boolean): string {
+  return `${negative ? MINUS : "+"}${text}`;
+}
+
+/**
+ * How much a number changed, relative to where it was: a percentage for ordinary changes (three
+ * significant digits), a factor once the value grows or shrinks tenfold or more, and words where a
+ * ratio means nothing (from or to 0, or a change of sign).
+ */
+export function describeRelativeChange(before: number | undefined, after: number | undefined): string | null {
+  if (before === undefined || after === undefined || Number.isNaN(before) || Number.isNaN(after) || before === after) return null;
+  if (before === 0) return "from 0";
+  if (after === 0) return "to 0";
+  if (Math.sign(before) !== Math.sign(after)) return "sign reversed";
+  const ratio = after / before;
+  if (ratio >= 10 || ratio <= 0.1) return `×${formatNumberInput(Number(ratio.toPrecision(3)))}`;
+  const percent = (ratio - 1) * 100;
+  const shown = Math.abs(percent) >= 0.01 ? String(Number(Math.abs(percent).toPrecision(3))) : Math.abs(percent).toExponential(1).replace("e+", "e");
+  return `${signed(shown, percent < 0)} %`;
 }
 
 function normaliseTags(tags: readonly string[]): string[] {
@@ -51,7 +75,7 @@ export function diffSnapshots(before: SetSnapshot, after: SetSnapshot): FieldDif
   const beforeTags = normaliseTags(before.tags);
   const afterTags = normaliseTags(after.tags);
   const rows: FieldDiff[] = [
-    { key: "name", label: "Name", unit: "", before: before.name, after: after.name, changed: before.name !== after.name },
+    { key: "name", label: "Name", unit: "", before: before.name, after: after.name, changed: before.name !== after.name, relative: null },
     {
       key: "description",
       label: "Description",
@@ -59,6 +83,7 @@ export function diffSnapshots(before: SetSnapshot, after: SetSnapshot): FieldDif
       before: before.description,
       after: after.description,
       changed: before.description !== after.description,
+      relative: null,
     },
     {
       key: "tags",
@@ -67,6 +92,7 @@ export function diffSnapshots(before: SetSnapshot, after: SetSnapshot): FieldDif
       before: beforeTags.join(", "),
       after: afterTags.join(", "),
       changed: beforeTags.join("\u0000") !== afterTags.join("\u0000"),
+      relative: null,
     },
   ];
   for (const meta of PARAM_META) {
@@ -79,13 +105,14 @@ export function diffSnapshots(before: SetSnapshot, after: SetSnapshot): FieldDif
       before: formatValue(a),
       after: formatValue(b),
       changed: !sameNumber(a, b),
+      relative: describeRelativeChange(a, b),
     });
   }
   // A switch that was never stored is off (its default), so old versions do not show a change.
   for (const meta of FLAG_META) {
     const a = before.params[meta.key] === true;
     const b = after.params[meta.key] === true;
-    rows.push({ key: meta.key, label: meta.label, unit: "", before: formatFlag(a), after: formatFlag(b), changed: a !== b });
+    rows.push({ key: meta.key, label: meta.label, unit: "", before: formatFlag(a), after: formatFlag(b), changed: a !== b, relative: null });
   }
   return rows;
 }

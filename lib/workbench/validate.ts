@@ -1,6 +1,7 @@
 import type { z } from "zod";
 import { modelParamsSchema, spectrumRequestSchema, type ModelParamKey, type ModelParams, type SpectrumRequest } from "@/lib/physics/schema";
 import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
+import { formatNumberInput, parseDecimalOrNull } from "@/lib/model/number-text";
 import { rangeSchema, type WavelengthRange } from "./view-state";
 import { wavelengthGrid } from "./units";
 
@@ -16,17 +17,14 @@ export type FieldErrors<K extends string> = Partial<Record<K, string>>;
 
 export function draftsFromParams(params: ModelParams): ParamDrafts {
   const out = {} as ParamDrafts;
-  for (const m of PARAM_META) out[m.key] = String(params[m.key] ?? "");
+  for (const m of PARAM_META) out[m.key] = formatNumberInput(params[m.key]);
   for (const f of FLAG_META) out[f.key] = params[f.key] === true ? "true" : "false";
   return out;
 }
 
-/** Accepts "1.27e28", " 293.15 ", "−8" (typographic minus) and "1,5" is rejected (ambiguous). */
+/** Accepts "1.27e28", " 293.15 ", "−8" (typographic minus) and a decimal comma ("1,5"); see parseDecimal. */
 export function parseNumber(text: string): number | null {
-  const t = text.trim().replace(/\u2212/g, "-");
-  if (t === "" || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(t)) return null;
-  const v = Number(t);
-  return Number.isFinite(v) ? v : null;
+  return parseDecimalOrNull(text);
 }
 
 export function validateParams(drafts: ParamDrafts): { params: ModelParams | null; errors: FieldErrors<ModelParamKey> } {

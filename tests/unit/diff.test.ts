@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
-import { changedFields, diffSnapshots, formatValue, type SetSnapshot } from "@/lib/model/diff";
+import { changedFields, describeRelativeChange, diffSnapshots, formatValue, type SetSnapshot } from "@/lib/model/diff";
 import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 
 const base: SetSnapshot = { name: "TGG 293 K", description: "Room temperature", tags: ["tgg", "garnet"], params: TERBIUM_GARNET_DEFAULTS };
@@ -14,27 +14,27 @@ describe("diffSnapshots", () => {
 
   it("marks a changed parameter with its unit and both values", () => {
     const rows = changedFields(base, { ...base, params: { ...base.params, temperatureK: 77 } });
-    expect(rows).toEqual([{ key: "temperatureK", label: "Temperature", unit: "K", before: "293.15", after: "77", changed: true }]);
+    expect(rows).toEqual([{ key: "temperatureK", label: "Temperature", unit: "K", before: "293.15", after: "77", changed: true, relative: "\u221273.7 %" }]);
   });
 
   it("marks text fields and ignores tag order, spacing and duplicates", () => {
     const rows = changedFields(base, { ...base, name: "TGG 77 K", tags: [" garnet", "tgg", "tgg"] });
     expect(rows.map((r) => r.key)).toEqual(["name"]);
     const tagRows = changedFields(base, { ...base, tags: ["tgg"] });
-    expect(tagRows).toEqual([{ key: "tags", label: "Tags", unit: "", before: "garnet, tgg", after: "tgg", changed: true }]);
+    expect(tagRows).toEqual([{ key: "tags", label: "Tags", unit: "", before: "garnet, tgg", after: "tgg", changed: true, relative: null }]);
   });
 
   it("treats a missing value (half-filled form) as a change shown as a dash", () => {
     const { fieldT: _dropped, ...rest } = TERBIUM_GARNET_DEFAULTS;
     const rows = changedFields(base, { ...base, params: rest });
-    expect(rows).toEqual([{ key: "fieldT", label: "Field B0", unit: "T", before: "1", after: "—", changed: true }]);
+    expect(rows).toEqual([{ key: "fieldT", label: "Field B0", unit: "T", before: "1", after: "—", changed: true, relative: null }]);
   });
 
   it("reads a switch that was never stored as off, and shows a switched term as off → on", () => {
     const { diamagneticTerm: _absent, ...old } = { ...TERBIUM_GARNET_DEFAULTS, diamagneticTerm: undefined };
     expect(changedFields({ ...base, params: old }, { ...base, params: { ...old, diamagneticTerm: false } })).toEqual([]);
     expect(changedFields({ ...base, params: old }, { ...base, params: { ...old, diamagneticTerm: true } })).toEqual([
-      { key: "diamagneticTerm", label: "Diamagnetic (bound-electron) term", unit: "", before: "off", after: "on", changed: true },
+      { key: "diamagneticTerm", label: "Diamagnetic (bound-electron) term", unit: "", before: "off", after: "on", changed: true, relative: null },
     ]);
   });
 
@@ -42,6 +42,21 @@ describe("diffSnapshots", () => {
     const rows = changedFields(base, { ...base, params: { ...base.params, ionDensityPerM3: 1.27260001e28 } });
     expect(rows[0]?.before).toBe("1.2726e28");
     expect(rows[0]?.after).toBe("1.27260001e28");
+  });
+});
+
+describe("describeRelativeChange", () => {
+  it("gives percentages, factors and words", () => {
+    expect(describeRelativeChange(293.15, 77)).toBe("\u221273.7 %");
+    expect(describeRelativeChange(1, 1.125)).toBe("+12.5 %");
+    expect(describeRelativeChange(1e13, 1e14)).toBe("×10");
+    expect(describeRelativeChange(0.01, 0.0001)).toBe("×0.01");
+    expect(describeRelativeChange(0, 3)).toBe("from 0");
+    expect(describeRelativeChange(3, 0)).toBe("to 0");
+    expect(describeRelativeChange(-8, 8)).toBe("sign reversed");
+    expect(describeRelativeChange(1.2726e28, 1.27260001e28)).toBe("+7.9e-7 %");
+    expect(describeRelativeChange(5, 5)).toBeNull();
+    expect(describeRelativeChange(5, undefined)).toBeNull();
   });
 });
 

@@ -38,6 +38,13 @@ describe("plot palette", () => {
     expect(new Set(COMPARE_DASHES.map((d) => d ?? "solid")).size).toBe(COMPARE_DASHES.length);
   });
 
+  it("does not fall back to the blue-then-orange default of common plotting libraries for the two parts", () => {
+    const commonDefaults = ["#1f77b4", "#ff7f0e", "#0072b2", "#e69f00", "#d55e00", "#56b4e9"];
+    for (const k of ["electric", "magnetic"] as const) {
+      for (const d of commonDefaults) expect(perceivedDeltaE(SERIES_STYLE[k].color, d, "normal"), `${k} vs ${d}`).toBeGreaterThan(20);
+    }
+  });
+
   it("simulates a known case: pure red and green collapse for a deuteranope", () => {
     expect(perceivedDeltaE("#ff0000", "#00ff00", "normal")).toBeGreaterThan(80);
     expect(perceivedDeltaE("#ff0000", "#00ff00", "deuteranopia")).toBeLessThan(perceivedDeltaE("#ff0000", "#00ff00", "normal") / 2);

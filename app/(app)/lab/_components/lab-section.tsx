@@ -18,6 +18,8 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
   const changeRole = useChangeMemberRole(lab.id);
   const remove = useRemoveMember(lab.id);
   const [removing, setRemoving] = useState<LabMember | null>(null);
+  // A role change takes effect at once for the member, so it is confirmed first.
+  const [roleChange, setRoleChange] = useState<{ member: LabMember; role: LabRole } | null>(null);
   const headingId = `lab-${lab.id}`;
 
   return (
@@ -71,7 +73,7 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
                             id={`role-${lab.id}-${member.userId}`}
                             value={changeRole.isPending && changeRole.variables.userId === member.userId ? changeRole.variables.role : member.role}
                             disabled={changeRole.isPending}
-                            onChange={(event) => changeRole.mutate({ userId: member.userId, role: event.target.value as LabRole })}
+                            onChange={(event) => { changeRole.reset(); setRoleChange({ member, role: event.target.value as LabRole }); }}
                             className={`${INPUT_CLASS} py-1`}
                           >
                             {ROLES.map((role) => (
@@ -116,6 +118,23 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
         }}
       >
         They lose access to the lab&apos;s parameter sets at once. Their earlier versions keep their name.
+      </ConfirmDialog>
+
+      <ConfirmDialog
+        open={roleChange !== null}
+        title={roleChange ? `Make ${roleChange.member.name} ${ROLE_LABEL[roleChange.role].toLowerCase()} of ${lab.name}?` : ""}
+        confirmLabel="Change role"
+        destructive={roleChange !== null && hasRole(roleChange.member.role, roleChange.role) && roleChange.member.role !== roleChange.role}
+        pending={changeRole.isPending}
+        error={changeRole.isError ? describeError(changeRole.error) : null}
+        onCancel={() => setRoleChange(null)}
+        onConfirm={() => {
+          if (roleChange) changeRole.mutate({ userId: roleChange.member.userId, role: roleChange.role }, { onSuccess: () => setRoleChange(null) });
+        }}
+      >
+        {roleChange
+          ? `From ${ROLE_LABEL[roleChange.member.role].toLowerCase()} (${ROLE_MEANING[roleChange.member.role]}) to ${ROLE_LABEL[roleChange.role].toLowerCase()} (${ROLE_MEANING[roleChange.role]}). It takes effect at once.`
+          : null}
       </ConfirmDialog>
     </section>
   );

@@ -20,7 +20,7 @@ function SortHeader({ label, column, sortKey, sortDir, onSort }: { label: string
     <th scope="col" aria-sort={active ? (sortDir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold">
       <button type="button" onClick={() => onSort(column)} className="inline-flex items-center gap-1 rounded hover:text-lux-dark">
         {label}
-        <span aria-hidden="true" className={active ? "text-lux" : "text-ink/30"}>
+        <span aria-hidden="true" className={active ? "text-lux" : "text-ink-faint"}>
           {active ? (sortDir === "asc" ? "▲" : "▼") : "↕"}
         </span>
       </button>
