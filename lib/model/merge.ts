@@ -53,7 +53,8 @@ export function mergeOntoNewer<P extends SetSnapshot["params"]>({ base, mine, th
   // A switch never stored reads as off (its default), as in the version diff.
   for (const meta of FLAG_META) {
     const on = (p: SetSnapshot["params"]) => p[meta.key] === true;
-    (params as SetSnapshot["params"])[meta.key] = pick(meta.key, on(base.params), on(mine.params), on(theirs.params), (x, y) => x === y);
+    const value = pick(meta.key, on(base.params), on(mine.params), on(theirs.params), (x, y) => x === y);
+    if (value || meta.key in theirs.params) (params as SetSnapshot["params"])[meta.key] = value;
   }
   return { merged: { name, description, tags: [...tags], params }, mine: taken, clashes };
 }
