@@ -29,7 +29,8 @@ import { SpinTracePanel } from "./spin-trace-panel";
 import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
-import { useViewState, type ViewSaveStatus } from "./use-view-state";
+import { useViewState, type ViewSource } from "./use-view-state";
+import { ViewControls } from "./view-controls";
 
 export interface WorkbenchSetInfo {
   id: string;
@@ -42,8 +43,7 @@ export interface WorkbenchSetInfo {
 export interface WorkbenchProps {
   set: WorkbenchSetInfo | null;
   initialParams: ModelParams;
-  initialViewState: unknown;
-  canSaveView: boolean;
+  view: ViewSource;
 }
 
 const PANEL_LABEL: Record<PanelKey, string> = {
@@ -53,14 +53,7 @@ const PANEL_LABEL: Record<PanelKey, string> = {
   compare: "Compare",
 };
 
-const SAVE_TEXT: Record<ViewSaveStatus, string> = {
-  local: "View kept in this browser",
-  saved: "View saved with the set",
-  saving: "Saving view…",
-  error: "View not saved",
-};
-
-export function Workbench({ set, initialParams, initialViewState, canSaveView }: WorkbenchProps) {
+export function Workbench({ set, initialParams, view }: WorkbenchProps) {
   // Workers start lazily on first use; the side pool serves maps, compare and the spin trace so
   // that cancelling the main run never cancels them (see createPool).
   const [pools, setPools] = useState<{ main: WorkbenchPool; side: WorkbenchPool } | null>(null);
@@ -75,11 +68,18 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
   const pool = pools?.main ?? null;
   const sidePool = pools?.side ?? null;
 
-  const { viewState, setViewState, saveStatus, saveError } = useViewState({ setId: set?.id ?? null, canSave: canSaveView, initial: initialViewState });
+  const views = useViewState({ setId: set?.id ?? null, source: view });
+  const { viewState, setViewState } = views;
   const onView = useCallback((patch: Partial<ViewState>) => setViewState((v) => ({ ...v, ...patch })), [setViewState]);
 
   const [drafts, setDrafts] = useState<ParamDrafts>(() => draftsFromParams(initialParams));
   const [rangeDrafts, setRangeDrafts] = useState<RangeDrafts>(() => draftsFromRange(viewState.range));
+  // A reset replaces the whole view: re-seed the range inputs from it (state adjusted during render).
+  const [viewEpoch, setViewEpoch] = useState(views.epoch);
+  if (viewEpoch !== views.epoch) {
+    setViewEpoch(views.epoch);
+    setRangeDrafts(draftsFromRange(viewState.range));
+  }
 
   const onParam = useCallback((key: ModelParamKey, text: string) => setDrafts((d) => ({ ...d, [key]: text })), []);
   const { params, errors } = useMemo(() => validateParams(drafts), [drafts]);
@@ -136,12 +136,17 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
               "Starts from the terbium gallium garnet values (physics-model §9). Nothing here is stored until you save it as a set."
             )}
           </p>
-          {set ? (
-            <p className="mt-1 text-xs text-ink-soft">
-              Parameter edits here are what-ifs and do not change the stored set. {SAVE_TEXT[saveStatus]}
-              {saveError ? `: ${saveError}` : saveStatus === "saving" ? "" : "."}
-            </p>
-          ) : null}
+          {set ? <p className="mt-1 text-xs text-ink-soft">Parameter edits here are what-ifs and do not change the stored set.</p> : null}
+          <ViewControls
+            status={views.saveStatus}
+            error={views.saveError}
+            scratch={!set}
+            canShare={set !== null && set.role !== "viewer"}
+            resetting={views.resetting}
+            sharing={views.sharing}
+            onReset={views.resetView}
+            onShare={views.shareView}
+          />
         </div>
         {!set || set.role !== "viewer" ? <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} /> : null}
       </header>
