@@ -5,10 +5,9 @@ import { useCallback, useEffect, useMemo, useState, type ReactNode } from "react
 import type { ModelParamKey, ModelParams } from "@/lib/physics/schema";
 import { createPool, type WorkbenchPool } from "@/lib/workbench/engine";
 import { magneticScaleLabel } from "@/lib/workbench/format";
-import { exportFileName } from "@/lib/workbench/export";
+import { figureCaption, figureFileBase } from "@/lib/workbench/export";
 import {
   buildRequest,
-  computableMarkers,
   draftsFromParams,
   draftsFromRange,
   validateParams,
@@ -29,6 +28,8 @@ import { SpinTracePanel } from "./spin-trace-panel";
 import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
+import { useMarkerValues } from "./use-marker-values";
+import { checkMarkerNm } from "@/lib/workbench/markers";
 import { useViewState, type ViewSource } from "./use-view-state";
 import { ViewControls } from "./view-controls";
 
@@ -96,8 +97,8 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
 
   // A stable request object per distinct input, so memoized children and the run hook see changes only when something changed.
   const built = useMemo(() => (params && range ? buildRequest(params, range, "llg") : { request: null, rangeError: null }), [params, range]);
-  const markersForRun = useMemo(() => (params ? normalizeMarkers(computableMarkers(params, viewState.markersNm)) : []), [params, viewState.markersNm]);
-  const run = useSpectrumRun({ request: built.request, markersNm: markersForRun, pool });
+  const run = useSpectrumRun({ request: built.request, pool });
+  const markerValues = useMarkerValues({ shown: run.shown, markersNm: viewState.markersNm, pool });
 
   // Labels, unit conversions and exports describe the result on screen, which may be older than
   // the inputs (typing, invalid input, failed run); physics-model §4.3 needs the label of that result.
@@ -105,13 +106,23 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
   const geometry = useMemo(() => ({ fieldT: shownParams.fieldT, lengthM: shownParams.lengthM }), [shownParams.fieldT, shownParams.lengthM]);
   const scaleLabel = magneticScaleLabel(shownParams.magneticScale);
   const setName = set?.name ?? "Scratch (terbium garnet defaults)";
-  const fileBase = exportFileName(setName, set ? `v${set.version}` : "scratch", "x").replace(/\.x$/, "");
+  const figureId = useMemo(
+    () => ({
+      setName,
+      version: set?.version ?? null,
+      temperatureK: shownParams.temperatureK,
+      fieldT: shownParams.fieldT,
+      edited: set !== null && JSON.stringify(shownParams) !== JSON.stringify(initialParams),
+    }),
+    [setName, set, shownParams, initialParams],
+  );
+  const fileBase = figureFileBase(figureId);
   const methodLabel = run.shown?.method === "llg" ? "numerical LLG" : "analytic";
   const invalid = params === null || range === null || built.request === null;
 
   const addMarker = useCallback(
     (nm: number) =>
-      setViewState((v) => (v.markersNm.includes(nm) || v.markersNm.length >= MAX_MARKERS ? v : { ...v, markersNm: normalizeMarkers([...v.markersNm, nm]) })),
+      setViewState((v) => (checkMarkerNm(nm, v.markersNm, MAX_MARKERS).error !== null ? v : { ...v, markersNm: normalizeMarkers([...v.markersNm, nm]) })),
     [setViewState],
   );
   const removeMarker = useCallback((nm: number) => setViewState((v) => ({ ...v, markersNm: v.markersNm.filter((m) => m !== nm) })), [setViewState]);
@@ -180,19 +191,22 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
                 onAddMarker={addMarker}
                 banner={scaleLabel}
                 fileBase={fileBase}
+                caption={figureCaption(figureId)}
                 methodLabel={methodLabel}
               />
               <MarkerTable
-                markersNm={viewState.markersNm}
-                result={run.shown.markers}
-                fieldT={geometry.fieldT}
+                rows={markerValues.rows}
+                computing={markerValues.computing}
+                geometry={geometry}
+                xUnit={viewState.xUnit}
+                yMode={viewState.yMode}
                 methodLabel={methodLabel}
                 banner={scaleLabel}
                 onAdd={addMarker}
                 onRemove={removeMarker}
                 onReset={resetMarkers}
               />
-              <ExportBar shown={run.shown} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} />
+              <ExportBar shown={run.shown} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} fileBase={fileBase} display={viewState} />
             </>
           ) : (
             <EmptyResult invalid={invalid} />

@@ -11,6 +11,9 @@ import { X_UNITS, Y_MODES } from "./units";
 
 export const DEFAULT_MARKERS_NM = [632.8, 800, 1064, 1550] as const;
 export const MAX_MARKERS = 24;
+/** Markers are laser lines and band edges: from the deep ultraviolet to the mid-infrared. */
+export const MARKER_MIN_NM = 1;
+export const MARKER_MAX_NM = 5000;
 
 export const rangeSchema = z
   .strictObject({
@@ -42,9 +45,12 @@ export const viewStateSchema = z.object({
   yMode: z.enum(Y_MODES).catch("rad"),
   series: seriesSchema.catch({ total: true, electric: true, magnetic: true, cross: false }),
   showEllipticity: z.boolean().catch(false),
+  // A stored marker outside the accepted range (older views allowed up to 1e7 nm) is dropped, not
+  // the whole list.
   markersNm: z
-    .array(z.number().gt(0).max(1e7))
+    .array(z.number())
     .max(MAX_MARKERS)
+    .transform((nms) => nms.filter((nm) => Number.isFinite(nm) && nm >= MARKER_MIN_NM && nm <= MARKER_MAX_NM))
     .catch([...DEFAULT_MARKERS_NM]),
   range: rangeSchema.catch(DEFAULT_RANGE),
   panels: z
