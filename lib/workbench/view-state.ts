@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { MAX_WAVELENGTHS } from "@/lib/physics/schema";
+import { COMPARE_QUANTITIES } from "./compare";
 import { X_UNITS, Y_MODES } from "./units";
 
 /*
@@ -60,6 +61,8 @@ export const viewStateSchema = z.object({
     .strictObject({ wavelengthNm: z.number().gt(0).max(1e7), intensityWPerM2: z.number().min(0).max(1e20), periods: z.number().int().min(1).max(50) })
     .catch({ wavelengthNm: 632.8, intensityWPerM2: 1e13, periods: 12 }),
   compareSetIds: z.array(z.string().max(100)).max(8).catch([]),
+  // What the compare panel overlays; the Verdet constant compares sets of different B0 and L.
+  compareQuantity: z.enum(COMPARE_QUANTITIES).catch("verdet"),
 });
 
 export type ViewState = z.infer<typeof viewStateSchema>;
