@@ -148,6 +148,7 @@ function LinePlotImpl(props: LinePlotProps) {
   const onPointerDown = (e: PointerEvent<SVGRectElement>) => {
     if (!onXViewChange || e.button !== 0) return;
     press.current = { from: localX(e), dragged: false };
+    swallowClick.current = false;
     e.currentTarget.setPointerCapture?.(e.pointerId);
   };
   const onPointerMove = (e: PointerEvent<SVGRectElement>) => {
@@ -255,6 +256,9 @@ function LinePlotImpl(props: LinePlotProps) {
       role="group"
       aria-label={`${title}. Arrow keys move the cursor${onPick ? ", Enter adds a marker" : ""}${onXViewChange ? "; + and − zoom, 0 shows the whole range" : ""}.`}
       aria-describedby={describedBy}
+      // The drawn domains, for tests and tools that read the page (the axes show them rounded).
+      data-x-domain={`${shownX[0]},${shownX[1]}`}
+      data-y-domain={yScale.domain().join(",")}
       onKeyDown={onKeyDown}
       className="rounded-md focus-visible:outline-2"
     >

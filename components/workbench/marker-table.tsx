@@ -90,8 +90,14 @@ function MarkerTableImpl({
               <tr key={nm} className="border-b border-ink/5 last:border-0" data-source={source}>
                 <th scope="row" className="px-3 py-1.5 text-left font-medium">{`${nm} nm`}</th>
                 {columns.map((c) => (
-                  <td key={c.id} className="px-2.5 py-1.5">
-                    {point ? `${source === "interpolated" ? "≈ " : ""}${FORMAT[c.kind](c.value(point, geometry))}` : "–"}
+                  <td
+                    key={c.id}
+                    // Interpolated stand-ins are set in italics and described, so the number itself stays clean.
+                    className={`px-2.5 py-1.5${source === "interpolated" ? " text-ink-soft italic" : ""}`}
+                    title={source === "interpolated" ? "Interpolated between grid points" : undefined}
+                    aria-description={source === "interpolated" ? "interpolated between grid points" : undefined}
+                  >
+                    {point ? FORMAT[c.kind](c.value(point, geometry)) : "–"}
                   </td>
                 ))}
                 <td className="px-3 py-1.5 text-right">
@@ -105,7 +111,7 @@ function MarkerTableImpl({
         </table>
         {anyInterpolated || computing ? (
           <p role="status" className="px-3 pb-2 text-xs text-ink-soft">
-            ≈ interpolated between grid points{computing ? " while the exact value is computed…" : "; the exact value could not be computed for this result."}
+            Values in italics are interpolated between grid points{computing ? " while the exact value is computed…" : "; the exact value could not be computed for this result."}
           </p>
         ) : null}
       </div>
