@@ -10,12 +10,14 @@ import {
   buildRequest,
   draftsFromParams,
   draftsFromRange,
+  paramsDiffer,
   validateParams,
   validateRange,
   type ParamDrafts,
   type RangeDrafts,
 } from "@/lib/workbench/validate";
 import { normalizeMarkers } from "@/lib/workbench/derived";
+import { checkMarkerNm } from "@/lib/workbench/markers";
 import { DEFAULT_MARKERS_NM, MAX_MARKERS, type PanelKey, type ViewState } from "@/lib/workbench/view-state";
 import { ExportBar } from "./export-bar";
 import { MarkerTable } from "./marker-table";
@@ -29,7 +31,6 @@ import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useMarkerValues } from "./use-marker-values";
-import { checkMarkerNm } from "@/lib/workbench/markers";
 import { useViewState, type ViewSource } from "./use-view-state";
 import { ViewControls } from "./view-controls";
 
@@ -112,7 +113,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
       version: set?.version ?? null,
       temperatureK: shownParams.temperatureK,
       fieldT: shownParams.fieldT,
-      edited: set !== null && JSON.stringify(shownParams) !== JSON.stringify(initialParams),
+      edited: set !== null && paramsDiffer(shownParams, initialParams),
     }),
     [setName, set, shownParams, initialParams],
   );
