@@ -63,6 +63,8 @@ export interface LinePlotProps {
 /** Pointer travel (px) that turns a press into a drag-to-zoom rather than a click. */
 const DRAG_PX = 5;
 const ZOOM_STEP = 0.5;
+/** Row pitch of marker labels: a 10 px label's box is about 12 px tall, so rows must not overlap. */
+const MARKER_ROW_PX = 13;
 
 const MARGIN = { right: 18, bottom: 50, left: 76 };
 
@@ -282,7 +284,7 @@ function LinePlotImpl(props: LinePlotProps) {
           {markerLabels.map((m) => (
             <g key={`m${m.x}`} data-marker-label={m.text}>
               <line x1={m.x} x2={m.x} y1={M.top} y2={M.top + innerH} stroke="#0f6e6e" strokeWidth={1} strokeDasharray="1 3" />
-              <text x={m.textX} y={M.top + 10 + m.row * 11} textAnchor={m.anchor} fontSize={10} fill="#0a4f4f">
+              <text x={m.textX} y={M.top + 10 + m.row * MARKER_ROW_PX} textAnchor={m.anchor} fontSize={10} fill="#0a4f4f">
                 {m.text}
               </text>
             </g>

@@ -140,8 +140,9 @@ describe("workbench view", () => {
     // The row appears and gets the value computed at exactly 1030 nm by the pool.
     await expect.poll(() => markerRow("1030 nm").getAttribute("data-source"), { timeout: RUN_TIMEOUT }).toBe("computed");
     expect(await markerRow("1030 nm").locator("td").first().innerText()).toMatch(/^-?\d/);
+    // A restarted run would show the bar below 100 %; re-renders may record 100 again, nothing else.
     const seen = await page.evaluate(() => (window as unknown as { __progress: number[] }).__progress);
-    expect(seen, "the progress bar did not move: no new run").toEqual([]);
+    expect(seen.filter((v) => v !== 100), "the progress bar stayed at 100 %: no new run").toEqual([]);
     expect(await badge().isVisible()).toBe(true);
     expect(await progress().getAttribute("aria-valuenow")).toBe("100");
 
@@ -173,7 +174,7 @@ describe("workbench view", () => {
 
   it("keeps the person's own view across a reload and resets to the lab's shared view", async () => {
     // The changes above were saved as this person's own view.
-    await page.getByTestId("view-status").getByText("Your own view, saved for you only.").waitFor({ timeout: 30_000 });
+    await expect.poll(() => page.getByTestId("view-status").innerText(), { timeout: 30_000 }).toContain("Your own view, saved for you only.");
     await page.reload();
     await page.getByRole("heading", { level: 1 }).waitFor({ timeout: RUN_TIMEOUT });
     expect(await page.getByLabel("x axis").inputValue()).toBe("eV");
@@ -181,7 +182,7 @@ describe("workbench view", () => {
 
     await page.getByRole("button", { name: "Reset view" }).click();
     await page.getByRole("dialog", { name: "Reset your view?" }).getByRole("button", { name: "Reset view" }).click();
-    await page.getByTestId("view-status").getByText(/^Default view\./).waitFor();
+    await expect.poll(() => page.getByTestId("view-status").innerText()).toMatch(/^Default view\./);
     expect(await page.getByLabel("x axis").inputValue()).toBe("nm");
     expect(await markerRow("1030 nm").count()).toBe(0);
   });
