@@ -72,7 +72,10 @@ describeHttp("per-person workbench views", () => {
     expect((await viewer.get(myView(OTHER_LAB_SET_ID))).status).toBe(404);
     expect((await viewer.get(myView("00000000-0000-4000-8000-000000000000"))).status).toBe(404);
     expect((await viewer.get(myView("not-a-uuid"))).status).toBe(404);
-    expect((await new Client().get(myView(setId))).status).toBe(401);
+    const anonymous = new Client();
+    expect((await anonymous.get(myView(setId))).status).toBe(401);
+    expect((await anonymous.put(myView(setId), { viewState: {} })).status).toBe(401);
+    expect((await anonymous.delete(myView(setId))).status).toBe(401);
   });
 
   it("removes the views with the set", async () => {
