@@ -213,3 +213,26 @@ export const parameterSetVersionsRelations = relations(parameterSetVersions, ({ 
 export const apiTokensRelations = relations(apiTokens, ({ one }) => ({
   user: one(users, { fields: [apiTokens.userId], references: [users.id] }),
 }));
+
+/*
+ * Per-person workbench views: what one person sees of one set (axes, units, markers, open panels,
+ * spin-trace inputs). Until a person saves their own, the workbench starts from the lab's shared
+ * view, which stays in parameter_sets.view_state and changes only through an explicit "share".
+ */
+export const workbenchViews = pgTable(
+  "workbench_views",
+  {
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    setId: uuid("set_id")
+      .notNull()
+      .references(() => parameterSets.id, { onDelete: "cascade" }),
+    viewState: jsonb("view_state").$type<Record<string, unknown>>().notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.setId] }), index("workbench_views_set_idx").on(t.setId)],
+);
+export type WorkbenchViewRow = typeof workbenchViews.$inferSelect;
+export type NewWorkbenchViewRow = typeof workbenchViews.$inferInsert;

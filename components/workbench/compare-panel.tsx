@@ -3,6 +3,7 @@
 import { useQueries, useQuery } from "@tanstack/react-query";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { Alert } from "@/components/ui/alert";
+import { DateTime } from "@/components/ui/date-time";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
@@ -12,15 +13,16 @@ import { describeError } from "@/lib/query/fetcher";
 import { parameterSetQuery, parameterSetVersionsQuery, useParameterSets, useParameterSetVersions } from "@/lib/query/parameter-sets";
 import { normalizeMarkers } from "@/lib/workbench/derived";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
-import { fmt, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
+import { compareAxisTitle, compareHeader, compareOptionLabel, compareValue, COMPARE_QUANTITIES, isVerdetQuantity, type CompareQuantity } from "@/lib/workbench/compare";
+import { fmt, fmtDelta, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
 import { COMPARE_COLORS, COMPARE_DASHES } from "@/lib/workbench/palette";
-import { fromNm, rotationTo, wavelengthGrid, X_AXIS_TITLE, Y_MODE_LABEL } from "@/lib/workbench/units";
+import { fromNm, wavelengthGrid, X_AXIS_TITLE } from "@/lib/workbench/units";
 import { checkedSpectrumRequest, computableMarkers } from "@/lib/workbench/validate";
 import type { ViewState, WavelengthRange } from "@/lib/workbench/view-state";
 
 /*
- * Overlay of the total rotation of several parameter sets, or of versions of this set, on the
- * same axes, with a table of differences at the markers. Analytic method (the overlay is about
+ * Overlay of the Verdet constant (or one of its parts, or a raw rotation) of several parameter
+ * sets, or of versions of this set, on the same axes, with a table of differences at the markers. Analytic method (the overlay is about
  * differences between parameter sets, far larger than the 1e-5 LLG–Polder deviation).
  * Selections are stored in the view state as "set:<id>" or "version:<n>".
  */
@@ -31,7 +33,9 @@ const COMPARE_POINTS = 256;
 /** A legend and table label that carries the magneticScale label of physics-model §4.3 when it applies. */
 function entryLabel(label: string, params: ModelParams): string {
   const scale = magneticScaleLabel(params.magneticScale);
-  return scale ? `${label} (${scale})` : label;
+  // Temperature and field tell apart versions that differ only in them, in the legend and in exports.
+  const conditions = `${fmt(params.temperatureK, 5)} K, ${fmt(params.fieldT, 4)} T`;
+  return scale ? `${label} (${conditions}; ${scale})` : `${label} (${conditions})`;
 }
 
 interface Entry {
@@ -75,6 +79,20 @@ export function ComparePanel({
 
   return (
     <div className="space-y-4">
+      <label className="flex flex-col gap-1 text-sm">
+        <span className="text-xs font-medium text-ink-soft">Compare</span>
+        <select
+          className="max-w-full rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux sm:w-fit"
+          value={view.compareQuantity}
+          onChange={(e) => onView({ compareQuantity: COMPARE_QUANTITIES.find((q) => q === e.target.value) ?? view.compareQuantity })}
+        >
+          {COMPARE_QUANTITIES.map((q) => (
+            <option key={q} value={q}>
+              {compareOptionLabel(q, view.yMode)}
+            </option>
+          ))}
+        </select>
+      </label>
       <div className="grid gap-4 md:grid-cols-2">
         <fieldset className="space-y-1 text-sm">
           <legend className="mb-1 font-medium">Parameter sets</legend>
@@ -134,7 +152,10 @@ function VersionPicker({ setId, selected, onToggle }: { setId: string; selected:
               disabled={!selected.includes(`version:${v.version}`) && selected.length >= MAX_COMPARE}
               onChange={(e) => onToggle(`version:${v.version}`, e.target.checked)}
             />
-            Version {v.version} <span className="text-xs text-ink-soft">({new Date(v.createdAt).toLocaleString()}, {v.createdBy.name})</span>
+            Version {v.version}{" "}
+            <span className="text-xs text-ink-soft">
+              (<DateTime iso={v.createdAt} />, {v.createdBy.name})
+            </span>
           </label>
         ))}
       </div>
@@ -221,6 +242,7 @@ function CompareResults({
   }, [pool, range, entriesKey, view.markersNm]);
 
   const { xUnit, xScale, yMode } = view;
+  const quantity: CompareQuantity = view.compareQuantity;
   const series = useMemo<PlotSeries[]>(
     () =>
       computed.map((c, i) => ({
@@ -229,9 +251,9 @@ function CompareResults({
         color: COMPARE_COLORS[i % COMPARE_COLORS.length]!,
         dash: COMPARE_DASHES[i % COMPARE_DASHES.length],
         width: i === 0 ? 2.4 : 2,
-        values: c.grid.points.map((p) => rotationTo(p.thetaRad, yMode, { fieldT: c.entry.params.fieldT, lengthM: c.entry.params.lengthM })),
+        values: c.grid.points.map((p) => compareValue(quantity, p, { fieldT: c.entry.params.fieldT, lengthM: c.entry.params.lengthM }, yMode)),
       })),
-    [computed, yMode],
+    [computed, quantity, yMode],
   );
   const xs = useMemo(() => (computed[0]?.grid.points ?? []).map((p) => fromNm(p.wavelengthNm, xUnit)), [computed, xUnit]);
 
@@ -246,11 +268,11 @@ function CompareResults({
       {computed.length >= 2 ? (
         <>
           <LinePlot
-            title="Total rotation, compared (analytic)"
+            title={`${compareAxisTitle(quantity, yMode)}, compared (analytic)`}
             xs={xs}
             xType={xScale}
             xLabel={X_AXIS_TITLE[xUnit]}
-            yLabel={yMode === "verdet" ? Y_MODE_LABEL.verdet : `${Y_MODE_LABEL[yMode]}, each set's own B0 and L`}
+            yLabel={compareAxisTitle(quantity, yMode)}
             series={series}
             width={width}
             height={320}
@@ -264,9 +286,9 @@ function CompareResults({
                 <tr className="border-b border-ink/10">
                   <th scope="col" className="px-2 py-1 font-medium">Wavelength</th>
                   <th scope="col" className="px-2 py-1 font-medium">Set</th>
-                  <th scope="col" className="px-2 py-1 font-medium">θ (rad)</th>
-                  <th scope="col" className="px-2 py-1 font-medium">V (rad/(T·m))</th>
-                  <th scope="col" className="px-2 py-1 font-medium">ΔV</th>
+                  <th scope="col" className="px-2 py-1 font-medium">{compareHeader(quantity, yMode)}</th>
+                  <th scope="col" className="px-2 py-1 font-medium">Δ{compareHeader(quantity, yMode).split(" ")[0]}</th>
+                  {isVerdetQuantity(quantity) ? null : <th scope="col" className="px-2 py-1 font-medium">V (rad/(T·m))</th>}
                   <th scope="col" className="px-2 py-1 font-medium">Magnetic share</th>
                   <th scope="col" className="px-2 py-1 font-medium">Δ share</th>
                 </tr>
@@ -276,7 +298,9 @@ function CompareResults({
                   computed.map((c, i) => {
                     const p = c.markers?.points.find((q) => q.wavelengthNm === nm);
                     const b = base?.markers?.points.find((q) => q.wavelengthNm === nm);
-                    const dV = p?.verdetRadPerTm != null && b?.verdetRadPerTm != null ? p.verdetRadPerTm - b.verdetRadPerTm : null;
+                    const qv = p ? compareValue(quantity, p, { fieldT: c.entry.params.fieldT, lengthM: c.entry.params.lengthM }, yMode) : null;
+                    const qb = b && base ? compareValue(quantity, b, { fieldT: base.entry.params.fieldT, lengthM: base.entry.params.lengthM }, yMode) : null;
+                    const dQ = qv !== null && qb !== null ? qv - qb : null;
                     const dS = p?.magneticShare != null && b?.magneticShare != null ? p.magneticShare - b.magneticShare : null;
                     return (
                       <tr key={`${nm}-${c.entry.key}`} className={i === 0 ? "border-t border-ink/10" : ""}>
@@ -284,11 +308,11 @@ function CompareResults({
                           <th scope="rowgroup" rowSpan={computed.length} className="px-2 py-1 text-left align-top font-medium">{`${nm} nm`}</th>
                         ) : null}
                         <td className="px-2 py-1">{c.entry.label}</td>
-                        <td className="px-2 py-1">{fmt(p?.thetaRad)}</td>
-                        <td className="px-2 py-1">{fmt(p?.verdetRadPerTm)}</td>
-                        <td className="px-2 py-1">{i === 0 ? "—" : fmt(dV)}</td>
+                        <td className="px-2 py-1">{fmt(qv)}</td>
+                        <td className="px-2 py-1">{i === 0 ? "—" : dQ === 0 ? "0" : fmt(dQ)}</td>
+                        {isVerdetQuantity(quantity) ? null : <td className="px-2 py-1">{fmt(p?.verdetRadPerTm)}</td>}
                         <td className="px-2 py-1">{fmtPercent(p?.magneticShare, 2)}</td>
-                        <td className="px-2 py-1">{i === 0 ? "—" : dS === null ? "–" : `${(dS * 100).toFixed(2)} pp`}</td>
+                        <td className="px-2 py-1">{i === 0 ? "—" : dS === null ? "–" : `${fmtDelta(dS * 100, 2)} pp`}</td>
                       </tr>
                     );
                   }),

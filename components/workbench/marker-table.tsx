@@ -1,26 +1,37 @@
 "use client";
 
-import { memo, useState, type FormEvent } from "react";
+import { memo, useMemo, useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
-import type { SpectrumResult } from "@/lib/physics/types";
-import { markerValues } from "@/lib/workbench/derived";
 import { fmt, fmtLength, fmtPercent } from "@/lib/workbench/format";
-import { parseNumber } from "@/lib/workbench/validate";
+import { markerColumns, type MarkerCellKind } from "@/lib/workbench/marker-columns";
+import { checkMarkerText, MARKER_MAX_NM, MARKER_MIN_NM } from "@/lib/workbench/markers";
+import type { Geometry, XUnit, YMode } from "@/lib/workbench/units";
 import { DEFAULT_MARKERS_NM, MAX_MARKERS } from "@/lib/workbench/view-state";
+import type { MarkerRow } from "./use-marker-values";
+
+const FORMAT: Record<MarkerCellKind, (v: number | null) => string> = {
+  number: (v) => fmt(v),
+  percent: (v) => fmtPercent(v, 2),
+  length: (v) => fmtLength(v),
+};
 
 function MarkerTableImpl({
-  markersNm,
-  result,
-  fieldT,
+  rows,
+  computing,
+  geometry,
+  xUnit,
+  yMode,
   methodLabel,
   banner,
   onAdd,
   onRemove,
   onReset,
 }: {
-  markersNm: readonly number[];
-  result: SpectrumResult | null;
-  fieldT: number;
+  rows: readonly MarkerRow[];
+  computing: boolean;
+  geometry: Geometry;
+  xUnit: XUnit;
+  yMode: YMode;
   methodLabel: string;
   banner: string | null;
   onAdd: (nm: number) => void;
@@ -29,23 +40,20 @@ function MarkerTableImpl({
 }) {
   const [draft, setDraft] = useState("");
   const [error, setError] = useState<string | null>(null);
-  const byNm = new Map((result?.points ?? []).map((p) => [p.wavelengthNm, p]));
-  const sorted = [...markersNm].sort((a, b) => a - b);
+  const columns = useMemo(() => markerColumns(xUnit, yMode), [xUnit, yMode]);
+  const markersNm = rows.map((r) => r.nm);
+  const anyInterpolated = rows.some((r) => r.source === "interpolated");
 
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    const v = parseNumber(draft);
-    if (v === null || v <= 0 || v > 1e7) {
-      setError("Enter a wavelength in nm, e.g. 1064.");
-      return;
-    }
-    if (markersNm.length >= MAX_MARKERS) {
-      setError(`At most ${MAX_MARKERS} markers.`);
+    const checked = checkMarkerText(draft, markersNm, MAX_MARKERS);
+    if (checked.error !== null) {
+      setError(checked.error);
       return;
     }
     setError(null);
     setDraft("");
-    onAdd(v);
+    onAdd(checked.nm);
   };
 
   return (
@@ -54,55 +62,60 @@ function MarkerTableImpl({
         <table className="w-full text-sm tabular-nums">
           <caption className="px-3 pt-3 pb-1 text-left font-semibold">
             Values at markers
-            <span className="ml-2 text-xs font-normal text-ink-soft">({methodLabel}; rotations at B0 = {fieldT} T and the set&apos;s length)</span>
+            <span className="ml-2 text-xs font-normal text-ink-soft">
+              ({methodLabel}; {yMode === "verdet" ? "per tesla and metre" : `rotations at B0 = ${geometry.fieldT} T and L = ${fmtLength(geometry.lengthM)}`})
+            </span>
             {banner ? <span className="mt-0.5 block text-xs font-semibold text-ember">{banner}</span> : null}
           </caption>
           <thead className="text-left text-xs text-ink-soft">
             <tr className="border-b border-ink/10">
               <th scope="col" className="px-2.5 py-2 font-medium">Wavelength</th>
-              <th scope="col" className="px-2.5 py-2 font-medium">θ (rad)</th>
-              <th scope="col" className="px-2.5 py-2 font-medium">θe (rad)</th>
-              <th scope="col" className="px-2.5 py-2 font-medium">θm (rad)</th>
-              <th scope="col" className="px-2.5 py-2 font-medium">Magnetic share</th>
-              <th scope="col" className="px-2.5 py-2 font-medium">V (rad/(T·m))</th>
-              <th scope="col" className="px-2.5 py-2 font-medium">L45</th>
-              <th scope="col" className="px-2.5 py-2 font-medium">θm / θ</th>
+              {columns.map((c) => (
+                <th key={c.id} scope="col" className="px-2.5 py-2 font-medium">
+                  {c.header}
+                </th>
+              ))}
               <th scope="col" className="px-2.5 py-2 font-medium"><span className="sr-only">Remove</span></th>
             </tr>
           </thead>
           <tbody>
-            {sorted.length === 0 ? (
+            {rows.length === 0 ? (
               <tr>
-                <td colSpan={9} className="px-3 py-3 text-ink-soft">
+                <td colSpan={columns.length + 2} className="px-3 py-3 text-ink-soft">
                   No markers. Add a laser line below or click a plot.
                 </td>
               </tr>
             ) : null}
-            {sorted.map((nm) => {
-              const p = byNm.get(nm);
-              const v = p ? markerValues(p, fieldT) : null;
-              return (
-                <tr key={nm} className="border-b border-ink/5 last:border-0">
-                  <th scope="row" className="px-3 py-1.5 text-left font-medium">{`${nm} nm`}</th>
-                  <td className="px-2.5 py-1.5">{fmt(v?.thetaRad)}</td>
-                  <td className="px-2.5 py-1.5">{fmt(v?.thetaElectricRad)}</td>
-                  <td className="px-2.5 py-1.5">{fmt(v?.thetaMagneticRad)}</td>
-                  <td className="px-2.5 py-1.5">{fmtPercent(v?.magneticShare, 2)}</td>
-                  <td className="px-2.5 py-1.5">{fmt(v?.verdetRadPerTm)}</td>
-                  <td className="px-2.5 py-1.5">{fmtLength(v?.length45M)}</td>
-                  <td className="px-2.5 py-1.5">{fmt(v?.signedRatio)}</td>
-                  <td className="px-3 py-1.5 text-right">
-                    <Button variant="quiet" className="text-xs" aria-label={`Remove marker at ${nm} nm`} onClick={() => onRemove(nm)}>
-                      Remove
-                    </Button>
+            {rows.map(({ nm, point, source }) => (
+              <tr key={nm} className="border-b border-ink/5 last:border-0" data-source={source}>
+                <th scope="row" className="px-3 py-1.5 text-left font-medium">{`${nm} nm`}</th>
+                {columns.map((c) => (
+                  <td
+                    key={c.id}
+                    // Interpolated stand-ins are set in italics and described, so the number itself stays clean.
+                    className={`px-2.5 py-1.5${source === "interpolated" ? " text-ink-soft italic" : ""}`}
+                    title={source === "interpolated" ? "Interpolated between grid points" : undefined}
+                    aria-description={source === "interpolated" ? "interpolated between grid points" : undefined}
+                  >
+                    {point ? FORMAT[c.kind](c.value(point, geometry)) : "–"}
                   </td>
-                </tr>
-              );
-            })}
+                ))}
+                <td className="px-3 py-1.5 text-right">
+                  <Button variant="quiet" className="text-xs" aria-label={`Remove marker at ${nm} nm`} onClick={() => onRemove(nm)}>
+                    Remove
+                  </Button>
+                </td>
+              </tr>
+            ))}
           </tbody>
         </table>
+        {anyInterpolated || computing ? (
+          <p role="status" className="px-3 pb-2 text-xs text-ink-soft">
+            Values in italics are interpolated between grid points{computing ? " while the exact value is computed…" : "; the exact value could not be computed for this result."}
+          </p>
+        ) : null}
       </div>
-      <form onSubmit={submit} className="flex flex-wrap items-end gap-2">
+      <form onSubmit={submit} noValidate className="flex flex-wrap items-end gap-2">
         <div>
           <label htmlFor="marker-add" className="block text-sm font-medium">
             Marker wavelength (nm)
@@ -116,18 +129,24 @@ function MarkerTableImpl({
             className="mt-1 w-36 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm focus:border-lux"
             value={draft}
             aria-invalid={error ? true : undefined}
-            aria-describedby={error ? "marker-add-error" : undefined}
-            onChange={(e) => setDraft(e.target.value)}
+            aria-describedby={error ? "marker-add-hint marker-add-error" : "marker-add-hint"}
+            onChange={(e) => {
+              setDraft(e.target.value);
+              if (error) setError(null);
+            }}
           />
         </div>
         <Button type="submit" variant="secondary">
           Add marker
         </Button>
-        <Button variant="quiet" onClick={onReset} disabled={sorted.join() === DEFAULT_MARKERS_NM.join()}>
+        <Button variant="quiet" onClick={onReset} disabled={markersNm.join() === DEFAULT_MARKERS_NM.join()}>
           Reset to 632.8, 800, 1064, 1550 nm
         </Button>
+        <p id="marker-add-hint" className="w-full text-xs text-ink-soft">
+          {MARKER_MIN_NM}–{MARKER_MAX_NM} nm, at most {MAX_MARKERS} markers. Adding one reads its values from the spectrum on screen; nothing is recomputed.
+        </p>
         {error ? (
-          <p id="marker-add-error" className="w-full text-xs text-ember">
+          <p id="marker-add-error" role="alert" className="w-full text-xs text-ember">
             {error}
           </p>
         ) : null}

@@ -15,5 +15,5 @@ const subscribe = () => () => {};
 export function ScratchWorkbench() {
   const mounted = useSyncExternalStore(subscribe, () => true, () => false);
   if (!mounted) return <SkeletonRows rows={6} label="Loading the workbench…" />;
-  return <Workbench set={null} initialParams={TERBIUM_GARNET_DEFAULTS} initialViewState={readLocalViewState(null)} canSaveView={false} />;
+  return <Workbench set={null} initialParams={TERBIUM_GARNET_DEFAULTS} view={{ initial: readLocalViewState(null), shared: null, own: false }} />;
 }

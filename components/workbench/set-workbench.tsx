@@ -6,25 +6,27 @@ import { ErrorPanel } from "@/components/ui/error-panel";
 import { SkeletonRows } from "@/components/ui/skeleton";
 import { modelParamsSchema } from "@/lib/physics/schema";
 import { useParameterSet } from "@/lib/query/parameter-sets";
-import { readLocalViewState } from "./use-view-state";
+import { useMyWorkbenchView } from "@/lib/query/workbench-views";
+import type { ViewSource } from "./use-view-state";
 import { Workbench } from "./workbench";
 
 /** /workbench/{setId}: loads the set through TanStack Query, then hands it to the workbench. */
 export function SetWorkbench({ setId }: { setId: string }) {
   const query = useParameterSet(setId);
+  const myView = useMyWorkbenchView(setId);
   const item = query.data;
-  const canSaveView = item ? item.role === "owner" || item.role === "editor" : false;
+  const mine = myView.data;
 
-  // Viewers cannot save the view with the set, so their own copy (if any) wins over the set's.
-  const initialView = useMemo(() => {
-    if (!item) return null;
-    if (!canSaveView) return readLocalViewState(item.id) ?? item.viewState;
-    return item.viewState;
-  }, [item, canSaveView]);
+  // A person's own view wins; without one they start from the lab's shared view (or the defaults).
+  const view = useMemo<ViewSource | null>(
+    () => (mine ? { initial: mine.viewState ?? mine.sharedViewState, shared: mine.sharedViewState, own: mine.viewState !== null } : null),
+    [mine],
+  );
 
-  if (query.isPending) return <SkeletonRows rows={8} label="Loading the parameter set…" />;
+  if (query.isPending || myView.isPending) return <SkeletonRows rows={8} label="Loading the parameter set…" />;
   if (query.isError) return <ErrorPanel error={query.error} retry={() => void query.refetch()} />;
-  if (!item) return null;
+  if (myView.isError) return <ErrorPanel error={myView.error} retry={() => void myView.refetch()} />;
+  if (!item || !view) return null;
 
   // Stored params passed the server's schema; parse again so defaults (magneticScale) are filled in.
   const parsed = modelParamsSchema.safeParse(item.params);
@@ -42,8 +44,7 @@ export function SetWorkbench({ setId }: { setId: string }) {
       key={`${item.id}:${item.version}`}
       set={{ id: item.id, name: item.name, version: item.version, labName: item.labName, role: item.role }}
       initialParams={parsed.data}
-      initialViewState={initialView}
-      canSaveView={canSaveView}
+      view={view}
     />
   );
 }

@@ -1,6 +1,7 @@
 "use client";
 
-import { memo, useMemo, useRef, useState } from "react";
+import { memo, useCallback, useMemo, useRef, useState } from "react";
+import { Button } from "@/components/ui/button";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
@@ -22,7 +23,9 @@ import {
   type Geometry,
   type YMode,
 } from "@/lib/workbench/units";
-import type { ViewState } from "@/lib/workbench/view-state";
+import { MAX_MARKERS, type ViewState } from "@/lib/workbench/view-state";
+import { checkMarkerNm } from "@/lib/workbench/markers";
+import { isFullDomain, panDomain, zoomDomain, type Domain } from "@/lib/workbench/zoom";
 
 const SELECT = "rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux";
 
@@ -49,6 +52,7 @@ function SpectrumPanelsImpl({
   onAddMarker,
   banner,
   fileBase,
+  caption,
   methodLabel,
 }: {
   points: readonly SpectrumPoint[];
@@ -58,6 +62,8 @@ function SpectrumPanelsImpl({
   onAddMarker: (nm: number) => void;
   banner: string | null;
   fileBase: string;
+  /** Set, version, temperature and field (figureCaption): drawn in the titles, so exports carry them. */
+  caption: string;
   methodLabel: string;
 }) {
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
@@ -88,7 +94,46 @@ function SpectrumPanelsImpl({
   const hLines = useMemo(() => [{ y: 50, label: "50 %" }], []);
   const shareDomain = useMemo<[number, number]>(() => [0, 100], []);
 
-  const pick = (x: number) => onAddMarker(Number(toNm(x, xUnit).toPrecision(5)));
+  // Zoom lives here, in nm, so both plots share it and it survives a change of x unit.
+  const [zoomNm, setZoomNm] = useState<[number, number] | null>(null);
+  const fullNm = useMemo<Domain | null>(() => {
+    const first = points[0]?.wavelengthNm;
+    const last = points[points.length - 1]?.wavelengthNm;
+    return first !== undefined && last !== undefined && last > first ? [first, last] : null;
+  }, [points]);
+  const toDisplay = useCallback(
+    (d: Domain): [number, number] => {
+      const a = fromNm(d[0], xUnit);
+      const b = fromNm(d[1], xUnit);
+      return a <= b ? [a, b] : [b, a];
+    },
+    [xUnit],
+  );
+  const fullX = useMemo(() => (fullNm ? toDisplay(fullNm) : null), [fullNm, toDisplay]);
+  const xView = useMemo(() => (zoomNm ? toDisplay(zoomNm) : null), [zoomNm, toDisplay]);
+  const onXViewChange = useCallback(
+    (d: [number, number] | null) => {
+      if (!d || !fullX || isFullDomain(d, fullX)) {
+        setZoomNm(null);
+        return;
+      }
+      const a = toNm(d[0], xUnit);
+      const b = toNm(d[1], xUnit);
+      setZoomNm(a <= b ? [a, b] : [b, a]);
+    },
+    [fullX, xUnit],
+  );
+  const zoomBy = (factor: number) => fullX && onXViewChange(zoomDomain(xView ?? fullX, factor, NaN, fullX, xScale));
+  const panBy = (fraction: number) => fullX && xView && onXViewChange(panDomain(xView, fraction, fullX, xScale));
+  const zoomed = zoomNm !== null;
+
+  const [pickError, setPickError] = useState<string | null>(null);
+  const pick = (x: number) => {
+    const nm = Number(toNm(x, xUnit).toPrecision(5));
+    const checked = checkMarkerNm(nm, view.markersNm, MAX_MARKERS);
+    setPickError(checked.error);
+    if (checked.error === null) onAddMarker(nm);
+  };
   const cp = cursor !== null ? points[cursor] : undefined;
   const yUnit = Y_UNIT_SHORT[yMode];
   const yLabel = yMode === "verdet" ? Y_MODE_LABEL.verdet : `Rotation (${yUnit}) at ${geometry.fieldT} T, ${geometry.lengthM * 1000} mm`;
@@ -104,6 +149,8 @@ function SpectrumPanelsImpl({
     markers,
     banner,
     describedBy: "spectrum-readout",
+    xView,
+    onXViewChange,
   };
 
   return (
@@ -138,8 +185,31 @@ function SpectrumPanelsImpl({
         </fieldset>
       </div>
 
+      <div role="toolbar" aria-label="Zoom" className="flex flex-wrap items-center gap-1.5 text-xs">
+        <Button variant="secondary" className="px-2 py-1 text-xs" onClick={() => zoomBy(0.5)} disabled={!fullX}>
+          Zoom in
+        </Button>
+        <Button variant="secondary" className="px-2 py-1 text-xs" onClick={() => zoomBy(2)} disabled={!zoomed}>
+          Zoom out
+        </Button>
+        <Button variant="secondary" className="px-2 py-1 text-xs" aria-label="Pan left" onClick={() => panBy(-0.5)} disabled={!zoomed}>
+          ◀ Pan
+        </Button>
+        <Button variant="secondary" className="px-2 py-1 text-xs" aria-label="Pan right" onClick={() => panBy(0.5)} disabled={!zoomed}>
+          Pan ▶
+        </Button>
+        <Button variant="secondary" className="px-2 py-1 text-xs" onClick={() => setZoomNm(null)} disabled={!zoomed}>
+          Reset zoom
+        </Button>
+        <span data-testid="zoom-window" className="text-ink-soft">
+          {zoomNm
+            ? `Showing ${fmt(zoomNm[0], 5)}–${fmt(zoomNm[1], 5)} nm; the y axis fits this window.`
+            : "Drag across a plot to zoom into a range; Ctrl/⌘ + wheel, or + and − on a focused plot, also zoom."}
+        </span>
+      </div>
+
       <div ref={wrapRef} className="space-y-2">
-        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel})`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} />
+        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} />
         <PlotExportButtons svgRef={spectrumSvg} fileBase={`${fileBase}-spectrum`} plotName="spectrum plot" />
 
         <div id="spectrum-readout" aria-live="polite" className="min-h-12 rounded-md bg-paper-sunk px-3 py-2 text-xs tabular-nums text-ink">
@@ -158,13 +228,18 @@ function SpectrumPanelsImpl({
           ) : (
             <p className="text-ink-soft">Point at a plot, or focus it and use the arrow keys, to read all values; click or press Enter to add a marker there.</p>
           )}
+          {pickError ? (
+            <p role="alert" className="mt-1 text-ember">
+              {pickError}
+            </p>
+          ) : null}
         </div>
 
         {view.panels.share ? (
           <>
             <LinePlot
               {...shared}
-              title={`Magnetic share |θm| / (|θe| + |θm|) — ${crossingText}`}
+              title={`Magnetic share |θm| / (|θe| + |θm|) — ${crossingText} · ${caption}`}
               yLabel="Magnetic share (%)"
               series={shareSeries}
               height={240}

@@ -22,7 +22,6 @@ export interface ComputedSpectrum {
   key: string;
   method: "analytic" | "llg";
   result: SpectrumResult;
-  markers: SpectrumResult | null;
   /**
    * The model parameters this result was computed from. While an edit is pending, invalid or its
    * run failed, the screen keeps an older result, so its labels (magneticScale, B0, L) and exports
@@ -50,8 +49,6 @@ export interface SpectrumRunState {
 export interface RunInputs {
   /** Full validated request for the grid, or null while the inputs are invalid. */
   request: SpectrumRequest | null;
-  /** Marker wavelengths that are valid for this request (may be empty). */
-  markersNm: readonly number[];
   pool: WorkbenchPool | null;
 }
 
@@ -71,7 +68,7 @@ function errorText(error: unknown): string {
   return String(error);
 }
 
-export function useSpectrumRun({ request, markersNm, pool }: RunInputs): SpectrumRunState {
+export function useSpectrumRun({ request, pool }: RunInputs): SpectrumRunState {
   const [status, setStatus] = useState<RunStatus>("idle");
   const [progress, setProgress] = useState(0);
   const [error, setError] = useState<string | null>(null);
@@ -85,7 +82,9 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
   const progressFrame = useRef<number | null>(null);
   const latestFraction = useRef(0);
 
-  const key = request ? JSON.stringify([request, markersNm]) : null;
+  // Markers are not part of the run: they read their values from the result (use-marker-values),
+  // so adding one never restarts a spectrum.
+  const key = request ? JSON.stringify(request) : null;
 
   useEffect(() => {
     if (!request || !key) return;
@@ -95,11 +94,10 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
       try {
         const grid = previewGrid(request);
         const result = computeAnalyticNow({ ...request, wavelengthsNm: grid, method: "analytic" });
-        const markers = markersNm.length > 0 ? computeAnalyticNow({ ...request, wavelengthsNm: [...markersNm], method: "analytic" }) : null;
         // Redrawing every plot is the heavy part of a result; as a transition React renders it in
         // short slices, so typing and the progress bar stay responsive (no main-thread task > 50 ms).
         startTransition(() => {
-          setPreview({ key, method: "analytic", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
+          setPreview({ key, method: "analytic", result, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
         });
         setError(null);
       } catch (e) {
@@ -128,15 +126,12 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
         }
       };
       const llg: SpectrumRequest = { ...request, method: "llg" };
-      Promise.all([
-        pool.spectrum(llg, { onProgress, signal: ac.signal }),
-        markersNm.length > 0 ? pool.spectrum({ ...llg, wavelengthsNm: [...markersNm] }, { signal: ac.signal }) : Promise.resolve(null),
-      ]).then(
-        ([result, markers]) => {
+      pool.spectrum(llg, { onProgress, signal: ac.signal }).then(
+        (result) => {
           if (ac.signal.aborted) return;
           // One transition, so "done" and the result it describes appear together.
           startTransition(() => {
-            setNumerical({ key, method: "llg", result, markers, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
+            setNumerical({ key, method: "llg", result, params: paramsOf(request), requestedPoints: request.wavelengthsNm.length });
             setProgress(1);
             setStatus("done");
           });
@@ -153,7 +148,7 @@ export function useSpectrumRun({ request, markersNm, pool }: RunInputs): Spectru
       );
     }, DEBOUNCE_MS);
     return () => clearTimeout(timer);
-    // `request` and `markersNm` are captured through `key`, which changes whenever they do.
+    // `request` is captured through `key`, which changes whenever it does.
   }, [key, pool, nonce]);
 
   // Abort on unmount.

@@ -5,18 +5,19 @@ import { useCallback, useEffect, useMemo, useState, type ReactNode } from "react
 import type { ModelParamKey, ModelParams } from "@/lib/physics/schema";
 import { createPool, type WorkbenchPool } from "@/lib/workbench/engine";
 import { magneticScaleLabel } from "@/lib/workbench/format";
-import { exportFileName } from "@/lib/workbench/export";
+import { figureCaption, figureFileBase } from "@/lib/workbench/export";
 import {
   buildRequest,
-  computableMarkers,
   draftsFromParams,
   draftsFromRange,
+  paramsDiffer,
   validateParams,
   validateRange,
   type ParamDrafts,
   type RangeDrafts,
 } from "@/lib/workbench/validate";
 import { normalizeMarkers } from "@/lib/workbench/derived";
+import { checkMarkerNm } from "@/lib/workbench/markers";
 import { DEFAULT_MARKERS_NM, MAX_MARKERS, type PanelKey, type ViewState } from "@/lib/workbench/view-state";
 import { ExportBar } from "./export-bar";
 import { MarkerTable } from "./marker-table";
@@ -30,7 +31,9 @@ import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { AbsorptionPanel, OpaqueNote } from "./absorption-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
-import { useViewState, type ViewSaveStatus } from "./use-view-state";
+import { useMarkerValues } from "./use-marker-values";
+import { useViewState, type ViewSource } from "./use-view-state";
+import { ViewControls } from "./view-controls";
 
 export interface WorkbenchSetInfo {
   id: string;
@@ -43,8 +46,7 @@ export interface WorkbenchSetInfo {
 export interface WorkbenchProps {
   set: WorkbenchSetInfo | null;
   initialParams: ModelParams;
-  initialViewState: unknown;
-  canSaveView: boolean;
+  view: ViewSource;
 }
 
 const PANEL_LABEL: Record<PanelKey, string> = {
@@ -54,14 +56,7 @@ const PANEL_LABEL: Record<PanelKey, string> = {
   compare: "Compare",
 };
 
-const SAVE_TEXT: Record<ViewSaveStatus, string> = {
-  local: "View kept in this browser",
-  saved: "View saved with the set",
-  saving: "Saving view…",
-  error: "View not saved",
-};
-
-export function Workbench({ set, initialParams, initialViewState, canSaveView }: WorkbenchProps) {
+export function Workbench({ set, initialParams, view }: WorkbenchProps) {
   // Workers start lazily on first use; the side pool serves maps, compare and the spin trace so
   // that cancelling the main run never cancels them (see createPool).
   const [pools, setPools] = useState<{ main: WorkbenchPool; side: WorkbenchPool } | null>(null);
@@ -76,11 +71,18 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
   const pool = pools?.main ?? null;
   const sidePool = pools?.side ?? null;
 
-  const { viewState, setViewState, saveStatus, saveError } = useViewState({ setId: set?.id ?? null, canSave: canSaveView, initial: initialViewState });
+  const views = useViewState({ setId: set?.id ?? null, source: view });
+  const { viewState, setViewState } = views;
   const onView = useCallback((patch: Partial<ViewState>) => setViewState((v) => ({ ...v, ...patch })), [setViewState]);
 
   const [drafts, setDrafts] = useState<ParamDrafts>(() => draftsFromParams(initialParams));
   const [rangeDrafts, setRangeDrafts] = useState<RangeDrafts>(() => draftsFromRange(viewState.range));
+  // A reset replaces the whole view: re-seed the range inputs from it (state adjusted during render).
+  const [viewEpoch, setViewEpoch] = useState(views.epoch);
+  if (viewEpoch !== views.epoch) {
+    setViewEpoch(views.epoch);
+    setRangeDrafts(draftsFromRange(viewState.range));
+  }
 
   const onParam = useCallback((key: ModelParamKey, text: string) => setDrafts((d) => ({ ...d, [key]: text })), []);
   const { params, errors } = useMemo(() => validateParams(drafts), [drafts]);
@@ -97,8 +99,9 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
 
   // A stable request object per distinct input, so memoized children and the run hook see changes only when something changed.
   const built = useMemo(() => (params && range ? buildRequest(params, range, "llg") : { request: null, rangeError: null }), [params, range]);
-  const markersForRun = useMemo(() => (params ? normalizeMarkers(computableMarkers(params, viewState.markersNm)) : []), [params, viewState.markersNm]);
-  const run = useSpectrumRun({ request: built.request, markersNm: markersForRun, pool });
+  const run = useSpectrumRun({ request: built.request, pool });
+  const markerValues = useMarkerValues({ shown: run.shown, markersNm: viewState.markersNm, pool });
+  const markerPoints = useMemo(() => markerValues.rows.flatMap((r) => (r.point ? [r.point] : [])), [markerValues.rows]);
 
   // Labels, unit conversions and exports describe the result on screen, which may be older than
   // the inputs (typing, invalid input, failed run); physics-model §4.3 needs the label of that result.
@@ -106,13 +109,23 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
   const geometry = useMemo(() => ({ fieldT: shownParams.fieldT, lengthM: shownParams.lengthM }), [shownParams.fieldT, shownParams.lengthM]);
   const scaleLabel = magneticScaleLabel(shownParams.magneticScale);
   const setName = set?.name ?? "Scratch (terbium garnet defaults)";
-  const fileBase = exportFileName(setName, set ? `v${set.version}` : "scratch", "x").replace(/\.x$/, "");
+  const figureId = useMemo(
+    () => ({
+      setName,
+      version: set?.version ?? null,
+      temperatureK: shownParams.temperatureK,
+      fieldT: shownParams.fieldT,
+      edited: set !== null && paramsDiffer(shownParams, initialParams),
+    }),
+    [setName, set, shownParams, initialParams],
+  );
+  const fileBase = figureFileBase(figureId);
   const methodLabel = run.shown?.method === "llg" ? "numerical LLG" : "analytic";
   const invalid = params === null || range === null || built.request === null;
 
   const addMarker = useCallback(
     (nm: number) =>
-      setViewState((v) => (v.markersNm.includes(nm) || v.markersNm.length >= MAX_MARKERS ? v : { ...v, markersNm: normalizeMarkers([...v.markersNm, nm]) })),
+      setViewState((v) => (checkMarkerNm(nm, v.markersNm, MAX_MARKERS).error !== null ? v : { ...v, markersNm: normalizeMarkers([...v.markersNm, nm]) })),
     [setViewState],
   );
   const removeMarker = useCallback((nm: number) => setViewState((v) => ({ ...v, markersNm: v.markersNm.filter((m) => m !== nm) })), [setViewState]);
@@ -137,12 +150,17 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
               "Starts from the terbium gallium garnet values (physics-model §9). Nothing here is stored until you save it as a set."
             )}
           </p>
-          {set ? (
-            <p className="mt-1 text-xs text-ink-soft">
-              Parameter edits here are what-ifs and do not change the stored set. {SAVE_TEXT[saveStatus]}
-              {saveError ? `: ${saveError}` : saveStatus === "saving" ? "" : "."}
-            </p>
-          ) : null}
+          {set ? <p className="mt-1 text-xs text-ink-soft">Parameter edits here are what-ifs and do not change the stored set.</p> : null}
+          <ViewControls
+            status={views.saveStatus}
+            error={views.saveError}
+            scratch={!set}
+            canShare={set !== null && set.role !== "viewer"}
+            resetting={views.resetting}
+            sharing={views.sharing}
+            onReset={views.resetView}
+            onShare={views.shareView}
+          />
         </div>
         {!set || set.role !== "viewer" ? <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} /> : null}
       </header>
@@ -176,22 +194,25 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
                 onAddMarker={addMarker}
                 banner={scaleLabel}
                 fileBase={fileBase}
+                caption={figureCaption(figureId)}
                 methodLabel={methodLabel}
               />
               <OpaqueNote points={run.shown.result.points} lengthM={geometry.lengthM} />
               <MarkerTable
-                markersNm={viewState.markersNm}
-                result={run.shown.markers}
-                fieldT={geometry.fieldT}
+                rows={markerValues.rows}
+                computing={markerValues.computing}
+                geometry={geometry}
+                xUnit={viewState.xUnit}
+                yMode={viewState.yMode}
                 methodLabel={methodLabel}
                 banner={scaleLabel}
                 onAdd={addMarker}
                 onRemove={removeMarker}
                 onReset={resetMarkers}
               />
-              <ExportBar shown={run.shown} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} />
+              <ExportBar shown={run.shown} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} fileBase={fileBase} display={viewState} />
               <PanelFrame title="Absorption and transmission">
-                <AbsorptionPanel points={run.shown.result.points} markerPoints={run.shown.markers?.points ?? null} lengthM={geometry.lengthM} xUnit={viewState.xUnit} xScale={viewState.xScale} banner={scaleLabel} fileBase={fileBase} />
+                <AbsorptionPanel points={run.shown.result.points} markerPoints={markerPoints} lengthM={geometry.lengthM} xUnit={viewState.xUnit} xScale={viewState.xScale} banner={scaleLabel} fileBase={fileBase} />
               </PanelFrame>
             </>
           ) : (

@@ -122,16 +122,3 @@ export function useRestoreVersion(id: string) {
     onSuccess: (item) => invalidate(item, id),
   });
 }
-
-export function useSaveViewState(id: string) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: (viewState: Record<string, unknown>) =>
-      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(id)}/view-state`, {
-        method: "PUT",
-        json: { viewState },
-      }).then((r) => r.item),
-    // The view state is not a version, so only the cached set changes.
-    onSuccess: (item) => queryClient.setQueryData(parameterSetKeys.detail(id), item),
-  });
-}

@@ -1,6 +1,7 @@
 import type { ModelParams } from "@/lib/physics/schema";
-import type { SpectrumResult } from "@/lib/physics/types";
+import type { SpectrumPoint, SpectrumResult } from "@/lib/physics/types";
 import { magneticScaleLabel } from "./format";
+import { fromNm, rotationTo, type Geometry, type XUnit, type YMode } from "./units";
 
 /*
  * Export builders: pure functions from a result to text, so the bytes a user downloads are the
@@ -40,6 +41,55 @@ export interface ExportMeta {
   method: "analytic" | "llg";
   /** ISO time of the export; passed in so tests are deterministic. */
   exportedAt: string;
+  /** The plot's chosen units: columns in these units follow the SI ones (none when they are nm and rad). */
+  display?: { xUnit: XUnit; yMode: YMode };
+}
+
+export interface ChosenUnitColumn {
+  name: string;
+  meaning: string;
+  /** Depends on χ± (every rotation but the electric-dipole part), so it carries the magneticScale label. */
+  scaled: boolean;
+  value: (p: SpectrumPoint, g: Geometry) => number | null;
+}
+
+const X_COLUMN: Record<Exclude<XUnit, "nm">, { name: string; meaning: string }> = {
+  um: { name: "wavelength_um", meaning: "vacuum wavelength (µm)" },
+  eV: { name: "photon_energy_eV", meaning: "photon energy hc/λ (eV)" },
+  "cm-1": { name: "wavenumber_per_cm", meaning: "wavenumber 1/λ (cm⁻¹)" },
+  THz: { name: "frequency_THz", meaning: "frequency c/λ (THz)" },
+};
+
+const ROTATION_PARTS = [
+  { key: "theta", label: "total Faraday rotation θ", pick: (p: SpectrumPoint) => p.thetaRad },
+  { key: "theta_electric", label: "electric-dipole part θe", pick: (p: SpectrumPoint) => p.thetaElectricRad },
+  { key: "theta_magnetic", label: "magnetic-dipole part θm", pick: (p: SpectrumPoint) => p.thetaMagneticRad },
+  { key: "theta_cross", label: "cross term θx", pick: (p: SpectrumPoint) => p.thetaCrossRad },
+  { key: "ellipticity", label: "ellipticity η", pick: (p: SpectrumPoint) => p.ellipticityRad },
+] as const;
+
+/**
+ * The extra CSV columns for the plot's chosen units, after the SI ones: the x value in the chosen
+ * unit, and every rotation in mrad or degrees, or per tesla and metre in Verdet mode.
+ */
+export function chosenUnitColumns(display: { xUnit: XUnit; yMode: YMode } | undefined): ChosenUnitColumn[] {
+  if (!display) return [];
+  const out: ChosenUnitColumn[] = [];
+  const { xUnit, yMode } = display;
+  if (xUnit !== "nm") out.push({ ...X_COLUMN[xUnit], meaning: `${X_COLUMN[xUnit].meaning}, the plot's x unit`, scaled: false, value: (p) => fromNm(p.wavelengthNm, xUnit) });
+  if (yMode === "mrad" || yMode === "deg") {
+    const unit = yMode === "mrad" ? "mrad" : "deg";
+    for (const part of ROTATION_PARTS) {
+      out.push({ name: `${part.key}_${unit}`, meaning: `${part.label} (${unit === "deg" ? "degrees" : "mrad"}), the plot's y unit`, scaled: part.key !== "theta_electric", value: (p, g) => rotationTo(part.pick(p), yMode, g) });
+    }
+  } else if (yMode === "verdet") {
+    // The total is the SI column verdet_rad_per_T_m already; its parts are added.
+    for (const part of ROTATION_PARTS.slice(1)) {
+      const name = part.key === "ellipticity" ? "ellipticity_per_B0_L_rad_per_T_m" : `verdet_${part.key.replace("theta_", "")}_rad_per_T_m`;
+      out.push({ name, meaning: `${part.label} / (B0 L) (rad/(T·m)), the plot's y unit`, scaled: part.key !== "theta_electric", value: (p, g) => rotationTo(part.pick(p), yMode, g) });
+    }
+  }
+  return out;
 }
 
 /** One header-line-safe string: no line breaks can escape the "#" comment. */
@@ -81,13 +131,18 @@ export function csvHeaderLines(meta: ExportMeta, params: ModelParams, result: Sp
     const scaled = scale && column !== "wavelength_nm" && column !== "theta_electric_rad";
     lines.push(`# column ${column}: ${CSV_COLUMN_MEANING[column]}${scaled ? `; ${scale}` : ""}`);
   }
+  for (const column of chosenUnitColumns(meta.display)) {
+    lines.push(`# column ${column.name}: ${column.meaning}${scale && column.scaled ? `; ${scale}` : ""}`);
+  }
   for (const w of result.warnings ?? []) lines.push(`# warning: ${oneLine(w)}`);
   return lines;
 }
 
 export function buildSpectrumCsv(meta: ExportMeta, params: ModelParams, result: SpectrumResult): string {
   const lines = csvHeaderLines(meta, params, result);
-  lines.push(CSV_COLUMNS.join(","));
+  const extra = chosenUnitColumns(meta.display);
+  const geometry: Geometry = { fieldT: params.fieldT, lengthM: params.lengthM };
+  lines.push([...CSV_COLUMNS, ...extra.map((c) => c.name)].join(","));
   for (const p of result.points) {
     lines.push(
       [
@@ -99,6 +154,7 @@ export function buildSpectrumCsv(meta: ExportMeta, params: ModelParams, result: 
         cell(p.ellipticityRad),
         cell(p.magneticShare),
         cell(p.verdetRadPerTm),
+        ...extra.map((c) => cell(c.value(p, geometry))),
       ].join(","),
     );
   }
@@ -128,4 +184,32 @@ export function buildSpectrumJson(meta: ExportMeta, params: ModelParams, result:
 export function exportFileName(setName: string, suffix: string, ext: string): string {
   const base = setName.normalize("NFKD").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 60) || "gyrolux";
   return `${base}-${suffix}.${ext}`;
+}
+
+export interface FigureIdentity {
+  setName: string;
+  /** Stored version, or null for the unsaved scratch workbench. */
+  version: number | null;
+  temperatureK: number;
+  fieldT: number;
+  /** True when the parameters on screen differ from the stored version (what-if edits). */
+  edited?: boolean;
+}
+
+function shortNumber(v: number): string {
+  return String(Number(v.toPrecision(6)));
+}
+
+/** "Terbium gallium garnet · v3 · 293.15 K · 1 T": drawn in exported figure titles. */
+export function figureCaption(id: FigureIdentity): string {
+  const version = id.version === null ? "unsaved scratch" : `v${id.version}${id.edited ? " (edited)" : ""}`;
+  return `${oneLine(id.setName)} · ${version} · ${shortNumber(id.temperatureK)} K · ${shortNumber(id.fieldT)} T`;
+}
+
+/** "Terbium-gallium-garnet-v3-293.15K-1T": the start of every exported file's name. */
+export function figureFileBase(id: FigureIdentity): string {
+  const version = id.version === null ? "scratch" : `v${id.version}${id.edited ? "-edited" : ""}`;
+  const t = `${shortNumber(id.temperatureK)}K`;
+  const b = `${shortNumber(id.fieldT)}T`;
+  return exportFileName(id.setName, `${version}-${t}-${b}`, "x").replace(/\.x$/, "");
 }

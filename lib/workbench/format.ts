@@ -33,3 +33,14 @@ export function magneticScaleLabel(magneticScale: number | undefined): string | 
   const shown = Number.isInteger(magneticScale) ? magneticScale.toFixed(1) : String(Number(magneticScale.toPrecision(3)));
   return `magnetic-dipole part × ${shown}, not first-principles`;
 }
+
+/**
+ * A signed difference with a fixed number of decimals: "+1.23", "−0.45", and "0.00" for anything
+ * that rounds to zero (toFixed alone writes "-0.00" for −0.001, a sign with no meaning).
+ */
+export function fmtDelta(value: number | null | undefined, digits = 2): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "–";
+  const rounded = Number(value.toFixed(digits));
+  if (rounded === 0) return (0).toFixed(digits);
+  return `${rounded > 0 ? "+" : "−"}${Math.abs(rounded).toFixed(digits)}`;
+}

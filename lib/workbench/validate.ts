@@ -116,3 +116,8 @@ export function checkedSpectrumRequest(input: z.input<typeof spectrumRequestSche
   const where = issue && issue.path.length > 0 ? `${String(issue.path[0])}: ` : "";
   throw new Error(issue ? `${where}${issue.message}` : "invalid spectrum request");
 }
+
+/** True when two parameter sets differ in any model parameter (key order and extra keys ignored). */
+export function paramsDiffer(a: ModelParams, b: ModelParams): boolean {
+  return PARAM_META.some((m) => a[m.key] !== b[m.key]);
+}

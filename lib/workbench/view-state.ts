@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { MAX_WAVELENGTHS } from "@/lib/physics/schema";
+import { COMPARE_QUANTITIES } from "./compare";
 import { X_UNITS, Y_MODES } from "./units";
 
 /*
@@ -11,6 +12,9 @@ import { X_UNITS, Y_MODES } from "./units";
 
 export const DEFAULT_MARKERS_NM = [632.8, 800, 1064, 1550] as const;
 export const MAX_MARKERS = 24;
+/** Markers are laser lines and band edges: from the deep ultraviolet to the mid-infrared. */
+export const MARKER_MIN_NM = 1;
+export const MARKER_MAX_NM = 5000;
 
 export const rangeSchema = z
   .strictObject({
@@ -42,9 +46,12 @@ export const viewStateSchema = z.object({
   yMode: z.enum(Y_MODES).catch("rad"),
   series: seriesSchema.catch({ total: true, electric: true, magnetic: true, cross: false }),
   showEllipticity: z.boolean().catch(false),
+  // A stored marker outside the accepted range (older views allowed up to 1e7 nm) is dropped, not
+  // the whole list.
   markersNm: z
-    .array(z.number().gt(0).max(1e7))
+    .array(z.number())
     .max(MAX_MARKERS)
+    .transform((nms) => nms.filter((nm) => Number.isFinite(nm) && nm >= MARKER_MIN_NM && nm <= MARKER_MAX_NM))
     .catch([...DEFAULT_MARKERS_NM]),
   range: rangeSchema.catch(DEFAULT_RANGE),
   panels: z
@@ -54,6 +61,8 @@ export const viewStateSchema = z.object({
     .strictObject({ wavelengthNm: z.number().gt(0).max(1e7), intensityWPerM2: z.number().min(0).max(1e20), periods: z.number().int().min(1).max(50) })
     .catch({ wavelengthNm: 632.8, intensityWPerM2: 1e13, periods: 12 }),
   compareSetIds: z.array(z.string().max(100)).max(8).catch([]),
+  // What the compare panel overlays; the Verdet constant compares sets of different B0 and L.
+  compareQuantity: z.enum(COMPARE_QUANTITIES).catch("verdet"),
 });
 
 export type ViewState = z.infer<typeof viewStateSchema>;
