@@ -1,6 +1,6 @@
 "use client";
 
-import { memo, useDeferredValue, useMemo, useRef } from "react";
+import { memo, useDeferredValue, useEffect, useMemo, useRef, useState, type RefObject } from "react";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
@@ -30,6 +30,26 @@ const MODE_STYLE = {
   mean: { color: COMPARE_COLORS[0], dash: undefined, width: 2.4 },
 } as const;
 
+/**
+ * Whether an element is on screen or within a screen's reach of it. The plots below the fold are
+ * drawn only once the reader gets near them, so a new result never pays for SVG nobody sees.
+ */
+function useNearViewport<T extends Element>(mounted: boolean): [RefObject<T | null>, boolean] {
+  const ref = useRef<T>(null);
+  const [near, setNear] = useState(false);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el || typeof IntersectionObserver === "undefined") {
+      setNear(true);
+      return;
+    }
+    const io = new IntersectionObserver((entries) => setNear(entries.some((e) => e.isIntersecting)), { rootMargin: "600px 0px" });
+    io.observe(el);
+    return () => io.disconnect();
+  }, [mounted]);
+  return [ref, near];
+}
+
 const positiveOrNull = (v: number | null) => (v !== null && v > 0 && Number.isFinite(v) ? v : null);
 
 function AbsorptionPanelImpl({
@@ -54,10 +74,11 @@ function AbsorptionPanelImpl({
   const points = useDeferredValue(pointsNow);
   const markerPoints = useDeferredValue(markerPointsNow);
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
+  const available = hasAbsorption(points);
+  const [plotsRef, near] = useNearViewport<HTMLDivElement>(available);
   const tSvg = useRef<SVGSVGElement>(null);
   const aSvg = useRef<SVGSVGElement>(null);
   const fSvg = useRef<SVGSVGElement>(null);
-  const available = hasAbsorption(points);
   const rows = useMemo(() => points.map(absorptionRow), [points]);
   const xs = useMemo(() => points.map((p) => fromNm(p.wavelengthNm, xUnit)), [points, xUnit]);
   const warning = useMemo(() => opaqueWarning(points, lengthM), [points, lengthM]);
@@ -99,6 +120,9 @@ function AbsorptionPanelImpl({
         <p className="text-sm">At least one circular mode transmits {OPAQUE_TRANSMISSION * 100} % or more at every computed wavelength.</p>
       )}
 
+      <div ref={plotsRef} className={near ? "space-y-3" : "min-h-[48rem]"}>
+      {near ? (
+      <>
       <LinePlot {...shared} title={`Transmission of each circular mode through ${fmtLength(lengthM)}`} yLabel="Transmission (%)" series={transmission} height={240} yDomain={tDomain} hLines={hLines} svgRef={tSvg} />
       <PlotExportButtons svgRef={tSvg} fileBase={`${fileBase}-transmission`} plotName="transmission plot" />
 
@@ -148,6 +172,11 @@ function AbsorptionPanelImpl({
           </table>
         </div>
       ) : null}
+      </>
+      ) : (
+        <p className="text-sm text-ink-soft">The plots are drawn when you scroll to them.</p>
+      )}
+      </div>
     </div>
   );
 }
