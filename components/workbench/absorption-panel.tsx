@@ -1,6 +1,6 @@
 "use client";
 
-import { memo, useDeferredValue, useMemo, useRef } from "react";
+import { memo, useDeferredValue, useEffect, useMemo, useRef, useState, type RefObject } from "react";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
@@ -30,6 +30,26 @@ const MODE_STYLE = {
   mean: { color: COMPARE_COLORS[0], dash: undefined, width: 2.4 },
 } as const;
 
+/**
+ * Whether an element is on screen or within a screen's reach of it. The plots below the fold are
+ * drawn only once the reader gets near them, so a new result never pays for SVG nobody sees.
+ */
+function useNearViewport<T extends Element>(mounted: boolean): [RefObject<T | null>, boolean] {
+  const ref = useRef<T>(null);
+  const [near, setNear] = useState(false);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el || typeof IntersectionObserver === "undefined") {
+      setNear(true);
+      return;
+    }
+    const io = new IntersectionObserver((entries) => setNear(entries.some((e) => e.isIntersecting)), { rootMargin: "600px 0px" });
+    io.observe(el);
+    return () => io.disconnect();
+  }, [mounted]);
+  return [ref, near];
+}
+
 const positiveOrNull = (v: number | null) => (v !== null && v > 0 && Number.isFinite(v) ? v : null);
 
 function AbsorptionPanelImpl({
@@ -54,10 +74,11 @@ function AbsorptionPanelImpl({
   const points = useDeferredValue(pointsNow);
   const markerPoints = useDeferredValue(markerPointsNow);
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
+  const available = hasAbsorption(points);
+  const [plotsRef, near] = useNearViewport<HTMLDivElement>(available);
   const tSvg = useRef<SVGSVGElement>(null);
   const aSvg = useRef<SVGSVGElement>(null);
   const fSvg = useRef<SVGSVGElement>(null);
-  const available = hasAbsorption(points);
   const rows = useMemo(() => points.map(absorptionRow), [points]);
   const xs = useMemo(() => points.map((p) => fromNm(p.wavelengthNm, xUnit)), [points, xUnit]);
   const warning = useMemo(() => opaqueWarning(points, lengthM), [points, lengthM]);
@@ -99,55 +120,63 @@ function AbsorptionPanelImpl({
         <p className="text-sm">At least one circular mode transmits {OPAQUE_TRANSMISSION * 100} % or more at every computed wavelength.</p>
       )}
 
-      <LinePlot {...shared} title={`Transmission of each circular mode through ${fmtLength(lengthM)}`} yLabel="Transmission (%)" series={transmission} height={240} yDomain={tDomain} hLines={hLines} svgRef={tSvg} />
-      <PlotExportButtons svgRef={tSvg} fileBase={`${fileBase}-transmission`} plotName="transmission plot" />
+      <div ref={plotsRef} className={near ? "space-y-3" : "min-h-[48rem]"}>
+        {near ? (
+          <>
+            <LinePlot {...shared} title={`Transmission of each circular mode through ${fmtLength(lengthM)}`} yLabel="Transmission (%)" series={transmission} height={240} yDomain={tDomain} hLines={hLines} svgRef={tSvg} />
+            <PlotExportButtons svgRef={tSvg} fileBase={`${fileBase}-transmission`} plotName="transmission plot" />
 
-      {anyLoss ? (
-        <>
-          <LinePlot {...shared} title="Absorption coefficient (log scale)" yType="log" yLabel="α (cm⁻¹)" series={alpha} height={240} svgRef={aSvg} />
-          <PlotExportButtons svgRef={aSvg} fileBase={`${fileBase}-absorption`} plotName="absorption plot" />
-          <LinePlot {...shared} title="Figure of merit |V| / α (log scale)" yType="log" yLabel="|V| / α (rad/T)" series={fom} height={220} legend={false} svgRef={fSvg} />
-          <PlotExportButtons svgRef={fSvg} fileBase={`${fileBase}-figure-of-merit`} plotName="figure of merit plot" />
-        </>
-      ) : (
-        <p className="text-sm">No loss in this model at these wavelengths (α = 0: ΓE = 0 and no spin damping), so the figure of merit |V|/α is not defined.</p>
-      )}
+            {anyLoss ? (
+              <>
+                <LinePlot {...shared} title="Absorption coefficient (log scale)" yType="log" yLabel="α (cm⁻¹)" series={alpha} height={240} svgRef={aSvg} />
+                <PlotExportButtons svgRef={aSvg} fileBase={`${fileBase}-absorption`} plotName="absorption plot" />
+                <LinePlot {...shared} title="Figure of merit |V| / α (log scale)" yType="log" yLabel="|V| / α (rad/T)" series={fom} height={220} legend={false} svgRef={fSvg} />
+                <PlotExportButtons svgRef={fSvg} fileBase={`${fileBase}-figure-of-merit`} plotName="figure of merit plot" />
+              </>
+            ) : (
+              <p className="text-sm">No loss in this model at these wavelengths (α = 0: ΓE = 0 and no spin damping), so the figure of merit |V|/α is not defined.</p>
+            )}
 
-      {markerRows.length > 0 ? (
-        <div className="overflow-x-auto">
-          <table className="w-full min-w-[36rem] text-sm tabular-nums">
-            <caption className="text-left font-semibold">Absorption at the markers</caption>
-            <thead className="text-left text-xs text-ink-soft">
-              <tr>
-                <th scope="col" className="py-1 pr-3 font-medium">λ (nm)</th>
-                <th scope="col" className="py-1 pr-3 font-medium">mean α (cm⁻¹)</th>
-                <th scope="col" className="py-1 pr-3 font-medium">T “+”</th>
-                <th scope="col" className="py-1 pr-3 font-medium">T “−”</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Ellipticity angle (°)</th>
-                <th scope="col" className="py-1 font-medium">|V| / α (rad/T)</th>
-              </tr>
-            </thead>
-            <tbody>
-              {markerRows.map((r) => (
-                <tr key={r.wavelengthNm} className="border-t border-ink/10">
-                  <th scope="row" className="py-1 pr-3 text-left font-medium">
-                    {fmt(r.wavelengthNm, 5)}
-                    {r.opaque ? <span className="ml-2 rounded bg-ember-light px-1.5 text-xs font-semibold text-ink">opaque</span> : null}
-                  </th>
-                  <td className="py-1 pr-3">{fmt(r.alphaMeanPerCm, 3)}</td>
-                  <td className="py-1 pr-3">{formatTransmission(r.transmissionPlus)}</td>
-                  <td className="py-1 pr-3">{formatTransmission(r.transmissionMinus)}</td>
-                  <td className="py-1 pr-3">
-                    {r.ellipticityAngleRad === null ? "–" : fmt((r.ellipticityAngleRad * 180) / Math.PI, 3)}
-                    {r.etaSmall ? null : <span className="ml-1 text-xs text-ink-soft">(|η| large)</span>}
-                  </td>
-                  <td className="py-1">{fmt(r.figureOfMeritRadPerT, 3)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
-      ) : null}
+            {markerRows.length > 0 ? (
+              <div className="overflow-x-auto">
+                <table className="w-full min-w-[36rem] text-sm tabular-nums">
+                  <caption className="text-left font-semibold">Absorption at the markers</caption>
+                  <thead className="text-left text-xs text-ink-soft">
+                    <tr>
+                      <th scope="col" className="py-1 pr-3 font-medium">λ (nm)</th>
+                      <th scope="col" className="py-1 pr-3 font-medium">mean α (cm⁻¹)</th>
+                      <th scope="col" className="py-1 pr-3 font-medium">T “+”</th>
+                      <th scope="col" className="py-1 pr-3 font-medium">T “−”</th>
+                      <th scope="col" className="py-1 pr-3 font-medium">Ellipticity angle (°)</th>
+                      <th scope="col" className="py-1 font-medium">|V| / α (rad/T)</th>
+                    </tr>
+                  </thead>
+                  <tbody>
+                    {markerRows.map((r) => (
+                      <tr key={r.wavelengthNm} className="border-t border-ink/10">
+                        <th scope="row" className="py-1 pr-3 text-left font-medium">
+                          {fmt(r.wavelengthNm, 5)}
+                          {r.opaque ? <span className="ml-2 rounded bg-ember-light px-1.5 text-xs font-semibold text-ink">opaque</span> : null}
+                        </th>
+                        <td className="py-1 pr-3">{fmt(r.alphaMeanPerCm, 3)}</td>
+                        <td className="py-1 pr-3">{formatTransmission(r.transmissionPlus)}</td>
+                        <td className="py-1 pr-3">{formatTransmission(r.transmissionMinus)}</td>
+                        <td className="py-1 pr-3">
+                          {r.ellipticityAngleRad === null ? "–" : fmt((r.ellipticityAngleRad * 180) / Math.PI, 3)}
+                          {r.etaSmall ? null : <span className="ml-1 text-xs text-ink-soft">(|η| large)</span>}
+                        </td>
+                        <td className="py-1">{fmt(r.figureOfMeritRadPerT, 3)}</td>
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+              </div>
+            ) : null}
+          </>
+        ) : (
+          <p className="text-sm text-ink-soft">The plots are drawn when you scroll to them.</p>
+        )}
+      </div>
     </div>
   );
 }

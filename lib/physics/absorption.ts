@@ -5,7 +5,7 @@
  * Conventions (§1): a wave along +z is exp(i(ωt − n ω z / c)), so with Im n ≤ 0 its field falls as
  * exp(Im n · ω z / c) and its intensity as exp(−α z) with α = −2 ω Im n / c (the intensity
  * absorption coefficient, α = 4π k / λ with k = −Im n the extinction coefficient; M. Born and
- * E. Wolf, "Principles of Optics", §14.1; E. Hecht, "Optics", §4.8). Transmission is the internal
+ * E. Wolf, "Principles of Optics", ch. 14, chapter from memory). Transmission is the internal
  * transmission of one pass (Beer–Lambert, T = exp(−α L)); surface reflections are not included.
  */
 import { SPEED_OF_LIGHT_M_PER_S } from "./constants";

@@ -56,8 +56,8 @@ export function gyration(p: DielectricParams, gyrationK: number, omega: number):
  * Classical bound-electron (diamagnetic) gyration of §5.5:
  *   G_dia(ω) = −(e B0 / m_e) ω [ B ωS² / (ωS² − ω²)² + f ωE² / (ωE² − ω² + i ΓE ω)² ],
  * which for ΓE = 0 is −(e B0 / 2 m_e) dε/dω: each oscillator of ε shifted by the Larmor frequency
- * e B0 / 2 m_e in opposite senses for the two circular modes (the Becquerel picture; L. D. Landau and
- * E. M. Lifshitz, "Electrodynamics of Continuous Media", §101). It follows B0, not M0.
+ * e B0 / 2 m_e in opposite senses for the two circular modes (the Becquerel picture, Larmor's
+ * theorem; common practice, no source). It follows B0, not M0.
  */
 export function diamagneticGyration(p: DielectricParams, fieldT: number, omega: number): Complex {
   if (fieldT === 0) return cx(0);

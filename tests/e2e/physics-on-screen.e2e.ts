@@ -36,6 +36,8 @@ describe("physics on screen", () => {
     const note = page.getByTestId("opaque-warning");
     await note.waitFor({ timeout: RUN_TIMEOUT });
     expect(await note.innerText()).toMatch(/Opaque for this 10 mm sample at 300(\.\d+)?–\d+(\.\d+)? nm/);
+    // The absorption plots are drawn once they come near the viewport.
+    await page.getByRole("heading", { name: "Absorption and transmission" }).scrollIntoViewIfNeeded();
     await page.getByRole("img", { name: /^Transmission of each circular mode through 10 mm/ }).waitFor();
     await page.getByRole("img", { name: /^Figure of merit \|V\| \/ α/ }).waitFor();
 

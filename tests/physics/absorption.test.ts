@@ -20,10 +20,10 @@ const req = (over: Partial<SpectrumRequest>, wavelengthsNm: number[]): SpectrumR
 
 describe("absorption from Im n±", () => {
   it("α = 4π k / λ with k from the closed form of n = n′ − i k, n² = ε, of an isotropic medium (no spins)", () => {
-    // n = n′ − i k with n² = ε: n′ = √((|ε| + Re ε)/2) and 2 n′ k = −Im ε (M. Born and E. Wolf,
-    // "Principles of Optics", §14.1; the form k = √((|ε| − Re ε)/2) cancels when Im ε is tiny);
-    // intensity absorption coefficient α = 4π k / λ (E. Hecht, "Optics", §4.8). Without spins or
-    // gyration both circular modes see ε alone.
+    // n = n′ − i k with n² = ε: n′ = √((|ε| + Re ε)/2) and 2 n′ k = −Im ε (squaring n′ − i k; the
+    // form k = √((|ε| − Re ε)/2) cancels when Im ε is tiny); intensity absorption coefficient
+    // α = 4π k / λ (M. Born and E. Wolf, "Principles of Optics", ch. 14, and E. Hecht, "Optics";
+    // chapter numbers from memory). Without spins or gyration both circular modes see ε alone.
     const over = { ionDensityPerM3: 0, lengthM: 0.003 };
     const lambdas = [280, 400, 632.8, 1064];
     const r = computeSpectrum(req(over, lambdas));
@@ -80,10 +80,11 @@ describe("absorption from Im n±", () => {
 });
 
 describe("ellipticity of the transmitted light", () => {
-  it("atan(tanh η) is the axis-ratio angle of the ellipse that (1, 0) becomes (Jones vector, Born & Wolf §1.4.2)", () => {
+  it("atan(tanh η) is the axis-ratio angle of the ellipse that (1, 0) becomes (Jones vector; polarization ellipse of Born & Wolf ch. 1)", () => {
     // Output of the slab for input (1, 0): E = ½ (a + b, −i(a − b)), a = e^{η′}, b = e^{−η′} with only
     // the amplitudes differing (phases removed: they only turn the ellipse). For E = (Ex, Ey) the
-    // semi-axes satisfy a₁² + a₂² = |Ex|² + |Ey|² and a₁ a₂ = |Im(Ex* Ey)| (Born & Wolf §1.4.2), so
+    // semi-axes satisfy a₁² + a₂² = |Ex|² + |Ey|² and a₁ a₂ = |Im(Ex* Ey)| (Born & Wolf, ch. 1, the
+    // polarization ellipse; section from memory), so
     // tan χ = a₂/a₁ is the smaller root ratio.
     for (const eta of [1e-6, 0.05, 0.3, 1, 2.5, 10, -0.7]) {
       const a = Math.exp(-eta);

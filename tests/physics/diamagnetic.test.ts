@@ -45,8 +45,8 @@ describe("diamagnetic term: constants and the Becquerel form", () => {
   });
 
   it("worked example with a constant dn/dλ: V = (e/2mₑc) λ |dn/dλ|", () => {
-    // Becquerel (1897), e.g. in A. K. Zvezdin and V. A. Kotov, "Modern Magnetooptics and
-    // Magnetooptical Materials" (IOP, 1997), §1: V = −(e/2mₑc) λ dn/dλ. For a glass with
+    // Becquerel's formula V = −(e/2mₑc) λ dn/dλ (H. Becquerel, C. R. Acad. Sci. 125, 679 (1897),
+    // citation from memory; restated in physics-model.md §5.5 with e/2mₑc = 293.34). For a glass with
     // dn/dλ = −0.03 µm⁻¹ (−3.0e4 m⁻¹) at 632.8 nm:
     // V = 293.34 × 632.8e-9 m × 3.0e4 m⁻¹ = 5.569 rad/(T·m) (arithmetic done by hand).
     const v = BECQUEREL * 632.8e-9 * 3.0e4;
