@@ -1,7 +1,7 @@
 "use client";
 
 import { line } from "d3";
-import { memo, useId, useMemo, type KeyboardEvent, type MouseEvent, type Ref } from "react";
+import { memo, useId, useMemo, type KeyboardEvent, type MouseEvent, type ReactNode, type Ref } from "react";
 import { XAxis, YAxis } from "./axes";
 import { frameTop, PlotFrame } from "./plot-frame";
 import { makeScale, paddedExtent, type ScaleType } from "./scale";
@@ -23,6 +23,13 @@ export interface PlotSeries {
 export interface PlotMarker {
   x: number;
   label: string;
+}
+
+/** Extra marks drawn in the plot's scales (e.g. measured points); yExtent joins the y domain. */
+export interface PlotLayer {
+  key: string;
+  yExtent: readonly number[];
+  render: (scales: { x: (v: number) => number; y: (v: number) => number }) => ReactNode;
 }
 
 export interface LinePlotProps {
@@ -49,12 +56,14 @@ export interface LinePlotProps {
   svgRef?: Ref<SVGSVGElement>;
   describedBy?: string;
   legend?: boolean;
+  layers?: readonly PlotLayer[];
 }
 
 const MARGIN = { right: 18, bottom: 50, left: 76 };
+const NO_LAYERS: readonly PlotLayer[] = [];
 
 function LinePlotImpl(props: LinePlotProps) {
-  const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true } = props;
+  const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true, layers = NO_LAYERS } = props;
   const M = { ...MARGIN, top: frameTop(banner) };
   const clipId = `clip-${useId().replace(/[^\w-]/g, "")}`;
   const innerW = Math.max(40, width - M.left - M.right);
@@ -74,9 +83,9 @@ function LinePlotImpl(props: LinePlotProps) {
   }, [xs, xType, innerW, M.left]);
 
   const yScale = useMemo(() => {
-    const dom = yDomain ?? paddedExtent(series.map((s) => s.values), yType === "log") ?? (yType === "log" ? [1, 10] : [-1, 1]);
+    const dom = yDomain ?? paddedExtent([...series.map((s) => s.values), ...layers.map((l) => l.yExtent)], yType === "log") ?? (yType === "log" ? [1, 10] : [-1, 1]);
     return makeScale(yType, dom as [number, number], [M.top + innerH, M.top], yDomain === undefined);
-  }, [series, yDomain, yType, innerH, M.top]);
+  }, [series, layers, yDomain, yType, innerH, M.top]);
 
   const paths = useMemo(() => {
     return series.map((s) => {
@@ -179,6 +188,9 @@ function LinePlotImpl(props: LinePlotProps) {
             const s = series[i]!;
             return <path key={p.key} d={p.d} fill="none" stroke={s.color} strokeWidth={s.width} strokeDasharray={s.dash} strokeLinejoin="round" />;
           })}
+          {layers.map((l) => (
+            <g key={`layer-${l.key}`}>{l.render({ x: xScale, y: yScale })}</g>
+          ))}
           {dots.map((d) => (
             <g key={`d${d.x}`}>
               <circle cx={xScale(d.x)} cy={yScale(d.y)} r={5} fill="#ffffff" stroke="#1d2433" strokeWidth={2} />
