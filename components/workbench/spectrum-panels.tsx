@@ -4,6 +4,7 @@ import { memo, useMemo, useRef, useState } from "react";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
+import { useMeasurementLayers } from "./measurement-overlay";
 import type { SpectrumPoint } from "@/lib/physics/types";
 import { describeCrossing, shareCrossingsNm } from "@/lib/workbench/crossing";
 import { fmt, fmtPercent } from "@/lib/workbench/format";
@@ -24,6 +25,8 @@ import {
 import type { ViewState } from "@/lib/workbench/view-state";
 
 const SELECT = "rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux";
+
+const NO_IDS: readonly string[] = [];
 
 type SeriesToggle = "total" | "electric" | "magnetic" | "cross";
 const TOGGLES: SeriesToggle[] = ["total", "electric", "magnetic", "cross"];
@@ -48,6 +51,7 @@ function SpectrumPanelsImpl({
   banner,
   fileBase,
   methodLabel,
+  overlaySetIds = NO_IDS,
 }: {
   points: readonly SpectrumPoint[];
   geometry: Geometry;
@@ -57,6 +61,8 @@ function SpectrumPanelsImpl({
   banner: string | null;
   fileBase: string;
   methodLabel: string;
+  /** Measurement sets drawn as points with error bars over the spectrum. */
+  overlaySetIds?: readonly string[];
 }) {
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
   const [cursor, setCursor] = useState<number | null>(null);
@@ -86,6 +92,8 @@ function SpectrumPanelsImpl({
   const hLines = useMemo(() => [{ y: 50, label: "50 %" }], []);
   const shareDomain = useMemo<[number, number]>(() => [0, 100], []);
 
+  const rangeNm = useMemo(() => (points.length > 0 ? ([points[0]!.wavelengthNm, points[points.length - 1]!.wavelengthNm] as const) : null), [points]);
+  const layers = useMeasurementLayers({ setIds: overlaySetIds, xUnit, yMode, yUnit: Y_UNIT_SHORT[yMode], geometry, rangeNm });
   const pick = (x: number) => onAddMarker(Number(toNm(x, xUnit).toPrecision(5)));
   const cp = cursor !== null ? points[cursor] : undefined;
   const yUnit = Y_UNIT_SHORT[yMode];
@@ -137,7 +145,7 @@ function SpectrumPanelsImpl({
       </div>
 
       <div ref={wrapRef} className="space-y-2">
-        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel})`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} />
+        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel})`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} layers={layers} />
         <PlotExportButtons svgRef={spectrumSvg} fileBase={`${fileBase}-spectrum`} plotName="spectrum plot" />
 
         <div id="spectrum-readout" aria-live="polite" className="min-h-12 rounded-md bg-paper-sunk px-3 py-2 text-xs tabular-nums text-ink">

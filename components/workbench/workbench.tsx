@@ -20,6 +20,7 @@ import { normalizeMarkers } from "@/lib/workbench/derived";
 import { DEFAULT_MARKERS_NM, MAX_MARKERS, type PanelKey, type ViewState } from "@/lib/workbench/view-state";
 import { ExportBar } from "./export-bar";
 import { MarkerTable } from "./marker-table";
+import { MeasurementOverlayPicker } from "./measurement-overlay";
 import { ParameterPanel } from "./parameter-panel";
 import { RangeControls } from "./range-controls";
 import { RunStatusBar } from "./run-status";
@@ -116,6 +117,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
   );
   const removeMarker = useCallback((nm: number) => setViewState((v) => ({ ...v, markersNm: v.markersNm.filter((m) => m !== nm) })), [setViewState]);
   const resetMarkers = useCallback(() => setViewState((v) => ({ ...v, markersNm: [...DEFAULT_MARKERS_NM] })), [setViewState]);
+  const [overlayIds, setOverlayIds] = useState<string[]>([]);
   const togglePanel = (k: PanelKey, on: boolean) => setViewState((v) => ({ ...v, panels: { ...v.panels, [k]: on } }));
 
   return (
@@ -176,7 +178,9 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
                 banner={scaleLabel}
                 fileBase={fileBase}
                 methodLabel={methodLabel}
+                overlaySetIds={overlayIds}
               />
+              <MeasurementOverlayPicker selected={overlayIds} onChange={setOverlayIds} yMode={viewState.yMode} geometry={geometry} temperatureK={shownParams.temperatureK} />
               <MarkerTable
                 markersNm={viewState.markersNm}
                 result={run.shown.markers}
