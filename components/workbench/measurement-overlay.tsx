@@ -47,7 +47,7 @@ function Marker({ x, y, style }: { x: number; y: number; style: OverlayStyle }) 
 }
 
 function formatPoint(p: OverlayPoint, yUnit: string): string {
-  return `line ${p.point.line}: ${fmt(p.point.wavelengthNm, 5)} nm, ${fmt(p.y, 4)} ± ${fmt(p.sigma, 2)} ${yUnit} at ${fmt(p.point.temperatureK, 4)} K`;
+  return `line ${p.point.line}: ${fmt(p.point.wavelengthNm, 5)} nm, ${fmt(p.y, 4)} ± ${fmt(p.sigma, 2)} ${yUnit} at ${fmt(p.point.temperatureK, 5)} K`;
 }
 
 // Module-level, so TanStack Query keeps the combined array stable while the data is unchanged.
@@ -111,7 +111,7 @@ function Swatch({ index }: { index: number }) {
 }
 
 function setLabel(set: MeasurementSetSummary): string {
-  const t = set.temperaturesK.map((v) => fmt(v, 4)).join(", ");
+  const t = set.temperaturesK.map((v) => fmt(v, 5)).join(", ");
   return `${set.rowCount} points, ${fmt(set.wavelengthSpanNm.min, 4)}–${fmt(set.wavelengthSpanNm.max, 4)} nm, ${t} K`;
 }
 
@@ -182,7 +182,7 @@ export function MeasurementOverlayPicker({
             <p className="mt-2 text-xs text-ink-soft" data-testid="overlay-conversion">
               Points with ±σ error bars. {describeConversion({ yMode, geometry, quantities })} Points outside the plotted range are not drawn.
               {otherTemperature.length > 0
-                ? ` ${otherTemperature.map((s) => `“${s.name}”`).join(", ")} ${otherTemperature.length === 1 ? "has" : "have"} points at temperatures other than the curve's ${fmt(temperatureK, 4)} K.`
+                ? ` ${otherTemperature.map((s) => `“${s.name}”`).join(", ")} ${otherTemperature.length === 1 ? "has" : "have"} points at temperatures other than the curve's ${fmt(temperatureK, 5)} K.`
                 : ""}
             </p>
           ) : null}
