@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { MAX_ROWS, parseMeasurementTable, proposeMapping, readTable, type ColumnMapping } from "@/lib/measurements/parse";
+import { measuredPointSchema } from "@/lib/measurements/point";
 
 const DEFAULT_HEADER = "wavelength_nm,verdet_rad_per_T_m,sigma,temperature_K,field_T,length_m";
 
@@ -61,6 +62,8 @@ describe("parseMeasurementTable", () => {
       { line: 2, wavelengthNm: 632.8, quantity: "verdet", value: -134, sigma: 2, temperatureK: 293.15, fieldT: 1, lengthM: 0.01 },
       { line: 3, wavelengthNm: 1064, quantity: "verdet", value: -40, sigma: 1.5, temperatureK: 293.15, fieldT: 1, lengthM: 0.01 },
     ]);
+    // The shared shape's schema accepts every point the reader returns.
+    for (const point of result.points) expect(measuredPointSchema.parse(point)).toEqual(point);
   });
 
   it("takes missing columns from the file's defaults and converts units", () => {
@@ -108,6 +111,11 @@ describe("parseMeasurementTable", () => {
       "line 8: temperature must be > 0 K",
       "line 9: wavelength must be > 0",
     ]);
+  });
+
+  it("refuses a value that overflows when converted to SI", () => {
+    const result = parseMeasurementTable(`${DEFAULT_HEADER}\n500,1e307,1,1,1,1\n`, { ...mapping, valueUnit: "min/(Oe·cm)" });
+    expect(result.errors).toEqual(["line 2: value or σ is out of range after conversion"]);
   });
 
   it("names a mapped column the file lacks and a unit that does not fit", () => {
