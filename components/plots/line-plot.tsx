@@ -1,7 +1,7 @@
 "use client";
 
 import { line } from "d3";
-import { memo, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent, type Ref } from "react";
+import { memo, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type MouseEvent, type PointerEvent, type ReactNode, type Ref } from "react";
 import { layoutMarkerLabels } from "@/lib/workbench/label-layout";
 import { clampDomain, panToInclude, visibleYExtent, zoomDomain, type Domain } from "@/lib/workbench/zoom";
 import { XAxis, YAxis } from "./axes";
@@ -28,6 +28,13 @@ export interface PlotSeries {
 export interface PlotMarker {
   x: number;
   label: string;
+}
+
+/** Extra marks drawn in the plot's scales (e.g. measured points); yExtent joins the y domain. */
+export interface PlotLayer {
+  key: string;
+  yExtent: readonly number[];
+  render: (scales: { x: (v: number) => number; y: (v: number) => number }) => ReactNode;
 }
 
 export interface LinePlotProps {
@@ -58,6 +65,7 @@ export interface LinePlotProps {
   xView?: Domain | null;
   /** Enables zoom and pan; called with the new window, or null for the whole range. */
   onXViewChange?: (view: [number, number] | null) => void;
+  layers?: readonly PlotLayer[];
 }
 
 /** Pointer travel (px) that turns a press into a drag-to-zoom rather than a click. */
@@ -67,9 +75,10 @@ const ZOOM_STEP = 0.5;
 const MARKER_ROW_PX = 13;
 
 const MARGIN = { right: 18, bottom: 50, left: 76 };
+const NO_LAYERS: readonly PlotLayer[] = [];
 
 function LinePlotImpl(props: LinePlotProps) {
-  const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true, xView = null, onXViewChange } = props;
+  const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true, xView = null, onXViewChange, layers = NO_LAYERS } = props;
   const M = { ...MARGIN, top: frameTop(banner, { title, width, left: MARGIN.left }) };
   const clipId = `clip-${useId().replace(/[^\w-]/g, "")}`;
   const innerW = Math.max(40, width - M.left - M.right);
@@ -97,9 +106,14 @@ function LinePlotImpl(props: LinePlotProps) {
   const xScale = useMemo(() => makeScale(xType, shownX, [M.left, M.left + innerW], false), [xType, shownX, innerW, M.left]);
 
   const yScale = useMemo(() => {
-    const dom = yDomain ?? visibleYExtent(xs, series.map((s) => s.values), windowX, yType === "log") ?? (yType === "log" ? [1, 10] : [-1, 1]);
+    const log = yType === "log";
+    // Zoomed: fit the curves inside the window. Whole range: the curves and any overlaid layers.
+    const dom =
+      yDomain ??
+      (windowX ? visibleYExtent(xs, series.map((s) => s.values), windowX, log) : paddedExtent([...series.map((s) => s.values), ...layers.map((l) => l.yExtent)], log)) ??
+      (log ? [1, 10] : [-1, 1]);
     return makeScale(yType, dom as [number, number], [M.top + innerH, M.top], yDomain === undefined);
-  }, [xs, series, windowX, yDomain, yType, innerH, M.top]);
+  }, [xs, series, layers, windowX, yDomain, yType, innerH, M.top]);
 
   const paths = useMemo(() => {
     return series.map((s) => {
@@ -293,6 +307,9 @@ function LinePlotImpl(props: LinePlotProps) {
             const s = series[i]!;
             return <path key={p.key} d={p.d} fill="none" stroke={s.color} strokeWidth={s.width} strokeDasharray={s.dash} strokeLinejoin="round" />;
           })}
+          {layers.map((l) => (
+            <g key={`layer-${l.key}`}>{l.render({ x: xScale, y: yScale })}</g>
+          ))}
           {dots.map((d) => (
             <g key={`d${d.x}`}>
               <circle cx={xScale(d.x)} cy={yScale(d.y)} r={5} fill="#ffffff" stroke="#1d2433" strokeWidth={2} />

@@ -5,6 +5,7 @@ import { Button } from "@/components/ui/button";
 import { LinePlot, type PlotSeries } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
+import { useMeasurementLayers } from "./measurement-overlay";
 import type { SpectrumPoint } from "@/lib/physics/types";
 import { formatTransmission } from "@/lib/workbench/absorption-view";
 import { describeCrossing, shareCrossingsNm } from "@/lib/workbench/crossing";
@@ -28,6 +29,8 @@ import { checkMarkerNm } from "@/lib/workbench/markers";
 import { isFullDomain, panDomain, zoomDomain, type Domain } from "@/lib/workbench/zoom";
 
 const SELECT = "rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux";
+
+const NO_IDS: readonly string[] = [];
 
 type SeriesToggle = "total" | "electric" | "magnetic" | "cross";
 const TOGGLES: SeriesToggle[] = ["total", "electric", "magnetic", "cross"];
@@ -54,6 +57,7 @@ function SpectrumPanelsImpl({
   fileBase,
   caption,
   methodLabel,
+  overlaySetIds = NO_IDS,
 }: {
   points: readonly SpectrumPoint[];
   geometry: Geometry;
@@ -65,6 +69,8 @@ function SpectrumPanelsImpl({
   /** Set, version, temperature and field (figureCaption): drawn in the titles, so exports carry them. */
   caption: string;
   methodLabel: string;
+  /** Measurement sets drawn as points with error bars over the spectrum. */
+  overlaySetIds?: readonly string[];
 }) {
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
   const [cursor, setCursor] = useState<number | null>(null);
@@ -134,6 +140,8 @@ function SpectrumPanelsImpl({
     setPickError(checked.error);
     if (checked.error === null) onAddMarker(nm);
   };
+  const rangeNm = useMemo(() => (points.length > 0 ? ([points[0]!.wavelengthNm, points[points.length - 1]!.wavelengthNm] as const) : null), [points]);
+  const layers = useMeasurementLayers({ setIds: overlaySetIds, xUnit, yMode, yUnit: Y_UNIT_SHORT[yMode], geometry, rangeNm });
   const cp = cursor !== null ? points[cursor] : undefined;
   const yUnit = Y_UNIT_SHORT[yMode];
   const yLabel = yMode === "verdet" ? Y_MODE_LABEL.verdet : `Rotation (${yUnit}) at ${geometry.fieldT} T, ${geometry.lengthM * 1000} mm`;
@@ -209,7 +217,7 @@ function SpectrumPanelsImpl({
       </div>
 
       <div ref={wrapRef} className="space-y-2">
-        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} />
+        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} layers={layers} />
         <PlotExportButtons svgRef={spectrumSvg} fileBase={`${fileBase}-spectrum`} plotName="spectrum plot" />
 
         <div id="spectrum-readout" aria-live="polite" className="min-h-12 rounded-md bg-paper-sunk px-3 py-2 text-xs tabular-nums text-ink">

@@ -21,6 +21,7 @@ import { checkMarkerNm } from "@/lib/workbench/markers";
 import { DEFAULT_MARKERS_NM, MAX_MARKERS, type PanelKey, type ViewState } from "@/lib/workbench/view-state";
 import { ExportBar } from "./export-bar";
 import { MarkerTable } from "./marker-table";
+import { MeasurementOverlayPicker } from "./measurement-overlay";
 import { ParameterPanel } from "./parameter-panel";
 import { RangeControls } from "./range-controls";
 import { RunStatusBar } from "./run-status";
@@ -130,6 +131,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
   );
   const removeMarker = useCallback((nm: number) => setViewState((v) => ({ ...v, markersNm: v.markersNm.filter((m) => m !== nm) })), [setViewState]);
   const resetMarkers = useCallback(() => setViewState((v) => ({ ...v, markersNm: [...DEFAULT_MARKERS_NM] })), [setViewState]);
+  const [overlayIds, setOverlayIds] = useState<string[]>([]);
   const togglePanel = (k: PanelKey, on: boolean) => setViewState((v) => ({ ...v, panels: { ...v.panels, [k]: on } }));
 
   return (
@@ -196,8 +198,10 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
                 fileBase={fileBase}
                 caption={figureCaption(figureId)}
                 methodLabel={methodLabel}
+                overlaySetIds={overlayIds}
               />
               <OpaqueNote points={run.shown.result.points} lengthM={geometry.lengthM} />
+              <MeasurementOverlayPicker selected={overlayIds} onChange={setOverlayIds} yMode={viewState.yMode} geometry={geometry} temperatureK={shownParams.temperatureK} />
               <MarkerTable
                 rows={markerValues.rows}
                 computing={markerValues.computing}

@@ -1,13 +1,14 @@
 import type { Metadata } from "next";
-import { ComingLater } from "@/components/shell/coming-later";
+import { Suspense } from "react";
+import { SkeletonRows } from "@/components/ui/skeleton";
+import { MeasurementsBrowser } from "./_components/measurements-browser";
 
 export const metadata: Metadata = { title: "Measurements" };
 
 export default function MeasurementsPage() {
   return (
-    <ComingLater
-      title="Measurements"
-      purpose="It will store your measured rotation spectra and lay them over a parameter set's prediction, so you can see where the electric-dipole and magnetic-dipole parts match the data."
-    />
+    <Suspense fallback={<SkeletonRows label="Loading measurement sets" />}>
+      <MeasurementsBrowser />
+    </Suspense>
   );
 }

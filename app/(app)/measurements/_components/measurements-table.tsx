@@ -1,0 +1,90 @@
+"use client";
+
+import { DateTime } from "@/components/ui/date-time";
+import { originalFileUrl, type MeasurementSetSummary } from "@/lib/query/measurements";
+import { hasRole } from "@/lib/query/types";
+import { formatBytes, formatSpan, formatValues, type SortDir, type SortKey } from "./format";
+
+interface TableProps {
+  items: MeasurementSetSummary[];
+  sortKey: SortKey;
+  sortDir: SortDir;
+  onSort: (key: SortKey) => void;
+  onDelete: (set: MeasurementSetSummary) => void;
+}
+
+function SortHeader({ label, column, sortKey, sortDir, onSort }: { label: string; column: SortKey } & Pick<TableProps, "sortKey" | "sortDir" | "onSort">) {
+  const active = column === sortKey;
+  return (
+    <th scope="col" aria-sort={active ? (sortDir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold">
+      <button type="button" onClick={() => onSort(column)} className="inline-flex items-center gap-1 rounded hover:text-lux-dark">
+        {label}
+        <span aria-hidden="true" className={active ? "text-lux" : "text-ink/30"}>
+          {active ? (sortDir === "asc" ? "▲" : "▼") : "↕"}
+        </span>
+      </button>
+    </th>
+  );
+}
+
+export function MeasurementsTable({ items, sortKey, sortDir, onSort, onDelete }: TableProps) {
+  const headerProps = { sortKey, sortDir, onSort };
+  return (
+    <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+      <table className="w-full text-sm">
+        <caption className="sr-only">Measurement sets. Column headers with buttons sort the table.</caption>
+        <thead className="border-b border-ink/10 bg-paper-sunk/70 text-ink">
+          <tr>
+            <SortHeader label="Name" column="name" {...headerProps} />
+            <SortHeader label="Rows" column="rows" {...headerProps} />
+            <SortHeader label="Wavelength span" column="span" {...headerProps} />
+            <th scope="col" className="px-3 py-2 text-left font-semibold">
+              Temperatures
+            </th>
+            <th scope="col" className="px-3 py-2 text-left font-semibold">
+              Fields
+            </th>
+            <SortHeader label="Uploaded" column="uploaded" {...headerProps} />
+            <th scope="col" className="px-3 py-2 text-left font-semibold">
+              <span className="sr-only">Actions</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-ink/10">
+          {items.map((set) => (
+            <tr key={set.id} className="align-top hover:bg-paper">
+              <td className="px-3 py-2.5">
+                <span className="font-medium">{set.name}</span>
+                <span className="mt-0.5 block text-xs text-ink-soft">
+                  {set.sample ? `${set.sample} · ` : ""}
+                  {set.quantity === "verdet" ? "Verdet constant" : "rotation"} · {set.labName}
+                </span>
+              </td>
+              <td className="px-3 py-2.5 tabular-nums">{set.rowCount.toLocaleString("en")}</td>
+              <td className="px-3 py-2.5 whitespace-nowrap tabular-nums">{formatSpan(set)}</td>
+              <td className="px-3 py-2.5 tabular-nums">{formatValues(set.temperaturesK, "K")}</td>
+              <td className="px-3 py-2.5 tabular-nums">{formatValues(set.fieldsT, "T")}</td>
+              <td className="px-3 py-2.5 whitespace-nowrap">
+                <DateTime iso={set.createdAt} />
+                <span className="block text-xs text-ink-soft">by {set.uploadedBy.name}</span>
+              </td>
+              <td className="px-3 py-2.5 whitespace-nowrap">
+                <a href={originalFileUrl(set.id)} download={set.fileName} className="text-sm text-lux-dark underline-offset-4 hover:underline">
+                  Download original<span className="sr-only">: {set.fileName}</span>
+                </a>
+                <span className="block text-xs text-ink-soft">
+                  {set.fileName} · {formatBytes(set.fileBytes)}
+                </span>
+                {hasRole(set.role, "editor") ? (
+                  <button type="button" onClick={() => onDelete(set)} className="mt-1 text-sm text-ember underline-offset-4 hover:underline">
+                    Delete<span className="sr-only"> {set.name}</span>
+                  </button>
+                ) : null}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,77 @@
+import { fromNm, rotationTo, type Geometry, type XUnit, type YMode } from "@/lib/workbench/units";
+import type { MeasuredPoint } from "./point";
+
+/*
+ * Measured points in the units of the workbench's spectrum plot. The plot's y axis is either a
+ * Verdet constant or a rotation at the set's own field B and length L (the curve's geometry), so:
+ *   - y = Verdet: a Verdet value is shown as is; a rotation θ measured at (B, L) as θ/(B·L);
+ *   - y = angle: a Verdet value V is shown as the rotation V·B·L at the plot's B and L; a
+ *     rotation measured at another B or L is shown as θ·(B_plot·L_plot)/(B·L).
+ * Both assume a rotation linear in B·L (the Verdet constant's definition, physics-model §1), which
+ * holds below saturation; a rotation measured at the plot's own B and L is shown as measured.
+ * σ is scaled by the same factor, so error bars stay standard uncertainties.
+ */
+
+export interface OverlayPoint {
+  x: number;
+  y: number;
+  /** Standard uncertainty in the plot's y unit (≥ 0). */
+  sigma: number;
+  point: MeasuredPoint;
+  /** True when the value was rescaled from another field or length (or from a Verdet constant to an angle). */
+  rescaled: boolean;
+}
+
+/** One point in the plot's units, or null where the conversion is undefined (θ at B·L = 0 as a Verdet constant). */
+export function toPlotUnits(point: MeasuredPoint, options: { xUnit: XUnit; yMode: YMode; geometry: Geometry }): OverlayPoint | null {
+  const { yMode, geometry } = options;
+  const x = fromNm(point.wavelengthNm, options.xUnit);
+  const pointBL = point.fieldT * point.lengthM;
+  const plotBL = geometry.fieldT * geometry.lengthM;
+  let factor: number;
+  let rescaled: boolean;
+  if (yMode === "verdet") {
+    if (point.quantity === "verdet") {
+      factor = 1;
+      rescaled = false;
+    } else {
+      if (pointBL === 0) return null;
+      factor = 1 / pointBL;
+      rescaled = false;
+    }
+  } else {
+    // Factor from the stored SI value to a rotation in rad at the plot's B and L.
+    const sameGeometry = point.fieldT === geometry.fieldT && point.lengthM === geometry.lengthM;
+    if (point.quantity === "verdet") {
+      factor = plotBL;
+      rescaled = true;
+    } else if (sameGeometry) {
+      factor = 1;
+      rescaled = false;
+    } else {
+      if (pointBL === 0) return null;
+      factor = plotBL / pointBL;
+      rescaled = true;
+    }
+    // rotationTo is linear for angle units: the unit factor of the axis.
+    const unit = rotationTo(1, yMode, geometry) ?? 1;
+    factor *= unit;
+  }
+  const y = point.value * factor;
+  const sigma = Math.abs(point.sigma * factor);
+  if (!Number.isFinite(x) || !Number.isFinite(y) || !Number.isFinite(sigma)) return null;
+  return { x, y, sigma, point, rescaled };
+}
+
+/** A sentence for the legend saying how the points were converted for this y axis. */
+export function describeConversion(options: { yMode: YMode; geometry: Geometry; quantities: ReadonlySet<MeasuredPoint["quantity"]> }): string {
+  const { yMode, geometry, quantities } = options;
+  const bl = `B = ${geometry.fieldT} T, L = ${geometry.lengthM * 1000} mm`;
+  if (yMode === "verdet") {
+    return quantities.has("rotation") ? "Measured rotations are shown as Verdet constants θ/(B·L) at each point's own field and length." : "Verdet constants are shown as measured.";
+  }
+  const parts: string[] = [];
+  if (quantities.has("verdet")) parts.push(`Verdet constants are shown as the rotation V·B·L at the plot's ${bl}`);
+  if (quantities.has("rotation")) parts.push(`rotations measured at another field or length are scaled to the plot's ${bl} (linear in B·L)`);
+  return `${parts.join("; ").replace(/^./, (c) => c.toUpperCase())}.`;
+}
