@@ -145,6 +145,7 @@ export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): 
     x0: keys.map((k) => params[k] as number),
     lower: free.map((f) => Math.max(f.min ?? -Infinity, NATURAL_LOWER[f.key] ?? -Infinity)),
     upper: free.map((f) => f.max ?? Infinity),
+    names: keys,
     maxIterations: opts.maxIterations,
     onProgress: opts.onProgress,
     shouldCancel: opts.shouldCancel,
@@ -166,7 +167,8 @@ export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): 
   const dof = n - p;
   const reducedChi2 = ls.chi2 / dof;
   const scale = scaleByChi2 ? reducedChi2 : 1;
-  const cov = ls.covariance.mul(scale);
+  // ml-matrix arithmetic is in place: scale a copy.
+  const cov = ls.covariance.clone().mul(scale);
   const sigmaUnscaled = keys.map((_, j) => Math.sqrt(ls.covariance.get(j, j)));
   const sigmaScaled = sigmaUnscaled.map((s) => s * Math.sqrt(reducedChi2));
   const correlation = keys.map((_, j) => keys.map((__, k) => (j === k ? 1 : ls.covariance.get(j, k) / (sigmaUnscaled[j]! * sigmaUnscaled[k]!))));

@@ -31,6 +31,8 @@ export interface LeastSquaresProblem {
    * is then rejected like one with a larger χ².
    */
   model: (x: Float64Array, withJacobian: boolean) => ModelOutput;
+  /** Parameter names, for messages. */
+  names?: readonly string[];
   maxIterations?: number;
   /** Relative step below which the iteration has converged (default 1e-10). */
   stepTolerance?: number;
@@ -135,12 +137,12 @@ function dampedStep(a: Matrix, b: Matrix, lambda: number): Float64Array | null {
 }
 
 /** (JᵀWJ)⁻¹ computed on the unit-diagonal scaled matrix, for the same reason as dampedStep. */
-export function covarianceFromNormalMatrix(a: Matrix): Matrix {
+export function covarianceFromNormalMatrix(a: Matrix, names: readonly string[] = []): Matrix {
   const p = a.rows;
   const d = new Float64Array(p);
   for (let j = 0; j < p; j++) {
     const ajj = a.get(j, j);
-    if (!(ajj > 0)) throw new FitError(`free parameter ${j + 1} does not change the model at these points, so the data cannot determine it; fix it or add data`);
+    if (!(ajj > 0)) throw new FitError(`${names[j] ?? `free parameter ${j + 1}`} does not change the model at these points, so the data cannot determine it; fix it or add data`);
     d[j] = 1 / Math.sqrt(ajj);
   }
   const scaled = new Matrix(p, p);
@@ -238,7 +240,7 @@ export function leastSquares(problem: LeastSquaresProblem): LeastSquaresResult {
   }
 
   const { a } = normalEquations(state, y, sigma);
-  const covariance = covarianceFromNormalMatrix(a);
+  const covariance = covarianceFromNormalMatrix(a, problem.names);
   const atBound: number[] = [];
   for (let j = 0; j < p; j++) if (state.x[j] === lower[j] || state.x[j] === upper[j]) atBound.push(j);
   return { x: state.x, chi2: state.chi2, covariance, value: state.value, jacobian: state.jacobian, iterations, converged, atBound };
