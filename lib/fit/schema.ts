@@ -8,8 +8,10 @@ import { materialShape, modelParamsSchema } from "@/lib/physics/schema";
  * each measured point.
  */
 
-export const FREEABLE_KEYS = Object.keys(materialShape) as (keyof typeof materialShape)[];
-export type FreeableKey = (typeof FREEABLE_KEYS)[number];
+type MaterialKey = keyof typeof materialShape;
+/** totalJ is a quantum number (a multiple of 1/2), not a continuous parameter: never fitted. */
+export type FreeableKey = Exclude<MaterialKey, "totalJ">;
+export const FREEABLE_KEYS = (Object.keys(materialShape) as MaterialKey[]).filter((k): k is FreeableKey => k !== "totalJ");
 
 /** The default free parameters (the two amplitudes and the dispersion of the electric part). */
 export const DEFAULT_FREE_KEYS: FreeableKey[] = ["gyrationPerT", "oscillatorWavelengthNm", "magneticScale"];
