@@ -12,7 +12,7 @@ const finite = z.number({ error: "must be a number" }).refine(Number.isFinite, {
 const keySchema = z.enum(FREEABLE_KEYS as [FreeableKey, ...FreeableKey[]], { error: "not a parameter a fit can free" });
 
 export const fitMeasurementSetRefSchema = z.strictObject({
-  id: z.string().trim().min(1).max(64),
+  id: z.uuid({ error: "must be a measurement set id" }),
   name: z.string().trim().min(1).max(200),
 });
 

@@ -1,12 +1,13 @@
 import { beforeAll, expect, it } from "vitest";
-import { Client, DEMO, createSet, describeHttp, signIn, validParams } from "./support";
+import { Client, DEMO, DEMO_LAB_ID, createSet, describeHttp, signIn, validParams } from "./support";
 
 /** A save body as the workbench sends it after a fit (values invented for the test). */
-const fitBody = (version: number, values: Record<string, number> = { gyrationPerT: 5.1e-3, magneticScale: 2.5 }) => ({
+let measurementSet = { id: "", name: "" };
+const fitBody = (version: number, values: Record<string, number> = { gyrationPerT: 5.1e-3, magneticScale: 2.5 }, sets = [measurementSet]) => ({
   version,
   values,
   fit: {
-    measurementSets: [{ id: "test-set-1", name: "Test rod, room temperature" }],
+    measurementSets: sets,
     pointCount: 24,
     free: [{ key: "gyrationPerT" }, { key: "magneticScale", min: 0, max: 10 }],
     sigmas: { gyrationPerT: 2e-5, magneticScale: 0.04 },
@@ -33,6 +34,10 @@ describeHttp("saving a fit as a version", () => {
     [editor, viewer, outsider] = await Promise.all([signIn(DEMO.editor), signIn(DEMO.viewer), signIn(DEMO.outsider)]);
     const created = await createSet(editor, { params: validParams() });
     setId = created.id;
+    // The demo seed's measurement sets of the demo lab.
+    const sets = await editor.get(`/api/measurement-sets?labId=${DEMO_LAB_ID}`);
+    expect(sets.body.items.length).toBeGreaterThan(0);
+    measurementSet = { id: sets.body.items[0].id, name: sets.body.items[0].name };
   });
 
   it("writes a new version with the fitted values and the fit as its provenance", async () => {
@@ -53,7 +58,7 @@ describeHttp("saving a fit as a version", () => {
       kind: "fit",
       values: { gyrationPerT: 5.1e-3, magneticScale: 2.5 },
       sigmas: { gyrationPerT: 2e-5, magneticScale: 0.04 },
-      measurementSets: [{ id: "test-set-1", name: "Test rod, room temperature" }],
+      measurementSets: [measurementSet],
       chi2: 21.3,
       dof: 22,
       fittedAt: "2026-01-15T10:00:00.000Z",
@@ -77,6 +82,9 @@ describeHttp("saving a fit as a version", () => {
     const invalid = await editor.post(`/api/parameter-sets/${setId}/fits`, fitBody(2, { gyrationPerT: 5e-3, magneticScale: -1 }));
     expect(invalid.status).toBe(400);
     expect(invalid.body.error.fields["values.magneticScale"]).toBeTruthy();
+    const unknownSet = await editor.post(`/api/parameter-sets/${setId}/fits`, fitBody(2, undefined, [{ id: "6a1f0c2e-5b1d-4c1e-9f00-0000000fffff", name: "Nowhere" }]));
+    expect(unknownSet.status).toBe(400);
+    expect(unknownSet.body.error.fields["fit.measurementSets.0.id"]).toMatch(/no such measurement set/);
     const after = await editor.get(`/api/parameter-sets/${setId}`);
     expect(after.body.item.version).toBe(2);
   });
