@@ -138,12 +138,15 @@ export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): 
   }
   const keys = free.map((f) => f.key) as NumericParamKey[];
   const conditions = points.map((p) => ({ wavelengthNm: p.wavelengthNm, temperatureK: p.temperatureK, fieldT: p.fieldT, lengthM: p.lengthM, quantity: p.quantity }));
-  const typicalScale = Object.fromEntries(free.map((f) => [f.key, Math.max(Math.abs(f.min ?? 0), Math.abs(f.max ?? 0), 1e-12) || 1]));
+  // The step scale for a parameter whose value is 0: the size of its bounds, else 1.
+  const typicalScale = Object.fromEntries(free.map((f) => [f.key, Math.max(Math.abs(f.min ?? 0), Math.abs(f.max ?? 0)) || 1]));
+  const lowerBounds = free.map((f) => Math.max(f.min ?? -Infinity, NATURAL_LOWER[f.key] ?? -Infinity));
+  const lower = Object.fromEntries(free.map((f, j) => [f.key, lowerBounds[j]!]).filter(([, v]) => Number.isFinite(v)));
   const ls = leastSquares({
     y: points.map((p) => p.value),
     sigma: points.map((p) => p.sigma),
     x0: keys.map((k) => params[k] as number),
-    lower: free.map((f) => Math.max(f.min ?? -Infinity, NATURAL_LOWER[f.key] ?? -Infinity)),
+    lower: lowerBounds,
     upper: free.map((f) => f.max ?? Infinity),
     names: keys,
     maxIterations: opts.maxIterations,
@@ -152,7 +155,7 @@ export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): 
     model: (x, withJacobian) => {
       const trial = withFreeValues(params, keys, x);
       if (!withJacobian) return { value: evaluateModel(trial, conditions).value };
-      const jac = modelJacobian(trial, keys, conditions, { typicalScale });
+      const jac = modelJacobian(trial, keys, conditions, { typicalScale, lower });
       return { value: jac.value, jacobian: jac.valueJacobian };
     },
   });
@@ -160,7 +163,7 @@ export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): 
   // The share and its Jacobian at the optimum (the solver's last model call may have been a
   // rejected trial elsewhere).
   const fitted = withFreeValues(params, keys, ls.x);
-  const final = modelJacobian(fitted, keys, conditions, { typicalScale });
+  const final = modelJacobian(fitted, keys, conditions, { typicalScale, lower });
 
   const n = points.length;
   const p = keys.length;

@@ -2,7 +2,7 @@ import { Matrix } from "ml-matrix";
 import { describe, expect, it } from "vitest";
 import { FitCancelledError, FitError, fitMeasurements } from "@/lib/fit/fit";
 import { leastSquares } from "@/lib/fit/least-squares";
-import { evaluateModel } from "@/lib/fit/model";
+import { evaluateModel, modelJacobian } from "@/lib/fit/model";
 import type { ModelParams } from "@/lib/physics/schema";
 import { computeSpectrum } from "@/lib/physics/spectrum";
 import { TGG } from "../physics/fixtures";
@@ -235,6 +235,17 @@ describe("options and errors", () => {
     const fit = fitMeasurements({ params: base, free: [{ key: "gyrationPerT" }, { key: "oscillatorWavelengthNm" }, { key: "magneticScale", min: 0, max: 2 }], points });
     expect(fit.values.magneticScale).toBe(2);
     expect(fit.atBound).toEqual(["magneticScale"]);
+  });
+
+  it("starts from magneticScale = 0, the edge of its valid range, with one-sided derivatives there", () => {
+    const fit = fitMeasurements({ params: { ...base, magneticScale: 0 }, free: DEFAULT_FREE, points });
+    expect(Math.abs(fit.values.magneticScale! - truth.magneticScale)).toBeLessThan(3 * fit.sigmas.magneticScale!);
+    // The one-sided derivative agrees with the central one where both exist (θm is linear in the
+    // scale to first order in χ, physics-model.md §8, so both are the same slope).
+    const conds = conditions.slice(0, 5);
+    const central = modelJacobian({ ...base, magneticScale: 1e-3 }, ["magneticScale"], conds).valueJacobian;
+    const oneSided = modelJacobian({ ...base, magneticScale: 1e-3 }, ["magneticScale"], conds, { lower: { magneticScale: 1e-3 } }).valueJacobian;
+    for (let i = 0; i < conds.length; i++) expect(rel(oneSided.get(i, 0), central.get(i, 0))).toBeLessThan(1e-6);
   });
 
   it("stops when cancelled", () => {
