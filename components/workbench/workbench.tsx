@@ -31,6 +31,7 @@ import { SpinTracePanel } from "./spin-trace-panel";
 import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { AbsorptionPanel, OpaqueNote } from "./absorption-panel";
+import { FitPanel } from "./fit-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useMarkerValues } from "./use-marker-values";
 import { useViewState, type ViewSource } from "./use-view-state";
@@ -254,6 +255,11 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
                 onView={onView}
                 fileBase={fileBase}
               />
+            </PanelFrame>
+          ) : null}
+          {set ? (
+            <PanelFrame title="Fit to measurements">
+              <FitPanel setId={set.id} params={params} pool={sidePool} />
             </PanelFrame>
           ) : null}
         </div>

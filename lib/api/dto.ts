@@ -43,6 +43,8 @@ export interface ParameterSetVersion {
   description: string;
   tags: string[];
   params: ModelParams;
+  /** Where the version came from when not typed in (a fit: lib/fit/provenance.ts FitProvenance); null otherwise. */
+  provenance: Record<string, unknown> | null;
   createdAt: string;
   createdBy: UserRef;
 }
