@@ -3,6 +3,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { modelParamsSchema } from "@/lib/physics/schema";
 import { createDb, createPool } from "./connection";
 import { DEMO_LAB, DEMO_PASSWORD, DEMO_SETS, DEMO_USERS, OTHER_LAB } from "./demo-data";
+import { seedDemoLightSources } from "./demo-light-sources";
 import { auditLog, labMemberships, labs, parameterSets, parameterSetVersions, users } from "./schema";
 import { scriptEnv } from "./script-env";
 
@@ -106,6 +107,7 @@ async function main(): Promise<void> {
           details: { versions: set.versions.length },
         });
       }
+      created += await seedDemoLightSources(tx);
     });
     console.log(created > 0 ? `[seed] demo data seeded (${created} new rows of users/sets)` : "[seed] demo data already present");
   } finally {
