@@ -1,5 +1,5 @@
 import { DEMO_LAB } from "./demo-data";
-import type { Database } from "./client";
+import type { Database } from "./connection";
 import { lightSources, type NewLightSourceRow } from "./schema";
 
 /*
