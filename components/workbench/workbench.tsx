@@ -30,6 +30,7 @@ import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useViewState, type ViewSaveStatus } from "./use-view-state";
+import { useMarkersFromQuery } from "./use-markers-query";
 
 export interface WorkbenchSetInfo {
   id: string;
@@ -77,6 +78,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
 
   const { viewState, setViewState, saveStatus, saveError } = useViewState({ setId: set?.id ?? null, canSave: canSaveView, initial: initialViewState });
   const onView = useCallback((patch: Partial<ViewState>) => setViewState((v) => ({ ...v, ...patch })), [setViewState]);
+  useMarkersFromQuery(setViewState);
 
   const [drafts, setDrafts] = useState<ParamDrafts>(() => draftsFromParams(initialParams));
   const [rangeDrafts, setRangeDrafts] = useState<RangeDrafts>(() => draftsFromRange(viewState.range));
