@@ -117,9 +117,10 @@ export function buildCandidates(request: PlanRequest): PlanCandidate[] {
   const temps = rangeValues(request.temperatures.minK, request.temperatures.maxK, request.temperatures.stepK);
   const fields = rangeValues(request.fields.minT, request.fields.maxT, request.fields.stepT).filter((b) => b !== 0);
   const out: PlanCandidate[] = [];
-  for (const line of request.lines)
-    for (const temperatureK of temps)
-      for (const fieldT of fields) out.push({ index: out.length, lineName: line.name, wavelengthNm: line.wavelengthNm, temperatureK, fieldT });
+  // Temperature and field outermost: the lines at one (T, B) are one spectrum call of the model.
+  for (const temperatureK of temps)
+    for (const fieldT of fields)
+      for (const line of request.lines) out.push({ index: out.length, lineName: line.name, wavelengthNm: line.wavelengthNm, temperatureK, fieldT });
   return out;
 }
 
@@ -172,7 +173,23 @@ export function planMeasurements(request: PlanRequest, opts: PlanOptions = {}): 
     lengthM: request.lengthM,
     quantity: "rotation",
   }));
-  const jac = modelJacobian(params, keys, conditions);
+  const checkCancel = () => {
+    if (opts.shouldCancel?.()) throw new PlanCancelledError();
+  };
+  // Share of the progress bar taken by the Jacobian (most of the time when candidates are many).
+  const JACOBIAN_SHARE = 0.4;
+  const progress = (f: number) => opts.onProgress?.(Math.min(1, Math.max(0, JACOBIAN_SHARE + (1 - JACOBIAN_SHARE) * f)));
+  // The Jacobian in slices (points sharing T and B are one spectrum call, so slices follow the
+  // candidate order), for progress and Cancel between them.
+  const valueJacobian = new Matrix(C, p);
+  const SLICE = 512;
+  for (let start = 0; start < C; start += SLICE) {
+    const part = modelJacobian(params, keys, conditions.slice(start, start + SLICE));
+    for (let i = 0; i < part.valueJacobian.rows; i++) for (let j = 0; j < p; j++) valueJacobian.set(start + i, j, part.valueJacobian.get(i, j));
+    checkCancel();
+    opts.onProgress?.((JACOBIAN_SHARE * Math.min(C, start + SLICE)) / C);
+  }
+  const jac = { valueJacobian };
   // Scaled parameters (value, or 1 where the value is 0) so F is well conditioned in any units.
   const scale = keys.map((k) => Math.abs(params[k] as number) || 1);
   const info = new Float64Array(C * pp);
@@ -188,10 +205,6 @@ export function planMeasurements(request: PlanRequest, opts: PlanOptions = {}): 
   const evaluate = (f: Float64Array, floor?: number) => criterionOf(f, p, spec, work, floor);
 
   let evaluated = 0;
-  const checkCancel = () => {
-    if (opts.shouldCancel?.()) throw new PlanCancelledError();
-  };
-  const progress = (f: number) => opts.onProgress?.(Math.min(1, Math.max(0, f)));
 
   let totalDesigns = 0;
   for (let k = 1; k <= N; k++) totalDesigns += multisetCount(C, k);
