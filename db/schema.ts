@@ -215,6 +215,76 @@ export const apiTokensRelations = relations(apiTokens, ({ one }) => ({
   user: one(users, { fields: [apiTokens.userId], references: [users.id] }),
 }));
 
+/* ---- Measurement sets: uploaded measurements (original file in object storage, points here) ---- */
+
+/**
+ * One uploaded file. The original bytes live in object storage under objectKey; the row is written
+ * only after the object is stored, so no row ever names a missing object. The summary columns
+ * (span, temperatures, fields) are computed once at import for the lab's table.
+ */
+export const measurementSets = pgTable(
+  "measurement_sets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    labId: uuid("lab_id")
+      .notNull()
+      .references(() => labs.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    sample: text("sample").notNull().default(""),
+    quantity: text("quantity").$type<"verdet" | "rotation">().notNull(),
+    rowCount: integer("row_count").notNull(),
+    wavelengthMinNm: doublePrecision("wavelength_min_nm").notNull(),
+    wavelengthMaxNm: doublePrecision("wavelength_max_nm").notNull(),
+    temperaturesK: doublePrecision("temperatures_k").array().notNull(),
+    fieldsT: doublePrecision("fields_t").array().notNull(),
+    lengthsM: doublePrecision("lengths_m").array().notNull(),
+    /** The column mapping, units and whole-file values the points were read with. */
+    mapping: jsonb("mapping").$type<Record<string, unknown>>().notNull(),
+    fileName: text("file_name").notNull(),
+    fileBytes: integer("file_bytes").notNull(),
+    contentType: text("content_type").notNull(),
+    fileSha256: text("file_sha256").notNull(),
+    objectKey: text("object_key").notNull(),
+    createdById: uuid("created_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [unique("measurement_sets_lab_name_unique").on(t.labId, t.name), index("measurement_sets_lab_idx").on(t.labId)],
+);
+export type MeasurementSetRow = typeof measurementSets.$inferSelect;
+export type NewMeasurementSetRow = typeof measurementSets.$inferInsert;
+
+/** The points of a set in SI (lib/measurements/point.ts), in file order. */
+export const measurementPoints = pgTable(
+  "measurement_points",
+  {
+    setId: uuid("set_id")
+      .notNull()
+      .references(() => measurementSets.id, { onDelete: "cascade" }),
+    ordinal: integer("ordinal").notNull(),
+    line: integer("line").notNull(),
+    wavelengthNm: doublePrecision("wavelength_nm").notNull(),
+    value: doublePrecision("value").notNull(),
+    sigma: doublePrecision("sigma").notNull(),
+    temperatureK: doublePrecision("temperature_k").notNull(),
+    fieldT: doublePrecision("field_t").notNull(),
+    lengthM: doublePrecision("length_m").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.setId, t.ordinal] })],
+);
+export type MeasurementPointRow = typeof measurementPoints.$inferSelect;
+
+export const measurementSetsRelations = relations(measurementSets, ({ one, many }) => ({
+  lab: one(labs, { fields: [measurementSets.labId], references: [labs.id] }),
+  createdBy: one(users, { fields: [measurementSets.createdById], references: [users.id] }),
+  points: many(measurementPoints),
+}));
+
+export const measurementPointsRelations = relations(measurementPoints, ({ one }) => ({
+  set: one(measurementSets, { fields: [measurementPoints.setId], references: [measurementSets.id] }),
+}));
+
 /* ---- Planner: a lab's light sources and the measurement plans saved with a parameter set ---- */
 
 /** The lines a lab owns (lab-scoped; editors edit, viewers read). Wavelengths in vacuum, nm. */

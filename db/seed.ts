@@ -2,6 +2,7 @@ import { eq, sql } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import { modelParamsSchema } from "@/lib/physics/schema";
 import { createDb, createPool } from "./connection";
+import { seedDemoMeasurements } from "./demo-measurements";
 import { DEMO_LAB, DEMO_PASSWORD, DEMO_SETS, DEMO_USERS, OTHER_LAB } from "./demo-data";
 import { seedDemoLightSources } from "./demo-light-sources";
 import { auditLog, labMemberships, labs, parameterSets, parameterSetVersions, users } from "./schema";
@@ -109,6 +110,7 @@ async function main(): Promise<void> {
       }
       created += await seedDemoLightSources(tx);
     });
+    created += await seedDemoMeasurements(db);
     console.log(created > 0 ? `[seed] demo data seeded (${created} new rows of users/sets)` : "[seed] demo data already present");
   } finally {
     await pool.end();

@@ -1,5 +1,6 @@
 import "server-only";
 import { z } from "zod";
+import { storageEnvSchema, type StorageSettings } from "@/lib/storage/settings";
 
 // The one place that reads process.env for the server; a bad value fails loudly at start.
 const envSchema = z.object({
@@ -12,3 +13,6 @@ const envSchema = z.object({
 export type Env = z.infer<typeof envSchema>;
 
 export const env: Env = envSchema.parse(process.env);
+
+/** Object storage (original measurement files); see lib/storage/settings.ts for the variables. */
+export const storageSettings: StorageSettings = storageEnvSchema.parse(process.env);

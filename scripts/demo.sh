@@ -14,9 +14,10 @@ PORT="${PORT:-3000}"
 ensure_node_modules
 ensure_auth_secret
 bash db/pg.sh start
+bash scripts/s3.sh start
 npx tsx db/migrate.ts
 npx tsx db/seed.ts
 log "building the production app"
 npx next build
-log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Ctrl-C stops the web server; 'bash db/pg.sh stop' stops PostgreSQL."
+log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Ctrl-C stops the web server; 'bash db/pg.sh stop' stops PostgreSQL, 'bash scripts/s3.sh stop' the object store."
 exec npx next start -p "$PORT"

@@ -28,6 +28,7 @@ import { SpectrumPanels } from "./spectrum-panels";
 import { SpinTracePanel } from "./spin-trace-panel";
 import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
+import { FitPanel } from "./fit-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useViewState, type ViewSaveStatus } from "./use-view-state";
 import { useMarkersFromQuery } from "./use-markers-query";
@@ -226,6 +227,11 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
                 onView={onView}
                 fileBase={fileBase}
               />
+            </PanelFrame>
+          ) : null}
+          {set ? (
+            <PanelFrame title="Fit to measurements">
+              <FitPanel setId={set.id} params={params} pool={sidePool} />
             </PanelFrame>
           ) : null}
         </div>

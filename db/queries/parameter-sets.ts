@@ -2,10 +2,11 @@ import "server-only";
 import { and, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { uniqueViolation } from "@/lib/api/db-errors";
-import { ApiError, notFound } from "@/lib/api/errors";
+import { ApiError, notFound, zodFields } from "@/lib/api/errors";
 import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/api/dto";
 import type { CreateParameterSetInput, UpdateParameterSetInput } from "@/lib/api/schemas";
-import type { ModelParams } from "@/lib/physics/schema";
+import { type SaveFitInput, fitProvenance } from "@/lib/fit/provenance";
+import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { db, type Database } from "../client";
 import { labMemberships, labs, parameterSets, parameterSetVersions, users, type LabRole } from "../schema";
 import { recordAudit } from "./audit";
@@ -215,6 +216,8 @@ async function saveNewVersion(
     content: (current: Content & { version: number }) => Promise<Content> | Content;
     /** When the new content equals the current one: save nothing and answer the item as it is. */
     skipIfUnchanged?: boolean;
+    /** Where the new version came from (e.g. a fit), stored with its snapshot. */
+    provenance?: Record<string, unknown>;
     audit: { action: string; details: (changed: (keyof Content)[]) => Record<string, unknown> };
   },
 ): Promise<ParameterSet> {
@@ -248,7 +251,9 @@ async function saveNewVersion(
     .update(parameterSets)
     .set({ ...next, version, updatedById: options.caller.id, updatedAt: now })
     .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)));
-  await tx.insert(parameterSetVersions).values({ setId: options.id, version, ...next, createdById: options.caller.id, createdAt: now });
+  await tx
+    .insert(parameterSetVersions)
+    .values({ setId: options.id, version, ...next, provenance: options.provenance ?? null, createdById: options.caller.id, createdAt: now });
   await recordAudit({
     tx,
     entry: {
@@ -327,6 +332,33 @@ export async function restoreParameterSetVersion(options: {
   }
 }
 
+/**
+ * Saves fitted values as a new version with the fit's provenance. The fit started from
+ * `input.version`; a newer current version answers 409 like an edit. The merged parameters are
+ * validated with the one model schema, so a fit can never store an invalid set.
+ */
+export async function saveFitAsVersion(options: { caller: Caller; id: string; labId: string; role: LabRole; input: SaveFitInput }): Promise<ParameterSet> {
+  const { input } = options;
+  return db.transaction((tx) =>
+    saveNewVersion(tx, {
+      ...options,
+      expectedVersion: input.version,
+      content: (current) => {
+        const merged = modelParamsSchema.safeParse({ ...current.params, ...input.values });
+        if (!merged.success) {
+          const fields = zodFields(merged.error);
+          throw new ApiError("validation", `The fitted values do not make a valid parameter set: ${Object.entries(fields).map(([k, m]) => `${k} ${m}`).join("; ")}`, {
+            fields: Object.fromEntries(Object.entries(fields).map(([k, m]) => [`values.${k}`, m])),
+          });
+        }
+        return { name: current.name, description: current.description, tags: current.tags, params: merged.data };
+      },
+      provenance: { ...fitProvenance(input) },
+      audit: { action: "parameter_set.fit", details: () => ({ free: input.fit.free.map((f) => f.key), measurementSets: input.fit.measurementSets.map((m) => m.id) }) },
+    }),
+  );
+}
+
 export async function deleteParameterSet(options: { caller: Caller; id: string; labId: string }): Promise<boolean> {
   return db.transaction(async (tx) => {
     const [row] = await tx
@@ -352,6 +384,7 @@ export async function listParameterSetVersions(options: { id: string; labId: str
       description: parameterSetVersions.description,
       tags: parameterSetVersions.tags,
       params: parameterSetVersions.params,
+      provenance: parameterSetVersions.provenance,
       createdAt: parameterSetVersions.createdAt,
       createdById: users.id,
       createdByName: users.name,
@@ -367,6 +400,7 @@ export async function listParameterSetVersions(options: { id: string; labId: str
     description: row.description,
     tags: row.tags,
     params: row.params,
+    provenance: row.provenance ?? null,
     createdAt: row.createdAt.toISOString(),
     createdBy: { id: row.createdById, name: row.createdByName },
   }));

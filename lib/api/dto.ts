@@ -43,6 +43,8 @@ export interface ParameterSetVersion {
   description: string;
   tags: string[];
   params: ModelParams;
+  /** Where the version came from when not typed in (a fit: lib/fit/provenance.ts FitProvenance); null otherwise. */
+  provenance: Record<string, unknown> | null;
   createdAt: string;
   createdBy: UserRef;
 }
@@ -75,4 +77,28 @@ export interface ItemsResponse<T> {
 
 export interface ItemResponse<T> {
   item: T;
+}
+
+/** A measurement set as listed (GET /api/measurement-sets); the points come from …/{id}/points. */
+export interface MeasurementSetSummary {
+  id: string;
+  labId: string;
+  labName: string;
+  name: string;
+  sample: string;
+  /** What the values are: a Verdet constant in rad/(T·m) or a rotation in rad. */
+  quantity: "verdet" | "rotation";
+  rowCount: number;
+  wavelengthSpanNm: { min: number; max: number };
+  /** Distinct values over the rows, ascending. */
+  temperaturesK: number[];
+  fieldsT: number[];
+  lengthsM: number[];
+  fileName: string;
+  fileBytes: number;
+  uploadedBy: UserRef;
+  /** ISO 8601 */
+  createdAt: string;
+  /** The caller's role in the set's lab (site admins: owner). */
+  role: LabRole;
 }

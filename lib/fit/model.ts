@@ -110,6 +110,12 @@ export interface ModelJacobian extends ModelEvaluation {
 export interface JacobianOptions {
   /** Typical magnitude per key, used for the step when a value is 0 (default 1). */
   typicalScale?: Partial<Record<NumericParamKey, number>>;
+  /**
+   * Lowest valid value per key (e.g. 0 for magneticScale). Where x − h would fall below it, the
+   * derivative is taken one-sided, (−3f(x) + 4f(x+h) − f(x+2h)) / 2h, which is second order like
+   * the central difference (common practice, no source).
+   */
+  lower?: Partial<Record<NumericParamKey, number>>;
 }
 
 /** Model values, shares and their Jacobians by central differences on the analytic path. */
@@ -126,6 +132,16 @@ export function modelJacobian(
     const x = params[key] as number;
     const h = stepFor(x, opts.typicalScale?.[key] ?? 1);
     const plus = evaluateModel({ ...params, [key]: x + h }, points);
+    const lower = opts.lower?.[key];
+    if (lower !== undefined && x - h < lower) {
+      const plus2 = evaluateModel({ ...params, [key]: x + 2 * h }, points);
+      const forward = (f0: Float64Array, f1: Float64Array, f2: Float64Array, i: number) => (-3 * f0[i]! + 4 * f1[i]! - f2[i]!) / (2 * h);
+      for (let i = 0; i < points.length; i++) {
+        valueJacobian.set(i, col, forward(base.value, plus.value, plus2.value, i));
+        shareJacobian.set(i, col, forward(base.magneticShare, plus.magneticShare, plus2.magneticShare, i));
+      }
+      return;
+    }
     const minus = evaluateModel({ ...params, [key]: x - h }, points);
     for (let i = 0; i < points.length; i++) {
       valueJacobian.set(i, col, (plus.value[i]! - minus.value[i]!) / (2 * h));

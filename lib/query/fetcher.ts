@@ -22,6 +22,8 @@ export class ApiError extends Error {
 export interface ApiFetchInit extends Omit<RequestInit, "body"> {
   /** Sent as JSON with the matching content type. */
   json?: unknown;
+  /** Sent as multipart/form-data (the browser sets the boundary). */
+  form?: FormData;
 }
 
 interface ErrorBody {
@@ -42,13 +44,13 @@ function toApiError(status: number, body: unknown): ApiError {
 }
 
 export async function apiFetch<T>(path: string, init: ApiFetchInit = {}): Promise<T> {
-  const { json, headers, ...rest } = init;
+  const { json, form, headers, ...rest } = init;
   let response: Response;
   try {
     response = await fetch(path, {
       ...rest,
       headers: { Accept: "application/json", ...(json !== undefined ? { "Content-Type": "application/json" } : {}), ...headers },
-      body: json !== undefined ? JSON.stringify(json) : undefined,
+      body: json !== undefined ? JSON.stringify(json) : form,
       credentials: "same-origin",
     });
   } catch {

@@ -1,6 +1,7 @@
 "use client";
 
 import { useState } from "react";
+import { FitProvenanceSummary } from "@/components/parameter-sets/fit-provenance";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { DateTime } from "@/components/ui/date-time";
@@ -44,6 +45,7 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
             <p className="mt-0.5 text-sm text-ink-soft">
               <DateTime iso={v.createdAt} /> by {v.createdBy.name}
             </p>
+            <FitProvenanceSummary provenance={v.provenance} />
             {canRestore && v.version !== currentVersion ? (
               <Button variant="secondary" className="mt-2" onClick={() => { restore.reset(); setPick(v.version); }}>
                 Restore this version<span className="sr-only"> (version {v.version})</span>

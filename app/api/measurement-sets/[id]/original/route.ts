@@ -1,0 +1,31 @@
+import { getMeasurementOriginal } from "@/db/queries/measurement-sets";
+import { notFound } from "@/lib/api/errors";
+import { MEASUREMENT_NOT_FOUND, requireMeasurementSetRole, withStorage } from "@/lib/api/measurement-set-access";
+import { apiRoute } from "@/lib/api/route";
+import { requireCaller } from "@/lib/auth/access";
+
+type Params = { id: string };
+
+/** RFC 6266 / RFC 5987: an ASCII fallback name plus the exact UTF-8 name. */
+function contentDisposition(fileName: string): string {
+  const ascii = fileName.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
+  return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(fileName)}`;
+}
+
+/** GET /api/measurement-sets/{id}/original (viewer) → the uploaded file, byte for byte, as an attachment. */
+export const GET = apiRoute<Params>(async (request, { params }) => {
+  const { id } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireMeasurementSetRole(caller, id, "viewer");
+  const original = await withStorage("the original file cannot be read now", () => getMeasurementOriginal({ id, labId: access.labId }));
+  if (!original) throw notFound(MEASUREMENT_NOT_FOUND);
+  return new Response(new Blob([original.bytes as BlobPart]), {
+    headers: {
+      "content-type": original.contentType,
+      "content-length": String(original.bytes.byteLength),
+      "content-disposition": contentDisposition(original.fileName),
+      "cache-control": "private, no-store",
+      "x-content-type-options": "nosniff",
+    },
+  });
+});

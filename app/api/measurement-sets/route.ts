@@ -1,0 +1,107 @@
+import { createMeasurementSet, listMeasurementSets } from "@/db/queries/measurement-sets";
+import { ApiError, validationError } from "@/lib/api/errors";
+import { withStorage } from "@/lib/api/measurement-set-access";
+import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/api/measurement-schemas";
+import { readMultipart } from "@/lib/api/multipart";
+import { apiRoute, json } from "@/lib/api/route";
+import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { MAX_FILE_BYTES, parseMeasurementTable } from "@/lib/measurements/parse";
+
+/** GET /api/measurement-sets?labId=&q= → { items: MeasurementSetSummary[] } */
+export const GET = apiRoute(async (request) => {
+  const caller = await requireCaller(request);
+  const search = new URL(request.url).searchParams;
+  const parsed = listMeasurementSetsQuery.safeParse({ labId: search.get("labId") || undefined, q: search.get("q") || undefined });
+  if (!parsed.success) throw validationError(parsed.error);
+  const { labId, q } = parsed.data;
+  if (labId) await requireLabRole(caller, labId, "viewer");
+  return json({ items: await listMeasurementSets({ caller, labId, q }) });
+});
+
+const MIB = 1024 * 1024;
+/** Room for the form's other fields beside the file. */
+const FORM_OVERHEAD_BYTES = 64 * 1024;
+const tooLarge = (bytes?: number) =>
+  new ApiError(
+    "payload_too_large",
+    `${bytes === undefined ? "The upload is" : `The file is ${(bytes / MIB).toFixed(1)} MiB,`} larger than the ${MAX_FILE_BYTES / MIB} MiB a measurement file may be.`,
+    { fields: { file: `At most ${MAX_FILE_BYTES / MIB} MiB.` } },
+  );
+
+function jsonField(form: FormData, key: string): unknown {
+  const raw = form.get(key);
+  if (raw === null) return undefined;
+  if (typeof raw !== "string") throw new ApiError("validation", `${key} must be JSON text.`, { fields: { [key]: "Must be JSON text." } });
+  try {
+    return JSON.parse(raw);
+  } catch {
+    throw new ApiError("validation", `${key} is not valid JSON.`, { fields: { [key]: "Not valid JSON." } });
+  }
+}
+
+/** Served back on download: only plain-text types, so an upload can never come back as a page. */
+const SAFE_TYPES = new Set(["text/csv", "text/tab-separated-values", "text/plain"]);
+const safeContentType = (type: string) => (SAFE_TYPES.has(type.toLowerCase()) ? type.toLowerCase() : "application/octet-stream");
+
+const textField = (form: FormData, key: string) => {
+  const raw = form.get(key);
+  return typeof raw === "string" ? raw : undefined;
+};
+
+/**
+ * POST /api/measurement-sets (editor), multipart: file, labId, name, sample, mapping (JSON),
+ * defaults (JSON) → 201 { item }. Every row is checked first; a file with problems answers 400
+ * with `problems: ["line 14: wavelength is empty", …]` and stores nothing.
+ */
+export const POST = apiRoute(async (request) => {
+  const caller = await requireCaller(request);
+  const form = await readMultipart(request, MAX_FILE_BYTES + FORM_OVERHEAD_BYTES, tooLarge().message);
+  const meta = uploadMeasurementMetaSchema.safeParse({
+    labId: textField(form, "labId"),
+    name: textField(form, "name"),
+    sample: textField(form, "sample"),
+    mapping: jsonField(form, "mapping"),
+    defaults: jsonField(form, "defaults"),
+  });
+  if (!meta.success) throw validationError(meta.error);
+  const access = await requireLabRole(caller, meta.data.labId, "editor");
+
+  const file = form.get("file");
+  if (!(file instanceof File)) throw new ApiError("validation", "Choose a CSV or TSV file.", { fields: { file: "Choose a file." } });
+  if (file.size > MAX_FILE_BYTES) throw tooLarge(file.size);
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    throw new ApiError("validation", "The file is not UTF-8 text. Save it as CSV or TSV in UTF-8 and upload it again.", {
+      fields: { file: "Not UTF-8 text." },
+    });
+  }
+  const parsed = parseMeasurementTable(text, meta.data.mapping, meta.data.defaults);
+  if (parsed.errors.length > 0) {
+    const count = parsed.errors.length;
+    throw new ApiError("validation", `The file has ${count === 1 ? "a problem" : `${count} problems`}; nothing was stored.`, {
+      fields: { file: parsed.errors[0]! },
+      extra: { problems: parsed.errors },
+    });
+  }
+  const item = await withStorage("nothing was stored", () =>
+    createMeasurementSet({
+      caller,
+      role: access.role,
+      input: {
+        labId: meta.data.labId,
+        name: meta.data.name,
+        sample: meta.data.sample,
+        fileName: file.name || "measurements.csv",
+        contentType: safeContentType(file.type || "text/csv"),
+        bytes,
+        mapping: meta.data.mapping,
+        defaults: meta.data.defaults,
+        points: parsed.points,
+      },
+    }),
+  );
+  return json({ item }, 201);
+});

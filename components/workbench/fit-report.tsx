@@ -1,0 +1,326 @@
+"use client";
+
+import Link from "next/link";
+import { useQueryClient } from "@tanstack/react-query";
+import { useEffect, useMemo, useState } from "react";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { XAxis, YAxis } from "@/components/plots/axes";
+import { PlotFrame, frameTop } from "@/components/plots/plot-frame";
+import { makeScale, paddedExtent } from "@/components/plots/scale";
+import { useElementWidth } from "@/components/plots/use-element-size";
+import type { FitResult } from "@/lib/fit/fit";
+import { saveFitBody } from "@/lib/fit/provenance";
+import { PARAM_META } from "@/lib/model/param-meta";
+import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
+import { ApiError, describeError } from "@/lib/query/fetcher";
+import { useSaveFit } from "@/lib/query/fits";
+import { parameterSetKeys } from "@/lib/query/parameter-sets";
+import type { ParameterSet } from "@/lib/query/types";
+import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
+import { fmt, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
+import { numericalBadgeText } from "./run-status";
+
+/*
+ * The report of a finished fit: values ± σ (as given and χ²-scaled, the reported one named),
+ * correlation, χ², the normalized residuals against wavelength, the magnetic share at every point
+ * ± σ, the plain-words verdict on separating the parts, one numerical LLG run at the fitted values,
+ * and saving the result as a new version.
+ */
+
+const META = new Map(PARAM_META.map((m) => [m.key, m]));
+const labelOf = (key: string) => META.get(key as never)?.label ?? key;
+const unitOf = (key: string) => META.get(key as never)?.unit ?? "";
+
+export function FitReport({
+  result,
+  startParams,
+  set,
+  measurementSets,
+  pool,
+}: {
+  result: FitResult;
+  startParams: ModelParams;
+  set: ParameterSet;
+  measurementSets: { id: string; name: string }[];
+  pool: WorkbenchPool | null;
+}) {
+  const scaleLabel = magneticScaleLabel(result.params.magneticScale);
+  const chi2Factor = Math.sqrt(result.reducedChi2);
+  return (
+    <section aria-label="Fit result" className="space-y-4 border-t border-ink/10 pt-4">
+      <h3 className="text-base font-semibold">Fit result</h3>
+      {scaleLabel ? (
+        <p data-testid="fit-magnetic-scale-label" className="inline-block rounded-full border border-ember bg-ember-light px-2.5 py-1 text-xs font-semibold text-ember">
+          {scaleLabel}
+        </p>
+      ) : null}
+      {!result.separation.separable ? (
+        <Alert tone="warning" title="The data cannot separate the two parts">
+          {result.separation.reasons.map((r) => (
+            <p key={r}>{r}</p>
+          ))}
+          <p className="mt-1">
+            The split below is therefore not a measurement. The{" "}
+            <Link className="font-medium text-lux-dark underline underline-offset-4" href="/planner">
+              planner
+            </Link>{" "}
+            suggests wavelengths, temperatures and fields that would tell the parts apart.
+          </p>
+        </Alert>
+      ) : null}
+      {!result.converged ? <Alert tone="warning" title="The fit stopped at its iteration limit">The values are the best found, not a converged minimum.</Alert> : null}
+
+      <div className="overflow-x-auto">
+        <table className="w-full min-w-[24rem] text-sm" aria-label="Fitted values">
+          <caption className="pb-1 text-left text-xs text-ink-soft">
+            Reported σ: {result.sigmaScaledByChi2 ? `scaled by √(χ²/dof) = ${fmt(chi2Factor, 3)}` : "from the data's σ as given, not scaled"}. Both are listed.
+          </caption>
+          <thead>
+            <tr className="text-left text-xs text-ink-soft">
+              <th className="py-1 pr-3 font-medium">Parameter</th>
+              <th className="py-1 pr-3 font-medium">Start</th>
+              <th className="py-1 pr-3 font-medium">Fitted ± σ (reported)</th>
+              <th className="py-1 pr-3 font-medium">σ as given</th>
+              <th className="py-1 font-medium">σ scaled by √(χ²/dof)</th>
+            </tr>
+          </thead>
+          <tbody>
+            {result.free.map((key) => (
+              <tr key={key} className="border-t border-ink/10">
+                <th scope="row" className="py-1 pr-3 text-left font-normal">
+                  {labelOf(key)} {unitOf(key) ? <span className="text-ink-soft">({unitOf(key)})</span> : null}
+                  {result.atBound.includes(key) ? <span className="block text-xs text-ember">ended on a bound: its σ is not a fair error</span> : null}
+                </th>
+                <td className="py-1 pr-3 tabular-nums">{fmt(startParams[key] as number)}</td>
+                <td className="py-1 pr-3 font-medium tabular-nums" data-testid={`fit-value-${key}`}>
+                  {fmt(result.values[key], 5)} ± {fmt(result.sigmas[key], 2)}
+                </td>
+                <td className="py-1 pr-3 tabular-nums">{fmt(result.sigmasUnscaled[key], 2)}</td>
+                <td className="py-1 tabular-nums">{fmt(result.sigmasScaled[key], 2)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+
+      <p className="text-sm" data-testid="fit-chi2">
+        χ² = {fmt(result.chi2)} with {result.dof} degrees of freedom; reduced χ² = {fmt(result.reducedChi2, 3)} ({result.points.length} points, {result.free.length} free
+        parameters, {result.iterations} iterations).
+      </p>
+
+      {result.free.length > 1 ? <CorrelationTable result={result} /> : null}
+      <ResidualPlot result={result} />
+      <ShareTable result={result} />
+      <LlgCheck result={result} pool={pool} />
+      <SaveFit result={result} startParams={startParams} set={set} measurementSets={measurementSets} />
+    </section>
+  );
+}
+
+function CorrelationTable({ result }: { result: FitResult }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="text-sm" aria-label="Correlation matrix">
+        <caption className="pb-1 text-left text-xs text-ink-soft">Correlation of the fitted values (|r| near 1: the data trade one for the other)</caption>
+        <thead>
+          <tr>
+            <td />
+            {result.free.map((k) => (
+              <th key={k} scope="col" className="px-2 py-1 text-xs font-medium text-ink-soft">
+                {labelOf(k)}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {result.free.map((row, i) => (
+            <tr key={row} className="border-t border-ink/10">
+              <th scope="row" className="py-1 pr-2 text-left text-xs font-medium text-ink-soft">
+                {labelOf(row)}
+              </th>
+              {result.free.map((col, j) => {
+                const r = result.correlation[i]![j]!;
+                return (
+                  <td key={col} className={`px-2 py-1 text-right tabular-nums ${i !== j && Math.abs(r) > 0.95 ? "font-semibold text-ember" : ""}`}>
+                    {r.toFixed(3)}
+                  </td>
+                );
+              })}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function ResidualPlot({ result }: { result: FitResult }) {
+  const [ref, width] = useElementWidth<HTMLDivElement>(640);
+  const height = 220;
+  const M = { left: 56, right: 16, bottom: 44, top: frameTop(null) };
+  const xs = result.points.map((p) => p.wavelengthNm);
+  const rs = result.points.map((p) => p.normalizedResidual);
+  const x = useMemo(() => makeScale("linear", paddedExtent([xs]) ?? [0, 1], [M.left, width - M.right]), [xs, width, M.left, M.right]);
+  const yMax = Math.max(3, ...rs.map((r) => Math.abs(r)));
+  const y = useMemo(() => makeScale("linear", [-yMax, yMax], [height - M.bottom, M.top]), [yMax, M.bottom, M.top]);
+  return (
+    <div ref={ref} className="w-full">
+      <PlotFrame title="Normalized residuals (measured − model) / σ" width={width} height={height} left={M.left}>
+        <XAxis scale={x} type="linear" y={height - M.bottom} height={height - M.bottom - M.top} label="Wavelength (nm)" />
+        <YAxis scale={y} type="linear" x={M.left} width={width - M.left - M.right} label="Residual / σ" />
+        {[-2, 0, 2].map((level) => (
+          <line key={level} x1={M.left} x2={width - M.right} y1={y(level)} y2={y(level)} stroke={level === 0 ? "#1d2433" : "#8a94a6"} strokeDasharray={level === 0 ? undefined : "4 3"} />
+        ))}
+        {result.points.map((p, i) => (
+          <circle key={i} cx={x(p.wavelengthNm)} cy={y(p.normalizedResidual)} r={3} fill="#1f5fa8">
+            <title>{`${fmt(p.wavelengthNm)} nm: ${p.normalizedResidual.toFixed(2)} σ`}</title>
+          </circle>
+        ))}
+      </PlotFrame>
+    </div>
+  );
+}
+
+function ShareTable({ result }: { result: FitResult }) {
+  const unit = (q: string) => (q === "verdet" ? "rad/(T·m)" : "rad");
+  return (
+    <div className="max-h-80 overflow-auto rounded border border-ink/10">
+      <table className="w-full min-w-[30rem] text-sm" aria-label="Magnetic share at every point">
+        <caption className="px-2 py-1 text-left text-xs text-ink-soft">
+          Magnetic-dipole share |θm| / (|θe| + |θm|) at the fitted values, ± its standard error propagated from the covariance through the model&apos;s Jacobian.
+        </caption>
+        <thead className="sticky top-0 bg-paper-raised">
+          <tr className="text-left text-xs text-ink-soft">
+            <th className="px-2 py-1 font-medium">λ (nm)</th>
+            <th className="px-2 py-1 font-medium">T (K)</th>
+            <th className="px-2 py-1 font-medium">B (T)</th>
+            <th className="px-2 py-1 font-medium">Measured ± σ</th>
+            <th className="px-2 py-1 font-medium">Model</th>
+            <th className="px-2 py-1 font-medium">Magnetic share ± σ</th>
+          </tr>
+        </thead>
+        <tbody>
+          {result.points.map((p, i) => (
+            <tr key={i} className="border-t border-ink/10 tabular-nums">
+              <td className="px-2 py-1">{fmt(p.wavelengthNm)}</td>
+              <td className="px-2 py-1">{fmt(p.temperatureK)}</td>
+              <td className="px-2 py-1">{fmt(p.fieldT)}</td>
+              <td className="px-2 py-1">
+                {fmt(p.measured)} ± {fmt(p.sigma, 2)} {unit(p.quantity)}
+              </td>
+              <td className="px-2 py-1">{fmt(p.model)}</td>
+              <td className="px-2 py-1" data-testid="fit-share">
+                {p.magneticShare === null ? "–" : `${fmtPercent(p.magneticShare)} ± ${fmtPercent(p.magneticShareSigma, 2)}`}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/**
+ * One numerical LLG run at the fitted values, at the wavelengths of the first group of
+ * conditions, to confirm the analytic path the fit used (physics-model.md §7).
+ */
+function LlgCheck({ result, pool }: { result: FitResult; pool: WorkbenchPool | null }) {
+  const [state, setState] = useState<{ status: "running" | "done" | "failed"; deviation?: number; worst?: number; error?: string; count?: number }>({ status: "running" });
+  useEffect(() => {
+    if (!pool) return;
+    const first = result.points[0]!;
+    const group = result.points.filter((p) => p.temperatureK === first.temperatureK && p.fieldT === first.fieldT && p.lengthM === first.lengthM);
+    const wavelengthsNm = [...new Set(group.map((p) => p.wavelengthNm))].sort((a, b) => a - b);
+    const controller = new AbortController();
+    setState({ status: "running" });
+    pool
+      .spectrum(
+        { ...result.params, temperatureK: first.temperatureK, fieldT: first.fieldT, lengthM: first.lengthM, wavelengthsNm, method: "llg" },
+        { signal: controller.signal },
+      )
+      .then((llg) => {
+        // Largest |numerical − fitted model| in units of each point's σ.
+        let worst = 0;
+        for (const p of group) {
+          const at = llg.points.find((q) => q.wavelengthNm === p.wavelengthNm);
+          const v = at ? (p.quantity === "verdet" ? at.verdetRadPerTm : at.thetaRad) : null;
+          if (v !== null && v !== undefined) worst = Math.max(worst, Math.abs(v - p.model) / p.sigma);
+        }
+        setState({ status: "done", deviation: llg.maxRelDeviationFromAnalytic, worst, count: wavelengthsNm.length });
+      })
+      .catch((err: unknown) => {
+        if (!isAbortError(err)) setState({ status: "failed", error: err instanceof Error ? err.message : String(err) });
+      });
+    return () => controller.abort();
+  }, [pool, result]);
+
+  return (
+    <div className="space-y-1 text-sm">
+      <p className="font-semibold">Numerical check at the fitted values</p>
+      {state.status === "running" ? (
+        <p role="status" className="text-ink-soft">
+          Running the numerical LLG at the fitted values…
+        </p>
+      ) : state.status === "failed" ? (
+        <p className="text-ember">The numerical run failed: {state.error}</p>
+      ) : (
+        <div className="flex flex-wrap items-center gap-2">
+          <span data-testid="fit-llg-badge" className="rounded-full border border-lux bg-lux-light px-2.5 py-1 text-xs font-medium text-lux-dark">
+            {numericalBadgeText(state.deviation)}
+          </span>
+          <span className="text-ink-soft">
+            At {state.count} wavelengths the numerical result stays within {fmt(state.worst, 2)} σ of the fitted analytic model.
+          </span>
+        </div>
+      )}
+    </div>
+  );
+}
+
+function SaveFit({ result, startParams, set, measurementSets }: { result: FitResult; startParams: ModelParams; set: ParameterSet; measurementSets: { id: string; name: string }[] }) {
+  const save = useSaveFit(set.id);
+  const queryClient = useQueryClient();
+  const canEdit = set.role === "owner" || set.role === "editor";
+  // The saved version is the stored set with the fitted values; the fit must not have used other what-ifs.
+  const stored = modelParamsSchema.safeParse(set.params).data ?? (set.params as ModelParams);
+  const whatIfs = (Object.keys(startParams) as (keyof ModelParams)[]).filter((k) => !result.free.includes(k as never) && startParams[k] !== stored[k]);
+  if (!canEdit) return <p className="text-sm text-ink-soft">Viewers cannot save a fit; an editor of the lab can.</p>;
+  if (save.isSuccess) {
+    return (
+      <Alert tone="success" title={`Saved as version ${save.data.version}`}>
+        The fitted values and the fit&apos;s provenance are stored.{" "}
+        <Link className="font-medium text-lux-dark underline underline-offset-4" href={`/parameter-sets/${encodeURIComponent(set.id)}/history`}>
+          See the version history
+        </Link>{" "}
+        or{" "}
+        <Button variant="quiet" onClick={() => void queryClient.invalidateQueries({ queryKey: parameterSetKeys.detail(set.id) })}>
+          open version {save.data.version} in the workbench
+        </Button>
+        .
+      </Alert>
+    );
+  }
+  const stale = save.error instanceof ApiError && save.error.code === "stale_version";
+  return (
+    <div className="space-y-2">
+      {whatIfs.length > 0 ? (
+        <p className="text-sm text-ember">
+          The fit started from what-if values that differ from the stored set ({whatIfs.map(labelOf).join(", ")}). Saving would store the fitted values with the stored
+          ones instead; reset those inputs to the stored values and fit again, or save the workbench as a new set.
+        </p>
+      ) : null}
+      <Button
+        onClick={() => save.mutate(saveFitBody({ version: set.version, result, measurementSets, fittedAt: new Date() }))}
+        disabled={save.isPending || whatIfs.length > 0}
+      >
+        {save.isPending ? "Saving…" : `Save as version ${set.version + 1}`}
+      </Button>
+      {save.isError ? (
+        <Alert tone="warning" title={stale ? "The set changed since this fit started" : "The fit was not saved"}>
+          {describeError(save.error)}
+        </Alert>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,28 @@
+import "server-only";
+import { findMeasurementSetLabId } from "@/db/queries/measurement-sets";
+import type { LabRole } from "@/db/schema";
+import { requireLabRole, type Caller, type LabAccess } from "@/lib/auth/access";
+import { ApiError, notFound } from "./errors";
+import { isUuid } from "./ids";
+import { StorageError } from "@/lib/storage/object-store";
+
+export const MEASUREMENT_NOT_FOUND = "No such measurement set.";
+
+/** Resolves a set's lab and checks the caller's role there (404 for unknown ids and non-members alike). */
+export async function requireMeasurementSetRole(caller: Caller, id: string, minRole: LabRole): Promise<LabAccess> {
+  if (!isUuid(id)) throw notFound(MEASUREMENT_NOT_FOUND);
+  const labId = await findMeasurementSetLabId({ id });
+  if (!labId) throw notFound(MEASUREMENT_NOT_FOUND);
+  return requireLabRole(caller, labId, minRole, { notFoundMessage: MEASUREMENT_NOT_FOUND });
+}
+
+/** Object-storage faults become a 503 the client can show; the raw SDK message is only logged. */
+export async function withStorage<T>(what: string, run: () => Promise<T>): Promise<T> {
+  try {
+    return await run();
+  } catch (error) {
+    if (!(error instanceof StorageError)) throw error;
+    console.error(`[api] ${what}:`, error.message);
+    throw new ApiError("storage_unavailable", `The file store is unavailable; ${what}. Try again shortly.`, { headers: { "Retry-After": "5" } });
+  }
+}

@@ -1,0 +1,189 @@
+import { z } from "zod";
+import type { MeasuredPoint } from "@/lib/measurements/point";
+import { type ColumnMapping, DEFAULT_COLUMNS, parseMeasurementTable, readTable } from "@/lib/measurements/parse";
+import { type ModelParams, conditionsShape, formatIssues, materialShape, modelParamsSchema } from "@/lib/physics/schema";
+import { FitError, type FitResult, fitMeasurements } from "./fit";
+import { FREEABLE_KEYS, type FreeParam, type FreeableKey, DEFAULT_FREE_KEYS } from "./schema";
+
+/*
+ * The inputs of the fit's command line, pure so they can be tested without a process:
+ * the parameter file (the spectrum command line's file without wavelengthsNm), the data file
+ * (a header with the upload's default column names) and the flags. Every problem is one line.
+ */
+
+export class FitInputError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = "FitInputError";
+  }
+}
+
+/**
+ * The spectrum file's keys minus wavelengthsNm. `method` is accepted and ignored (the fit always
+ * uses the analytic path); so is `intensityWPerM2`, which leaves the analytic rotations unchanged
+ * (physics-model.md §4.5).
+ */
+const parameterFileSchema = z
+  .strictObject({
+    ...materialShape,
+    ...conditionsShape,
+    method: z.enum(["analytic", "llg"], { error: 'must be "analytic" or "llg"' }).optional(),
+    intensityWPerM2: z.number().optional(),
+  })
+  .transform(({ method: _method, intensityWPerM2: _intensity, ...params }) => params);
+
+export function parseParameterFile(input: unknown): ModelParams {
+  if (typeof input === "object" && input !== null && "wavelengthsNm" in input) {
+    throw new FitInputError("wavelengthsNm: not used by the fit (the wavelengths come from the data file); remove it");
+  }
+  const file = parameterFileSchema.safeParse(input);
+  if (!file.success) throw new FitInputError(formatIssues(file.error).join("; "));
+  const params = modelParamsSchema.safeParse(file.data);
+  if (!params.success) throw new FitInputError(formatIssues(params.error).join("; "));
+  return params.data;
+}
+
+/**
+ * Reads D.csv: wavelength_nm, one of verdet_rad_per_T_m or rotation_rad, sigma (same unit), and
+ * optionally temperature_K, field_T, length_m; a missing condition column takes the parameter
+ * file's value for every row.
+ */
+export function parseDataFile(text: string, params: ModelParams): MeasuredPoint[] {
+  const { headers } = readTable(text);
+  if (headers.length === 0) throw new FitInputError("data file: empty (it needs a header line and data rows)");
+  const has = (name: string) => headers.includes(name);
+  if (!has(DEFAULT_COLUMNS.wavelength)) throw new FitInputError(`data file: no column "${DEFAULT_COLUMNS.wavelength}" in the header`);
+  if (has(DEFAULT_COLUMNS.verdet) && has(DEFAULT_COLUMNS.rotation)) {
+    throw new FitInputError(`data file: both "${DEFAULT_COLUMNS.verdet}" and "${DEFAULT_COLUMNS.rotation}" are present; keep one`);
+  }
+  const quantity = has(DEFAULT_COLUMNS.rotation) ? "rotation" : "verdet";
+  if (!has(DEFAULT_COLUMNS.verdet) && !has(DEFAULT_COLUMNS.rotation)) {
+    throw new FitInputError(`data file: no column "${DEFAULT_COLUMNS.verdet}" or "${DEFAULT_COLUMNS.rotation}" in the header`);
+  }
+  if (!has(DEFAULT_COLUMNS.sigma)) throw new FitInputError(`data file: no column "${DEFAULT_COLUMNS.sigma}" (the standard uncertainty of each value) in the header`);
+  const optional = (name: string) => (has(name) ? name : null);
+  const mapping: ColumnMapping = {
+    wavelengthColumn: DEFAULT_COLUMNS.wavelength,
+    wavelengthUnit: "nm",
+    quantity,
+    valueColumn: quantity === "verdet" ? DEFAULT_COLUMNS.verdet : DEFAULT_COLUMNS.rotation,
+    valueUnit: quantity === "verdet" ? "rad/(T·m)" : "rad",
+    sigmaColumn: DEFAULT_COLUMNS.sigma,
+    temperatureColumn: optional(DEFAULT_COLUMNS.temperature),
+    fieldColumn: optional(DEFAULT_COLUMNS.field),
+    lengthColumn: optional(DEFAULT_COLUMNS.length),
+  };
+  const result = parseMeasurementTable(text, mapping, { temperatureK: params.temperatureK, fieldT: params.fieldT, lengthM: params.lengthM });
+  if (result.errors.length > 0) {
+    const more = result.errors.length > 1 ? ` (and ${result.errors.length - 1} more problem${result.errors.length > 2 ? "s" : ""})` : "";
+    throw new FitInputError(`data file: ${result.errors[0]}${more}`);
+  }
+  return result.points;
+}
+
+export interface FitArgs {
+  paramsFile: string;
+  dataFile: string;
+  free: FreeParam[];
+  scaleByChi2: boolean;
+}
+
+export const FIT_USAGE = "usage: npm run --silent fit -- --params P.json --data D.csv [--free a,b,c] [--scale-by-chi2]";
+
+export function parseFitArgs(argv: readonly string[]): FitArgs {
+  const args = argv.filter((a) => a !== "--");
+  let paramsFile: string | undefined;
+  let dataFile: string | undefined;
+  let freeList: string | undefined;
+  let scaleByChi2 = false;
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    const [flag, inline] = a.startsWith("--") && a.includes("=") ? [a.slice(0, a.indexOf("=")), a.slice(a.indexOf("=") + 1)] : [a, undefined];
+    const value = () => {
+      const v = inline ?? args[++i];
+      if (v === undefined || v === "") throw new FitInputError(`${flag}: needs a value; ${FIT_USAGE}`);
+      return v;
+    };
+    if (flag === "--params") paramsFile = value();
+    else if (flag === "--data") dataFile = value();
+    else if (flag === "--free") freeList = value();
+    else if (flag === "--scale-by-chi2" && inline === undefined) scaleByChi2 = true;
+    else throw new FitInputError(`${a}: unknown argument; ${FIT_USAGE}`);
+  }
+  if (!paramsFile) throw new FitInputError(`--params is required; ${FIT_USAGE}`);
+  if (!dataFile) throw new FitInputError(`--data is required; ${FIT_USAGE}`);
+  const keys = freeList === undefined ? DEFAULT_FREE_KEYS : freeList.split(",").map((k) => k.trim());
+  const free = keys.map((key) => {
+    if (!(FREEABLE_KEYS as readonly string[]).includes(key)) {
+      throw new FitInputError(`--free: "${key}" is not a model parameter that a fit can free (choose from ${FREEABLE_KEYS.join(", ")})`);
+    }
+    return { key: key as FreeableKey };
+  });
+  if (new Set(keys).size !== keys.length) throw new FitInputError("--free: a parameter is listed twice");
+  return { paramsFile, dataFile, free, scaleByChi2 };
+}
+
+/** The command line's JSON: exactly the documented keys. */
+export function fitOutput(result: FitResult) {
+  return {
+    free: result.free,
+    values: result.values,
+    sigmas: result.sigmas,
+    correlation: result.correlation,
+    chi2: result.chi2,
+    dof: result.dof,
+    points: result.points.map((p) => ({
+      wavelengthNm: p.wavelengthNm,
+      measured: p.measured,
+      sigma: p.sigma,
+      model: p.model,
+      magneticShare: p.magneticShare,
+      magneticShareSigma: p.magneticShareSigma,
+    })),
+  };
+}
+
+const oneLine = (s: string) => s.replace(/\s*[\r\n]+\s*/g, " ").trim();
+
+export interface CommandRun {
+  status: number;
+  stdout: string;
+  stderr: string;
+}
+
+/**
+ * The whole command, with the file system passed in: status 0 and the JSON on stdout, notes as
+ * "warning:" lines; status 2 and one line for bad input; status 1 for anything unexpected.
+ */
+export function runFitCommand(argv: readonly string[], readText: (path: string) => string): CommandRun {
+  const read = (file: string, what: string) => {
+    try {
+      return readText(file);
+    } catch (err) {
+      const code = (err as { code?: string }).code;
+      throw new FitInputError(`${file}: cannot read the ${what} (${code === "ENOENT" ? "no such file" : (code ?? (err as Error).message)})`);
+    }
+  };
+  try {
+    const args = parseFitArgs(argv);
+    const text = read(args.paramsFile, "parameter file");
+    let json: unknown;
+    try {
+      json = JSON.parse(text);
+    } catch (err) {
+      throw new FitInputError(`${args.paramsFile}: malformed JSON (${(err as Error).message})`);
+    }
+    const params = parseParameterFile(json);
+    const points = parseDataFile(read(args.dataFile, "data file"), params);
+    const result = fitMeasurements({ params, free: args.free, points, scaleByChi2: args.scaleByChi2 });
+    const warnings = [
+      ...result.separation.reasons,
+      ...result.atBound.map((key) => `${key} ended on a bound; its σ is not a fair error`),
+      ...(result.converged ? [] : ["the fit stopped at its iteration limit before converging"]),
+    ];
+    return { status: 0, stdout: `${JSON.stringify(fitOutput(result), null, 2)}\n`, stderr: warnings.map((w) => `warning: ${oneLine(w)}\n`).join("") };
+  } catch (err) {
+    if (err instanceof FitInputError || err instanceof FitError) return { status: 2, stdout: "", stderr: `${oneLine(err.message)}\n` };
+    return { status: 1, stdout: "", stderr: `internal error: ${oneLine((err as Error).message)}\n` };
+  }
+}

@@ -1,0 +1,21 @@
+"use client";
+
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import type { SaveFitInput } from "@/lib/fit/provenance";
+import { apiFetch } from "./fetcher";
+import { parameterSetKeys } from "./parameter-sets";
+import type { ItemResponse, ParameterSet } from "./types";
+
+/** POST /api/parameter-sets/{id}/fits: the fitted values as a new version with the fit's provenance. */
+export function useSaveFit(setId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: SaveFitInput) =>
+      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(setId)}/fits`, { method: "POST", json: input }).then((r) => r.item),
+    onSuccess: (item) => {
+      queryClient.setQueryData(parameterSetKeys.detail(setId), item);
+      void queryClient.invalidateQueries({ queryKey: parameterSetKeys.lists() });
+      void queryClient.invalidateQueries({ queryKey: parameterSetKeys.versions(setId) });
+    },
+  });
+}
