@@ -59,3 +59,12 @@ describe("plan export and hand-over", () => {
     expect(parseMarkersQuery(null, 24)).toEqual([]);
   });
 });
+
+describe("planner worker API", () => {
+  it("parses the request at the boundary and reports each problem", async () => {
+    const { createPlannerWorkerApi } = await import("@/lib/planner/worker-api");
+    const out = await createPlannerWorkerApi().plan({ lines: [] });
+    expect(out.ok).toBe(false);
+    if (!out.ok) expect(out.issues.join("\n")).toMatch(/^params: /m);
+  });
+});
