@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useQueries } from "@tanstack/react-query";
-import { useMemo, useState } from "react";
+import { memo, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { INPUT_CLASS } from "@/components/ui/text-field";
@@ -46,7 +46,8 @@ function parseBound(text: string): number | undefined | null {
   return Number.isFinite(v) ? v : null;
 }
 
-export function FitPanel({ setId, params, pool }: { setId: string; params: ModelParams | null; pool: WorkbenchPool | null }) {
+/** Memoized: the workbench re-renders on every progress step of its own runs, which this panel ignores. */
+export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId: string; params: ModelParams | null; pool: WorkbenchPool | null }) {
   const setQuery = useParameterSet(setId);
   const labId = setQuery.data?.labId;
   const sets = useMeasurementSets(labId);
@@ -282,4 +283,4 @@ export function FitPanel({ setId, params, pool }: { setId: string; params: Model
       ) : null}
     </div>
   );
-}
+});

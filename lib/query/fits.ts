@@ -12,8 +12,9 @@ export function useSaveFit(setId: string) {
   return useMutation({
     mutationFn: (input: SaveFitInput) =>
       apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(setId)}/fits`, { method: "POST", json: input }).then((r) => r.item),
-    onSuccess: (item) => {
-      queryClient.setQueryData(parameterSetKeys.detail(setId), item);
+    // The set's own entry is left alone: the workbench is keyed by the version it shows, so
+    // updating it would replace the page (and the fit report) at once; the report offers to load it.
+    onSuccess: () => {
       void queryClient.invalidateQueries({ queryKey: parameterSetKeys.lists() });
       void queryClient.invalidateQueries({ queryKey: parameterSetKeys.versions(setId) });
     },
