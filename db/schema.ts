@@ -307,3 +307,48 @@ export const measurementSetsRelations = relations(measurementSets, ({ one, many 
 export const measurementPointsRelations = relations(measurementPoints, ({ one }) => ({
   set: one(measurementSets, { fields: [measurementPoints.setId], references: [measurementSets.id] }),
 }));
+
+/* ---- Planner: a lab's light sources and the measurement plans saved with a parameter set ---- */
+
+/** The lines a lab owns (lab-scoped; editors edit, viewers read). Wavelengths in vacuum, nm. */
+export const lightSources = pgTable(
+  "light_sources",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    labId: uuid("lab_id")
+      .notNull()
+      .references(() => labs.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    wavelengthNm: doublePrecision("wavelength_nm").notNull(),
+    tunableMinNm: doublePrecision("tunable_min_nm"),
+    tunableMaxNm: doublePrecision("tunable_max_nm"),
+    powerW: doublePrecision("power_w"),
+    createdAt: createdAt(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique("light_sources_lab_name_unique").on(t.labId, t.name), index("light_sources_lab_idx").on(t.labId)],
+);
+export type LightSourceRow = typeof lightSources.$inferSelect;
+export type NewLightSourceRow = typeof lightSources.$inferInsert;
+
+/** A measurement plan saved with a parameter set: the planner's request and the chosen plan. */
+export const plans = pgTable(
+  "plans",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    setId: uuid("set_id")
+      .notNull()
+      .references(() => parameterSets.id, { onDelete: "cascade" }),
+    setVersion: integer("set_version").notNull(),
+    name: text("name").notNull(),
+    request: jsonb("request").$type<Record<string, unknown>>().notNull(),
+    plan: jsonb("plan").$type<Record<string, unknown>>().notNull(),
+    createdById: uuid("created_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [index("plans_set_idx").on(t.setId, t.createdAt)],
+);
+export type PlanRow = typeof plans.$inferSelect;
+export type NewPlanRow = typeof plans.$inferInsert;

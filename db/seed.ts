@@ -4,6 +4,7 @@ import { modelParamsSchema } from "@/lib/physics/schema";
 import { createDb, createPool } from "./connection";
 import { seedDemoMeasurements } from "./demo-measurements";
 import { DEMO_LAB, DEMO_PASSWORD, DEMO_SETS, DEMO_USERS, OTHER_LAB } from "./demo-data";
+import { seedDemoLightSources } from "./demo-light-sources";
 import { auditLog, labMemberships, labs, parameterSets, parameterSetVersions, users } from "./schema";
 import { scriptEnv } from "./script-env";
 
@@ -107,6 +108,7 @@ async function main(): Promise<void> {
           details: { versions: set.versions.length },
         });
       }
+      created += await seedDemoLightSources(tx);
     });
     created += await seedDemoMeasurements(db);
     console.log(created > 0 ? `[seed] demo data seeded (${created} new rows of users/sets)` : "[seed] demo data already present");

@@ -36,6 +36,7 @@ import { useSpectrumRun } from "./use-spectrum-run";
 import { useMarkerValues } from "./use-marker-values";
 import { useViewState, type ViewSource } from "./use-view-state";
 import { ViewControls } from "./view-controls";
+import { useMarkersFromQuery } from "./use-markers-query";
 
 export interface WorkbenchSetInfo {
   id: string;
@@ -76,6 +77,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
   const views = useViewState({ setId: set?.id ?? null, source: view });
   const { viewState, setViewState } = views;
   const onView = useCallback((patch: Partial<ViewState>) => setViewState((v) => ({ ...v, ...patch })), [setViewState]);
+  useMarkersFromQuery(setViewState);
 
   const [drafts, setDrafts] = useState<ParamDrafts>(() => draftsFromParams(initialParams));
   const [rangeDrafts, setRangeDrafts] = useState<RangeDrafts>(() => draftsFromRange(viewState.range));

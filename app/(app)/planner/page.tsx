@@ -1,13 +1,10 @@
 import type { Metadata } from "next";
-import { ComingLater } from "@/components/shell/coming-later";
+import { PlannerScreen } from "./_components/planner-screen";
 
 export const metadata: Metadata = { title: "Planner" };
 
-export default function PlannerPage() {
-  return (
-    <ComingLater
-      title="Planner"
-      purpose="It will help you choose the wavelengths, fields and temperatures at which a measurement best separates the magnetic-dipole part from the electric-dipole part."
-    />
-  );
+export default async function PlannerPage({ searchParams }: { searchParams: Promise<{ setId?: string | string[] }> }) {
+  const { setId } = await searchParams;
+  const id = typeof setId === "string" && setId.length > 0 ? setId : null;
+  return <PlannerScreen setId={id} />;
 }

@@ -41,6 +41,12 @@ export function SetHeader({ item, current }: { item: ParameterSet; current: "det
             <Link href={`/workbench/${item.id}`} className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline">
               Open in workbench
             </Link>
+            <Link href={`/planner?setId=${item.id}`} className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline">
+              Plan measurements
+            </Link>
+            <Link href={`/parameter-sets/${item.id}/report`} className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline">
+              Printable report
+            </Link>
           </>
         }
       />

@@ -1,0 +1,305 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { CautionsPanel } from "@/components/planner/cautions-panel";
+import { LinePlot } from "@/components/plots/line-plot";
+import { Button, LinkButton } from "@/components/ui/button";
+import { DateTime } from "@/components/ui/date-time";
+import type { ProvenanceRecord } from "@/db/queries/report";
+import { PARAM_META } from "@/lib/model/param-meta";
+import { cautionsFor } from "@/lib/planner/cautions";
+import type { SavedPlan } from "@/lib/planner/records";
+import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
+import { computeSpectrum } from "@/lib/physics/spectrum";
+import { fmt, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
+import { parseViewState } from "@/lib/workbench/view-state";
+
+type Paper = "A4" | "letter";
+
+/*
+ * Print layout: the app rail and the controls are hidden, the content is at most 180 mm wide,
+ * which fits A4 (210 mm) and US Letter (215.9 mm) with 14 mm margins; sections do not break
+ * across pages. The paper size is the user's choice (CSS @page size).
+ */
+const printCss = (paper: Paper) => `
+@page { size: ${paper === "A4" ? "A4" : "letter"}; margin: 14mm; }
+@media print {
+  aside, .no-print { display: none !important; }
+  main { padding: 0 !important; }
+  body { background: #fff !important; }
+  .report { max-width: 180mm; font-size: 10pt; }
+  .report section, .report .caution-block { break-inside: avoid; }
+  .report svg { max-width: 100%; height: auto; }
+}`;
+
+const PLOT_WIDTH = 680;
+
+function logSpaced(from: number, to: number, n: number): number[] {
+  const a = Math.log(from);
+  const b = Math.log(to);
+  return Array.from({ length: n }, (_, i) => Number(Math.exp(a + ((b - a) * i) / (n - 1)).toPrecision(10)));
+}
+
+export interface ReportSet {
+  id: string;
+  name: string;
+  version: number;
+  labName: string;
+  description: string;
+  updatedAt: string;
+  params: ModelParams;
+  viewState: Record<string, unknown> | null;
+}
+
+export function ReportView({ set, fit, plan }: { set: ReportSet; fit: ProvenanceRecord | null; plan: SavedPlan | null }) {
+  const [paper, setPaper] = useState<Paper>("A4");
+  const parsed = modelParamsSchema.safeParse(set.params);
+  const params = parsed.success ? parsed.data : null;
+  const markers = useMemo(() => parseViewState(set.viewState).markersNm, [set.viewState]);
+
+  const computed = useMemo(() => {
+    if (!params) return null;
+    const fieldT = params.fieldT || 1;
+    const from = Math.max(300, params.sellmeierB > 0 ? params.sellmeierWavelengthNm * 1.05 : 0);
+    const grid = logSpaced(from, Math.max(from * 1.5, 3000), 240).filter((w) => params.oscillatorDampingRadPerS > 0 || w !== params.oscillatorWavelengthNm);
+    const spectrum = computeSpectrum({ ...params, fieldT, lengthM: 1, wavelengthsNm: grid, method: "analytic" });
+    const usable = markers.filter((m) => !(params.sellmeierB > 0 && m <= params.sellmeierWavelengthNm));
+    const atMarkers = usable.length > 0 ? computeSpectrum({ ...params, fieldT, lengthM: 1, wavelengthsNm: usable, method: "analytic" }).points : [];
+    return { fieldT, spectrum, atMarkers };
+  }, [params, markers]);
+
+  const scaleLabel = params ? magneticScaleLabel(params.magneticScale) : null;
+  const cautions = cautionsFor({
+    lines: (plan?.plan.points ?? []).map((p) => ({ name: p.lineName, wavelengthNm: p.wavelengthNm, powerW: null })),
+    minTemperatureK: plan ? Math.min(...plan.plan.points.map((p) => p.temperatureK)) : params?.temperatureK ?? null,
+    maxFieldT: plan ? Math.max(...plan.plan.points.map((p) => Math.abs(p.fieldT))) : params ? Math.abs(params.fieldT) : null,
+  });
+
+  return (
+    <article className="report mx-auto grid max-w-4xl gap-6 text-ink" aria-label="Printable report">
+      <style>{printCss(paper)}</style>
+      <div className="no-print flex flex-wrap items-center gap-3 rounded-md border border-ink/15 bg-paper-raised px-3 py-2 text-sm">
+        <label className="flex items-center gap-2">
+          Paper
+          <select className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1" value={paper} onChange={(e) => setPaper(e.target.value as Paper)}>
+            <option value="A4">A4</option>
+            <option value="letter">US Letter</option>
+          </select>
+        </label>
+        <Button onClick={() => window.print()}>Print or save as PDF</Button>
+        <LinkButton variant="quiet" href={`/parameter-sets/${set.id}`}>
+          Back to the set
+        </LinkButton>
+      </div>
+
+      <header>
+        <h1 className="text-2xl font-semibold">{set.name}</h1>
+        <p className="text-sm text-ink-soft">
+          Version {set.version} · {set.labName} · last saved <DateTime iso={set.updatedAt} /> · printed from Gyrolux
+        </p>
+        {set.description ? <p className="mt-2 text-sm">{set.description}</p> : null}
+        {scaleLabel ? <p className="mt-1 text-sm font-medium text-ember">{scaleLabel}</p> : null}
+      </header>
+
+      <section aria-labelledby="report-params">
+        <h2 id="report-params" className="text-lg font-semibold">
+          Parameters
+        </h2>
+        <table className="mt-2 w-full text-sm">
+          <thead className="text-left text-ink-soft">
+            <tr>
+              <th scope="col" className="py-1 font-medium">Parameter</th>
+              <th scope="col" className="font-medium">Key</th>
+              <th scope="col" className="text-right font-medium">Value</th>
+              <th scope="col" className="pl-2 font-medium">Unit</th>
+            </tr>
+          </thead>
+          <tbody className="tabular-nums">
+            {PARAM_META.map((m) => (
+              <tr key={m.key} className="border-t border-ink/10">
+                <td className="py-0.5">{m.label}</td>
+                <td className="font-mono text-xs">{m.key}</td>
+                <td className="text-right">{fmt((set.params as Record<string, unknown>)[m.key] as number | undefined, 6)}</td>
+                <td className="pl-2">{m.unit || "1"}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+
+      <section aria-labelledby="report-split">
+        <h2 id="report-split" className="text-lg font-semibold">
+          Verdet constant and its two parts
+        </h2>
+        {computed ? (
+          <>
+            <p className="text-sm text-ink-soft">
+              Analytic model at {set.params.temperatureK} K and {fmt(computed.fieldT, 4)} T{set.params.fieldT === 0 ? " (the set's field is 0 T; 1 T is shown)" : ""}.
+            </p>
+            <LinePlot
+              title={`Verdet constant of ${set.name}`}
+              xs={computed.spectrum.points.map((p) => p.wavelengthNm)}
+              xType="log"
+              xLabel="wavelength (nm)"
+              yLabel="V (rad/(T·m))"
+              width={PLOT_WIDTH}
+              height={300}
+              banner={scaleLabel}
+              markers={markers.map((m) => ({ x: m, label: `${m} nm` }))}
+              series={[
+                { key: "total", label: "total", color: "#1d2433", dash: undefined, width: 2, values: computed.spectrum.points.map((p) => p.thetaRad / computed.fieldT) },
+                { key: "electric", label: "electric-dipole part", color: "#0f6e6e", dash: "6 3", width: 1.6, values: computed.spectrum.points.map((p) => p.thetaElectricRad / computed.fieldT) },
+                { key: "magnetic", label: "magnetic-dipole part", color: "#b4541a", dash: "2 3", width: 1.6, values: computed.spectrum.points.map((p) => p.thetaMagneticRad / computed.fieldT) },
+              ]}
+            />
+          </>
+        ) : (
+          <p role="alert">The stored parameters are not valid, so nothing is computed.</p>
+        )}
+      </section>
+
+      {computed ? (
+        <section aria-labelledby="report-markers">
+          <h2 id="report-markers" className="text-lg font-semibold">
+            Marker wavelengths
+          </h2>
+          {computed.atMarkers.length === 0 ? (
+            <p className="text-sm text-ink-soft">No markers.</p>
+          ) : (
+            <table className="mt-2 w-full text-sm">
+              <thead className="text-left text-ink-soft">
+                <tr>
+                  <th scope="col" className="py-1 font-medium">λ (nm)</th>
+                  <th scope="col" className="text-right font-medium">V (rad/(T·m))</th>
+                  <th scope="col" className="text-right font-medium">electric</th>
+                  <th scope="col" className="text-right font-medium">magnetic</th>
+                  <th scope="col" className="text-right font-medium">magnetic share</th>
+                  <th scope="col" className="text-right font-medium">L for 45° (mm)</th>
+                </tr>
+              </thead>
+              <tbody className="tabular-nums">
+                {computed.atMarkers.map((p) => {
+                  const v = p.thetaRad / computed.fieldT;
+                  return (
+                    <tr key={p.wavelengthNm} className="border-t border-ink/10">
+                      <td className="py-0.5">{p.wavelengthNm}</td>
+                      <td className="text-right">{fmt(v, 4)}</td>
+                      <td className="text-right">{fmt(p.thetaElectricRad / computed.fieldT, 4)}</td>
+                      <td className="text-right">{fmt(p.thetaMagneticRad / computed.fieldT, 4)}</td>
+                      <td className="text-right">{fmtPercent(p.magneticShare)}</td>
+                      <td className="text-right">{v !== 0 ? fmt((Math.PI / 4 / Math.abs(v * computed.fieldT)) * 1000, 4) : "–"}</td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            </table>
+          )}
+        </section>
+      ) : null}
+
+      <section aria-labelledby="report-fit">
+        <h2 id="report-fit" className="text-lg font-semibold">
+          Latest fit
+        </h2>
+        {fit ? (
+          <>
+            <p className="text-sm text-ink-soft">
+              Recorded with version {fit.version} on <DateTime iso={fit.createdAt} />.
+            </p>
+            <ProvenanceTable value={fit.provenance} />
+          </>
+        ) : (
+          <p className="text-sm text-ink-soft">No fit recorded for this set.</p>
+        )}
+      </section>
+
+      <section aria-labelledby="report-plan">
+        <h2 id="report-plan" className="text-lg font-semibold">
+          Saved measurement plan
+        </h2>
+        {plan ? (
+          <>
+            <p className="text-sm">
+              “{plan.name}” (for version {plan.setVersion}, by {plan.createdBy.name}, <DateTime iso={plan.createdAt} />): {plan.plan.criterionLabel} {plan.plan.criterionUnit} ={" "}
+              {plan.plan.expectedSigma === null ? "∞" : fmt(plan.plan.expectedSigma, 3)}; {plan.plan.method} search over {plan.plan.candidateCount} candidates; σ per point{" "}
+              {fmt(plan.plan.sigmaPerPointRad * 1e6, 3)} µrad{plan.plan.partsCorrelation !== null ? `; correlation between the parts ${fmt(plan.plan.partsCorrelation, 3)}` : ""}.
+            </p>
+            <table className="mt-2 w-full text-sm">
+              <thead className="text-left text-ink-soft">
+                <tr>
+                  <th scope="col" className="py-1 font-medium">Line</th>
+                  <th scope="col" className="text-right font-medium">λ (nm)</th>
+                  <th scope="col" className="text-right font-medium">T (K)</th>
+                  <th scope="col" className="text-right font-medium">B (T)</th>
+                  <th scope="col" className="text-right font-medium">×</th>
+                  <th scope="col" className="text-right font-medium">predicted θ (mrad)</th>
+                </tr>
+              </thead>
+              <tbody className="tabular-nums">
+                {plan.plan.points.map((p, i) => (
+                  <tr key={i} className="border-t border-ink/10">
+                    <td className="py-0.5">
+                      {p.lineName}
+                      {p.belowNoise ? " (below noise)" : ""}
+                    </td>
+                    <td className="text-right">{p.wavelengthNm}</td>
+                    <td className="text-right">{p.temperatureK}</td>
+                    <td className="text-right">{p.fieldT}</td>
+                    <td className="text-right">{p.count}</td>
+                    <td className="text-right">{fmt(p.rotationRad * 1000, 4)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            {plan.plan.notes.length > 0 ? (
+              <ul className="mt-2 list-disc pl-5 text-sm">
+                {plan.plan.notes.map((n) => (
+                  <li key={n}>{n}</li>
+                ))}
+              </ul>
+            ) : null}
+          </>
+        ) : (
+          <p className="text-sm text-ink-soft">No plan saved with this set.</p>
+        )}
+      </section>
+
+      <CautionsPanel cautions={cautions} />
+    </article>
+  );
+}
+
+/** A fit record of unknown shape: scalars as rows; objects with value and sigma as “value ± σ”. */
+function ProvenanceTable({ value }: { value: Record<string, unknown> }) {
+  const rows: [string, string][] = [];
+  const walk = (prefix: string, v: unknown, depth: number) => {
+    if (v === null || v === undefined) return;
+    if (typeof v === "number") rows.push([prefix, fmt(v, 5)]);
+    else if (typeof v === "string" || typeof v === "boolean") rows.push([prefix, String(v)]);
+    else if (Array.isArray(v)) {
+      if (v.every((x) => typeof x === "string" || typeof x === "number")) rows.push([prefix, v.map((x) => (typeof x === "number" ? fmt(x, 5) : x)).join(", ")]);
+      else if (depth < 3) v.slice(0, 20).forEach((x, i) => walk(`${prefix}[${i}]`, x, depth + 1));
+    } else if (typeof v === "object") {
+      const o = v as Record<string, unknown>;
+      const sigma = o.sigma ?? o.stdError ?? o.standardError;
+      if (typeof o.value === "number" && typeof sigma === "number") rows.push([prefix, `${fmt(o.value, 5)} ± ${fmt(sigma, 3)}`]);
+      else if (depth < 3) for (const [k, x] of Object.entries(o)) walk(prefix ? `${prefix}.${k}` : k, x, depth + 1);
+    }
+  };
+  walk("", value, 0);
+  if (rows.length === 0) return <p className="text-sm text-ink-soft">The record holds no values to show.</p>;
+  return (
+    <table className="mt-2 w-full text-sm">
+      <tbody className="tabular-nums">
+        {rows.slice(0, 60).map(([k, v]) => (
+          <tr key={k} className="border-t border-ink/10">
+            <th scope="row" className="py-0.5 text-left font-normal text-ink-soft">
+              {k}
+            </th>
+            <td className="text-right">{v}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}

@@ -1,0 +1,131 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+
+/*
+ * The planner through the browser: an editor opens the planner on a demo set, runs it, sees a
+ * ranked plan, what the model implies and the safety cautions, saves the plan, opens its points
+ * in the workbench as markers and opens the printable report. Runs against a seeded server.
+ */
+
+const DEMO_GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
+const RUN_TIMEOUT = 120_000;
+
+class PlannerPage {
+  constructor(readonly page: Page) {}
+  field(label: string) {
+    return this.page.getByLabel(label, { exact: false });
+  }
+  get run() {
+    return this.page.getByRole("button", { name: "Run planner" });
+  }
+  get plans() {
+    return this.page.getByTestId("ranked-plan");
+  }
+  get cautions() {
+    return this.page.getByRole("region", { name: "Safety cautions" }).first();
+  }
+}
+
+describe("planner in the browser", () => {
+  let browser: Browser;
+
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("runs, ranks, shows cautions, saves, opens the plan in the workbench and prints a report", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    const planner = new PlannerPage(page);
+    try {
+      await signInAs(page, DEMO.editor);
+      await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
+      await page.getByText(/Planning for/).waitFor({ timeout: 30_000 });
+      // The demo lab's lines are offered.
+      await page.getByLabel(/Nd:YAG “Old Faithful” \(1064 nm\)/).waitFor({ timeout: 30_000 });
+
+      // An impossible request first: zero points gets a specific message, and nothing runs.
+      await page.getByLabel("Points you can afford").fill("0");
+      await planner.run.click();
+      await expect.poll(() => page.getByRole("alert", { name: "Problems with the request" }).innerText()).toMatch(/zero points/);
+
+      await page.getByLabel("Points you can afford").fill("3");
+      await planner.run.click();
+      await planner.plans.first().waitFor({ timeout: RUN_TIMEOUT });
+      expect(await planner.plans.count()).toBeGreaterThan(1);
+      const firstPlan = planner.plans.first();
+      expect(await firstPlan.innerText()).toMatch(/Plan 1\s+expected σ/);
+      const note = page.getByRole("note", { name: "What the model implies" });
+      expect(await note.innerText()).toMatch(/do not by themselves separate the parts/);
+      const cautions = await planner.cautions.innerText();
+      expect(cautions).toMatch(/IEC 60825-1/);
+      expect(cautions).toMatch(/0\.5 mT/);
+      expect(cautions).toMatch(/asphyxiation/);
+      expect(cautions).toMatch(/laser safety officer/);
+      expect(await page.getByRole("img", { name: /Expected standard error against the number of points/ }).count()).toBe(1);
+      await page.screenshot({ path: outputPath("planner-ranked.png"), fullPage: true });
+
+      // The wavelengths of the best plan, from its table.
+      const wavelengths = [...new Set((await firstPlan.locator("tbody tr td:nth-child(2)").allInnerTexts()).map((t) => t.trim()))];
+      expect(wavelengths.length).toBeGreaterThanOrEqual(2);
+
+      const planName = `Browser plan ${Date.now()}`;
+      await page.getByLabel("Plan name").fill(planName);
+      await page.getByRole("button", { name: "Save plan" }).click();
+      await page.getByText(`Saved “${planName}”.`).waitFor({ timeout: 30_000 });
+      await page.getByRole("region", { name: "Saved plans" }).getByText(planName).waitFor({ timeout: 30_000 });
+
+      await page.getByRole("link", { name: "Open in workbench" }).first().click();
+      await page.waitForURL(/\/workbench\/[0-9a-f-]{36}\?markers=/, { timeout: 30_000 });
+      const markerTable = page.getByRole("table", { name: /Values at markers/ });
+      await markerTable.waitFor({ timeout: RUN_TIMEOUT });
+      for (const w of wavelengths) {
+        await markerTable.getByRole("rowheader", { name: `${w} nm`, exact: true }).waitFor({ timeout: 30_000 });
+      }
+
+      await page.goto(`/parameter-sets/${DEMO_GARNET_SET_ID}/report`);
+      await page.getByRole("heading", { name: "Saved measurement plan" }).waitFor({ timeout: 30_000 });
+      await page.getByText(planName, { exact: false }).first().waitFor();
+      await page.getByRole("heading", { name: "Verdet constant and its two parts" }).waitFor();
+      await page.getByRole("region", { name: "Safety cautions" }).waitFor();
+      // Print media hides the app rail and the controls.
+      await page.emulateMedia({ media: "print" });
+      expect(await page.getByRole("button", { name: "Print or save as PDF" }).isVisible()).toBe(false);
+      expect(await page.getByRole("navigation").first().isVisible()).toBe(false);
+      const pdf = await page.pdf({ preferCSSPageSize: true });
+      expect(pdf.subarray(0, 4).toString()).toBe("%PDF");
+      await page.screenshot({ path: outputPath("planner-report-print.png"), fullPage: true });
+    } finally {
+      await context.close();
+    }
+  });
+
+  it("cancels a long search and keeps the page usable", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    try {
+      await signInAs(page, DEMO.viewer);
+      await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
+      await page.getByLabel(/Nd:YAG “Old Faithful” \(1064 nm\)/).waitFor({ timeout: 30_000 });
+      // A fine grid: thousands of candidates, a greedy search of several seconds.
+      await page.getByLabel("Temperature step").fill("2");
+      await page.getByLabel("Field step").fill("0.1");
+      await page.getByLabel("Highest field").fill("2.5");
+      await page.getByLabel("Points you can afford").fill("20");
+      await page.getByRole("button", { name: "Run planner" }).click();
+      await page.getByRole("button", { name: "Cancel" }).click({ timeout: 10_000 });
+      await page.getByText("Cancelled; nothing changed.").waitFor({ timeout: 10_000 });
+      expect(await page.getByTestId("ranked-plan").count()).toBe(0);
+      // A viewer reads the lab's lines but is offered no way to change them.
+      expect(await page.getByRole("form", { name: "Add a light source" }).count()).toBe(0);
+      expect(await page.getByText("Editors of the lab can add and remove lines.").count()).toBe(1);
+    } finally {
+      await context.close();
+    }
+  });
+});
