@@ -49,3 +49,11 @@ export async function createAccount(options: { name: string; email: string; pass
     throw error;
   }
 }
+
+/** Ends every session of the user (sign-out, password change or reset, "end all sessions"). */
+export async function bumpSessionVersion(options: { userId: string; executor?: Pick<typeof db, "update"> }): Promise<void> {
+  await (options.executor ?? db)
+    .update(users)
+    .set({ sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
+    .where(eq(users.id, options.userId));
+}

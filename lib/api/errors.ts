@@ -18,6 +18,7 @@ export const ERROR_STATUS = {
   rate_limited: 429,
   internal: 500,
   db_unavailable: 503,
+  busy: 503,
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_STATUS;
