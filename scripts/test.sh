@@ -19,6 +19,8 @@ export GYROLUX_TEST_OUTPUT="${GYROLUX_TEST_OUTPUT:-$PWD/test-results}"
 export NODE_ENV=production
 export AUTH_SECRET="test-secret-$(date +%s%N)-$$-not-for-production"
 export AUTH_TRUST_HOST=true
+export GYROLUX_SMTP_PORT="${GYROLUX_TEST_SMTP_PORT:-2535}" GYROLUX_MAIL_DIR="${GYROLUX_TEST_MAIL_DIR:-/tmp/gyrolux-mail-test-$$}"
+export GYROLUX_PUBLIC_URL="$GYROLUX_TEST_BASE_URL" GYROLUX_ADMIN_PASSWORD="admin-$(date +%s%N)-$$"
 
 started=$(date +%s)
 server_pid=""
@@ -27,6 +29,7 @@ cleanup() {
   # The server runs in its own process group so that it and every child it forked stop together.
   [ -n "$server_pid" ] && kill -- "-$server_pid" 2>/dev/null || true
   bash db/pg.sh drop-db "$RUN_DB" >/dev/null 2>&1 || true
+  bash scripts/mail.sh stop >/dev/null 2>&1 && rm -rf "$GYROLUX_MAIL_DIR" || true
   log "npm test finished in $(( $(date +%s) - started )) s (exit $rc)"
   exit $rc
 }
@@ -36,6 +39,7 @@ ensure_node_modules
 ensure_chromium
 bash db/pg.sh start
 bash db/pg.sh create-db "$RUN_DB"
+bash scripts/mail.sh start
 npx tsx db/migrate.ts
 npx tsx db/seed.ts
 
