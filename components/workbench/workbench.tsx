@@ -44,6 +44,8 @@ export interface WorkbenchProps {
   initialParams: ModelParams;
   initialViewState: unknown;
   canSaveView: boolean;
+  /** Opened through a read-only share link: no lab, no saving, nothing beyond this one set. */
+  shared?: boolean;
 }
 
 const PANEL_LABEL: Record<PanelKey, string> = {
@@ -60,7 +62,7 @@ const SAVE_TEXT: Record<ViewSaveStatus, string> = {
   error: "View not saved",
 };
 
-export function Workbench({ set, initialParams, initialViewState, canSaveView }: WorkbenchProps) {
+export function Workbench({ set, initialParams, initialViewState, canSaveView, shared = false }: WorkbenchProps) {
   // Workers start lazily on first use; the side pool serves maps, compare and the spin trace so
   // that cancelling the main run never cancels them (see createPool).
   const [pools, setPools] = useState<{ main: WorkbenchPool; side: WorkbenchPool } | null>(null);
@@ -125,7 +127,9 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
           <p className="text-xs font-medium tracking-wide text-ink-soft uppercase">Workbench</p>
           <h1 className="text-2xl font-semibold tracking-tight">{set ? set.name : "Scratch workbench"}</h1>
           <p className="mt-1 text-sm text-ink-soft">
-            {set ? (
+            {set && shared ? (
+              `Shared read-only · version ${set.version}`
+            ) : set ? (
               <>
                 {set.labName} · version {set.version} · your role: {set.role} ·{" "}
                 <Link className="text-lux-dark underline-offset-4 hover:underline" href={`/parameter-sets/${encodeURIComponent(set.id)}`}>
@@ -143,7 +147,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
             </p>
           ) : null}
         </div>
-        {!set || set.role !== "viewer" ? <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} /> : null}
+        {!shared && (!set || set.role !== "viewer") ? <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} /> : null}
       </header>
 
       <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
@@ -195,7 +199,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
 
           <fieldset className="flex flex-wrap gap-4 rounded-lg border border-ink/10 px-4 py-3 text-sm">
             <legend className="px-1 text-xs font-semibold tracking-wide text-ink-soft uppercase">Panels</legend>
-            {(Object.keys(PANEL_LABEL) as PanelKey[]).map((k) => (
+            {(Object.keys(PANEL_LABEL) as PanelKey[]).filter((k) => !(shared && k === "compare")).map((k) => (
               <label key={k} className="flex items-center gap-1.5">
                 <input type="checkbox" checked={viewState.panels[k]} onChange={(e) => togglePanel(k, e.target.checked)} />
                 {PANEL_LABEL[k]}
@@ -213,7 +217,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
               <MapsPanel pool={sidePool} params={params} range={range} fileBase={fileBase} />
             </PanelFrame>
           ) : null}
-          {viewState.panels.compare ? (
+          {viewState.panels.compare && !shared ? (
             <PanelFrame title="Compare parameter sets">
               <ComparePanel
                 pool={sidePool}

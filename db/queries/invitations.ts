@@ -1,6 +1,7 @@
 import "server-only";
 import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
 import type { LabRole } from "@/db/schema";
+import type { InvitationSummary } from "@/lib/api/dto";
 import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
 import type { PageQuery } from "@/lib/api/schemas";
 import { db } from "../client";
@@ -14,15 +15,6 @@ import { recordAudit } from "./audit";
  */
 
 export const INVITATION_DAYS = 7;
-
-export interface InvitationSummary {
-  id: string;
-  email: string;
-  role: LabRole;
-  createdAt: string;
-  expiresAt: string;
-  invitedBy: { id: string; name: string } | null;
-}
 
 export async function createInvitation(options: {
   actorId: string;

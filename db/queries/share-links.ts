@@ -1,8 +1,8 @@
 import "server-only";
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
+import type { SharedSet, ShareLinkSummary } from "@/lib/api/dto";
 import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
 import type { PageQuery } from "@/lib/api/schemas";
-import type { ModelParams } from "@/lib/physics/schema";
 import { db } from "../client";
 import { parameterSets, shareLinks, users } from "../schema";
 import { recordAudit } from "./audit";
@@ -11,12 +11,6 @@ import { recordAudit } from "./audit";
  * Read-only share links to one parameter set. Only the sha256 of the link's token is stored; the
  * link itself is shown once, to the editor who makes it.
  */
-
-export interface ShareLinkSummary {
-  id: string;
-  createdAt: string;
-  createdBy: { id: string; name: string } | null;
-}
 
 export async function createShareLink(options: { actorId: string; setId: string; labId: string; tokenHash: string }): Promise<ShareLinkSummary> {
   return db.transaction(async (tx) => {
@@ -71,17 +65,6 @@ export async function revokeShareLink(options: { actorId: string; setId: string;
     });
     return true;
   });
-}
-
-/** What a share link shows: that one set's content, nothing of its lab or its people. */
-export interface SharedSet {
-  name: string;
-  description: string;
-  tags: string[];
-  version: number;
-  updatedAt: string;
-  params: ModelParams;
-  viewState: Record<string, unknown> | null;
 }
 
 export async function findSharedSet(options: { tokenHash: string }): Promise<SharedSet | null> {

@@ -2,6 +2,7 @@
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "./fetcher";
+import { usePagedList } from "./paging";
 import type { ApiToken, ItemsResponse } from "./types";
 
 export const tokenKeys = { all: () => ["tokens"] as const };
@@ -14,6 +15,11 @@ export const tokensQuery = () =>
 
 export function useTokens() {
   return useQuery(tokensQuery());
+}
+
+/** The settings list, a page at a time. */
+export function useTokenPages() {
+  return usePagedList<ApiToken>({ queryKey: tokenKeys.all(), path: "/api/tokens" });
 }
 
 export interface CreatedToken {
