@@ -1,6 +1,6 @@
 "use client";
 
-import { useInfiniteQuery } from "@tanstack/react-query";
+import { keepPreviousData, useInfiniteQuery } from "@tanstack/react-query";
 import { apiFetch } from "./fetcher";
 
 /* One hook for every paged list of the API ({ items, nextCursor }): pages load on demand. */
@@ -27,6 +27,8 @@ export function usePagedList<T>(options: { queryKey: readonly unknown[]; path: s
     initialPageParam: null as string | null,
     getNextPageParam: (last) => last.nextCursor,
     enabled: options.enabled,
+    // A new filter keeps the old rows on screen until its first page arrives (no flicker while typing).
+    placeholderData: keepPreviousData,
   });
   const items = query.data?.pages.flatMap((page) => page.items) ?? [];
   return { ...query, items };
