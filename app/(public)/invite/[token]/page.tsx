@@ -3,7 +3,7 @@ import Link from "next/link";
 import { Alert } from "@/components/ui/alert";
 import { LinkButton } from "@/components/ui/button";
 import { findInvitationByToken } from "@/db/queries/invitations";
-import { auth } from "@/lib/auth/config";
+import { getSessionUser } from "@/lib/auth/access";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
 import { AcceptInvitation } from "./_components/accept-invitation";
 
@@ -18,7 +18,7 @@ const STATE_TEXT = {
 
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const [invitation, session] = await Promise.all([isLinkSecret(token) ? findInvitationByToken({ tokenHash: hashToken(token) }) : null, auth()]);
+  const [invitation, user] = await Promise.all([isLinkSecret(token) ? findInvitationByToken({ tokenHash: hashToken(token) }) : null, getSessionUser()]);
   const here = `/invite/${token}`;
 
   return (
@@ -36,8 +36,8 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
             {invitation.invitedByName ?? "An owner"} invites <strong>{invitation.email}</strong> to join <strong>{invitation.labName}</strong> as{" "}
             <strong>{invitation.role}</strong>. You join only when you accept.
           </p>
-          {session?.user ? (
-            <AcceptInvitation token={token} labName={invitation.labName} signedInAs={session.user.email ?? ""} invitedEmail={invitation.email} />
+          {user ? (
+            <AcceptInvitation token={token} labName={invitation.labName} signedInAs={user.email} invitedEmail={invitation.email} />
           ) : (
             <div className="mt-6 flex flex-wrap gap-3">
               <LinkButton href={`/sign-in?redirectTo=${encodeURIComponent(here)}`}>Sign in to accept</LinkButton>
