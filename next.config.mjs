@@ -1,12 +1,48 @@
+/*
+ * Security headers on every answer. The Content-Security-Policy is what the app itself needs:
+ * Next's inline bootstrap scripts and styles ('unsafe-inline', as Next does not nonce a static
+ * build), module Web Workers from our own origin (worker-src 'self'), SVG/PNG exports through
+ * blob: and data: URLs (img-src), and no framing by anyone (frame-ancestors 'none'). The
+ * development server also evaluates code for fast refresh, hence 'unsafe-eval' there only.
+ */
+const isDev = process.env.NODE_ENV !== "production";
+
+const csp = [
+  "default-src 'self'",
+  `script-src 'self' 'unsafe-inline'${isDev ? " 'unsafe-eval'" : ""}`,
+  "style-src 'self' 'unsafe-inline'",
+  "img-src 'self' data: blob:",
+  "font-src 'self' data:",
+  "worker-src 'self' blob:",
+  `connect-src 'self'${isDev ? " ws: wss:" : ""}`,
+  "object-src 'none'",
+  "base-uri 'self'",
+  "form-action 'self'",
+  "frame-ancestors 'none'",
+].join("; ");
+
+const securityHeaders = [
+  { key: "Content-Security-Policy", value: csp },
+  { key: "X-Frame-Options", value: "DENY" },
+  { key: "X-Content-Type-Options", value: "nosniff" },
+  { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
+  { key: "Permissions-Policy", value: "camera=(), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()" },
+];
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // The physics command line and the workers import lib/physics directly; nothing to transpile.
   reactStrictMode: true,
   poweredByHeader: false,
-  serverExternalPackages: ["pg", "bcryptjs"],
+  serverExternalPackages: ["pg", "bcryptjs", "nodemailer"],
   // `npm test` builds into its own folder (.next-test), so a test run never rebuilds the build a
   // running `npm run demo` serves from the same checkout.
   distDir: process.env.GYROLUX_NEXT_DIST_DIR || ".next",
+  // Server actions (sign-in and sign-up forms) get the API's body limit instead of Next's 1 MB.
+  experimental: { serverActions: { bodySizeLimit: "64kb" } },
+  async headers() {
+    return [{ source: "/:path*", headers: securityHeaders }];
+  },
 };
 
 export default nextConfig;

@@ -39,6 +39,9 @@ export const users = pgTable(
     name: text("name").notNull(),
     passwordHash: text("password_hash").notNull(),
     siteRole: siteRoleEnum("site_role").notNull().default("member"),
+    // Bumped by sign-out, a password change or reset and "end all sessions"; a session cookie
+    // carrying an older number no longer signs anything in.
+    sessionVersion: integer("session_version").notNull().default(0),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -144,7 +147,11 @@ export const auditLog = pgTable(
     details: jsonb("details").$type<Record<string, unknown>>().notNull().default({}),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("audit_log_target_idx").on(t.targetType, t.targetId), index("audit_log_at_idx").on(t.at)],
+  (t) => [
+    index("audit_log_target_idx").on(t.targetType, t.targetId),
+    index("audit_log_at_idx").on(t.at),
+    index("audit_log_lab_at_idx").on(t.labId, t.at),
+  ],
 );
 export type AuditLogEntry = typeof auditLog.$inferSelect;
 export type NewAuditLogEntry = typeof auditLog.$inferInsert;
@@ -352,3 +359,76 @@ export const plans = pgTable(
 );
 export type PlanRow = typeof plans.$inferSelect;
 export type NewPlanRow = typeof plans.$inferInsert;
+
+/*
+ * Sharing and trust: e-mail invitations, password resets, read-only share links and a throttle
+ * for unauthenticated requests that send mail or create accounts. Every secret is stored as the
+ * sha256 of a 256-bit random token (lib/auth/tokens.ts), never in clear.
+ */
+
+/** An invitation to join a lab with a role; works once, expires, and the owner can revoke it. */
+export const invitations = pgTable(
+  "invitations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    labId: uuid("lab_id")
+      .notNull()
+      .references(() => labs.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: labRoleEnum("role").notNull(),
+    tokenHash: text("token_hash").notNull(),
+    invitedById: uuid("invited_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    acceptedById: uuid("accepted_by").references(() => users.id, { onDelete: "set null" }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  },
+  (t) => [uniqueIndex("invitations_token_hash_unique").on(t.tokenHash), index("invitations_lab_idx").on(t.labId, t.createdAt)],
+);
+export type Invitation = typeof invitations.$inferSelect;
+
+/** A single-use password-reset link with a short expiry. */
+export const passwordResets = pgTable(
+  "password_resets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull(),
+    createdAt: createdAt(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+  },
+  (t) => [uniqueIndex("password_resets_token_hash_unique").on(t.tokenHash), index("password_resets_user_idx").on(t.userId)],
+);
+
+/** A read-only link to one parameter set; anyone holding it sees that set's workbench. */
+export const shareLinks = pgTable(
+  "share_links",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    setId: uuid("set_id")
+      .notNull()
+      .references(() => parameterSets.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull(),
+    createdById: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  },
+  (t) => [uniqueIndex("share_links_token_hash_unique").on(t.tokenHash), index("share_links_set_idx").on(t.setId)],
+);
+export type ShareLink = typeof shareLinks.$inferSelect;
+
+/** Recent unauthenticated requests per kind and key (e.g. sign-up per address), for throttling. */
+export const requestThrottle = pgTable(
+  "request_throttle",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    kind: text("kind").notNull(),
+    key: text("key").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("request_throttle_key_idx").on(t.kind, t.key, t.at)],
+);

@@ -1,5 +1,6 @@
+import { randomBytes } from "node:crypto";
 import { eq, sql } from "drizzle-orm";
-import { hashPassword } from "@/lib/auth/password";
+import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { modelParamsSchema } from "@/lib/physics/schema";
 import { createDb, createPool } from "./connection";
 import { seedDemoMeasurements } from "./demo-measurements";
@@ -22,6 +23,10 @@ async function main(): Promise<void> {
   let created = 0;
   try {
     const passwordHash = await hashPassword(DEMO_PASSWORD);
+    // The site admin acts as owner in every lab, so it never gets the published demo password:
+    // GYROLUX_ADMIN_PASSWORD when set (the test run sets one), else a random one shown once below.
+    const adminPassword = scriptEnv.GYROLUX_ADMIN_PASSWORD ?? randomBytes(18).toString("base64url");
+    const adminHash = await hashPassword(adminPassword);
     await db.transaction(async (tx) => {
       await tx
         .insert(labs)
@@ -35,16 +40,27 @@ async function main(): Promise<void> {
       for (const [key, user] of Object.entries(DEMO_USERS)) {
         const inserted = await tx
           .insert(users)
-          .values({ id: user.id, email: user.email, name: user.name, passwordHash, siteRole: user.siteRole })
+          .values({ id: user.id, email: user.email, name: user.name, passwordHash: user.siteRole === "admin" ? adminHash : passwordHash, siteRole: user.siteRole })
           .onConflictDoNothing()
           .returning({ id: users.id });
         created += inserted.length;
+        if (inserted.length > 0 && user.siteRole === "admin" && !scriptEnv.GYROLUX_ADMIN_PASSWORD) {
+          console.log(`[seed] site admin ${user.email} — password (shown only now): ${adminPassword}`);
+        }
         // Someone may have signed up with a demo address before the seed ran: use that row.
         const [row] = await tx
           .select({ id: users.id })
           .from(users)
           .where(eq(sql`lower(${users.email})`, user.email.toLowerCase()));
         if (!row) throw new Error(`demo user ${user.email} missing after insert`);
+        // An admin seeded by an older version still has the published password: replace it.
+        if (inserted.length === 0 && user.siteRole === "admin") {
+          const [old] = await tx.select({ hash: users.passwordHash }).from(users).where(eq(users.id, row.id));
+          if (old && (await verifyPassword(DEMO_PASSWORD, old.hash))) {
+            await tx.update(users).set({ passwordHash: adminHash, sessionVersion: sql`${users.sessionVersion} + 1` }).where(eq(users.id, row.id));
+            if (!scriptEnv.GYROLUX_ADMIN_PASSWORD) console.log(`[seed] site admin ${user.email} had the demo password; new password (shown only now): ${adminPassword}`);
+          }
+        }
         userIds.set(key, row.id);
         for (const membership of user.memberships) {
           await tx

@@ -8,6 +8,8 @@ const envSchema = z.object({
   AUTH_SECRET: z.string().min(16, "AUTH_SECRET must be at least 16 characters").optional(),
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   GYROLUX_DEMO: z.enum(["0", "1"]).default("0"),
+  // How many reverse proxies in front append to X-Forwarded-For; 0 ignores the header (lib/auth/client-ip.ts).
+  GYROLUX_TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
 });
 
 export type Env = z.infer<typeof envSchema>;

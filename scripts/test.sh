@@ -23,6 +23,8 @@ export AUTH_SECRET="test-secret-$(date +%s%N)-$$-not-for-production"
 export AUTH_TRUST_HOST=true
 # Its own build folder: a demo served from this checkout keeps its .next untouched.
 export GYROLUX_NEXT_DIST_DIR="${GYROLUX_TEST_NEXT_DIST_DIR:-.next-test}"
+export GYROLUX_SMTP_PORT="${GYROLUX_TEST_SMTP_PORT:-2535}" GYROLUX_MAIL_DIR="${GYROLUX_TEST_MAIL_DIR:-/tmp/gyrolux-mail-test-$$}"
+export GYROLUX_PUBLIC_URL="$GYROLUX_TEST_BASE_URL" GYROLUX_ADMIN_PASSWORD="admin-$(date +%s%N)-$$"
 
 started=$(date +%s)
 server_pid=""
@@ -32,6 +34,7 @@ cleanup() {
   # The server runs in its own process group so that it and every child it forked stop together.
   [ -n "$server_pid" ] && kill -- "-$server_pid" 2>/dev/null || true
   bash db/pg.sh drop-db "$RUN_DB" >/dev/null 2>&1 || true
+  bash scripts/mail.sh stop >/dev/null 2>&1 && rm -rf "$GYROLUX_MAIL_DIR" || true
   # Stop the test database only when this run started it.
   [ "$pg_was_running" = 0 ] && { bash db/pg.sh stop >/dev/null 2>&1 || true; }
   bash scripts/s3.sh stop >/dev/null 2>&1 || true
@@ -46,6 +49,7 @@ bash db/pg.sh status >/dev/null 2>&1 && pg_was_running=1
 bash db/pg.sh start
 bash db/pg.sh create-db "$RUN_DB"
 bash scripts/s3.sh stop && rm -rf "$GYROLUX_S3_DIR" && bash scripts/s3.sh start
+bash scripts/mail.sh start
 npx tsx db/migrate.ts
 npx tsx db/seed.ts
 

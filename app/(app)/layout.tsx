@@ -1,12 +1,12 @@
 import { redirect } from "next/navigation";
 import type { ReactNode } from "react";
-import { auth } from "@/lib/auth/config";
+import { getSessionUser } from "@/lib/auth/access";
 import { AppRail } from "@/components/shell/app-rail";
 
 export default async function AppLayout({ children }: { children: ReactNode }) {
-  const session = await auth();
-  if (!session?.user) redirect("/sign-in");
-  const { name, email } = session.user;
+  const user = await getSessionUser();
+  if (!user) redirect("/sign-in");
+  const { name, email } = user;
 
   return (
     <div className="min-h-screen md:flex">

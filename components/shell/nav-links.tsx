@@ -9,6 +9,7 @@ export const NAV_ITEMS = [
   { href: "/measurements", label: "Measurements" },
   { href: "/planner", label: "Planner" },
   { href: "/lab", label: "Lab" },
+  { href: "/audit", label: "Audit" },
   { href: "/settings", label: "Settings" },
 ] as const;
 

@@ -46,8 +46,13 @@ function initialStatus(setId: string | null, source: ViewSource): ViewSaveStatus
   return source.shared ? "lab" : "default";
 }
 
-export function useViewState(options: { setId: string | null; source: ViewSource }) {
+/**
+ * persist false (a read-only share link): the view changes on screen but is kept nowhere, neither
+ * on the server nor in this browser's scratch view.
+ */
+export function useViewState(options: { setId: string | null; source: ViewSource; persist?: boolean }) {
   const { setId } = options;
+  const persist = options.persist ?? true;
   const [viewState, setViewStateRaw] = useState<ViewState>(() => parseViewState(options.source.initial));
   const [saveStatus, setSaveStatus] = useState<ViewSaveStatus>(() => initialStatus(setId, options.source));
   const [saveError, setSaveError] = useState<string | null>(null);
@@ -68,7 +73,7 @@ export function useViewState(options: { setId: string | null; source: ViewSource
   }, []);
 
   useEffect(() => {
-    if (!dirty.current) return;
+    if (!dirty.current || !persist) return;
     if (!setId) {
       try {
         window.localStorage.setItem(storageKey(setId), JSON.stringify(viewState));
@@ -91,7 +96,7 @@ export function useViewState(options: { setId: string | null; source: ViewSource
       );
     }, SAVE_DEBOUNCE_MS);
     return () => clearTimeout(timer);
-  }, [viewState, setId]);
+  }, [viewState, setId, persist]);
 
   /** Back to the lab's shared view (scratch: the defaults); the person's own view is deleted. */
   const resetView = useCallback(async () => {

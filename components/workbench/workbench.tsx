@@ -50,6 +50,8 @@ export interface WorkbenchProps {
   set: WorkbenchSetInfo | null;
   initialParams: ModelParams;
   view: ViewSource;
+  /** Opened through a read-only share link: no lab, no saving, nothing beyond this one set. */
+  shared?: boolean;
 }
 
 const PANEL_LABEL: Record<PanelKey, string> = {
@@ -59,7 +61,7 @@ const PANEL_LABEL: Record<PanelKey, string> = {
   compare: "Compare",
 };
 
-export function Workbench({ set, initialParams, view }: WorkbenchProps) {
+export function Workbench({ set, initialParams, view, shared = false }: WorkbenchProps) {
   // Workers start lazily on first use; the side pool serves maps, compare and the spin trace so
   // that cancelling the main run never cancels them (see createPool).
   const [pools, setPools] = useState<{ main: WorkbenchPool; side: WorkbenchPool } | null>(null);
@@ -74,7 +76,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
   const pool = pools?.main ?? null;
   const sidePool = pools?.side ?? null;
 
-  const views = useViewState({ setId: set?.id ?? null, source: view });
+  const views = useViewState({ setId: set?.id ?? null, source: view, persist: !shared });
   const { viewState, setViewState } = views;
   const onView = useCallback((patch: Partial<ViewState>) => setViewState((v) => ({ ...v, ...patch })), [setViewState]);
   useMarkersFromQuery(setViewState);
@@ -144,7 +146,9 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
           <p className="text-xs font-medium tracking-wide text-ink-soft uppercase">Workbench</p>
           <h1 className="text-2xl font-semibold tracking-tight">{set ? set.name : "Scratch workbench"}</h1>
           <p className="mt-1 text-sm text-ink-soft">
-            {set ? (
+            {set && shared ? (
+              `Shared read-only · version ${set.version}`
+            ) : set ? (
               <>
                 {set.labName} · version {set.version} · your role: {set.role} ·{" "}
                 <Link className="text-lux-dark underline-offset-4 hover:underline" href={`/parameter-sets/${encodeURIComponent(set.id)}`}>
@@ -156,6 +160,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
             )}
           </p>
           {set ? <p className="mt-1 text-xs text-ink-soft">Parameter edits here are what-ifs and do not change the stored set.</p> : null}
+          {shared ? null : (
           <ViewControls
             status={views.saveStatus}
             error={views.saveError}
@@ -166,8 +171,9 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
             onReset={views.resetView}
             onShare={views.shareView}
           />
+          )}
         </div>
-        {!set || set.role !== "viewer" ? <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} /> : null}
+        {!shared && (!set || set.role !== "viewer") ? <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} /> : null}
       </header>
 
       <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
@@ -204,7 +210,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
                 overlaySetIds={overlayIds}
               />
               <OpaqueNote points={run.shown.result.points} lengthM={geometry.lengthM} />
-              <MeasurementOverlayPicker selected={overlayIds} onChange={setOverlayIds} yMode={viewState.yMode} geometry={geometry} temperatureK={shownParams.temperatureK} />
+              {shared ? null : <MeasurementOverlayPicker selected={overlayIds} onChange={setOverlayIds} yMode={viewState.yMode} geometry={geometry} temperatureK={shownParams.temperatureK} />}
               <MarkerTable
                 rows={markerValues.rows}
                 computing={markerValues.computing}
@@ -228,7 +234,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
 
           <fieldset className="flex flex-wrap gap-4 rounded-lg border border-ink/10 px-4 py-3 text-sm">
             <legend className="px-1 text-xs font-semibold tracking-wide text-ink-soft uppercase">Panels</legend>
-            {(Object.keys(PANEL_LABEL) as PanelKey[]).map((k) => (
+            {(Object.keys(PANEL_LABEL) as PanelKey[]).filter((k) => !(shared && k === "compare")).map((k) => (
               <label key={k} className="flex items-center gap-1.5">
                 <input type="checkbox" checked={viewState.panels[k]} onChange={(e) => togglePanel(k, e.target.checked)} />
                 {PANEL_LABEL[k]}
@@ -246,7 +252,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
               <MapsPanel pool={sidePool} params={params} range={range} fileBase={fileBase} />
             </PanelFrame>
           ) : null}
-          {viewState.panels.compare ? (
+          {viewState.panels.compare && !shared ? (
             <PanelFrame title="Compare parameter sets">
               <ComparePanel
                 pool={sidePool}
@@ -259,7 +265,7 @@ export function Workbench({ set, initialParams, view }: WorkbenchProps) {
               />
             </PanelFrame>
           ) : null}
-          {set ? (
+          {set && !shared ? (
             <PanelFrame title="Fit to measurements">
               <FitPanel setId={set.id} params={params} pool={sidePool} />
             </PanelFrame>

@@ -1,6 +1,8 @@
 import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { LabSummary, MemberSummary } from "@/lib/api/dto";
+import { decodeCursor, offsetCursor, toPage, type Page } from "@/lib/api/paging";
+import type { PageQuery } from "@/lib/api/schemas";
 import { db } from "../client";
 import { labMemberships, labs, users, type LabRole, type SiteRole } from "../schema";
 import { recordAudit } from "./audit";
@@ -35,42 +37,23 @@ export async function listLabs(options: { userId: string; siteRole: SiteRole }):
 
 const memberColumns = { userId: users.id, email: users.email, name: users.name, role: labMemberships.role };
 
-/** Members of a lab the caller was already authorized for (requireLabRole). */
-export async function listMembers(options: { labId: string }): Promise<MemberSummary[]> {
-  return db
+/** Members of a lab the caller was already authorized for (requireLabRole), a page at a time. */
+export async function listMembers(options: { labId: string; page: PageQuery }): Promise<Page<MemberSummary>> {
+  const offset = decodeCursor(options.page.cursor, offsetCursor)?.[1] ?? 0;
+  const rows = await db
     .select(memberColumns)
     .from(labMemberships)
     .innerJoin(users, eq(users.id, labMemberships.userId))
     .where(eq(labMemberships.labId, options.labId))
-    .orderBy(sql`case ${labMemberships.role} when 'owner' then 0 when 'editor' then 1 else 2 end`, asc(users.name));
+    .orderBy(sql`case ${labMemberships.role} when 'owner' then 0 when 'editor' then 1 else 2 end`, asc(users.name), asc(users.id))
+    .limit(options.page.limit + 1)
+    .offset(offset);
+  return toPage(rows, options.page.limit, (row) => row, () => ["o", offset + options.page.limit]);
 }
 
-export type AddMemberResult = { ok: true; member: MemberSummary } | { ok: false; reason: "no_user" | "already_member" };
-
-export async function addMember(options: { actorId: string; labId: string; email: string; role: LabRole }): Promise<AddMemberResult> {
-  return db.transaction(async (tx) => {
-    const [user] = await tx
-      .select({ id: users.id, email: users.email, name: users.name })
-      .from(users)
-      .where(eq(sql`lower(${users.email})`, options.email.trim().toLowerCase()))
-      .limit(1);
-    if (!user) return { ok: false as const, reason: "no_user" as const };
-    const inserted = await tx
-      .insert(labMemberships)
-      .values({ labId: options.labId, userId: user.id, role: options.role })
-      .onConflictDoNothing()
-      .returning({ role: labMemberships.role });
-    const row = inserted[0];
-    if (!row) return { ok: false as const, reason: "already_member" as const };
-    await recordAudit({
-      tx,
-      entry: { actorId: options.actorId, action: "member.add", targetType: "user", targetId: user.id, labId: options.labId, details: { role: row.role } },
-    });
-    return { ok: true as const, member: { userId: user.id, email: user.email, name: user.name, role: row.role } };
-  });
-}
-
-export type ChangeMemberResult = { ok: true; member: MemberSummary | null } | { ok: false; reason: "not_member" | "last_owner" };
+export type ChangeMemberResult =
+  | { ok: true; member: MemberSummary | null }
+  | { ok: false; reason: "not_member" | "last_owner" | "not_owner" };
 
 /**
  * Changes a member's role (role given) or removes them (role null). The lab must keep an owner:
@@ -78,6 +61,8 @@ export type ChangeMemberResult = { ok: true; member: MemberSummary | null } | { 
  */
 export async function changeMember(options: {
   actorId: string;
+  /** Site admins act as owner everywhere and hold no membership row. */
+  actorIsSiteAdmin: boolean;
   labId: string;
   userId: string;
   role: LabRole | null;
@@ -88,6 +73,10 @@ export async function changeMember(options: {
       .from(labMemberships)
       .where(eq(labMemberships.labId, options.labId))
       .for("update");
+    // The route checked the caller's role before the transaction; an owner demoted since then
+    // must not still change roles, so the check is repeated on the locked rows.
+    const actor = rows.find((row) => row.userId === options.actorId);
+    if (!options.actorIsSiteAdmin && actor?.role !== "owner") return { ok: false as const, reason: "not_owner" as const };
     const target = rows.find((row) => row.userId === options.userId);
     if (!target) return { ok: false as const, reason: "not_member" as const };
     const otherOwners = rows.filter((row) => row.role === "owner" && row.userId !== options.userId).length;

@@ -1,5 +1,8 @@
 import "server-only";
-import { and, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, ilike, lt, or, sql, type SQL } from "drizzle-orm";
+import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
+import type { PageQuery } from "@/lib/api/schemas";
+import { z } from "zod";
 import { alias } from "drizzle-orm/pg-core";
 import { uniqueViolation } from "@/lib/api/db-errors";
 import { ApiError, notFound, zodFields } from "@/lib/api/errors";
@@ -71,7 +74,8 @@ export async function listParameterSets(options: {
   labId?: string;
   q?: string;
   tag?: string;
-}): Promise<ParameterSetSummary[]> {
+  page: PageQuery;
+}): Promise<Page<ParameterSetSummary>> {
   const isAdmin = options.caller.siteRole === "admin";
   const conditions: (SQL | undefined)[] = [];
   if (!isAdmin) conditions.push(eq(labMemberships.userId, options.caller.id));
@@ -81,20 +85,27 @@ export async function listParameterSets(options: {
     conditions.push(or(ilike(parameterSets.name, pattern), ilike(parameterSets.description, pattern)));
   }
   if (options.tag) conditions.push(sql`${options.tag} = any(${parameterSets.tags})`);
+  const after = decodeCursor(options.page.cursor, timeIdCursor);
+  if (after) conditions.push(sql`(${parameterSets.updatedAt}, ${parameterSets.id}) < (${after[0]}::timestamptz, ${after[1]}::uuid)`);
+  // Non-members' sets are filtered in SQL (not after the fetch), so every page is full.
+  if (!isAdmin) conditions.push(sql`${labMemberships.role} is not null`);
 
   const rows = await db
-    .select({ ...summaryColumns, memberRole: labMemberships.role })
+    .select({ ...summaryColumns, memberRole: labMemberships.role, cursorAt: sql<string>`${parameterSets.updatedAt}::text` })
     .from(parameterSets)
     .innerJoin(labs, eq(labs.id, parameterSets.labId))
     .innerJoin(createdByUser, eq(createdByUser.id, parameterSets.createdById))
     .innerJoin(updatedByUser, eq(updatedByUser.id, parameterSets.updatedById))
     .leftJoin(labMemberships, and(eq(labMemberships.labId, parameterSets.labId), eq(labMemberships.userId, options.caller.id)))
     .where(and(...conditions))
-    .orderBy(desc(parameterSets.updatedAt), desc(parameterSets.id));
-  return rows.flatMap((row) => {
-    const role: LabRole | null = isAdmin ? "owner" : row.memberRole;
-    return role ? [toSummary(row, role)] : [];
-  });
+    .orderBy(desc(parameterSets.updatedAt), desc(parameterSets.id))
+    .limit(options.page.limit + 1);
+  return toPage(
+    rows,
+    options.page.limit,
+    (row) => toSummary(row, isAdmin ? "owner" : (row.memberRole ?? "viewer")),
+    (row) => [row.cursorAt, row.id],
+  );
 }
 
 /** The lab a set belongs to (for requireLabRole), or null when there is no such set. */
@@ -302,7 +313,7 @@ export async function restoreParameterSetVersion(options: {
   labId: string;
   role: LabRole;
   restoreVersion: number;
-  expectedVersion?: number;
+  expectedVersion: number;
 }): Promise<ParameterSet> {
   let restoredName = "";
   try {
@@ -374,9 +385,12 @@ export async function deleteParameterSet(options: { caller: Caller; id: string; 
   });
 }
 
-export async function listParameterSetVersions(options: { id: string; labId: string }): Promise<ParameterSetVersion[] | null> {
+const versionCursor = z.tuple([z.number().int().min(1)]);
+
+export async function listParameterSetVersions(options: { id: string; labId: string; page: PageQuery }): Promise<Page<ParameterSetVersion> | null> {
   const exists = await findParameterSetLabId({ id: options.id });
   if (exists !== options.labId) return null;
+  const before = decodeCursor(options.page.cursor, versionCursor);
   const rows = await db
     .select({
       version: parameterSetVersions.version,
@@ -392,18 +406,30 @@ export async function listParameterSetVersions(options: { id: string; labId: str
     .from(parameterSetVersions)
     .innerJoin(parameterSets, eq(parameterSets.id, parameterSetVersions.setId))
     .innerJoin(users, eq(users.id, parameterSetVersions.createdById))
-    .where(and(eq(parameterSetVersions.setId, options.id), eq(parameterSets.labId, options.labId)))
-    .orderBy(desc(parameterSetVersions.version));
-  return rows.map((row) => ({
-    version: row.version,
-    name: row.name,
-    description: row.description,
-    tags: row.tags,
-    params: row.params,
-    provenance: row.provenance ?? null,
-    createdAt: row.createdAt.toISOString(),
-    createdBy: { id: row.createdById, name: row.createdByName },
-  }));
+    .where(
+      and(
+        eq(parameterSetVersions.setId, options.id),
+        eq(parameterSets.labId, options.labId),
+        before ? lt(parameterSetVersions.version, before[0]) : undefined,
+      ),
+    )
+    .orderBy(desc(parameterSetVersions.version))
+    .limit(options.page.limit + 1);
+  return toPage(
+    rows,
+    options.page.limit,
+    (row) => ({
+      version: row.version,
+      name: row.name,
+      description: row.description,
+      tags: row.tags,
+      params: row.params,
+      provenance: row.provenance ?? null,
+      createdAt: row.createdAt.toISOString(),
+      createdBy: { id: row.createdById, name: row.createdByName },
+    }),
+    (row) => [row.version],
+  );
 }
 
 /** Stores the workbench's view state; not a content change, so no new version. */

@@ -1,5 +1,7 @@
 import "server-only";
-import { and, desc, eq, isNull, lt, or } from "drizzle-orm";
+import { and, desc, eq, isNull, lt, or, sql } from "drizzle-orm";
+import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
+import type { PageQuery } from "@/lib/api/schemas";
 import type { TokenSummary } from "@/lib/api/dto";
 import { db } from "../client";
 import { apiTokens, users, type User } from "../schema";
@@ -12,13 +14,27 @@ const summary = (row: { id: string; name: string; createdAt: Date; lastUsedAt: D
   lastUsedAt: row.lastUsedAt?.toISOString() ?? null,
 });
 
-export async function listTokens(options: { userId: string }): Promise<TokenSummary[]> {
+export async function listTokens(options: { userId: string; page: PageQuery }): Promise<Page<TokenSummary>> {
+  const after = decodeCursor(options.page.cursor, timeIdCursor);
   const rows = await db
-    .select()
+    .select({
+      id: apiTokens.id,
+      name: apiTokens.name,
+      createdAt: apiTokens.createdAt,
+      lastUsedAt: apiTokens.lastUsedAt,
+      cursorAt: sql<string>`${apiTokens.createdAt}::text`,
+    })
     .from(apiTokens)
-    .where(and(eq(apiTokens.userId, options.userId), isNull(apiTokens.revokedAt)))
-    .orderBy(desc(apiTokens.createdAt));
-  return rows.map(summary);
+    .where(
+      and(
+        eq(apiTokens.userId, options.userId),
+        isNull(apiTokens.revokedAt),
+        after ? sql`(${apiTokens.createdAt}, ${apiTokens.id}) < (${after[0]}::timestamptz, ${after[1]}::uuid)` : undefined,
+      ),
+    )
+    .orderBy(desc(apiTokens.createdAt), desc(apiTokens.id))
+    .limit(options.page.limit + 1);
+  return toPage(rows, options.page.limit, summary, (row) => [row.cursorAt, row.id]);
 }
 
 export async function createToken(options: { userId: string; name: string; tokenHash: string }): Promise<TokenSummary> {

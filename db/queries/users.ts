@@ -1,8 +1,8 @@
 import "server-only";
-import { eq, sql } from "drizzle-orm";
+import { and, eq, isNull, sql } from "drizzle-orm";
 import { uniqueViolation } from "@/lib/api/db-errors";
 import { db } from "../client";
-import { labMemberships, labs, users, type User } from "../schema";
+import { labMemberships, labs, passwordResets, users, type User } from "../schema";
 import { recordAudit } from "./audit";
 
 export async function findUserByEmail(options: { email: string }): Promise<User | null> {
@@ -48,4 +48,54 @@ export async function createAccount(options: { name: string; email: string; pass
     if (uniqueViolation(error) === "users_email_lower_unique") return { ok: false, reason: "email_taken" };
     throw error;
   }
+}
+
+/** Ends every session of the user (sign-out, password change or reset, "end all sessions"). */
+export async function bumpSessionVersion(options: { userId: string; executor?: Pick<typeof db, "update"> }): Promise<void> {
+  await (options.executor ?? db)
+    .update(users)
+    .set({ sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
+    .where(eq(users.id, options.userId));
+}
+
+/** A new single-use reset link for the user; earlier unused ones stop working. */
+export async function createPasswordReset(options: { userId: string; tokenHash: string; ttlMs: number }): Promise<void> {
+  await db.transaction(async (tx) => {
+    await tx
+      .update(passwordResets)
+      .set({ usedAt: new Date() })
+      .where(and(eq(passwordResets.userId, options.userId), isNull(passwordResets.usedAt)));
+    await tx.insert(passwordResets).values({ userId: options.userId, tokenHash: options.tokenHash, expiresAt: new Date(Date.now() + options.ttlMs) });
+  });
+}
+
+/**
+ * Sets the new password if the reset link is live, marks it used and ends every session, in one
+ * transaction with the link's row locked (a link works once even when clicked twice at once).
+ */
+export async function resetPasswordWithToken(options: { tokenHash: string; passwordHash: string }): Promise<{ ok: true; email: string } | { ok: false }> {
+  return db.transaction(async (tx) => {
+    const [reset] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, options.tokenHash)).for("update");
+    if (!reset || reset.usedAt || reset.expiresAt.getTime() <= Date.now()) return { ok: false as const };
+    await tx.update(passwordResets).set({ usedAt: new Date() }).where(eq(passwordResets.id, reset.id));
+    const [user] = await tx
+      .update(users)
+      .set({ passwordHash: options.passwordHash, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
+      .where(eq(users.id, reset.userId))
+      .returning({ email: users.email });
+    if (!user) return { ok: false as const };
+    await recordAudit({ tx, entry: { actorId: reset.userId, action: "user.password_reset", targetType: "user", targetId: reset.userId, details: {} } });
+    return { ok: true as const, email: user.email };
+  });
+}
+
+/** A password change: new hash and a new session version (the caller re-issues its own cookie). */
+export async function changePassword(options: { userId: string; passwordHash: string }): Promise<void> {
+  await db.transaction(async (tx) => {
+    await tx
+      .update(users)
+      .set({ passwordHash: options.passwordHash, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
+      .where(eq(users.id, options.userId));
+    await recordAudit({ tx, entry: { actorId: options.userId, action: "user.password_change", targetType: "user", targetId: options.userId, details: {} } });
+  });
 }

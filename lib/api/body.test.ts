@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { MAX_BODY_BYTES, readJson, readOptionalJson } from "./body";
+import { MAX_BODY_BYTES, readJson } from "./body";
 import { ApiError } from "./errors";
 
 const schema = z.object({ x: z.number().refine(Number.isFinite, "must be finite") });
@@ -57,11 +57,16 @@ describe("readJson", () => {
   });
 });
 
-describe("readOptionalJson", () => {
-  const optional = z.object({ version: z.number().int().optional() });
-  it("treats an absent body as {}", async () => {
-    await expect(readOptionalJson(new Request("http://localhost/x", { method: "POST" }), optional)).resolves.toEqual({});
-    await expect(readOptionalJson(request(""), optional)).resolves.toEqual({});
-    await expect(readOptionalJson(request('{"version": 3}'), optional)).resolves.toEqual({ version: 3 });
+describe("readJson refuses what cannot be stored", () => {
+  const loose = z.object({}).passthrough();
+  it("refuses nesting deeper than the cap with 400 validation", async () => {
+    const deep = "[".repeat(5000) + "]".repeat(5000);
+    expect(await codeOf(readJson(request(`{"a":${deep}}`), loose))).toBe("400 validation");
+  });
+  it("refuses NUL and unpaired surrogates anywhere in the body", async () => {
+    expect(await codeOf(readJson(request('{"a":"x\\u0000y"}'), loose))).toBe("400 validation");
+    expect(await codeOf(readJson(request('{"a":["\\ud800"]}'), loose))).toBe("400 validation");
+    expect(await codeOf(readJson(request('{"\\udc00":1}'), loose))).toBe("400 validation");
+    await expect(readJson(request('{"a":"\\ud83d\\ude00"}'), loose)).resolves.toEqual({ a: "\u{1F600}" });
   });
 });

@@ -1,14 +1,17 @@
 import type { z } from "zod";
 import { ApiError, validationError } from "./errors";
+import { jsonProblem } from "./text";
 
 /** Largest request body the API accepts (shared contract). */
 export const MAX_BODY_BYTES = 64 * 1024;
+/** No request of ours nests deeper; a deeper body is refused before any schema walks it. */
+export const MAX_JSON_DEPTH = 32;
 
 /*
  * Reads a JSON request body under the 64 KiB limit. The limit is enforced on the bytes actually
  * read, not only on Content-Length, because chunked requests carry no length.
  */
-async function readText(request: Request): Promise<string> {
+export async function readText(request: Request): Promise<string> {
   const declared = request.headers.get("content-length");
   if (declared !== null && Number(declared) > MAX_BODY_BYTES) throw tooLarge();
   if (!request.body) return "";
@@ -52,8 +55,12 @@ function parseJson(text: string): unknown {
   try {
     // JSON cannot carry NaN or Infinity, but 1e999 parses to Infinity; the schemas' finite checks
     // turn that into a validation error with a field, not a stored Infinity (which would become null).
-    return JSON.parse(text);
-  } catch {
+    const value: unknown = JSON.parse(text);
+    const problem = jsonProblem(value, MAX_JSON_DEPTH);
+    if (problem) throw new ApiError("validation", `The request body cannot be stored: ${problem}`, { fields: { body: problem } });
+    return value;
+  } catch (error) {
+    if (error instanceof ApiError) throw error;
     throw new ApiError("bad_json", "The request body is not valid JSON.");
   }
 }
@@ -64,26 +71,6 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S)
   const text = await readText(request);
   if (text.trim() === "") throw new ApiError("bad_json", "The request body is empty; send a JSON object.");
   const result = schema.safeParse(parseJson(text));
-  if (!result.success) throw validationError(result.error);
-  return result.data;
-}
-
-/** Like readJson, but an absent/empty body counts as `{}` (e.g. restore's optional version). */
-export async function readOptionalJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.infer<S>> {
-  const declared = request.headers.get("content-length");
-  const hasType = request.headers.get("content-type") !== null;
-  if (!hasType && (declared === null || declared === "0")) {
-    const text = await readText(request);
-    if (text.trim() === "") return parseWith(schema, {});
-    throw new ApiError("unsupported_media_type", "Send the body as JSON (Content-Type: application/json).");
-  }
-  requireJsonContentType(request);
-  const text = await readText(request);
-  return parseWith(schema, text.trim() === "" ? {} : parseJson(text));
-}
-
-function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
-  const result = schema.safeParse(value);
   if (!result.success) throw validationError(result.error);
   return result.data;
 }

@@ -22,7 +22,6 @@ function* causes(error: unknown): Generator<PgLikeError> {
 const UNAVAILABLE_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EHOSTUNREACH", "ENOTFOUND", "EPIPE", "57P01", "57P02", "57P03", "53300"]);
 const UNAVAILABLE_MESSAGES = [
   "Connection terminated",
-  "timeout exceeded when trying to connect",
   "connect ECONNREFUSED",
   "Client has encountered a connection error",
   "Connection terminated unexpectedly",
@@ -51,4 +50,27 @@ export function isDbError(error: unknown): boolean {
     if (e instanceof Error && e.name === "DrizzleQueryError") return true;
   }
   return isDbUnavailable(error);
+}
+
+// pg-pool's own message when a checkout waited connectionTimeoutMillis for a free client of a full
+// pool (pg-pool/index.js, the pending-queue timer). A new connection that times out says
+// "Connection terminated due to connection timeout" instead, so the two are told apart.
+const POOL_WAIT_MESSAGE = "timeout exceeded when trying to connect";
+
+/** Every pooled connection was busy for the whole wait: the database itself may be healthy. */
+export function isPoolBusy(error: unknown): boolean {
+  for (const e of causes(error)) {
+    if (e.message === POOL_WAIT_MESSAGE) return true;
+  }
+  return false;
+}
+
+/** What of a database error may be logged: its code and constraint, never its SQL or parameters. */
+export function dbErrorSummary(error: unknown): string {
+  const parts: string[] = [];
+  for (const e of causes(error)) {
+    if (typeof e.code === "string") parts.push(`code ${e.code}`);
+    if (typeof e.constraint === "string") parts.push(`constraint ${e.constraint}`);
+  }
+  return parts.length > 0 ? [...new Set(parts)].join(", ") : "no code";
 }

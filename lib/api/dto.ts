@@ -102,3 +102,31 @@ export interface MeasurementSetSummary {
   /** The caller's role in the set's lab (site admins: owner). */
   role: LabRole;
 }
+
+/** A pending invitation to a lab (GET /api/labs/{id}/invitations). */
+export interface InvitationSummary {
+  id: string;
+  email: string;
+  role: LabRole;
+  createdAt: string;
+  expiresAt: string;
+  invitedBy: UserRef | null;
+}
+
+/** A live read-only share link of a set; the secret itself appears only in the create response. */
+export interface ShareLinkSummary {
+  id: string;
+  createdAt: string;
+  createdBy: UserRef | null;
+}
+
+/** What a share link shows (GET /api/shared/{token}): that one set, nothing of its lab or people. */
+export interface SharedSet {
+  name: string;
+  description: string;
+  tags: string[];
+  version: number;
+  updatedAt: string;
+  params: ModelParams;
+  viewState: Record<string, unknown> | null;
+}

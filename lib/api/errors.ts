@@ -19,6 +19,7 @@ export const ERROR_STATUS = {
   internal: 500,
   db_unavailable: 503,
   storage_unavailable: 503,
+  busy: 503,
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_STATUS;

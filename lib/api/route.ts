@@ -1,6 +1,6 @@
 import "server-only";
 import { ZodError } from "zod";
-import { isDbError, isDbUnavailable } from "./db-errors";
+import { dbErrorSummary, isDbError, isDbUnavailable, isPoolBusy } from "./db-errors";
 import { ApiError, validationError } from "./errors";
 
 /*
@@ -29,24 +29,21 @@ export function errorResponse(error: unknown, request?: Request): Response {
   if (error instanceof ApiError) return error.toResponse();
   if (error instanceof ZodError) return validationError(error).toResponse();
   const where = request ? `${request.method} ${new URL(request.url).pathname}` : "api";
+  if (isPoolBusy(error)) {
+    console.error(`[api] ${where}: every database connection stayed busy for the whole wait`);
+    return new ApiError("busy", "The server is busy; try again in a moment.", { headers: { "Retry-After": "1" } }).toResponse();
+  }
   if (isDbUnavailable(error)) {
-    console.error(`[api] ${where}: database unavailable:`, describe(error));
+    console.error(`[api] ${where}: database unavailable:`, dbErrorSummary(error));
     return new ApiError("db_unavailable", "The database is unavailable; try again shortly.", {
       headers: { "Retry-After": "5" },
     }).toResponse();
   }
-  console.error(`[api] ${where}: ${isDbError(error) ? "database error" : "unexpected error"}:`, error);
+  // Drizzle's message carries the SQL and its parameters (password hashes, e-mails, token
+  // hashes): a database error is logged by code and constraint only.
+  if (isDbError(error)) console.error(`[api] ${where}: database error:`, dbErrorSummary(error));
+  else console.error(`[api] ${where}: unexpected error:`, error instanceof Error ? (error.stack ?? error.message) : String(error));
   return new ApiError("internal", "Something went wrong on our side.").toResponse();
-}
-
-function describe(error: unknown): string {
-  const parts: string[] = [];
-  let current: unknown = error;
-  for (let depth = 0; depth < 4 && current instanceof Error; depth++) {
-    parts.push(current.message);
-    current = current.cause;
-  }
-  return parts.join(" ← ");
 }
 
 export function json(data: unknown, status = 200): Response {

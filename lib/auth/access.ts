@@ -37,12 +37,59 @@ export async function getCaller(request?: Request): Promise<Caller | null> {
     if (!user) throw new ApiError("unauthenticated", "This API token is unknown or revoked.");
     return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "token" };
   }
+  const user = await getSessionUser();
+  if (!user) return null;
+  if (request) requireSameOrigin(request);
+  return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "session" };
+}
+
+/**
+ * The user of the session cookie, or null. The cookie is a JWT that cannot be recalled, so the
+ * user's session version is checked on every request: sign-out, a password change or reset and
+ * "end all sessions" move it on, and older cookies stop working at once.
+ */
+export async function getSessionUser() {
   const session = await auth();
   const id = session?.user?.id;
   if (!id || !isUuid(id)) return null;
   const user = await findUserById({ id });
-  if (!user) return null;
-  return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "session" };
+  if (!user || user.sessionVersion !== session.user.sessionVersion) return null;
+  return user;
+}
+
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/**
+ * A cookie rides along with any request the browser makes, including a form or fetch that
+ * another page of the same site starts. Browsers send Origin (and Sec-Fetch-Site) with every
+ * request that is not GET/HEAD, so a cookie-authenticated change must come from our own origin;
+ * clients that send neither header (scripts) are not browsers and cannot be made to carry the
+ * cookie by a page.
+ */
+export function requireSameOrigin(request: Request): void {
+  if (SAFE_METHODS.has(request.method.toUpperCase())) return;
+  const fetchSite = request.headers.get("sec-fetch-site");
+  if (fetchSite !== null && fetchSite !== "same-origin" && fetchSite !== "none") throw crossOrigin();
+  const origin = request.headers.get("origin");
+  if (origin === null) return;
+  const host = request.headers.get("host");
+  let originHost: string | null = null;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    originHost = null;
+  }
+  if (!host || originHost !== host) throw crossOrigin();
+}
+
+const crossOrigin = () =>
+  new ApiError("forbidden", "This change must come from a Gyrolux page: the request came from another origin.");
+
+/** A caller signed in through the browser; API tokens may not manage tokens or passwords. */
+export async function requireSessionCaller(request: Request, what = "Managing API tokens"): Promise<Caller> {
+  const caller = await requireCaller(request);
+  if (caller.via !== "session") throw new ApiError("forbidden", `${what} needs a signed-in browser session; an API token cannot do it.`);
+  return caller;
 }
 
 /** The caller, or 401. */

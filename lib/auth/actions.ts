@@ -9,7 +9,7 @@ import { signIn, signOut } from "./config";
 import { rateLimitMessage, signInWaitSeconds } from "./rate-limit";
 import { safeRedirectTarget } from "./redirect-target";
 import { signInSchema, signUpSchema } from "./schemas";
-import { EMAIL_TAKEN_MESSAGE, registerAccount } from "./sign-up";
+import { signUpNeutrally } from "./sign-up";
 
 /** State of the sign-in/sign-up forms (useActionState). */
 export interface AuthFormState {
@@ -18,6 +18,8 @@ export interface AuthFormState {
 }
 
 const WRONG_CREDENTIALS = "Wrong e-mail or password.";
+const ALREADY_REGISTERED_HINT =
+  "We could not sign you in with this address and password. If the address already had an account, we sent it an e-mail: sign in with that account's password, or reset it.";
 const UNAVAILABLE = "Signing in is unavailable right now (the database is not reachable). Try again shortly.";
 
 const text = (formData: FormData, key: string) => {
@@ -70,17 +72,19 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
   if (confirm !== undefined && confirm !== text(formData, "password")) fields.confirmPassword = "The passwords do not match.";
   if (!parsed.success || Object.keys(fields).length > 0) return { error: "Check the highlighted fields.", fields };
   try {
-    const result = await registerAccount(parsed.data);
-    if (!result.ok) return { error: EMAIL_TAKEN_MESSAGE, fields: { email: EMAIL_TAKEN_MESSAGE } };
+    if ((await signUpNeutrally(parsed.data)) === "throttled") return { error: "Too many sign-up attempts for this address. Try again in an hour." };
   } catch (error) {
     if (isDbUnavailable(error)) return { error: "Signing up is unavailable right now (the database is not reachable). Try again shortly." };
     throw error;
   }
-  return signInAndRedirect({
+  const result = await signInAndRedirect({
     email: parsed.data.email,
     password: parsed.data.password,
     redirectTo: safeRedirectTarget(text(formData, "redirectTo")),
   });
+  // The address already had an account with another password. Say no more than the API does.
+  if (result.error === WRONG_CREDENTIALS) return { error: ALREADY_REGISTERED_HINT };
+  return result;
 }
 
 export async function signOutAction(): Promise<void> {

@@ -2,7 +2,7 @@ import "server-only";
 import NextAuth, { CredentialsSignin, type DefaultSession } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import type { SiteRole } from "@/db/schema";
-import { findUserByEmail } from "@/db/queries/users";
+import { bumpSessionVersion, findUserByEmail } from "@/db/queries/users";
 import { clientIp } from "./client-ip";
 import { dummyVerify, verifyPassword } from "./password";
 import { clearSignInFailures, recordSignInFailure, signInWaitSeconds } from "./rate-limit";
@@ -10,10 +10,11 @@ import { signInSchema } from "./schemas";
 
 declare module "next-auth" {
   interface Session {
-    user: { id: string; siteRole: SiteRole } & DefaultSession["user"];
+    user: { id: string; siteRole: SiteRole; sessionVersion: number } & DefaultSession["user"];
   }
   interface User {
     siteRole?: SiteRole;
+    sessionVersion?: number;
   }
 }
 
@@ -21,6 +22,8 @@ declare module "@auth/core/jwt" {
   interface JWT {
     id?: string;
     siteRole?: SiteRole;
+    /** users.session_version at sign-in; lib/auth/access.ts refuses the cookie once it moved on. */
+    sv?: number;
   }
 }
 
@@ -58,7 +61,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
           return null;
         }
         await clearSignInFailures({ email, ip });
-        return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole };
+        return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, sessionVersion: user.sessionVersion };
       },
     }),
   ],
@@ -67,13 +70,23 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
       if (user) {
         token.id = user.id;
         token.siteRole = user.siteRole ?? "member";
+        token.sv = user.sessionVersion ?? 0;
       }
       return token;
     },
     session({ session, token }) {
       if (token.id) session.user.id = token.id;
       session.user.siteRole = token.siteRole ?? "member";
+      session.user.sessionVersion = token.sv ?? -1;
       return session;
+    },
+  },
+  events: {
+    // A JWT cannot be recalled, so sign-out moves the user's session version on: every cookie
+    // issued before (this one and the user's other browsers) stops signing anything in.
+    async signOut(message) {
+      const id = "token" in message ? message.token?.id : undefined;
+      if (typeof id === "string") await bumpSessionVersion({ userId: id });
     },
   },
 });

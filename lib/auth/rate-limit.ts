@@ -9,10 +9,10 @@ import { signInFailures } from "@/db/schema";
  * counted; a success clears them, so tests and demos that sign in often are never limited.
  *
  * From the 5th failure within 15 minutes on, the next attempt must wait 30 s × 2^(n−5) after the
- * latest failure, capped at 15 minutes. The client address can be forged (X-Forwarded-For), so a
- * second, looser cap counts the e-mail's failures from every address (20 free): guessing stays
- * slow even when the address rotates, at the price that a determined attacker can slow down the
- * real owner's sign-in for up to 15 minutes.
+ * latest failure, capped at 15 minutes. A second, looser cap counts the e-mail's failures from
+ * every address (20 free), against guessing spread over many addresses; it applies only to an
+ * address that has itself failed recently, so another address's failures never block the real
+ * owner signing in from a clean one. The address is the one lib/auth/client-ip.ts trusts.
  */
 
 export const FAILURE_WINDOW_MS = 15 * 60 * 1000;
@@ -40,9 +40,16 @@ export async function signInWaitSeconds(options: { email: string; ip: string }):
     .where(and(eq(signInFailures.email, normalise(options.email)), gt(signInFailures.at, new Date(now - FAILURE_WINDOW_MS))))
     .orderBy(desc(signInFailures.at))
     .limit(256);
-  const fromHere = rows.filter((row) => row.ip === options.ip).map((row) => row.at);
-  const anywhere = rows.map((row) => row.at);
-  const wait = Math.max(waitMs(fromHere, FREE_FAILURES, now), waitMs(anywhere, FREE_FAILURES_ANY_ADDRESS, now));
+  return signInWaitFor({ rows, ip: options.ip, now });
+}
+
+/** The decision itself, on the window's failures (newest first). */
+export function signInWaitFor(options: { rows: { at: Date; ip: string }[]; ip: string; now: number }): number {
+  const fromHere = options.rows.filter((row) => row.ip === options.ip).map((row) => row.at);
+  const anywhere = options.rows.map((row) => row.at);
+  const own = waitMs(fromHere, FREE_FAILURES, options.now);
+  const shared = fromHere.length > 0 ? waitMs(anywhere, FREE_FAILURES_ANY_ADDRESS, options.now) : 0;
+  const wait = Math.max(own, shared);
   return wait > 0 ? Math.ceil(wait / 1000) : 0;
 }
 

@@ -1,7 +1,10 @@
 import "server-only";
 import { createAccount, type CreateAccountResult } from "@/db/queries/users";
+import { signUpExistingMail } from "@/lib/mail/messages";
+import { appLink, sendMail } from "@/lib/mail/send";
 import { hashPassword } from "./password";
 import type { SignUpInput } from "./schemas";
+import { takeThrottleSlot } from "./throttle";
 
 /** A new account and its personal lab (owned by the new user); shared by the form and the API. */
 export async function registerAccount(input: SignUpInput): Promise<CreateAccountResult> {
@@ -9,4 +12,20 @@ export async function registerAccount(input: SignUpInput): Promise<CreateAccount
   return createAccount({ name: input.name, email: input.email, passwordHash });
 }
 
-export const EMAIL_TAKEN_MESSAGE = "An account with this e-mail already exists. Sign in instead.";
+export const SIGN_UP_RECEIVED =
+  "Sign-up received. Sign in with this e-mail address and password. If the address already had an account, its owner got an e-mail instead.";
+
+const SIGN_UPS_PER_HOUR = 5;
+
+/**
+ * Creates the account, or, when the address is taken, e-mails that account's owner (after the
+ * answer, so the time taken does not tell). The caller gives the same answer either way.
+ */
+export async function signUpNeutrally(input: SignUpInput): Promise<"done" | "throttled"> {
+  if (!(await takeThrottleSlot({ kind: "sign_up", key: input.email, max: SIGN_UPS_PER_HOUR, windowMs: 60 * 60 * 1000 }))) return "throttled";
+  const result = await registerAccount(input);
+  if (!result.ok) {
+    void sendMail({ to: input.email, ...signUpExistingMail({ signInLink: appLink("/sign-in"), resetLink: appLink("/forgot-password") }) }).catch(() => undefined);
+  }
+  return "done";
+}

@@ -23,3 +23,14 @@ export function bearerToken(headers: Headers): string | null | "malformed" {
   if (!match?.[1] || !match[1].startsWith(TOKEN_PREFIX) || match[1].length > 200) return "malformed";
   return match[1];
 }
+
+/** A secret for a link (invitation, password reset, share link): 256 random bits, base64url. */
+export function generateLinkSecret(): { secret: string; secretHash: string } {
+  const secret = randomBytes(32).toString("base64url");
+  return { secret, secretHash: hashToken(secret) };
+}
+
+/** Link secrets are 43 base64url characters; anything else cannot name a link (and is not hashed). */
+export function isLinkSecret(value: string): boolean {
+  return /^[A-Za-z0-9_-]{43}$/.test(value);
+}

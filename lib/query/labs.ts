@@ -2,6 +2,7 @@
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "./fetcher";
+import { usePagedList } from "./paging";
 import type { ItemsResponse, Lab, LabMember, LabRole } from "./types";
 
 export const labKeys = {
@@ -15,24 +16,18 @@ export const labsQuery = () =>
     queryFn: ({ signal }) => apiFetch<ItemsResponse<Lab>>("/api/labs", { signal }).then((r) => r.items),
   });
 
-export const labMembersQuery = (labId: string) =>
-  queryOptions({
-    queryKey: labKeys.members(labId),
-    queryFn: ({ signal }) =>
-      apiFetch<ItemsResponse<LabMember>>(`/api/labs/${encodeURIComponent(labId)}/members`, { signal }).then((r) => r.items),
-  });
-
 export function useLabs() {
   return useQuery(labsQuery());
 }
 
+/** A lab's members, a page at a time; `data` is every member loaded so far. */
 export function useLabMembers(labId: string) {
-  return useQuery(labMembersQuery(labId));
+  const paged = usePagedList<LabMember>({ queryKey: labKeys.members(labId), path: `/api/labs/${encodeURIComponent(labId)}/members` });
+  return { ...paged, data: paged.items };
 }
 
-function membersPath(labId: string, userId?: string): string {
-  const base = `/api/labs/${encodeURIComponent(labId)}/members`;
-  return userId ? `${base}/${encodeURIComponent(userId)}` : base;
+function membersPath(labId: string, userId: string): string {
+  return `/api/labs/${encodeURIComponent(labId)}/members/${encodeURIComponent(userId)}`;
 }
 
 // Members live under ["labs", id], so invalidating ["labs"] refreshes them and the caller's own
@@ -45,14 +40,6 @@ function useInvalidateLab() {
   };
 }
 
-export function useAddMember(labId: string) {
-  const invalidate = useInvalidateLab();
-  return useMutation({
-    mutationFn: (input: { email: string; role: LabRole }) => apiFetch<unknown>(membersPath(labId), { method: "POST", json: input }),
-    onSuccess: invalidate,
-  });
-}
-
 export function useChangeMemberRole(labId: string) {
   const invalidate = useInvalidateLab();
   return useMutation({
@@ -63,14 +50,9 @@ export function useChangeMemberRole(labId: string) {
 }
 
 export function useRemoveMember(labId: string) {
-  const queryClient = useQueryClient();
   const invalidate = useInvalidateLab();
   return useMutation({
     mutationFn: (userId: string) => apiFetch<void>(membersPath(labId, userId), { method: "DELETE" }),
-    onSuccess: (_result, userId) => {
-      // Drop the row at once; the refetch that follows confirms it.
-      queryClient.setQueryData<LabMember[]>(labKeys.members(labId), (old) => old?.filter((m) => m.userId !== userId));
-      invalidate();
-    },
+    onSuccess: invalidate,
   });
 }

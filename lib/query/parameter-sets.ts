@@ -3,6 +3,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ModelParams } from "@/lib/physics/schema";
 import { apiFetch } from "./fetcher";
+import { usePagedList } from "./paging";
 import type { ItemResponse, ItemsResponse, ParameterSet, ParameterSetSummary, ParameterSetVersion } from "./types";
 
 export interface ParameterSetFilter {
@@ -37,10 +38,14 @@ function listPath(filter: ParameterSetFilter): string {
   return qs ? `/api/parameter-sets?${qs}` : "/api/parameter-sets";
 }
 
+// Pickers (compare, audit filter) read one page of the largest size; list screens page on demand.
+const PICKER_LIMIT = 200;
+const withLimit = (path: string) => `${path}${path.includes("?") ? "&" : "?"}limit=${PICKER_LIMIT}`;
+
 export const parameterSetsQuery = (filter: ParameterSetFilter) =>
   queryOptions({
     queryKey: parameterSetKeys.list(filter),
-    queryFn: ({ signal }) => apiFetch<ItemsResponse<ParameterSetSummary>>(listPath(filter), { signal }).then((r) => r.items),
+    queryFn: ({ signal }) => apiFetch<ItemsResponse<ParameterSetSummary>>(withLimit(listPath(filter)), { signal }).then((r) => r.items),
   });
 
 export const parameterSetQuery = (id: string) =>
@@ -54,13 +59,23 @@ export const parameterSetVersionsQuery = (id: string) =>
   queryOptions({
     queryKey: parameterSetKeys.versions(id),
     queryFn: ({ signal }) =>
-      apiFetch<ItemsResponse<ParameterSetVersion>>(`/api/parameter-sets/${encodeURIComponent(id)}/versions`, { signal }).then(
+      apiFetch<ItemsResponse<ParameterSetVersion>>(withLimit(`/api/parameter-sets/${encodeURIComponent(id)}/versions`), { signal }).then(
         (r) => r.items,
       ),
   });
 
 export function useParameterSets(filter: ParameterSetFilter) {
   return useQuery({ ...parameterSetsQuery(filter), placeholderData: (previous) => previous });
+}
+
+/** The set list screen: pages of sets, loaded on demand. */
+export function useParameterSetPages(filter: ParameterSetFilter) {
+  return usePagedList<ParameterSetSummary>({ queryKey: parameterSetKeys.list(filter), path: listPath(filter) });
+}
+
+/** The history screen: pages of versions, newest first. */
+export function useParameterSetVersionPages(id: string) {
+  return usePagedList<ParameterSetVersion>({ queryKey: parameterSetKeys.versions(id), path: `/api/parameter-sets/${encodeURIComponent(id)}/versions` });
 }
 
 export function useParameterSet(id: string) {

@@ -1,19 +1,15 @@
 "use client";
 
-import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "./fetcher";
-import type { ApiToken, ItemsResponse } from "./types";
+import { usePagedList } from "./paging";
+import type { ApiToken } from "./types";
 
 export const tokenKeys = { all: () => ["tokens"] as const };
 
-export const tokensQuery = () =>
-  queryOptions({
-    queryKey: tokenKeys.all(),
-    queryFn: ({ signal }) => apiFetch<ItemsResponse<ApiToken>>("/api/tokens", { signal }).then((r) => r.items),
-  });
-
-export function useTokens() {
-  return useQuery(tokensQuery());
+/** The settings list, a page at a time. */
+export function useTokenPages() {
+  return usePagedList<ApiToken>({ queryKey: tokenKeys.all(), path: "/api/tokens" });
 }
 
 export interface CreatedToken {

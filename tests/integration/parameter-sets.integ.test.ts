@@ -58,13 +58,18 @@ describeHttp("parameter sets: lifecycle", () => {
     expect(restored.body.item.params.temperatureK).toBe(300);
     expect(restored.body.item.tags).toEqual(["integ", "TGG"]);
 
-    // Restore without a body (no stale check) also works.
+    // A restore without the version it starts from would be a blind write: refused, nothing saved.
     const bare = await editor.request("POST", `/api/parameter-sets/${item.id}/versions/2/restore`);
-    expect(bare.status).toBe(200);
-    expect(bare.body.item.version).toBe(4);
+    expect(bare.status).toBe(415);
+    const noVersion = await editor.post(`/api/parameter-sets/${item.id}/versions/2/restore`, {});
+    expect(noVersion.status).toBe(400);
+    expect(noVersion.body.error.fields.version).toBeTruthy();
+    const again = await editor.post(`/api/parameter-sets/${item.id}/versions/2/restore`, { version: 3 });
+    expect(again.status).toBe(200);
+    expect(again.body.item.version).toBe(4);
 
-    expect((await editor.post(`/api/parameter-sets/${item.id}/versions/99/restore`, {})).status).toBe(404);
-    expect((await editor.post(`/api/parameter-sets/${item.id}/versions/abc/restore`, {})).status).toBe(404);
+    expect((await editor.post(`/api/parameter-sets/${item.id}/versions/99/restore`, { version: 4 })).status).toBe(404);
+    expect((await editor.post(`/api/parameter-sets/${item.id}/versions/abc/restore`, { version: 4 })).status).toBe(404);
     const history = await viewer.get(`/api/parameter-sets/${item.id}/versions`);
     expect(history.body.items.map((v: any) => v.version)).toEqual([4, 3, 2, 1]);
 

@@ -1,3 +1,5 @@
+import { readdir, readFile } from "node:fs/promises";
+import path from "node:path";
 import { describe } from "vitest";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import type { ModelParams } from "@/lib/physics/schema";
@@ -14,6 +16,8 @@ export const BASE_URL = process.env.GYROLUX_TEST_BASE_URL?.replace(/\/$/, "");
 export const describeHttp = describe.skipIf(!BASE_URL);
 
 export const DEMO_PASSWORD = "gyrolux-demo";
+/** The seeded site admin's password; scripts/test.sh sets it (the seed never uses the demo one). */
+export const ADMIN_PASSWORD = process.env.GYROLUX_ADMIN_PASSWORD;
 export const DEMO = {
   owner: "lead@demo.gyrolux.test",
   editor: "postdoc@demo.gyrolux.test",
@@ -62,6 +66,14 @@ export class Client {
   get base(): string {
     if (!BASE_URL) throw new Error("GYROLUX_TEST_BASE_URL is not set");
     return BASE_URL;
+  }
+
+  /** Copies a cookie header (e.g. to replay a session after its owner signed out). */
+  setCookies(header: string): void {
+    for (const pair of header.split("; ")) {
+      const eq = pair.indexOf("=");
+      if (eq > 0) this.cookies.set(pair.slice(0, eq), pair.slice(eq + 1));
+    }
   }
 
   cookieHeader(): string {
@@ -158,13 +170,85 @@ export async function createApiToken(client: Client, name = uniqueName("integ to
   return { id: response.body.item.id, token: response.body.token };
 }
 
-/** A fresh account via the JSON sign-up endpoint (its own personal lab). */
+/**
+ * A fresh account via the JSON sign-up endpoint (its own personal lab). Sign-up answers the same
+ * for every address, so the new user's id and lab come from signing in.
+ */
 export async function signUp(options: { name?: string; email?: string; password?: string } = {}) {
   const email = options.email ?? uniqueEmail("integ");
   const password = options.password ?? "correct horse battery";
   const response = await new Client().post("/api/sign-up", { name: options.name ?? "Integration Tester", email, password });
-  if (response.status !== 201) throw new Error(`sign-up failed: ${response.status} ${JSON.stringify(response.body)}`);
-  return { email, password, userId: response.body.user.id as string, labId: response.body.labId as string };
+  if (response.status !== 202) throw new Error(`sign-up failed: ${response.status} ${JSON.stringify(response.body)}`);
+  const client = await signIn(email, password);
+  const session = await client.get("/api/auth/session");
+  const labs = await client.get("/api/labs");
+  const lab = labs.body.items.find((l: any) => l.role === "owner");
+  return { email, password, userId: session.body.user.id as string, labId: lab.id as string, client };
+}
+
+/** Where the local SMTP stand-in stores caught mail (scripts/mail.sh; the same defaults). */
+export const MAIL_DIR = process.env.GYROLUX_MAIL_DIR ?? `/tmp/gyrolux-mail-${process.env.GYROLUX_SMTP_PORT ?? "2525"}`;
+
+export interface CaughtMail {
+  id: string;
+  receivedAt: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+}
+
+/** Caught messages to an address, oldest first. */
+export async function mailTo(address: string): Promise<CaughtMail[]> {
+  let names: string[] = [];
+  try {
+    names = (await readdir(MAIL_DIR)).filter((name) => name.endsWith(".json")).sort();
+  } catch {
+    return [];
+  }
+  const found: CaughtMail[] = [];
+  for (const name of names) {
+    const mail = JSON.parse(await readFile(path.join(MAIL_DIR, name), "utf8")) as CaughtMail;
+    if (mail.to.some((to) => to.toLowerCase() === address.toLowerCase())) found.push(mail);
+  }
+  return found;
+}
+
+/** Waits until `count` messages to the address have arrived; returns the newest. */
+export async function waitForMail(address: string, options: { count?: number; timeoutMs?: number } = {}): Promise<CaughtMail> {
+  const deadline = Date.now() + (options.timeoutMs ?? 15_000);
+  for (;;) {
+    const mails = await mailTo(address);
+    if (mails.length >= (options.count ?? 1)) return mails[mails.length - 1]!;
+    if (Date.now() > deadline) throw new Error(`no mail to ${address} in ${MAIL_DIR} (have ${mails.length})`);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+}
+
+/** The secret of the first link to `/prefix/<secret>` in a message. */
+export function linkSecret(mail: CaughtMail, prefix: string): string {
+  const match = new RegExp(`${prefix}/([A-Za-z0-9_-]{43})`).exec(mail.text);
+  if (!match?.[1]) throw new Error(`no ${prefix} link in: ${mail.text}`);
+  return match[1];
+}
+
+/** The owner invites the account; the account accepts with its own session. */
+export async function joinByInvitation(options: {
+  owner: Client;
+  labId: string;
+  account: { email: string; password: string };
+  role: "owner" | "editor" | "viewer";
+  inviteAs?: string;
+}) {
+  const before = (await mailTo(options.account.email)).length;
+  const invited = await options.owner.post(`/api/labs/${options.labId}/invitations`, { email: options.inviteAs ?? options.account.email, role: options.role });
+  if (invited.status !== 201) throw new Error(`invitation failed: ${invited.status} ${JSON.stringify(invited.body)}`);
+  const mail = await waitForMail(options.account.email, { count: before + 1 });
+  const token = linkSecret(mail, "/invite");
+  const invitee = await signIn(options.account.email, options.account.password);
+  const accepted = await invitee.post("/api/invitations/accept", { token });
+  if (accepted.status !== 200) throw new Error(`accept failed: ${accepted.status} ${JSON.stringify(accepted.body)}`);
+  return { invitationId: invited.body.item.id as string, token, invitee };
 }
 
 /** Creates a parameter set in the demo lab as the given client. */

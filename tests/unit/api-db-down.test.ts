@@ -40,7 +40,7 @@ const DOWN: [string, Error][] = [
   ["08006 connection failure", wrapped(serverError("08006", "connection failure"))],
   ["53300 too many connections", wrapped(serverError("53300", "sorry, too many clients already"))],
   ["connection lost mid-query (pg, no code)", wrapped(new Error("Connection terminated unexpectedly"))],
-  ["pool connect timeout (pg, no code)", new Error("timeout exceeded when trying to connect")],
+  ["new connection timed out (pg, no code)", new Error("Connection terminated due to connection timeout")],
 ];
 
 async function call(thrown: unknown): Promise<Response> {
@@ -80,6 +80,21 @@ describe("route wrapper: database unavailable", () => {
     expectNoLeak(text, error);
     // The cause is logged on the server for the operator.
     expect(consoleError).toHaveBeenCalledTimes(1);
+  });
+
+  it("a full pool (checkout waited out) → 503 busy, told apart from a lost database", async () => {
+    // pg-pool's pending-queue timer rejects with exactly this message and no code.
+    const response = await call(new Error("timeout exceeded when trying to connect"));
+    expect(response.status).toBe(503);
+    expect(response.headers.get("retry-after")).toBe("1");
+    expect(((await response.json()) as { error: { code: string } }).error.code).toBe("busy");
+  });
+
+  it("logs a failed query by code and constraint, never its SQL parameters", async () => {
+    await call(wrapped(serverError("23505", 'duplicate key value violates unique constraint "users_email_lower_unique"')));
+    const logged = consoleError.mock.calls.flat().map(String).join(" ");
+    expect(logged).toContain("23505");
+    for (const secret of [PARAMS[0]!, SQL, "password_hash"]) expect(logged).not.toContain(secret);
   });
 
   it("other database errors → 500 internal, also without the raw message", async () => {

@@ -9,7 +9,7 @@ export default async function LabPage() {
   const session = await auth();
   return (
     <>
-      <PageHeader title="Lab" lead="The labs you belong to and their members. Owners add people by e-mail and set their roles." />
+      <PageHeader title="Lab" lead="The labs you belong to and their members. Owners invite people by e-mail and set their roles." />
       <LabsOverview currentUserId={session?.user?.id ?? ""} />
     </>
   );

@@ -1,13 +1,17 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
+import { auth } from "@/lib/auth/config";
+import { PasswordPanel } from "./_components/password-panel";
 import { TokensPanel } from "./_components/tokens-panel";
 
 export const metadata: Metadata = { title: "Settings" };
 
-export default function SettingsPage() {
+export default async function SettingsPage() {
+  const session = await auth();
   return (
     <>
       <PageHeader title="Settings" />
+      <PasswordPanel userId={session?.user?.id ?? ""} />
       <TokensPanel />
     </>
   );

@@ -28,6 +28,11 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
           demo={demo ? { accounts: DEMO_ACCOUNTS, password: DEMO_PASSWORD } : null}
         />
         <p className="mt-6 text-sm text-ink-soft">
+          <Link href="/forgot-password" className="font-medium text-lux-dark underline underline-offset-4">
+            Forgot your password?
+          </Link>
+        </p>
+        <p className="mt-2 text-sm text-ink-soft">
           New here?{" "}
           <Link href="/sign-up" className="font-medium text-lux-dark underline underline-offset-4">
             Create an account

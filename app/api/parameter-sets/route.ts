@@ -1,11 +1,12 @@
 import { createParameterSet, listParameterSets } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
 import { validationError } from "@/lib/api/errors";
+import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
 import { createParameterSetSchema, listParameterSetsQuery } from "@/lib/api/schemas";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
 
-/** GET /api/parameter-sets?labId=&q=&tag= → { items: ParameterSetSummary[] } */
+/** GET /api/parameter-sets?labId=&q=&tag=&limit=&cursor= → { items: ParameterSetSummary[], nextCursor } */
 export const GET = apiRoute(async (request) => {
   const caller = await requireCaller(request);
   const search = new URL(request.url).searchParams;
@@ -18,7 +19,7 @@ export const GET = apiRoute(async (request) => {
   const { labId, q, tag } = parsed.data;
   // A lab filter names a lab: the caller must see it (404 otherwise, like any lab resource).
   if (labId) await requireLabRole(caller, labId, "viewer");
-  return json({ items: await listParameterSets({ caller, labId, q, tag }) });
+  return json(await listParameterSets({ caller, labId, q, tag, page: readPage(request) }));
 });
 
 /** POST /api/parameter-sets (editor) → 201 { item } */

@@ -2,16 +2,19 @@ import { readJson } from "@/lib/api/body";
 import { ApiError } from "@/lib/api/errors";
 import { apiRoute, json } from "@/lib/api/route";
 import { signUpSchema } from "@/lib/auth/schemas";
-import { EMAIL_TAKEN_MESSAGE, registerAccount } from "@/lib/auth/sign-up";
+import { SIGN_UP_RECEIVED, signUpNeutrally } from "@/lib/auth/sign-up";
 
 /**
- * POST /api/sign-up { name, email, password } → 201 { user: { id, email, name }, labId }.
- * The JSON twin of the sign-up form (scripts and HTTP tests cannot post a server action); it does
- * not sign in — use /api/auth/callback/credentials or an API token for that.
+ * POST /api/sign-up { name, email, password } → 202 { message }. The JSON twin of the sign-up
+ * form. The answer is the same whether or not the address already has an account (that account's
+ * owner gets an e-mail instead), so it tells nobody who has an account; sign in afterwards with
+ * /api/auth/callback/credentials. At most a few attempts per address and hour (429 beyond).
  */
 export const POST = apiRoute(async (request) => {
   const input = await readJson(request, signUpSchema);
-  const result = await registerAccount(input);
-  if (!result.ok) throw new ApiError("conflict", EMAIL_TAKEN_MESSAGE, { fields: { email: EMAIL_TAKEN_MESSAGE } });
-  return json({ user: result.user, labId: result.labId }, 201);
+  const outcome = await signUpNeutrally(input);
+  if (outcome === "throttled") {
+    throw new ApiError("rate_limited", "Too many sign-up attempts for this address. Try again in an hour.", { headers: { "Retry-After": "3600" } });
+  }
+  return json({ message: SIGN_UP_RECEIVED }, 202);
 });

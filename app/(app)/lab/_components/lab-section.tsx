@@ -9,7 +9,8 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { describeError } from "@/lib/query/fetcher";
 import { useChangeMemberRole, useLabMembers, useRemoveMember } from "@/lib/query/labs";
 import { hasRole, type Lab, type LabMember, type LabRole } from "@/lib/query/types";
-import { AddMemberForm } from "./add-member-form";
+import { LoadMore } from "@/components/ui/load-more";
+import { InvitationsPanel } from "./invitations-panel";
 import { ROLE_LABEL, ROLE_MEANING, ROLES } from "./role-text";
 
 export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: string }) {
@@ -103,7 +104,8 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
         )}
       </div>
 
-      {isOwner ? <AddMemberForm labId={lab.id} labName={lab.name} /> : null}
+      {members.isSuccess ? <LoadMore shown={members.data.length} hasMore={members.hasNextPage} loading={members.isFetchingNextPage} onMore={() => void members.fetchNextPage()} noun="members" /> : null}
+      {isOwner ? <InvitationsPanel labId={lab.id} labName={lab.name} /> : null}
 
       <ConfirmDialog
         open={removing !== null}

@@ -12,7 +12,7 @@ export function LabsOverview({ currentUserId }: { currentUserId: string }) {
   if (labs.data.length === 0) {
     return (
       <p className="max-w-2xl rounded-lg border border-dashed border-ink/20 bg-paper-raised px-5 py-6">
-        You are not a member of any lab yet. Ask a lab owner to add you with the e-mail address you signed up with.
+        You are not a member of any lab yet. Ask a lab owner to invite you; the invitation arrives by e-mail.
       </p>
     );
   }

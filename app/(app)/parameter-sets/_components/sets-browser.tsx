@@ -9,7 +9,8 @@ import { SkeletonRows } from "@/components/ui/skeleton";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { useSearchUpdate } from "@/components/ui/use-search-update";
 import { useLabs } from "@/lib/query/labs";
-import { useParameterSets } from "@/lib/query/parameter-sets";
+import { LoadMore } from "@/components/ui/load-more";
+import { useParameterSetPages } from "@/lib/query/parameter-sets";
 import { hasRole } from "@/lib/query/types";
 import { SearchBox } from "./search-box";
 import { SetsTable } from "./sets-table";
@@ -24,11 +25,11 @@ export function SetsBrowser() {
   const sort = parseSort(searchParams.get("sort"), searchParams.get("dir"));
 
   const labs = useLabs();
-  const sets = useParameterSets({ labId, q, tag });
+  const sets = useParameterSetPages({ labId, q, tag });
   const canCreate = labs.data?.some((lab) => hasRole(lab.role, "editor")) ?? false;
   const filtered = q !== "" || labId !== "" || tag !== "";
 
-  const sorted = useMemo(() => sortSets(sets.data ?? [], sort.key, sort.dir), [sets.data, sort.key, sort.dir]);
+  const sorted = useMemo(() => sortSets(sets.items, sort.key, sort.dir), [sets.items, sort.key, sort.dir]);
   const onSearch = useCallback((text: string) => update({ q: text }), [update]);
   const onSort = (key: SortKey) => {
     const dir = key === sort.key ? (sort.dir === "asc" ? "desc" : "asc") : key === "updated" ? "desc" : "asc";
@@ -87,7 +88,10 @@ export function SetsBrowser() {
       ) : sorted.length === 0 ? (
         <EmptyState filtered={filtered} canCreate={canCreate} onClear={clearFilters} />
       ) : (
-        <SetsTable items={sorted} sortKey={sort.key} sortDir={sort.dir} onSort={onSort} activeTag={tag} onTag={onTag} />
+        <>
+          <SetsTable items={sorted} sortKey={sort.key} sortDir={sort.dir} onSort={onSort} activeTag={tag} onTag={onTag} />
+          <LoadMore shown={sorted.length} hasMore={sets.hasNextPage} loading={sets.isFetchingNextPage} onMore={() => void sets.fetchNextPage()} noun="sets" />
+        </>
       )}
     </>
   );

@@ -7,12 +7,13 @@ import { DateTime } from "@/components/ui/date-time";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { SkeletonRows } from "@/components/ui/skeleton";
 import { describeError } from "@/lib/query/fetcher";
-import { useRevokeToken, useTokens } from "@/lib/query/tokens";
+import { LoadMore } from "@/components/ui/load-more";
+import { useRevokeToken, useTokenPages } from "@/lib/query/tokens";
 import type { ApiToken } from "@/lib/query/types";
 import { CreateTokenForm } from "./create-token-form";
 
 export function TokensPanel() {
-  const tokens = useTokens();
+  const tokens = useTokenPages();
   const revoke = useRevokeToken();
   const [revoking, setRevoking] = useState<ApiToken | null>(null);
 
@@ -33,7 +34,7 @@ export function TokensPanel() {
           <SkeletonRows label="Loading your tokens" rows={3} />
         ) : tokens.isError ? (
           <ErrorPanel error={tokens.error} retry={() => void tokens.refetch()} />
-        ) : tokens.data.length === 0 ? (
+        ) : tokens.items.length === 0 ? (
           <p className="text-sm text-ink-soft">You have no API tokens.</p>
         ) : (
           <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
@@ -48,7 +49,7 @@ export function TokensPanel() {
                 </tr>
               </thead>
               <tbody className="divide-y divide-ink/10">
-                {tokens.data.map((token) => (
+                {tokens.items.map((token) => (
                   <tr key={token.id}>
                     <td className="px-3 py-2 font-medium">{token.name}</td>
                     <td className="px-3 py-2"><DateTime iso={token.createdAt} /></td>
@@ -62,6 +63,9 @@ export function TokensPanel() {
                 ))}
               </tbody>
             </table>
+            <div className="px-3 pb-3">
+              <LoadMore shown={tokens.items.length} hasMore={tokens.hasNextPage} loading={tokens.isFetchingNextPage} onMore={() => void tokens.fetchNextPage()} noun="tokens" />
+            </div>
           </div>
         )}
       </div>

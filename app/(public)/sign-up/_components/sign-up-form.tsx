@@ -24,9 +24,9 @@ const FIELDS = [
   { name: "confirmPassword", id: "sign-up-confirm", type: "password", label: "Confirm password", autoComplete: "new-password" },
 ] as const;
 
-export function SignUpForm() {
+export function SignUpForm({ redirectTo, initialEmail = "" }: { redirectTo?: string; initialEmail?: string }) {
   const [state, formAction, pending] = useActionState(signUpAction, {});
-  const [values, setValues] = useState({ name: "", email: "", password: "", confirmPassword: "" });
+  const [values, setValues] = useState({ name: "", email: initialEmail, password: "", confirmPassword: "" });
   const [localError, setLocalError] = useState<Record<string, string>>({});
 
   const set = (key: keyof typeof values) => (event: React.ChangeEvent<HTMLInputElement>) =>
@@ -58,6 +58,7 @@ export function SignUpForm() {
       {FIELDS.map((field) => (
         <TextField key={field.name} {...field} required value={values[field.name]} onChange={set(field.name)} error={fieldError(field.name)} />
       ))}
+      {redirectTo ? <input type="hidden" name="redirectTo" value={redirectTo} /> : null}
       <Button type="submit" className="w-full" disabled={pending}>
         {pending ? "Creating account…" : "Create account"}
       </Button>

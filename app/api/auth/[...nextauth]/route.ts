@@ -1,30 +1,46 @@
-import { handlers } from "@/lib/auth/config";
-import { errorResponse } from "@/lib/api/route";
+import { NextRequest } from "next/server";
+import { readText } from "@/lib/api/body";
 import { ApiError } from "@/lib/api/errors";
+import { errorResponse } from "@/lib/api/route";
+import { isStorableText } from "@/lib/api/text";
 import { clientIp } from "@/lib/auth/client-ip";
+import { handlers } from "@/lib/auth/config";
 import { rateLimitMessage, signInWaitSeconds } from "@/lib/auth/rate-limit";
 
 export const GET = handlers.GET;
 
 /*
- * Auth.js answers every failed credentials sign-in with a redirect. While failures for this
- * e-mail and address are being slowed down, answer 429 with Retry-After here instead, so scripts
- * and tests see the limit; authorize() enforces the same limit for the server-action path.
+ * Every Auth.js POST (sign-in, sign-out) is read here first under the API's 64 KiB limit, so an
+ * oversized body is refused before anything parses it. While failures for this e-mail and address
+ * are being slowed down, a credentials sign-in gets 429 with Retry-After here instead of Auth.js's
+ * redirect, so scripts and tests see the limit; authorize() enforces the same limit for the
+ * server-action path.
  */
-export async function POST(request: Request): Promise<Response> {
+export async function POST(request: NextRequest): Promise<Response> {
+  let text: string;
+  try {
+    text = await readText(request);
+  } catch (error) {
+    return errorResponse(error, request);
+  }
+  const form = new URLSearchParams(text);
+  if ([...form].some(([key, value]) => !isStorableText(key) || !isStorableText(value))) {
+    return new ApiError("validation", "The form contains a character that cannot be used (a NUL byte or a broken surrogate).").toResponse();
+  }
   if (new URL(request.url).pathname.endsWith("/callback/credentials")) {
     try {
-      const form = await request.clone().formData();
       const email = form.get("email");
-      if (typeof email === "string" && email.length <= 320) {
+      if (email !== null && email.length <= 320) {
         const wait = await signInWaitSeconds({ email, ip: clientIp(request.headers) });
         if (wait > 0) {
           return new ApiError("rate_limited", rateLimitMessage(wait), { headers: { "Retry-After": String(wait) } }).toResponse();
         }
       }
     } catch (error) {
-      if (!(error instanceof TypeError)) return errorResponse(error, request);
+      return errorResponse(error, request);
     }
   }
-  return handlers.POST(request as Parameters<typeof handlers.POST>[0]);
+  const headers = new Headers(request.headers);
+  headers.delete("content-length");
+  return handlers.POST(new NextRequest(request.url, { method: "POST", headers, body: text }));
 }

@@ -2,12 +2,12 @@ import { revokeToken } from "@/db/queries/tokens";
 import { notFound } from "@/lib/api/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, noContent } from "@/lib/api/route";
-import { requireCaller } from "@/lib/auth/access";
+import { requireSessionCaller } from "@/lib/auth/access";
 
 /** DELETE /api/tokens/{id} → 204 (revokes one of the caller's own tokens) */
 export const DELETE = apiRoute<{ id: string }>(async (request, { params }) => {
   const { id } = await params;
-  const caller = await requireCaller(request);
+  const caller = await requireSessionCaller(request);
   if (!isUuid(id) || !(await revokeToken({ userId: caller.id, tokenId: id }))) throw notFound("No such token.");
   return noContent();
 });

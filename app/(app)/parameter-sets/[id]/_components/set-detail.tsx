@@ -7,6 +7,7 @@ import { SkeletonRows } from "@/components/ui/skeleton";
 import { useParameterSet } from "@/lib/query/parameter-sets";
 import { hasRole } from "@/lib/query/types";
 import { SetHeader } from "./set-header";
+import { ShareLinksPanel } from "./share-links-panel";
 
 export function SetDetail({ id }: { id: string }) {
   const set = useParameterSet(id);
@@ -21,6 +22,7 @@ export function SetDetail({ id }: { id: string }) {
     <>
       <SetHeader item={item} current="detail" />
       {hasRole(item.role, "editor") ? <SetEditor initial={item} /> : <SetReadOnly item={item} />}
+      {hasRole(item.role, "editor") ? <ShareLinksPanel setId={item.id} /> : null}
     </>
   );
 }

@@ -3,7 +3,8 @@
 import { useState } from "react";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { SkeletonRows } from "@/components/ui/skeleton";
-import { useParameterSet, useParameterSetVersions } from "@/lib/query/parameter-sets";
+import { LoadMore } from "@/components/ui/load-more";
+import { useParameterSet, useParameterSetVersionPages } from "@/lib/query/parameter-sets";
 import { hasRole } from "@/lib/query/types";
 import { SetHeader } from "../../_components/set-header";
 import { VersionCompare } from "./version-compare";
@@ -11,7 +12,7 @@ import { VersionList } from "./version-list";
 
 export function SetHistory({ id }: { id: string }) {
   const set = useParameterSet(id);
-  const versions = useParameterSetVersions(id);
+  const versions = useParameterSetVersionPages(id);
   const [restored, setRestored] = useState<{ from: number; to: number } | null>(null);
 
   if (!set.data || !versions.data) {
@@ -30,14 +31,17 @@ export function SetHistory({ id }: { id: string }) {
         </p>
       ) : null}
       <div className="grid gap-8 xl:grid-cols-[22rem_1fr]">
+        <div>
         <VersionList
           setId={id}
-          versions={versions.data}
+          versions={versions.items}
           currentVersion={item.version}
           canRestore={hasRole(item.role, "editor")}
           onRestored={(from, to) => setRestored({ from, to })}
         />
-        <VersionCompare versions={versions.data} />
+        <LoadMore shown={versions.items.length} hasMore={versions.hasNextPage} loading={versions.isFetchingNextPage} onMore={() => void versions.fetchNextPage()} noun="versions" />
+        </div>
+        <VersionCompare versions={versions.items} />
       </div>
     </>
   );

@@ -1,7 +1,7 @@
 import { changeMember } from "@/db/queries/labs";
 import type { LabRole } from "@/db/schema";
 import { readJson } from "@/lib/api/body";
-import { ApiError, notFound } from "@/lib/api/errors";
+import { ApiError, forbidden, notFound } from "@/lib/api/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, json, noContent } from "@/lib/api/route";
 import { changeMemberSchema } from "@/lib/api/schemas";
@@ -11,8 +11,15 @@ type Params = { id: string; userId: string };
 
 async function change(options: { caller: Caller; labId: string; userId: string; role: LabRole | null }) {
   if (!isUuid(options.userId)) throw notFound("No such member.");
-  const result = await changeMember({ actorId: options.caller.id, labId: options.labId, userId: options.userId, role: options.role });
+  const result = await changeMember({
+    actorId: options.caller.id,
+    actorIsSiteAdmin: options.caller.siteRole === "admin",
+    labId: options.labId,
+    userId: options.userId,
+    role: options.role,
+  });
   if (!result.ok && result.reason === "not_member") throw notFound("No such member.");
+  if (!result.ok && result.reason === "not_owner") throw forbidden("Only an owner of this lab can change members; your role changed meanwhile.");
   if (!result.ok) throw new ApiError("conflict", "A lab needs at least one owner: make someone else owner first.");
   return result.member;
 }

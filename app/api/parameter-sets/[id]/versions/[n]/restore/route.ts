@@ -1,5 +1,5 @@
 import { restoreParameterSetVersion } from "@/db/queries/parameter-sets";
-import { readOptionalJson } from "@/lib/api/body";
+import { readJson } from "@/lib/api/body";
 import { notFound } from "@/lib/api/errors";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
@@ -7,16 +7,16 @@ import { restoreVersionSchema } from "@/lib/api/schemas";
 import { requireCaller } from "@/lib/auth/access";
 
 /**
- * POST /api/parameter-sets/{id}/versions/{n}/restore { version? } (editor) → { item }: a new
- * version whose content equals version n. `version`, when sent, is the current version the
- * client saw (stale → 409 stale_version).
+ * POST /api/parameter-sets/{id}/versions/{n}/restore { version } (editor) → { item }: a new
+ * version whose content equals version n. `version` (required, like PATCH's) is the current
+ * version the client saw (stale → 409 stale_version), so a restore is never a blind write.
  */
 export const POST = apiRoute<{ id: string; n: string }>(async (request, { params }) => {
   const { id, n } = await params;
   const caller = await requireCaller(request);
   const access = await requireParameterSetRole(caller, id, "editor");
   if (!/^[1-9][0-9]{0,8}$/.test(n)) throw notFound(`This parameter set has no version ${n}.`);
-  const body = await readOptionalJson(request, restoreVersionSchema);
+  const body = await readJson(request, restoreVersionSchema);
   const item = await restoreParameterSetVersion({
     caller,
     id,

@@ -1,0 +1,32 @@
+import { changePassword, findUserById } from "@/db/queries/users";
+import { readJson } from "@/lib/api/body";
+import { ApiError } from "@/lib/api/errors";
+import { apiRoute, json } from "@/lib/api/route";
+import { requireSessionCaller } from "@/lib/auth/access";
+import { clientIp } from "@/lib/auth/client-ip";
+import { signIn } from "@/lib/auth/config";
+import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { rateLimitMessage, recordSignInFailure, signInWaitSeconds } from "@/lib/auth/rate-limit";
+import { changePasswordSchema } from "@/lib/auth/schemas";
+
+/**
+ * POST /api/account/password { currentPassword, newPassword } (browser session) → { ok }.
+ * Ends every other session (the session version moves on) and re-issues this browser's cookie.
+ * A wrong current password counts as a failed sign-in, so this is no way around the limiter.
+ */
+export const POST = apiRoute(async (request) => {
+  const caller = await requireSessionCaller(request, "Changing the password");
+  const { currentPassword, newPassword } = await readJson(request, changePasswordSchema);
+  const ip = clientIp(request.headers);
+  const wait = await signInWaitSeconds({ email: caller.email, ip });
+  if (wait > 0) throw new ApiError("rate_limited", rateLimitMessage(wait), { headers: { "Retry-After": String(wait) } });
+  const user = await findUserById({ id: caller.id });
+  if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) {
+    await recordSignInFailure({ email: caller.email, ip });
+    throw new ApiError("validation", "The current password is wrong.", { fields: { currentPassword: "The current password is wrong." } });
+  }
+  await changePassword({ userId: caller.id, passwordHash: await hashPassword(newPassword) });
+  // A fresh cookie carrying the new session version keeps this browser signed in.
+  await signIn("credentials", { email: caller.email, password: newPassword, redirect: false });
+  return json({ ok: true });
+});

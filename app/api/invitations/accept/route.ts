@@ -1,0 +1,31 @@
+import { z } from "zod";
+import { acceptInvitation } from "@/db/queries/invitations";
+import { readJson } from "@/lib/api/body";
+import { ApiError } from "@/lib/api/errors";
+import { apiRoute, json } from "@/lib/api/route";
+import { safeString } from "@/lib/api/text";
+import { requireSessionCaller } from "@/lib/auth/access";
+import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
+
+const acceptSchema = z.object({ token: safeString({ error: "The invitation link is incomplete." }).max(200, "The invitation link is not valid.") });
+
+const REFUSED: Record<string, string> = {
+  unknown: "This invitation link is not valid.",
+  accepted: "This invitation has already been used.",
+  revoked: "This invitation was withdrawn by the lab's owner.",
+  expired: "This invitation has expired; ask the lab's owner for a new one.",
+};
+
+/** POST /api/invitations/accept { token } (signed-in browser session) → { labId, labName, role } */
+export const POST = apiRoute(async (request) => {
+  const caller = await requireSessionCaller(request, "Accepting an invitation");
+  const { token } = await readJson(request, acceptSchema);
+  if (!isLinkSecret(token)) throw new ApiError("not_found", REFUSED.unknown!);
+  const result = await acceptInvitation({ tokenHash: hashToken(token), userId: caller.id, userEmail: caller.email });
+  if (result.ok) return json({ labId: result.labId, labName: result.labName, role: result.role, alreadyMember: result.alreadyMember });
+  if (result.reason === "unknown") throw new ApiError("not_found", REFUSED.unknown!);
+  if (result.reason === "other_email") {
+    throw new ApiError("forbidden", `This invitation is for ${result.email}; you are signed in as ${caller.email}. Sign in with the invited address.`);
+  }
+  throw new ApiError("conflict", REFUSED[result.reason]!);
+});

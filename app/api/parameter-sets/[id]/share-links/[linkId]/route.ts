@@ -1,0 +1,17 @@
+import { revokeShareLink } from "@/db/queries/share-links";
+import { notFound } from "@/lib/api/errors";
+import { isUuid } from "@/lib/api/ids";
+import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
+import { apiRoute, noContent } from "@/lib/api/route";
+import { requireCaller } from "@/lib/auth/access";
+
+/** DELETE /api/parameter-sets/{id}/share-links/{linkId} (editor) → 204; the link stops working at once. */
+export const DELETE = apiRoute<{ id: string; linkId: string }>(async (request, { params }) => {
+  const { id, linkId } = await params;
+  const caller = await requireCaller(request);
+  const access = await requireParameterSetRole(caller, id, "editor");
+  if (!isUuid(linkId) || !(await revokeShareLink({ actorId: caller.id, setId: id, labId: access.labId, linkId }))) {
+    throw notFound("No such share link.");
+  }
+  return noContent();
+});

@@ -1,0 +1,24 @@
+import "server-only";
+import { and, count, eq, gt, lt } from "drizzle-orm";
+import { db } from "@/db/client";
+import { requestThrottle } from "@/db/schema";
+
+/*
+ * A small sliding-window counter in PostgreSQL for unauthenticated requests that create accounts
+ * or send mail: at most `max` per `windowMs` per (kind, key). Kept in the database, like the
+ * sign-in failures, so the limit holds across restarts and several server processes.
+ */
+
+export async function takeThrottleSlot(options: { kind: string; key: string; max: number; windowMs: number }): Promise<boolean> {
+  const since = new Date(Date.now() - options.windowMs);
+  const key = options.key.trim().toLowerCase().slice(0, 320);
+  const [row] = await db
+    .select({ n: count() })
+    .from(requestThrottle)
+    .where(and(eq(requestThrottle.kind, options.kind), eq(requestThrottle.key, key), gt(requestThrottle.at, since)));
+  if ((row?.n ?? 0) >= options.max) return false;
+  await db.insert(requestThrottle).values({ kind: options.kind, key });
+  // Rows older than a day never count again; trimming here spares a separate job.
+  await db.delete(requestThrottle).where(lt(requestThrottle.at, new Date(Date.now() - 24 * 60 * 60 * 1000)));
+  return true;
+}

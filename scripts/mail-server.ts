@@ -1,0 +1,62 @@
+import { randomBytes } from "node:crypto";
+import { mkdirSync, writeFileSync, renameSync } from "node:fs";
+import path from "node:path";
+import { SMTPServer } from "smtp-server";
+import { parseMessage } from "../lib/mail/mime";
+import { readMailSettings, type CaughtMail } from "../lib/mail/settings";
+
+/*
+ * The local SMTP stand-in for the demo and the tests (started by scripts/mail.sh). It listens on
+ * 127.0.0.1 only, accepts every message and delivers none: each one is written to the mail folder
+ * as <id>.eml (raw) and <id>.json (sender, recipients, subject, decoded text).
+ */
+
+const settings = readMailSettings();
+mkdirSync(settings.dir, { recursive: true });
+
+const server = new SMTPServer({
+  authOptional: true,
+  disabledCommands: ["STARTTLS"],
+  banner: "Gyrolux local mail catcher",
+  size: 1024 * 1024,
+  onAuth(_auth, _session, callback) {
+    callback(null, { user: "local" });
+  },
+  onData(stream, session, callback) {
+    const chunks: Buffer[] = [];
+    stream.on("data", (chunk: Buffer) => chunks.push(chunk));
+    stream.on("end", () => {
+      try {
+        const raw = Buffer.concat(chunks).toString("utf8");
+        const parsed = parseMessage(raw);
+        const receivedAt = new Date().toISOString();
+        const id = `${receivedAt.replace(/[:.]/g, "-")}-${randomBytes(4).toString("hex")}`;
+        const record: CaughtMail = {
+          id,
+          receivedAt,
+          from: session.envelope.mailFrom ? session.envelope.mailFrom.address : "",
+          to: session.envelope.rcptTo.map((r) => r.address),
+          subject: parsed.subject,
+          text: parsed.text,
+        };
+        writeFileSync(path.join(settings.dir, `${id}.eml`), raw);
+        // Write then rename, so a reader never sees half a JSON file.
+        const tmp = path.join(settings.dir, `.${id}.tmp`);
+        writeFileSync(tmp, JSON.stringify(record, null, 2));
+        renameSync(tmp, path.join(settings.dir, `${id}.json`));
+        callback();
+      } catch (error) {
+        callback(error instanceof Error ? error : new Error(String(error)));
+      }
+    });
+  },
+});
+
+server.on("error", (error) => console.error("[mail] server error:", error.message));
+server.listen(settings.port, "127.0.0.1", () => {
+  console.log(`[mail] catching mail on 127.0.0.1:${settings.port}, stored in ${settings.dir}`);
+});
+
+const stop = () => server.close(() => process.exit(0));
+process.on("SIGTERM", stop);
+process.on("SIGINT", stop);
