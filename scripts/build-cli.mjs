@@ -7,7 +7,7 @@
  *   node scripts/build-cli.mjs            build every stale target
  *   import { ensureBuilt } from "./build-cli.mjs"; await ensureBuilt("spectrum")
  */
-import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 
@@ -65,9 +65,19 @@ async function build(name) {
     metafile: true,
     logLevel: "warning",
     legalComments: "none",
+    write: false,
   });
+  // Written under a temporary name and renamed, so a process building at the same moment (tests
+  // run in parallel) never sees half a file.
+  for (const file of result.outputFiles) {
+    const tmp = `${file.path}.${process.pid}.tmp`;
+    writeFileSync(tmp, file.contents);
+    renameSync(tmp, file.path);
+  }
   const inputs = Object.keys(result.metafile.inputs).filter((f) => !f.startsWith("node_modules/"));
-  writeFileSync(inputsFile(name), JSON.stringify([...inputs, "package-lock.json"]));
+  const tmp = `${inputsFile(name)}.${process.pid}.tmp`;
+  writeFileSync(tmp, JSON.stringify([...inputs, "package-lock.json"]));
+  renameSync(tmp, inputsFile(name));
 }
 
 /** Builds the named targets that are stale; returns the names built. */

@@ -18,5 +18,7 @@ npx tsx db/migrate.ts
 npx tsx db/seed.ts
 log "building the production app"
 npx next build
-log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Ctrl-C stops the web server; 'bash db/pg.sh stop' stops PostgreSQL."
-exec npx next start -p "$PORT"
+log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Ctrl-C stops the web server and its lab-run worker; 'bash db/pg.sh stop' stops PostgreSQL."
+bash scripts/worker.sh start
+trap 'bash scripts/worker.sh stop' EXIT
+npx next start -p "$PORT"

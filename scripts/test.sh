@@ -19,6 +19,8 @@ export GYROLUX_TEST_OUTPUT="${GYROLUX_TEST_OUTPUT:-$PWD/test-results}"
 export NODE_ENV=production
 export AUTH_SECRET="test-secret-$(date +%s%N)-$$-not-for-production"
 export AUTH_TRUST_HOST=true
+# Lab-run queue timings short enough that the worker-fault test retries within seconds.
+export GYROLUX_RUN_STALE_S="${GYROLUX_RUN_STALE_S:-4}" GYROLUX_RUN_RETRY_DELAY_S="${GYROLUX_RUN_RETRY_DELAY_S:-1}" GYROLUX_RUN_POLL_S="${GYROLUX_RUN_POLL_S:-0.5}" GYROLUX_RUN_MAINTENANCE_S="${GYROLUX_RUN_MAINTENANCE_S:-2}"
 
 started=$(date +%s)
 server_pid=""
@@ -26,6 +28,7 @@ cleanup() {
   local rc=$?
   # The server runs in its own process group so that it and every child it forked stop together.
   [ -n "$server_pid" ] && kill -- "-$server_pid" 2>/dev/null || true
+  bash scripts/worker.sh stop >/dev/null 2>&1 || true
   bash db/pg.sh drop-db "$RUN_DB" >/dev/null 2>&1 || true
   log "npm test finished in $(( $(date +%s) - started )) s (exit $rc)"
   exit $rc
@@ -38,6 +41,7 @@ bash db/pg.sh start
 bash db/pg.sh create-db "$RUN_DB"
 npx tsx db/migrate.ts
 npx tsx db/seed.ts
+node scripts/build-cli.mjs
 
 log "building the production app"
 npx next build
@@ -49,4 +53,5 @@ wait_for_http "$GYROLUX_TEST_BASE_URL/api/health"
 log "unit and API integration tests"
 npx vitest run
 log "browser tests"
+bash scripts/worker.sh start
 npx vitest run -c vitest.e2e.config.mts

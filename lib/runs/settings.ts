@@ -21,6 +21,12 @@ const settingsSchema = z.object({
   GYROLUX_RUN_RETRY_DELAY_S: seconds(10),
   /** A job still active after this long counts as lost (its worker died) and is retried. */
   GYROLUX_RUN_EXPIRE_S: seconds(900),
+  /**
+   * A running run whose worker has not written progress for this long is given back to the queue
+   * (pg-boss fail → retry with backoff): its worker died. Much shorter than the expiry, which stays
+   * as pg-boss's own backstop.
+   */
+  GYROLUX_RUN_STALE_S: seconds(60, 3),
   /** How often pg-boss looks for expired jobs. */
   GYROLUX_RUN_MAINTENANCE_S: seconds(30),
   /** How often an idle worker asks for a job (pg-boss allows 0.5 s and more). */
@@ -37,6 +43,7 @@ export interface RunSettings {
   retryDelaySeconds: number;
   expireSeconds: number;
   maintenanceSeconds: number;
+  staleSeconds: number;
   pollSeconds: number;
   threads: number;
   workerId: string;
@@ -50,6 +57,7 @@ export function runSettings(env: Record<string, string | undefined> = process.en
     retryDelaySeconds: e.GYROLUX_RUN_RETRY_DELAY_S,
     expireSeconds: e.GYROLUX_RUN_EXPIRE_S,
     maintenanceSeconds: e.GYROLUX_RUN_MAINTENANCE_S,
+    staleSeconds: e.GYROLUX_RUN_STALE_S,
     pollSeconds: e.GYROLUX_RUN_POLL_S,
     threads: e.GYROLUX_WORKER_THREADS ?? Math.max(1, cpus().length),
     workerId: e.GYROLUX_WORKER_ID ?? `${hostname()}-${process.pid}`,

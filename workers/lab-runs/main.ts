@@ -16,7 +16,7 @@ import { runKindHandler, type ChunkOutput } from "@/lib/runs/kinds";
 import { encodeResult } from "@/lib/runs/encoding";
 import { RUN_QUEUE, runSettings } from "@/lib/runs/settings";
 import { ChunkError, ThreadPool } from "./thread-pool";
-import { claimRun, closeStaleRun, endRun, finishRun, heartbeat, markCancelledIfRequested, staleRuns } from "./store";
+import { claimRun, closeStaleRun, endRun, finishRun, heartbeat, markCancelledIfRequested, releaseSilentRuns, staleRuns } from "./store";
 
 const settings = runSettings();
 const log = (msg: string) => process.stderr.write(`[worker ${settings.workerId}] ${msg}\n`);
@@ -132,20 +132,25 @@ async function main(): Promise<void> {
     await compute(runId, job);
   });
 
-  // Runs whose job the queue has given up on (retries spent after a worker died) or cancelled
-  // would stay "running" forever; any worker closes them.
+  // A worker that died leaves its run "running" with no progress writes: hand its job back to
+  // the queue (pg-boss retries it with backoff) instead of waiting for the job's expiry. Runs whose
+  // job the queue has given up on or cancelled would stay open forever; any worker closes them.
   const sweep = async () => {
-    for (const run of await staleRuns(db, { olderThanSeconds: Math.max(10, 3 * settings.maintenanceSeconds) })) {
+    for (const run of await releaseSilentRuns(db, { silentSeconds: settings.staleSeconds })) {
+      log(`run ${run.id}: worker ${run.workerId ?? "?"} stopped answering; handing the job back to the queue`);
+      await boss.fail(RUN_QUEUE, run.id, { message: `worker ${run.workerId ?? "?"} stopped answering` });
+    }
+    for (const run of await staleRuns(db, { olderThanSeconds: settings.staleSeconds })) {
       const job = await boss.getJobById(RUN_QUEUE, run.id);
       if (!job) continue;
       if (job.state === "failed") {
-        await closeStaleRun(db, { runId: run.id, state: "failed", error: "The job queue gave up on this run: its worker stopped or timed out on every attempt." });
+        await closeStaleRun(db, { runId: run.id, state: "failed", error: "The job queue gave up on this run: its worker stopped or failed on every attempt." });
       } else if (job.state === "cancelled") {
         await closeStaleRun(db, { runId: run.id, state: "cancelled", error: null });
       }
     }
   };
-  const sweepTimer = setInterval(() => void sweep().catch((e: Error) => log(`sweep failed: ${e.message}`)), Math.max(5, settings.maintenanceSeconds) * 1000);
+  const sweepTimer = setInterval(() => void sweep().catch((e: Error) => log(`sweep failed: ${e.message}`)), Math.max(1000, (settings.staleSeconds * 1000) / 4));
 
   log(`serving queue "${RUN_QUEUE}" with ${threads.size} threads (expire ${settings.expireSeconds} s, retries ${settings.retryLimit})`);
   let stopping = false;

@@ -86,6 +86,18 @@ export async function endRun(
     .where(and(eq(labRuns.id, options.runId), eq(labRuns.attempt, options.attempt), eq(labRuns.state, "running")));
 }
 
+/**
+ * Running runs whose worker stopped writing progress (it died). The update is the arbiter between
+ * workers sweeping at the same time: only the one whose update matched hands the job back.
+ */
+export async function releaseSilentRuns(db: Database, options: { silentSeconds: number }): Promise<{ id: string; workerId: string | null }[]> {
+  return db
+    .update(labRuns)
+    .set({ state: "queued", error: sql`'The worker ' || coalesce(${labRuns.workerId}, '?') || ' stopped answering; the run is queued again.'`, updatedAt: sql`now()` })
+    .where(and(eq(labRuns.state, "running"), lt(labRuns.updatedAt, sql`now() - make_interval(secs => ${options.silentSeconds})`)))
+    .returning({ id: labRuns.id, workerId: labRuns.workerId });
+}
+
 /** Runs still marked queued/running that nobody has touched for a while: candidates for the sweep. */
 export async function staleRuns(db: Database, options: { olderThanSeconds: number }): Promise<{ id: string; state: string }[]> {
   return db
