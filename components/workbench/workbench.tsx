@@ -28,6 +28,7 @@ import { SpectrumPanels } from "./spectrum-panels";
 import { SpinTracePanel } from "./spin-trace-panel";
 import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
+import { LabRunPanel } from "@/components/runs/lab-run-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useViewState, type ViewSaveStatus } from "./use-view-state";
 
@@ -226,6 +227,7 @@ export function Workbench({ set, initialParams, initialViewState, canSaveView }:
               />
             </PanelFrame>
           ) : null}
+          {set ? <LabRunPanel setId={set.id} params={params} range={range} /> : null}
         </div>
       </div>
     </div>
