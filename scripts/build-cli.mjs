@@ -65,6 +65,10 @@ async function build(name) {
     metafile: true,
     logLevel: "warning",
     legalComments: "none",
+    // A smaller file parses faster: at start-up Node spends most of a one-wavelength call compiling
+    // the bundle (measured with --cpu-prof), so the command line is minified.
+    minify: true,
+    keepNames: true,
     write: false,
   });
   // Written under a temporary name and renamed, so a process building at the same moment (tests
@@ -76,7 +80,7 @@ async function build(name) {
   }
   const inputs = Object.keys(result.metafile.inputs).filter((f) => !f.startsWith("node_modules/"));
   const tmp = `${inputsFile(name)}.${process.pid}.tmp`;
-  writeFileSync(tmp, JSON.stringify([...inputs, "package-lock.json"]));
+  writeFileSync(tmp, JSON.stringify([...inputs, "package-lock.json", "scripts/build-cli.mjs"]));
   renameSync(tmp, inputsFile(name));
 }
 

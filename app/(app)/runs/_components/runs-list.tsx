@@ -21,7 +21,7 @@ export function RunsList() {
     <div>
       <PageHeader
         title="Lab runs"
-        lead="Long computations (numerical maps, long spectra) computed by the lab's worker machines and kept for everyone in the lab. Submit one from the workbench's maps panel."
+        lead="Long computations (numerical maps, long spectra) computed by the lab's worker machines and kept for everyone in the lab. Submit one from a parameter set's workbench (“Run on the lab’s machines”)."
         actions={
           <label className="flex items-center gap-2 text-sm">
             Lab
@@ -46,7 +46,7 @@ export function RunsList() {
         <ErrorPanel error={runs.error} retry={() => void runs.refetch()} />
       ) : runs.data.length === 0 ? (
         <div role="status" className="rounded-lg border border-dashed border-ink/20 px-6 py-10 text-center text-sm text-ink-soft">
-          No runs yet. In the workbench, open the Maps panel and choose “Run on the lab’s machines”.
+          No runs yet. Open a parameter set in the workbench and use “Run on the lab’s machines” below the plots.
         </div>
       ) : (
         <ul className="divide-y divide-ink/10 rounded-lg border border-ink/10 bg-paper-raised" aria-label="Runs">
