@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useId, useMemo, useState } from "react";
+import { memo, useId, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ApiError, describeError } from "@/lib/query/fetcher";
@@ -76,7 +76,8 @@ const FIELD_OF: Record<string, keyof Drafts> = {
   "payload.rows.count": "rows",
 };
 
-export function LabRunPanel({ setId, params, range }: { setId: string; params: ModelParams | null; range: WavelengthRange | null }) {
+/** Memoized: the workbench re-renders on every progress tick of its own run; this panel need not. */
+export const LabRunPanel = memo(function LabRunPanel({ setId, params, range }: { setId: string; params: ModelParams | null; range: WavelengthRange | null }) {
   const id = useId().replace(/[^\w-]/g, "");
   const set = useParameterSet(setId);
   const submit = useSubmitRun();
@@ -202,4 +203,4 @@ export function LabRunPanel({ setId, params, range }: { setId: string; params: M
       ) : null}
     </section>
   );
-}
+});
