@@ -1,6 +1,7 @@
 import { relations, sql } from "drizzle-orm";
 import {
   boolean,
+  customType,
   doublePrecision,
   index,
   integer,
@@ -432,3 +433,65 @@ export const requestThrottle = pgTable(
   },
   (t) => [index("request_throttle_key_idx").on(t.kind, t.key, t.at)],
 );
+
+/* ---------- Lab runs: long computations on the job queue (workers/lab-runs) ---------- */
+
+export const labRunStateEnum = pgEnum("lab_run_state", ["queued", "running", "done", "failed", "cancelled"]);
+export type LabRunState = (typeof labRunStateEnum.enumValues)[number];
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
+
+/**
+ * One submitted run. Its id is also the pg-boss job id. `attempt` counts the times a worker took
+ * it; a worker keeps computing only while the row still carries its own attempt, so a retried job
+ * is never worked on by two workers at once.
+ */
+export const labRuns = pgTable(
+  "lab_runs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    labId: uuid("lab_id")
+      .notNull()
+      .references(() => labs.id, { onDelete: "cascade" }),
+    submittedById: uuid("submitted_by")
+      .notNull()
+      .references(() => users.id),
+    kind: text("kind").notNull(),
+    title: text("title").notNull(),
+    payload: jsonb("payload").$type<Record<string, unknown>>().notNull(),
+    cells: integer("cells").notNull(),
+    parameterSetId: uuid("parameter_set_id").references(() => parameterSets.id, { onDelete: "set null" }),
+    parameterSetName: text("parameter_set_name"),
+    parameterSetVersion: integer("parameter_set_version"),
+    /** The parameters differ from the stored version (workbench what-if edits). */
+    paramsEdited: boolean("params_edited").notNull().default(false),
+    state: labRunStateEnum("state").notNull().default("queued"),
+    progress: doublePrecision("progress").notNull().default(0),
+    cancelRequested: boolean("cancel_requested").notNull().default(false),
+    error: text("error"),
+    workerId: text("worker_id"),
+    attempt: integer("attempt").notNull().default(0),
+    startedAt: timestamp("started_at", { withTimezone: true }),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("lab_runs_lab_idx").on(t.labId, t.createdAt), index("lab_runs_state_idx").on(t.state)],
+);
+export type LabRun = typeof labRuns.$inferSelect;
+export type NewLabRun = typeof labRuns.$inferInsert;
+
+/** The result of a run: at most one per run (primary key), written with ON CONFLICT DO NOTHING. */
+export const labRunResults = pgTable("lab_run_results", {
+  runId: uuid("run_id")
+    .primaryKey()
+    .references(() => labRuns.id, { onDelete: "cascade" }),
+  workerId: text("worker_id").notNull(),
+  attempt: integer("attempt").notNull(),
+  /** Column names, lengths and what they mean; `data` holds the columns as little-endian float64. */
+  meta: jsonb("meta").$type<Record<string, unknown>>().notNull(),
+  data: bytea("data").notNull(),
+  computeMs: integer("compute_ms").notNull(),
+  createdAt: createdAt(),
+});
+export type LabRunResult = typeof labRunResults.$inferSelect;

@@ -28,5 +28,7 @@ else
   npx next build
   echo "$fingerprint" > "$build_dir/gyrolux-build-fingerprint"
 fi
-log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Caught e-mail: ${GYROLUX_MAIL_DIR:-/tmp/gyrolux-mail-$GYROLUX_SMTP_PORT}. Ctrl-C stops the web server; 'bash db/pg.sh stop', 'bash scripts/s3.sh stop' and 'bash scripts/mail.sh stop' stop PostgreSQL, the object store and the mail catcher."
-exec npx next start -p "$PORT"
+log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Caught e-mail: ${GYROLUX_MAIL_DIR:-/tmp/gyrolux-mail-$GYROLUX_SMTP_PORT}. Ctrl-C stops the web server and its lab-run worker; 'bash db/pg.sh stop', 'bash scripts/s3.sh stop' and 'bash scripts/mail.sh stop' stop PostgreSQL, the object store and the mail catcher."
+bash scripts/worker.sh start
+trap 'bash scripts/worker.sh stop' EXIT
+npx next start -p "$PORT"

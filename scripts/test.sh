@@ -25,6 +25,8 @@ export AUTH_TRUST_HOST=true
 export GYROLUX_NEXT_DIST_DIR="${GYROLUX_TEST_NEXT_DIST_DIR:-.next-test}"
 export GYROLUX_SMTP_PORT="${GYROLUX_TEST_SMTP_PORT:-2535}" GYROLUX_MAIL_DIR="${GYROLUX_TEST_MAIL_DIR:-/tmp/gyrolux-mail-test-$$}"
 export GYROLUX_PUBLIC_URL="$GYROLUX_TEST_BASE_URL" GYROLUX_ADMIN_PASSWORD="admin-$(date +%s%N)-$$"
+# Lab-run queue timings short enough that the worker-fault test retries within seconds.
+export GYROLUX_RUN_STALE_S="${GYROLUX_RUN_STALE_S:-4}" GYROLUX_RUN_RETRY_DELAY_S="${GYROLUX_RUN_RETRY_DELAY_S:-1}" GYROLUX_RUN_POLL_S="${GYROLUX_RUN_POLL_S:-0.5}" GYROLUX_RUN_MAINTENANCE_S="${GYROLUX_RUN_MAINTENANCE_S:-2}"
 
 started=$(date +%s)
 server_pid=""
@@ -33,6 +35,7 @@ cleanup() {
   local rc=$?
   # The server runs in its own process group so that it and every child it forked stop together.
   [ -n "$server_pid" ] && kill -- "-$server_pid" 2>/dev/null || true
+  bash scripts/worker.sh stop >/dev/null 2>&1 || true
   bash db/pg.sh drop-db "$RUN_DB" >/dev/null 2>&1 || true
   bash scripts/mail.sh stop >/dev/null 2>&1 && rm -rf "$GYROLUX_MAIL_DIR" || true
   # Stop the test database only when this run started it.
@@ -52,6 +55,7 @@ bash scripts/s3.sh stop && rm -rf "$GYROLUX_S3_DIR" && bash scripts/s3.sh start
 bash scripts/mail.sh start
 npx tsx db/migrate.ts
 npx tsx db/seed.ts
+node scripts/build-cli.mjs
 
 log "building the production app"
 npx next build
@@ -63,4 +67,5 @@ wait_for_http "$GYROLUX_TEST_BASE_URL/api/health"
 log "unit and API integration tests"
 npx vitest run
 log "browser tests"
+bash scripts/worker.sh start
 npx vitest run -c vitest.e2e.config.mts

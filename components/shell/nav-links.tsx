@@ -8,6 +8,7 @@ export const NAV_ITEMS = [
   { href: "/workbench", label: "Workbench" },
   { href: "/measurements", label: "Measurements" },
   { href: "/planner", label: "Planner" },
+  { href: "/runs", label: "Lab runs" },
   { href: "/lab", label: "Lab" },
   { href: "/audit", label: "Audit" },
   { href: "/settings", label: "Settings" },

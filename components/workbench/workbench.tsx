@@ -32,6 +32,7 @@ import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { AbsorptionPanel, OpaqueNote } from "./absorption-panel";
 import { FitPanel } from "./fit-panel";
+import { LabRunPanel } from "@/components/runs/lab-run-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useMarkerValues } from "./use-marker-values";
 import { useViewState, type ViewSource } from "./use-view-state";
@@ -270,6 +271,7 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
               <FitPanel setId={set.id} params={params} pool={sidePool} />
             </PanelFrame>
           ) : null}
+          {set && !shared ? <LabRunPanel setId={set.id} params={params} range={range} /> : null}
         </div>
       </div>
     </div>

@@ -8,12 +8,12 @@ import { TGG } from "./fixtures";
 const dir = mkdtempSync(join(tmpdir(), "gyrolux-cli-"));
 let count = 0;
 
-// The first test spawns exactly what users type (npx tsx); the others load the same tsx loader into
-// node directly, which skips npx's start-up and keeps the suite quick on busy machines.
+// The first test spawns exactly what users type (npm run spectrum, which builds dist/ when stale);
+// the others run the same launcher with node directly, which skips npm's start-up.
 function run(content: string | null, viaNpx = false) {
   const file = join(dir, `p${count++}.json`);
   if (content !== null) writeFileSync(file, content);
-  const [cmd, args] = viaNpx ? ["npx", ["tsx", "scripts/spectrum.ts", file]] : [process.execPath, ["--import", "tsx", "scripts/spectrum.ts", file]];
+  const [cmd, args] = viaNpx ? ["npm", ["run", "--silent", "spectrum", "--", file]] : [process.execPath, ["scripts/run-built.mjs", "spectrum", file]];
   const r = spawnSync(cmd, args as string[], { cwd: process.cwd(), encoding: "utf8" });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr, stderrLines: r.stderr.split("\n").filter((l) => l.length > 0) };
 }

@@ -18,7 +18,7 @@ const file = (name: string, content: string) => {
 // The first test spawns the real process (node with the tsx loader, as the spectrum command line's
 // tests do); the others run the same command in-process with the real file system, which is quicker.
 function spawnFit(args: string[]) {
-  const r = spawnSync(process.execPath, ["--import", "tsx", "scripts/fit.ts", "--", ...args], { cwd: process.cwd(), encoding: "utf8" });
+  const r = spawnSync(process.execPath, ["scripts/run-built.mjs", "fit", "--", ...args], { cwd: process.cwd(), encoding: "utf8" });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr, stderrLines: r.stderr.split("\n").filter((l) => l.length > 0) };
 }
 function run(args: string[]) {

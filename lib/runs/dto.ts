@@ -1,0 +1,66 @@
+import { z } from "zod";
+import { runSpecSchema } from "./kinds";
+
+/*
+ * The JSON shapes of the lab-run API, for both sides (types and the submit schema only; no server
+ * import, so the browser bundle can use them).
+ */
+
+export type LabRunState = "queued" | "running" | "done" | "failed" | "cancelled";
+
+export interface LabRunSummary {
+  id: string;
+  labId: string;
+  labName: string;
+  kind: string;
+  title: string;
+  cells: number;
+  state: LabRunState;
+  /** 0…1 */
+  progress: number;
+  cancelRequested: boolean;
+  error: string | null;
+  workerId: string | null;
+  attempt: number;
+  submittedBy: { id: string; name: string };
+  parameterSet: { id: string | null; name: string; version: number; edited: boolean } | null;
+  /** ISO 8601 */
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  updatedAt: string;
+  /** The caller's role in the run's lab. */
+  role: "owner" | "editor" | "viewer";
+}
+
+export interface LabRunDetail extends LabRunSummary {
+  payload: Record<string, unknown>;
+}
+
+/** GET /api/runs/{id}/result: the columns as numbers (NaN as null) and what they mean. */
+export interface LabRunResultBody {
+  runId: string;
+  workerId: string;
+  attempt: number;
+  computeMs: number;
+  meta: Record<string, unknown>;
+  columns: Record<string, (number | null)[]>;
+}
+
+const uuid = z.string().uuid("must be an id");
+
+/** POST /api/runs */
+export const submitRunSchema = z.intersection(
+  z.object({
+    labId: uuid,
+    /** The set (and its current version) the parameters came from, when they came from one. */
+    parameterSetId: uuid.optional(),
+  }),
+  runSpecSchema,
+);
+export type SubmitRunInput = z.infer<typeof submitRunSchema>;
+
+export const listRunsQuery = z.object({
+  labId: uuid.optional(),
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+});

@@ -1,0 +1,68 @@
+import { readFileSync } from "node:fs";
+import type { Browser, BrowserContext, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+
+/*
+ * Lab runs in the browser, as the demo lab's editor: submit a numerical map from the workbench to
+ * the lab's machines (scripts/test.sh starts one worker beside the server), follow its progress on
+ * the runs page, and open the finished map with its exports.
+ */
+
+const DEMO_GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
+const TIMEOUT = 150_000;
+
+describe("lab runs", () => {
+  let browser: Browser;
+  let context: BrowserContext;
+  let page: Page;
+
+  beforeAll(async () => {
+    browser = await launchBrowser();
+    context = await newContext(browser);
+    page = await context.newPage();
+    await signInAs(page, DEMO.editor);
+  });
+
+  afterAll(async () => {
+    await context?.close();
+    await browser?.close();
+  });
+
+  it("submits a numerical map from the workbench, shows its progress, and opens the result", async () => {
+    await page.goto(`/workbench/${DEMO_GARNET_SET_ID}`, { timeout: TIMEOUT });
+    const panel = page.getByRole("region", { name: "Run on the lab's machines" });
+    await panel.getByLabel("What to compute").selectOption("map-temperature");
+    await panel.getByLabel("Method").selectOption("llg");
+    await panel.getByLabel("Wavelengths (columns)").fill("160");
+    await panel.getByLabel("Rows", { exact: true }).fill("64");
+    // Out of range first: the rule is said at the field and nothing is sent.
+    await panel.getByLabel("Rows", { exact: true }).fill("999");
+    await expect.poll(() => panel.getByText("must be ≤ 256").count()).toBeGreaterThan(0);
+    expect(await panel.getByRole("button", { name: "Submit to the lab’s machines" }).isDisabled()).toBe(true);
+    await panel.getByLabel("Rows", { exact: true }).fill("64");
+    await panel.getByRole("button", { name: "Submit to the lab’s machines" }).click();
+    await panel.getByRole("status").getByText("Submitted:").waitFor({ timeout: 30_000 });
+
+    await page.goto("/runs", { timeout: TIMEOUT });
+    const row = page.getByTestId("run-row").filter({ hasText: "160 wavelengths" }).first();
+    await row.waitFor();
+    expect(await row.textContent()).toContain("Terbium");
+    // Progress: the run is seen running with a progress bar before it is done.
+    await row.getByRole("progressbar").waitFor({ timeout: TIMEOUT });
+    await page.screenshot({ path: outputPath("lab-runs-progress.png"), fullPage: true });
+    await row.getByText("Done").waitFor({ timeout: TIMEOUT });
+
+    await row.getByRole("link").click();
+    await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/);
+    const map = page.getByTestId("run-map");
+    await map.waitFor({ timeout: 60_000 });
+    expect(await map.textContent()).toContain("160 × 64 cells");
+    const download = page.waitForEvent("download");
+    await page.getByRole("button", { name: "Export map CSV" }).click();
+    const file = await (await download).path();
+    const lines = readFileSync(file!, "utf8").trim().split("\n");
+    expect(lines.filter((l) => !l.startsWith("#"))).toHaveLength(1 + 160 * 64);
+    await page.screenshot({ path: outputPath("lab-runs-result.png"), fullPage: true });
+  });
+});
