@@ -1,1 +1,0 @@
-ALTER TABLE "parameter_set_versions" ADD COLUMN "provenance" jsonb;
