@@ -1,4 +1,5 @@
 import { format as d3format, scaleLinear, scaleLog, type ScaleContinuousNumeric } from "d3";
+import { padExtent } from "@/lib/workbench/zoom";
 
 /*
  * Scale helpers shared by the plots: d3 does the mathematics (domains, ticks, formats); React
@@ -44,12 +45,5 @@ export function paddedExtent(arrays: readonly (readonly (number | null)[])[], lo
       if (v > hi) hi = v;
     }
   }
-  if (!Number.isFinite(lo)) return null;
-  if (log) return lo === hi ? [lo / 2, hi * 2] : [lo / 1.2, hi * 1.2];
-  if (lo === hi) {
-    const d = lo === 0 ? 1 : Math.abs(lo) * 0.1;
-    return [lo - d, hi + d];
-  }
-  const pad = (hi - lo) * 0.05;
-  return [lo - pad, hi + pad];
+  return Number.isFinite(lo) ? padExtent(lo, hi, log) : null;
 }

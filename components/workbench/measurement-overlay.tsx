@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useQueries } from "@tanstack/react-query";
-import { useMemo } from "react";
+import { memo, useMemo } from "react";
 import type { PlotLayer } from "@/components/plots/line-plot";
 import { describeConversion, toPlotUnits, type OverlayPoint } from "@/lib/measurements/overlay";
 import type { MeasuredPoint } from "@/lib/measurements/point";
@@ -115,8 +115,11 @@ function setLabel(set: MeasurementSetSummary): string {
   return `${set.rowCount} points, ${fmt(set.wavelengthSpanNm.min, 4)}–${fmt(set.wavelengthSpanNm.max, 4)} nm, ${t} K`;
 }
 
-/** The checkboxes that choose which measurement sets lie over the spectrum. */
-export function MeasurementOverlayPicker({
+/**
+ * The checkboxes that choose which measurement sets lie over the spectrum. Memoized: the workbench
+ * re-renders on every progress step of a run, and the list need not.
+ */
+export const MeasurementOverlayPicker = memo(function MeasurementOverlayPicker({
   selected,
   onChange,
   yMode,
@@ -190,4 +193,4 @@ export function MeasurementOverlayPicker({
       )}
     </section>
   );
-}
+});

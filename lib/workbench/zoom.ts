@@ -99,7 +99,11 @@ export function visibleYExtent(
       if (v > hi) hi = v;
     }
   }
-  if (!Number.isFinite(lo)) return null;
+  return Number.isFinite(lo) ? padExtent(lo, hi, log) : null;
+}
+
+/** [lo, hi] widened so lines do not touch the frame: 5 % (log axes: a factor 1.2); a flat range gets ±10 %. */
+export function padExtent(lo: number, hi: number, log = false): [number, number] {
   if (log) return lo === hi ? [lo / 2, hi * 2] : [lo / 1.2, hi * 1.2];
   if (lo === hi) {
     const d = lo === 0 ? 1 : Math.abs(lo) * 0.1;
