@@ -4,6 +4,7 @@ import { DateTime } from "@/components/ui/date-time";
 import { originalFileUrl, type MeasurementSetSummary } from "@/lib/query/measurements";
 import { hasRole } from "@/lib/query/types";
 import { formatBytes, formatSpan, formatValues, type SortDir, type SortKey } from "./format";
+import { SortHeader } from "@/components/ui/sort-header";
 
 interface TableProps {
   items: MeasurementSetSummary[];
@@ -13,19 +14,6 @@ interface TableProps {
   onDelete: (set: MeasurementSetSummary) => void;
 }
 
-function SortHeader({ label, column, sortKey, sortDir, onSort }: { label: string; column: SortKey } & Pick<TableProps, "sortKey" | "sortDir" | "onSort">) {
-  const active = column === sortKey;
-  return (
-    <th scope="col" aria-sort={active ? (sortDir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold">
-      <button type="button" onClick={() => onSort(column)} className="inline-flex items-center gap-1 rounded hover:text-lux-dark">
-        {label}
-        <span aria-hidden="true" className={active ? "text-lux" : "text-ink/30"}>
-          {active ? (sortDir === "asc" ? "▲" : "▼") : "↕"}
-        </span>
-      </button>
-    </th>
-  );
-}
 
 export function MeasurementsTable({ items, sortKey, sortDir, onSort, onDelete }: TableProps) {
   const headerProps = { sortKey, sortDir, onSort };

@@ -4,6 +4,7 @@ import Link from "next/link";
 import { DateTime } from "@/components/ui/date-time";
 import type { ParameterSetSummary } from "@/lib/query/types";
 import type { SortDir, SortKey } from "./sort";
+import { SortHeader } from "@/components/ui/sort-header";
 
 interface SetsTableProps {
   items: ParameterSetSummary[];
@@ -14,19 +15,6 @@ interface SetsTableProps {
   onTag: (tag: string) => void;
 }
 
-function SortHeader({ label, column, sortKey, sortDir, onSort }: { label: string; column: SortKey } & Pick<SetsTableProps, "sortKey" | "sortDir" | "onSort">) {
-  const active = column === sortKey;
-  return (
-    <th scope="col" aria-sort={active ? (sortDir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold">
-      <button type="button" onClick={() => onSort(column)} className="inline-flex items-center gap-1 rounded hover:text-lux-dark">
-        {label}
-        <span aria-hidden="true" className={active ? "text-lux" : "text-ink-faint"}>
-          {active ? (sortDir === "asc" ? "▲" : "▼") : "↕"}
-        </span>
-      </button>
-    </th>
-  );
-}
 
 export function SetsTable({ items, sortKey, sortDir, onSort, activeTag, onTag }: SetsTableProps) {
   const headerProps = { sortKey, sortDir, onSort };
