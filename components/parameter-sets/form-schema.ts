@@ -77,7 +77,11 @@ export const setFormResolver: Resolver<SetFormInput, unknown, SetFormOutput> = a
 };
 
 export function toFormValues(set: Pick<ParameterSet, "labId" | "name" | "description" | "tags" | "params">): SetFormInput {
-  return { labId: set.labId, name: set.name, description: set.description ?? "", tags: set.tags.join(", "), params: { ...set.params } };
+  // A switch never stored is off: give its checkbox an explicit false, so that resetting the form
+  // to a saved version leaves nothing dirty.
+  const params: SetFormInput["params"] = { ...set.params };
+  for (const meta of FLAG_META) params[meta.key] = set.params[meta.key] === true;
+  return { labId: set.labId, name: set.name, description: set.description ?? "", tags: set.tags.join(", "), params };
 }
 
 /** The form's current content as a snapshot for the diff (unparsed, so half-filled values show). */

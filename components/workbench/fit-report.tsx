@@ -284,7 +284,9 @@ function SaveFit({ result, startParams, set, measurementSets }: { result: FitRes
   const canEdit = set.role === "owner" || set.role === "editor";
   // The saved version is the stored set with the fitted values; the fit must not have used other what-ifs.
   const stored = modelParamsSchema.safeParse(set.params).data ?? (set.params as ModelParams);
-  const whatIfs = (Object.keys(startParams) as (keyof ModelParams)[]).filter((k) => !result.free.includes(k as never) && startParams[k] !== stored[k]);
+  // A switch that was never stored is off (physics-model §5.5), so undefined and false agree.
+  const sameValue = (a: unknown, b: unknown) => (typeof a === "boolean" || typeof b === "boolean" ? (a === true) === (b === true) : a === b);
+  const whatIfs = (Object.keys(startParams) as (keyof ModelParams)[]).filter((k) => !result.free.includes(k as never) && !sameValue(startParams[k], stored[k]));
   if (!canEdit) return <p className="text-sm text-ink-soft">Viewers cannot save a fit; an editor of the lab can.</p>;
   if (save.isSuccess) {
     return (
