@@ -72,7 +72,7 @@ export function PlanResults({
   const workbenchHref = `/workbench/${set.id}?markers=${encodeURIComponent(markersQueryValue(plan.points.map((p) => p.wavelengthNm)))}`;
 
   return (
-    <section aria-labelledby={`${base}-title`} className="grid gap-4">
+    <section aria-labelledby={`${base}-title`} className="grid grid-cols-[minmax(0,1fr)] gap-4">
       <h2 id={`${base}-title`} className="text-lg font-semibold">
         Ranked plans
       </h2>
@@ -87,7 +87,7 @@ export function PlanResults({
           ))}
         </ul>
       </div>
-      <fieldset className="grid gap-3">
+      <fieldset className="grid grid-cols-[minmax(0,1fr)] gap-3">
         <legend className="sr-only">Choose a plan</legend>
         {result.plans.map((p, i) => (
           <PlanCard key={i} plan={p} unit={result.criterionUnit} checked={i === chosen} onChoose={() => setChosen(i)} name={`${base}-plan`} />

@@ -130,4 +130,23 @@ describe("planner in the browser", () => {
       await context.close();
     }
   });
+
+  it("fits a 390 px wide screen with a ranked plan on it", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    try {
+      await page.setViewportSize({ width: 390, height: 844 });
+      await signInAs(page, DEMO.viewer);
+      await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
+      await page.getByLabel(/Nd:YAG “Old Faithful” \(1064 nm\)/).waitFor({ timeout: 30_000 });
+      await page.getByLabel("Points you can afford").fill("3");
+      await page.getByRole("button", { name: "Run planner" }).click();
+      await page.getByTestId("ranked-plan").first().waitFor({ timeout: RUN_TIMEOUT });
+      // Wide tables scroll inside their own box; the page itself never scrolls sideways.
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+      await page.screenshot({ path: outputPath("planner-390.png"), fullPage: true });
+    } finally {
+      await context.close();
+    }
+  });
 });

@@ -26,7 +26,7 @@ export function PlannerScreen({ setId }: { setId: string | null }) {
   const sets = useParameterSets({});
   const id = useId();
   return (
-    <div className="grid gap-6">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <PageHeader
         title="Planner"
         lead="Which lines, temperatures and fields tell the electric-dipole and magnetic-dipole parts apart, and how well; and how long a rotator must be."
@@ -210,7 +210,7 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
   })();
 
   return (
-    <div className="grid gap-6">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <div className="flex flex-wrap items-center gap-2 text-sm">
         <span>
           Planning for <strong>{set.name}</strong> (version {set.version}, {set.labName}).
