@@ -5,6 +5,7 @@ import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import { HC_EV_NM } from "@/lib/workbench/units";
 import { DEMO_SETS } from "@/db/demo-data";
 import type { ModelParams } from "@/lib/physics/schema";
+import { gaussianFrom, seededRandom } from "@/lib/random";
 
 /*
  * Writes the demo measurement files in db/demo/: the analytic model at invented "true" parameters
@@ -13,26 +14,6 @@ import type { ModelParams } from "@/lib/physics/schema";
  * browser test read it).
  */
 
-/** mulberry32: a small seeded generator, so the files are the same on every run. */
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** Standard normal deviates by the Box–Muller transform. */
-function gaussian(random: () => number): () => number {
-  return () => {
-    const u = 1 - random();
-    const v = random();
-    return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
-  };
-}
 
 const round = (value: number, digits: number) => Number(value.toPrecision(digits));
 const out = (name: string) => path.resolve(import.meta.dirname, "../db/demo", name);
@@ -42,7 +23,7 @@ const out = (name: string) => path.resolve(import.meta.dirname, "../db/demo", na
 const GARNET_TRUTH: ModelParams = { ...TERBIUM_GARNET_DEFAULTS, gyrationPerT: 5.3e-3, magneticScale: 2 };
 
 function garnetFile(): string {
-  const normal = gaussian(seeded(8_2026));
+  const normal = gaussianFrom(seededRandom(8_2026));
   const wavelengthsNm = Array.from({ length: 24 }, (_, i) => Math.round(420 * Math.pow(1600 / 420, i / 23)));
   const conditions: ModelCondition[] = wavelengthsNm.map((wavelengthNm) => ({ wavelengthNm, temperatureK: 293.15, fieldT: 1, lengthM: 0.01, quantity: "verdet" }));
   const model = evaluateModel(GARNET_TRUTH, conditions);
@@ -66,7 +47,7 @@ const glassParams = DEMO_SETS.find((set) => set.id === BORATE_GLASS_SET)?.versio
 if (!glassParams) throw new Error("demo borate glass set not found");
 
 function glassFile(): string {
-  const normal = gaussian(seeded(77_2026));
+  const normal = gaussianFrom(seededRandom(77_2026));
   const energiesEv = [3.0, 2.75, 2.5, 2.25, 2.0, 1.8, 1.6, 1.4, 1.25, 1.1, 0.95, 0.8];
   const conditions: ModelCondition[] = [77, 293.15].flatMap((temperatureK) =>
     energiesEv.map((eV) => ({ wavelengthNm: HC_EV_NM / eV, temperatureK, fieldT: 0.5, lengthM: 0.02, quantity: "rotation" as const })),

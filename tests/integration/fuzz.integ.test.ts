@@ -1,5 +1,6 @@
 import { expect, it } from "vitest";
 import { Client, createSet, describeHttp, signUp, uniqueEmail, validParams } from "./support";
+import { seededRandom } from "@/lib/random";
 
 /*
  * Seeded fuzzing of every mutating route: each case is a valid request with one hostile change
@@ -12,19 +13,8 @@ const SEED = 0x9e3779b9;
 // GYROLUX_FUZZ_CASES overrides the count for a longer (or quicker) local run.
 const CASES_PER_ROUTE = Number(process.env.GYROLUX_FUZZ_CASES ?? 200);
 
-/** mulberry32: a small seeded generator, so a failing case can be replayed (common practice, no source). */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
-type Random = ReturnType<typeof rng>;
+type Random = () => number;
 const pick = <T,>(r: Random, items: readonly T[]): T => items[Math.floor(r() * items.length)]!;
 
 const BAD_STRINGS = ["a\u0000b", "\u0000", "x\ud800", "\udc00y", "\ud83d", "ok\ud800\ud800", "é\u0000\ud800"];
@@ -154,7 +144,7 @@ describeHttp("fuzzing the mutating routes", () => {
       { method: "POST", path: "/api/password-reset/confirm", body: { token: "A".repeat(43), newPassword: "long enough pw" }, anonymous: true },
     ];
 
-    const r = rng(SEED);
+    const r = seededRandom(SEED);
     const results: { route: string; status: number; request: FuzzRequest }[] = [];
     const queue: { route: string; client: Client; request: FuzzRequest }[] = [];
     for (const route of routes) {

@@ -2,27 +2,7 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import { type ModelCondition, evaluateModel } from "@/lib/fit/model";
 import type { ModelParams } from "@/lib/physics/schema";
 
-/** Seeded uniform generator on [0, 1) (mulberry32; common practice, no source). */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** Standard normal deviates by the Box–Muller transform (common practice, no source). */
-export function seededGaussian(seed: number): () => number {
-  const uniform = seededRandom(seed);
-  return () => {
-    const u1 = 1 - uniform();
-    const u2 = uniform();
-    return Math.sqrt(-2 * Math.log(u1)) * Math.cos(2 * Math.PI * u2);
-  };
-}
+export { seededGaussian, seededRandom } from "@/lib/random";
 
 export const verdetAt = (wavelengthNm: number, over: Partial<ModelCondition> = {}): ModelCondition => ({
   wavelengthNm,
