@@ -7,14 +7,15 @@ export const MAX_BODY_BYTES = 64 * 1024;
 /** No request of ours nests deeper; a deeper body is refused before any schema walks it. */
 export const MAX_JSON_DEPTH = 32;
 
-/*
- * Reads a JSON request body under the 64 KiB limit. The limit is enforced on the bytes actually
- * read, not only on Content-Length, because chunked requests carry no length.
+/**
+ * The body's bytes, refused with `onTooLarge()` once more than maxBytes arrive. The limit is
+ * enforced on the bytes actually read, not only on Content-Length, because chunked requests carry
+ * no length. Null when the request has no body.
  */
-export async function readText(request: Request): Promise<string> {
+export async function readBoundedBytes(request: Request, maxBytes: number, onTooLarge: () => ApiError): Promise<Uint8Array | null> {
   const declared = request.headers.get("content-length");
-  if (declared !== null && Number(declared) > MAX_BODY_BYTES) throw tooLarge();
-  if (!request.body) return "";
+  if (declared !== null && Number(declared) > maxBytes) throw onTooLarge();
+  if (!request.body) return null;
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let total = 0;
@@ -22,9 +23,9 @@ export async function readText(request: Request): Promise<string> {
     const { done, value } = await reader.read();
     if (done) break;
     total += value.byteLength;
-    if (total > MAX_BODY_BYTES) {
+    if (total > maxBytes) {
       await reader.cancel().catch(() => undefined);
-      throw tooLarge();
+      throw onTooLarge();
     }
     chunks.push(value);
   }
@@ -34,6 +35,13 @@ export async function readText(request: Request): Promise<string> {
     bytes.set(chunk, offset);
     offset += chunk.byteLength;
   }
+  return bytes;
+}
+
+/* Reads a JSON request body under the 64 KiB limit. */
+export async function readText(request: Request): Promise<string> {
+  const bytes = await readBoundedBytes(request, MAX_BODY_BYTES, tooLarge);
+  if (!bytes) return "";
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {

@@ -1,3 +1,4 @@
+import { readBoundedBytes } from "./body";
 import { ApiError } from "./errors";
 
 /*
@@ -9,24 +10,10 @@ export async function readMultipart(request: Request, maxBytes: number, tooLarge
   if (!type.toLowerCase().startsWith("multipart/form-data")) {
     throw new ApiError("unsupported_media_type", "Send the upload as multipart/form-data (a file and its fields).");
   }
-  const declared = request.headers.get("content-length");
-  if (declared !== null && Number(declared) > maxBytes) throw new ApiError("payload_too_large", tooLargeMessage);
-  if (!request.body) throw new ApiError("validation", "The request has no body.", { fields: { file: "Choose a file." } });
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > maxBytes) {
-      await reader.cancel().catch(() => undefined);
-      throw new ApiError("payload_too_large", tooLargeMessage);
-    }
-    chunks.push(value);
-  }
+  const bytes = await readBoundedBytes(request, maxBytes, () => new ApiError("payload_too_large", tooLargeMessage));
+  if (!bytes) throw new ApiError("validation", "The request has no body.", { fields: { file: "Choose a file." } });
   try {
-    return await new Response(new Blob(chunks as BlobPart[]), { headers: { "content-type": type } }).formData();
+    return await new Response(new Blob([bytes as BlobPart]), { headers: { "content-type": type } }).formData();
   } catch {
     throw new ApiError("validation", "The multipart body could not be read.", { fields: { file: "Choose a file." } });
   }

@@ -1,14 +1,14 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { useCallback, useEffect, useMemo, useState } from "react";
+import { useCallback, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { PageHeader } from "@/components/ui/page-header";
 import { SkeletonRows } from "@/components/ui/skeleton";
-import { Field, INPUT_CLASS } from "@/components/ui/text-field";
+import { INPUT_CLASS } from "@/components/ui/text-field";
 import { useSearchUpdate } from "@/components/ui/use-search-update";
 import { describeError } from "@/lib/query/fetcher";
 import { useLabs } from "@/lib/query/labs";
@@ -17,8 +17,7 @@ import { hasRole } from "@/lib/query/types";
 import { parseSort, sortSets, type SortKey } from "./format";
 import { MeasurementsTable } from "./measurements-table";
 import { UploadPanel } from "./upload-panel";
-
-const DEBOUNCE_MS = 300;
+import { SearchBox } from "@/components/ui/search-box";
 
 export function MeasurementsBrowser() {
   const searchParams = useSearchParams();
@@ -85,7 +84,7 @@ export function MeasurementsBrowser() {
       ) : null}
 
       <div className="mb-4 flex flex-wrap items-end gap-4" role="search" aria-label="Filter measurement sets">
-        <SearchInput value={q} onSearch={onSearch} />
+        <SearchBox id="measurements-search" placeholder="Name, sample or file" value={q} onSearch={onSearch} />
         <div className="w-full sm:w-60">
           <label htmlFor="measurements-lab" className="block text-sm font-medium">
             Lab
@@ -153,17 +152,3 @@ export function MeasurementsBrowser() {
 }
 
 /** Typing updates ?q= once the user pauses, so each keystroke does not become a request. */
-function SearchInput({ value, onSearch }: { value: string; onSearch: (q: string) => void }) {
-  const [text, setText] = useState(value);
-  useEffect(() => {
-    const q = text.trim();
-    if (q === value) return;
-    const timer = setTimeout(() => onSearch(q), DEBOUNCE_MS);
-    return () => clearTimeout(timer);
-  }, [text, value, onSearch]);
-  return (
-    <Field id="measurements-search" label="Search" className="w-full sm:w-72">
-      {(control) => <input {...control} type="search" placeholder="Name, sample or file" value={text} onChange={(event) => setText(event.target.value)} />}
-    </Field>
-  );
-}

@@ -12,7 +12,7 @@ import { useLabs } from "@/lib/query/labs";
 import { LoadMore } from "@/components/ui/load-more";
 import { useParameterSetPages } from "@/lib/query/parameter-sets";
 import { hasRole } from "@/lib/query/types";
-import { SearchBox } from "./search-box";
+import { SearchBox } from "@/components/ui/search-box";
 import { SetsTable } from "./sets-table";
 import { parseSort, sortSets, type SortKey } from "./sort";
 
@@ -47,7 +47,7 @@ export function SetsBrowser() {
       />
 
       <div className="mb-4 flex flex-wrap items-end gap-4" role="search" aria-label="Filter parameter sets">
-        <SearchBox value={q} onSearch={onSearch} />
+        <SearchBox id="sets-search" placeholder="Name or description" value={q} onSearch={onSearch} />
         <div className="w-full sm:w-60">
           <label htmlFor="sets-lab" className="block text-sm font-medium">
             Lab
