@@ -50,12 +50,18 @@ export async function seedDemoMeasurements(db: Database): Promise<number> {
   const store = createObjectStore(scriptStorageSettings);
   await store.ensureBucket();
   // The uploader is the demo postdoc, by address: an account made before the seed keeps its own id.
-  const [uploader] = await db.select({ id: users.id }).from(users).where(eq(sql`lower(${users.email})`, DEMO_USERS.postdoc.email));
+  const [uploader] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(sql`lower(${users.email})`, DEMO_USERS.postdoc.email));
   if (!uploader) throw new Error("demo postdoc missing; seed the users first");
   let created = 0;
   for (const set of DEMO_MEASUREMENT_SETS) {
     const bytes = new Uint8Array(readFileSync(path.resolve(import.meta.dirname, "demo", set.file)));
-    const [existing] = await db.select({ objectKey: measurementSets.objectKey }).from(measurementSets).where(eq(measurementSets.id, set.id));
+    const [existing] = await db
+      .select({ objectKey: measurementSets.objectKey })
+      .from(measurementSets)
+      .where(eq(measurementSets.id, set.id));
     if (existing) {
       if (!(await store.get(existing.objectKey))) await store.put({ key: existing.objectKey, bytes, contentType: set.contentType });
       continue;
@@ -69,10 +75,19 @@ export async function seedDemoMeasurements(db: Database): Promise<number> {
       store,
       actorId: uploader.id,
       id: set.id,
-      input: { labId: DEMO_LAB.id, name: set.name, sample: set.sample, fileName: set.file, contentType: set.contentType, bytes, mapping, defaults: set.defaults, points: parsed.points },
+      input: {
+        labId: DEMO_LAB.id,
+        name: set.name,
+        sample: set.sample,
+        fileName: set.file,
+        contentType: set.contentType,
+        bytes,
+        mapping,
+        defaults: set.defaults,
+        points: parsed.points,
+      },
     });
     created++;
   }
   return created;
 }
-

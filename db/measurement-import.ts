@@ -59,7 +59,8 @@ export async function importMeasurementSet(options: {
   const { db, store, input } = options;
   if (input.points.length === 0) throw new ApiError("validation", "The file has no data rows.");
   const quantity = input.points[0]!.quantity;
-  if (input.points.some((p) => p.quantity !== quantity)) throw new ApiError("validation", "All points of a set must measure the same quantity.");
+  if (input.points.some((p) => p.quantity !== quantity))
+    throw new ApiError("validation", "All points of a set must measure the same quantity.");
 
   // Checked before storing anything, so the common mistake costs no upload; the unique constraint
   // below still decides when two uploads race.
@@ -125,7 +126,10 @@ export async function importMeasurementSet(options: {
     // Undo the object so a failed import leaves nothing behind; if even that fails, the object is
     // an orphan no row refers to.
     await store.delete(objectKey).catch((cleanup: unknown) => {
-      console.error(`[measurements] could not remove ${objectKey} after a failed import:`, cleanup instanceof Error ? cleanup.message : cleanup);
+      console.error(
+        `[measurements] could not remove ${objectKey} after a failed import:`,
+        cleanup instanceof Error ? cleanup.message : cleanup,
+      );
     });
     throw uniqueViolation(error) === "measurement_sets_lab_name_unique" ? duplicateMeasurementName(input.name) : error;
   }

@@ -40,7 +40,13 @@ async function main(): Promise<void> {
       for (const [key, user] of Object.entries(DEMO_USERS)) {
         const inserted = await tx
           .insert(users)
-          .values({ id: user.id, email: user.email, name: user.name, passwordHash: user.siteRole === "admin" ? adminHash : passwordHash, siteRole: user.siteRole })
+          .values({
+            id: user.id,
+            email: user.email,
+            name: user.name,
+            passwordHash: user.siteRole === "admin" ? adminHash : passwordHash,
+            siteRole: user.siteRole,
+          })
           .onConflictDoNothing()
           .returning({ id: users.id });
         created += inserted.length;
@@ -57,16 +63,17 @@ async function main(): Promise<void> {
         if (inserted.length === 0 && user.siteRole === "admin") {
           const [old] = await tx.select({ hash: users.passwordHash }).from(users).where(eq(users.id, row.id));
           if (old && (await verifyPassword(DEMO_PASSWORD, old.hash))) {
-            await tx.update(users).set({ passwordHash: adminHash, sessionVersion: sql`${users.sessionVersion} + 1` }).where(eq(users.id, row.id));
-            if (!scriptEnv.GYROLUX_ADMIN_PASSWORD) console.log(`[seed] site admin ${user.email} had the demo password; new password (shown only now): ${adminPassword}`);
+            await tx
+              .update(users)
+              .set({ passwordHash: adminHash, sessionVersion: sql`${users.sessionVersion} + 1` })
+              .where(eq(users.id, row.id));
+            if (!scriptEnv.GYROLUX_ADMIN_PASSWORD)
+              console.log(`[seed] site admin ${user.email} had the demo password; new password (shown only now): ${adminPassword}`);
           }
         }
         userIds.set(key, row.id);
         for (const membership of user.memberships) {
-          await tx
-            .insert(labMemberships)
-            .values({ labId: membership.labId, userId: row.id, role: membership.role })
-            .onConflictDoNothing();
+          await tx.insert(labMemberships).values({ labId: membership.labId, userId: row.id, role: membership.role }).onConflictDoNothing();
         }
       }
 

@@ -11,7 +11,12 @@ import { seededGaussian, syntheticPoints, verdetAt } from "../tests/unit/fit-sup
 
 const start = { ...TERBIUM_GARNET_DEFAULTS, temperatureK: 293.15, fieldT: 1, lengthM: 0.01 };
 const truth = { ...start, gyrationPerT: 5.0e-3, oscillatorWavelengthNm: 270, magneticScale: 3 };
-const points = syntheticPoints(truth, Array.from({ length: 100 }, (_, i) => verdetAt(400 + 12 * i)), 0.5, seededGaussian(0x2026));
+const points = syntheticPoints(
+  truth,
+  Array.from({ length: 100 }, (_, i) => verdetAt(400 + 12 * i)),
+  0.5,
+  seededGaussian(0x2026),
+);
 const free = [{ key: "gyrationPerT" as const }, { key: "oscillatorWavelengthNm" as const }, { key: "magneticScale" as const }];
 
 let iterations = 0;

@@ -62,7 +62,9 @@ async function build(name) {
     target: "node20",
     packages: bundleDeps ? undefined : "external",
     // CommonJS dependencies bundled into an ES module need a require of their own.
-    banner: { js: 'import { createRequire as __glxCreateRequire } from "node:module"; const require = __glxCreateRequire(import.meta.url);' },
+    banner: {
+      js: 'import { createRequire as __glxCreateRequire } from "node:module"; const require = __glxCreateRequire(import.meta.url);',
+    },
     metafile: true,
     logLevel: "warning",
     legalComments: "none",

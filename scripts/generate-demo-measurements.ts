@@ -14,7 +14,6 @@ import { gaussianFrom, seededRandom } from "@/lib/random";
  * browser test read it).
  */
 
-
 const round = (value: number, digits: number) => Number(value.toPrecision(digits));
 const out = (name: string) => path.resolve(import.meta.dirname, "../db/demo", name);
 
@@ -25,7 +24,13 @@ const GARNET_TRUTH: ModelParams = { ...TERBIUM_GARNET_DEFAULTS, gyrationPerT: 5.
 function garnetFile(): string {
   const normal = gaussianFrom(seededRandom(8_2026));
   const wavelengthsNm = Array.from({ length: 24 }, (_, i) => Math.round(420 * Math.pow(1600 / 420, i / 23)));
-  const conditions: ModelCondition[] = wavelengthsNm.map((wavelengthNm) => ({ wavelengthNm, temperatureK: 293.15, fieldT: 1, lengthM: 0.01, quantity: "verdet" }));
+  const conditions: ModelCondition[] = wavelengthsNm.map((wavelengthNm) => ({
+    wavelengthNm,
+    temperatureK: 293.15,
+    fieldT: 1,
+    lengthM: 0.01,
+    quantity: "verdet",
+  }));
   const model = evaluateModel(GARNET_TRUTH, conditions);
   const lines = [
     "# GENERATED demo data (invented, not a measurement): garnet rod LM-T4, Lindqvist Moor Faraday Laboratory.",
@@ -55,7 +60,7 @@ function glassFile(): string {
   const model = evaluateModel(glassParams!, conditions);
   const lines = [
     "# GENERATED demo data (invented, not a measurement): Tb-doped borate glass LM-B7 at 0.5 T, 20 mm.",
-    "# Made by scripts/generate-demo-measurements.ts from the demo set \"Tb-doped borate glass — sample LM-B7\"",
+    '# Made by scripts/generate-demo-measurements.ts from the demo set "Tb-doped borate glass — sample LM-B7"',
     "# plus seeded Gaussian noise of the sigma column. Field and length are not in the file: enter them once.",
     "energy_eV\trotation_mrad\tsigma_mrad\ttemperature_K",
   ];

@@ -31,7 +31,12 @@ interface ConflictBannerProps {
   onDiscard: () => void;
 }
 
-const LABEL: Record<string, string> = { name: "Name", description: "Description", tags: "Tags", ...Object.fromEntries(PARAM_META.map((m) => [m.key, m.label])) };
+const LABEL: Record<string, string> = {
+  name: "Name",
+  description: "Description",
+  tags: "Tags",
+  ...Object.fromEntries(PARAM_META.map((m) => [m.key, m.label])),
+};
 
 function fieldList(keys: DiffFieldKey[]): string {
   return keys.map((k) => LABEL[k] ?? k).join(", ");
@@ -42,7 +47,17 @@ function fieldList(keys: DiffFieldKey[]): string {
  * is scrolled into view and takes the focus when it appears, since the Save button that caused it
  * sits at the bottom of a long form.
  */
-export function ConflictBanner({ current, mine, pending, preview, previewError, onPreviewMerge, onCancelMerge, onSaveMerged, onDiscard }: ConflictBannerProps) {
+export function ConflictBanner({
+  current,
+  mine,
+  pending,
+  preview,
+  previewError,
+  onPreviewMerge,
+  onCancelMerge,
+  onSaveMerged,
+  onDiscard,
+}: ConflictBannerProps) {
   const [showDiff, setShowDiff] = useState(false);
   const ref = useRef<HTMLElement>(null);
   useEffect(() => {
@@ -75,9 +90,7 @@ export function ConflictBanner({ current, mine, pending, preview, previewError, 
               : `From your form: ${fieldList(preview.mine)}. Everything else stays as in version ${current.version}.`}
           </p>
           {preview.clashes.length > 0 ? (
-            <p className="text-sm font-medium">
-              Both of you changed {fieldList(preview.clashes)}; your value replaces theirs there.
-            </p>
+            <p className="text-sm font-medium">Both of you changed {fieldList(preview.clashes)}; your value replaces theirs there.</p>
           ) : null}
           <DiffTable
             rows={diffSnapshots(current, preview.merged)}

@@ -12,7 +12,17 @@ function withUnit(value: string, unit: string): string {
  * unit, and beside it how much a number moved relative to where it was. The arrow and the words
  * carry the change; the tint of the row only repeats it.
  */
-export function DiffTable({ rows, beforeLabel, afterLabel, caption }: { rows: FieldDiff[]; beforeLabel: string; afterLabel: string; caption: string }) {
+export function DiffTable({
+  rows,
+  beforeLabel,
+  afterLabel,
+  caption,
+}: {
+  rows: FieldDiff[];
+  beforeLabel: string;
+  afterLabel: string;
+  caption: string;
+}) {
   const [onlyChanged, setOnlyChanged] = useState(true);
   const changedCount = rows.filter((r) => r.changed).length;
   const shown = onlyChanged ? rows.filter((r) => r.changed) : rows;
@@ -20,9 +30,7 @@ export function DiffTable({ rows, beforeLabel, afterLabel, caption }: { rows: Fi
   return (
     <div>
       <div className="mb-2 flex flex-wrap items-center justify-between gap-2 text-sm">
-        <p>
-          {changedCount === 0 ? "No differences." : `${changedCount} field${changedCount === 1 ? "" : "s"} differ.`}
-        </p>
+        <p>{changedCount === 0 ? "No differences." : `${changedCount} field${changedCount === 1 ? "" : "s"} differ.`}</p>
         <label className="inline-flex items-center gap-2">
           <input type="checkbox" checked={onlyChanged} onChange={(event) => setOnlyChanged(event.target.checked)} className="accent-lux" />
           Only changed fields
@@ -49,7 +57,10 @@ export function DiffTable({ rows, beforeLabel, afterLabel, caption }: { rows: Fi
             <tbody className="divide-y divide-ink/10">
               {shown.map((row) => (
                 <tr key={row.key} className={row.changed ? "bg-lux-light/40" : ""}>
-                  <th scope="row" className={`border-l-4 px-3 py-2 text-left align-top font-medium ${row.changed ? "border-lux" : "border-transparent"}`}>
+                  <th
+                    scope="row"
+                    className={`border-l-4 px-3 py-2 text-left align-top font-medium ${row.changed ? "border-lux" : "border-transparent"}`}
+                  >
                     {row.label}
                   </th>
                   <td className="px-3 py-2 break-words tabular-nums [overflow-wrap:anywhere]">

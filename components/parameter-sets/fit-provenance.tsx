@@ -18,8 +18,8 @@ export function FitProvenanceSummary({ provenance }: { provenance: unknown }) {
   return (
     <div className="mt-2 rounded-md border border-lux/30 bg-lux-light/40 px-3 py-2 text-sm" data-testid="fit-provenance">
       <p>
-        <span className="rounded bg-lux-dark px-1.5 py-0.5 text-xs font-semibold text-white">from a fit</span>{" "}
-        to {fit.measurementSets.map((m) => m.name).join(", ")} ({fit.pointCount} points), fitted <DateTime iso={fit.fittedAt} />
+        <span className="rounded bg-lux-dark px-1.5 py-0.5 text-xs font-semibold text-white">from a fit</span> to{" "}
+        {fit.measurementSets.map((m) => m.name).join(", ")} ({fit.pointCount} points), fitted <DateTime iso={fit.fittedAt} />
       </p>
       <ul className="mt-1 space-y-0.5">
         {fit.free.map(({ key, min, max }) => {
@@ -28,13 +28,19 @@ export function FitProvenanceSummary({ provenance }: { provenance: unknown }) {
             <li key={key} className="tabular-nums">
               {meta?.label ?? key}: {fmt(fit.values[key], 5)} ± {fmt(fit.sigmas[key], 2)}
               {meta?.unit ? ` ${meta.unit}` : ""}
-              {min !== undefined || max !== undefined ? <span className="text-ink-soft"> (bounds {min ?? "−∞"} … {max ?? "∞"})</span> : null}
+              {min !== undefined || max !== undefined ? (
+                <span className="text-ink-soft">
+                  {" "}
+                  (bounds {min ?? "−∞"} … {max ?? "∞"})
+                </span>
+              ) : null}
             </li>
           );
         })}
       </ul>
       <p className="mt-1 text-ink-soft">
-        χ² = {fmt(fit.chi2)} for {fit.dof} degrees of freedom (reduced {fmt(fit.reducedChi2, 3)}); σ {fit.sigmaScaledByChi2 ? "scaled by √(χ²/dof)" : "from the data's σ, not scaled"}.
+        χ² = {fmt(fit.chi2)} for {fit.dof} degrees of freedom (reduced {fmt(fit.reducedChi2, 3)}); σ{" "}
+        {fit.sigmaScaledByChi2 ? "scaled by √(χ²/dof)" : "from the data's σ, not scaled"}.
         {fit.separable ? "" : " The data could not separate the electric- and magnetic-dipole parts."}
       </p>
       {scaleLabel ? <p className="mt-1 text-xs font-semibold text-ember">{scaleLabel}</p> : null}

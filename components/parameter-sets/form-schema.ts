@@ -10,7 +10,14 @@ import type { SetSnapshot } from "@/lib/model/diff";
 
 /** "a, b ,, a" → ["a", "b"]: the tag box takes a comma-separated list. */
 export function parseTags(text: string): string[] {
-  return [...new Set(text.split(",").map((t) => t.trim()).filter(Boolean))];
+  return [
+    ...new Set(
+      text
+        .split(",")
+        .map((t) => t.trim())
+        .filter(Boolean),
+    ),
+  ];
 }
 
 /*

@@ -38,7 +38,11 @@ export function NewSetForm({ labs, initialLabId }: { labs: Lab[]; initialLabId?:
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-6">
-      {generalError ? <Alert tone="warning" title="Not created">{generalError}</Alert> : null}
+      {generalError ? (
+        <Alert tone="warning" title="Not created">
+          {generalError}
+        </Alert>
+      ) : null}
       <SetFields form={form} labs={labs} />
       <div className="sticky bottom-0 flex justify-end gap-2 border-t border-ink/10 bg-paper/95 py-3 backdrop-blur">
         <LinkButton variant="secondary" href="/parameter-sets">

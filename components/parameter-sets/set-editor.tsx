@@ -63,7 +63,8 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
         },
         onError: async (error) => {
           if (error instanceof ApiError && error.code === "stale_version") {
-            const current = currentFromConflict(error) ?? (await queryClient.fetchQuery({ ...parameterSetQuery(initial.id), staleTime: 0 }));
+            const current =
+              currentFromConflict(error) ?? (await queryClient.fetchQuery({ ...parameterSetQuery(initial.id), staleTime: 0 }));
             setConflict(current);
             setPreview(null);
             return;
@@ -85,13 +86,18 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
       mine,
       clashes,
       params: checked.success ? checked.data : null,
-      error: checked.success ? null : `The merged values cannot be saved together: ${formatIssues(checked.error).join("; ")}. Edit the form, then try again.`,
+      error: checked.success
+        ? null
+        : `The merged values cannot be saved together: ${formatIssues(checked.error).join("; ")}. Edit the form, then try again.`,
     });
   });
   const onSaveMerged = () => {
     if (!conflict || !preview?.params) return;
     const { merged } = preview;
-    save({ labId: conflict.labId, name: merged.name, description: merged.description, tags: [...merged.tags], params: preview.params }, conflict.version);
+    save(
+      { labId: conflict.labId, name: merged.name, description: merged.description, tags: [...merged.tags], params: preview.params },
+      conflict.version,
+    );
   };
 
   return (
@@ -109,7 +115,11 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
           onDiscard={() => loadServerVersion(conflict)}
         />
       ) : null}
-      {generalError ? <Alert tone="warning" title="Not saved">{generalError}</Alert> : null}
+      {generalError ? (
+        <Alert tone="warning" title="Not saved">
+          {generalError}
+        </Alert>
+      ) : null}
       {savedVersion !== null && !form.formState.isDirty ? <Alert tone="success">Saved as version {savedVersion}.</Alert> : null}
 
       <SetFields form={form} />

@@ -55,7 +55,10 @@ export function SetFields({ form, labs }: SetFieldsProps) {
             tags.length > 0 ? (
               <ul aria-label="Tags as entered" className="mt-2 flex flex-wrap gap-1">
                 {tags.map((tag) => (
-                  <li key={tag} className="max-w-full rounded-full border border-lux/40 bg-lux-light/50 px-2 py-0.5 text-xs text-lux-dark [overflow-wrap:anywhere]">
+                  <li
+                    key={tag}
+                    className="max-w-full rounded-full border border-lux/40 bg-lux-light/50 px-2 py-0.5 text-xs text-lux-dark [overflow-wrap:anywhere]"
+                  >
                     {tag}
                   </li>
                 ))}
@@ -68,7 +71,10 @@ export function SetFields({ form, labs }: SetFieldsProps) {
       </fieldset>
 
       {GROUPS.map((group) => (
-        <fieldset key={group} className="grid gap-x-6 gap-y-5 rounded-lg border border-ink/10 bg-paper-raised p-5 sm:grid-cols-2 xl:grid-cols-3">
+        <fieldset
+          key={group}
+          className="grid gap-x-6 gap-y-5 rounded-lg border border-ink/10 bg-paper-raised p-5 sm:grid-cols-2 xl:grid-cols-3"
+        >
           <legend className="px-1 text-sm font-semibold tracking-wide text-lux-dark uppercase">{PARAM_GROUP_LABEL[group]}</legend>
           {PARAM_META.filter((meta) => meta.group === group).map((meta) => (
             <ParamInput key={meta.key} meta={meta} control={form.control} />

@@ -4,7 +4,10 @@ import type { Caution } from "@/lib/planner/cautions";
 export function CautionsPanel({ cautions, headingLevel = 2 }: { cautions: Caution[]; headingLevel?: 2 | 3 }) {
   const Heading = headingLevel === 2 ? "h2" : "h3";
   return (
-    <section aria-label="Safety cautions" className="caution-block rounded-md border border-ember bg-ember-light px-4 py-3 text-sm text-ink">
+    <section
+      aria-label="Safety cautions"
+      className="caution-block rounded-md border border-ember bg-ember-light px-4 py-3 text-sm text-ink"
+    >
       <Heading className="font-semibold">Safety cautions</Heading>
       <div className="mt-2 grid gap-3">
         {cautions.map((c) => (

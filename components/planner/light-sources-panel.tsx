@@ -10,7 +10,17 @@ import { ApiError } from "@/lib/query/fetcher";
 import { parseNumber } from "@/lib/workbench/validate";
 
 /** The lab's lines: everyone sees them; editors add and remove (with a confirmation). */
-export function LightSourcesPanel({ labId, labName, sources, canEdit }: { labId: string; labName: string; sources: LightSource[]; canEdit: boolean }) {
+export function LightSourcesPanel({
+  labId,
+  labName,
+  sources,
+  canEdit,
+}: {
+  labId: string;
+  labName: string;
+  sources: LightSource[];
+  canEdit: boolean;
+}) {
   const base = useId();
   const create = useCreateLightSource(labId);
   const remove = useDeleteLightSource(labId);
@@ -30,7 +40,8 @@ export function LightSourcesPanel({ labId, labName, sources, canEdit }: { labId:
       { name: draft.name.trim(), wavelengthNm, powerW: powerMw === null ? null : powerMw / 1000 },
       {
         onSuccess: () => setDraft({ name: "", wavelengthNm: "", powerMw: "" }),
-        onError: (err) => setError(err instanceof ApiError ? Object.values(err.fields ?? {})[0] ?? err.message : "Could not add the line."),
+        onError: (err) =>
+          setError(err instanceof ApiError ? (Object.values(err.fields ?? {})[0] ?? err.message) : "Could not add the line."),
       },
     );
   };
@@ -40,7 +51,9 @@ export function LightSourcesPanel({ labId, labName, sources, canEdit }: { labId:
       <summary className="cursor-pointer font-semibold">
         Light sources of {labName} ({sources.length})
       </summary>
-      {sources.length === 0 ? <p className="mt-2 text-sm text-ink-soft">No lines yet.{canEdit ? " Add the lasers your lab owns below." : ""}</p> : null}
+      {sources.length === 0 ? (
+        <p className="mt-2 text-sm text-ink-soft">No lines yet.{canEdit ? " Add the lasers your lab owns below." : ""}</p>
+      ) : null}
       <ul className="mt-2 divide-y divide-ink/10 text-sm">
         {sources.map((s) => (
           <li key={s.id} className="flex flex-wrap items-center justify-between gap-2 py-1.5">
@@ -61,15 +74,32 @@ export function LightSourcesPanel({ labId, labName, sources, canEdit }: { labId:
         <form onSubmit={submit} className="mt-3 grid gap-2 sm:grid-cols-[2fr_1fr_1fr_auto] sm:items-end" aria-label="Add a light source">
           <label className="grid gap-1 text-sm" htmlFor={`${base}-name`}>
             Name
-            <input id={`${base}-name`} className={INPUT_CLASS} value={draft.name} onChange={(e) => setDraft((d) => ({ ...d, name: e.target.value }))} />
+            <input
+              id={`${base}-name`}
+              className={INPUT_CLASS}
+              value={draft.name}
+              onChange={(e) => setDraft((d) => ({ ...d, name: e.target.value }))}
+            />
           </label>
           <label className="grid gap-1 text-sm" htmlFor={`${base}-nm`}>
             Wavelength (nm)
-            <input id={`${base}-nm`} inputMode="decimal" className={INPUT_CLASS} value={draft.wavelengthNm} onChange={(e) => setDraft((d) => ({ ...d, wavelengthNm: e.target.value }))} />
+            <input
+              id={`${base}-nm`}
+              inputMode="decimal"
+              className={INPUT_CLASS}
+              value={draft.wavelengthNm}
+              onChange={(e) => setDraft((d) => ({ ...d, wavelengthNm: e.target.value }))}
+            />
           </label>
           <label className="grid gap-1 text-sm" htmlFor={`${base}-mw`}>
             Power (mW, optional)
-            <input id={`${base}-mw`} inputMode="decimal" className={INPUT_CLASS} value={draft.powerMw} onChange={(e) => setDraft((d) => ({ ...d, powerMw: e.target.value }))} />
+            <input
+              id={`${base}-mw`}
+              inputMode="decimal"
+              className={INPUT_CLASS}
+              value={draft.powerMw}
+              onChange={(e) => setDraft((d) => ({ ...d, powerMw: e.target.value }))}
+            />
           </label>
           <Button type="submit" variant="secondary" disabled={create.isPending}>
             {create.isPending ? "Adding…" : "Add line"}

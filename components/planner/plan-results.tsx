@@ -38,7 +38,16 @@ export function PlanResults({
   const [saved, setSaved] = useState<string | null>(null);
 
   const sigmaSeries = useMemo(
-    () => [{ key: "sigma", label: "expected σ", color: "#0f6e6e", dash: undefined, width: 2, values: result.sigmaVsPoints.map((s) => (Number.isFinite(s.sigma) && s.sigma > 0 ? s.sigma : null)) }],
+    () => [
+      {
+        key: "sigma",
+        label: "expected σ",
+        color: "#0f6e6e",
+        dash: undefined,
+        width: 2,
+        values: result.sigmaVsPoints.map((s) => (Number.isFinite(s.sigma) && s.sigma > 0 ? s.sigma : null)),
+      },
+    ],
     [result],
   );
   const plottable = sigmaSeries[0]!.values.filter((v) => v !== null).length;
@@ -60,7 +69,15 @@ export function PlanResults({
           candidateCount: result.candidateCount,
           sigmaPerPointRad: result.sigmaPerPointRad,
           partsCorrelation: plan.partsCorrelation,
-          points: plan.points.map((p) => ({ lineName: p.lineName, wavelengthNm: p.wavelengthNm, temperatureK: p.temperatureK, fieldT: p.fieldT, count: p.count, rotationRad: p.rotationRad, belowNoise: p.belowNoise })),
+          points: plan.points.map((p) => ({
+            lineName: p.lineName,
+            wavelengthNm: p.wavelengthNm,
+            temperatureK: p.temperatureK,
+            fieldT: p.fieldT,
+            count: p.count,
+            rotationRad: p.rotationRad,
+            belowNoise: p.belowNoise,
+          })),
           notes: result.notes,
         },
       },
@@ -68,7 +85,12 @@ export function PlanResults({
     );
   };
 
-  const csv = () => downloadText(planToCsv({ setName: set.name, setVersion: set.version, result, plan }), `plan-${set.name.replace(/[^\w-]+/g, "-").toLowerCase()}.csv`, "text/csv");
+  const csv = () =>
+    downloadText(
+      planToCsv({ setName: set.name, setVersion: set.version, result, plan }),
+      `plan-${set.name.replace(/[^\w-]+/g, "-").toLowerCase()}.csv`,
+      "text/csv",
+    );
   const workbenchHref = `/workbench/${set.id}?markers=${encodeURIComponent(markersQueryValue(plan.points.map((p) => p.wavelengthNm)))}`;
 
   return (
@@ -77,7 +99,10 @@ export function PlanResults({
         Ranked plans
       </h2>
       <p className="text-sm text-ink-soft">
-        {result.criterionLabel} {result.criterionUnit}. {result.candidateCount} candidate points, {result.method === "exhaustive" ? "searched exhaustively" : "greedy search with exchange"} ({result.designsEvaluated.toLocaleString("en")} designs, {fmt(elapsedMs / 1000, 3)} s). σ per measurement {fmt(result.sigmaPerPointRad * 1e6, 3)} µrad.
+        {result.criterionLabel} {result.criterionUnit}. {result.candidateCount} candidate points,{" "}
+        {result.method === "exhaustive" ? "searched exhaustively" : "greedy search with exchange"} (
+        {result.designsEvaluated.toLocaleString("en")} designs, {fmt(elapsedMs / 1000, 3)} s). σ per measurement{" "}
+        {fmt(result.sigmaPerPointRad * 1e6, 3)} µrad.
       </p>
       <div role="note" aria-label="What the model implies" className="rounded-md border border-lux/40 bg-lux-light/60 px-4 py-3 text-sm">
         <p className="font-semibold">What the model implies</p>
@@ -90,7 +115,14 @@ export function PlanResults({
       <fieldset className="grid grid-cols-[minmax(0,1fr)] gap-3">
         <legend className="sr-only">Choose a plan</legend>
         {result.plans.map((p, i) => (
-          <PlanCard key={i} plan={p} unit={result.criterionUnit} checked={i === chosen} onChoose={() => setChosen(i)} name={`${base}-plan`} />
+          <PlanCard
+            key={i}
+            plan={p}
+            unit={result.criterionUnit}
+            checked={i === chosen}
+            onChoose={() => setChosen(i)}
+            name={`${base}-plan`}
+          />
         ))}
       </fieldset>
       <div className="flex flex-wrap items-end gap-2">
@@ -98,7 +130,13 @@ export function PlanResults({
           <>
             <label className="grid gap-1 text-sm" htmlFor={`${base}-name`}>
               Plan name
-              <input id={`${base}-name`} className={`${INPUT_CLASS} min-w-56`} value={name} maxLength={120} onChange={(e) => setName(e.target.value)} />
+              <input
+                id={`${base}-name`}
+                className={`${INPUT_CLASS} min-w-56`}
+                value={name}
+                maxLength={120}
+                onChange={(e) => setName(e.target.value)}
+              />
             </label>
             <Button onClick={onSave} disabled={save.isPending}>
               {save.isPending ? "Saving…" : "Save plan"}
@@ -114,8 +152,16 @@ export function PlanResults({
           Open in workbench
         </LinkButton>
       </div>
-      {saved ? <p role="status" className="text-sm text-lux-dark">{saved}</p> : null}
-      {save.isError ? <p role="alert" className="text-sm text-ember">{save.error.message}</p> : null}
+      {saved ? (
+        <p role="status" className="text-sm text-lux-dark">
+          {saved}
+        </p>
+      ) : null}
+      {save.isError ? (
+        <p role="alert" className="text-sm text-ember">
+          {save.error.message}
+        </p>
+      ) : null}
       <div ref={plotRef} className="min-w-0">
         {plottable >= 1 ? (
           <LinePlot
@@ -131,36 +177,71 @@ export function PlanResults({
             legend={false}
           />
         ) : (
-          <p className="text-sm text-ink-soft">No number of points up to {request.points} separates the free parameters, so there is no σ to plot.</p>
+          <p className="text-sm text-ink-soft">
+            No number of points up to {request.points} separates the free parameters, so there is no σ to plot.
+          </p>
         )}
       </div>
     </section>
   );
 }
 
-function PlanCard({ plan, unit, checked, onChoose, name }: { plan: RankedPlan; unit: string; checked: boolean; onChoose: () => void; name: string }) {
+function PlanCard({
+  plan,
+  unit,
+  checked,
+  onChoose,
+  name,
+}: {
+  plan: RankedPlan;
+  unit: string;
+  checked: boolean;
+  onChoose: () => void;
+  name: string;
+}) {
   const id = useId();
   return (
-    <div className={`rounded-lg border p-3 ${checked ? "border-lux bg-paper-raised" : "border-ink/15 bg-paper-raised"}`} data-testid="ranked-plan">
+    <div
+      className={`rounded-lg border p-3 ${checked ? "border-lux bg-paper-raised" : "border-ink/15 bg-paper-raised"}`}
+      data-testid="ranked-plan"
+    >
       <label htmlFor={id} className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
         <input id={id} type="radio" name={name} checked={checked} onChange={onChoose} />
         <span className="font-semibold">Plan {plan.rank}</span>
         <span className="tabular-nums">expected σ {sigmaText(plan.expectedSigma, unit)}</span>
-        {plan.partsCorrelation !== null ? <span className="text-sm text-ink-soft">correlation between the parts {fmt(plan.partsCorrelation, 3)}</span> : null}
+        {plan.partsCorrelation !== null ? (
+          <span className="text-sm text-ink-soft">correlation between the parts {fmt(plan.partsCorrelation, 3)}</span>
+        ) : null}
       </label>
       <div className="mt-2 overflow-x-auto">
         <table className="w-full min-w-[32rem] text-sm">
           <caption className="sr-only">Points of plan {plan.rank}</caption>
           <thead className="text-left text-ink-soft">
             <tr>
-              <th scope="col" className="py-1 pr-2 font-medium">Line</th>
-              <th scope="col" className="pr-2 font-medium">λ (nm)</th>
-              <th scope="col" className="pr-2 font-medium">T (K)</th>
-              <th scope="col" className="pr-2 font-medium">B (T)</th>
-              <th scope="col" className="pr-2 font-medium">×</th>
-              <th scope="col" className="pr-2 font-medium">predicted θ (mrad)</th>
-              <th scope="col" className="pr-2 font-medium">magnetic share</th>
-              <th scope="col" className="font-medium">signal / noise</th>
+              <th scope="col" className="py-1 pr-2 font-medium">
+                Line
+              </th>
+              <th scope="col" className="pr-2 font-medium">
+                λ (nm)
+              </th>
+              <th scope="col" className="pr-2 font-medium">
+                T (K)
+              </th>
+              <th scope="col" className="pr-2 font-medium">
+                B (T)
+              </th>
+              <th scope="col" className="pr-2 font-medium">
+                ×
+              </th>
+              <th scope="col" className="pr-2 font-medium">
+                predicted θ (mrad)
+              </th>
+              <th scope="col" className="pr-2 font-medium">
+                magnetic share
+              </th>
+              <th scope="col" className="font-medium">
+                signal / noise
+              </th>
             </tr>
           </thead>
           <tbody className="tabular-nums">

@@ -40,7 +40,9 @@ export function RotatorPanel({ params }: { params: ModelParams }) {
       return { ok: false as const, message: error instanceof Error ? error.message : "The rotator could not be sized here." };
     }
   }, [parsed]);
-  const issues = parsed.success ? [] : parsed.error.issues.map((i) => `${FIELD_LABEL[String(i.path.at(-1))] ?? i.path.join(".")}: ${i.message}`);
+  const issues = parsed.success
+    ? []
+    : parsed.error.issues.map((i) => `${FIELD_LABEL[String(i.path.at(-1))] ?? i.path.join(".")}: ${i.message}`);
   const scaleLabel = magneticScaleLabel(params.magneticScale);
 
   const field = (key: keyof typeof drafts, label: string, unit: string) => (
@@ -78,13 +80,20 @@ export function RotatorPanel({ params }: { params: ModelParams }) {
           ))}
         </ul>
       ) : null}
-      {result && !result.ok ? <p role="alert" className="text-sm text-ember">{result.message}</p> : null}
+      {result && !result.ok ? (
+        <p role="alert" className="text-sm text-ember">
+          {result.message}
+        </p>
+      ) : null}
       {r ? (
         <dl className="grid grid-cols-1 gap-x-6 gap-y-2 text-sm sm:grid-cols-2" aria-label="Rotator figures">
           <Figure term="Length for 45°" value={r.length45M !== null ? `${fmt(r.length45M * 1000, 4)} mm` : "– (no rotation)"} />
           <Figure term={`Length for ${drafts.targetAngleDeg}°`} value={r.lengthM !== null ? `${fmt(r.lengthM * 1000, 4)} mm` : "–"} />
           <Figure term="Verdet constant V" value={`${fmt(r.verdetRadPerTm, 4)} rad/(T·m)`} />
-          <Figure term="Magnetic-dipole part of V" value={`${fmt(r.magneticVerdetRadPerTm, 4)} rad/(T·m) (share ${fmtPercent(r.magneticShare)})`} />
+          <Figure
+            term="Magnetic-dipole part of V"
+            value={`${fmt(r.magneticVerdetRadPerTm, 4)} rad/(T·m) (share ${fmtPercent(r.magneticShare)})`}
+          />
           <Figure term="dθ/dT at that length" value={`${fmt(r.dThetaDTRadPerK / DEG, 4)} °/K`} />
           <Figure term="dθ/dB at that length" value={`${fmt(r.dThetaDBRadPerT / DEG, 4)} °/T`} />
           <Figure term={`Angle error allowed for ${fmt(r.isolationTargetDb, 3)} dB`} value={`±${fmt(r.maxAngleErrorRad / DEG, 4)}°`} />
@@ -94,15 +103,16 @@ export function RotatorPanel({ params }: { params: ModelParams }) {
         </dl>
       ) : null}
       <p className="text-xs text-ink-soft">
-        Isolation of an ideal polarizer pair with a rotation error Δθ: −10·log10(sin²Δθ) dB (common practice, no source). Windows search 0.1–1000 K
-        and up to 10× the field; “≤”/“≥” mark a window that reaches the end of that search. dθ/dT and dθ/dB follow from M0: both parts scale with it.
+        Isolation of an ideal polarizer pair with a rotation error Δθ: −10·log10(sin²Δθ) dB (common practice, no source). Windows search
+        0.1–1000 K and up to 10× the field; “≤”/“≥” mark a window that reaches the end of that search. dθ/dT and dθ/dB follow from M0: both
+        parts scale with it.
         {scaleLabel ? ` ${scaleLabel}.` : ""}
       </p>
       <CautionsPanel
         headingLevel={3}
         cautions={cautionsFor({
           lines: [],
-          minTemperatureK: r ? parsed.data?.temperatureK ?? null : null,
+          minTemperatureK: r ? (parsed.data?.temperatureK ?? null) : null,
           maxFieldT: r ? Math.abs(parsed.data?.fieldT ?? 0) : null,
         })}
       />

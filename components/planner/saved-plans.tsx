@@ -10,7 +10,17 @@ import { useDeletePlan } from "@/lib/query/planner";
 import { fmt } from "@/lib/workbench/format";
 
 /** Plans saved with the set, newest first; editors can delete (after a confirmation). */
-export function SavedPlans({ setId, plans, loading, canEdit }: { setId: string; plans: SavedPlan[] | null; loading: boolean; canEdit: boolean }) {
+export function SavedPlans({
+  setId,
+  plans,
+  loading,
+  canEdit,
+}: {
+  setId: string;
+  plans: SavedPlan[] | null;
+  loading: boolean;
+  canEdit: boolean;
+}) {
   const remove = useDeletePlan(setId);
   const [toDelete, setToDelete] = useState<SavedPlan | null>(null);
   return (
@@ -20,13 +30,20 @@ export function SavedPlans({ setId, plans, loading, canEdit }: { setId: string; 
       {plans && plans.length === 0 ? <p className="text-sm text-ink-soft">No plans saved with this set yet.</p> : null}
       <ul className="grid gap-2">
         {(plans ?? []).map((p) => (
-          <li key={p.id} className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-ink/15 bg-paper-raised px-3 py-2 text-sm">
+          <li
+            key={p.id}
+            className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-ink/15 bg-paper-raised px-3 py-2 text-sm"
+          >
             <span>
               <strong>{p.name}</strong> — {p.plan.points.map((pt) => `${pt.wavelengthNm} nm×${pt.count}`).join(", ")}; σ{" "}
-              {p.plan.expectedSigma === null ? "∞" : fmt(p.plan.expectedSigma, 3)} {p.plan.criterionUnit} · v{p.setVersion} · {p.createdBy.name} · <DateTime iso={p.createdAt} />
+              {p.plan.expectedSigma === null ? "∞" : fmt(p.plan.expectedSigma, 3)} {p.plan.criterionUnit} · v{p.setVersion} ·{" "}
+              {p.createdBy.name} · <DateTime iso={p.createdAt} />
             </span>
             <span className="flex gap-1">
-              <LinkButton variant="quiet" href={`/workbench/${setId}?markers=${encodeURIComponent(markersQueryValue(p.plan.points.map((pt) => pt.wavelengthNm)))}`}>
+              <LinkButton
+                variant="quiet"
+                href={`/workbench/${setId}?markers=${encodeURIComponent(markersQueryValue(p.plan.points.map((pt) => pt.wavelengthNm)))}`}
+              >
                 Open in workbench
               </LinkButton>
               {canEdit ? (

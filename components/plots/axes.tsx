@@ -58,7 +58,21 @@ export function spaceOutLabels<T extends { px: number; label: string }>(ticks: r
   });
 }
 
-export function XAxis({ scale, type, y, height, label, count = 8 }: { scale: NumScale; type: ScaleType; y: number; height: number; label: string; count?: number }) {
+export function XAxis({
+  scale,
+  type,
+  y,
+  height,
+  label,
+  count = 8,
+}: {
+  scale: NumScale;
+  type: ScaleType;
+  y: number;
+  height: number;
+  label: string;
+  count?: number;
+}) {
   const [r0, r1] = scale.range() as [number, number];
   const ticks = spaceOutLabels(ticksOf(scale, type, tickCountFor(Math.abs(r1 - r0), count)).map((t) => ({ ...t, px: scale(t.value) })));
   return (
@@ -85,7 +99,21 @@ export function XAxis({ scale, type, y, height, label, count = 8 }: { scale: Num
   );
 }
 
-export function YAxis({ scale, type, x, width, label, count = 6 }: { scale: NumScale; type: ScaleType; x: number; width: number; label: string; count?: number }) {
+export function YAxis({
+  scale,
+  type,
+  x,
+  width,
+  label,
+  count = 6,
+}: {
+  scale: NumScale;
+  type: ScaleType;
+  x: number;
+  width: number;
+  label: string;
+  count?: number;
+}) {
   const [r0, r1] = scale.range() as [number, number];
   const ticks = ticksOf(scale, type, count);
   const labelLines = wrapText(label, Math.abs(r1 - r0), LABEL_FONT_PX);

@@ -124,7 +124,10 @@ function HeatMapImpl({
           // Overlap by a fraction of a pixel so anti-aliasing leaves no hairlines between cells.
           w: cw + 0.5,
           h: ch + 0.5,
-          fill: v === null || v === undefined || !Number.isFinite(v) ? "#d9d6cf" : interpolateCividis(Math.min(1, Math.max(0, (v - lo) / span))),
+          fill:
+            v === null || v === undefined || !Number.isFinite(v)
+              ? "#d9d6cf"
+              : interpolateCividis(Math.min(1, Math.max(0, (v - lo) / span))),
         });
       }
     }
@@ -142,7 +145,10 @@ function HeatMapImpl({
       },
     });
     const path = geoPath(project);
-    return contours().size([nx, ny]).thresholds([...levels])(grid).map((c) => ({ level: c.value, d: path(c) ?? "" }));
+    return contours()
+      .size([nx, ny])
+      .thresholds([...levels])(grid)
+      .map((c) => ({ level: c.value, d: path(c) ?? "" }));
   }, [values, nx, ny, levels, innerW, innerH, M.left, M.top, lo, span]);
 
   // Memoized elements: moving the readout re-renders only the highlight, not the 2000 cells.
@@ -212,63 +218,73 @@ function HeatMapImpl({
   return (
     // Key presses on the focused SVG bubble to this wrapper (PlotFrame owns the SVG element).
     <div onKeyDown={onKeyDown} onBlur={() => setCell(null)}>
-    <PlotFrame title={title} banner={banner} width={width} height={height} left={M.left} svgRef={frameRef}>
-      {cellLayer}
-      {contourLayer}
-      {noContour && levels.length > 0 ? (
-        <text x={M.left + 8} y={M.top + 16} fontSize={11} fill="#ffffff" fontWeight={600}>
-          {noLevelText ?? `The ${levels.map(formatLegend).join(", ")} level is not reached in this map`}
-        </text>
-      ) : null}
-      <YAxis scale={yScale} type={yType} x={M.left} width={0} label={yLabel} />
-      <XAxis scale={xScale} type={xType} y={M.top + innerH} height={0} label={xLabel} />
-      <g aria-hidden="true">
-        <defs>
-          <linearGradient id={legendId} x1="0" x2="0" y1="1" y2="0">
-            {legendStops.map((t) => (
-              <stop key={t} offset={t} stopColor={interpolateCividis(t)} />
-            ))}
-          </linearGradient>
-        </defs>
-        <rect x={lx} y={M.top} width={14} height={innerH} fill={`url(#${legendId})`} stroke="#4a5468" strokeWidth={0.5} />
-        {[0, 0.25, 0.5, 0.75, 1].map((t) => (
-          <text key={t} x={lx + 20} y={M.top + innerH - t * innerH} dy="0.32em" fontSize={10} fill="#4a5468">
-            {formatLegend(lo + t * span)}
+      <PlotFrame title={title} banner={banner} width={width} height={height} left={M.left} svgRef={frameRef}>
+        {cellLayer}
+        {contourLayer}
+        {noContour && levels.length > 0 ? (
+          <text x={M.left + 8} y={M.top + 16} fontSize={11} fill="#ffffff" fontWeight={600}>
+            {noLevelText ?? `The ${levels.map(formatLegend).join(", ")} level is not reached in this map`}
           </text>
-        ))}
-        {levels.map((l) => (
-          <line key={l} x1={lx - 3} x2={lx + 17} y1={M.top + innerH - toUnit(l) * innerH} y2={M.top + innerH - toUnit(l) * innerH} stroke="#1d2433" strokeWidth={2} strokeDasharray="6 3" />
-        ))}
-      </g>
-      {shownCell ? (
+        ) : null}
+        <YAxis scale={yScale} type={yType} x={M.left} width={0} label={yLabel} />
+        <XAxis scale={xScale} type={xType} y={M.top + innerH} height={0} label={xLabel} />
+        <g aria-hidden="true">
+          <defs>
+            <linearGradient id={legendId} x1="0" x2="0" y1="1" y2="0">
+              {legendStops.map((t) => (
+                <stop key={t} offset={t} stopColor={interpolateCividis(t)} />
+              ))}
+            </linearGradient>
+          </defs>
+          <rect x={lx} y={M.top} width={14} height={innerH} fill={`url(#${legendId})`} stroke="#4a5468" strokeWidth={0.5} />
+          {[0, 0.25, 0.5, 0.75, 1].map((t) => (
+            <text key={t} x={lx + 20} y={M.top + innerH - t * innerH} dy="0.32em" fontSize={10} fill="#4a5468">
+              {formatLegend(lo + t * span)}
+            </text>
+          ))}
+          {levels.map((l) => (
+            <line
+              key={l}
+              x1={lx - 3}
+              x2={lx + 17}
+              y1={M.top + innerH - toUnit(l) * innerH}
+              y2={M.top + innerH - toUnit(l) * innerH}
+              stroke="#1d2433"
+              strokeWidth={2}
+              strokeDasharray="6 3"
+            />
+          ))}
+        </g>
+        {shownCell ? (
+          <rect
+            x={M.left + shownCell.i * cw}
+            y={M.top + innerH - (shownCell.j + 1) * ch}
+            width={cw}
+            height={ch}
+            fill="none"
+            stroke="#ffffff"
+            strokeWidth={2}
+            pointerEvents="none"
+          />
+        ) : null}
         <rect
-          x={M.left + shownCell.i * cw}
-          y={M.top + innerH - (shownCell.j + 1) * ch}
-          width={cw}
-          height={ch}
-          fill="none"
-          stroke="#ffffff"
-          strokeWidth={2}
-          pointerEvents="none"
+          x={M.left}
+          y={M.top}
+          width={innerW}
+          height={innerH}
+          fill="transparent"
+          style={{ cursor: "crosshair" }}
+          onPointerMove={onPointerMove}
+          onPointerLeave={() => setCell(null)}
         />
-      ) : null}
-      <rect
-        x={M.left}
-        y={M.top}
-        width={innerW}
-        height={innerH}
-        fill="transparent"
-        style={{ cursor: "crosshair" }}
-        onPointerMove={onPointerMove}
-        onPointerLeave={() => setCell(null)}
-      />
-    </PlotFrame>
-    <p id={hintId} className="sr-only">
-      Arrow keys move between cells (Shift: ten cells), Home and End go to the ends of a row, Page Up and Page Down to the ends of a column, Escape clears.
-    </p>
-    <p id={readoutId} aria-live="polite" data-testid="heat-map-readout" className="mt-1 min-h-5 text-xs tabular-nums text-ink">
-      {readout}
-    </p>
+      </PlotFrame>
+      <p id={hintId} className="sr-only">
+        Arrow keys move between cells (Shift: ten cells), Home and End go to the ends of a row, Page Up and Page Down to the ends of a
+        column, Escape clears.
+      </p>
+      <p id={readoutId} aria-live="polite" data-testid="heat-map-readout" className="mt-1 min-h-5 text-xs tabular-nums text-ink">
+        {readout}
+      </p>
     </div>
   );
 }

@@ -1,7 +1,19 @@
 "use client";
 
 import { line } from "d3";
-import { memo, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type MouseEvent, type PointerEvent, type ReactNode, type Ref } from "react";
+import {
+  memo,
+  useEffect,
+  useId,
+  useMemo,
+  useRef,
+  useState,
+  type KeyboardEvent,
+  type MouseEvent,
+  type PointerEvent,
+  type ReactNode,
+  type Ref,
+} from "react";
 import { layoutMarkerLabels } from "@/lib/workbench/label-layout";
 import { clampDomain, panToInclude, visibleYExtent, zoomDomain, type Domain } from "@/lib/workbench/zoom";
 import { XAxis, YAxis } from "./axes";
@@ -78,7 +90,31 @@ const MARGIN = { right: 18, bottom: 50, left: 76 };
 const NO_LAYERS: readonly PlotLayer[] = [];
 
 function LinePlotImpl(props: LinePlotProps) {
-  const { title, xs, xType, yType = "linear", xLabel, yLabel, series, width, height = 320, yDomain, cursorIndex = null, onCursorChange, onPick, markers = [], hLines = [], dots = [], banner, svgRef, describedBy, legend = true, xView = null, onXViewChange, layers = NO_LAYERS } = props;
+  const {
+    title,
+    xs,
+    xType,
+    yType = "linear",
+    xLabel,
+    yLabel,
+    series,
+    width,
+    height = 320,
+    yDomain,
+    cursorIndex = null,
+    onCursorChange,
+    onPick,
+    markers = [],
+    hLines = [],
+    dots = [],
+    banner,
+    svgRef,
+    describedBy,
+    legend = true,
+    xView = null,
+    onXViewChange,
+    layers = NO_LAYERS,
+  } = props;
   const M = { ...MARGIN, top: frameTop(banner, { title, width, left: MARGIN.left }) };
   const clipId = `clip-${useId().replace(/[^\w-]/g, "")}`;
   const innerW = Math.max(40, width - M.left - M.right);
@@ -92,7 +128,11 @@ function LinePlotImpl(props: LinePlotProps) {
     // No padding on x: the range the user asked for is the frame.
     let lo = Infinity;
     let hi = -Infinity;
-    for (const x of xs) if (Number.isFinite(x) && (xType !== "log" || x > 0)) { lo = Math.min(lo, x); hi = Math.max(hi, x); }
+    for (const x of xs)
+      if (Number.isFinite(x) && (xType !== "log" || x > 0)) {
+        lo = Math.min(lo, x);
+        hi = Math.max(hi, x);
+      }
     return Number.isFinite(lo) && lo < hi ? [lo, hi] : ext;
   }, [xs, xType]);
   const viewLo = xView?.[0];
@@ -110,7 +150,14 @@ function LinePlotImpl(props: LinePlotProps) {
     // Zoomed: fit the curves inside the window. Whole range: the curves and any overlaid layers.
     const dom =
       yDomain ??
-      (windowX ? visibleYExtent(xs, series.map((s) => s.values), windowX, log) : paddedExtent([...series.map((s) => s.values), ...layers.map((l) => l.yExtent)], log)) ??
+      (windowX
+        ? visibleYExtent(
+            xs,
+            series.map((s) => s.values),
+            windowX,
+            log,
+          )
+        : paddedExtent([...series.map((s) => s.values), ...layers.map((l) => l.yExtent)], log)) ??
       (log ? [1, 10] : [-1, 1]);
     return makeScale(yType, dom as [number, number], [M.top + innerH, M.top], yDomain === undefined);
   }, [xs, series, layers, windowX, yDomain, yType, innerH, M.top]);
@@ -121,7 +168,15 @@ function LinePlotImpl(props: LinePlotProps) {
         .defined((i) => {
           const v = s.values[i];
           const x = xs[i];
-          return v !== null && v !== undefined && Number.isFinite(v) && x !== undefined && Number.isFinite(x) && (yType !== "log" || v > 0) && (xType !== "log" || x > 0);
+          return (
+            v !== null &&
+            v !== undefined &&
+            Number.isFinite(v) &&
+            x !== undefined &&
+            Number.isFinite(x) &&
+            (yType !== "log" || v > 0) &&
+            (xType !== "log" || x > 0)
+          );
         })
         .x((i) => xScale(xs[i]!))
         .y((i) => yScale(s.values[i] as number));
@@ -249,7 +304,8 @@ function LinePlotImpl(props: LinePlotProps) {
       onCursorChange(index);
       // When zoomed, the window follows the cursor, so the arrow keys also pan.
       const x = xs[index];
-      if (onXViewChange && windowX && x !== undefined && !(x >= windowX[0] && x <= windowX[1])) onXViewChange(panToInclude(windowX, x, fullX, xType));
+      if (onXViewChange && windowX && x !== undefined && !(x >= windowX[0] && x <= windowX[1]))
+        onXViewChange(panToInclude(windowX, x, fullX, xType));
     }
   };
 
@@ -305,7 +361,17 @@ function LinePlotImpl(props: LinePlotProps) {
           ))}
           {paths.map((p, i) => {
             const s = series[i]!;
-            return <path key={p.key} d={p.d} fill="none" stroke={s.color} strokeWidth={s.width} strokeDasharray={s.dash} strokeLinejoin="round" />;
+            return (
+              <path
+                key={p.key}
+                d={p.d}
+                fill="none"
+                stroke={s.color}
+                strokeWidth={s.width}
+                strokeDasharray={s.dash}
+                strokeLinejoin="round"
+              />
+            );
           })}
           {layers.map((l) => (
             <g key={`layer-${l.key}`}>{l.render({ x: xScale, y: yScale })}</g>

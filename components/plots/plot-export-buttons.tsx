@@ -5,7 +5,15 @@ import { Button } from "@/components/ui/button";
 import { downloadBlob, downloadText, serializeSvg, svgToPngBlob } from "./export-image";
 
 /** "Export SVG" / "Export PNG" for one plot; the plot's title names it for screen readers. */
-export function PlotExportButtons({ svgRef, fileBase, plotName }: { svgRef: RefObject<SVGSVGElement | null>; fileBase: string; plotName: string }) {
+export function PlotExportButtons({
+  svgRef,
+  fileBase,
+  plotName,
+}: {
+  svgRef: RefObject<SVGSVGElement | null>;
+  fileBase: string;
+  plotName: string;
+}) {
   const [error, setError] = useState<string | null>(null);
   const formats: { label: string; save: (svg: SVGSVGElement) => void }[] = [
     { label: "Export SVG", save: (svg) => downloadText(serializeSvg(svg), `${fileBase}.svg`, "image/svg+xml") },

@@ -26,7 +26,8 @@ const CHOICES: { value: Choice; label: string }[] = [
   { value: "spectrum", label: "Long spectrum" },
 ];
 
-const INPUT = "mt-1 block w-28 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
+const INPUT =
+  "mt-1 block w-28 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
 
 interface Drafts {
   fromNm: string;
@@ -77,7 +78,15 @@ const FIELD_OF: Record<string, keyof Drafts> = {
 };
 
 /** Memoized: the workbench re-renders on every progress tick of its own run; this panel need not. */
-export const LabRunPanel = memo(function LabRunPanel({ setId, params, range }: { setId: string; params: ModelParams | null; range: WavelengthRange | null }) {
+export const LabRunPanel = memo(function LabRunPanel({
+  setId,
+  params,
+  range,
+}: {
+  setId: string;
+  params: ModelParams | null;
+  range: WavelengthRange | null;
+}) {
   const id = useId().replace(/[^\w-]/g, "");
   const set = useParameterSet(setId);
   const submit = useSubmitRun();
@@ -148,16 +157,25 @@ export const LabRunPanel = memo(function LabRunPanel({ setId, params, range }: {
     <section aria-label="Run on the lab's machines" className="space-y-3 rounded-lg border border-ink/10 bg-paper-raised p-4">
       <h2 className="text-lg font-semibold">Run on the lab’s machines</h2>
       <p className="text-sm text-ink-soft">
-        Fine maps (up to {MAX_MAP_COLUMNS} × {MAX_MAP_ROWS}) and long spectra (up to {MAX_RUN_WAVELENGTHS.toLocaleString("en")} wavelengths) are computed by the lab’s
-        workers and kept on the <Link href="/runs" className="text-lux-dark underline-offset-4 hover:underline">Lab runs</Link> page for everyone in the lab. They
-        use the parameters as they are on the left now.
+        Fine maps (up to {MAX_MAP_COLUMNS} × {MAX_MAP_ROWS}) and long spectra (up to {MAX_RUN_WAVELENGTHS.toLocaleString("en")} wavelengths)
+        are computed by the lab’s workers and kept on the{" "}
+        <Link href="/runs" className="text-lux-dark underline-offset-4 hover:underline">
+          Lab runs
+        </Link>{" "}
+        page for everyone in the lab. They use the parameters as they are on the left now.
       </p>
-      {set.data && !canSubmit ? <p className="text-sm text-ink-soft">Viewers can open the lab’s runs but not submit them; ask an editor of {set.data.labName}.</p> : null}
+      {set.data && !canSubmit ? (
+        <p className="text-sm text-ink-soft">Viewers can open the lab’s runs but not submit them; ask an editor of {set.data.labName}.</p>
+      ) : null}
       {!params ? <p className="text-sm text-ember">Fix the flagged inputs on the left first.</p> : null}
       <div className="flex flex-wrap items-start gap-6">
         <label className="text-sm">
           <span className="block text-xs font-medium">What to compute</span>
-          <select className="mt-1 rounded-md border border-ink/25 bg-paper-raised px-2 py-1.5 text-sm" value={choice} onChange={(e) => onChoice(e.target.value as Choice)}>
+          <select
+            className="mt-1 rounded-md border border-ink/25 bg-paper-raised px-2 py-1.5 text-sm"
+            value={choice}
+            onChange={(e) => onChoice(e.target.value as Choice)}
+          >
             {CHOICES.map((c) => (
               <option key={c.value} value={c.value}>
                 {c.label}
@@ -167,7 +185,11 @@ export const LabRunPanel = memo(function LabRunPanel({ setId, params, range }: {
         </label>
         <label className="text-sm">
           <span className="block text-xs font-medium">Method</span>
-          <select className="mt-1 rounded-md border border-ink/25 bg-paper-raised px-2 py-1.5 text-sm" value={method} onChange={(e) => setMethod(e.target.value as "llg" | "analytic")}>
+          <select
+            className="mt-1 rounded-md border border-ink/25 bg-paper-raised px-2 py-1.5 text-sm"
+            value={method}
+            onChange={(e) => setMethod(e.target.value as "llg" | "analytic")}
+          >
             <option value="llg">Numerical LLG</option>
             <option value="analytic">Analytic (linear response)</option>
           </select>
@@ -192,7 +214,11 @@ export const LabRunPanel = memo(function LabRunPanel({ setId, params, range }: {
           </span>
         ) : null}
       </div>
-      {submit.isError && Object.keys(serverFields).length === 0 ? <Alert tone="warning" title="Not submitted">{describeError(submit.error)}</Alert> : null}
+      {submit.isError && Object.keys(serverFields).length === 0 ? (
+        <Alert tone="warning" title="Not submitted">
+          {describeError(submit.error)}
+        </Alert>
+      ) : null}
       {submitted ? (
         <p role="status" className="text-sm">
           Submitted: {submitted.title}.{" "}

@@ -30,7 +30,9 @@ export function NavLinks() {
               href={item.href}
               aria-current={active ? "page" : undefined}
               className={`block rounded-md border-l-2 px-3 py-2 text-sm whitespace-nowrap transition-colors ${
-                active ? "border-lux bg-lux-light font-semibold text-lux-dark" : "border-transparent text-ink-soft hover:bg-paper-sunk hover:text-ink"
+                active
+                  ? "border-lux bg-lux-light font-semibold text-lux-dark"
+                  : "border-transparent text-ink-soft hover:bg-paper-sunk hover:text-ink"
               }`}
             >
               {item.label}

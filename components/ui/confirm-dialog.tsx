@@ -20,7 +20,17 @@ export interface ConfirmDialogProps {
  * The native <dialog> opened with showModal() traps focus, makes the page behind inert and closes
  * on Escape, which is what a confirmation needs without a dialog library.
  */
-export function ConfirmDialog({ open, title, children, confirmLabel, destructive, pending, error, onConfirm, onCancel }: ConfirmDialogProps) {
+export function ConfirmDialog({
+  open,
+  title,
+  children,
+  confirmLabel,
+  destructive,
+  pending,
+  error,
+  onConfirm,
+  onCancel,
+}: ConfirmDialogProps) {
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
 

@@ -28,8 +28,7 @@ export function ErrorPanel({ error, retry }: { error: unknown; retry?: () => voi
 
 function LoadErrorPanel({ error, retry }: { error: unknown; retry?: () => void }) {
   const health = useQuery({ queryKey: ["health"], queryFn: fetchHealth, retry: false, staleTime: 0 });
-  const databaseDown =
-    (error instanceof ApiError && error.code === "db_unavailable") || health.data?.database === "down";
+  const databaseDown = (error instanceof ApiError && error.code === "db_unavailable") || health.data?.database === "down";
 
   const message = databaseDown
     ? "The database is not reachable right now, so nothing can be loaded or saved. Your stored data is not affected; try again in a minute."

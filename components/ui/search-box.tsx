@@ -6,7 +6,17 @@ import { Field } from "@/components/ui/text-field";
 const DEBOUNCE_MS = 300;
 
 /** Typing updates ?q= once the user pauses, so each keystroke does not become a request. */
-export function SearchBox({ id, placeholder, value, onSearch }: { id: string; placeholder: string; value: string; onSearch: (q: string) => void }) {
+export function SearchBox({
+  id,
+  placeholder,
+  value,
+  onSearch,
+}: {
+  id: string;
+  placeholder: string;
+  value: string;
+  onSearch: (q: string) => void;
+}) {
   const [text, setText] = useState(value);
   const [seen, setSeen] = useState(value);
   const [sent, setSent] = useState<string | null>(null);
@@ -30,7 +40,9 @@ export function SearchBox({ id, placeholder, value, onSearch }: { id: string; pl
 
   return (
     <Field id={id} label="Search" className="w-full sm:w-72">
-      {(control) => <input {...control} type="search" placeholder={placeholder} value={text} onChange={(event) => setText(event.target.value)} />}
+      {(control) => (
+        <input {...control} type="search" placeholder={placeholder} value={text} onChange={(event) => setText(event.target.value)} />
+      )}
     </Field>
   );
 }

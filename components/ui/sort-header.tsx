@@ -14,7 +14,11 @@ export function SortHeader<K extends string>({
 }) {
   const active = column === sortKey;
   return (
-    <th scope="col" aria-sort={active ? (sortDir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold">
+    <th
+      scope="col"
+      aria-sort={active ? (sortDir === "asc" ? "ascending" : "descending") : "none"}
+      className="px-3 py-2 text-left font-semibold"
+    >
       <button type="button" onClick={() => onSort(column)} className="inline-flex items-center gap-1 rounded hover:text-lux-dark">
         {label}
         <span aria-hidden="true" className={active ? "text-lux" : "text-ink-faint"}>

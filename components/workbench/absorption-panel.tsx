@@ -6,13 +6,7 @@ import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
 import { OPAQUE_TRANSMISSION } from "@/lib/physics/absorption";
 import type { SpectrumPoint } from "@/lib/physics/types";
-import {
-  absorptionRow,
-  ellipticityNote,
-  formatTransmission,
-  hasAbsorption,
-  opaqueWarning,
-} from "@/lib/workbench/absorption-view";
+import { absorptionRow, ellipticityNote, formatTransmission, hasAbsorption, opaqueWarning } from "@/lib/workbench/absorption-view";
 import { fmt, fmtLength } from "@/lib/workbench/format";
 import { COMPARE_COLORS, COMPARE_DASHES } from "@/lib/workbench/palette";
 import { fromNm, X_AXIS_TITLE, type XUnit } from "@/lib/workbench/units";
@@ -85,8 +79,18 @@ function AbsorptionPanelImpl({
 
   const transmission = useMemo<PlotSeries[]>(
     () => [
-      { key: "tplus", label: "“+” mode", ...MODE_STYLE.plus, values: rows.map((r) => (r.transmissionPlus === null ? null : Math.min(100, r.transmissionPlus * 100))) },
-      { key: "tminus", label: "“−” mode", ...MODE_STYLE.minus, values: rows.map((r) => (r.transmissionMinus === null ? null : Math.min(100, r.transmissionMinus * 100))) },
+      {
+        key: "tplus",
+        label: "“+” mode",
+        ...MODE_STYLE.plus,
+        values: rows.map((r) => (r.transmissionPlus === null ? null : Math.min(100, r.transmissionPlus * 100))),
+      },
+      {
+        key: "tminus",
+        label: "“−” mode",
+        ...MODE_STYLE.minus,
+        values: rows.map((r) => (r.transmissionMinus === null ? null : Math.min(100, r.transmissionMinus * 100))),
+      },
     ],
     [rows],
   );
@@ -98,7 +102,10 @@ function AbsorptionPanelImpl({
     ],
     [rows],
   );
-  const fom = useMemo<PlotSeries[]>(() => [{ key: "fom", label: "|V| / α", ...MODE_STYLE.mean, values: rows.map((r) => positiveOrNull(r.figureOfMeritRadPerT)) }], [rows]);
+  const fom = useMemo<PlotSeries[]>(
+    () => [{ key: "fom", label: "|V| / α", ...MODE_STYLE.mean, values: rows.map((r) => positiveOrNull(r.figureOfMeritRadPerT)) }],
+    [rows],
+  );
   const anyLoss = alpha[0]!.values.some((v) => v !== null);
   const hLines = useMemo(() => [{ y: OPAQUE_TRANSMISSION * 100, label: `${OPAQUE_TRANSMISSION * 100} %: opaque below` }], []);
   const tDomain = useMemo<[number, number]>(() => [0, 100], []);
@@ -112,9 +119,10 @@ function AbsorptionPanelImpl({
   return (
     <div ref={wrapRef} className="space-y-3" data-testid="absorption-panel">
       <p className="text-sm text-ink-soft">
-        From Im n± of the same run: the intensity absorption coefficient α± = −2ω Im n±/c of each circular mode and their mean, the one-pass internal
-        transmission exp(−α± L) through {fmtLength(lengthM)} (surface reflections not included) and the figure of merit |V|/α. Loss here comes only
-        from the oscillator&apos;s damping ΓE (its Lorentzian tail) and the Gilbert damping; set ΓE from absorption data where it matters.
+        From Im n± of the same run: the intensity absorption coefficient α± = −2ω Im n±/c of each circular mode and their mean, the one-pass
+        internal transmission exp(−α± L) through {fmtLength(lengthM)} (surface reflections not included) and the figure of merit |V|/α. Loss
+        here comes only from the oscillator&apos;s damping ΓE (its Lorentzian tail) and the Gilbert damping; set ΓE from absorption data
+        where it matters.
       </p>
       {warning ? null : (
         <p className="text-sm">At least one circular mode transmits {OPAQUE_TRANSMISSION * 100} % or more at every computed wavelength.</p>
@@ -123,18 +131,46 @@ function AbsorptionPanelImpl({
       <div ref={plotsRef} className={near ? "space-y-3" : "min-h-[48rem]"}>
         {near ? (
           <>
-            <LinePlot {...shared} title={`Transmission of each circular mode through ${fmtLength(lengthM)}`} yLabel="Transmission (%)" series={transmission} height={240} yDomain={tDomain} hLines={hLines} svgRef={tSvg} />
+            <LinePlot
+              {...shared}
+              title={`Transmission of each circular mode through ${fmtLength(lengthM)}`}
+              yLabel="Transmission (%)"
+              series={transmission}
+              height={240}
+              yDomain={tDomain}
+              hLines={hLines}
+              svgRef={tSvg}
+            />
             <PlotExportButtons svgRef={tSvg} fileBase={`${fileBase}-transmission`} plotName="transmission plot" />
 
             {anyLoss ? (
               <>
-                <LinePlot {...shared} title="Absorption coefficient (log scale)" yType="log" yLabel="α (cm⁻¹)" series={alpha} height={240} svgRef={aSvg} />
+                <LinePlot
+                  {...shared}
+                  title="Absorption coefficient (log scale)"
+                  yType="log"
+                  yLabel="α (cm⁻¹)"
+                  series={alpha}
+                  height={240}
+                  svgRef={aSvg}
+                />
                 <PlotExportButtons svgRef={aSvg} fileBase={`${fileBase}-absorption`} plotName="absorption plot" />
-                <LinePlot {...shared} title="Figure of merit |V| / α (log scale)" yType="log" yLabel="|V| / α (rad/T)" series={fom} height={220} legend={false} svgRef={fSvg} />
+                <LinePlot
+                  {...shared}
+                  title="Figure of merit |V| / α (log scale)"
+                  yType="log"
+                  yLabel="|V| / α (rad/T)"
+                  series={fom}
+                  height={220}
+                  legend={false}
+                  svgRef={fSvg}
+                />
                 <PlotExportButtons svgRef={fSvg} fileBase={`${fileBase}-figure-of-merit`} plotName="figure of merit plot" />
               </>
             ) : (
-              <p className="text-sm">No loss in this model at these wavelengths (α = 0: ΓE = 0 and no spin damping), so the figure of merit |V|/α is not defined.</p>
+              <p className="text-sm">
+                No loss in this model at these wavelengths (α = 0: ΓE = 0 and no spin damping), so the figure of merit |V|/α is not defined.
+              </p>
             )}
 
             {markerRows.length > 0 ? (
@@ -143,12 +179,24 @@ function AbsorptionPanelImpl({
                   <caption className="text-left font-semibold">Absorption at the markers</caption>
                   <thead className="text-left text-xs text-ink-soft">
                     <tr>
-                      <th scope="col" className="py-1 pr-3 font-medium">λ (nm)</th>
-                      <th scope="col" className="py-1 pr-3 font-medium">mean α (cm⁻¹)</th>
-                      <th scope="col" className="py-1 pr-3 font-medium">T “+”</th>
-                      <th scope="col" className="py-1 pr-3 font-medium">T “−”</th>
-                      <th scope="col" className="py-1 pr-3 font-medium">Ellipticity angle (°)</th>
-                      <th scope="col" className="py-1 font-medium">|V| / α (rad/T)</th>
+                      <th scope="col" className="py-1 pr-3 font-medium">
+                        λ (nm)
+                      </th>
+                      <th scope="col" className="py-1 pr-3 font-medium">
+                        mean α (cm⁻¹)
+                      </th>
+                      <th scope="col" className="py-1 pr-3 font-medium">
+                        T “+”
+                      </th>
+                      <th scope="col" className="py-1 pr-3 font-medium">
+                        T “−”
+                      </th>
+                      <th scope="col" className="py-1 pr-3 font-medium">
+                        Ellipticity angle (°)
+                      </th>
+                      <th scope="col" className="py-1 font-medium">
+                        |V| / α (rad/T)
+                      </th>
                     </tr>
                   </thead>
                   <tbody>
@@ -156,7 +204,9 @@ function AbsorptionPanelImpl({
                       <tr key={r.wavelengthNm} className="border-t border-ink/10">
                         <th scope="row" className="py-1 pr-3 text-left font-medium">
                           {fmt(r.wavelengthNm, 5)}
-                          {r.opaque ? <span className="ml-2 rounded bg-ember-light px-1.5 text-xs font-semibold text-ink">opaque</span> : null}
+                          {r.opaque ? (
+                            <span className="ml-2 rounded bg-ember-light px-1.5 text-xs font-semibold text-ink">opaque</span>
+                          ) : null}
                         </th>
                         <td className="py-1 pr-3">{fmt(r.alphaMeanPerCm, 3)}</td>
                         <td className="py-1 pr-3">{formatTransmission(r.transmissionPlus)}</td>
@@ -192,7 +242,11 @@ export const OpaqueNote = memo(function OpaqueNote({ points, lengthM }: { points
   const etaNote = useMemo(() => ellipticityNote(points), [points]);
   if (!warning && !etaNote) return null;
   return (
-    <div role="note" data-testid="opaque-warning" className="space-y-1 rounded-md border border-ember bg-ember-light px-4 py-2 text-sm text-ink">
+    <div
+      role="note"
+      data-testid="opaque-warning"
+      className="space-y-1 rounded-md border border-ember bg-ember-light px-4 py-2 text-sm text-ink"
+    >
       {warning ? (
         <p>
           <span className="font-semibold">No light gets through here. </span>

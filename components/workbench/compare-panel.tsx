@@ -13,7 +13,15 @@ import { describeError } from "@/lib/query/fetcher";
 import { parameterSetQuery, parameterSetVersionsQuery, useParameterSets, useParameterSetVersions } from "@/lib/query/parameter-sets";
 import { normalizeMarkers } from "@/lib/workbench/derived";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
-import { compareAxisTitle, compareHeader, compareOptionLabel, compareValue, COMPARE_QUANTITIES, isVerdetQuantity, type CompareQuantity } from "@/lib/workbench/compare";
+import {
+  compareAxisTitle,
+  compareHeader,
+  compareOptionLabel,
+  compareValue,
+  COMPARE_QUANTITIES,
+  isVerdetQuantity,
+  type CompareQuantity,
+} from "@/lib/workbench/compare";
 import { fmt, fmtDelta, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
 import { COMPARE_COLORS, COMPARE_DASHES } from "@/lib/workbench/palette";
 import { fromNm, wavelengthGrid, X_AXIS_TITLE } from "@/lib/workbench/units";
@@ -98,7 +106,9 @@ export function ComparePanel({
           <legend className="mb-1 font-medium">Parameter sets</legend>
           {sets.isPending ? <p className="text-ink-soft">Loading sets…</p> : null}
           {sets.isError ? <p className="text-ember">{describeError(sets.error)}</p> : null}
-          {sets.data?.filter((s) => s.id !== setId).length === 0 ? <p className="text-ink-soft">No other parameter sets in your labs.</p> : null}
+          {sets.data?.filter((s) => s.id !== setId).length === 0 ? (
+            <p className="text-ink-soft">No other parameter sets in your labs.</p>
+          ) : null}
           <div className="max-h-48 space-y-1 overflow-y-auto">
             {sets.data
               ?.filter((s) => s.id !== setId)
@@ -110,7 +120,10 @@ export function ComparePanel({
                     disabled={!selected.includes(`set:${s.id}`) && selected.length >= MAX_COMPARE}
                     onChange={(e) => toggle(`set:${s.id}`, e.target.checked)}
                   />
-                  {s.name} <span className="text-xs text-ink-soft">({s.labName}, v{s.version})</span>
+                  {s.name}{" "}
+                  <span className="text-xs text-ink-soft">
+                    ({s.labName}, v{s.version})
+                  </span>
                 </label>
               ))}
           </div>
@@ -124,7 +137,9 @@ export function ComparePanel({
         setEntries={setQueries.flatMap((q) => {
           if (!q.data) return [];
           const parsed = modelParamsSchema.safeParse(q.data.params);
-          return parsed.success ? [{ key: `set:${q.data.id}`, label: entryLabel(`${q.data.name} v${q.data.version}`, parsed.data), params: parsed.data }] : [];
+          return parsed.success
+            ? [{ key: `set:${q.data.id}`, label: entryLabel(`${q.data.name} v${q.data.version}`, parsed.data), params: parsed.data }]
+            : [];
         })}
         setId={setId}
         range={range}
@@ -136,7 +151,15 @@ export function ComparePanel({
   );
 }
 
-function VersionPicker({ setId, selected, onToggle }: { setId: string; selected: readonly string[]; onToggle: (key: string, on: boolean) => void }) {
+function VersionPicker({
+  setId,
+  selected,
+  onToggle,
+}: {
+  setId: string;
+  selected: readonly string[];
+  onToggle: (key: string, on: boolean) => void;
+}) {
   const versions = useParameterSetVersions(setId);
   return (
     <fieldset className="space-y-1 text-sm">
@@ -190,10 +213,16 @@ function CompareResults({
     ? (versions.data ?? []).flatMap((v) => {
         if (!selected.includes(`version:${v.version}`)) return [];
         const parsed = modelParamsSchema.safeParse(v.params);
-        return parsed.success ? [{ key: `version:${v.version}`, label: entryLabel(`Version ${v.version}`, parsed.data), params: parsed.data }] : [];
+        return parsed.success
+          ? [{ key: `version:${v.version}`, label: entryLabel(`Version ${v.version}`, parsed.data), params: parsed.data }]
+          : [];
       })
     : [];
-  const entries: Entry[] = [...(current ? [{ key: "current", label: entryLabel(current.label, current.params), params: current.params }] : []), ...setEntries, ...versionEntries];
+  const entries: Entry[] = [
+    ...(current ? [{ key: "current", label: entryLabel(current.label, current.params), params: current.params }] : []),
+    ...setEntries,
+    ...versionEntries,
+  ];
   const entriesKey = JSON.stringify(entries.map((e) => [e.key, e.params]));
 
   const [computed, setComputed] = useState<Computed[]>([]);
@@ -216,7 +245,8 @@ function CompareResults({
         try {
           // Another set may not reach down to this range (Sellmeier pole): say so instead of sending it.
           gridRequest = checkedSpectrumRequest({ ...entry.params, wavelengthsNm: grid, method: "analytic" });
-          markerRequest = markersNm.length > 0 ? checkedSpectrumRequest({ ...entry.params, wavelengthsNm: markersNm, method: "analytic" }) : null;
+          markerRequest =
+            markersNm.length > 0 ? checkedSpectrumRequest({ ...entry.params, wavelengthsNm: markersNm, method: "analytic" }) : null;
         } catch (e) {
           throw new Error(`${entry.label}: ${e instanceof Error ? e.message : String(e)}`);
         }
@@ -251,20 +281,34 @@ function CompareResults({
         color: COMPARE_COLORS[i % COMPARE_COLORS.length]!,
         dash: COMPARE_DASHES[i % COMPARE_DASHES.length],
         width: i === 0 ? 2.4 : 2,
-        values: c.grid.points.map((p) => compareValue(quantity, p, { fieldT: c.entry.params.fieldT, lengthM: c.entry.params.lengthM }, yMode)),
+        values: c.grid.points.map((p) =>
+          compareValue(quantity, p, { fieldT: c.entry.params.fieldT, lengthM: c.entry.params.lengthM }, yMode),
+        ),
       })),
     [computed, quantity, yMode],
   );
   const xs = useMemo(() => (computed[0]?.grid.points ?? []).map((p) => fromNm(p.wavelengthNm, xUnit)), [computed, xUnit]);
 
   if (entries.length < 2) {
-    return <p className="text-sm text-ink-soft">{loading ? "Loading the chosen sets…" : "Choose at least one set or version to compare with this view."}</p>;
+    return (
+      <p className="text-sm text-ink-soft">
+        {loading ? "Loading the chosen sets…" : "Choose at least one set or version to compare with this view."}
+      </p>
+    );
   }
   const base = computed[0];
   return (
     <div ref={wrapRef} className="space-y-3">
-      {error ? <Alert tone="warning" title="Comparison failed">{error}</Alert> : null}
-      {busy ? <p role="status" className="text-xs text-ink-soft">Computing the comparison in a worker…</p> : null}
+      {error ? (
+        <Alert tone="warning" title="Comparison failed">
+          {error}
+        </Alert>
+      ) : null}
+      {busy ? (
+        <p role="status" className="text-xs text-ink-soft">
+          Computing the comparison in a worker…
+        </p>
+      ) : null}
       {computed.length >= 2 ? (
         <>
           <LinePlot
@@ -284,13 +328,29 @@ function CompareResults({
               <caption className="pb-1 text-left font-semibold">Differences at markers (against “{base?.entry.label}”)</caption>
               <thead className="text-left text-xs text-ink-soft">
                 <tr className="border-b border-ink/10">
-                  <th scope="col" className="px-2 py-1 font-medium">Wavelength</th>
-                  <th scope="col" className="px-2 py-1 font-medium">Set</th>
-                  <th scope="col" className="px-2 py-1 font-medium">{compareHeader(quantity, yMode)}</th>
-                  <th scope="col" className="px-2 py-1 font-medium">Δ{compareHeader(quantity, yMode).split(" ")[0]}</th>
-                  {isVerdetQuantity(quantity) ? null : <th scope="col" className="px-2 py-1 font-medium">V (rad/(T·m))</th>}
-                  <th scope="col" className="px-2 py-1 font-medium">Magnetic share</th>
-                  <th scope="col" className="px-2 py-1 font-medium">Δ share</th>
+                  <th scope="col" className="px-2 py-1 font-medium">
+                    Wavelength
+                  </th>
+                  <th scope="col" className="px-2 py-1 font-medium">
+                    Set
+                  </th>
+                  <th scope="col" className="px-2 py-1 font-medium">
+                    {compareHeader(quantity, yMode)}
+                  </th>
+                  <th scope="col" className="px-2 py-1 font-medium">
+                    Δ{compareHeader(quantity, yMode).split(" ")[0]}
+                  </th>
+                  {isVerdetQuantity(quantity) ? null : (
+                    <th scope="col" className="px-2 py-1 font-medium">
+                      V (rad/(T·m))
+                    </th>
+                  )}
+                  <th scope="col" className="px-2 py-1 font-medium">
+                    Magnetic share
+                  </th>
+                  <th scope="col" className="px-2 py-1 font-medium">
+                    Δ share
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -298,14 +358,23 @@ function CompareResults({
                   computed.map((c, i) => {
                     const p = c.markers?.points.find((q) => q.wavelengthNm === nm);
                     const b = base?.markers?.points.find((q) => q.wavelengthNm === nm);
-                    const qv = p ? compareValue(quantity, p, { fieldT: c.entry.params.fieldT, lengthM: c.entry.params.lengthM }, yMode) : null;
-                    const qb = b && base ? compareValue(quantity, b, { fieldT: base.entry.params.fieldT, lengthM: base.entry.params.lengthM }, yMode) : null;
+                    const qv = p
+                      ? compareValue(quantity, p, { fieldT: c.entry.params.fieldT, lengthM: c.entry.params.lengthM }, yMode)
+                      : null;
+                    const qb =
+                      b && base
+                        ? compareValue(quantity, b, { fieldT: base.entry.params.fieldT, lengthM: base.entry.params.lengthM }, yMode)
+                        : null;
                     const dQ = qv !== null && qb !== null ? qv - qb : null;
                     const dS = p?.magneticShare != null && b?.magneticShare != null ? p.magneticShare - b.magneticShare : null;
                     return (
                       <tr key={`${nm}-${c.entry.key}`} className={i === 0 ? "border-t border-ink/10" : ""}>
                         {i === 0 ? (
-                          <th scope="rowgroup" rowSpan={computed.length} className="px-2 py-1 text-left align-top font-medium">{`${nm} nm`}</th>
+                          <th
+                            scope="rowgroup"
+                            rowSpan={computed.length}
+                            className="px-2 py-1 text-left align-top font-medium"
+                          >{`${nm} nm`}</th>
                         ) : null}
                         <td className="px-2 py-1">{c.entry.label}</td>
                         <td className="px-2 py-1">{fmt(qv)}</td>

@@ -33,10 +33,9 @@ interface BoundDraft {
 }
 
 function initialBounds(): Record<FreeableKey, BoundDraft> {
-  return Object.fromEntries(FREEABLE_KEYS.map((k) => [k, { free: DEFAULT_FREE_KEYS.includes(k), min: k === "magneticScale" ? "0" : "", max: "" }])) as Record<
-    FreeableKey,
-    BoundDraft
-  >;
+  return Object.fromEntries(
+    FREEABLE_KEYS.map((k) => [k, { free: DEFAULT_FREE_KEYS.includes(k), min: k === "magneticScale" ? "0" : "", max: "" }]),
+  ) as Record<FreeableKey, BoundDraft>;
 }
 
 function parseBound(text: string): number | undefined | null {
@@ -47,7 +46,15 @@ function parseBound(text: string): number | undefined | null {
 }
 
 /** Memoized: the workbench re-renders on every progress step of its own runs, which this panel ignores. */
-export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId: string; params: ModelParams | null; pool: WorkbenchPool | null }) {
+export const FitPanel = memo(function FitPanel({
+  setId,
+  params,
+  pool,
+}: {
+  setId: string;
+  params: ModelParams | null;
+  pool: WorkbenchPool | null;
+}) {
   const setQuery = useParameterSet(setId);
   const labId = setQuery.data?.labId;
   const sets = useMeasurementSets(labId);
@@ -62,7 +69,10 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
   const pointQueries = useQueries({ queries: chosen.map((id) => measurementPointsQuery(id)) });
   const pointsLoading = pointQueries.some((q) => q.isPending);
   const pointsError = pointQueries.find((q) => q.isError)?.error ?? null;
-  const points = useMemo<MeasuredPoint[]>(() => (pointQueries.every((q) => q.data) ? pointQueries.flatMap((q) => q.data ?? []) : []), [pointQueries]);
+  const points = useMemo<MeasuredPoint[]>(
+    () => (pointQueries.every((q) => q.data) ? pointQueries.flatMap((q) => q.data ?? []) : []),
+    [pointQueries],
+  );
 
   const { free, boundErrors } = useMemo(() => {
     const list: FreeParam[] = [];
@@ -75,7 +85,8 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
       const start = params?.[key];
       if (min === null || max === null) errors[key] = "Bounds must be numbers (or empty for none).";
       else if (min !== undefined && max !== undefined && !(min < max)) errors[key] = "The lower bound must be below the upper bound.";
-      else if (start !== undefined && ((min !== undefined && start < min) || (max !== undefined && start > max))) errors[key] = `The starting value ${fmt(start)} lies outside the bounds.`;
+      else if (start !== undefined && ((min !== undefined && start < min) || (max !== undefined && start > max)))
+        errors[key] = `The starting value ${fmt(start)} lies outside the bounds.`;
       list.push({ key, ...(min !== undefined && min !== null ? { min } : {}), ...(max !== undefined && max !== null ? { max } : {}) });
     }
     return { free: list, boundErrors: errors };
@@ -104,8 +115,8 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
   return (
     <div className="space-y-4">
       <p className="text-sm text-ink-soft">
-        Weighted least squares (Levenberg–Marquardt) of the analytic model to measured points, weighted by each point&apos;s σ. The fit starts from the values on the
-        left; the parameters not freed are held there.
+        Weighted least squares (Levenberg–Marquardt) of the analytic model to measured points, weighted by each point&apos;s σ. The fit
+        starts from the values on the left; the parameters not freed are held there.
       </p>
 
       <fieldset className="space-y-2">
@@ -138,7 +149,8 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
                   />
                   <span className="font-medium">{s.name}</span>
                   <span className="text-ink-soft">
-                    {s.sample} · {s.rowCount} points · {fmt(s.wavelengthSpanNm.min)}–{fmt(s.wavelengthSpanNm.max)} nm · {s.quantity === "verdet" ? "Verdet constant" : "rotation"}
+                    {s.sample} · {s.rowCount} points · {fmt(s.wavelengthSpanNm.min)}–{fmt(s.wavelengthSpanNm.max)} nm ·{" "}
+                    {s.quantity === "verdet" ? "Verdet constant" : "rotation"}
                   </span>
                 </label>
               </li>
@@ -174,7 +186,12 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
                 return (
                   <tr key={key} className="border-t border-ink/10 align-top">
                     <td className="py-1 pr-2">
-                      <input type="checkbox" aria-label={`Free ${label}`} checked={b.free} onChange={(e) => setBound(key, { free: e.target.checked })} />
+                      <input
+                        type="checkbox"
+                        aria-label={`Free ${label}`}
+                        checked={b.free}
+                        onChange={(e) => setBound(key, { free: e.target.checked })}
+                      />
                     </td>
                     <td className="py-1 pr-2">
                       {label}
@@ -223,12 +240,12 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
       <fieldset className="space-y-1 text-sm">
         <legend className="text-sm font-semibold">Reported uncertainties</legend>
         <label className="flex items-center gap-2">
-          <input type="radio" name="fit-sigma" checked={!scaleByChi2} onChange={() => setScaleByChi2(false)} />
-          σ from the data&apos;s uncertainties as given (not scaled)
+          <input type="radio" name="fit-sigma" checked={!scaleByChi2} onChange={() => setScaleByChi2(false)} />σ from the data&apos;s
+          uncertainties as given (not scaled)
         </label>
         <label className="flex items-center gap-2">
-          <input type="radio" name="fit-sigma" checked={scaleByChi2} onChange={() => setScaleByChi2(true)} />
-          σ scaled by √(χ²/dof) (when the data&apos;s σ are only relative)
+          <input type="radio" name="fit-sigma" checked={scaleByChi2} onChange={() => setScaleByChi2(true)} />σ scaled by √(χ²/dof) (when the
+          data&apos;s σ are only relative)
         </label>
       </fieldset>
 
@@ -264,10 +281,14 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
             className="h-2 overflow-hidden rounded bg-ink/10"
           >
             {/* A fit has no known length: the bar fills ever more slowly with each iteration. */}
-            <div className="h-full bg-lux transition-[width]" style={{ width: `${(100 * (run.progress?.iteration ?? 0)) / ((run.progress?.iteration ?? 0) + 6)}%` }} />
+            <div
+              className="h-full bg-lux transition-[width]"
+              style={{ width: `${(100 * (run.progress?.iteration ?? 0)) / ((run.progress?.iteration ?? 0) + 6)}%` }}
+            />
           </div>
           <p className="text-xs text-ink-soft">
-            {run.progress ? `Iteration ${run.progress.iteration}, χ² = ${fmt(run.progress.chi2)}` : "Starting the fit worker…"} (the page stays usable; Cancel stops it)
+            {run.progress ? `Iteration ${run.progress.iteration}, χ² = ${fmt(run.progress.chi2)}` : "Starting the fit worker…"} (the page
+            stays usable; Cancel stops it)
           </p>
         </div>
       ) : null}
@@ -279,7 +300,13 @@ export const FitPanel = memo(function FitPanel({ setId, params, pool }: { setId:
       ) : null}
 
       {run.result && run.request && setQuery.data ? (
-        <FitReport result={run.result} startParams={run.request.params as ModelParams} set={setQuery.data} measurementSets={fittedSets} pool={pool} />
+        <FitReport
+          result={run.result}
+          startParams={run.request.params as ModelParams}
+          set={setQuery.data}
+          measurementSets={fittedSets}
+          pool={pool}
+        />
       ) : null}
     </div>
   );

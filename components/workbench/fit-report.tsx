@@ -51,7 +51,10 @@ export function FitReport({
     <section aria-label="Fit result" className="space-y-4 border-t border-ink/10 pt-4">
       <h3 className="text-base font-semibold">Fit result</h3>
       {scaleLabel ? (
-        <p data-testid="fit-magnetic-scale-label" className="inline-block rounded-full border border-ember bg-ember-light px-2.5 py-1 text-xs font-semibold text-ember">
+        <p
+          data-testid="fit-magnetic-scale-label"
+          className="inline-block rounded-full border border-ember bg-ember-light px-2.5 py-1 text-xs font-semibold text-ember"
+        >
           {scaleLabel}
         </p>
       ) : null}
@@ -69,12 +72,18 @@ export function FitReport({
           </p>
         </Alert>
       ) : null}
-      {!result.converged ? <Alert tone="warning" title="The fit stopped at its iteration limit">The values are the best found, not a converged minimum.</Alert> : null}
+      {!result.converged ? (
+        <Alert tone="warning" title="The fit stopped at its iteration limit">
+          The values are the best found, not a converged minimum.
+        </Alert>
+      ) : null}
 
       <div className="overflow-x-auto">
         <table className="w-full min-w-[24rem] text-sm" aria-label="Fitted values">
           <caption className="pb-1 text-left text-xs text-ink-soft">
-            Reported σ: {result.sigmaScaledByChi2 ? `scaled by √(χ²/dof) = ${fmt(chi2Factor, 3)}` : "from the data's σ as given, not scaled"}. Both are listed.
+            Reported σ:{" "}
+            {result.sigmaScaledByChi2 ? `scaled by √(χ²/dof) = ${fmt(chi2Factor, 3)}` : "from the data's σ as given, not scaled"}. Both are
+            listed.
           </caption>
           <thead>
             <tr className="text-left text-xs text-ink-soft">
@@ -90,7 +99,9 @@ export function FitReport({
               <tr key={key} className="border-t border-ink/10">
                 <th scope="row" className="py-1 pr-3 text-left font-normal">
                   {labelOf(key)} {unitOf(key) ? <span className="text-ink-soft">({unitOf(key)})</span> : null}
-                  {result.atBound.includes(key) ? <span className="block text-xs text-ember">ended on a bound: its σ is not a fair error</span> : null}
+                  {result.atBound.includes(key) ? (
+                    <span className="block text-xs text-ember">ended on a bound: its σ is not a fair error</span>
+                  ) : null}
                 </th>
                 <td className="py-1 pr-3 tabular-nums">{fmt(startParams[key] as number)}</td>
                 <td className="py-1 pr-3 font-medium tabular-nums" data-testid={`fit-value-${key}`}>
@@ -105,8 +116,8 @@ export function FitReport({
       </div>
 
       <p className="text-sm" data-testid="fit-chi2">
-        χ² = {fmt(result.chi2)} with {result.dof} degrees of freedom; reduced χ² = {fmt(result.reducedChi2, 3)} ({result.points.length} points, {result.free.length} free
-        parameters, {result.iterations} iterations).
+        χ² = {fmt(result.chi2)} with {result.dof} degrees of freedom; reduced χ² = {fmt(result.reducedChi2, 3)} ({result.points.length}{" "}
+        points, {result.free.length} free parameters, {result.iterations} iterations).
       </p>
 
       {result.free.length > 1 ? <CorrelationTable result={result} /> : null}
@@ -122,7 +133,9 @@ function CorrelationTable({ result }: { result: FitResult }) {
   return (
     <div className="overflow-x-auto">
       <table className="text-sm" aria-label="Correlation matrix">
-        <caption className="pb-1 text-left text-xs text-ink-soft">Correlation of the fitted values (|r| near 1: the data trade one for the other)</caption>
+        <caption className="pb-1 text-left text-xs text-ink-soft">
+          Correlation of the fitted values (|r| near 1: the data trade one for the other)
+        </caption>
         <thead>
           <tr>
             <td />
@@ -142,7 +155,10 @@ function CorrelationTable({ result }: { result: FitResult }) {
               {result.free.map((col, j) => {
                 const r = result.correlation[i]![j]!;
                 return (
-                  <td key={col} className={`px-2 py-1 text-right tabular-nums ${i !== j && Math.abs(r) > 0.95 ? "font-semibold text-ember" : ""}`}>
+                  <td
+                    key={col}
+                    className={`px-2 py-1 text-right tabular-nums ${i !== j && Math.abs(r) > 0.95 ? "font-semibold text-ember" : ""}`}
+                  >
                     {r.toFixed(3)}
                   </td>
                 );
@@ -170,7 +186,15 @@ function ResidualPlot({ result }: { result: FitResult }) {
         <XAxis scale={x} type="linear" y={height - M.bottom} height={height - M.bottom - M.top} label="Wavelength (nm)" />
         <YAxis scale={y} type="linear" x={M.left} width={width - M.left - M.right} label="Residual / σ" />
         {[-2, 0, 2].map((level) => (
-          <line key={level} x1={M.left} x2={width - M.right} y1={y(level)} y2={y(level)} stroke={level === 0 ? "#1d2433" : "#8a94a6"} strokeDasharray={level === 0 ? undefined : "4 3"} />
+          <line
+            key={level}
+            x1={M.left}
+            x2={width - M.right}
+            y1={y(level)}
+            y2={y(level)}
+            stroke={level === 0 ? "#1d2433" : "#8a94a6"}
+            strokeDasharray={level === 0 ? undefined : "4 3"}
+          />
         ))}
         {result.points.map((p, i) => (
           <circle key={i} cx={x(p.wavelengthNm)} cy={y(p.normalizedResidual)} r={3} fill="#1f5fa8">
@@ -188,7 +212,8 @@ function ShareTable({ result }: { result: FitResult }) {
     <div className="max-h-80 overflow-auto rounded border border-ink/10">
       <table className="w-full min-w-[30rem] text-sm" aria-label="Magnetic share at every point">
         <caption className="px-2 py-1 text-left text-xs text-ink-soft">
-          Magnetic-dipole share |θm| / (|θe| + |θm|) at the fitted values, ± its standard error propagated from the covariance through the model&apos;s Jacobian.
+          Magnetic-dipole share |θm| / (|θe| + |θm|) at the fitted values, ± its standard error propagated from the covariance through the
+          model&apos;s Jacobian.
         </caption>
         <thead className="sticky top-0 bg-paper-raised">
           <tr className="text-left text-xs text-ink-soft">
@@ -226,11 +251,19 @@ function ShareTable({ result }: { result: FitResult }) {
  * conditions, to confirm the analytic path the fit used (physics-model.md §7).
  */
 function LlgCheck({ result, pool }: { result: FitResult; pool: WorkbenchPool | null }) {
-  const [state, setState] = useState<{ status: "running" | "done" | "failed"; deviation?: number; worst?: number; error?: string; count?: number }>({ status: "running" });
+  const [state, setState] = useState<{
+    status: "running" | "done" | "failed";
+    deviation?: number;
+    worst?: number;
+    error?: string;
+    count?: number;
+  }>({ status: "running" });
   useEffect(() => {
     if (!pool) return;
     const first = result.points[0]!;
-    const group = result.points.filter((p) => p.temperatureK === first.temperatureK && p.fieldT === first.fieldT && p.lengthM === first.lengthM);
+    const group = result.points.filter(
+      (p) => p.temperatureK === first.temperatureK && p.fieldT === first.fieldT && p.lengthM === first.lengthM,
+    );
     const wavelengthsNm = [...new Set(group.map((p) => p.wavelengthNm))].sort((a, b) => a - b);
     const controller = new AbortController();
     setState({ status: "running" });
@@ -266,7 +299,10 @@ function LlgCheck({ result, pool }: { result: FitResult; pool: WorkbenchPool | n
         <p className="text-ember">The numerical run failed: {state.error}</p>
       ) : (
         <div className="flex flex-wrap items-center gap-2">
-          <span data-testid="fit-llg-badge" className="rounded-full border border-lux bg-lux-light px-2.5 py-1 text-xs font-medium text-lux-dark">
+          <span
+            data-testid="fit-llg-badge"
+            className="rounded-full border border-lux bg-lux-light px-2.5 py-1 text-xs font-medium text-lux-dark"
+          >
             {numericalBadgeText(state.deviation)}
           </span>
           <span className="text-ink-soft">
@@ -278,21 +314,37 @@ function LlgCheck({ result, pool }: { result: FitResult; pool: WorkbenchPool | n
   );
 }
 
-function SaveFit({ result, startParams, set, measurementSets }: { result: FitResult; startParams: ModelParams; set: ParameterSet; measurementSets: { id: string; name: string }[] }) {
+function SaveFit({
+  result,
+  startParams,
+  set,
+  measurementSets,
+}: {
+  result: FitResult;
+  startParams: ModelParams;
+  set: ParameterSet;
+  measurementSets: { id: string; name: string }[];
+}) {
   const save = useSaveFit(set.id);
   const queryClient = useQueryClient();
   const canEdit = set.role === "owner" || set.role === "editor";
   // The saved version is the stored set with the fitted values; the fit must not have used other what-ifs.
   const stored = modelParamsSchema.safeParse(set.params).data ?? (set.params as ModelParams);
   // A switch that was never stored is off (physics-model §5.5), so undefined and false agree.
-  const sameValue = (a: unknown, b: unknown) => (typeof a === "boolean" || typeof b === "boolean" ? (a === true) === (b === true) : a === b);
-  const whatIfs = (Object.keys(startParams) as (keyof ModelParams)[]).filter((k) => !result.free.includes(k as never) && !sameValue(startParams[k], stored[k]));
+  const sameValue = (a: unknown, b: unknown) =>
+    typeof a === "boolean" || typeof b === "boolean" ? (a === true) === (b === true) : a === b;
+  const whatIfs = (Object.keys(startParams) as (keyof ModelParams)[]).filter(
+    (k) => !result.free.includes(k as never) && !sameValue(startParams[k], stored[k]),
+  );
   if (!canEdit) return <p className="text-sm text-ink-soft">Viewers cannot save a fit; an editor of the lab can.</p>;
   if (save.isSuccess) {
     return (
       <Alert tone="success" title={`Saved as version ${save.data.version}`}>
         The fitted values and the fit&apos;s provenance are stored.{" "}
-        <Link className="font-medium text-lux-dark underline underline-offset-4" href={`/parameter-sets/${encodeURIComponent(set.id)}/history`}>
+        <Link
+          className="font-medium text-lux-dark underline underline-offset-4"
+          href={`/parameter-sets/${encodeURIComponent(set.id)}/history`}
+        >
           See the version history
         </Link>{" "}
         or{" "}
@@ -308,8 +360,9 @@ function SaveFit({ result, startParams, set, measurementSets }: { result: FitRes
     <div className="space-y-2">
       {whatIfs.length > 0 ? (
         <p className="text-sm text-ember">
-          The fit started from what-if values that differ from the stored set ({whatIfs.map(labelOf).join(", ")}). Saving would store the fitted values with the stored
-          ones instead; reset those inputs to the stored values and fit again, or save the workbench as a new set.
+          The fit started from what-if values that differ from the stored set ({whatIfs.map(labelOf).join(", ")}). Saving would store the
+          fitted values with the stored ones instead; reset those inputs to the stored values and fit again, or save the workbench as a new
+          set.
         </p>
       ) : null}
       <Button

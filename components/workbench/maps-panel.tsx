@@ -75,7 +75,14 @@ interface MapData {
 
 /** What differs between the two maps; everything else is drawn the same way. */
 const MAP_VIEW: Record<MapKind, { title: string; yLabel: string; yName: string; yUnit: string; file: string; plotName: string }> = {
-  temperature: { title: "over wavelength × temperature", yLabel: "Temperature (K)", yName: "temperature", yUnit: "K", file: "map-temperature", plotName: "temperature map" },
+  temperature: {
+    title: "over wavelength × temperature",
+    yLabel: "Temperature (K)",
+    yName: "temperature",
+    yUnit: "K",
+    file: "map-temperature",
+    plotName: "temperature map",
+  },
   field: { title: "over wavelength × |field|", yLabel: "|B0| (T)", yName: "|B0|", yUnit: "T", file: "map-field", plotName: "field map" },
 };
 const MAP_KINDS: MapKind[] = ["temperature", "field"];
@@ -106,7 +113,10 @@ export function MapsPanel({
 
   useEffect(() => () => abort.current?.abort(), []);
 
-  const plans = params && range ? { temperature: planMap("temperature", method, params, range, fieldAxis), field: planMap("field", method, params, range, fieldAxis) } : null;
+  const plans =
+    params && range
+      ? { temperature: planMap("temperature", method, params, range, fieldAxis), field: planMap("field", method, params, range, fieldAxis) }
+      : null;
   const problemsAt = (control: MapProblem["control"]) => {
     if (!plans) return [];
     const all = [...plans.temperature.problems, ...plans.field.problems].filter((p) => p.control === control).map((p) => p.message);
@@ -177,17 +187,25 @@ export function MapsPanel({
   return (
     <div ref={wrapRef} className="space-y-4">
       <p className="text-sm text-ink-soft">
-        The magnetic share |θm| / (|θe| + |θm|), θ, θe, θm or the Verdet constant, computed in the worker pool, {MAP_COLS} log-spaced wavelengths over the
-        current range × {MAP_ROWS} rows; choose the quantity under each map. Dashed lines: the 50 % contour of the share, or where a signed quantity
-        changes sign. Colours: cividis (colour-blind safe, lightness rises with the value, so it also reads in grey). Where the quantity does not depend
-        on the map&apos;s second axis, the map says so and shows a curve against wavelength instead of stripes.
+        The magnetic share |θm| / (|θe| + |θm|), θ, θe, θm or the Verdet constant, computed in the worker pool, {MAP_COLS} log-spaced
+        wavelengths over the current range × {MAP_ROWS} rows; choose the quantity under each map. Dashed lines: the 50 % contour of the
+        share, or where a signed quantity changes sign. Colours: cividis (colour-blind safe, lightness rises with the value, so it also
+        reads in grey). Where the quantity does not depend on the map&apos;s second axis, the map says so and shows a curve against
+        wavelength instead of stripes.
       </p>
       <div className="flex flex-wrap items-start gap-6">
         <fieldset className="space-y-1 text-sm" aria-describedby={methodProblems.length > 0 ? methodErrorId : undefined}>
           <legend className="mb-1 text-xs font-semibold tracking-wide text-ink-soft uppercase">Map method</legend>
           {(Object.keys(MAP_METHOD_LABEL) as MapMethod[]).map((m) => (
             <label key={m} className="flex items-center gap-1.5">
-              <input type="radio" name={`${id}-method`} value={m} checked={method === m} disabled={running !== null} onChange={() => setMethod(m)} />
+              <input
+                type="radio"
+                name={`${id}-method`}
+                value={m}
+                checked={method === m}
+                disabled={running !== null}
+                onChange={() => setMethod(m)}
+              />
               {MAP_METHOD_LABEL[m]}
             </label>
           ))}
@@ -242,7 +260,12 @@ export function MapsPanel({
         </Button>
         {running ? (
           <>
-            <progress aria-label={`Map progress (${running.kind}, ${METHOD_SHORT[running.method]})`} value={progress} max={1} className="w-40" />
+            <progress
+              aria-label={`Map progress (${running.kind}, ${METHOD_SHORT[running.method]})`}
+              value={progress}
+              max={1}
+              className="w-40"
+            />
             <span className="text-xs tabular-nums text-ink-soft">{Math.round(progress * 100)} %</span>
             <Button variant="quiet" onClick={() => abort.current?.abort()}>
               Cancel map
@@ -251,8 +274,14 @@ export function MapsPanel({
         ) : null}
       </div>
       {!params || !range ? <p className="text-sm text-ember">Fix the flagged inputs first.</p> : null}
-      {error ? <Alert tone="warning" title="Map failed">{error}</Alert> : null}
-      {anyMap ? <p className="text-xs text-ink-soft">Maps are computed on request; recompute after changing parameters or the method.</p> : null}
+      {error ? (
+        <Alert tone="warning" title="Map failed">
+          {error}
+        </Alert>
+      ) : null}
+      {anyMap ? (
+        <p className="text-xs text-ink-soft">Maps are computed on request; recompute after changing parameters or the method.</p>
+      ) : null}
       {MAP_KINDS.map((kind) => {
         const map = maps[kind];
         return map ? <MapPlot key={kind} map={map} width={width} fileBase={fileBase} /> : null;
@@ -288,18 +317,29 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
   }, [values, ownRow, nx, quantity, qView.label]);
   // Stable, so the memoized heat map does not redraw while a new map's progress ticks.
   const describeCell = useCallback(
-    (x: number, y: number, v: number | null) => `Wavelength ${fmt(x)} nm, ${view.yName} ${fmt(y)} ${view.yUnit}: ${qView.short} ${formatQuantity(v, quantity)}`,
+    (x: number, y: number, v: number | null) =>
+      `Wavelength ${fmt(x)} nm, ${view.yName} ${fmt(y)} ${view.yUnit}: ${qView.short} ${formatQuantity(v, quantity)}`,
     [view, qView, quantity],
   );
   const formatLegend = useCallback((v: number) => (quantity === "share" ? `${Math.round(v * 100)} %` : fmtNum(v, 3)), [quantity]);
-  const unitNote = quantity === "verdet" ? "" : quantity === "share" ? "" : ` for L = ${fmt(map.lengthM * 1000)} mm${map.kind === "temperature" ? ` at ${fmt(map.fieldT)} T` : ""}`;
+  const unitNote =
+    quantity === "verdet"
+      ? ""
+      : quantity === "share"
+        ? ""
+        : ` for L = ${fmt(map.lengthM * 1000)} mm${map.kind === "temperature" ? ` at ${fmt(map.fieldT)} T` : ""}`;
   const title = `${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} ${view.title} (${METHOD_SHORT[map.method]})`;
   const noLevelText = quantity === "share" ? undefined : `${qView.short} keeps one sign over this map`;
   return (
     <figure className="space-y-1" data-testid={`share-map-${map.kind}`}>
       <label htmlFor={selectId} className="flex flex-wrap items-center gap-2 text-sm">
         <span className="font-medium">Show on the {view.plotName}</span>
-        <select id={selectId} className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux" value={quantity} onChange={(e) => setQuantity(e.target.value as MapQuantity)}>
+        <select
+          id={selectId}
+          className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux"
+          value={quantity}
+          onChange={(e) => setQuantity(e.target.value as MapQuantity)}
+        >
           {MAP_QUANTITIES.map((q) => (
             <option key={q} value={q}>
               {MAP_QUANTITY_VIEW[q].label}
@@ -309,7 +349,11 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
       </label>
       {independence.independent ? (
         <>
-          <p role="note" data-testid={`map-${map.kind}-independent`} className="max-w-3xl rounded-md border border-ink/15 bg-paper-sunk px-3 py-2 text-sm text-ink">
+          <p
+            role="note"
+            data-testid={`map-${map.kind}-independent`}
+            className="max-w-3xl rounded-md border border-ink/15 bg-paper-sunk px-3 py-2 text-sm text-ink"
+          >
             {independence.reason}
           </p>
           {change !== null ? (

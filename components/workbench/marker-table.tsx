@@ -63,19 +63,25 @@ function MarkerTableImpl({
           <caption className="px-3 pt-3 pb-1 text-left font-semibold">
             Values at markers
             <span className="ml-2 text-xs font-normal text-ink-soft">
-              ({methodLabel}; {yMode === "verdet" ? "per tesla and metre" : `rotations at B0 = ${geometry.fieldT} T and L = ${fmtLength(geometry.lengthM)}`})
+              ({methodLabel};{" "}
+              {yMode === "verdet" ? "per tesla and metre" : `rotations at B0 = ${geometry.fieldT} T and L = ${fmtLength(geometry.lengthM)}`}
+              )
             </span>
             {banner ? <span className="mt-0.5 block text-xs font-semibold text-ember">{banner}</span> : null}
           </caption>
           <thead className="text-left text-xs text-ink-soft">
             <tr className="border-b border-ink/10">
-              <th scope="col" className="px-2.5 py-2 font-medium">Wavelength</th>
+              <th scope="col" className="px-2.5 py-2 font-medium">
+                Wavelength
+              </th>
               {columns.map((c) => (
                 <th key={c.id} scope="col" className="px-2.5 py-2 font-medium">
                   {c.header}
                 </th>
               ))}
-              <th scope="col" className="px-2.5 py-2 font-medium"><span className="sr-only">Remove</span></th>
+              <th scope="col" className="px-2.5 py-2 font-medium">
+                <span className="sr-only">Remove</span>
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -111,7 +117,8 @@ function MarkerTableImpl({
         </table>
         {anyInterpolated || computing ? (
           <p role="status" className="px-3 pb-2 text-xs text-ink-soft">
-            Values in italics are interpolated between grid points{computing ? " while the exact value is computed…" : "; the exact value could not be computed for this result."}
+            Values in italics are interpolated between grid points
+            {computing ? " while the exact value is computed…" : "; the exact value could not be computed for this result."}
           </p>
         ) : null}
       </div>
@@ -143,7 +150,8 @@ function MarkerTableImpl({
           Reset to 632.8, 800, 1064, 1550 nm
         </Button>
         <p id="marker-add-hint" className="w-full text-xs text-ink-soft">
-          {MARKER_MIN_NM}–{MARKER_MAX_NM} nm, at most {MAX_MARKERS} markers. Adding one reads its values from the spectrum on screen; nothing is recomputed.
+          {MARKER_MIN_NM}–{MARKER_MAX_NM} nm, at most {MAX_MARKERS} markers. Adding one reads its values from the spectrum on screen;
+          nothing is recomputed.
         </p>
         {error ? (
           <p id="marker-add-error" role="alert" className="w-full text-xs text-ember">
@@ -159,19 +167,22 @@ function MarkerTableImpl({
 /** Short and factual: the L45 figures invite building a rotator, which means magnets, lasers and maybe cryogens. */
 export function SafetyNote() {
   return (
-    <aside aria-label="Safety note" className="rounded-md border border-ink/10 bg-paper-sunk px-3 py-2 text-xs leading-relaxed text-ink-soft">
+    <aside
+      aria-label="Safety note"
+      className="rounded-md border border-ink/10 bg-paper-sunk px-3 py-2 text-xs leading-relaxed text-ink-soft"
+    >
       <strong className="font-semibold text-ink">Safety, before building a rotator from these numbers:</strong>
       <ul className="mt-1 list-disc space-y-0.5 pl-4">
         <li>
           Laser: check the laser&apos;s safety class, and wear eyewear rated for its wavelength and power whenever the beam path is open.
         </li>
         <li>
-          Magnet: strong fields attract ferromagnetic tools and objects and can disturb pacemakers and other implants. Mark the
-          stray-field zone and keep people with implants out of it.
+          Magnet: strong fields attract ferromagnetic tools and objects and can disturb pacemakers and other implants. Mark the stray-field
+          zone and keep people with implants out of it.
         </li>
         <li>
-          Cryogens, for low-temperature runs: they cause cold burns and can displace oxygen. Wear a face shield and cryogenic gloves
-          and work in a ventilated room.
+          Cryogens, for low-temperature runs: they cause cold burns and can displace oxygen. Wear a face shield and cryogenic gloves and
+          work in a ventilated room.
         </li>
         <li>Your local rules and your laser safety officer take precedence over this note.</li>
       </ul>

@@ -183,7 +183,8 @@ export const MeasurementOverlayPicker = memo(function MeasurementOverlayPicker({
           </fieldset>
           {chosen.length > 0 ? (
             <p className="mt-2 text-xs text-ink-soft" data-testid="overlay-conversion">
-              Points with ±σ error bars. {describeConversion({ yMode, geometry, quantities })} Points outside the plotted range are not drawn.
+              Points with ±σ error bars. {describeConversion({ yMode, geometry, quantities })} Points outside the plotted range are not
+              drawn.
               {otherTemperature.length > 0
                 ? ` ${otherTemperature.map((s) => `“${s.name}”`).join(", ")} ${otherTemperature.length === 1 ? "has" : "have"} points at temperatures other than the curve's ${fmt(temperatureK, 5)} K.`
                 : ""}

@@ -87,17 +87,24 @@ export function RunStatusBar({
           </span>
         ) : shown ? (
           <span className="rounded-full border border-ink/20 bg-paper-sunk px-2.5 py-1 text-ink-soft">
-            analytic preview{shown.result.points.length < shown.requestedPoints ? ` on ${shown.result.points.length} of ${shown.requestedPoints} points` : ""}
+            analytic preview
+            {shown.result.points.length < shown.requestedPoints
+              ? ` on ${shown.result.points.length} of ${shown.requestedPoints} points`
+              : ""}
           </span>
         ) : null}
         {scaleLabel ? (
-          <span data-testid="magnetic-scale-label" className="rounded-full border border-ember bg-ember-light px-2.5 py-1 font-semibold text-ember">
+          <span
+            data-testid="magnetic-scale-label"
+            className="rounded-full border border-ember bg-ember-light px-2.5 py-1 font-semibold text-ember"
+          >
             {scaleLabel}
           </span>
         ) : null}
         {m0 !== undefined ? (
           <span className="rounded-full border border-ink/15 px-2.5 py-1 text-ink-soft">
-            M0 = {fmt(m0)} A/m (μ0M0 = {fmt(MU0 * m0)} T) · source: mean-field Brillouin from N, g, J, θCW (long rod, no demagnetizing field)
+            M0 = {fmt(m0)} A/m (μ0M0 = {fmt(MU0 * m0)} T) · source: mean-field Brillouin from N, g, J, θCW (long rod, no demagnetizing
+            field)
           </span>
         ) : null}
       </div>

@@ -45,7 +45,12 @@ export function SaveAsNew({ params, defaultName }: { params: ModelParams | null;
 
   if (!open) {
     return (
-      <Button variant="secondary" onClick={() => setOpen(true)} disabled={!params} title={params ? undefined : "Fix the flagged inputs first"}>
+      <Button
+        variant="secondary"
+        onClick={() => setOpen(true)}
+        disabled={!params}
+        title={params ? undefined : "Fix the flagged inputs first"}
+      >
         Save as new parameter set
       </Button>
     );
@@ -55,7 +60,12 @@ export function SaveAsNew({ params, defaultName }: { params: ModelParams | null;
   const nameError = (tried ? clientNameError : undefined) ?? serverNameError;
   const otherError = create.isError && !serverNameError ? describeError(create.error) : null;
   return (
-    <form onSubmit={submit} noValidate aria-label="Save as new parameter set" className="flex flex-wrap items-end gap-2 rounded-lg border border-ink/10 bg-paper-raised p-3">
+    <form
+      onSubmit={submit}
+      noValidate
+      aria-label="Save as new parameter set"
+      className="flex flex-wrap items-end gap-2 rounded-lg border border-ink/10 bg-paper-raised p-3"
+    >
       <div>
         <label htmlFor="save-name" className="block text-sm font-medium">
           Name

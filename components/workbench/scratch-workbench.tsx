@@ -13,7 +13,13 @@ const subscribe = () => () => {};
  * hydration, because the remembered view lives in localStorage, which the server cannot see.
  */
 export function ScratchWorkbench() {
-  const mounted = useSyncExternalStore(subscribe, () => true, () => false);
+  const mounted = useSyncExternalStore(
+    subscribe,
+    () => true,
+    () => false,
+  );
   if (!mounted) return <SkeletonRows rows={6} label="Loading the workbench…" />;
-  return <Workbench set={null} initialParams={TERBIUM_GARNET_DEFAULTS} view={{ initial: readLocalViewState(null), shared: null, own: false }} />;
+  return (
+    <Workbench set={null} initialParams={TERBIUM_GARNET_DEFAULTS} view={{ initial: readLocalViewState(null), shared: null, own: false }} />
+  );
 }

@@ -84,12 +84,28 @@ function SpectrumPanelsImpl({
     const keys: SeriesKey[] = [...TOGGLES.filter((k) => on[k]), ...(showEllipticity ? (["ellipticity"] as const) : [])];
     return keys.map((k) => {
       const s = SERIES_STYLE[k];
-      return { key: k, label: k === "ellipticity" ? "Ellipticity angle atan(tanh η)" : s.label, color: s.color, dash: s.dash, width: s.width, values: seriesValues(points, k, yMode, geometry) };
+      return {
+        key: k,
+        label: k === "ellipticity" ? "Ellipticity angle atan(tanh η)" : s.label,
+        color: s.color,
+        dash: s.dash,
+        width: s.width,
+        values: seriesValues(points, k, yMode, geometry),
+      };
     });
   }, [points, on, showEllipticity, yMode, geometry]);
 
   const shareSeries = useMemo<PlotSeries[]>(
-    () => [{ key: "share", label: "Magnetic share", color: SERIES_STYLE.magnetic.color, dash: undefined, width: 2.2, values: points.map((p) => (p.magneticShare === null ? null : p.magneticShare * 100)) }],
+    () => [
+      {
+        key: "share",
+        label: "Magnetic share",
+        color: SERIES_STYLE.magnetic.color,
+        dash: undefined,
+        width: 2.2,
+        values: points.map((p) => (p.magneticShare === null ? null : p.magneticShare * 100)),
+      },
+    ],
     [points],
   );
 
@@ -140,7 +156,10 @@ function SpectrumPanelsImpl({
     setPickError(checked.error);
     if (checked.error === null) onAddMarker(nm);
   };
-  const rangeNm = useMemo(() => (points.length > 0 ? ([points[0]!.wavelengthNm, points[points.length - 1]!.wavelengthNm] as const) : null), [points]);
+  const rangeNm = useMemo(
+    () => (points.length > 0 ? ([points[0]!.wavelengthNm, points[points.length - 1]!.wavelengthNm] as const) : null),
+    [points],
+  );
   const layers = useMeasurementLayers({ setIds: overlaySetIds, xUnit, yMode, yUnit: Y_UNIT_SHORT[yMode], geometry, rangeNm });
   const cp = cursor !== null ? points[cursor] : undefined;
   const yUnit = Y_UNIT_SHORT[yMode];
@@ -164,7 +183,12 @@ function SpectrumPanelsImpl({
   return (
     <section aria-label="Spectrum" className="space-y-3">
       <div className="flex flex-wrap items-end gap-x-4 gap-y-2 text-sm">
-        <AxisSelect label="x axis" value={xUnit} options={X_UNITS.map((u) => [u, X_AXIS_TITLE[u]])} onChange={(u) => onView({ xUnit: u })} />
+        <AxisSelect
+          label="x axis"
+          value={xUnit}
+          options={X_UNITS.map((u) => [u, X_AXIS_TITLE[u]])}
+          onChange={(u) => onView({ xUnit: u })}
+        />
         <AxisSelect
           label="x scale"
           value={xScale}
@@ -174,14 +198,27 @@ function SpectrumPanelsImpl({
           ]}
           onChange={(scale) => onView({ xScale: scale })}
         />
-        <AxisSelect label="y axis" value={yMode} options={Y_MODES.map((m) => [m, Y_MODE_LABEL[m]])} onChange={(m) => onView({ yMode: m })} />
+        <AxisSelect
+          label="y axis"
+          value={yMode}
+          options={Y_MODES.map((m) => [m, Y_MODE_LABEL[m]])}
+          onChange={(m) => onView({ yMode: m })}
+        />
         <fieldset className="flex flex-wrap items-center gap-3">
           <legend className="sr-only">Curves</legend>
           {TOGGLES.map((k) => (
             <label key={k} className="flex items-center gap-1.5">
               <input type="checkbox" checked={on[k]} onChange={(e) => onView({ series: { ...on, [k]: e.target.checked } })} />
               <svg width="26" height="8" aria-hidden="true">
-                <line x1="1" x2="25" y1="4" y2="4" stroke={SERIES_STYLE[k].color} strokeWidth={SERIES_STYLE[k].width} strokeDasharray={SERIES_STYLE[k].dash} />
+                <line
+                  x1="1"
+                  x2="25"
+                  y1="4"
+                  y2="4"
+                  stroke={SERIES_STYLE[k].color}
+                  strokeWidth={SERIES_STYLE[k].width}
+                  strokeDasharray={SERIES_STYLE[k].dash}
+                />
               </svg>
               {SERIES_STYLE[k].label}
             </label>
@@ -217,24 +254,43 @@ function SpectrumPanelsImpl({
       </div>
 
       <div ref={wrapRef} className="space-y-2">
-        <LinePlot {...shared} title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`} yLabel={yLabel} series={series} height={340} svgRef={spectrumSvg} layers={layers} />
+        <LinePlot
+          {...shared}
+          title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`}
+          yLabel={yLabel}
+          series={series}
+          height={340}
+          svgRef={spectrumSvg}
+          layers={layers}
+        />
         <PlotExportButtons svgRef={spectrumSvg} fileBase={`${fileBase}-spectrum`} plotName="spectrum plot" />
 
         <div id="spectrum-readout" aria-live="polite" className="min-h-12 rounded-md bg-paper-sunk px-3 py-2 text-xs tabular-nums text-ink">
           {cp ? (
             <dl className="grid grid-cols-2 gap-x-4 gap-y-0.5 sm:grid-cols-4">
-              <Readout term="λ" value={`${fmt(cp.wavelengthNm, 5)} nm (${fmt(fromNm(cp.wavelengthNm, xUnit), 5)} ${X_UNIT_LABEL[xUnit]})`} />
+              <Readout
+                term="λ"
+                value={`${fmt(cp.wavelengthNm, 5)} nm (${fmt(fromNm(cp.wavelengthNm, xUnit), 5)} ${X_UNIT_LABEL[xUnit]})`}
+              />
               <Readout term="θ" value={`${fmt(rotationTo(cp.thetaRad, yMode, geometry))} ${yUnit}`} />
               <Readout term="θe" value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
               <Readout term="θm" value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
               <Readout term="θx" value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="Ellipticity angle" value={`${fmt(rotationTo(cp.ellipticityAngleRad ?? cp.ellipticityRad, yMode, geometry))} ${yUnit}${Math.abs(cp.ellipticityRad) > 0.1 ? " (η large)" : ""}`} />
-              <Readout term="T+ / T−" value={`${formatTransmission(cp.transmissionPlus ?? null)} / ${formatTransmission(cp.transmissionMinus ?? null)}`} />
+              <Readout
+                term="Ellipticity angle"
+                value={`${fmt(rotationTo(cp.ellipticityAngleRad ?? cp.ellipticityRad, yMode, geometry))} ${yUnit}${Math.abs(cp.ellipticityRad) > 0.1 ? " (η large)" : ""}`}
+              />
+              <Readout
+                term="T+ / T−"
+                value={`${formatTransmission(cp.transmissionPlus ?? null)} / ${formatTransmission(cp.transmissionMinus ?? null)}`}
+              />
               <Readout term="Magnetic share" value={fmtPercent(cp.magneticShare)} />
               <Readout term="V" value={`${fmt(cp.verdetRadPerTm)} rad/(T·m)`} />
             </dl>
           ) : (
-            <p className="text-ink-soft">Point at a plot, or focus it and use the arrow keys, to read all values; click or press Enter to add a marker there.</p>
+            <p className="text-ink-soft">
+              Point at a plot, or focus it and use the arrow keys, to read all values; click or press Enter to add a marker there.
+            </p>
           )}
           {pickError ? (
             <p role="alert" className="mt-1 text-ember">
@@ -269,7 +325,17 @@ function SpectrumPanelsImpl({
 }
 
 /** A labelled select of the plot controls; the visible text is the control's accessible name. */
-function AxisSelect<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: readonly (readonly [T, string])[]; onChange: (value: T) => void }) {
+function AxisSelect<T extends string>({
+  label,
+  value,
+  options,
+  onChange,
+}: {
+  label: string;
+  value: T;
+  options: readonly (readonly [T, string])[];
+  onChange: (value: T) => void;
+}) {
   return (
     <label className="flex flex-col gap-1">
       <span className="text-xs font-medium text-ink-soft">{label}</span>

@@ -19,7 +19,8 @@ type TraceView = ViewState["spinTrace"];
 /** Intensities for the static ΔMz curve: 1e12 … 1e17 W/m² in half decades. */
 const INTENSITIES = Array.from({ length: 11 }, (_, i) => 10 ** (12 + i / 2));
 
-const INPUT = "mt-1 w-40 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
+const INPUT =
+  "mt-1 w-40 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
 
 interface ComplexValue {
   re: number;
@@ -49,13 +50,23 @@ export function SpinTracePanel({
   onView: (next: TraceView) => void;
   fileBase: string;
 }) {
-  const [drafts, setDrafts] = useState({ wavelengthNm: String(view.wavelengthNm), intensityWPerM2: String(view.intensityWPerM2), periods: String(view.periods) });
+  const [drafts, setDrafts] = useState({
+    wavelengthNm: String(view.wavelengthNm),
+    intensityWPerM2: String(view.intensityWPerM2),
+    periods: String(view.periods),
+  });
   // Each result keeps the magneticScale label of the parameters it was computed from (§4.3).
   // Each result also keeps the inputs it came from, so it can be marked stale when they change.
   const [trace, setTrace] = useState<(SpinTraceResult & { banner: string | null; inputs: TraceInputs }) | null>(null);
   const [traceState, setTraceState] = useState<"idle" | "running" | "failed">("idle");
   const [traceError, setTraceError] = useState<string | null>(null);
-  const [curve, setCurve] = useState<{ intensity: number[]; plus: (number | null)[]; minus: (number | null)[]; banner: string | null; inputs: TraceInputs } | null>(null);
+  const [curve, setCurve] = useState<{
+    intensity: number[];
+    plus: (number | null)[];
+    minus: (number | null)[];
+    banner: string | null;
+    inputs: TraceInputs;
+  } | null>(null);
   const [curveProgress, setCurveProgress] = useState<number | null>(null);
   const [curveError, setCurveError] = useState<string | null>(null);
   const abort = useRef<AbortController | null>(null);
@@ -75,7 +86,12 @@ export function SpinTracePanel({
   const currentInputs = request?.success ? traceInputsOf(request.data) : null;
   const traceStale = trace ? staleText("trace", trace.inputs, currentInputs) : null;
   const curveStale = curve ? staleText("ΔMz curve", curve.inputs, params && wl !== null ? { params, wavelengthNm: wl } : null) : null;
-  const fieldError = (k: string) => (issue && issue.path[0] === k ? issue.message : drafts[k as keyof typeof drafts] !== undefined && parseNumber(drafts[k as keyof typeof drafts]) === null ? "must be a number" : null);
+  const fieldError = (k: string) =>
+    issue && issue.path[0] === k
+      ? issue.message
+      : drafts[k as keyof typeof drafts] !== undefined && parseNumber(drafts[k as keyof typeof drafts]) === null
+        ? "must be a number"
+        : null;
 
   const runTrace = () => {
     if (!pool || !request?.success) return;
@@ -103,7 +119,9 @@ export function SpinTracePanel({
   const curveRequests = (() => {
     if (!params || wl === null) return null;
     try {
-      return INTENSITIES.map((intensityWPerM2) => checkedSpectrumRequest({ ...params, wavelengthsNm: [wl], method: "llg", intensityWPerM2 }));
+      return INTENSITIES.map((intensityWPerM2) =>
+        checkedSpectrumRequest({ ...params, wavelengthsNm: [wl], method: "llg", intensityWPerM2 }),
+      );
     } catch {
       return null;
     }
@@ -146,7 +164,16 @@ export function SpinTracePanel({
         { key: "ux", label: "ux", color: COMPONENT_COLORS.ux, dash: undefined, width: 1.8, values: Array.from(trace.ux) },
         { key: "uy", label: "uy", color: COMPONENT_COLORS.uy, dash: "6 3", width: 1.8, values: Array.from(trace.uy) },
       ],
-      uz: [{ key: "uz", label: `uz − (${s})`, color: COMPONENT_COLORS.uz, dash: undefined, width: 1.8, values: Array.from(trace.uz, (v) => v - s) }],
+      uz: [
+        {
+          key: "uz",
+          label: `uz − (${s})`,
+          color: COMPONENT_COLORS.uz,
+          dash: undefined,
+          width: 1.8,
+          values: Array.from(trace.uz, (v) => v - s),
+        },
+      ],
     };
   }, [trace]);
 
@@ -154,8 +181,22 @@ export function SpinTracePanel({
     () =>
       curve
         ? [
-            { key: "plus", label: "|ΔMz| under the “+” drive", color: SERIES_STYLE.magnetic.color, dash: undefined, width: 2, values: curve.plus },
-            { key: "minus", label: "|ΔMz| under the “−” drive", color: SERIES_STYLE.electric.color, dash: "8 4", width: 2, values: curve.minus },
+            {
+              key: "plus",
+              label: "|ΔMz| under the “+” drive",
+              color: SERIES_STYLE.magnetic.color,
+              dash: undefined,
+              width: 2,
+              values: curve.plus,
+            },
+            {
+              key: "minus",
+              label: "|ΔMz| under the “−” drive",
+              color: SERIES_STYLE.electric.color,
+              dash: "8 4",
+              width: 2,
+              values: curve.minus,
+            },
           ]
         : null,
     [curve],
@@ -202,55 +243,101 @@ export function SpinTracePanel({
         </Button>
       </div>
       {!params ? <p className="text-sm text-ember">Fix the flagged parameters first.</p> : null}
-      {traceError ? <Alert tone="warning" title="Spin trace failed">{traceError}</Alert> : null}
+      {traceError ? (
+        <Alert tone="warning" title="Spin trace failed">
+          {traceError}
+        </Alert>
+      ) : null}
 
       {trace && traceSeries ? (
         <div data-testid="spin-trace-result" data-stale={traceStale ? "true" : "false"} className="space-y-3">
           {traceStale ? (
-            <p role="status" data-testid="spin-trace-stale" className="rounded-md border border-ember bg-ember-light px-3 py-2 text-sm text-ink">
+            <p
+              role="status"
+              data-testid="spin-trace-stale"
+              className="rounded-md border border-ember bg-ember-light px-3 py-2 text-sm text-ink"
+            >
               {traceStale}
             </p>
           ) : null}
           <div className={traceStale ? "space-y-3 opacity-60" : "space-y-3"}>
-          <LinePlot title={`Transverse magnetization after switch-on at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`} xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="u (1)" series={traceSeries.uxy} width={width} height={240} banner={trace.banner} svgRef={svgA} />
-          <PlotExportButtons svgRef={svgA} fileBase={`${fileBase}-spin-trace-uxy`} plotName="transverse magnetization plot" />
-          <LinePlot title={`Longitudinal magnetization: uz − s at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`} xs={traceSeries.xs} xType="linear" xLabel="Time (drive periods)" yLabel="uz − s (1)" series={traceSeries.uz} width={width} height={200} legend={false} svgRef={svgB} />
-          <PlotExportButtons svgRef={svgB} fileBase={`${fileBase}-spin-trace-uz`} plotName="longitudinal magnetization plot" />
-          <table className="w-full max-w-3xl text-sm tabular-nums">
-            <caption className="text-left font-semibold">
-              Susceptibility at {fmt(trace.inputs.wavelengthNm, 5)} nm{traceStale ? " (stale)" : ""}
-              {trace.banner ? <span className="ml-2 text-xs font-semibold text-ember">{trace.banner}</span> : null}
-            </caption>
-            <thead className="text-left text-xs text-ink-soft">
-              <tr>
-                <th scope="col" className="py-1 pr-3 font-medium">Mode</th>
-                <th scope="col" className="py-1 pr-3 font-medium">χ from the trace (LLG)</th>
-                <th scope="col" className="py-1 pr-3 font-medium">χ analytic (Polder)</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Relative deviation</th>
-                <th scope="col" className="py-1 font-medium">Static ΔMz (A/m)</th>
-              </tr>
-            </thead>
-            <tbody>
-              <tr>
-                <th scope="row" className="py-1 pr-3 text-left font-medium">“+”</th>
-                <td className="py-1 pr-3">{fmtComplex(trace.chiPlus)}</td>
-                <td className="py-1 pr-3">{fmtComplex(trace.chiPlusAnalytic)}</td>
-                <td className="py-1 pr-3">{fmt(relDev(trace.chiPlus, trace.chiPlusAnalytic), 2)}</td>
-                <td className="py-1">{fmt(trace.deltaMzPlusAPerM)}</td>
-              </tr>
-              <tr>
-                <th scope="row" className="py-1 pr-3 text-left font-medium">“−”</th>
-                <td className="py-1 pr-3">{fmtComplex(trace.chiMinus)}</td>
-                <td className="py-1 pr-3">{fmtComplex(trace.chiMinusAnalytic)}</td>
-                <td className="py-1 pr-3">{fmt(relDev(trace.chiMinus, trace.chiMinusAnalytic), 2)}</td>
-                <td className="py-1">{fmt(trace.deltaMzMinusAPerM)}</td>
-              </tr>
-            </tbody>
-          </table>
+            <LinePlot
+              title={`Transverse magnetization after switch-on at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`}
+              xs={traceSeries.xs}
+              xType="linear"
+              xLabel="Time (drive periods)"
+              yLabel="u (1)"
+              series={traceSeries.uxy}
+              width={width}
+              height={240}
+              banner={trace.banner}
+              svgRef={svgA}
+            />
+            <PlotExportButtons svgRef={svgA} fileBase={`${fileBase}-spin-trace-uxy`} plotName="transverse magnetization plot" />
+            <LinePlot
+              title={`Longitudinal magnetization: uz − s at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`}
+              xs={traceSeries.xs}
+              xType="linear"
+              xLabel="Time (drive periods)"
+              yLabel="uz − s (1)"
+              series={traceSeries.uz}
+              width={width}
+              height={200}
+              legend={false}
+              svgRef={svgB}
+            />
+            <PlotExportButtons svgRef={svgB} fileBase={`${fileBase}-spin-trace-uz`} plotName="longitudinal magnetization plot" />
+            <table className="w-full max-w-3xl text-sm tabular-nums">
+              <caption className="text-left font-semibold">
+                Susceptibility at {fmt(trace.inputs.wavelengthNm, 5)} nm{traceStale ? " (stale)" : ""}
+                {trace.banner ? <span className="ml-2 text-xs font-semibold text-ember">{trace.banner}</span> : null}
+              </caption>
+              <thead className="text-left text-xs text-ink-soft">
+                <tr>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    Mode
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    χ from the trace (LLG)
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    χ analytic (Polder)
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    Relative deviation
+                  </th>
+                  <th scope="col" className="py-1 font-medium">
+                    Static ΔMz (A/m)
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                <tr>
+                  <th scope="row" className="py-1 pr-3 text-left font-medium">
+                    “+”
+                  </th>
+                  <td className="py-1 pr-3">{fmtComplex(trace.chiPlus)}</td>
+                  <td className="py-1 pr-3">{fmtComplex(trace.chiPlusAnalytic)}</td>
+                  <td className="py-1 pr-3">{fmt(relDev(trace.chiPlus, trace.chiPlusAnalytic), 2)}</td>
+                  <td className="py-1">{fmt(trace.deltaMzPlusAPerM)}</td>
+                </tr>
+                <tr>
+                  <th scope="row" className="py-1 pr-3 text-left font-medium">
+                    “−”
+                  </th>
+                  <td className="py-1 pr-3">{fmtComplex(trace.chiMinus)}</td>
+                  <td className="py-1 pr-3">{fmtComplex(trace.chiMinusAnalytic)}</td>
+                  <td className="py-1 pr-3">{fmt(relDev(trace.chiMinus, trace.chiMinusAnalytic), 2)}</td>
+                  <td className="py-1">{fmt(trace.deltaMzMinusAPerM)}</td>
+                </tr>
+              </tbody>
+            </table>
           </div>
         </div>
       ) : traceState === "running" ? (
-        <p role="status" className="text-sm text-ink-soft">Integrating the LLG equation in a worker…</p>
+        <p role="status" className="text-sm text-ink-soft">
+          Integrating the LLG equation in a worker…
+        </p>
       ) : (
         <p className="text-sm text-ink-soft">No trace yet. Choose a wavelength and intensity and run it.</p>
       )}
@@ -260,11 +347,13 @@ export function SpinTracePanel({
           <Button variant="secondary" onClick={() => void runCurve()} disabled={!pool || !curveRequests || curveProgress !== null}>
             ΔMz against intensity at {wl ?? "–"} nm
           </Button>
-          {curveProgress !== null ? (
-            <progress aria-label="ΔMz curve progress" value={curveProgress} max={1} className="w-48" />
-          ) : null}
+          {curveProgress !== null ? <progress aria-label="ΔMz curve progress" value={curveProgress} max={1} className="w-48" /> : null}
         </div>
-        {curveError ? <Alert tone="warning" title="ΔMz curve failed">{curveError}</Alert> : null}
+        {curveError ? (
+          <Alert tone="warning" title="ΔMz curve failed">
+            {curveError}
+          </Alert>
+        ) : null}
         {curve && curveSeries ? (
           <div data-stale={curveStale ? "true" : "false"} className="space-y-2">
             {curveStale ? (
@@ -285,7 +374,9 @@ export function SpinTracePanel({
               banner={curve.banner}
               svgRef={svgC}
             />
-            <p className="text-xs text-ink-soft">ΔMz has the opposite sign to M0 (the cone shortens Mz, §4.5); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.</p>
+            <p className="text-xs text-ink-soft">
+              ΔMz has the opposite sign to M0 (the cone shortens Mz, §4.5); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.
+            </p>
             <PlotExportButtons svgRef={svgC} fileBase={`${fileBase}-delta-mz`} plotName="ΔMz against intensity plot" />
           </div>
         ) : null}

@@ -29,7 +29,15 @@ interface Cache {
   points: ReadonlyMap<number, SpectrumPoint>;
 }
 
-export function useMarkerValues({ shown, markersNm, pool }: { shown: ComputedSpectrum | null; markersNm: readonly number[]; pool: WorkbenchPool | null }): {
+export function useMarkerValues({
+  shown,
+  markersNm,
+  pool,
+}: {
+  shown: ComputedSpectrum | null;
+  markersNm: readonly number[];
+  pool: WorkbenchPool | null;
+}): {
   rows: MarkerRow[];
   computing: boolean;
 } {

@@ -61,7 +61,12 @@ export function ViewControls({
         {status === "error" && error ? `: ${error}` : ""}
         {notice ? ` ${notice}` : ""}
       </span>
-      <Button variant="quiet" className="text-xs" disabled={resetting || status === "default" || status === "lab"} onClick={() => setAsking("reset")}>
+      <Button
+        variant="quiet"
+        className="text-xs"
+        disabled={resetting || status === "default" || status === "lab"}
+        onClick={() => setAsking("reset")}
+      >
         Reset view
       </Button>
       {canShare ? (
@@ -90,10 +95,12 @@ export function ViewControls({
         pending={sharing}
         error={asking === "share" ? actionError : null}
         onCancel={() => setAsking(null)}
-        onConfirm={() => run(onShare, `Shared with the lab at ${new Date().toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}.`)}
+        onConfirm={() =>
+          run(onShare, `Shared with the lab at ${new Date().toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}.`)
+        }
       >
-        Everyone in the lab who has not saved a view of their own will start from this one (axes, units, markers, open panels,
-        spin-trace inputs, range). Their own views are not changed.
+        Everyone in the lab who has not saved a view of their own will start from this one (axes, units, markers, open panels, spin-trace
+        inputs, range). Their own views are not changed.
       </ConfirmDialog>
     </div>
   );

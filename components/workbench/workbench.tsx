@@ -105,7 +105,10 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
   );
 
   // A stable request object per distinct input, so memoized children and the run hook see changes only when something changed.
-  const built = useMemo(() => (params && range ? buildRequest(params, range, "llg") : { request: null, rangeError: null }), [params, range]);
+  const built = useMemo(
+    () => (params && range ? buildRequest(params, range, "llg") : { request: null, rangeError: null }),
+    [params, range],
+  );
   const run = useSpectrumRun({ request: built.request, pool });
   const markerValues = useMarkerValues({ shown: run.shown, markersNm: viewState.markersNm, pool });
   const markerPoints = useMemo(() => markerValues.rows.flatMap((r) => (r.point ? [r.point] : [])), [markerValues.rows]);
@@ -132,10 +135,15 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
 
   const addMarker = useCallback(
     (nm: number) =>
-      setViewState((v) => (checkMarkerNm(nm, v.markersNm, MAX_MARKERS).error !== null ? v : { ...v, markersNm: normalizeMarkers([...v.markersNm, nm]) })),
+      setViewState((v) =>
+        checkMarkerNm(nm, v.markersNm, MAX_MARKERS).error !== null ? v : { ...v, markersNm: normalizeMarkers([...v.markersNm, nm]) },
+      ),
     [setViewState],
   );
-  const removeMarker = useCallback((nm: number) => setViewState((v) => ({ ...v, markersNm: v.markersNm.filter((m) => m !== nm) })), [setViewState]);
+  const removeMarker = useCallback(
+    (nm: number) => setViewState((v) => ({ ...v, markersNm: v.markersNm.filter((m) => m !== nm) })),
+    [setViewState],
+  );
   const resetMarkers = useCallback(() => setViewState((v) => ({ ...v, markersNm: [...DEFAULT_MARKERS_NM] })), [setViewState]);
   const [overlayIds, setOverlayIds] = useState<string[]>([]);
   const togglePanel = (k: PanelKey, on: boolean) => setViewState((v) => ({ ...v, panels: { ...v.panels, [k]: on } }));
@@ -162,23 +170,28 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
           </p>
           {set ? <p className="mt-1 text-xs text-ink-soft">Parameter edits here are what-ifs and do not change the stored set.</p> : null}
           {shared ? null : (
-          <ViewControls
-            status={views.saveStatus}
-            error={views.saveError}
-            scratch={!set}
-            canShare={set !== null && set.role !== "viewer"}
-            resetting={views.resetting}
-            sharing={views.sharing}
-            onReset={views.resetView}
-            onShare={views.shareView}
-          />
+            <ViewControls
+              status={views.saveStatus}
+              error={views.saveError}
+              scratch={!set}
+              canShare={set !== null && set.role !== "viewer"}
+              resetting={views.resetting}
+              sharing={views.sharing}
+              onReset={views.resetView}
+              onShare={views.shareView}
+            />
           )}
         </div>
-        {!shared && (!set || set.role !== "viewer") ? <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} /> : null}
+        {!shared && (!set || set.role !== "viewer") ? (
+          <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} />
+        ) : null}
       </header>
 
       <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
-        <aside aria-label="Parameters" className="space-y-6 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:pr-2">
+        <aside
+          aria-label="Parameters"
+          className="space-y-6 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:pr-2"
+        >
           <RangeControls drafts={rangeDrafts} errors={rangeErrors} requestError={built.rangeError} onChange={onRange} />
           <ParameterPanel drafts={drafts} errors={errors} onChange={onParam} />
         </aside>
@@ -211,7 +224,15 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
                 overlaySetIds={overlayIds}
               />
               <OpaqueNote points={run.shown.result.points} lengthM={geometry.lengthM} />
-              {shared ? null : <MeasurementOverlayPicker selected={overlayIds} onChange={setOverlayIds} yMode={viewState.yMode} geometry={geometry} temperatureK={shownParams.temperatureK} />}
+              {shared ? null : (
+                <MeasurementOverlayPicker
+                  selected={overlayIds}
+                  onChange={setOverlayIds}
+                  yMode={viewState.yMode}
+                  geometry={geometry}
+                  temperatureK={shownParams.temperatureK}
+                />
+              )}
               <MarkerTable
                 rows={markerValues.rows}
                 computing={markerValues.computing}
@@ -224,9 +245,24 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
                 onRemove={removeMarker}
                 onReset={resetMarkers}
               />
-              <ExportBar shown={run.shown} setName={setName} setId={set?.id ?? null} version={set?.version ?? null} fileBase={fileBase} display={viewState} />
+              <ExportBar
+                shown={run.shown}
+                setName={setName}
+                setId={set?.id ?? null}
+                version={set?.version ?? null}
+                fileBase={fileBase}
+                display={viewState}
+              />
               <PanelFrame title="Absorption and transmission">
-                <AbsorptionPanel points={run.shown.result.points} markerPoints={markerPoints} lengthM={geometry.lengthM} xUnit={viewState.xUnit} xScale={viewState.xScale} banner={scaleLabel} fileBase={fileBase} />
+                <AbsorptionPanel
+                  points={run.shown.result.points}
+                  markerPoints={markerPoints}
+                  lengthM={geometry.lengthM}
+                  xUnit={viewState.xUnit}
+                  xScale={viewState.xScale}
+                  banner={scaleLabel}
+                  fileBase={fileBase}
+                />
               </PanelFrame>
             </>
           ) : (
@@ -235,17 +271,25 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
 
           <fieldset className="flex flex-wrap gap-4 rounded-lg border border-ink/10 px-4 py-3 text-sm">
             <legend className="px-1 text-xs font-semibold tracking-wide text-ink-soft uppercase">Panels</legend>
-            {(Object.keys(PANEL_LABEL) as PanelKey[]).filter((k) => !(shared && k === "compare")).map((k) => (
-              <label key={k} className="flex items-center gap-1.5">
-                <input type="checkbox" checked={viewState.panels[k]} onChange={(e) => togglePanel(k, e.target.checked)} />
-                {PANEL_LABEL[k]}
-              </label>
-            ))}
+            {(Object.keys(PANEL_LABEL) as PanelKey[])
+              .filter((k) => !(shared && k === "compare"))
+              .map((k) => (
+                <label key={k} className="flex items-center gap-1.5">
+                  <input type="checkbox" checked={viewState.panels[k]} onChange={(e) => togglePanel(k, e.target.checked)} />
+                  {PANEL_LABEL[k]}
+                </label>
+              ))}
           </fieldset>
 
           {viewState.panels.spinTrace ? (
             <PanelFrame title="Spin trace">
-              <SpinTracePanel pool={sidePool} params={params} view={viewState.spinTrace} onView={(spinTrace: ViewState["spinTrace"]) => onView({ spinTrace })} fileBase={fileBase} />
+              <SpinTracePanel
+                pool={sidePool}
+                params={params}
+                view={viewState.spinTrace}
+                onView={(spinTrace: ViewState["spinTrace"]) => onView({ spinTrace })}
+                fileBase={fileBase}
+              />
             </PanelFrame>
           ) : null}
           {viewState.panels.maps ? (

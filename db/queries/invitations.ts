@@ -50,7 +50,14 @@ export async function createInvitation(options: {
     if (!row) throw new Error("insert into invitations returned no row");
     await recordAudit({
       tx,
-      entry: { actorId: options.actorId, action: "invitation.create", targetType: "invitation", targetId: row.id, labId: options.labId, details: { email: row.email, role: row.role } },
+      entry: {
+        actorId: options.actorId,
+        action: "invitation.create",
+        targetType: "invitation",
+        targetId: row.id,
+        labId: options.labId,
+        details: { email: row.email, role: row.role },
+      },
     });
     const [actor] = await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, options.actorId));
     return {
@@ -111,12 +118,26 @@ export async function revokeInvitation(options: { actorId: string; labId: string
     const [row] = await tx
       .update(invitations)
       .set({ revokedAt: new Date() })
-      .where(and(eq(invitations.id, options.id), eq(invitations.labId, options.labId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
+      .where(
+        and(
+          eq(invitations.id, options.id),
+          eq(invitations.labId, options.labId),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+        ),
+      )
       .returning({ id: invitations.id, email: invitations.email });
     if (!row) return false;
     await recordAudit({
       tx,
-      entry: { actorId: options.actorId, action: "invitation.revoke", targetType: "invitation", targetId: row.id, labId: options.labId, details: { email: row.email } },
+      entry: {
+        actorId: options.actorId,
+        action: "invitation.revoke",
+        targetType: "invitation",
+        targetId: row.id,
+        labId: options.labId,
+        details: { email: row.email },
+      },
     });
     return true;
   });
@@ -158,7 +179,14 @@ export async function findInvitationByToken(options: { tokenHash: string }): Pro
     .where(eq(invitations.tokenHash, options.tokenHash))
     .limit(1);
   if (!row) return null;
-  return { labName: row.labName, email: row.email, role: row.role, invitedByName: row.invitedByName, expiresAt: row.expiresAt.toISOString(), state: stateOf(row) };
+  return {
+    labName: row.labName,
+    email: row.email,
+    role: row.role,
+    invitedByName: row.invitedByName,
+    expiresAt: row.expiresAt.toISOString(),
+    state: stateOf(row),
+  };
 }
 
 export type AcceptResult =
@@ -172,7 +200,8 @@ export async function acceptInvitation(options: { tokenHash: string; userId: str
     if (!row) return { ok: false as const, reason: "unknown" as const };
     const state = stateOf(row);
     if (state !== "pending") return { ok: false as const, reason: state };
-    if (row.email !== options.userEmail.trim().toLowerCase()) return { ok: false as const, reason: "other_email" as const, email: row.email };
+    if (row.email !== options.userEmail.trim().toLowerCase())
+      return { ok: false as const, reason: "other_email" as const, email: row.email };
     const inserted = await tx
       .insert(labMemberships)
       .values({ labId: row.labId, userId: options.userId, role: row.role })

@@ -48,7 +48,12 @@ export async function listMembers(options: { labId: string; page: PageQuery }): 
     .orderBy(sql`case ${labMemberships.role} when 'owner' then 0 when 'editor' then 1 else 2 end`, asc(users.name), asc(users.id))
     .limit(options.page.limit + 1)
     .offset(offset);
-  return toPage(rows, options.page.limit, (row) => row, () => ["o", offset + options.page.limit]);
+  return toPage(
+    rows,
+    options.page.limit,
+    (row) => row,
+    () => ["o", offset + options.page.limit],
+  );
 }
 
 export type ChangeMemberResult =
@@ -101,11 +106,7 @@ export async function changeMember(options: {
       },
     });
     if (options.role === null) return { ok: true as const, member: null };
-    const [member] = await tx
-      .select(memberColumns)
-      .from(labMemberships)
-      .innerJoin(users, eq(users.id, labMemberships.userId))
-      .where(where);
+    const [member] = await tx.select(memberColumns).from(labMemberships).innerJoin(users, eq(users.id, labMemberships.userId)).where(where);
     return { ok: true as const, member: member ?? null };
   });
 }

@@ -31,11 +31,17 @@ function toDto(row: LightSourceRow): LightSource {
 
 function duplicateName(error: unknown, name: string): ApiError | null {
   if (uniqueViolation(error) !== "light_sources_lab_name_unique") return null;
-  return new ApiError("conflict", `This lab already has a light source named “${name}”.`, { fields: { name: "This lab already has a light source with this name." } });
+  return new ApiError("conflict", `This lab already has a light source named “${name}”.`, {
+    fields: { name: "This lab already has a light source with this name." },
+  });
 }
 
 export async function listLightSources(options: { labId: string }): Promise<LightSource[]> {
-  const rows = await db.select().from(lightSources).where(eq(lightSources.labId, options.labId)).orderBy(asc(lightSources.wavelengthNm), asc(lightSources.name));
+  const rows = await db
+    .select()
+    .from(lightSources)
+    .where(eq(lightSources.labId, options.labId))
+    .orderBy(asc(lightSources.wavelengthNm), asc(lightSources.name));
   return rows.map(toDto);
 }
 
@@ -46,7 +52,11 @@ export async function findLightSourceLabId(options: { id: string }): Promise<str
 }
 
 export async function getLightSource(options: { id: string; labId: string }): Promise<LightSource | null> {
-  const [row] = await db.select().from(lightSources).where(and(eq(lightSources.id, options.id), eq(lightSources.labId, options.labId))).limit(1);
+  const [row] = await db
+    .select()
+    .from(lightSources)
+    .where(and(eq(lightSources.id, options.id), eq(lightSources.labId, options.labId)))
+    .limit(1);
   return row ? toDto(row) : null;
 }
 
@@ -56,7 +66,17 @@ export async function createLightSource(options: { caller: Caller; input: Create
     return await db.transaction(async (tx) => {
       const [row] = await tx.insert(lightSources).values(input).returning();
       if (!row) throw new Error("insert into light_sources returned no row");
-      await recordAudit({ tx, entry: { actorId: caller.id, action: "light_source.create", targetType: "light_source", targetId: row.id, labId: input.labId, details: { name: input.name, wavelengthNm: input.wavelengthNm } } });
+      await recordAudit({
+        tx,
+        entry: {
+          actorId: caller.id,
+          action: "light_source.create",
+          targetType: "light_source",
+          targetId: row.id,
+          labId: input.labId,
+          details: { name: input.name, wavelengthNm: input.wavelengthNm },
+        },
+      });
       return toDto(row);
     });
   } catch (error) {
@@ -64,7 +84,12 @@ export async function createLightSource(options: { caller: Caller; input: Create
   }
 }
 
-export async function updateLightSource(options: { caller: Caller; id: string; labId: string; patch: UpdateLightSourceInput }): Promise<LightSource> {
+export async function updateLightSource(options: {
+  caller: Caller;
+  id: string;
+  labId: string;
+  patch: UpdateLightSourceInput;
+}): Promise<LightSource> {
   const { caller, id, labId, patch } = options;
   const current = await getLightSource({ id, labId });
   if (!current) throw notFound(NOT_FOUND);
@@ -85,7 +110,17 @@ export async function updateLightSource(options: { caller: Caller; id: string; l
         .where(and(eq(lightSources.id, id), eq(lightSources.labId, labId)))
         .returning();
       if (!row) throw notFound(NOT_FOUND);
-      await recordAudit({ tx, entry: { actorId: caller.id, action: "light_source.update", targetType: "light_source", targetId: id, labId, details: { name: row.name } } });
+      await recordAudit({
+        tx,
+        entry: {
+          actorId: caller.id,
+          action: "light_source.update",
+          targetType: "light_source",
+          targetId: id,
+          labId,
+          details: { name: row.name },
+        },
+      });
       return toDto(row);
     });
   } catch (error) {
@@ -96,8 +131,21 @@ export async function updateLightSource(options: { caller: Caller; id: string; l
 export async function deleteLightSource(options: { caller: Caller; id: string; labId: string }): Promise<void> {
   const { caller, id, labId } = options;
   await db.transaction(async (tx) => {
-    const [row] = await tx.delete(lightSources).where(and(eq(lightSources.id, id), eq(lightSources.labId, labId))).returning({ name: lightSources.name });
+    const [row] = await tx
+      .delete(lightSources)
+      .where(and(eq(lightSources.id, id), eq(lightSources.labId, labId)))
+      .returning({ name: lightSources.name });
     if (!row) throw notFound(NOT_FOUND);
-    await recordAudit({ tx, entry: { actorId: caller.id, action: "light_source.delete", targetType: "light_source", targetId: id, labId, details: { name: row.name } } });
+    await recordAudit({
+      tx,
+      entry: {
+        actorId: caller.id,
+        action: "light_source.delete",
+        targetType: "light_source",
+        targetId: id,
+        labId,
+        details: { name: row.name },
+      },
+    });
   });
 }

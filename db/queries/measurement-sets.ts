@@ -67,7 +67,9 @@ export async function listMeasurementSets(options: { caller: Caller; labId?: str
   if (options.labId) conditions.push(eq(measurementSets.labId, options.labId));
   if (options.q) {
     const pattern = `%${escapeLike(options.q)}%`;
-    conditions.push(or(ilike(measurementSets.name, pattern), ilike(measurementSets.sample, pattern), ilike(measurementSets.fileName, pattern)));
+    conditions.push(
+      or(ilike(measurementSets.name, pattern), ilike(measurementSets.sample, pattern), ilike(measurementSets.fileName, pattern)),
+    );
   }
   const rows = await db
     .select({ ...summaryColumns, memberRole: labMemberships.role })
@@ -119,7 +121,16 @@ export async function getMeasurementPoints(options: { id: string; labId: string 
     .from(measurementPoints)
     .where(eq(measurementPoints.setId, options.id))
     .orderBy(asc(measurementPoints.ordinal));
-  return rows.map((row) => ({ line: row.line, wavelengthNm: row.wavelengthNm, quantity: set.quantity, value: row.value, sigma: row.sigma, temperatureK: row.temperatureK, fieldT: row.fieldT, lengthM: row.lengthM }));
+  return rows.map((row) => ({
+    line: row.line,
+    wavelengthNm: row.wavelengthNm,
+    quantity: set.quantity,
+    value: row.value,
+    sigma: row.sigma,
+    temperatureK: row.temperatureK,
+    fieldT: row.fieldT,
+    lengthM: row.lengthM,
+  }));
 }
 
 /** The original file's bytes and name, byte for byte as uploaded; null when the set is unknown. */
@@ -137,7 +148,11 @@ export async function getMeasurementOriginal(options: {
   return { fileName: row.fileName, contentType: row.contentType, bytes: object.bytes };
 }
 
-export async function createMeasurementSet(options: { caller: Caller; role: LabRole; input: MeasurementImport }): Promise<MeasurementSetSummary> {
+export async function createMeasurementSet(options: {
+  caller: Caller;
+  role: LabRole;
+  input: MeasurementImport;
+}): Promise<MeasurementSetSummary> {
   const id = await importMeasurementSet({ db, store: objectStore, actorId: options.caller.id, input: options.input });
   const item = await getMeasurementSet({ id, labId: options.input.labId, role: options.role });
   if (!item) throw new Error(`measurement set ${id} missing right after import`);
@@ -153,7 +168,12 @@ export async function deleteMeasurementSet(options: { caller: Caller; id: string
     const [row] = await tx
       .delete(measurementSets)
       .where(and(eq(measurementSets.id, options.id), eq(measurementSets.labId, options.labId)))
-      .returning({ name: measurementSets.name, rowCount: measurementSets.rowCount, fileName: measurementSets.fileName, objectKey: measurementSets.objectKey });
+      .returning({
+        name: measurementSets.name,
+        rowCount: measurementSets.rowCount,
+        fileName: measurementSets.fileName,
+        objectKey: measurementSets.objectKey,
+      });
     if (!row) return null;
     await recordAudit({
       tx,
@@ -170,7 +190,10 @@ export async function deleteMeasurementSet(options: { caller: Caller; id: string
   });
   if (!deleted) return false;
   await objectStore.delete(deleted.objectKey).catch((error: unknown) => {
-    console.error(`[measurements] could not remove ${deleted.objectKey} after deleting its set:`, error instanceof Error ? error.message : error);
+    console.error(
+      `[measurements] could not remove ${deleted.objectKey} after deleting its set:`,
+      error instanceof Error ? error.message : error,
+    );
   });
   return true;
 }

@@ -178,7 +178,14 @@ export async function createParameterSet(options: {
       });
       await recordAudit({
         tx,
-        entry: { actorId: caller.id, action: "parameter_set.create", targetType: "parameter_set", targetId: row.id, labId: input.labId, details: { name: input.name, version: 1 } },
+        entry: {
+          actorId: caller.id,
+          action: "parameter_set.create",
+          targetType: "parameter_set",
+          targetId: row.id,
+          labId: input.labId,
+          details: { name: input.name, version: 1 },
+        },
       });
       return requireItem(tx, { id: row.id, labId: input.labId, role: options.role });
     });
@@ -262,9 +269,14 @@ async function saveNewVersion(
     .update(parameterSets)
     .set({ ...next, version, updatedById: options.caller.id, updatedAt: now })
     .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)));
-  await tx
-    .insert(parameterSetVersions)
-    .values({ setId: options.id, version, ...next, provenance: options.provenance ?? null, createdById: options.caller.id, createdAt: now });
+  await tx.insert(parameterSetVersions).values({
+    setId: options.id,
+    version,
+    ...next,
+    provenance: options.provenance ?? null,
+    createdById: options.caller.id,
+    createdAt: now,
+  });
   await recordAudit({
     tx,
     entry: {
@@ -348,7 +360,13 @@ export async function restoreParameterSetVersion(options: {
  * `input.version`; a newer current version answers 409 like an edit. The merged parameters are
  * validated with the one model schema, so a fit can never store an invalid set.
  */
-export async function saveFitAsVersion(options: { caller: Caller; id: string; labId: string; role: LabRole; input: SaveFitInput }): Promise<ParameterSet> {
+export async function saveFitAsVersion(options: {
+  caller: Caller;
+  id: string;
+  labId: string;
+  role: LabRole;
+  input: SaveFitInput;
+}): Promise<ParameterSet> {
   const { input } = options;
   return db.transaction((tx) =>
     saveNewVersion(tx, {
@@ -358,14 +376,23 @@ export async function saveFitAsVersion(options: { caller: Caller; id: string; la
         const merged = modelParamsSchema.safeParse({ ...current.params, ...input.values });
         if (!merged.success) {
           const fields = zodFields(merged.error);
-          throw new ApiError("validation", `The fitted values do not make a valid parameter set: ${Object.entries(fields).map(([k, m]) => `${k} ${m}`).join("; ")}`, {
-            fields: Object.fromEntries(Object.entries(fields).map(([k, m]) => [`values.${k}`, m])),
-          });
+          throw new ApiError(
+            "validation",
+            `The fitted values do not make a valid parameter set: ${Object.entries(fields)
+              .map(([k, m]) => `${k} ${m}`)
+              .join("; ")}`,
+            {
+              fields: Object.fromEntries(Object.entries(fields).map(([k, m]) => [`values.${k}`, m])),
+            },
+          );
         }
         return { name: current.name, description: current.description, tags: current.tags, params: merged.data };
       },
       provenance: { ...fitProvenance(input) },
-      audit: { action: "parameter_set.fit", details: () => ({ free: input.fit.free.map((f) => f.key), measurementSets: input.fit.measurementSets.map((m) => m.id) }) },
+      audit: {
+        action: "parameter_set.fit",
+        details: () => ({ free: input.fit.free.map((f) => f.key), measurementSets: input.fit.measurementSets.map((m) => m.id) }),
+      },
     }),
   );
 }
@@ -379,7 +406,14 @@ export async function deleteParameterSet(options: { caller: Caller; id: string; 
     if (!row) return false;
     await recordAudit({
       tx,
-      entry: { actorId: options.caller.id, action: "parameter_set.delete", targetType: "parameter_set", targetId: options.id, labId: options.labId, details: row },
+      entry: {
+        actorId: options.caller.id,
+        action: "parameter_set.delete",
+        targetType: "parameter_set",
+        targetId: options.id,
+        labId: options.labId,
+        details: row,
+      },
     });
     return true;
   });
@@ -387,7 +421,11 @@ export async function deleteParameterSet(options: { caller: Caller; id: string; 
 
 const versionCursor = z.tuple([z.number().int().min(1)]);
 
-export async function listParameterSetVersions(options: { id: string; labId: string; page: PageQuery }): Promise<Page<ParameterSetVersion> | null> {
+export async function listParameterSetVersions(options: {
+  id: string;
+  labId: string;
+  page: PageQuery;
+}): Promise<Page<ParameterSetVersion> | null> {
   const exists = await findParameterSetLabId({ id: options.id });
   if (exists !== options.labId) return null;
   const before = decodeCursor(options.page.cursor, versionCursor);

@@ -16,10 +16,20 @@ export interface ProvenanceRecord {
 
 export async function latestProvenance(options: { setId: string; labId: string }): Promise<ProvenanceRecord | null> {
   const [row] = await db
-    .select({ version: parameterSetVersions.version, createdAt: parameterSetVersions.createdAt, provenance: parameterSetVersions.provenance })
+    .select({
+      version: parameterSetVersions.version,
+      createdAt: parameterSetVersions.createdAt,
+      provenance: parameterSetVersions.provenance,
+    })
     .from(parameterSetVersions)
     .innerJoin(parameterSets, eq(parameterSets.id, parameterSetVersions.setId))
-    .where(and(eq(parameterSetVersions.setId, options.setId), eq(parameterSets.labId, options.labId), isNotNull(parameterSetVersions.provenance)))
+    .where(
+      and(
+        eq(parameterSetVersions.setId, options.setId),
+        eq(parameterSets.labId, options.labId),
+        isNotNull(parameterSetVersions.provenance),
+      ),
+    )
     .orderBy(desc(parameterSetVersions.version))
     .limit(1);
   if (!row || !row.provenance) return null;

@@ -38,7 +38,9 @@ function toSummary(row: Row, role: LabRole): LabRunSummary {
     attempt: r.attempt,
     submittedBy: { id: r.submittedById, name: row.submitterName },
     parameterSet:
-      r.parameterSetVersion !== null ? { id: r.parameterSetId, name: r.parameterSetName ?? "", version: r.parameterSetVersion, edited: r.paramsEdited } : null,
+      r.parameterSetVersion !== null
+        ? { id: r.parameterSetId, name: r.parameterSetName ?? "", version: r.parameterSetVersion, edited: r.paramsEdited }
+        : null,
     createdAt: r.createdAt.toISOString(),
     startedAt: iso(r.startedAt),
     finishedAt: iso(r.finishedAt),
@@ -52,16 +54,31 @@ export async function createRun(options: { run: NewLabRun; role: LabRole; actorI
     const [created] = await tx.insert(labRuns).values(options.run).returning();
     await recordAudit({
       tx,
-      entry: { actorId: options.actorId, action: "run.submit", targetType: "lab_run", targetId: created!.id, labId: created!.labId, details: { kind: created!.kind, cells: created!.cells } },
+      entry: {
+        actorId: options.actorId,
+        action: "run.submit",
+        targetType: "lab_run",
+        targetId: created!.id,
+        labId: created!.labId,
+        details: { kind: created!.kind, cells: created!.cells },
+      },
     });
-    const [row] = await tx.select(columns).from(labRuns).innerJoin(labs, eq(labs.id, labRuns.labId)).innerJoin(users, eq(users.id, labRuns.submittedById)).where(eq(labRuns.id, created!.id));
+    const [row] = await tx
+      .select(columns)
+      .from(labRuns)
+      .innerJoin(labs, eq(labs.id, labRuns.labId))
+      .innerJoin(users, eq(users.id, labRuns.submittedById))
+      .where(eq(labRuns.id, created!.id));
     return toSummary(row!, options.role);
   });
 }
 
 /** The send to the queue failed: the run cannot start, say so on the row. */
 export async function markRunUnqueued(options: { id: string; error: string }): Promise<void> {
-  await db.update(labRuns).set({ state: "failed", error: options.error, finishedAt: sql`now()`, updatedAt: sql`now()` }).where(eq(labRuns.id, options.id));
+  await db
+    .update(labRuns)
+    .set({ state: "failed", error: options.error, finishedAt: sql`now()`, updatedAt: sql`now()` })
+    .where(eq(labRuns.id, options.id));
 }
 
 /** Runs of the caller's labs (or of one lab the route has authorized), newest first. */
@@ -102,7 +119,11 @@ export async function getRun(options: { id: string; labId: string; role: LabRole
  * Asks a run to stop. A queued run is cancelled at once; a running one is flagged and its worker
  * stops at its next check (about a second). Returns the state after the request, null if unknown.
  */
-export async function requestCancel(options: { id: string; labId: string; actorId: string }): Promise<{ state: string; wasQueued: boolean } | null> {
+export async function requestCancel(options: {
+  id: string;
+  labId: string;
+  actorId: string;
+}): Promise<{ state: string; wasQueued: boolean } | null> {
   return db.transaction(async (tx) => {
     const [before] = await tx
       .select({ state: labRuns.state })
@@ -116,7 +137,17 @@ export async function requestCancel(options: { id: string; labId: string; actorI
       .update(labRuns)
       .set({ cancelRequested: true, updatedAt: sql`now()`, ...(queued ? { state: "cancelled" as const, finishedAt: sql`now()` } : {}) })
       .where(and(eq(labRuns.id, options.id), inArray(labRuns.state, ["queued", "running"])));
-    await recordAudit({ tx, entry: { actorId: options.actorId, action: "run.cancel", targetType: "lab_run", targetId: options.id, labId: options.labId, details: {} } });
+    await recordAudit({
+      tx,
+      entry: {
+        actorId: options.actorId,
+        action: "run.cancel",
+        targetType: "lab_run",
+        targetId: options.id,
+        labId: options.labId,
+        details: {},
+      },
+    });
     return { state: queued ? "cancelled" : "running", wasQueued: queued };
   });
 }

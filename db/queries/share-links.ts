@@ -12,7 +12,12 @@ import { recordAudit } from "./audit";
  * link itself is shown once, to the editor who makes it.
  */
 
-export async function createShareLink(options: { actorId: string; setId: string; labId: string; tokenHash: string }): Promise<ShareLinkSummary> {
+export async function createShareLink(options: {
+  actorId: string;
+  setId: string;
+  labId: string;
+  tokenHash: string;
+}): Promise<ShareLinkSummary> {
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(shareLinks)
@@ -21,7 +26,14 @@ export async function createShareLink(options: { actorId: string; setId: string;
     if (!row) throw new Error("insert into share_links returned no row");
     await recordAudit({
       tx,
-      entry: { actorId: options.actorId, action: "share_link.create", targetType: "parameter_set", targetId: options.setId, labId: options.labId, details: { linkId: row.id } },
+      entry: {
+        actorId: options.actorId,
+        action: "share_link.create",
+        targetType: "parameter_set",
+        targetId: options.setId,
+        labId: options.labId,
+        details: { linkId: row.id },
+      },
     });
     const [actor] = await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, options.actorId));
     return { id: row.id, createdAt: row.createdAt.toISOString(), createdBy: actor ?? null };
@@ -31,7 +43,13 @@ export async function createShareLink(options: { actorId: string; setId: string;
 export async function listShareLinks(options: { setId: string; page: PageQuery }): Promise<Page<ShareLinkSummary>> {
   const after = decodeCursor(options.page.cursor, timeIdCursor);
   const rows = await db
-    .select({ id: shareLinks.id, createdAt: shareLinks.createdAt, byId: users.id, byName: users.name, cursorAt: sql<string>`${shareLinks.createdAt}::text` })
+    .select({
+      id: shareLinks.id,
+      createdAt: shareLinks.createdAt,
+      byId: users.id,
+      byName: users.name,
+      cursorAt: sql<string>`${shareLinks.createdAt}::text`,
+    })
     .from(shareLinks)
     .leftJoin(users, eq(users.id, shareLinks.createdById))
     .where(
@@ -46,7 +64,11 @@ export async function listShareLinks(options: { setId: string; page: PageQuery }
   return toPage(
     rows,
     options.page.limit,
-    (row) => ({ id: row.id, createdAt: row.createdAt.toISOString(), createdBy: row.byId && row.byName ? { id: row.byId, name: row.byName } : null }),
+    (row) => ({
+      id: row.id,
+      createdAt: row.createdAt.toISOString(),
+      createdBy: row.byId && row.byName ? { id: row.byId, name: row.byName } : null,
+    }),
     (row) => [row.cursorAt, row.id],
   );
 }
@@ -61,7 +83,14 @@ export async function revokeShareLink(options: { actorId: string; setId: string;
     if (!row) return false;
     await recordAudit({
       tx,
-      entry: { actorId: options.actorId, action: "share_link.revoke", targetType: "parameter_set", targetId: options.setId, labId: options.labId, details: { linkId: row.id } },
+      entry: {
+        actorId: options.actorId,
+        action: "share_link.revoke",
+        targetType: "parameter_set",
+        targetId: options.setId,
+        labId: options.labId,
+        details: { linkId: row.id },
+      },
     });
     return true;
   });

@@ -65,7 +65,9 @@ export async function createPasswordReset(options: { userId: string; tokenHash: 
       .update(passwordResets)
       .set({ usedAt: new Date() })
       .where(and(eq(passwordResets.userId, options.userId), isNull(passwordResets.usedAt)));
-    await tx.insert(passwordResets).values({ userId: options.userId, tokenHash: options.tokenHash, expiresAt: new Date(Date.now() + options.ttlMs) });
+    await tx
+      .insert(passwordResets)
+      .values({ userId: options.userId, tokenHash: options.tokenHash, expiresAt: new Date(Date.now() + options.ttlMs) });
   });
 }
 
@@ -73,7 +75,10 @@ export async function createPasswordReset(options: { userId: string; tokenHash: 
  * Sets the new password if the reset link is live, marks it used and ends every session, in one
  * transaction with the link's row locked (a link works once even when clicked twice at once).
  */
-export async function resetPasswordWithToken(options: { tokenHash: string; passwordHash: string }): Promise<{ ok: true; email: string } | { ok: false }> {
+export async function resetPasswordWithToken(options: {
+  tokenHash: string;
+  passwordHash: string;
+}): Promise<{ ok: true; email: string } | { ok: false }> {
   return db.transaction(async (tx) => {
     const [reset] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, options.tokenHash)).for("update");
     if (!reset || reset.usedAt || reset.expiresAt.getTime() <= Date.now()) return { ok: false as const };
@@ -84,7 +89,10 @@ export async function resetPasswordWithToken(options: { tokenHash: string; passw
       .where(eq(users.id, reset.userId))
       .returning({ email: users.email });
     if (!user) return { ok: false as const };
-    await recordAudit({ tx, entry: { actorId: reset.userId, action: "user.password_reset", targetType: "user", targetId: reset.userId, details: {} } });
+    await recordAudit({
+      tx,
+      entry: { actorId: reset.userId, action: "user.password_reset", targetType: "user", targetId: reset.userId, details: {} },
+    });
     return { ok: true as const, email: user.email };
   });
 }
@@ -96,6 +104,9 @@ export async function changePassword(options: { userId: string; passwordHash: st
       .update(users)
       .set({ passwordHash: options.passwordHash, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
       .where(eq(users.id, options.userId));
-    await recordAudit({ tx, entry: { actorId: options.userId, action: "user.password_change", targetType: "user", targetId: options.userId, details: {} } });
+    await recordAudit({
+      tx,
+      entry: { actorId: options.userId, action: "user.password_change", targetType: "user", targetId: options.userId, details: {} },
+    });
   });
 }

@@ -29,7 +29,12 @@ export async function getMyWorkbenchView(options: Scope): Promise<MyWorkbenchVie
     .where(and(eq(parameterSets.id, options.setId), eq(parameterSets.labId, options.labId)))
     .limit(1);
   if (!row) throw notFound(NOT_FOUND);
-  return { setId: options.setId, viewState: row.mine ?? null, updatedAt: row.updatedAt?.toISOString() ?? null, sharedViewState: row.shared ?? null };
+  return {
+    setId: options.setId,
+    viewState: row.mine ?? null,
+    updatedAt: row.updatedAt?.toISOString() ?? null,
+    sharedViewState: row.shared ?? null,
+  };
 }
 
 /** Creates or replaces the caller's own view of a set. */

@@ -19,7 +19,18 @@ function* causes(error: unknown): Generator<PgLikeError> {
 }
 
 // Node socket errors and PostgreSQL's "connection exception" / "operator intervention" classes.
-const UNAVAILABLE_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EHOSTUNREACH", "ENOTFOUND", "EPIPE", "57P01", "57P02", "57P03", "53300"]);
+const UNAVAILABLE_CODES = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "ETIMEDOUT",
+  "EHOSTUNREACH",
+  "ENOTFOUND",
+  "EPIPE",
+  "57P01",
+  "57P02",
+  "57P03",
+  "53300",
+]);
 const UNAVAILABLE_MESSAGES = [
   "Connection terminated",
   "connect ECONNREFUSED",

@@ -23,6 +23,8 @@ export async function withStorage<T>(what: string, run: () => Promise<T>): Promi
   } catch (error) {
     if (!(error instanceof StorageError)) throw error;
     console.error(`[api] ${what}:`, error.message);
-    throw new ApiError("storage_unavailable", `The file store is unavailable; ${what}. Try again shortly.`, { headers: { "Retry-After": "5" } });
+    throw new ApiError("storage_unavailable", `The file store is unavailable; ${what}. Try again shortly.`, {
+      headers: { "Retry-After": "5" },
+    });
   }
 }

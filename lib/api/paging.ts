@@ -25,7 +25,10 @@ export function encodeCursor(key: readonly (string | number)[]): string {
   return Buffer.from(JSON.stringify(key), "utf8").toString("base64url");
 }
 
-const badCursor = () => new ApiError("validation", "That cursor is not valid; start again from the first page.", { fields: { cursor: "Not a cursor of this list." } });
+const badCursor = () =>
+  new ApiError("validation", "That cursor is not valid; start again from the first page.", {
+    fields: { cursor: "Not a cursor of this list." },
+  });
 
 /** The decoded sort key, checked against the list's own tuple shape. */
 export function decodeCursor<S extends z.ZodType>(cursor: string | undefined, shape: S): z.infer<S> | null {

@@ -21,12 +21,20 @@ export const setNameSchema = safeString({ error: "Enter a name." })
   .min(1, "Enter a name.")
   .max(NAME_MAX, `At most ${NAME_MAX} characters.`);
 
-export const descriptionSchema = safeString({ error: "Must be text." }).trim().max(DESCRIPTION_MAX, `At most ${DESCRIPTION_MAX} characters.`);
+export const descriptionSchema = safeString({ error: "Must be text." })
+  .trim()
+  .max(DESCRIPTION_MAX, `At most ${DESCRIPTION_MAX} characters.`);
 
 export const tagsSchema = z
-  .array(safeString({ error: "Each tag must be text." }).trim().min(1, "Tags cannot be empty.").max(TAG_MAX, `Each tag at most ${TAG_MAX} characters.`), {
-    error: "Tags must be a list of text.",
-  })
+  .array(
+    safeString({ error: "Each tag must be text." })
+      .trim()
+      .min(1, "Tags cannot be empty.")
+      .max(TAG_MAX, `Each tag at most ${TAG_MAX} characters.`),
+    {
+      error: "Tags must be a list of text.",
+    },
+  )
   .max(TAGS_MAX, `At most ${TAGS_MAX} tags.`)
   .transform((tags) => [...new Set(tags)]);
 

@@ -82,8 +82,7 @@ export function requireSameOrigin(request: Request): void {
   if (!host || originHost !== host) throw crossOrigin();
 }
 
-const crossOrigin = () =>
-  new ApiError("forbidden", "This change must come from a Gyrolux page: the request came from another origin.");
+const crossOrigin = () => new ApiError("forbidden", "This change must come from a Gyrolux page: the request came from another origin.");
 
 /** A caller signed in through the browser; API tokens may not manage tokens or passwords. */
 export async function requireSessionCaller(request: Request, what = "Managing API tokens"): Promise<Caller> {

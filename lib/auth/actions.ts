@@ -41,7 +41,8 @@ async function signInAndRedirect(options: { email: string; password: string; red
     }
     if (error instanceof CredentialsSignin) return { error: WRONG_CREDENTIALS };
     // Anything else thrown inside authorize (a lost database) arrives as a CallbackRouteError.
-    if (error instanceof AuthError) return { error: isDbUnavailable(error) || error.type === "CallbackRouteError" ? UNAVAILABLE : WRONG_CREDENTIALS };
+    if (error instanceof AuthError)
+      return { error: isDbUnavailable(error) || error.type === "CallbackRouteError" ? UNAVAILABLE : WRONG_CREDENTIALS };
     throw error;
   }
   return {};
@@ -72,7 +73,8 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
   if (confirm !== undefined && confirm !== text(formData, "password")) fields.confirmPassword = "The passwords do not match.";
   if (!parsed.success || Object.keys(fields).length > 0) return { error: "Check the highlighted fields.", fields };
   try {
-    if ((await signUpNeutrally(parsed.data)) === "throttled") return { error: "Too many sign-up attempts for this address. Try again in an hour." };
+    if ((await signUpNeutrally(parsed.data)) === "throttled")
+      return { error: "Too many sign-up attempts for this address. Try again in an hour." };
   } catch (error) {
     if (isDbUnavailable(error)) return { error: "Signing up is unavailable right now (the database is not reachable). Try again shortly." };
     throw error;

@@ -60,9 +60,7 @@ export async function recordSignInFailure(options: { email: string; ip: string }
 }
 
 export async function clearSignInFailures(options: { email: string; ip: string }): Promise<void> {
-  await db
-    .delete(signInFailures)
-    .where(and(eq(signInFailures.email, normalise(options.email)), eq(signInFailures.ip, options.ip)));
+  await db.delete(signInFailures).where(and(eq(signInFailures.email, normalise(options.email)), eq(signInFailures.ip, options.ip)));
 }
 
 export function rateLimitMessage(waitSeconds: number): string {

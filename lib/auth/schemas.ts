@@ -33,12 +33,16 @@ export const signUpSchema = z.object({
 export const emailOnlySchema = z.object({ email });
 
 export const changePasswordSchema = z.object({
-  currentPassword: safeString({ error: "Enter your current password." }).min(1, "Enter your current password.").max(1024, "That password is too long."),
+  currentPassword: safeString({ error: "Enter your current password." })
+    .min(1, "Enter your current password.")
+    .max(1024, "That password is too long."),
   newPassword: newPasswordSchema(),
 });
 
 export const resetPasswordSchema = z.object({
-  token: safeString({ error: "The reset link is incomplete." }).min(10, "The reset link is incomplete.").max(200, "The reset link is not valid."),
+  token: safeString({ error: "The reset link is incomplete." })
+    .min(10, "The reset link is incomplete.")
+    .max(200, "The reset link is not valid."),
   newPassword: newPasswordSchema(),
 });
 

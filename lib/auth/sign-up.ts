@@ -22,10 +22,14 @@ const SIGN_UPS_PER_HOUR = 5;
  * answer, so the time taken does not tell). The caller gives the same answer either way.
  */
 export async function signUpNeutrally(input: SignUpInput): Promise<"done" | "throttled"> {
-  if (!(await takeThrottleSlot({ kind: "sign_up", key: input.email, max: SIGN_UPS_PER_HOUR, windowMs: 60 * 60 * 1000 }))) return "throttled";
+  if (!(await takeThrottleSlot({ kind: "sign_up", key: input.email, max: SIGN_UPS_PER_HOUR, windowMs: 60 * 60 * 1000 })))
+    return "throttled";
   const result = await registerAccount(input);
   if (!result.ok) {
-    void sendMail({ to: input.email, ...signUpExistingMail({ signInLink: appLink("/sign-in"), resetLink: appLink("/forgot-password") }) }).catch(() => undefined);
+    void sendMail({
+      to: input.email,
+      ...signUpExistingMail({ signInLink: appLink("/sign-in"), resetLink: appLink("/forgot-password") }),
+    }).catch(() => undefined);
   }
   return "done";
 }

@@ -154,7 +154,10 @@ export class SpectrumPool {
   private disposed = false;
 
   constructor(opts: SpectrumPoolOptions = {}) {
-    this.size = Math.max(1, Math.floor(opts.size ?? defaultPoolSize(typeof navigator !== "undefined" ? navigator.hardwareConcurrency : undefined)));
+    this.size = Math.max(
+      1,
+      Math.floor(opts.size ?? defaultPoolSize(typeof navigator !== "undefined" ? navigator.hardwareConcurrency : undefined)),
+    );
     this.createWorker =
       opts.createWorker ?? (() => new Worker(new URL("../../workers/spectrum.worker.ts", import.meta.url), { type: "module" }));
   }

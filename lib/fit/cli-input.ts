@@ -60,7 +60,8 @@ export function parseDataFile(text: string, params: ModelParams): MeasuredPoint[
   if (!has(DEFAULT_COLUMNS.verdet) && !has(DEFAULT_COLUMNS.rotation)) {
     throw new FitInputError(`data file: no column "${DEFAULT_COLUMNS.verdet}" or "${DEFAULT_COLUMNS.rotation}" in the header`);
   }
-  if (!has(DEFAULT_COLUMNS.sigma)) throw new FitInputError(`data file: no column "${DEFAULT_COLUMNS.sigma}" (the standard uncertainty of each value) in the header`);
+  if (!has(DEFAULT_COLUMNS.sigma))
+    throw new FitInputError(`data file: no column "${DEFAULT_COLUMNS.sigma}" (the standard uncertainty of each value) in the header`);
   const optional = (name: string) => (has(name) ? name : null);
   const mapping: ColumnMapping = {
     wavelengthColumn: DEFAULT_COLUMNS.wavelength,
@@ -73,7 +74,11 @@ export function parseDataFile(text: string, params: ModelParams): MeasuredPoint[
     fieldColumn: optional(DEFAULT_COLUMNS.field),
     lengthColumn: optional(DEFAULT_COLUMNS.length),
   };
-  const result = parseMeasurementTable(text, mapping, { temperatureK: params.temperatureK, fieldT: params.fieldT, lengthM: params.lengthM });
+  const result = parseMeasurementTable(text, mapping, {
+    temperatureK: params.temperatureK,
+    fieldT: params.fieldT,
+    lengthM: params.lengthM,
+  });
   if (result.errors.length > 0) {
     const more = result.errors.length > 1 ? ` (and ${result.errors.length - 1} more problem${result.errors.length > 2 ? "s" : ""})` : "";
     throw new FitInputError(`data file: ${result.errors[0]}${more}`);
@@ -98,7 +103,8 @@ export function parseFitArgs(argv: readonly string[]): FitArgs {
   let scaleByChi2 = false;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
-    const [flag, inline] = a.startsWith("--") && a.includes("=") ? [a.slice(0, a.indexOf("=")), a.slice(a.indexOf("=") + 1)] : [a, undefined];
+    const [flag, inline] =
+      a.startsWith("--") && a.includes("=") ? [a.slice(0, a.indexOf("=")), a.slice(a.indexOf("=") + 1)] : [a, undefined];
     const value = () => {
       const v = inline ?? args[++i];
       if (v === undefined || v === "") throw new FitInputError(`${flag}: needs a value; ${FIT_USAGE}`);
@@ -161,7 +167,9 @@ export function runFitCommand(argv: readonly string[], readText: (path: string) 
       return readText(file);
     } catch (err) {
       const code = (err as { code?: string }).code;
-      throw new FitInputError(`${file}: cannot read the ${what} (${code === "ENOENT" ? "no such file" : (code ?? (err as Error).message)})`);
+      throw new FitInputError(
+        `${file}: cannot read the ${what} (${code === "ENOENT" ? "no such file" : (code ?? (err as Error).message)})`,
+      );
     }
   };
   try {
@@ -181,7 +189,11 @@ export function runFitCommand(argv: readonly string[], readText: (path: string) 
       ...result.atBound.map((key) => `${key} ended on a bound; its σ is not a fair error`),
       ...(result.converged ? [] : ["the fit stopped at its iteration limit before converging"]),
     ];
-    return { status: 0, stdout: `${JSON.stringify(fitOutput(result), null, 2)}\n`, stderr: warnings.map((w) => `warning: ${oneLine(w)}\n`).join("") };
+    return {
+      status: 0,
+      stdout: `${JSON.stringify(fitOutput(result), null, 2)}\n`,
+      stderr: warnings.map((w) => `warning: ${oneLine(w)}\n`).join(""),
+    };
   } catch (err) {
     if (err instanceof FitInputError || err instanceof FitError) return { status: 2, stdout: "", stderr: `${oneLine(err.message)}\n` };
     return { status: 1, stdout: "", stderr: `internal error: ${oneLine((err as Error).message)}\n` };

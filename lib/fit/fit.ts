@@ -115,7 +115,9 @@ function separationVerdict(free: readonly string[], correlation: number[][], poi
       );
     }
   }
-  const unresolved = points.filter((p) => p.magneticShare !== null && p.magneticShareSigma !== null && p.magneticShareSigma > p.magneticShare);
+  const unresolved = points.filter(
+    (p) => p.magneticShare !== null && p.magneticShareSigma !== null && p.magneticShareSigma > p.magneticShare,
+  );
   if (unresolved.length > 0) {
     const first = unresolved[0]!;
     reasons.push(
@@ -134,10 +136,17 @@ export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): 
   }
   const { params, free, points, scaleByChi2 } = parsed.data;
   for (const p of points) {
-    if (p.quantity === "verdet" && p.fieldT === 0) throw new FitError(`line ${p.line}: a Verdet constant needs a nonzero field (field_T is 0)`);
+    if (p.quantity === "verdet" && p.fieldT === 0)
+      throw new FitError(`line ${p.line}: a Verdet constant needs a nonzero field (field_T is 0)`);
   }
   const keys = free.map((f) => f.key) as NumericParamKey[];
-  const conditions = points.map((p) => ({ wavelengthNm: p.wavelengthNm, temperatureK: p.temperatureK, fieldT: p.fieldT, lengthM: p.lengthM, quantity: p.quantity }));
+  const conditions = points.map((p) => ({
+    wavelengthNm: p.wavelengthNm,
+    temperatureK: p.temperatureK,
+    fieldT: p.fieldT,
+    lengthM: p.lengthM,
+    quantity: p.quantity,
+  }));
   // The step scale for a parameter whose value is 0: the size of its bounds, else 1.
   const typicalScale = Object.fromEntries(free.map((f) => [f.key, Math.max(Math.abs(f.min ?? 0), Math.abs(f.max ?? 0)) || 1]));
   const lowerBounds = free.map((f) => Math.max(f.min ?? -Infinity, NATURAL_LOWER[f.key] ?? -Infinity));
@@ -174,12 +183,15 @@ export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): 
   const cov = ls.covariance.clone().mul(scale);
   const sigmaUnscaled = keys.map((_, j) => Math.sqrt(ls.covariance.get(j, j)));
   const sigmaScaled = sigmaUnscaled.map((s) => s * Math.sqrt(reducedChi2));
-  const correlation = keys.map((_, j) => keys.map((__, k) => (j === k ? 1 : ls.covariance.get(j, k) / (sigmaUnscaled[j]! * sigmaUnscaled[k]!))));
+  const correlation = keys.map((_, j) =>
+    keys.map((__, k) => (j === k ? 1 : ls.covariance.get(j, k) / (sigmaUnscaled[j]! * sigmaUnscaled[k]!))),
+  );
 
   const fitPoints: FitPoint[] = points.map((pt, i) => {
     const share = final.magneticShare[i]!;
     let shareVar = 0;
-    for (let j = 0; j < p; j++) for (let k = 0; k < p; k++) shareVar += final.shareJacobian.get(i, j) * cov.get(j, k) * final.shareJacobian.get(i, k);
+    for (let j = 0; j < p; j++)
+      for (let k = 0; k < p; k++) shareVar += final.shareJacobian.get(i, j) * cov.get(j, k) * final.shareJacobian.get(i, k);
     const model = ls.value[i]!;
     return {
       line: pt.line,

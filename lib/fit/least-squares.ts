@@ -142,7 +142,10 @@ export function covarianceFromNormalMatrix(a: Matrix, names: readonly string[] =
   const d = new Float64Array(p);
   for (let j = 0; j < p; j++) {
     const ajj = a.get(j, j);
-    if (!(ajj > 0)) throw new FitError(`${names[j] ?? `free parameter ${j + 1}`} does not change the model at these points, so the data cannot determine it; fix it or add data`);
+    if (!(ajj > 0))
+      throw new FitError(
+        `${names[j] ?? `free parameter ${j + 1}`} does not change the model at these points, so the data cannot determine it; fix it or add data`,
+      );
     d[j] = 1 / Math.sqrt(ajj);
   }
   const scaled = new Matrix(p, p);
@@ -152,7 +155,9 @@ export function covarianceFromNormalMatrix(a: Matrix, names: readonly string[] =
   for (let j = 0; j < p; j++) for (let k = 0; k < p; k++) cov.set(j, k, inv.get(j, k) * d[j]! * d[k]!);
   for (let j = 0; j < p; j++) {
     if (!(cov.get(j, j) > 0) || !Number.isFinite(cov.get(j, j))) {
-      throw new FitError("the free parameters are not independent at these points (singular normal equations); free fewer parameters or add data");
+      throw new FitError(
+        "the free parameters are not independent at these points (singular normal equations); free fewer parameters or add data",
+      );
     }
   }
   return cov;

@@ -21,9 +21,14 @@ export const fitSummarySchema = z.strictObject({
   measurementSets: z.array(fitMeasurementSetRefSchema).min(1, "name the measurement set(s) the fit used").max(50),
   pointCount: z.number().int().min(1),
   free: z.array(freeParamSchema).min(1).max(FREEABLE_KEYS.length),
-  sigmas: z.partialRecord(keySchema, finite.refine((v) => v >= 0, { message: "must be ≥ 0" })),
+  sigmas: z.partialRecord(
+    keySchema,
+    finite.refine((v) => v >= 0, { message: "must be ≥ 0" }),
+  ),
   sigmaScaledByChi2: z.boolean(),
-  correlation: z.array(z.array(finite.refine((v) => Math.abs(v) <= 1 + 1e-9, { message: "must lie in [−1, 1]" })).max(FREEABLE_KEYS.length)).max(FREEABLE_KEYS.length),
+  correlation: z
+    .array(z.array(finite.refine((v) => Math.abs(v) <= 1 + 1e-9, { message: "must lie in [−1, 1]" })).max(FREEABLE_KEYS.length))
+    .max(FREEABLE_KEYS.length),
   chi2: finite.refine((v) => v >= 0, { message: "must be ≥ 0" }),
   dof: z.number().int().min(1),
   reducedChi2: finite.refine((v) => v >= 0, { message: "must be ≥ 0" }),
@@ -35,7 +40,10 @@ export type FitSummary = z.infer<typeof fitSummarySchema>;
 export const saveFitSchema = z
   .object({
     /** The version the fit started from; a newer current version answers 409 like PATCH. */
-    version: z.number({ error: "Send the version the fit started from (a whole number)." }).int("Must be a whole number.").min(1, "Must be ≥ 1."),
+    version: z
+      .number({ error: "Send the version the fit started from (a whole number)." })
+      .int("Must be a whole number.")
+      .min(1, "Must be ≥ 1."),
     values: z.partialRecord(keySchema, finite),
     fit: fitSummarySchema,
   })
@@ -45,7 +53,8 @@ export const saveFitSchema = z
     if (valueKeys.length !== free.length || !free.every((k) => k in body.values)) {
       ctx.addIssue({ code: "custom", path: ["values"], message: `must hold exactly the free parameters (${free.join(", ")})` });
     }
-    if (!free.every((k) => k in body.fit.sigmas)) ctx.addIssue({ code: "custom", path: ["fit", "sigmas"], message: "must hold a σ for every free parameter" });
+    if (!free.every((k) => k in body.fit.sigmas))
+      ctx.addIssue({ code: "custom", path: ["fit", "sigmas"], message: "must hold a σ for every free parameter" });
     if (body.fit.correlation.length !== free.length || body.fit.correlation.some((row) => row.length !== free.length)) {
       ctx.addIssue({ code: "custom", path: ["fit", "correlation"], message: `must be ${free.length}×${free.length}` });
     }
@@ -71,7 +80,12 @@ export function asFitProvenance(value: unknown): FitProvenance | null {
 }
 
 /** The save body for a finished fit. */
-export function saveFitBody(options: { version: number; result: FitResult; measurementSets: { id: string; name: string }[]; fittedAt: Date }): SaveFitInput {
+export function saveFitBody(options: {
+  version: number;
+  result: FitResult;
+  measurementSets: { id: string; name: string }[];
+  fittedAt: Date;
+}): SaveFitInput {
   const { result } = options;
   return {
     version: options.version,

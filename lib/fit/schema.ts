@@ -23,11 +23,14 @@ export const DEFAULT_FREE_KEYS: FreeableKey[] = ["gyrationPerT", "oscillatorWave
 /** At most this many points in one fit (the upload's row limit). */
 export const MAX_FIT_POINTS = 20000;
 
-const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, { message: `${what} must be finite` });
+const finite = (what: string) =>
+  z.number({ error: `${what} must be a number` }).refine(Number.isFinite, { message: `${what} must be finite` });
 
 export const freeParamSchema = z
   .strictObject({
-    key: z.enum(FREEABLE_KEYS as [FreeableKey, ...FreeableKey[]], { error: (issue) => `"${String(issue.input)}" is not a model parameter that a fit can free` }),
+    key: z.enum(FREEABLE_KEYS as [FreeableKey, ...FreeableKey[]], {
+      error: (issue) => `"${String(issue.input)}" is not a model parameter that a fit can free`,
+    }),
     min: finite("min").optional(),
     max: finite("max").optional(),
   })
@@ -37,8 +40,14 @@ export type FreeParam = z.infer<typeof freeParamSchema>;
 export const fitRequestSchema = z
   .strictObject({
     params: modelParamsSchema,
-    free: z.array(freeParamSchema, { error: "free must be a list of parameters" }).min(1, "free at least one parameter").max(FREEABLE_KEYS.length),
-    points: z.array(measuredPointSchema, { error: "points must be a list of measured points" }).min(1, "needs at least one point").max(MAX_FIT_POINTS, `at most ${MAX_FIT_POINTS} points`),
+    free: z
+      .array(freeParamSchema, { error: "free must be a list of parameters" })
+      .min(1, "free at least one parameter")
+      .max(FREEABLE_KEYS.length),
+    points: z
+      .array(measuredPointSchema, { error: "points must be a list of measured points" })
+      .min(1, "needs at least one point")
+      .max(MAX_FIT_POINTS, `at most ${MAX_FIT_POINTS} points`),
     scaleByChi2: z.boolean().default(false),
   })
   .superRefine((req, ctx) => {
@@ -48,11 +57,19 @@ export const fitRequestSchema = z
       seen.add(f.key);
       const start = req.params[f.key];
       if ((f.min !== undefined && start < f.min) || (f.max !== undefined && start > f.max)) {
-        ctx.addIssue({ code: "custom", path: ["free", i], message: `the starting value of ${f.key} (${start}) lies outside its bounds [${f.min ?? "−∞"}, ${f.max ?? "∞"}]` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["free", i],
+          message: `the starting value of ${f.key} (${start}) lies outside its bounds [${f.min ?? "−∞"}, ${f.max ?? "∞"}]`,
+        });
       }
     });
     if (req.points.length <= req.free.length) {
-      ctx.addIssue({ code: "custom", path: ["points"], message: `${req.points.length} point(s) cannot determine ${req.free.length} free parameter(s); a fit needs more points than free parameters` });
+      ctx.addIssue({
+        code: "custom",
+        path: ["points"],
+        message: `${req.points.length} point(s) cannot determine ${req.free.length} free parameter(s); a fit needs more points than free parameters`,
+      });
     }
   });
 export type FitRequest = z.infer<typeof fitRequestSchema>;

@@ -9,7 +9,10 @@ export async function listCaughtMail(options: { limit: number }): Promise<{ dir:
   const dir = mailSettings.dir;
   let names: string[];
   try {
-    names = (await readdir(dir)).filter((name) => name.endsWith(".json")).sort().reverse();
+    names = (await readdir(dir))
+      .filter((name) => name.endsWith(".json"))
+      .sort()
+      .reverse();
   } catch {
     return { dir, items: [] };
   }

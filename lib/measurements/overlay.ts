@@ -64,14 +64,21 @@ export function toPlotUnits(point: MeasuredPoint, options: { xUnit: XUnit; yMode
 }
 
 /** A sentence for the legend saying how the points were converted for this y axis. */
-export function describeConversion(options: { yMode: YMode; geometry: Geometry; quantities: ReadonlySet<MeasuredPoint["quantity"]> }): string {
+export function describeConversion(options: {
+  yMode: YMode;
+  geometry: Geometry;
+  quantities: ReadonlySet<MeasuredPoint["quantity"]>;
+}): string {
   const { yMode, geometry, quantities } = options;
   const bl = `B = ${geometry.fieldT} T, L = ${geometry.lengthM * 1000} mm`;
   if (yMode === "verdet") {
-    return quantities.has("rotation") ? "Measured rotations are shown as Verdet constants θ/(B·L) at each point's own field and length." : "Verdet constants are shown as measured.";
+    return quantities.has("rotation")
+      ? "Measured rotations are shown as Verdet constants θ/(B·L) at each point's own field and length."
+      : "Verdet constants are shown as measured.";
   }
   const parts: string[] = [];
   if (quantities.has("verdet")) parts.push(`Verdet constants are shown as the rotation V·B·L at the plot's ${bl}`);
-  if (quantities.has("rotation")) parts.push(`rotations measured at another field or length are scaled to the plot's ${bl} (linear in B·L)`);
+  if (quantities.has("rotation"))
+    parts.push(`rotations measured at another field or length are scaled to the plot's ${bl} (linear in B·L)`);
   return `${parts.join("; ").replace(/^./, (c) => c.toUpperCase())}.`;
 }

@@ -53,7 +53,8 @@ export const columnMappingSchema = z.object({
 });
 export type ColumnMapping = z.infer<typeof columnMappingSchema>;
 
-const positive = (what: string) => z.number({ error: `${what} must be a number.` }).refine((v) => Number.isFinite(v) && v > 0, { message: `${what} must be > 0.` });
+const positive = (what: string) =>
+  z.number({ error: `${what} must be a number.` }).refine((v) => Number.isFinite(v) && v > 0, { message: `${what} must be > 0.` });
 
 /** Values entered once in the form for every row of the file. */
 export const fileDefaultsSchema = z.object({
@@ -91,7 +92,11 @@ export function readTable(text: string): Table {
   // One line ending throughout so line numbers count what an editor shows; a leading BOM is not data.
   const normalized = text.replace(/^\uFEFF/, "").replace(/\r\n?/g, "\n");
   const firstDataLine = normalized.split("\n").find((l) => l.trim() !== "" && !l.trimStart().startsWith("#")) ?? "";
-  const delimiter: Table["delimiter"] = firstDataLine.includes("\t") ? "\t" : !firstDataLine.includes(",") && firstDataLine.includes(";") ? ";" : ",";
+  const delimiter: Table["delimiter"] = firstDataLine.includes("\t")
+    ? "\t"
+    : !firstDataLine.includes(",") && firstDataLine.includes(";")
+      ? ";"
+      : ",";
 
   const table: Table = { headers: [], headerLine: 0, delimiter, rows: [] };
   // One parse of the whole text (papaparse's per-row callback is several times slower). Every row
@@ -200,10 +205,16 @@ const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 export function parseMeasurementTable(text: string, mapping: ColumnMapping, fileDefaults: FileDefaults = {}): ParseResult {
   const errors: string[] = [];
   const table = readTable(text);
-  if (table.headerLine === 0) return { points: [], errors: ["The file is empty: it needs a header line and at least one data row."], rowCount: 0 };
-  if (table.rows.length === 0) return { points: [], errors: [`The file has a header (line ${table.headerLine}) but no data rows.`], rowCount: 0 };
+  if (table.headerLine === 0)
+    return { points: [], errors: ["The file is empty: it needs a header line and at least one data row."], rowCount: 0 };
+  if (table.rows.length === 0)
+    return { points: [], errors: [`The file has a header (line ${table.headerLine}) but no data rows.`], rowCount: 0 };
   if (table.rows.length > MAX_ROWS) {
-    return { points: [], errors: [`The file has ${table.rows.length.toLocaleString("en")} data rows; at most ${MAX_ROWS.toLocaleString("en")} are allowed.`], rowCount: table.rows.length };
+    return {
+      points: [],
+      errors: [`The file has ${table.rows.length.toLocaleString("en")} data rows; at most ${MAX_ROWS.toLocaleString("en")} are allowed.`],
+      rowCount: table.rows.length,
+    };
   }
   if (quantityOfUnit(mapping.valueUnit) !== mapping.quantity) {
     errors.push(`The unit ${mapping.valueUnit} does not fit a ${mapping.quantity === "verdet" ? "Verdet constant" : "rotation"}.`);
@@ -227,7 +238,8 @@ export function parseMeasurementTable(text: string, mapping: ColumnMapping, file
   const temperatureAt = index(mapping.temperatureColumn, "Temperature", false);
   const fieldAt = index(mapping.fieldColumn, "Field", false);
   const lengthAt = index(mapping.lengthColumn, "Sample length", false);
-  if (mapping.sigmaColumn === null && fileDefaults.relativeSigma === undefined) errors.push("σ: choose a column or enter one relative σ for the whole file.");
+  if (mapping.sigmaColumn === null && fileDefaults.relativeSigma === undefined)
+    errors.push("σ: choose a column or enter one relative σ for the whole file.");
   needDefault(mapping.temperatureColumn, fileDefaults.temperatureK, "Temperature");
   needDefault(mapping.fieldColumn, fileDefaults.fieldT, "Field");
   needDefault(mapping.lengthColumn, fileDefaults.lengthM, "Sample length");
@@ -285,7 +297,16 @@ export function parseMeasurementTable(text: string, mapping: ColumnMapping, file
     }
     // Every rule of measuredPointSchema was checked above, field by field with its own message;
     // a schema parse per row on top would triple the time for a 20,000-row file.
-    points.push({ line: row.line, wavelengthNm, quantity: mapping.quantity, value: valueSi, sigma: sigmaSi, temperatureK: temperatureK!, fieldT: fieldT!, lengthM: lengthM! });
+    points.push({
+      line: row.line,
+      wavelengthNm,
+      quantity: mapping.quantity,
+      value: valueSi,
+      sigma: sigmaSi,
+      temperatureK: temperatureK!,
+      fieldT: fieldT!,
+      lengthM: lengthM!,
+    });
   }
   if (total > errors.length) errors.push(`… and ${total - errors.length} more problems.`);
   return errors.length > 0 ? { points: [], errors, rowCount: table.rows.length } : { points, errors, rowCount: table.rows.length };

@@ -57,7 +57,8 @@ export function describeRelativeChange(before: number | undefined, after: number
   const ratio = after / before;
   if (ratio >= 10 || ratio <= 0.1) return `×${formatNumberInput(Number(ratio.toPrecision(3)))}`;
   const percent = (ratio - 1) * 100;
-  const shown = Math.abs(percent) >= 0.01 ? String(Number(Math.abs(percent).toPrecision(3))) : Math.abs(percent).toExponential(1).replace("e+", "e");
+  const shown =
+    Math.abs(percent) >= 0.01 ? String(Number(Math.abs(percent).toPrecision(3))) : Math.abs(percent).toExponential(1).replace("e+", "e");
   return `${signed(shown, percent < 0)} %`;
 }
 
@@ -112,7 +113,15 @@ export function diffSnapshots(before: SetSnapshot, after: SetSnapshot): FieldDif
   for (const meta of FLAG_META) {
     const a = before.params[meta.key] === true;
     const b = after.params[meta.key] === true;
-    rows.push({ key: meta.key, label: meta.label, unit: "", before: formatFlag(a), after: formatFlag(b), changed: a !== b, relative: null });
+    rows.push({
+      key: meta.key,
+      label: meta.label,
+      unit: "",
+      before: formatFlag(a),
+      after: formatFlag(b),
+      changed: a !== b,
+      relative: null,
+    });
   }
   return rows;
 }

@@ -240,7 +240,14 @@ export interface BothDrivesResult {
  * One run of four extra lock-in states replaces two runs, so a wavelength costs about half the
  * derivative evaluations. Not for a strong drive (an intensity): there the modes do not superpose.
  */
-export function lockInBothDrives(o: { w0: number; alpha: number; h: number; sign: 1 | -1; plan: LockInPlan; relativeTolerance?: number }): BothDrivesResult {
+export function lockInBothDrives(o: {
+  w0: number;
+  alpha: number;
+  h: number;
+  sign: 1 | -1;
+  plan: LockInPlan;
+  relativeTolerance?: number;
+}): BothDrivesResult {
   const { w0, alpha, h, sign, plan } = o;
   const rtol = o.relativeTolerance ?? 1e-6;
   const k = 1 / (1 + alpha * alpha);

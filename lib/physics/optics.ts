@@ -3,18 +3,7 @@
  * susceptibilities, circular-mode indices and the split of the rotation (physics-model.md §4–6).
  * Conventions (§1): exp(+iωt), light along +z, "+" = (1, −i)/√2, passive ⇔ Im ≤ 0.
  */
-import {
-  type Complex,
-  add,
-  cx,
-  div,
-  divReal,
-  mul,
-  neg,
-  rootDecaying,
-  scale,
-  sub,
-} from "./complex";
+import { type Complex, add, cx, div, divReal, mul, neg, rootDecaying, scale, sub } from "./complex";
 import { ELECTRON_MASS_KG, ELEMENTARY_CHARGE_C, SPEED_OF_LIGHT_M_PER_S } from "./constants";
 
 /** Isotropic background and gyrotropic-transition parameters (§5). */
@@ -196,9 +185,7 @@ export function rotations(input: RotationInput): RotationOutput {
   const Sm = add(nmPlus, nmMinus);
   const epsDchi = mul(eps, chiDiff);
 
-  const d = nearlyCancels(nPlus, nMinus)
-    ? sub(nMinus, nPlus)
-    : div(sub(epsDchi, mul(g, add(cx(2), chiSum))), S);
+  const d = nearlyCancels(nPlus, nMinus) ? sub(nMinus, nPlus) : div(sub(epsDchi, mul(g, add(cx(2), chiSum))), S);
   const de = nearlyCancels(nePlus, neMinus) ? sub(neMinus, nePlus) : div(scale(g, -2), Se);
   const dm = nearlyCancels(nmPlus, nmMinus) ? sub(nmMinus, nmPlus) : div(epsDchi, Sm);
 
@@ -217,9 +204,7 @@ export function rotations(input: RotationInput): RotationOutput {
     // S_m − S = −G (μ+ / (n+ + nm+) − μ− / (n− + nm−))
     const SmMinusS = neg(mul(g, sub(div(muPlus, add(nPlus, nmPlus)), div(muMinus, add(nMinus, nmMinus)))));
     // S_e − S = −((ε + G) χ+ / (n+ + ne+) + (ε − G) χ− / (n− + ne−))
-    const SeMinusS = neg(
-      add(div(mul(epsPlus, chiPlus), add(nPlus, nePlus)), div(mul(epsMinus, chiMinus), add(nMinus, neMinus))),
-    );
+    const SeMinusS = neg(add(div(mul(epsPlus, chiPlus), add(nPlus, nePlus)), div(mul(epsMinus, chiMinus), add(nMinus, neMinus))));
     const term1 = div(mul(epsDchi, SmMinusS), mul(S, Sm));
     const term2 = div(mul(scale(g, 2), SeMinusS), mul(S, Se));
     const term3 = div(mul(g, chiSum), S);

@@ -7,7 +7,9 @@ import { z } from "zod";
  */
 
 const finite = (what: string) =>
-  z.number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) }).refine(Number.isFinite, { message: `${what} must be finite` });
+  z
+    .number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) })
+    .refine(Number.isFinite, { message: `${what} must be finite` });
 
 const isHalfInteger = (j: number) => Math.abs(j * 2 - Math.round(j * 2)) < 1e-9 && j >= 0.5;
 
@@ -15,9 +17,7 @@ const isHalfInteger = (j: number) => Math.abs(j * 2 - Math.round(j * 2)) < 1e-9 
 export const materialShape = {
   ionDensityPerM3: finite("ion density").min(0, "must be ≥ 0 m⁻³").max(1e30, "must be ≤ 1e30 m⁻³"),
   landeG: finite("Landé g").gt(0, "must be > 0").max(10, "must be ≤ 10"),
-  totalJ: finite("J")
-    .max(50, "must be ≤ 50")
-    .refine(isHalfInteger, { message: "must be a positive multiple of 1/2 (1/2, 1, 3/2, …)" }),
+  totalJ: finite("J").max(50, "must be ≤ 50").refine(isHalfInteger, { message: "must be a positive multiple of 1/2 (1/2, 1, 3/2, …)" }),
   curieWeissK: finite("Curie–Weiss temperature").min(-1000, "must be ≥ −1000 K").max(1000, "must be ≤ 1000 K"),
   gilbertDamping: finite("Gilbert damping").min(0, "must be ≥ 0").max(10, "must be ≤ 10"),
   epsInf: finite("ε∞").gt(0, "must be > 0").max(100, "must be ≤ 100"),
@@ -54,9 +54,7 @@ const temperatureAboveCurieWeiss = <T extends WithTemps>(v: T, ctx: z.Refinement
 };
 
 /** A stored parameter set's model: material + conditions. */
-export const modelParamsSchema = z
-  .strictObject({ ...materialShape, ...conditionsShape })
-  .superRefine(temperatureAboveCurieWeiss);
+export const modelParamsSchema = z.strictObject({ ...materialShape, ...conditionsShape }).superRefine(temperatureAboveCurieWeiss);
 
 export type ModelParams = z.infer<typeof modelParamsSchema>;
 export type ModelParamsInput = z.input<typeof modelParamsSchema>;
@@ -75,10 +73,14 @@ export const spectrumRequestSchema = z
     ...materialShape,
     ...conditionsShape,
     wavelengthsNm: z
-      .array(finite("wavelength").gt(0, "each wavelength must be > 0 nm"), { error: (issue) => (issue.input === undefined ? "wavelengthsNm is required" : "wavelengthsNm must be a list of numbers") })
+      .array(finite("wavelength").gt(0, "each wavelength must be > 0 nm"), {
+        error: (issue) => (issue.input === undefined ? "wavelengthsNm is required" : "wavelengthsNm must be a list of numbers"),
+      })
       .min(1, "must hold at least one wavelength")
       .max(MAX_WAVELENGTHS, `must hold at most ${MAX_WAVELENGTHS} wavelengths`),
-    method: z.enum(["analytic", "llg"], { error: (issue) => (issue.input === undefined ? 'method is required ("analytic" or "llg")' : 'must be "analytic" or "llg"') }),
+    method: z.enum(["analytic", "llg"], {
+      error: (issue) => (issue.input === undefined ? 'method is required ("analytic" or "llg")' : 'must be "analytic" or "llg"'),
+    }),
     intensityWPerM2: finite("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²").optional(),
   })
   .superRefine(temperatureAboveCurieWeiss)
@@ -90,7 +92,10 @@ export const spectrumRequestSchema = z
         ctx.addIssue({
           code: "custom",
           path: ["wavelengthsNm", i],
-          message: cur === prev ? `duplicate wavelength ${cur} nm; values must be strictly increasing` : `must be strictly increasing (${cur} nm follows ${prev} nm)`,
+          message:
+            cur === prev
+              ? `duplicate wavelength ${cur} nm; values must be strictly increasing`
+              : `must be strictly increasing (${cur} nm follows ${prev} nm)`,
         });
         return;
       }
@@ -153,7 +158,11 @@ export const spinTraceRequestSchema = z
       });
     }
     if (v.fieldT === 0 || v.ionDensityPerM3 === 0) {
-      ctx.addIssue({ code: "custom", path: ["fieldT"], message: "a spin trace needs spins in a nonzero field (fieldT ≠ 0, ionDensityPerM3 > 0)" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["fieldT"],
+        message: "a spin trace needs spins in a nonzero field (fieldT ≠ 0, ionDensityPerM3 > 0)",
+      });
     }
   });
 

@@ -8,7 +8,15 @@ import { MU0_N_PER_A2, VACUUM_IMPEDANCE_OHM, angularFrequencyFromNm, gyromagneti
 import { deltaMzFromCone, llgSusceptibilities } from "./llg";
 import { staticMagnetization } from "./magnetization";
 import { absorptionCoefficientPerM, ellipticityAngleRad, transmissionOf } from "./absorption";
-import { type DielectricParams, diamagneticGyration, diamagneticRotationRad, gyration, permittivity, polderSusceptibilities, rotations } from "./optics";
+import {
+  type DielectricParams,
+  diamagneticGyration,
+  diamagneticRotationRad,
+  gyration,
+  permittivity,
+  polderSusceptibilities,
+  rotations,
+} from "./optics";
 import { type SpectrumRequest, formatIssues, spectrumRequestSchema } from "./schema";
 import type { ProgressCallback, SpectrumArrays, SpectrumPoint, SpectrumResult } from "./types";
 
@@ -160,7 +168,11 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
       if (!r.settled) flags[i] = flags[i]! | WAVELENGTH_FLAG_UNSETTLED;
       chiPlus1 = cx(r.plusRe, r.plusIm);
       chiMinus1 = cx(r.minusRe, r.minusIm);
-      maxDeviation = Math.max(maxDeviation, relDeviation(r.plusRe, r.plusIm, polder1.plus), relDeviation(r.minusRe, r.minusIm, polder1.minus));
+      maxDeviation = Math.max(
+        maxDeviation,
+        relDeviation(r.plusRe, r.plusIm, polder1.plus),
+        relDeviation(r.minusRe, r.minusIm, polder1.minus),
+      );
       if (hScaled !== undefined) {
         conePlus = r.conePlus;
         coneMinus = r.coneMinus;
@@ -212,7 +224,9 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
     ];
     for (const [name, v] of values) {
       if (v !== null && !Number.isFinite(v)) {
-        throw new NonFiniteResultError(`wavelengthsNm.${i}: computed ${name} is not finite at ${wavelengthNm} nm (the parameters reach a singularity there)`);
+        throw new NonFiniteResultError(
+          `wavelengthsNm.${i}: computed ${name} is not finite at ${wavelengthNm} nm (the parameters reach a singularity there)`,
+        );
       }
     }
     out.thetaRad[i] = rot.thetaRad;

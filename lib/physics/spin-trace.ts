@@ -47,7 +47,15 @@ export function computeSpinTrace(input: SpinTraceRequest): SpinTraceResult {
     uy.push(y);
     uz.push(z);
   };
-  const plus = lockIn({ w0, alpha, h, drive: 1, sign, plan, trace: { samplesPerPeriod: SAMPLES_PER_PERIOD, maxSettleSamples: MAX_SETTLE_SAMPLES, sink } });
+  const plus = lockIn({
+    w0,
+    alpha,
+    h,
+    drive: 1,
+    sign,
+    plan,
+    trace: { samplesPerPeriod: SAMPLES_PER_PERIOD, maxSettleSamples: MAX_SETTLE_SAMPLES, sink },
+  });
   const minus = lockIn({ w0, alpha, h, drive: -1, sign, plan });
 
   const factor = (p.magneticScale * Math.abs(omegaM)) / omega / h;

@@ -51,7 +51,8 @@ export function verdetToGyration(
 ): number {
   const lambdaRefM = (value.referenceWavelengthNm ?? DEFAULT_VERDET_REFERENCE.referenceWavelengthNm) * 1e-9;
   const lambdaEM = params.oscillatorWavelengthNm * 1e-9;
-  const e = "dispersionRadMPerT" in value ? value.dispersionRadMPerT : value.verdetRadPerTm * (lambdaRefM * lambdaRefM - lambdaEM * lambdaEM);
+  const e =
+    "dispersionRadMPerT" in value ? value.dispersionRadMPerT : value.verdetRadPerTm * (lambdaRefM * lambdaRefM - lambdaEM * lambdaEM);
   return e / conversionFactorM(params, value);
 }
 

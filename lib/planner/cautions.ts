@@ -41,7 +41,8 @@ export interface CautionContext {
 export function cautionsFor(ctx: CautionContext): Caution[] {
   const out: Caution[] = [];
   const laser: string[] = ctx.lines.map(
-    (l) => `${l.name} (${l.wavelengthNm} nm${l.powerW !== null ? `, ${formatPower(l.powerW)}` : ""}): indicative class ${indicativeLaserClass(l.wavelengthNm, l.powerW)}.`,
+    (l) =>
+      `${l.name} (${l.wavelengthNm} nm${l.powerW !== null ? `, ${formatPower(l.powerW)}` : ""}): indicative class ${indicativeLaserClass(l.wavelengthNm, l.powerW)}.`,
   );
   laser.push(
     "Classify each laser by IEC 60825-1 (and ANSI Z136.1 in the US); Class 3B and 4 beams need a controlled area, beam enclosures or stops, and eyewear of the optical density the laser safety officer specifies for that wavelength and power.",

@@ -10,7 +10,12 @@ const cell = (v: string | number | boolean) => {
   return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 };
 
-export function planToCsv(o: { setName: string; setVersion: number; result: Pick<PlanResult, "criterionLabel" | "criterionUnit" | "method" | "candidateCount" | "sigmaPerPointRad">; plan: RankedPlan }): string {
+export function planToCsv(o: {
+  setName: string;
+  setVersion: number;
+  result: Pick<PlanResult, "criterionLabel" | "criterionUnit" | "method" | "candidateCount" | "sigmaPerPointRad">;
+  plan: RankedPlan;
+}): string {
   const { result, plan } = o;
   const lines = [
     `# Gyrolux measurement plan for "${o.setName.replace(/\n/g, " ")}" (version ${o.setVersion})`,
@@ -20,7 +25,20 @@ export function planToCsv(o: { setName: string; setVersion: number; result: Pick
     ["line", "wavelength_nm", "temperature_K", "field_T", "count", "predicted_rotation_rad", "signal_to_noise", "below_noise"].join(","),
   ];
   for (const p of plan.points) {
-    lines.push([p.lineName, p.wavelengthNm, p.temperatureK, p.fieldT, p.count, p.rotationRad.toPrecision(6), p.signalToNoise.toPrecision(4), p.belowNoise].map(cell).join(","));
+    lines.push(
+      [
+        p.lineName,
+        p.wavelengthNm,
+        p.temperatureK,
+        p.fieldT,
+        p.count,
+        p.rotationRad.toPrecision(6),
+        p.signalToNoise.toPrecision(4),
+        p.belowNoise,
+      ]
+        .map(cell)
+        .join(","),
+    );
   }
   return lines.join("\n") + "\n";
 }

@@ -16,9 +16,7 @@
 export const SINGULAR_PIVOT = 1e-10;
 
 /** What the criterion asks of the covariance (in scaled parameters). */
-export type CriterionSpec =
-  | { kind: "linear"; /** σ² = hᵀ Cov h, h in scaled parameters. */ h: Float64Array }
-  | { kind: "dOptimal" };
+export type CriterionSpec = { kind: "linear" /** σ² = hᵀ Cov h, h in scaled parameters. */; h: Float64Array } | { kind: "dOptimal" };
 
 /**
  * Criterion value of a design from its p×p information (row-major, scaled parameters):

@@ -6,7 +6,10 @@
 export const MARKERS_QUERY_KEY = "markers";
 
 export function markersQueryValue(wavelengthsNm: readonly number[]): string {
-  return [...new Set(wavelengthsNm)].sort((a, b) => a - b).map((w) => String(w)).join(",");
+  return [...new Set(wavelengthsNm)]
+    .sort((a, b) => a - b)
+    .map((w) => String(w))
+    .join(",");
 }
 
 /** Positive finite wavelengths (nm), sorted, distinct, at most `max`. */

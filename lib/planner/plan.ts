@@ -120,7 +120,8 @@ export function buildCandidates(request: PlanRequest): PlanCandidate[] {
   // Temperature and field outermost: the lines at one (T, B) are one spectrum call of the model.
   for (const temperatureK of temps)
     for (const fieldT of fields)
-      for (const line of request.lines) out.push({ index: out.length, lineName: line.name, wavelengthNm: line.wavelengthNm, temperatureK, fieldT });
+      for (const line of request.lines)
+        out.push({ index: out.length, lineName: line.name, wavelengthNm: line.wavelengthNm, temperatureK, fieldT });
   return out;
 }
 
@@ -185,7 +186,8 @@ export function planMeasurements(request: PlanRequest, opts: PlanOptions = {}): 
   const SLICE = 512;
   for (let start = 0; start < C; start += SLICE) {
     const part = modelJacobian(params, keys, conditions.slice(start, start + SLICE));
-    for (let i = 0; i < part.valueJacobian.rows; i++) for (let j = 0; j < p; j++) valueJacobian.set(start + i, j, part.valueJacobian.get(i, j));
+    for (let i = 0; i < part.valueJacobian.rows; i++)
+      for (let j = 0; j < p; j++) valueJacobian.set(start + i, j, part.valueJacobian.get(i, j));
     checkCancel();
     opts.onProgress?.((JACOBIAN_SHARE * Math.min(C, start + SLICE)) / C);
   }
@@ -327,7 +329,9 @@ export function planMeasurements(request: PlanRequest, opts: PlanOptions = {}): 
   progress(1);
 
   const evaluation = evaluateModel(params, conditions);
-  const plans = top.items.map((d, i) => describePlan({ request, keys, scale, candidates, jac: jac.valueJacobian, evaluation, sigma, design: d, rank: i + 1, spec }));
+  const plans = top.items.map((d, i) =>
+    describePlan({ request, keys, scale, candidates, jac: jac.valueJacobian, evaluation, sigma, design: d, rank: i + 1, spec }),
+  );
   const lineRatios = computeLineRatios(request);
   return {
     criterion,
@@ -358,7 +362,13 @@ function criterionSpec(request: PlanRequest, keys: NumericParamKey[], scale: num
   // Share at the chosen wavelength, at the set's temperature and field: its gradient from the
   // same Jacobian module (the share does not depend on T or B unless the diamagnetic term is on).
   const at = modelJacobian(params, keys, [
-    { wavelengthNm: criterion.wavelengthNm, temperatureK: params.temperatureK, fieldT: params.fieldT || 1, lengthM: request.lengthM, quantity: "rotation" },
+    {
+      wavelengthNm: criterion.wavelengthNm,
+      temperatureK: params.temperatureK,
+      fieldT: params.fieldT || 1,
+      lengthM: request.lengthM,
+      quantity: "rotation",
+    },
   ]);
   keys.forEach((_, i) => {
     h[i] = at.shareJacobian.get(0, i) * scale[i]!;
@@ -383,7 +393,14 @@ function describePlan(o: {
   const points: PlanPoint[] = [...counts.entries()].map(([c, count]) => {
     const rotationRad = o.evaluation.value[c]!;
     const snr = Math.abs(rotationRad) / o.sigma;
-    return { ...o.candidates[c]!, count, rotationRad, magneticShare: o.evaluation.magneticShare[c]!, signalToNoise: snr, belowNoise: snr < 1 };
+    return {
+      ...o.candidates[c]!,
+      count,
+      rotationRad,
+      magneticShare: o.evaluation.magneticShare[c]!,
+      signalToNoise: snr,
+      belowNoise: snr < 1,
+    };
   });
   const p = o.keys.length;
   const separable = Number.isFinite(o.design.value);
@@ -417,19 +434,36 @@ function describePlan(o: {
 function computeLineRatios(request: PlanRequest): LineRatio[] {
   const { params } = request;
   const distinct = [...new Set(request.lines.map((l) => l.wavelengthNm))].sort((a, b) => a - b);
-  const arrays = computeSpectrumArrays({ ...params, fieldT: params.fieldT || 1, lengthM: request.lengthM, wavelengthsNm: distinct, method: "analytic" });
+  const arrays = computeSpectrumArrays({
+    ...params,
+    fieldT: params.fieldT || 1,
+    lengthM: request.lengthM,
+    wavelengthsNm: distinct,
+    method: "analytic",
+  });
   return request.lines.map((line) => {
     const j = distinct.indexOf(line.wavelengthNm);
     const electricRad = arrays.thetaElectricRad[j]!;
     const magneticRad = arrays.thetaMagneticRad[j]!;
-    return { lineName: line.name, wavelengthNm: line.wavelengthNm, electricRad, magneticRad, magneticOverElectric: electricRad === 0 ? null : magneticRad / electricRad };
+    return {
+      lineName: line.name,
+      wavelengthNm: line.wavelengthNm,
+      electricRad,
+      magneticRad,
+      magneticOverElectric: electricRad === 0 ? null : magneticRad / electricRad,
+    };
   });
 }
 
 const fmt = (x: number, digits = 3) => (Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : "∞");
 
 /** What the model implies for this request, in words. */
-export function planNotes(o: { request: PlanRequest; candidates: PlanCandidate[]; plans: RankedPlan[]; lineRatios: LineRatio[] }): string[] {
+export function planNotes(o: {
+  request: PlanRequest;
+  candidates: PlanCandidate[];
+  plans: RankedPlan[];
+  lineRatios: LineRatio[];
+}): string[] {
   const { request } = o;
   const notes: string[] = [];
   const diamagnetic = hasDiamagneticTerm(request.params);
@@ -461,17 +495,23 @@ export function planNotes(o: { request: PlanRequest; candidates: PlanCandidate[]
   }
   const best = o.plans[0];
   if (best && !best.separable) {
-    notes.push(`No plan of ${request.points} point(s) separates the free parameters (${request.freeKeys.join(", ")}): their effects on the rotation are proportional at every candidate point.`);
+    notes.push(
+      `No plan of ${request.points} point(s) separates the free parameters (${request.freeKeys.join(", ")}): their effects on the rotation are proportional at every candidate point.`,
+    );
   }
   if (best && best.separable && o.candidates.length > 0 && !diamagnetic) {
     const minT = Math.min(...o.candidates.map((c) => c.temperatureK));
     const maxAbsB = Math.max(...o.candidates.map((c) => Math.abs(c.fieldT)));
     if (best.points.every((pt) => pt.temperatureK === minT && Math.abs(pt.fieldT) === maxAbsB)) {
-      notes.push(`Every point of the best plan sits at the lowest temperature (${minT} K) and the highest field (${maxAbsB} T): there M0, and so the signal, is largest.`);
+      notes.push(
+        `Every point of the best plan sits at the lowest temperature (${minT} K) and the highest field (${maxAbsB} T): there M0, and so the signal, is largest.`,
+      );
     }
   }
   if (best && best.points.some((pt) => pt.belowNoise)) {
-    notes.push("Some points of the best plan are below the noise of one measurement (flagged): they still add information through repetition, but check the noise figure.");
+    notes.push(
+      "Some points of the best plan are below the noise of one measurement (flagged): they still add information through repetition, but check the noise figure.",
+    );
   }
   return notes;
 }

@@ -7,7 +7,9 @@ import { planRequestSchema } from "./schema";
  */
 
 const finite = (what: string) =>
-  z.number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) }).refine(Number.isFinite, { message: `${what} must be finite` });
+  z
+    .number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) })
+    .refine(Number.isFinite, { message: `${what} must be finite` });
 
 const nameSchema = z.string({ error: "Must be text." }).trim().min(1, "Give it a name.").max(120, "At most 120 characters.");
 
@@ -22,12 +24,20 @@ const lightSourceFields = {
 type LightSourceFields = { wavelengthNm: number; tunableMinNm: number | null; tunableMaxNm: number | null };
 const tunableRangeRule = (v: LightSourceFields, ctx: z.RefinementCtx) => {
   if ((v.tunableMinNm === null) !== (v.tunableMaxNm === null)) {
-    ctx.addIssue({ code: "custom", path: [v.tunableMinNm === null ? "tunableMinNm" : "tunableMaxNm"], message: "Give both ends of the tunable range, or neither." });
+    ctx.addIssue({
+      code: "custom",
+      path: [v.tunableMinNm === null ? "tunableMinNm" : "tunableMaxNm"],
+      message: "Give both ends of the tunable range, or neither.",
+    });
     return;
   }
   if (v.tunableMinNm !== null && v.tunableMaxNm !== null) {
     if (!(v.tunableMinNm <= v.wavelengthNm && v.wavelengthNm <= v.tunableMaxNm)) {
-      ctx.addIssue({ code: "custom", path: ["wavelengthNm"], message: `Must lie in the tunable range ${v.tunableMinNm}–${v.tunableMaxNm} nm.` });
+      ctx.addIssue({
+        code: "custom",
+        path: ["wavelengthNm"],
+        message: `Must lie in the tunable range ${v.tunableMinNm}–${v.tunableMaxNm} nm.`,
+      });
     }
   }
 };
@@ -35,7 +45,9 @@ const tunableRangeRule = (v: LightSourceFields, ctx: z.RefinementCtx) => {
 export const lightSourceInputSchema = z.strictObject(lightSourceFields).superRefine(tunableRangeRule);
 export type LightSourceInput = z.infer<typeof lightSourceInputSchema>;
 
-export const createLightSourceSchema = z.strictObject({ labId: z.uuid("Must be a lab id."), ...lightSourceFields }).superRefine(tunableRangeRule);
+export const createLightSourceSchema = z
+  .strictObject({ labId: z.uuid("Must be a lab id."), ...lightSourceFields })
+  .superRefine(tunableRangeRule);
 export type CreateLightSourceInput = z.infer<typeof createLightSourceSchema>;
 
 /** PATCH: any subset; merged with the stored line and checked again as a whole. */

@@ -21,7 +21,11 @@ export const rotatorRequestSchema = z.strictObject({
   params: modelParamsSchema,
   wavelengthNm: z.number().gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
   temperatureK: z.number().gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
-  fieldT: z.number().min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T").refine((b) => b !== 0, { message: "a rotator needs a nonzero field" }),
+  fieldT: z
+    .number()
+    .min(-100, "must be ≥ −100 T")
+    .max(100, "must be ≤ 100 T")
+    .refine((b) => b !== 0, { message: "a rotator needs a nonzero field" }),
   targetAngleDeg: z.number().gt(0, "must be > 0°").max(3600, "must be ≤ 3600°").default(45),
   isolationTargetDb: z.number().gt(0, "must be > 0 dB").max(100, "must be ≤ 100 dB").default(30),
 });
@@ -73,7 +77,9 @@ export function brillouinDerivative(totalJ: number, x: number): number {
  * differentiation of M = Ms B_J(x), x = k (B0 + μ0 λW M), k = g μB J/(kB T):
  *   dM = Ms B_J'(x) (k dB0 + k μ0 λW dM − (x/T) dT).
  */
-export function magnetizationDerivatives(p: Pick<ModelParams, "ionDensityPerM3" | "landeG" | "totalJ" | "curieWeissK" | "temperatureK" | "fieldT">): {
+export function magnetizationDerivatives(
+  p: Pick<ModelParams, "ionDensityPerM3" | "landeG" | "totalJ" | "curieWeissK" | "temperatureK" | "fieldT">,
+): {
   m0: number;
   dMdB: number;
   dMdT: number;
@@ -116,14 +122,16 @@ export interface RotatorResult {
 }
 
 function rotationRad(params: ModelParams, wavelengthNm: number, temperatureK: number, fieldT: number, lengthM: number): number {
-  return computeSpectrum({ ...params, temperatureK, fieldT, lengthM, wavelengthsNm: [wavelengthNm], method: "analytic" }).points[0]!.thetaRad;
+  return computeSpectrum({ ...params, temperatureK, fieldT, lengthM, wavelengthsNm: [wavelengthNm], method: "analytic" }).points[0]!
+    .thetaRad;
 }
 
 /** The window around x0 where |f(x) − f(x0)| ≤ tol, searched out to [lo, hi]; f monotone there. */
 function windowAround(f: (x: number) => number, x0: number, tol: number, lo: number, hi: number): Window {
   const f0 = f(x0);
   const g = (x: number) => Math.abs(f(x) - f0) - tol;
-  const side = (end: number) => (g(end) <= 0 ? { x: end, open: true } : { x: brentRoot(g, Math.min(x0, end), Math.max(x0, end), 1e-9 * Math.abs(x0 || 1)), open: false });
+  const side = (end: number) =>
+    g(end) <= 0 ? { x: end, open: true } : { x: brentRoot(g, Math.min(x0, end), Math.max(x0, end), 1e-9 * Math.abs(x0 || 1)), open: false };
   const l = side(lo);
   const h = side(hi);
   return { low: l.x, high: h.x, lowOpen: l.open, highOpen: h.open };
@@ -152,9 +160,21 @@ export function sizeRotator(request: RotatorRequest): RotatorResult {
     // Temperatures from just above the Curie–Weiss point (or 0.1 K) to 1000 K; fields of the same
     // sign as B0 out to 10× |B0| (the magnet, not the model, limits the field).
     const tLow = Math.max(params.curieWeissK, 0) + 0.1;
-    temperatureWindowK = windowAround((t) => rotationRad(params, wavelengthNm, t, fieldT, lengthM), temperatureK, tol, Math.min(tLow, temperatureK), Math.max(1000, temperatureK));
+    temperatureWindowK = windowAround(
+      (t) => rotationRad(params, wavelengthNm, t, fieldT, lengthM),
+      temperatureK,
+      tol,
+      Math.min(tLow, temperatureK),
+      Math.max(1000, temperatureK),
+    );
     const sign = Math.sign(fieldT);
-    const w = windowAround((b) => rotationRad(params, wavelengthNm, temperatureK, sign * b, lengthM), Math.abs(fieldT), tol, Math.abs(fieldT) * 1e-3, Math.abs(fieldT) * 10);
+    const w = windowAround(
+      (b) => rotationRad(params, wavelengthNm, temperatureK, sign * b, lengthM),
+      Math.abs(fieldT),
+      tol,
+      Math.abs(fieldT) * 1e-3,
+      Math.abs(fieldT) * 10,
+    );
     fieldWindowT = sign > 0 ? w : { low: -w.high, high: -w.low, lowOpen: w.highOpen, highOpen: w.lowOpen };
   }
   return {

@@ -8,7 +8,9 @@ import { modelParamsSchema } from "@/lib/physics/schema";
  */
 
 const finite = (what: string) =>
-  z.number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) }).refine(Number.isFinite, { message: `${what} must be finite` });
+  z
+    .number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) })
+    .refine(Number.isFinite, { message: `${what} must be finite` });
 
 /** Per axis (temperature, field) at most this many steps; keeps the candidate list readable. */
 export const MAX_STEPS_PER_AXIS = 200;
@@ -82,15 +84,23 @@ export const planRequestSchema = z
     noise: noiseSchema,
     points: finite("number of points").int("must be a whole number").max(MAX_PLAN_POINTS, `must be ≤ ${MAX_PLAN_POINTS}`),
     criterion: criterionSchema,
-    freeKeys: z.array(z.string()).min(1, "free at least one parameter").max(8, "free at most 8 parameters").default([...DEFAULT_FREE_KEYS]),
+    freeKeys: z
+      .array(z.string())
+      .min(1, "free at least one parameter")
+      .max(8, "free at most 8 parameters")
+      .default([...DEFAULT_FREE_KEYS]),
     topPlans: finite("number of plans").int().min(1).max(20).default(5),
   })
   .superRefine((v, ctx) => {
     const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
-    if (v.lines.length === 0) issue(["lines"], "no lines: add at least one light source (two or more different wavelengths are needed to separate the parts)");
+    if (v.lines.length === 0)
+      issue(["lines"], "no lines: add at least one light source (two or more different wavelengths are needed to separate the parts)");
     if (v.points < 1) issue(["points"], "zero points: a plan needs at least one point (at least one per free parameter for a finite σ)");
     if (v.points >= 1 && v.points < v.freeKeys.length) {
-      issue(["points"], `${v.freeKeys.length} free parameters need at least ${v.freeKeys.length} points for a finite σ; you allowed ${v.points}`);
+      issue(
+        ["points"],
+        `${v.freeKeys.length} free parameters need at least ${v.freeKeys.length} points for a finite σ; you allowed ${v.points}`,
+      );
     }
     if (v.temperatures.maxK < v.temperatures.minK) issue(["temperatures", "maxK"], "must be ≥ the lowest temperature");
     const cw = v.params.curieWeissK;
@@ -103,22 +113,32 @@ export const planRequestSchema = z
     if (v.fields.maxT < v.fields.minT) issue(["fields", "maxT"], "must be ≥ the lowest field");
     const tSteps = Math.floor((v.temperatures.maxK - v.temperatures.minK) / v.temperatures.stepK + 1e-9) + 1;
     const bSteps = Math.floor((v.fields.maxT - v.fields.minT) / v.fields.stepT + 1e-9) + 1;
-    if (tSteps > MAX_STEPS_PER_AXIS) issue(["temperatures", "stepK"], `gives ${tSteps} temperatures; at most ${MAX_STEPS_PER_AXIS} (use a coarser step)`);
-    if (bSteps > MAX_STEPS_PER_AXIS) issue(["fields", "stepT"], `gives ${bSteps} fields; at most ${MAX_STEPS_PER_AXIS} (use a coarser step)`);
+    if (tSteps > MAX_STEPS_PER_AXIS)
+      issue(["temperatures", "stepK"], `gives ${tSteps} temperatures; at most ${MAX_STEPS_PER_AXIS} (use a coarser step)`);
+    if (bSteps > MAX_STEPS_PER_AXIS)
+      issue(["fields", "stepT"], `gives ${bSteps} fields; at most ${MAX_STEPS_PER_AXIS} (use a coarser step)`);
     const candidates = v.lines.length * Math.max(tSteps, 0) * Math.max(bSteps, 0);
-    if (candidates > MAX_CANDIDATES) issue(["lines"], `${candidates} candidate points; at most ${MAX_CANDIDATES} (fewer lines or coarser steps)`);
-    if (v.fields.minT === 0 && v.fields.maxT === 0) issue(["fields"], "a field of 0 T gives no rotation at all: let the magnet reach a nonzero field");
-    const numeric = new Set(Object.entries(v.params).filter(([k, x]) => typeof x === "number" && !["temperatureK", "fieldT", "lengthM"].includes(k)).map(([k]) => k));
+    if (candidates > MAX_CANDIDATES)
+      issue(["lines"], `${candidates} candidate points; at most ${MAX_CANDIDATES} (fewer lines or coarser steps)`);
+    if (v.fields.minT === 0 && v.fields.maxT === 0)
+      issue(["fields"], "a field of 0 T gives no rotation at all: let the magnet reach a nonzero field");
+    const numeric = new Set(
+      Object.entries(v.params)
+        .filter(([k, x]) => typeof x === "number" && !["temperatureK", "fieldT", "lengthM"].includes(k))
+        .map(([k]) => k),
+    );
     const seen = new Set<string>();
     v.freeKeys.forEach((k, i) => {
       if (!numeric.has(k)) issue(["freeKeys", i], `${k} is not a numeric material parameter of this set`);
       if (seen.has(k)) issue(["freeKeys", i], `${k} is listed twice`);
       seen.add(k);
     });
-    if (v.criterion.kind === "magneticScale" && !seen.has("magneticScale")) issue(["criterion"], "pinning down magneticScale needs magneticScale among the free parameters");
+    if (v.criterion.kind === "magneticScale" && !seen.has("magneticScale"))
+      issue(["criterion"], "pinning down magneticScale needs magneticScale among the free parameters");
     if (v.params.sellmeierB > 0) {
       v.lines.forEach((line, i) => {
-        if (!(line.wavelengthNm > v.params.sellmeierWavelengthNm)) issue(["lines", i, "wavelengthNm"], `must be above the Sellmeier pole of this set (${v.params.sellmeierWavelengthNm} nm)`);
+        if (!(line.wavelengthNm > v.params.sellmeierWavelengthNm))
+          issue(["lines", i, "wavelengthNm"], `must be above the Sellmeier pole of this set (${v.params.sellmeierWavelengthNm} nm)`);
       });
       if (v.criterion.kind === "share" && !(v.criterion.wavelengthNm > v.params.sellmeierWavelengthNm)) {
         issue(["criterion", "wavelengthNm"], `must be above the Sellmeier pole of this set (${v.params.sellmeierWavelengthNm} nm)`);
@@ -126,7 +146,8 @@ export const planRequestSchema = z
     }
     if (v.params.oscillatorDampingRadPerS === 0) {
       v.lines.forEach((line, i) => {
-        if (line.wavelengthNm === v.params.oscillatorWavelengthNm) issue(["lines", i, "wavelengthNm"], "must not equal the oscillator wavelength when its damping is 0");
+        if (line.wavelengthNm === v.params.oscillatorWavelengthNm)
+          issue(["lines", i, "wavelengthNm"], "must not equal the oscillator wavelength when its damping is 0");
       });
     }
   });

@@ -11,7 +11,9 @@ export function useSaveFit(setId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: SaveFitInput) =>
-      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(setId)}/fits`, { method: "POST", json: input }).then((r) => r.item),
+      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(setId)}/fits`, { method: "POST", json: input }).then(
+        (r) => r.item,
+      ),
     // The set's own entry is left alone: the workbench is keyed by the version it shows, so
     // updating it would replace the page (and the fit report) at once; the report offers to load it.
     onSuccess: () => {

@@ -23,8 +23,7 @@ const LIST_ROOT = ["parameter-sets"] as const;
 
 export const parameterSetKeys = {
   lists: () => LIST_ROOT,
-  list: (filter: ParameterSetFilter) =>
-    [...LIST_ROOT, { labId: filter.labId ?? "", q: filter.q ?? "", tag: filter.tag ?? "" }] as const,
+  list: (filter: ParameterSetFilter) => [...LIST_ROOT, { labId: filter.labId ?? "", q: filter.q ?? "", tag: filter.tag ?? "" }] as const,
   detail: (id: string) => ["parameter-set", id] as const,
   versions: (id: string) => ["parameter-set", id, "versions"] as const,
 };
@@ -75,7 +74,10 @@ export function useParameterSetPages(filter: ParameterSetFilter) {
 
 /** The history screen: pages of versions, newest first. */
 export function useParameterSetVersionPages(id: string) {
-  return usePagedList<ParameterSetVersion>({ queryKey: parameterSetKeys.versions(id), path: `/api/parameter-sets/${encodeURIComponent(id)}/versions` });
+  return usePagedList<ParameterSetVersion>({
+    queryKey: parameterSetKeys.versions(id),
+    path: `/api/parameter-sets/${encodeURIComponent(id)}/versions`,
+  });
 }
 
 export function useParameterSet(id: string) {
@@ -130,10 +132,10 @@ export function useRestoreVersion(id: string) {
   const invalidate = useInvalidateSet();
   return useMutation({
     mutationFn: (input: { restore: number; currentVersion: number }) =>
-      apiFetch<ItemResponse<ParameterSet>>(
-        `/api/parameter-sets/${encodeURIComponent(id)}/versions/${input.restore}/restore`,
-        { method: "POST", json: { version: input.currentVersion } },
-      ).then((r) => r.item),
+      apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(id)}/versions/${input.restore}/restore`, {
+        method: "POST",
+        json: { version: input.currentVersion },
+      }).then((r) => r.item),
     onSuccess: (item) => invalidate(item, id),
   });
 }

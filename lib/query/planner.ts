@@ -13,13 +13,15 @@ export const plannerKeys = {
 export const lightSourcesQuery = (labId: string) =>
   queryOptions({
     queryKey: plannerKeys.lightSources(labId),
-    queryFn: ({ signal }) => apiFetch<ItemsResponse<LightSource>>(`/api/light-sources?labId=${encodeURIComponent(labId)}`, { signal }).then((r) => r.items),
+    queryFn: ({ signal }) =>
+      apiFetch<ItemsResponse<LightSource>>(`/api/light-sources?labId=${encodeURIComponent(labId)}`, { signal }).then((r) => r.items),
   });
 
 export const plansQuery = (setId: string) =>
   queryOptions({
     queryKey: plannerKeys.plans(setId),
-    queryFn: ({ signal }) => apiFetch<ItemsResponse<SavedPlan>>(`/api/parameter-sets/${encodeURIComponent(setId)}/plans`, { signal }).then((r) => r.items),
+    queryFn: ({ signal }) =>
+      apiFetch<ItemsResponse<SavedPlan>>(`/api/parameter-sets/${encodeURIComponent(setId)}/plans`, { signal }).then((r) => r.items),
   });
 
 export function useLightSources(labId: string | null) {
@@ -43,7 +45,10 @@ export function useUpdateLightSource(labId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: { id: string; patch: UpdateLightSourceInput }) =>
-      apiFetch<ItemResponse<LightSource>>(`/api/light-sources/${encodeURIComponent(input.id)}`, { method: "PATCH", json: input.patch }).then((r) => r.item),
+      apiFetch<ItemResponse<LightSource>>(`/api/light-sources/${encodeURIComponent(input.id)}`, {
+        method: "PATCH",
+        json: input.patch,
+      }).then((r) => r.item),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: plannerKeys.lightSources(labId) }),
   });
 }
@@ -60,7 +65,9 @@ export function useSavePlan(setId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: SavePlanInput) =>
-      apiFetch<ItemResponse<SavedPlan>>(`/api/parameter-sets/${encodeURIComponent(setId)}/plans`, { method: "POST", json: input }).then((r) => r.item),
+      apiFetch<ItemResponse<SavedPlan>>(`/api/parameter-sets/${encodeURIComponent(setId)}/plans`, { method: "POST", json: input }).then(
+        (r) => r.item,
+      ),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: plannerKeys.plans(setId) }),
   });
 }
@@ -68,7 +75,8 @@ export function useSavePlan(setId: string) {
 export function useDeletePlan(setId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (planId: string) => apiFetch<void>(`/api/parameter-sets/${encodeURIComponent(setId)}/plans/${encodeURIComponent(planId)}`, { method: "DELETE" }),
+    mutationFn: (planId: string) =>
+      apiFetch<void>(`/api/parameter-sets/${encodeURIComponent(setId)}/plans/${encodeURIComponent(planId)}`, { method: "DELETE" }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: plannerKeys.plans(setId) }),
   });
 }

@@ -23,7 +23,10 @@ export const runKeys = {
 export const runsQuery = (labId: string | null) =>
   queryOptions({
     queryKey: runKeys.list(labId),
-    queryFn: ({ signal }) => apiFetch<ItemsResponse<LabRunSummary>>(labId ? `/api/runs?labId=${encodeURIComponent(labId)}` : "/api/runs", { signal }).then((r) => r.items),
+    queryFn: ({ signal }) =>
+      apiFetch<ItemsResponse<LabRunSummary>>(labId ? `/api/runs?labId=${encodeURIComponent(labId)}` : "/api/runs", { signal }).then(
+        (r) => r.items,
+      ),
     refetchInterval: (q) => (q.state.data?.some((r) => active(r.state)) ? POLL_MS : false),
   });
 
@@ -56,7 +59,8 @@ export function useRunResult(id: string, enabled: boolean) {
 export function useSubmitRun() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (input: SubmitRunInput) => apiFetch<ItemResponse<LabRunSummary>>("/api/runs", { method: "POST", json: input }).then((r) => r.item),
+    mutationFn: (input: SubmitRunInput) =>
+      apiFetch<ItemResponse<LabRunSummary>>("/api/runs", { method: "POST", json: input }).then((r) => r.item),
     onSuccess: () => client.invalidateQueries({ queryKey: runKeys.lists() }),
   });
 }
@@ -64,7 +68,8 @@ export function useSubmitRun() {
 export function useCancelRun() {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (id: string) => apiFetch<ItemResponse<LabRunDetail>>(`/api/runs/${encodeURIComponent(id)}/cancel`, { method: "POST", json: {} }).then((r) => r.item),
+    mutationFn: (id: string) =>
+      apiFetch<ItemResponse<LabRunDetail>>(`/api/runs/${encodeURIComponent(id)}/cancel`, { method: "POST", json: {} }).then((r) => r.item),
     onSuccess: (item) => {
       client.setQueryData(runKeys.detail(item.id), item);
       return client.invalidateQueries({ queryKey: runKeys.lists() });

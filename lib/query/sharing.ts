@@ -16,7 +16,11 @@ export const sharingKeys = {
 };
 
 export function useInvitations(labId: string, enabled: boolean) {
-  return usePagedList<InvitationSummary>({ queryKey: sharingKeys.invitations(labId), path: `/api/labs/${encodeURIComponent(labId)}/invitations`, enabled });
+  return usePagedList<InvitationSummary>({
+    queryKey: sharingKeys.invitations(labId),
+    path: `/api/labs/${encodeURIComponent(labId)}/invitations`,
+    enabled,
+  });
 }
 
 export function useInvite(labId: string) {
@@ -31,19 +35,27 @@ export function useInvite(labId: string) {
 export function useRevokeInvitation(labId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (id: string) => apiFetch<void>(`/api/labs/${encodeURIComponent(labId)}/invitations/${encodeURIComponent(id)}`, { method: "DELETE" }),
+    mutationFn: (id: string) =>
+      apiFetch<void>(`/api/labs/${encodeURIComponent(labId)}/invitations/${encodeURIComponent(id)}`, { method: "DELETE" }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: sharingKeys.invitations(labId) }),
   });
 }
 
 export function useShareLinks(setId: string) {
-  return usePagedList<ShareLinkSummary>({ queryKey: sharingKeys.shareLinks(setId), path: `/api/parameter-sets/${encodeURIComponent(setId)}/share-links` });
+  return usePagedList<ShareLinkSummary>({
+    queryKey: sharingKeys.shareLinks(setId),
+    path: `/api/parameter-sets/${encodeURIComponent(setId)}/share-links`,
+  });
 }
 
 export function useCreateShareLink(setId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => apiFetch<{ item: ShareLinkSummary; url: string }>(`/api/parameter-sets/${encodeURIComponent(setId)}/share-links`, { method: "POST", json: {} }),
+    mutationFn: () =>
+      apiFetch<{ item: ShareLinkSummary; url: string }>(`/api/parameter-sets/${encodeURIComponent(setId)}/share-links`, {
+        method: "POST",
+        json: {},
+      }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: sharingKeys.shareLinks(setId) }),
   });
 }
@@ -79,7 +91,8 @@ export function useAudit(labId: string, filters: Record<string, string>) {
 
 export function useChangePassword() {
   return useMutation({
-    mutationFn: (input: { currentPassword: string; newPassword: string }) => apiFetch<{ ok: true }>("/api/account/password", { method: "POST", json: input }),
+    mutationFn: (input: { currentPassword: string; newPassword: string }) =>
+      apiFetch<{ ok: true }>("/api/account/password", { method: "POST", json: input }),
   });
 }
 

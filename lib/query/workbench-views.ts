@@ -59,7 +59,9 @@ export function useShareView(setId: string) {
       }).then((r) => r.item),
     onSuccess: (item) => {
       queryClient.setQueryData(parameterSetKeys.detail(setId), item);
-      queryClient.setQueryData<MyWorkbenchView>(workbenchViewKeys.mine(setId), (old) => (old ? { ...old, sharedViewState: item.viewState } : old));
+      queryClient.setQueryData<MyWorkbenchView>(workbenchViewKeys.mine(setId), (old) =>
+        old ? { ...old, sharedViewState: item.viewState } : old,
+      );
     },
   });
 }

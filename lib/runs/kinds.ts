@@ -142,7 +142,10 @@ export const mapRun: RunKindHandler<MapPayload> = {
     const xs = axisValues(p.wavelengths);
     const ys = mapRowValues(p);
     const n = xs.length * (chunk.end - chunk.start);
-    const columns = Object.fromEntries(MAP_COLUMNS.map((c) => [c, new Float64Array(n)])) as Record<(typeof MAP_COLUMNS)[number], Float64Array>;
+    const columns = Object.fromEntries(MAP_COLUMNS.map((c) => [c, new Float64Array(n)])) as Record<
+      (typeof MAP_COLUMNS)[number],
+      Float64Array
+    >;
     let deviation: number | undefined;
     const warnings = new Set<string>();
     for (let j = chunk.start; j < chunk.end; j++) {
@@ -211,7 +214,8 @@ export const spectrumRun: RunKindHandler<SpectrumPayload> = {
   label: "Spectrum",
   payloadSchema: spectrumPayloadSchema,
   cells: (p) => p.wavelengths.count,
-  describe: (p) => `${p.method === "llg" ? "numerical LLG" : "analytic"} spectrum, ${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm)`,
+  describe: (p) =>
+    `${p.method === "llg" ? "numerical LLG" : "analytic"} spectrum, ${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm)`,
   chunks(p) {
     const out: RunChunk[] = [];
     for (let start = 0; start < p.wavelengths.count; start += SPECTRUM_CHUNK) {

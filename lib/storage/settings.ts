@@ -15,7 +15,10 @@ export const storageEnvSchema = z
     GYROLUX_S3_REGION: z.string().min(1).default("us-east-1"),
     GYROLUX_S3_BUCKET: z
       .string()
-      .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "GYROLUX_S3_BUCKET must be a valid S3 bucket name (3–63 lower-case letters, digits, dots, hyphens)")
+      .regex(
+        /^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/,
+        "GYROLUX_S3_BUCKET must be a valid S3 bucket name (3–63 lower-case letters, digits, dots, hyphens)",
+      )
       .default("gyrolux-measurements"),
     GYROLUX_S3_ACCESS_KEY: z.string().min(1).default("S3RVER"),
     GYROLUX_S3_SECRET_KEY: z.string().min(1).default("S3RVER"),

@@ -62,7 +62,7 @@ export function linearToLab(lin: Rgb): Rgb {
   const x = 0.4124 * lin[0] + 0.3576 * lin[1] + 0.1805 * lin[2];
   const y = 0.2126 * lin[0] + 0.7152 * lin[1] + 0.0722 * lin[2];
   const z = 0.0193 * lin[0] + 0.1192 * lin[1] + 0.9505 * lin[2];
-  const f = (t: number) => (t > 216 / 24389 ? Math.cbrt(t) : (24389 / 27 * t + 16) / 116);
+  const f = (t: number) => (t > 216 / 24389 ? Math.cbrt(t) : ((24389 / 27) * t + 16) / 116);
   const fx = f(x / 0.95047);
   const fy = f(y / 1);
   const fz = f(z / 1.08883);

@@ -41,5 +41,7 @@ export function createPool(opts: { size?: number } = {}): WorkbenchPool {
 }
 
 export function isAbortError(error: unknown): boolean {
-  return (error instanceof DOMException || error instanceof Error) && (error.name === "AbortError" || error.name === "SpectrumCancelledError");
+  return (
+    (error instanceof DOMException || error instanceof Error) && (error.name === "AbortError" || error.name === "SpectrumCancelledError")
+  );
 }

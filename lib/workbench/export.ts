@@ -76,17 +76,33 @@ export function chosenUnitColumns(display: { xUnit: XUnit; yMode: YMode } | unde
   if (!display) return [];
   const out: ChosenUnitColumn[] = [];
   const { xUnit, yMode } = display;
-  if (xUnit !== "nm") out.push({ ...X_COLUMN[xUnit], meaning: `${X_COLUMN[xUnit].meaning}, the plot's x unit`, scaled: false, value: (p) => fromNm(p.wavelengthNm, xUnit) });
+  if (xUnit !== "nm")
+    out.push({
+      ...X_COLUMN[xUnit],
+      meaning: `${X_COLUMN[xUnit].meaning}, the plot's x unit`,
+      scaled: false,
+      value: (p) => fromNm(p.wavelengthNm, xUnit),
+    });
   if (yMode === "mrad" || yMode === "deg") {
     const unit = yMode === "mrad" ? "mrad" : "deg";
     for (const part of ROTATION_PARTS) {
-      out.push({ name: `${part.key}_${unit}`, meaning: `${part.label} (${unit === "deg" ? "degrees" : "mrad"}), the plot's y unit`, scaled: part.key !== "theta_electric", value: (p, g) => rotationTo(part.pick(p), yMode, g) });
+      out.push({
+        name: `${part.key}_${unit}`,
+        meaning: `${part.label} (${unit === "deg" ? "degrees" : "mrad"}), the plot's y unit`,
+        scaled: part.key !== "theta_electric",
+        value: (p, g) => rotationTo(part.pick(p), yMode, g),
+      });
     }
   } else if (yMode === "verdet") {
     // The total is the SI column verdet_rad_per_T_m already; its parts are added.
     for (const part of ROTATION_PARTS.slice(1)) {
       const name = part.key === "ellipticity" ? "ellipticity_per_B0_L_rad_per_T_m" : `verdet_${part.key.replace("theta_", "")}_rad_per_T_m`;
-      out.push({ name, meaning: `${part.label} / (B0 L) (rad/(T·m)), the plot's y unit`, scaled: part.key !== "theta_electric", value: (p, g) => rotationTo(part.pick(p), yMode, g) });
+      out.push({
+        name,
+        meaning: `${part.label} / (B0 L) (rad/(T·m)), the plot's y unit`,
+        scaled: part.key !== "theta_electric",
+        value: (p, g) => rotationTo(part.pick(p), yMode, g),
+      });
     }
   }
   return out;
@@ -182,7 +198,12 @@ export function buildSpectrumJson(meta: ExportMeta, params: ModelParams, result:
 
 /** A file name without characters that browsers or shells dislike. */
 export function exportFileName(setName: string, suffix: string, ext: string): string {
-  const base = setName.normalize("NFKD").replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 60) || "gyrolux";
+  const base =
+    setName
+      .normalize("NFKD")
+      .replace(/[^\w.-]+/g, "-")
+      .replace(/^-+|-+$/g, "")
+      .slice(0, 60) || "gyrolux";
   return `${base}-${suffix}.${ext}`;
 }
 

@@ -71,11 +71,15 @@ export function methodProblems(kind: MapKind, method: MapMethod, params: ModelPa
   const out: string[] = [];
   const [aLo, aHi] = NUMERICAL_LIMITS.gilbertDamping;
   if (!inside(params.gilbertDamping, NUMERICAL_LIMITS.gilbertDamping)) {
-    out.push(`Numerical LLG needs Gilbert damping α between ${aLo} and ${aHi}; this set has α = ${fmt(params.gilbertDamping)}. Use the analytic method.`);
+    out.push(
+      `Numerical LLG needs Gilbert damping α between ${aLo} and ${aHi}; this set has α = ${fmt(params.gilbertDamping)}. Use the analytic method.`,
+    );
   }
   const [wLo, wHi] = NUMERICAL_LIMITS.wavelengthNm;
   if (range.toNm < wLo || range.fromNm > wHi) {
-    out.push(`Numerical LLG covers ${wLo} nm–${wHi / 1000} µm; the wavelength range ${fmt(range.fromNm)}–${fmt(range.toNm)} nm lies outside it.`);
+    out.push(
+      `Numerical LLG covers ${wLo} nm–${wHi / 1000} µm; the wavelength range ${fmt(range.fromNm)}–${fmt(range.toNm)} nm lies outside it.`,
+    );
   }
   if (kind === "temperature" && !inside(Math.abs(params.fieldT), NUMERICAL_LIMITS.absFieldT)) {
     const [bLo, bHi] = NUMERICAL_LIMITS.absFieldT;
@@ -126,7 +130,10 @@ export function parseFieldAxis(drafts: FieldAxisDrafts, method: MapMethod): { fr
   if (to > 100) return { error: "|B0| to must be ≤ 100 T." };
   if (method === "llg") {
     const [lo, hi] = NUMERICAL_LIMITS.absFieldT;
-    if (from < lo || to > hi) return { error: `Numerical LLG is specified for |B0| from ${lo} to ${hi} T; set the field axis within ${lo}–${hi} T or use the analytic method.` };
+    if (from < lo || to > hi)
+      return {
+        error: `Numerical LLG is specified for |B0| from ${lo} to ${hi} T; set the field axis within ${lo}–${hi} T or use the analytic method.`,
+      };
   }
   return { fromT: from, toT: to };
 }
@@ -354,9 +361,15 @@ export function axisIndependence(
 ): AxisIndependence {
   const axis = AXIS_NAME[kind];
   const what = MAP_QUANTITY_VIEW[q].short;
-  const measured = change === null ? "" : ` Largest relative change along the ${axis} axis in this map: ${change.relative === 0 ? "0" : change.relative.toExponential(1)}.`;
+  const measured =
+    change === null
+      ? ""
+      : ` Largest relative change along the ${axis} axis in this map: ${change.relative === 0 ? "0" : change.relative.toExponential(1)}.`;
   if (change === null) {
-    return { independent: true, reason: `The ${what} is undefined on this whole map (for example, no field or no rotation), so there is nothing to draw.` };
+    return {
+      independent: true,
+      reason: `The ${what} is undefined on this whole map (for example, no field or no rotation), so there is nothing to draw.`,
+    };
   }
   if (change.relative <= CONSTANT_REL_TOL) {
     return {

@@ -23,7 +23,12 @@ const X_SYMBOL: Record<XUnit, string> = { nm: "λ", um: "λ", eV: "E", "cm-1": "
 export function markerColumns(xUnit: XUnit, yMode: YMode): MarkerColumn[] {
   const cols: MarkerColumn[] = [];
   if (xUnit !== "nm") {
-    cols.push({ id: `x-${xUnit}`, header: `${X_SYMBOL[xUnit]} (${X_UNIT_LABEL[xUnit]})`, kind: "number", value: (p) => fromNm(p.wavelengthNm, xUnit) });
+    cols.push({
+      id: `x-${xUnit}`,
+      header: `${X_SYMBOL[xUnit]} (${X_UNIT_LABEL[xUnit]})`,
+      kind: "number",
+      value: (p) => fromNm(p.wavelengthNm, xUnit),
+    });
   }
   const unit = Y_UNIT_SHORT[yMode];
   const sym = yMode === "verdet" ? ["V", "Ve", "Vm"] : ["θ", "θe", "θm"];

@@ -23,7 +23,10 @@ export function checkMarkerText(text: string, existingNm: readonly number[], max
 
 export function checkMarkerNm(nm: number, existingNm: readonly number[], maxMarkers: number): MarkerCheck {
   if (!Number.isFinite(nm) || nm < MARKER_MIN_NM || nm > MARKER_MAX_NM) {
-    return { nm: null, error: `A marker must lie between ${MARKER_MIN_NM} and ${MARKER_MAX_NM} nm; ${Number.isFinite(nm) ? `${nm} nm` : "that value"} is outside.` };
+    return {
+      nm: null,
+      error: `A marker must lie between ${MARKER_MIN_NM} and ${MARKER_MAX_NM} nm; ${Number.isFinite(nm) ? `${nm} nm` : "that value"} is outside.`,
+    };
   }
   if (existingNm.includes(nm)) return { nm: null, error: `There is already a marker at ${nm} nm.` };
   if (existingNm.length >= maxMarkers) return { nm: null, error: `At most ${maxMarkers} markers; remove one first.` };

@@ -36,7 +36,8 @@ export function staleReasons(was: TraceInputs, now: TraceInputs | null): string[
   if (was.intensityWPerM2 !== undefined && now.intensityWPerM2 !== undefined && was.intensityWPerM2 !== now.intensityWPerM2) {
     out.push(`intensity ${num(was.intensityWPerM2)} → ${num(now.intensityWPerM2)} W/m²`);
   }
-  if (was.periods !== undefined && now.periods !== undefined && was.periods !== now.periods) out.push(`lock-in periods ${was.periods} → ${now.periods}`);
+  if (was.periods !== undefined && now.periods !== undefined && was.periods !== now.periods)
+    out.push(`lock-in periods ${was.periods} → ${now.periods}`);
   const changed = PARAM_META.filter((m) => was.params[m.key] !== now.params[m.key]).map((m) => m.label);
   changed.push(...FLAG_META.filter((m) => (was.params[m.key] === true) !== (now.params[m.key] === true)).map((m) => m.label));
   if (changed.length > 0) out.push(`${changed.length === 1 ? "parameter" : "parameters"} ${changed.join(", ")}`);

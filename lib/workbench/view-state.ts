@@ -58,7 +58,11 @@ export const viewStateSchema = z.object({
     .strictObject({ share: z.boolean(), spinTrace: z.boolean(), maps: z.boolean(), compare: z.boolean() })
     .catch({ share: true, spinTrace: false, maps: false, compare: false }),
   spinTrace: z
-    .strictObject({ wavelengthNm: z.number().gt(0).max(1e7), intensityWPerM2: z.number().min(0).max(1e20), periods: z.number().int().min(1).max(50) })
+    .strictObject({
+      wavelengthNm: z.number().gt(0).max(1e7),
+      intensityWPerM2: z.number().min(0).max(1e20),
+      periods: z.number().int().min(1).max(50),
+    })
     .catch({ wavelengthNm: 632.8, intensityWPerM2: 1e13, periods: 12 }),
   compareSetIds: z.array(z.string().max(100)).max(8).catch([]),
   // What the compare panel overlays; the Verdet constant compares sets of different B0 and L.

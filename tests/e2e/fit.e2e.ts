@@ -26,7 +26,13 @@ describe("fit in the workbench", () => {
     page = await context.newPage();
     await signInAs(page, DEMO.editor);
     const created = await page.request.post("/api/parameter-sets", {
-      data: { labId: DEMO_LAB_ID, name: `Fit browser test ${Date.now().toString(36)}`, description: "created by the fit browser test", tags: [], params: TERBIUM_GARNET_DEFAULTS },
+      data: {
+        labId: DEMO_LAB_ID,
+        name: `Fit browser test ${Date.now().toString(36)}`,
+        description: "created by the fit browser test",
+        tags: [],
+        params: TERBIUM_GARNET_DEFAULTS,
+      },
     });
     expect(created.status()).toBe(201);
     setId = (await created.json()).item.id;
@@ -43,7 +49,8 @@ describe("fit in the workbench", () => {
     await panel.getByRole("checkbox", { name: GARNET_SET_NAME }).check({ timeout: TIMEOUT });
     await expect.poll(() => panel.getByText("24 points chosen").isVisible(), { timeout: TIMEOUT }).toBe(true);
     // The defaults free κE, λE and the magnetic-part scale.
-    for (const name of [/Free Gyration κE/, /Free Oscillator λE/, /Free Magnetic-part scale/]) expect(await panel.getByRole("checkbox", { name }).isChecked()).toBe(true);
+    for (const name of [/Free Gyration κE/, /Free Oscillator λE/, /Free Magnetic-part scale/])
+      expect(await panel.getByRole("checkbox", { name }).isChecked()).toBe(true);
 
     await panel.getByRole("button", { name: "Fit", exact: true }).click();
     const report = panel.getByRole("region", { name: "Fit result" });
@@ -57,7 +64,9 @@ describe("fit in the workbench", () => {
     const scale = Number((await report.getByTestId("fit-value-magneticScale").textContent())!.split(" ± ")[0]);
     expect(scale).toBeGreaterThan(1.5);
     expect(scale).toBeLessThan(2.5);
-    await expect.poll(() => report.getByTestId("fit-magnetic-scale-label").textContent()).toMatch(/magnetic-dipole part × .*not first-principles/);
+    await expect
+      .poll(() => report.getByTestId("fit-magnetic-scale-label").textContent())
+      .toMatch(/magnetic-dipole part × .*not first-principles/);
     expect(await report.getByTestId("fit-chi2").textContent()).toMatch(/χ² = [\d.]+ with 21 degrees of freedom/);
 
     // The share at every point, with its σ.

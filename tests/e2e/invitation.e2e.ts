@@ -114,7 +114,10 @@ describe("invitations and share links in the browser", () => {
       expect(problems.filter((text) => /Content Security Policy|Refused to/i.test(text))).toEqual([]);
       await guest.screenshot({ path: outputPath("shared-workbench-390.png"), fullPage: true });
 
-      await editor.getByRole("button", { name: /^Revoke/ }).first().click();
+      await editor
+        .getByRole("button", { name: /^Revoke/ })
+        .first()
+        .click();
       await editor.getByRole("button", { name: "Revoke link" }).click();
       await editor.getByText("No live share links.").waitFor({ timeout: 30_000 });
       const gone = await guest.goto(sharedPath);

@@ -37,7 +37,9 @@ describe("measurements in the browser", () => {
     await page.getByRole("row").filter({ hasText: "Garnet rod LM-T4 — Verdet spectrum, 293 K (generated)" }).waitFor();
 
     await page.getByRole("button", { name: "Upload measurements" }).click();
-    await page.getByLabel("Measurement file").setInputFiles({ name: "lm-t4-browser.csv", mimeType: "text/csv", buffer: readFileSync(DEMO_FILE) });
+    await page
+      .getByLabel("Measurement file")
+      .setInputFiles({ name: "lm-t4-browser.csv", mimeType: "text/csv", buffer: readFileSync(DEMO_FILE) });
     await page.getByText(/Preview: the first 8 of 24 data rows \(header on line 4\)/).waitFor();
 
     // The default column names map themselves.
@@ -71,7 +73,9 @@ describe("measurements in the browser", () => {
     const points = page.locator('[data-testid^="overlay-"] [data-testid="measured-point"]');
     await expect.poll(() => points.count(), { timeout: 30_000 }).toBe(24);
     // Default y axis is a rotation: the Verdet values are drawn as V·B·L at the set's own B and L.
-    expect(await page.getByTestId("overlay-conversion").innerText()).toContain("Verdet constants are shown as the rotation V·B·L at the plot's B = 1 T, L = 10 mm");
+    expect(await page.getByTestId("overlay-conversion").innerText()).toContain(
+      "Verdet constants are shown as the rotation V·B·L at the plot's B = 1 T, L = 10 mm",
+    );
 
     await page.getByLabel("y axis").selectOption("verdet");
     expect(await page.getByTestId("overlay-conversion").innerText()).toContain("Verdet constants are shown as measured.");

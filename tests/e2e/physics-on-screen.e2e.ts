@@ -53,7 +53,9 @@ describe("physics on screen", () => {
 
     // Switch on the diamagnetic term: the share now moves with temperature, so it is a map.
     await page.getByLabel("Diamagnetic (bound-electron) term").check();
-    await expect.poll(() => page.getByRole("button", { name: "Compute wavelength × temperature map" }).isEnabled(), { timeout: RUN_TIMEOUT }).toBe(true);
+    await expect
+      .poll(() => page.getByRole("button", { name: "Compute wavelength × temperature map" }).isEnabled(), { timeout: RUN_TIMEOUT })
+      .toBe(true);
     await page.getByRole("button", { name: "Compute wavelength × temperature map" }).click();
     await page.getByLabel("Show on the temperature map").selectOption("share");
     await page.getByRole("img", { name: /^Magnetic share .* over wavelength × temperature/ }).waitFor({ timeout: RUN_TIMEOUT });
@@ -67,7 +69,9 @@ describe("physics on screen", () => {
     expect(await result.getAttribute("data-stale")).toBe("false");
     await page.getByLabel("Trace wavelength (nm)").fill("800");
     await expect.poll(() => result.getAttribute("data-stale")).toBe("true");
-    expect(await page.getByTestId("spin-trace-stale").innerText()).toMatch(/^Stale: this trace was computed at 632\.8 nm .*wavelength 632\.8 → 800 nm/);
+    expect(await page.getByTestId("spin-trace-stale").innerText()).toMatch(
+      /^Stale: this trace was computed at 632\.8 nm .*wavelength 632\.8 → 800 nm/,
+    );
 
     await page.screenshot({ path: outputPath("physics-on-screen.png"), fullPage: true });
   });

@@ -63,7 +63,9 @@ describe("planner in the browser", () => {
       const note = page.getByRole("note", { name: "What the model implies" });
       // The demo garnet sets switch the diamagnetic term on, which gives T and B some separating power;
       // either way the note must say that the wavelength span is what separates the parts.
-      expect(await note.innerText()).toMatch(/do not by themselves separate the parts: the wavelength span does|the wavelength span still does most of it/);
+      expect(await note.innerText()).toMatch(
+        /do not by themselves separate the parts: the wavelength span does|the wavelength span still does most of it/,
+      );
       const cautions = await planner.cautions.innerText();
       expect(cautions).toMatch(/IEC 60825-1/);
       expect(cautions).toMatch(/0\.5 mT/);

@@ -218,7 +218,11 @@ describe("safeguards in the browser", () => {
 
       const foreign = DEMO_SETS.find((s) => s.labId === OTHER_LAB.id);
       expect(foreign).toBeDefined();
-      for (const url of [`/parameter-sets/${foreign!.id}`, "/parameter-sets/00000000-0000-4000-8000-000000000000", "/parameter-sets/not-an-id"]) {
+      for (const url of [
+        `/parameter-sets/${foreign!.id}`,
+        "/parameter-sets/00000000-0000-4000-8000-000000000000",
+        "/parameter-sets/not-an-id",
+      ]) {
         await page.goto(url);
         await page.getByRole("heading", { name: "There is nothing at this address" }).waitFor({ timeout: 30_000 });
         expect(await page.getByText("Something went wrong").count()).toBe(0);

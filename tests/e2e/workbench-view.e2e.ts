@@ -41,7 +41,11 @@ describe("workbench view", () => {
   const spectrumPlot = () => page.getByRole("group", { name: /^Faraday rotation and its parts/ });
   const badge = () => page.getByText(/^numerical, max deviation from linear response: \d/);
   const progress = () => page.getByRole("progressbar", { name: "Numerical run progress" });
-  const markerRow = (nm: string) => page.getByRole("table", { name: /Values at markers/ }).getByRole("row").filter({ has: page.getByRole("rowheader", { name: nm, exact: true }) });
+  const markerRow = (nm: string) =>
+    page
+      .getByRole("table", { name: /Values at markers/ })
+      .getByRole("row")
+      .filter({ has: page.getByRole("rowheader", { name: nm, exact: true }) });
 
   async function waitForRun(): Promise<void> {
     await badge().waitFor({ state: "visible", timeout: RUN_TIMEOUT });
@@ -58,7 +62,8 @@ describe("workbench view", () => {
     setId = await page.evaluate(
       async ({ name, params }) => {
         const labs = (await (await fetch("/api/labs")).json()) as { items: { id: string; role: string; name: string }[] };
-        const lab = labs.items.find((l) => l.role !== "viewer" && l.name.includes("Lindqvist")) ?? labs.items.find((l) => l.role !== "viewer");
+        const lab =
+          labs.items.find((l) => l.role !== "viewer" && l.name.includes("Lindqvist")) ?? labs.items.find((l) => l.role !== "viewer");
         const r = await fetch("/api/parameter-sets", {
           method: "POST",
           headers: { "Content-Type": "application/json" },
@@ -104,7 +109,12 @@ describe("workbench view", () => {
     const [zy0, zy1] = await domainOf(plot, "y");
     expect(zy1 - zy0).toBeLessThan((y1 - y0) / 3);
     // The drag zoomed; it did not add a marker.
-    expect(await page.getByRole("table", { name: /Values at markers/ }).getByRole("row").count()).toBe(1 + 4);
+    expect(
+      await page
+        .getByRole("table", { name: /Values at markers/ })
+        .getByRole("row")
+        .count(),
+    ).toBe(1 + 4);
 
     // Keyboard: + narrows the window, − widens it, 0 shows everything.
     await plot.focus();
@@ -142,7 +152,10 @@ describe("workbench view", () => {
     expect(await markerRow("1030 nm").locator("td").first().innerText()).toMatch(/^-?\d/);
     // A restarted run would show the bar below 100 %; re-renders may record 100 again, nothing else.
     const seen = await page.evaluate(() => (window as unknown as { __progress: number[] }).__progress);
-    expect(seen.filter((v) => v !== 100), "the progress bar stayed at 100 %: no new run").toEqual([]);
+    expect(
+      seen.filter((v) => v !== 100),
+      "the progress bar stayed at 100 %: no new run",
+    ).toEqual([]);
     expect(await badge().isVisible()).toBe(true);
     expect(await progress().getAttribute("aria-valuenow")).toBe("100");
 
@@ -154,7 +167,10 @@ describe("workbench view", () => {
         return { left: r.left, right: r.right, top: r.top, bottom: r.bottom };
       }),
     );
-    const [a, b] = boxes as [{ left: number; right: number; top: number; bottom: number }, { left: number; right: number; top: number; bottom: number }];
+    const [a, b] = boxes as [
+      { left: number; right: number; top: number; bottom: number },
+      { left: number; right: number; top: number; bottom: number },
+    ];
     const overlap = a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
     expect(overlap).toBe(false);
 
@@ -174,7 +190,9 @@ describe("workbench view", () => {
 
   it("keeps the person's own view across a reload and resets to the lab's shared view", async () => {
     // The changes above were saved as this person's own view.
-    await expect.poll(() => page.getByTestId("view-status").innerText(), { timeout: 30_000 }).toContain("Your own view, saved for you only.");
+    await expect
+      .poll(() => page.getByTestId("view-status").innerText(), { timeout: 30_000 })
+      .toContain("Your own view, saved for you only.");
     await page.reload();
     await page.getByRole("heading", { level: 1 }).waitFor({ timeout: RUN_TIMEOUT });
     expect(await page.getByLabel("x axis").inputValue()).toBe("eV");

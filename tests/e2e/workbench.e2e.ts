@@ -148,7 +148,10 @@ describe("workbench", () => {
     const progressSeen = probes.__progress;
     expect(progressSeen[progressSeen.length - 1]).toBe(100);
     const longest = Math.max(0, ...probes.__longTasks.map((t) => t.duration));
-    expect(probes.__longTasks.filter((t) => t.duration > LONG_TASK_MS), `long tasks over ${LONG_TASK_MS} ms during a numerical run (longest ${longest.toFixed(0)} ms)`).toEqual([]);
+    expect(
+      probes.__longTasks.filter((t) => t.duration > LONG_TASK_MS),
+      `long tasks over ${LONG_TASK_MS} ms during a numerical run (longest ${longest.toFixed(0)} ms)`,
+    ).toEqual([]);
 
     // 3. A long run (5000 points) can be cancelled; the analytic preview stays on screen.
     await wb.setField("Points (≤ 5000)", "5000");
@@ -173,7 +176,9 @@ describe("workbench", () => {
     expect(header.some((l) => /^# version: \d+/.test(l))).toBe(true);
     expect(header.some((l) => l.includes("Gyrolux model: one gyrotropic oscillator + LLG spins, physics-model §"))).toBe(true);
     expect(header.some((l) => l.startsWith("# method: llg"))).toBe(true);
-    expect(body[0]).toBe("wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m");
+    expect(body[0]).toBe(
+      "wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m",
+    );
     expect(body.length - 1).toBe(256);
 
     await page.screenshot({ path: outputPath("workbench.png"), fullPage: true });
@@ -194,7 +199,9 @@ describe("workbench", () => {
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Export CSV" }).click()]);
     const file = outputPath("workbench-scaled.csv");
     await download.saveAs(file);
-    const header = readFileSync(file, "utf8").split("\n").filter((l) => l.startsWith("#"));
+    const header = readFileSync(file, "utf8")
+      .split("\n")
+      .filter((l) => l.startsWith("#"));
     expect(header).toContain(`# label: ${label}`);
     expect(header.some((l) => l.startsWith("# parameters: ") && l.includes("magneticScale=3;"))).toBe(true);
   });

@@ -3,7 +3,11 @@ import { Client, DEMO, DEMO_LAB_ID, createSet, describeHttp, signIn, validParams
 
 /** A save body as the workbench sends it after a fit (values invented for the test). */
 let measurementSet = { id: "", name: "" };
-const fitBody = (version: number, values: Record<string, number> = { gyrationPerT: 5.1e-3, magneticScale: 2.5 }, sets = [measurementSet]) => ({
+const fitBody = (
+  version: number,
+  values: Record<string, number> = { gyrationPerT: 5.1e-3, magneticScale: 2.5 },
+  sets = [measurementSet],
+) => ({
   version,
   values,
   fit: {
@@ -82,7 +86,10 @@ describeHttp("saving a fit as a version", () => {
     const invalid = await editor.post(`/api/parameter-sets/${setId}/fits`, fitBody(2, { gyrationPerT: 5e-3, magneticScale: -1 }));
     expect(invalid.status).toBe(400);
     expect(invalid.body.error.fields["values.magneticScale"]).toBeTruthy();
-    const unknownSet = await editor.post(`/api/parameter-sets/${setId}/fits`, fitBody(2, undefined, [{ id: "6a1f0c2e-5b1d-4c1e-9f00-0000000fffff", name: "Nowhere" }]));
+    const unknownSet = await editor.post(
+      `/api/parameter-sets/${setId}/fits`,
+      fitBody(2, undefined, [{ id: "6a1f0c2e-5b1d-4c1e-9f00-0000000fffff", name: "Nowhere" }]),
+    );
     expect(unknownSet.status).toBe(400);
     expect(unknownSet.body.error.fields["fit.measurementSets.0.id"]).toMatch(/no such measurement set/);
     const after = await editor.get(`/api/parameter-sets/${setId}`);

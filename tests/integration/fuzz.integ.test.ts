@@ -13,9 +13,8 @@ const SEED = 0x9e3779b9;
 // GYROLUX_FUZZ_CASES overrides the count for a longer (or quicker) local run.
 const CASES_PER_ROUTE = Number(process.env.GYROLUX_FUZZ_CASES ?? 200);
 
-
 type Random = () => number;
-const pick = <T,>(r: Random, items: readonly T[]): T => items[Math.floor(r() * items.length)]!;
+const pick = <T>(r: Random, items: readonly T[]): T => items[Math.floor(r() * items.length)]!;
 
 const BAD_STRINGS = ["a\u0000b", "\u0000", "x\ud800", "\udc00y", "\ud83d", "ok\ud800\ud800", "é\u0000\ud800"];
 const BAD_PATH_SEGMENTS = ["%C0%AF", "%", "%E0%A4%A", "%ZZ", "%ED%A0%80", "%FF%FE", "..%2F..%2F", "%00", "a%2"];
@@ -28,7 +27,12 @@ function deepText(r: Random): string {
 }
 
 function wrongType(r: Random, current: unknown): unknown {
-  const options: unknown[] = typeof current === "number" ? ["NaN", null, [], {}, true] : typeof current === "string" ? [12, null, [], { a: 1 }, false] : ["text", 3, true];
+  const options: unknown[] =
+    typeof current === "number"
+      ? ["NaN", null, [], {}, true]
+      : typeof current === "string"
+        ? [12, null, [], { a: 1 }, false]
+        : ["text", 3, true];
   return pick(r, options);
 }
 
@@ -43,14 +47,23 @@ interface FuzzRequest {
 function hostile(r: Random, base: { method: string; path: string; body?: Record<string, unknown>; pathIds?: string[] }): FuzzRequest {
   const kinds = base.body ? ["badString", "deep", "wrongType", "brokenJson", "badUtf8", "oversized", "contentType", "path"] : ["path"];
   const kind = pick(r, kinds);
-  const json = (value: unknown): FuzzRequest => ({ method: base.method, path: base.path, body: JSON.stringify(value), contentType: "application/json" });
+  const json = (value: unknown): FuzzRequest => ({
+    method: base.method,
+    path: base.path,
+    body: JSON.stringify(value),
+    contentType: "application/json",
+  });
   const body = { ...base.body };
   const keys = Object.keys(body);
   switch (kind) {
     case "badString": {
       const key = pick(r, keys);
       const current = body[key];
-      body[key] = Array.isArray(current) ? [pick(r, BAD_STRINGS)] : typeof current === "object" && current !== null ? { [pick(r, BAD_STRINGS)]: 1 } : pick(r, BAD_STRINGS);
+      body[key] = Array.isArray(current)
+        ? [pick(r, BAD_STRINGS)]
+        : typeof current === "object" && current !== null
+          ? { [pick(r, BAD_STRINGS)]: 1 }
+          : pick(r, BAD_STRINGS);
       return json(body);
     }
     case "deep": {
@@ -65,7 +78,12 @@ function hostile(r: Random, base: { method: string; path: string; body?: Record<
     }
     case "brokenJson": {
       const text = JSON.stringify(body);
-      return { method: base.method, path: base.path, body: text.slice(0, Math.max(1, Math.floor(r() * (text.length - 1)))), contentType: "application/json" };
+      return {
+        method: base.method,
+        path: base.path,
+        body: text.slice(0, Math.max(1, Math.floor(r() * (text.length - 1)))),
+        contentType: "application/json",
+      };
     }
     case "badUtf8": {
       const text = Buffer.from(JSON.stringify(body));
@@ -77,13 +95,21 @@ function hostile(r: Random, base: { method: string; path: string; body?: Record<
       body[pick(r, keys)] = "x".repeat(65 * 1024 + Math.floor(r() * 100_000));
       return json(body);
     case "contentType":
-      return { ...json(body), contentType: pick(r, ["text/plain", "application/x-www-form-urlencoded", "multipart/form-data; boundary=x"]) };
+      return {
+        ...json(body),
+        contentType: pick(r, ["text/plain", "application/x-www-form-urlencoded", "multipart/form-data; boundary=x"]),
+      };
     default: {
       const ids = base.pathIds ?? [];
       const target = ids.length > 0 ? pick(r, ids) : null;
       const segment = pick(r, BAD_PATH_SEGMENTS);
       const path = target ? base.path.replace(target, segment) : `${base.path}/${segment}`;
-      return { method: base.method, path, body: base.body ? JSON.stringify(base.body) : undefined, contentType: base.body ? "application/json" : undefined };
+      return {
+        method: base.method,
+        path,
+        body: base.body ? JSON.stringify(base.body) : undefined,
+        contentType: base.body ? "application/json" : undefined,
+      };
     }
   }
 }
@@ -122,26 +148,70 @@ describeHttp("fuzzing the mutating routes", () => {
     expect(tokens.status).toBe(200);
 
     const lab = account.labId;
-    const routes: { method: string; path: string; body?: Record<string, unknown>; pathIds?: string[]; anonymous?: boolean; form?: boolean }[] = [
-      { method: "POST", path: "/api/parameter-sets", body: { labId: lab, name: "fuzz set", description: "d", tags: ["t"], params: validParams() } },
-      { method: "PATCH", path: `/api/parameter-sets/${set.id}`, body: { version: 1, name: "renamed", description: "d", tags: ["t"], params: validParams() }, pathIds: [set.id] },
+    const routes: {
+      method: string;
+      path: string;
+      body?: Record<string, unknown>;
+      pathIds?: string[];
+      anonymous?: boolean;
+      form?: boolean;
+    }[] = [
+      {
+        method: "POST",
+        path: "/api/parameter-sets",
+        body: { labId: lab, name: "fuzz set", description: "d", tags: ["t"], params: validParams() },
+      },
+      {
+        method: "PATCH",
+        path: `/api/parameter-sets/${set.id}`,
+        body: { version: 1, name: "renamed", description: "d", tags: ["t"], params: validParams() },
+        pathIds: [set.id],
+      },
       { method: "DELETE", path: `/api/parameter-sets/${set.id}`, pathIds: [set.id] },
       { method: "POST", path: `/api/parameter-sets/${set.id}/versions/1/restore`, body: { version: 1 }, pathIds: [set.id, "/1/"] },
-      { method: "PUT", path: `/api/parameter-sets/${set.id}/view-state`, body: { viewState: { xUnit: "nm", markersNm: [632.8] } }, pathIds: [set.id] },
+      {
+        method: "PUT",
+        path: `/api/parameter-sets/${set.id}/view-state`,
+        body: { viewState: { xUnit: "nm", markersNm: [632.8] } },
+        pathIds: [set.id],
+      },
       { method: "PATCH", path: `/api/labs/${lab}/members/${account.userId}`, body: { role: "owner" }, pathIds: [lab, account.userId] },
       { method: "DELETE", path: `/api/labs/${lab}/members/${account.userId}`, pathIds: [lab, account.userId] },
-      { method: "POST", path: `/api/labs/${lab}/invitations`, body: { email: "fuzz-invitee@integ.gyrolux.test", role: "viewer" }, pathIds: [lab] },
-      { method: "DELETE", path: `/api/labs/${lab}/invitations/00000000-0000-4000-8000-000000000000`, pathIds: [lab, "00000000-0000-4000-8000-000000000000"] },
+      {
+        method: "POST",
+        path: `/api/labs/${lab}/invitations`,
+        body: { email: "fuzz-invitee@integ.gyrolux.test", role: "viewer" },
+        pathIds: [lab],
+      },
+      {
+        method: "DELETE",
+        path: `/api/labs/${lab}/invitations/00000000-0000-4000-8000-000000000000`,
+        pathIds: [lab, "00000000-0000-4000-8000-000000000000"],
+      },
       { method: "POST", path: "/api/invitations/accept", body: { token: "A".repeat(43) } },
       { method: "POST", path: "/api/tokens", body: { name: "fuzz token" } },
       { method: "DELETE", path: "/api/tokens/00000000-0000-4000-8000-000000000000", pathIds: ["00000000-0000-4000-8000-000000000000"] },
       { method: "POST", path: `/api/parameter-sets/${set.id}/share-links`, pathIds: [set.id] },
-      { method: "DELETE", path: `/api/parameter-sets/${set.id}/share-links/00000000-0000-4000-8000-000000000000`, pathIds: [set.id, "00000000-0000-4000-8000-000000000000"] },
+      {
+        method: "DELETE",
+        path: `/api/parameter-sets/${set.id}/share-links/00000000-0000-4000-8000-000000000000`,
+        pathIds: [set.id, "00000000-0000-4000-8000-000000000000"],
+      },
       { method: "POST", path: "/api/account/password", body: { currentPassword: account.password, newPassword: "fuzzed new passphrase" } },
       { method: "POST", path: `/api/users/${account.userId}/end-sessions`, pathIds: [account.userId] },
-      { method: "POST", path: "/api/sign-up", body: { name: "Fuzz", email: uniqueEmail("fuzz"), password: "long enough pw" }, anonymous: true },
+      {
+        method: "POST",
+        path: "/api/sign-up",
+        body: { name: "Fuzz", email: uniqueEmail("fuzz"), password: "long enough pw" },
+        anonymous: true,
+      },
       { method: "POST", path: "/api/password-reset", body: { email: uniqueEmail("fuzz-reset") }, anonymous: true },
-      { method: "POST", path: "/api/password-reset/confirm", body: { token: "A".repeat(43), newPassword: "long enough pw" }, anonymous: true },
+      {
+        method: "POST",
+        path: "/api/password-reset/confirm",
+        body: { token: "A".repeat(43), newPassword: "long enough pw" },
+        anonymous: true,
+      },
     ];
 
     const r = seededRandom(SEED);
@@ -155,12 +225,25 @@ describeHttp("fuzzing the mutating routes", () => {
     // Sign-in (Auth.js form posts): oversized, NUL, broken surrogates, broken percent-encoding.
     for (let i = 0; i < CASES_PER_ROUTE; i++) {
       const variant = pick(r, ["oversized", "nul", "surrogate", "percent", "deep"]);
-      const email = variant === "nul" ? "a%00b%40c.test" : variant === "surrogate" ? "a%ED%A0%80%40c.test" : variant === "percent" ? "a%E0%A4%A%40c.test" : "a%40c.test";
-      const password = variant === "oversized" ? "x".repeat(65 * 1024 + Math.floor(r() * 200_000)) : variant === "deep" ? "[".repeat(5000) : "pw%00";
+      const email =
+        variant === "nul"
+          ? "a%00b%40c.test"
+          : variant === "surrogate"
+            ? "a%ED%A0%80%40c.test"
+            : variant === "percent"
+              ? "a%E0%A4%A%40c.test"
+              : "a%40c.test";
+      const password =
+        variant === "oversized" ? "x".repeat(65 * 1024 + Math.floor(r() * 200_000)) : variant === "deep" ? "[".repeat(5000) : "pw%00";
       queue.push({
         route: "POST /api/auth/callback/credentials",
         client: new Client(),
-        request: { method: "POST", path: "/api/auth/callback/credentials", body: `email=${email}&password=${password}`, contentType: "application/x-www-form-urlencoded" },
+        request: {
+          method: "POST",
+          path: "/api/auth/callback/credentials",
+          body: `email=${email}&password=${password}`,
+          contentType: "application/x-www-form-urlencoded",
+        },
       });
     }
 
@@ -177,9 +260,13 @@ describeHttp("fuzzing the mutating routes", () => {
 
     const serverErrors = results.filter((result) => result.status >= 500 || result.status === 0);
     const accepted = results.filter((result) => result.status >= 200 && result.status < 300);
-    console.log(`[fuzz] seed ${SEED}: ${results.length} cases on ${routes.length + 1} routes, ${serverErrors.length} answers of 5xx, ${accepted.length} accepted`);
+    console.log(
+      `[fuzz] seed ${SEED}: ${results.length} cases on ${routes.length + 1} routes, ${serverErrors.length} answers of 5xx, ${accepted.length} accepted`,
+    );
     for (const failure of [...serverErrors, ...accepted].slice(0, 10)) {
-      console.log(`[fuzz] ${failure.status} ${failure.route}: ${failure.request.method} ${failure.request.path} ${String(failure.request.body).slice(0, 200)}`);
+      console.log(
+        `[fuzz] ${failure.status} ${failure.route}: ${failure.request.method} ${failure.request.path} ${String(failure.request.body).slice(0, 200)}`,
+      );
     }
     expect(serverErrors).toEqual([]);
     expect(accepted.map((a) => `${a.route} ${a.status}`)).toEqual([]);

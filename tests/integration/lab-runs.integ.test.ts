@@ -69,7 +69,13 @@ async function submit(client: Client, spec: RunSpec, extra: Record<string, unkno
 }
 
 async function runOf(client: Client, id: string) {
-  return (await client.get(`/api/runs/${id}`)).body.item as { state: string; progress: number; workerId: string | null; attempt: number; error: string | null };
+  return (await client.get(`/api/runs/${id}`)).body.item as {
+    state: string;
+    progress: number;
+    workerId: string | null;
+    attempt: number;
+    error: string | null;
+  };
 }
 
 const finished = (client: Client, id: string) =>
@@ -99,7 +105,10 @@ describeHttp("lab runs on the job queue", () => {
   let db: pg.Client;
 
   beforeAll(async () => {
-    const build = spawnSync(process.execPath, ["scripts/build-cli.mjs", "lab-worker", "lab-worker-thread"], { cwd: process.cwd(), encoding: "utf8" });
+    const build = spawnSync(process.execPath, ["scripts/build-cli.mjs", "lab-worker", "lab-worker-thread"], {
+      cwd: process.cwd(),
+      encoding: "utf8",
+    });
     if (build.status !== 0) throw new Error(`worker build failed: ${build.stderr}`);
     [editor, viewer, outsider] = await Promise.all([signIn(DEMO.editor), signIn(DEMO.viewer), signIn(DEMO.outsider)]);
     db = new pg.Client({ connectionString: process.env.DATABASE_URL });
@@ -136,7 +145,9 @@ describeHttp("lab runs on the job queue", () => {
     const outsiderList = await outsider.get("/api/runs");
     expect(outsiderList.body.items.map((r: { id: string }) => r.id)).not.toContain(run.id);
     expect((await outsider.post("/api/runs", { labId: DEMO_LAB_ID, ...mapSpec(8, 4) })).status).toBe(404);
-    expect((await outsider.post("/api/runs", { labId: OTHER_LAB_ID, ...mapSpec(8, 4), parameterSetId: DEMO_GARNET_SET_ID })).status).toBe(400);
+    expect((await outsider.post("/api/runs", { labId: OTHER_LAB_ID, ...mapSpec(8, 4), parameterSetId: DEMO_GARNET_SET_ID })).status).toBe(
+      400,
+    );
 
     // A queued run is cancelled at once.
     const cancelled = await editor.post(`/api/runs/${run.id}/cancel`, {});
@@ -163,7 +174,10 @@ describeHttp("lab runs on the job queue", () => {
     const wavelengthsNm = wavelengthGrid(300, 3000, 600, "log");
     const direct = computeSpectrumArrays({ ...validParams(), method: "llg", wavelengthsNm });
     const result = (await viewer.get(`/api/runs/${spectrum.id}/result`)).body;
-    expectBitIdentical({ thetaRad: result.columns.thetaRad, magneticShare: result.columns.magneticShare }, { thetaRad: direct.thetaRad, magneticShare: direct.magneticShare });
+    expectBitIdentical(
+      { thetaRad: result.columns.thetaRad, magneticShare: result.columns.magneticShare },
+      { thetaRad: direct.thetaRad, magneticShare: direct.magneticShare },
+    );
     expect(result.meta.maxRelDeviationFromAnalytic).toBe(direct.maxRelDeviationFromAnalytic);
   });
 
@@ -209,7 +223,9 @@ describeHttp("lab runs on the job queue", () => {
     const retryStartMs = Date.now() - killedAt;
     const done = await finished(editor, run.id);
     const doneMs = Date.now() - killedAt;
-    console.log(`[lab runs] SIGKILL → retry started on another worker after ${(retryStartMs / 1000).toFixed(1)} s, run done after ${(doneMs / 1000).toFixed(1)} s`);
+    console.log(
+      `[lab runs] SIGKILL → retry started on another worker after ${(retryStartMs / 1000).toFixed(1)} s, run done after ${(doneMs / 1000).toFixed(1)} s`,
+    );
     expect(retried.attempt).toBe(2);
     expect(done.state, done.error ?? "").toBe("done");
     const result = await viewer.get(`/api/runs/${run.id}/result`);
@@ -217,7 +233,9 @@ describeHttp("lab runs on the job queue", () => {
     expect(result.body.attempt).toBe(2);
     const rows = await db.query("select count(*)::int as n from lab_run_results where run_id = $1", [run.id]);
     expect(rows.rows[0].n).toBe(1);
-    const job = await db.query("select state from pgboss.job where id = $1 union all select state from pgboss.archive where id = $1", [run.id]);
+    const job = await db.query("select state from pgboss.job where id = $1 union all select state from pgboss.archive where id = $1", [
+      run.id,
+    ]);
     expect(job.rows.map((r) => r.state)).toEqual(["completed"]);
   });
 });

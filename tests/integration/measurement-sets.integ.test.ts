@@ -32,7 +32,15 @@ const objectsNamed = async (fileName: string) => (await store.list("labs/")).fil
 
 async function upload(
   client: Client,
-  options: { bytes: Uint8Array | string; fileName: string; name?: string; labId?: string; mapping?: unknown; defaults?: unknown; type?: string },
+  options: {
+    bytes: Uint8Array | string;
+    fileName: string;
+    name?: string;
+    labId?: string;
+    mapping?: unknown;
+    defaults?: unknown;
+    type?: string;
+  },
 ) {
   const bytes = typeof options.bytes === "string" ? new TextEncoder().encode(options.bytes) : options.bytes;
   const form = new FormData();
@@ -113,7 +121,16 @@ describeHttp("measurement sets", () => {
     expect(points.status).toBe(200);
     expect(points.body.points).toHaveLength(24);
     // Line 1 is the added comment, lines 2–4 the generator's comments, line 5 the header.
-    expect(points.body.points[0]).toEqual({ line: 6, wavelengthNm: 420, quantity: "verdet", value: -390.03, sigma: 6.2, temperatureK: 293.15, fieldT: 1, lengthM: 0.01 });
+    expect(points.body.points[0]).toEqual({
+      line: 6,
+      wavelengthNm: 420,
+      quantity: "verdet",
+      value: -390.03,
+      sigma: 6.2,
+      temperatureK: 293.15,
+      fieldT: 1,
+      lengthM: 0.01,
+    });
 
     const original = await viewer.raw("GET", `/api/measurement-sets/${item.id}/original`);
     expect(original.status).toBe(200);
@@ -135,7 +152,12 @@ describeHttp("measurement sets", () => {
     const missing = await upload(editor, { bytes: text, fileName: safeName("defaults"), mapping });
     expect(missing.status).toBe(400);
     expect(missing.body.error.problems).toContain("Temperature: choose a column or enter one value for the whole file.");
-    const created = await upload(editor, { bytes: text, fileName: safeName("defaults"), mapping, defaults: { relativeSigma: 0.05, temperatureK: 77, fieldT: 0.5, lengthM: 0.02 } });
+    const created = await upload(editor, {
+      bytes: text,
+      fileName: safeName("defaults"),
+      mapping,
+      defaults: { relativeSigma: 0.05, temperatureK: 77, fieldT: 0.5, lengthM: 0.02 },
+    });
     expect(created.status).toBe(201);
     expect(created.body.item).toMatchObject({ quantity: "rotation", temperaturesK: [77], fieldsT: [0.5], lengthsM: [0.02] });
     const points = (await editor.get(`/api/measurement-sets/${created.body.item.id}/points`)).body.points;

@@ -20,7 +20,15 @@ describeHttp("parameter sets: lifecycle", () => {
     });
     expect(created.status).toBe(201);
     const item = created.body.item;
-    expect(item).toMatchObject({ labId: DEMO_LAB_ID, name, description: "trimmed", tags: ["integ", "TGG"], version: 1, role: "editor", viewState: null });
+    expect(item).toMatchObject({
+      labId: DEMO_LAB_ID,
+      name,
+      description: "trimmed",
+      tags: ["integ", "TGG"],
+      version: 1,
+      role: "editor",
+      viewState: null,
+    });
     expect(item.params.temperatureK).toBe(300);
     expect(item.createdBy.name).toBe(item.updatedBy.name);
     expect(Date.parse(item.createdAt)).not.toBeNaN();
@@ -37,7 +45,11 @@ describeHttp("parameter sets: lifecycle", () => {
     const noTag = await viewer.get(`/api/parameter-sets?tag=nonexistent-tag&q=${encodeURIComponent(name)}`);
     expect(noTag.body.items).toHaveLength(0);
 
-    const patched = await editor.patch(`/api/parameter-sets/${item.id}`, { version: 1, params: validParams({ temperatureK: 77 }), tags: ["cold"] });
+    const patched = await editor.patch(`/api/parameter-sets/${item.id}`, {
+      version: 1,
+      params: validParams({ temperatureK: 77 }),
+      tags: ["cold"],
+    });
     expect(patched.status).toBe(200);
     expect(patched.body.item).toMatchObject({ version: 2, name, tags: ["cold"] });
     expect(patched.body.item.params.temperatureK).toBe(77);
@@ -169,7 +181,10 @@ describeHttp("parameter sets: bad input changes nothing", () => {
 
   it("malformed JSON → 400 bad_json", async () => {
     for (const body of ['{"version": 1, "name": ', "{'version': 1}", "NaN", "[1,2"]) {
-      const response = await editor.request("PATCH", `/api/parameter-sets/${set.id}`, { body, headers: { "content-type": "application/json" } });
+      const response = await editor.request("PATCH", `/api/parameter-sets/${set.id}`, {
+        body,
+        headers: { "content-type": "application/json" },
+      });
       expect(response.status, body).toBe(400);
       expect(response.body.error.code).toBe("bad_json");
     }
@@ -190,7 +205,10 @@ describeHttp("parameter sets: bad input changes nothing", () => {
 
   it('"NaN", 1e999 (→ Infinity) and out-of-range parameters → 400 validation with fields', async () => {
     const raw = `{"version":1,"params":${JSON.stringify(validParams()).replace(/"fieldT":1/, '"fieldT":1e999')}}`;
-    const infinity = await editor.request("PATCH", `/api/parameter-sets/${set.id}`, { body: raw, headers: { "content-type": "application/json" } });
+    const infinity = await editor.request("PATCH", `/api/parameter-sets/${set.id}`, {
+      body: raw,
+      headers: { "content-type": "application/json" },
+    });
     expect(infinity.status).toBe(400);
     expect(infinity.body.error.code).toBe("validation");
     // zod rejects Infinity as "not a number"; either way it is named by its field.

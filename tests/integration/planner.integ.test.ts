@@ -26,13 +26,24 @@ describeHttp("light sources and plans through the API", () => {
 
   it("an editor creates, edits and deletes a line; a viewer and an outsider cannot", async () => {
     const name = uniqueName("Integ laser");
-    const create = await editor.post("/api/light-sources", { labId: DEMO_LAB_ID, name, wavelengthNm: 780, tunableMinNm: 760, tunableMaxNm: 800, powerW: 0.1 });
+    const create = await editor.post("/api/light-sources", {
+      labId: DEMO_LAB_ID,
+      name,
+      wavelengthNm: 780,
+      tunableMinNm: 760,
+      tunableMaxNm: 800,
+      powerW: 0.1,
+    });
     expect(create.status).toBe(201);
     const id = create.body.item.id as string;
     expect(create.body.item).toMatchObject({ name, wavelengthNm: 780, tunableMinNm: 760, tunableMaxNm: 800, powerW: 0.1 });
 
-    expect((await viewer.post("/api/light-sources", { labId: DEMO_LAB_ID, name: uniqueName("viewer laser"), wavelengthNm: 500 })).status).toBe(403);
-    expect((await outsider.post("/api/light-sources", { labId: DEMO_LAB_ID, name: uniqueName("outsider laser"), wavelengthNm: 500 })).status).toBe(404);
+    expect(
+      (await viewer.post("/api/light-sources", { labId: DEMO_LAB_ID, name: uniqueName("viewer laser"), wavelengthNm: 500 })).status,
+    ).toBe(403);
+    expect(
+      (await outsider.post("/api/light-sources", { labId: DEMO_LAB_ID, name: uniqueName("outsider laser"), wavelengthNm: 500 })).status,
+    ).toBe(404);
     expect((await viewer.patch(`/api/light-sources/${id}`, { wavelengthNm: 790 })).status).toBe(403);
     expect((await outsider.patch(`/api/light-sources/${id}`, { wavelengthNm: 790 })).status).toBe(404);
     expect((await viewer.delete(`/api/light-sources/${id}`)).status).toBe(403);
@@ -43,7 +54,12 @@ describeHttp("light sources and plans through the API", () => {
     expect(bad.body.error.fields.wavelengthNm).toMatch(/tunable range 760–800 nm/);
     const dup = await editor.post("/api/light-sources", { labId: DEMO_LAB_ID, name, wavelengthNm: 500 });
     expect(dup.status).toBe(409);
-    const half = await editor.post("/api/light-sources", { labId: DEMO_LAB_ID, name: uniqueName("half range"), wavelengthNm: 500, tunableMinNm: 400 });
+    const half = await editor.post("/api/light-sources", {
+      labId: DEMO_LAB_ID,
+      name: uniqueName("half range"),
+      wavelengthNm: 500,
+      tunableMinNm: 400,
+    });
     expect(half.status).toBe(400);
     expect(half.body.error.fields.tunableMaxNm).toMatch(/both ends/);
 
@@ -84,7 +100,15 @@ describeHttp("light sources and plans through the API", () => {
         candidateCount: result.candidateCount,
         sigmaPerPointRad: result.sigmaPerPointRad,
         partsCorrelation: best.partsCorrelation,
-        points: best.points.map((p) => ({ lineName: p.lineName, wavelengthNm: p.wavelengthNm, temperatureK: p.temperatureK, fieldT: p.fieldT, count: p.count, rotationRad: p.rotationRad, belowNoise: p.belowNoise })),
+        points: best.points.map((p) => ({
+          lineName: p.lineName,
+          wavelengthNm: p.wavelengthNm,
+          temperatureK: p.temperatureK,
+          fieldT: p.fieldT,
+          count: p.count,
+          rotationRad: p.rotationRad,
+          belowNoise: p.belowNoise,
+        })),
         notes: result.notes,
       },
     };

@@ -258,7 +258,10 @@ describeHttp("the defects found by the attack run stay closed", () => {
       headers: { "content-type": "application/json" },
     });
     expect(nul.status).toBe(400);
-    const surrogate = await editor.request("POST", "/api/tokens", { body: '{"name":"tok \\ud800"}', headers: { "content-type": "application/json" } });
+    const surrogate = await editor.request("POST", "/api/tokens", {
+      body: '{"name":"tok \\ud800"}',
+      headers: { "content-type": "application/json" },
+    });
     expect(surrogate.status).toBe(400);
     const signUpNul = await new Client().request("POST", "/api/sign-up", {
       body: '{"name":"x","email":"a\\u0000@b.test","password":"long enough pw"}',
@@ -286,12 +289,24 @@ describeHttp("the defects found by the attack run stay closed", () => {
   it("8: a cookie-authenticated change from another origin is refused", async () => {
     const editor = await signIn(DEMO.editor);
     const set = await createSet(editor);
-    const cross = await editor.post(`/api/parameter-sets/${set.id}/versions/1/restore`, { version: 1 }, { headers: { origin: "http://localhost:9999" } });
+    const cross = await editor.post(
+      `/api/parameter-sets/${set.id}/versions/1/restore`,
+      { version: 1 },
+      { headers: { origin: "http://localhost:9999" } },
+    );
     expect(cross.status).toBe(403);
-    const sameSite = await editor.post(`/api/parameter-sets/${set.id}/versions/1/restore`, { version: 1 }, { headers: { "sec-fetch-site": "same-site" } });
+    const sameSite = await editor.post(
+      `/api/parameter-sets/${set.id}/versions/1/restore`,
+      { version: 1 },
+      { headers: { "sec-fetch-site": "same-site" } },
+    );
     expect(sameSite.status).toBe(403);
     expect((await editor.get(`/api/parameter-sets/${set.id}`)).body.item.version).toBe(1);
-    const own = await editor.patch(`/api/parameter-sets/${set.id}`, { version: 1, description: "own origin" }, { headers: { origin: editor.base } });
+    const own = await editor.patch(
+      `/api/parameter-sets/${set.id}`,
+      { version: 1, description: "own origin" },
+      { headers: { origin: editor.base } },
+    );
     expect(own.status).toBe(200);
   });
 
@@ -312,14 +327,18 @@ describeHttp("the defects found by the attack run stay closed", () => {
     const editor = await signIn(DEMO.editor);
     const set = await createSet(editor);
     const deep = `{"viewState":{"a":${"[".repeat(5000)}${"]".repeat(5000)}}}`;
-    const response = await editor.request("PUT", `/api/parameter-sets/${set.id}/view-state`, { body: deep, headers: { "content-type": "application/json" } });
+    const response = await editor.request("PUT", `/api/parameter-sets/${set.id}/view-state`, {
+      body: deep,
+      headers: { "content-type": "application/json" },
+    });
     expect(response.status).toBe(400);
   });
 
   it("11: sign-up is limited per address", async () => {
     const email = uniqueEmail("flood");
     const statuses: number[] = [];
-    for (let i = 0; i < 7; i++) statuses.push((await new Client().post("/api/sign-up", { name: "Flood", email, password: "long enough pw" })).status);
+    for (let i = 0; i < 7; i++)
+      statuses.push((await new Client().post("/api/sign-up", { name: "Flood", email, password: "long enough pw" })).status);
     expect(statuses.slice(0, 5)).toEqual([202, 202, 202, 202, 202]);
     expect(statuses.slice(5)).toEqual([429, 429]);
   });

@@ -40,7 +40,9 @@ export function uniqueName(prefix: string): string {
 }
 
 export function uniqueEmail(prefix: string): string {
-  return `${uniqueName(prefix).replace(/[^a-z0-9]+/gi, "-").toLowerCase()}@integ.gyrolux.test`;
+  return `${uniqueName(prefix)
+    .replace(/[^a-z0-9]+/gi, "-")
+    .toLowerCase()}@integ.gyrolux.test`;
 }
 
 export interface ApiResponse<T = any> {
@@ -241,7 +243,10 @@ export async function joinByInvitation(options: {
   inviteAs?: string;
 }) {
   const before = (await mailTo(options.account.email)).length;
-  const invited = await options.owner.post(`/api/labs/${options.labId}/invitations`, { email: options.inviteAs ?? options.account.email, role: options.role });
+  const invited = await options.owner.post(`/api/labs/${options.labId}/invitations`, {
+    email: options.inviteAs ?? options.account.email,
+    role: options.role,
+  });
   if (invited.status !== 201) throw new Error(`invitation failed: ${invited.status} ${JSON.stringify(invited.body)}`);
   const mail = await waitForMail(options.account.email, { count: before + 1 });
   const token = linkSecret(mail, "/invite");

@@ -36,7 +36,11 @@ describeHttp("API tokens", () => {
     const viewer = await signIn(DEMO.viewer);
     const { id, token } = await createApiToken(viewer);
     const script = new Client(token);
-    const create = await script.post("/api/parameter-sets", { labId: DEMO_LAB_ID, name: uniqueName("viewer token"), params: validParams() });
+    const create = await script.post("/api/parameter-sets", {
+      labId: DEMO_LAB_ID,
+      name: uniqueName("viewer token"),
+      params: validParams(),
+    });
     expect(create.status).toBe(403);
 
     const editor = await signIn(DEMO.editor);

@@ -15,7 +15,12 @@ describeHttp("per-person workbench views", () => {
   let setId: string;
 
   beforeAll(async () => {
-    [owner, editor, viewer, outsider] = await Promise.all([signIn(DEMO.owner), signIn(DEMO.editor), signIn(DEMO.viewer), signIn(DEMO.outsider)]);
+    [owner, editor, viewer, outsider] = await Promise.all([
+      signIn(DEMO.owner),
+      signIn(DEMO.editor),
+      signIn(DEMO.viewer),
+      signIn(DEMO.outsider),
+    ]);
     setId = (await createSet(editor)).id as string;
   });
 

@@ -11,7 +11,21 @@ import {
 import type { SpectrumRequest } from "@/lib/physics/schema";
 import { computeSpectrumArrays, computeSpectrum } from "@/lib/physics/spectrum";
 import { mergeArrays, splitRequest } from "@/lib/compute/spectrum-pool";
-import { C0, c, cAdd, cExp, cMul, cSub, gamma, gyrationClosed, MU0, omegaOfNm, permittivityClosed, polder, rootDecaying } from "./closed-forms";
+import {
+  C0,
+  c,
+  cAdd,
+  cExp,
+  cMul,
+  cSub,
+  gamma,
+  gyrationClosed,
+  MU0,
+  omegaOfNm,
+  permittivityClosed,
+  polder,
+  rootDecaying,
+} from "./closed-forms";
 import { TGG, relErr } from "./fixtures";
 import { staticMagnetization } from "@/lib/physics/magnetization";
 
@@ -40,7 +54,11 @@ describe("absorption from Im n±", () => {
 
   it("the transmission of each mode is |t±|² of the slab's Jones eigenvalues t± = exp(−i n± ω L / c)", () => {
     // Independent indices from closed-forms.ts (Lorentz ε, §5.2 G, Polder χ± with s), then |t|².
-    for (const [t, b, lengthM, lambda] of [[293.15, 1, 0.004, 632.8], [4, 5, 0.001, 400], [10, -2, 0.0002, 300]] as const) {
+    for (const [t, b, lengthM, lambda] of [
+      [293.15, 1, 0.004, 632.8],
+      [4, 5, 0.001, 400],
+      [10, -2, 0.0002, 300],
+    ] as const) {
       const over = { temperatureK: t, fieldT: b, lengthM };
       const p = computeSpectrum(req(over, [lambda])).points[0]!;
       const omega = omegaOfNm(lambda);
@@ -148,8 +166,18 @@ describe("absorption columns across worker chunks", () => {
     for (const method of ["analytic", "llg"] as const) {
       const request = req({ method, lengthM: 0.01, diamagneticTerm: true }, [260, 300, 400, 532, 632.8, 800, 1064]);
       const whole = computeSpectrumArrays(request);
-      const merged = mergeArrays(request, splitRequest(request, 3).map((c) => computeSpectrumArrays(c.request)));
-      for (const key of ["absorptionPlusPerM", "absorptionMinusPerM", "transmissionPlus", "transmissionMinus", "ellipticityAngleRad", "thetaDiamagneticRad"] as const) {
+      const merged = mergeArrays(
+        request,
+        splitRequest(request, 3).map((c) => computeSpectrumArrays(c.request)),
+      );
+      for (const key of [
+        "absorptionPlusPerM",
+        "absorptionMinusPerM",
+        "transmissionPlus",
+        "transmissionMinus",
+        "ellipticityAngleRad",
+        "thetaDiamagneticRad",
+      ] as const) {
         expect(Array.from(merged[key]!)).toEqual(Array.from(whole[key]!));
       }
       expect(merged.thetaDiamagneticRad).toBeDefined();

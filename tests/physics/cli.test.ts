@@ -13,7 +13,9 @@ let count = 0;
 function run(content: string | null, viaNpx = false) {
   const file = join(dir, `p${count++}.json`);
   if (content !== null) writeFileSync(file, content);
-  const [cmd, args] = viaNpx ? ["npm", ["run", "--silent", "spectrum", "--", file]] : [process.execPath, ["scripts/run-built.mjs", "spectrum", file]];
+  const [cmd, args] = viaNpx
+    ? ["npm", ["run", "--silent", "spectrum", "--", file]]
+    : [process.execPath, ["scripts/run-built.mjs", "spectrum", file]];
   const r = spawnSync(cmd, args as string[], { cwd: process.cwd(), encoding: "utf8" });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr, stderrLines: r.stderr.split("\n").filter((l) => l.length > 0) };
 }

@@ -16,7 +16,13 @@ const run = (over: Partial<SpectrumRequest>, wavelengthsNm = lambdas) =>
   computeSpectrum({ ...TGG, wavelengthsNm, method: "analytic", ...over } as SpectrumRequest);
 
 // A lossless glass with one Sellmeier pole and one undamped oscillator (ΓE = 0), no spins.
-const glass = { ionDensityPerM3: 0, oscillatorDampingRadPerS: 0, oscillatorStrength: 0.02, oscillatorWavelengthNm: 200, gyrationPerT: 0 } as const;
+const glass = {
+  ionDensityPerM3: 0,
+  oscillatorDampingRadPerS: 0,
+  oscillatorStrength: 0.02,
+  oscillatorWavelengthNm: 200,
+  gyrationPerT: 0,
+} as const;
 
 /** e/(2 m_e c) from CODATA 2018, written out here (not taken from the product's constants module). */
 // CODATA 2018 (Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021)): e = 1.602176634e-19 C (exact),
@@ -28,7 +34,10 @@ const BECQUEREL = 1.602176634e-19 / (2 * 9.1093837015e-31 * 299792458);
  * n² = ε∞ + B λ²/(λ² − λS²) + f λ²/(λ² − λE²) (an undamped Lorentz pole f ωE²/(ωE² − ω²) written in
  * wavelength), so d(n²)/dλ = −2λ [B λS²/(λ² − λS²)² + f λE²/(λ² − λE²)²] and dn/dλ = d(n²)/dλ / (2n).
  */
-function dnDlambdaClosed(p: { epsInf: number; sellmeierB: number; sellmeierWavelengthNm: number; oscillatorStrength: number; oscillatorWavelengthNm: number }, nm: number): number {
+function dnDlambdaClosed(
+  p: { epsInf: number; sellmeierB: number; sellmeierWavelengthNm: number; oscillatorStrength: number; oscillatorWavelengthNm: number },
+  nm: number,
+): number {
   const l = nm * 1e-9;
   const ls = p.sellmeierWavelengthNm * 1e-9;
   const le = p.oscillatorWavelengthNm * 1e-9;
@@ -61,7 +70,7 @@ describe("diamagnetic term: constants and the Becquerel form", () => {
       // dε/dω by a central difference of the closed-form ε (closed-forms.ts), λ = 2πc/ω.
       const epsAt = (om: number) => permittivityClosed(p, (2 * Math.PI * 299792458) / om / 1e-9).re;
       const dEps = (epsAt(w + h) - epsAt(w - h)) / (2 * h);
-      const expected = -(1.602176634e-19 * 2.5) / (2 * 9.1093837015e-31) * dEps;
+      const expected = (-(1.602176634e-19 * 2.5) / (2 * 9.1093837015e-31)) * dEps;
       const g = diamagneticGyration(p, 2.5, w);
       expect(relErr(g.re, expected)).toBeLessThan(1e-7);
       expect(Math.abs(g.im)).toBe(0);
@@ -112,7 +121,9 @@ describe("diamagnetic term in the spectrum", () => {
       const r = run({ diamagneticTerm: true, method });
       const off = run({ method });
       r.points.forEach((p, i) => {
-        expect(Math.abs(p.thetaRad - (p.thetaElectricRad + p.thetaMagneticRad + p.thetaCrossRad))).toBeLessThan(1e-12 * Math.abs(p.thetaRad));
+        expect(Math.abs(p.thetaRad - (p.thetaElectricRad + p.thetaMagneticRad + p.thetaCrossRad))).toBeLessThan(
+          1e-12 * Math.abs(p.thetaRad),
+        );
         // θe(on) − θe(off) is the diamagnetic part to first order in G (G_dia/G ≈ 1e-3 → relative 1e-3 agreement).
         const delta = p.thetaElectricRad - off.points[i]!.thetaElectricRad;
         expect(relErr(delta, p.thetaDiamagneticRad!)).toBeLessThan(1e-2);

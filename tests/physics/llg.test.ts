@@ -37,7 +37,13 @@ describe("free LLG (h = 0)", () => {
   it("precession alone is γB0 only for α = 0; small-angle decay rate is αω0/(1+α²)", () => {
     const alpha = 0.2;
     const t = 10;
-    const { samples } = freeLlgTrajectory({ w0: 1, alpha, u0: [1e-3, 0, Math.sqrt(1 - 1e-6)], sampleTimes: [0, t], relativeTolerance: 1e-13 });
+    const { samples } = freeLlgTrajectory({
+      w0: 1,
+      alpha,
+      u0: [1e-3, 0, Math.sqrt(1 - 1e-6)],
+      sampleTimes: [0, t],
+      relativeTolerance: 1e-13,
+    });
     const [x, y] = samples[1]!;
     const wrap = (a: number) => a - 2 * Math.PI * Math.round(a / (2 * Math.PI));
     const angle = Math.atan2(y, x);
@@ -57,7 +63,15 @@ describe("lab-frame lock-in against the Polder form (linear regime)", () => {
     for (const fieldT of [0.01, 10, -0.01, -10]) {
       for (const temperatureK of [1, 400]) {
         for (const gilbertDamping of [1e-4, 0.5]) {
-          const r = computeSpectrum({ ...base, curieWeissK: 0, fieldT, temperatureK, gilbertDamping, wavelengthsNm: [200, 20000], method: "llg" });
+          const r = computeSpectrum({
+            ...base,
+            curieWeissK: 0,
+            fieldT,
+            temperatureK,
+            gilbertDamping,
+            wavelengthsNm: [200, 20000],
+            method: "llg",
+          });
           worst = Math.max(worst, r.maxRelDeviationFromAnalytic!);
           expect(r.maxRelDeviationFromAnalytic!).toBeLessThanOrEqual(1e-4);
           expect(r.warnings).toBeUndefined();
@@ -119,7 +133,10 @@ describe("lab-frame lock-in against the Polder form (linear regime)", () => {
     expect(Math.abs(r.plusRe) / expected).toBeLessThan(1e-4);
     expect(relErr(-r.plusIm, expected)).toBeLessThan(1e-4);
     // χ− = ωM/(2ω0 + iαω0) (Polder closed form at ω = ω0): off resonance, smaller by about α/2.
-    const minus = { re: (omegaM * 2 * omega0) / ((2 * omega0) ** 2 + (alpha * omega0) ** 2), im: (-omegaM * alpha * omega0) / ((2 * omega0) ** 2 + (alpha * omega0) ** 2) };
+    const minus = {
+      re: (omegaM * 2 * omega0) / ((2 * omega0) ** 2 + (alpha * omega0) ** 2),
+      im: (-omegaM * alpha * omega0) / ((2 * omega0) ** 2 + (alpha * omega0) ** 2),
+    };
     expect(Math.hypot(r.minusRe - minus.re, r.minusIm - minus.im) / Math.hypot(minus.re, minus.im)).toBeLessThan(1e-4);
     expect(Math.hypot(r.minusRe, r.minusIm) / expected).toBeLessThan(0.06);
     expect(r.normError).toBeLessThan(1e-5);
@@ -159,7 +176,10 @@ describe("nonlinear regime: rotating-frame fixed point vs lab-frame lock-in", ()
       const e = 1e-7;
       const [a1, a2] = residual(x + e, y);
       const [b1, b2] = residual(x, y + e);
-      const j11 = (a1 - f1) / e, j21 = (a2 - f2) / e, j12 = (b1 - f1) / e, j22 = (b2 - f2) / e;
+      const j11 = (a1 - f1) / e,
+        j21 = (a2 - f2) / e,
+        j12 = (b1 - f1) / e,
+        j22 = (b2 - f2) / e;
       const det = j11 * j22 - j12 * j21;
       const dx = (f1 * j22 - f2 * j12) / det;
       const dy = (j11 * f2 - j21 * f1) / det;
@@ -184,7 +204,20 @@ describe("nonlinear regime: rotating-frame fixed point vs lab-frame lock-in", ()
       const coneDeg = (Math.acos(Math.abs(z)) * 180) / Math.PI;
       expect(coneDeg).toBeGreaterThan(2.5);
       expect(coneDeg).toBeLessThan(25);
-      const r = lockIn({ w0, alpha, h, drive, sign: s, relativeTolerance: 1e-11, plan: { rampPeriods: 8, settleTime: (Math.ceil((30 * (1 + alpha * alpha)) / (alpha * Math.abs(w0)) / (2 * Math.PI)) * 2 * Math.PI), lockInPeriods: 2, settled: true } });
+      const r = lockIn({
+        w0,
+        alpha,
+        h,
+        drive,
+        sign: s,
+        relativeTolerance: 1e-11,
+        plan: {
+          rampPeriods: 8,
+          settleTime: Math.ceil((30 * (1 + alpha * alpha)) / (alpha * Math.abs(w0)) / (2 * Math.PI)) * 2 * Math.PI,
+          lockInPeriods: 2,
+          settled: true,
+        },
+      });
       // Lab-frame cone amplitude: u_x ± i u_y = (u'_x ± i u'_y) e^{it}.
       const cRe = x;
       const cIm = drive * y;
@@ -234,8 +267,14 @@ describe("intensity and spin trace", () => {
     expect(r.timePeriods.length).toBeGreaterThan(64 * 4);
     expect(r.timePeriods[r.timePeriods.length - 1]!).toBeCloseTo(5, 6);
     for (let i = 1; i < r.timePeriods.length; i++) expect(r.timePeriods[i]!).toBeGreaterThan(r.timePeriods[i - 1]!);
-    expect(Math.hypot(r.chiPlus.re - r.chiPlusAnalytic.re, r.chiPlus.im - r.chiPlusAnalytic.im) / Math.hypot(r.chiPlusAnalytic.re, r.chiPlusAnalytic.im)).toBeLessThan(1e-4);
-    expect(Math.hypot(r.chiMinus.re - r.chiMinusAnalytic.re, r.chiMinus.im - r.chiMinusAnalytic.im) / Math.hypot(r.chiMinusAnalytic.re, r.chiMinusAnalytic.im)).toBeLessThan(1e-4);
+    expect(
+      Math.hypot(r.chiPlus.re - r.chiPlusAnalytic.re, r.chiPlus.im - r.chiPlusAnalytic.im) /
+        Math.hypot(r.chiPlusAnalytic.re, r.chiPlusAnalytic.im),
+    ).toBeLessThan(1e-4);
+    expect(
+      Math.hypot(r.chiMinus.re - r.chiMinusAnalytic.re, r.chiMinus.im - r.chiMinusAnalytic.im) /
+        Math.hypot(r.chiMinusAnalytic.re, r.chiMinusAnalytic.im),
+    ).toBeLessThan(1e-4);
     const last = r.ux.length - 1;
     expect(Math.abs(r.uz[last]! - 1)).toBeLessThan(1e-6);
   });

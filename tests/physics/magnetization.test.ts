@@ -33,8 +33,8 @@ describe("Brillouin function", () => {
 
   it("is continuous across the series/closed-form switch", () => {
     const j = 6;
-    const a = brillouin(j, 0.999e-3 * 12 / 13);
-    const b = brillouin(j, 1.001e-3 * 12 / 13);
+    const a = brillouin(j, (0.999e-3 * 12) / 13);
+    const b = brillouin(j, (1.001e-3 * 12) / 13);
     expect(Math.abs(b - a)).toBeLessThan(1e-6);
     expect(b).toBeGreaterThan(a);
   });
@@ -45,7 +45,9 @@ describe("terbium ion and terbium garnet", () => {
     // Kittel ISSP, ch. 11, table "Effective magneton numbers p for trivalent lanthanide group ions":
     // Tb³⁺ 4f⁸ ⁷F₆, p(calc) = 9.72 (from memory). Hund's rules give g = 3/2 for L = 3, S = 3, J = 6.
     // Hund's rules for 4f⁸: S = 3, L = 3, more than half full so J = L + S = 6 (common practice, no source).
-    const l = 3, s = 3, j = 6;
+    const l = 3,
+      s = 3,
+      j = 6;
     const g = 1 + (j * (j + 1) + s * (s + 1) - l * (l + 1)) / (2 * j * (j + 1));
     expect(g).toBe(1.5);
     expect(Math.abs(g * Math.sqrt(j * (j + 1)) - 9.72)).toBeLessThan(0.005);
@@ -113,7 +115,8 @@ describe("static magnetization", () => {
     const p = { ...TGG, curieWeissK: 3, temperatureK: 4, fieldT: 0.5 };
     const m = staticMagnetization(p);
     const lambdaW = p.curieWeissK / curieConstantK(p);
-    const x = (p.landeG * BOHR_MAGNETON_J_PER_T * p.totalJ * (p.fieldT + MU0_N_PER_A2 * lambdaW * m)) / (BOLTZMANN_J_PER_K * p.temperatureK);
+    const x =
+      (p.landeG * BOHR_MAGNETON_J_PER_T * p.totalJ * (p.fieldT + MU0_N_PER_A2 * lambdaW * m)) / (BOLTZMANN_J_PER_K * p.temperatureK);
     // §3.2 mean-field equation M = N g μB J B_J(x), with B_J from the closed form (Kittel ch. 11).
     expect(relErr(m, p.ionDensityPerM3 * p.landeG * MU_B * p.totalJ * brillouinClosed(p.totalJ, x))).toBeLessThan(1e-10);
     // The mean field matters here (θCW = 3 K at T = 4 K): without it M0 would be clearly smaller.

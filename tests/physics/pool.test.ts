@@ -1,7 +1,15 @@
 import { expose } from "comlink";
 import { afterEach, describe, expect, it } from "vitest";
 import { createSpectrumWorkerApi } from "@/lib/compute/worker-api";
-import { SpectrumPool, aggregateProgress, defaultPoolSize, arraysToResult, mergeArrays, splitRanges, splitRequest } from "@/lib/compute/spectrum-pool";
+import {
+  SpectrumPool,
+  aggregateProgress,
+  defaultPoolSize,
+  arraysToResult,
+  mergeArrays,
+  splitRanges,
+  splitRequest,
+} from "@/lib/compute/spectrum-pool";
 import type { SpectrumRequest } from "@/lib/physics/schema";
 import { computeSpectrum, computeSpectrumArrays } from "@/lib/physics/spectrum";
 import { TGG } from "./fixtures";
@@ -17,10 +25,23 @@ const request = (over: Partial<SpectrumRequest> = {}): SpectrumRequest => ({
 
 describe("split and merge helpers", () => {
   it("splits into contiguous, non-empty, balanced ranges", () => {
-    expect(splitRanges(10, 4)).toEqual([[0, 3], [3, 6], [6, 8], [8, 10]]);
-    expect(splitRanges(3, 8)).toEqual([[0, 1], [1, 2], [2, 3]]);
+    expect(splitRanges(10, 4)).toEqual([
+      [0, 3],
+      [3, 6],
+      [6, 8],
+      [8, 10],
+    ]);
+    expect(splitRanges(3, 8)).toEqual([
+      [0, 1],
+      [1, 2],
+      [2, 3],
+    ]);
     expect(splitRanges(5, 1)).toEqual([[0, 5]]);
-    for (const [n, k] of [[1, 4], [256, 3], [5000, 4]] as const) {
+    for (const [n, k] of [
+      [1, 4],
+      [256, 3],
+      [5000, 4],
+    ] as const) {
       const r = splitRanges(n, k);
       expect(r[0]![0]).toBe(0);
       expect(r[r.length - 1]![1]).toBe(n);
@@ -55,7 +76,9 @@ describe("split and merge helpers", () => {
     const req = request({ method: "llg", wavelengthsNm: [300, 600, 1200, 2400] });
     const parts = splitRequest(req, 2).map((c) => computeSpectrumArrays(c.request));
     const merged = mergeArrays(req, parts);
-    expect(merged.maxRelDeviationFromAnalytic).toBe(Math.max(parts[0]!.maxRelDeviationFromAnalytic!, parts[1]!.maxRelDeviationFromAnalytic!));
+    expect(merged.maxRelDeviationFromAnalytic).toBe(
+      Math.max(parts[0]!.maxRelDeviationFromAnalytic!, parts[1]!.maxRelDeviationFromAnalytic!),
+    );
     const zeroField = arraysToResult(computeSpectrumArrays(request({ fieldT: 0, wavelengthsNm: [500] })));
     expect(zeroField.points[0]!.magneticShare).toBeNull();
     expect(zeroField.points[0]!.verdetRadPerTm).toBeNull();
@@ -100,7 +123,12 @@ describe("SpectrumPool over in-process message channels", () => {
       createWorker: () => {
         const { port1, port2 } = new MessageChannel();
         expose(createSpectrumWorkerApi({ chunkMs: 1 }), port2);
-        return Object.assign(port1, { terminate: () => { port1.close(); port2.close(); } }) as unknown as Worker;
+        return Object.assign(port1, {
+          terminate: () => {
+            port1.close();
+            port2.close();
+          },
+        }) as unknown as Worker;
       },
     });
     pools.push(pool);

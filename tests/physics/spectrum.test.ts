@@ -13,14 +13,27 @@ import {
   staticMagnetization,
   verdetToGyration,
 } from "@/lib/physics/spectrum";
-import { C0, MU0, c, cAdd, cExp, cMul, cSub, gamma, gyrationClosed, omegaOfNm, permittivityClosed, polder, rootDecaying, type C } from "./closed-forms";
+import {
+  C0,
+  MU0,
+  c,
+  cAdd,
+  cExp,
+  cMul,
+  cSub,
+  gamma,
+  gyrationClosed,
+  omegaOfNm,
+  permittivityClosed,
+  polder,
+  rootDecaying,
+  type C,
+} from "./closed-forms";
 import { TGG, relErr } from "./fixtures";
 
-const analytic = (over: Partial<SpectrumRequest> & { wavelengthsNm: number[] }) =>
-  computeSpectrum({ ...TGG, method: "analytic", ...over });
+const analytic = (over: Partial<SpectrumRequest> & { wavelengthsNm: number[] }) => computeSpectrum({ ...TGG, method: "analytic", ...over });
 
-const point = (over: Partial<SpectrumRequest>, wavelengthNm: number) =>
-  analytic({ ...over, wavelengthsNm: [wavelengthNm] }).points[0]!;
+const point = (over: Partial<SpectrumRequest>, wavelengthNm: number) => analytic({ ...over, wavelengthsNm: [wavelengthNm] }).points[0]!;
 
 describe("terbium garnet against published Verdet constants", () => {
   it("V(632.8 nm) ≈ −134 rad/(T m) at 293.15 K", () => {
@@ -99,7 +112,11 @@ describe("share arithmetic (common practice, no source)", () => {
     // share(1550) = 0.17 / (0.17 + 0.83 r), r = (800² − λE²)/(1550² − λE²) = 0.2455 for λE = 258 nm:
     // 45.5 %. The often-quoted "near 70 %" does not follow from this dispersion (README, Model).
     const base: Partial<SpectrumRequest> = {
-      epsInf: 1.95 ** 2, sellmeierB: 0, oscillatorStrength: 0, oscillatorDampingRadPerS: 0, gilbertDamping: 0,
+      epsInf: 1.95 ** 2,
+      sellmeierB: 0,
+      oscillatorStrength: 0,
+      oscillatorDampingRadPerS: 0,
+      gilbertDamping: 0,
     };
     const unit = point({ ...base, gyrationPerT: 1e-3 }, 800);
     // θe is linear in κE to first order in G: choose κE so that the share at 800 nm is 17 %.
@@ -191,7 +208,16 @@ describe("symmetry, passivity and limits", () => {
         expect(chi.minus.im).toBeLessThanOrEqual(0);
         const eps = permittivity(TGG, lambda, omega);
         const g = gyration(TGG, TGG.gyrationPerT * MU0_N_PER_A2 * m0, omega);
-        const rot = rotations({ omega, lengthM: 1, eps, gyration: g, chiPlus: chi.plus, chiMinus: chi.minus, chiDiff: chi.diff, chiSum: chi.sum });
+        const rot = rotations({
+          omega,
+          lengthM: 1,
+          eps,
+          gyration: g,
+          chiPlus: chi.plus,
+          chiMinus: chi.minus,
+          chiDiff: chi.diff,
+          chiSum: chi.sum,
+        });
         expect(rot.nPlus.im).toBeLessThanOrEqual(0);
         expect(rot.nMinus.im).toBeLessThanOrEqual(0);
         if (b < 0 && lambda === lambda0Nm) {
@@ -208,7 +234,16 @@ describe("symmetry, passivity and limits", () => {
     const eps = cx(3.8, -0.5);
     const chiPlus = cx(-1.6, -0.05);
     const muPlus = cx(1 + chiPlus.re, chiPlus.im);
-    const rot = rotations({ omega: 1e12, lengthM: 1e-3, eps, gyration: cx(0), chiPlus, chiMinus: cx(0.1, -0.001), chiDiff: cx(1.7, 0.049), chiSum: cx(-1.5, -0.051) });
+    const rot = rotations({
+      omega: 1e12,
+      lengthM: 1e-3,
+      eps,
+      gyration: cx(0),
+      chiPlus,
+      chiMinus: cx(0.1, -0.001),
+      chiDiff: cx(1.7, 0.049),
+      chiSum: cx(-1.5, -0.051),
+    });
     expect(rot.nPlus.im).toBeLessThanOrEqual(0);
     // n+² = ε μ+ still holds, but the principal root of the product grows along +z.
     const nSquared = mul(rot.nPlus, rot.nPlus);
@@ -284,7 +319,12 @@ describe("propagation and rotator", () => {
     // Output E = J (1, 0). Azimuth ψ = ½ atan2(S2, S1); ellipticity angle χ = ½ asin(S3/S0) with
     // S3 = 2 Im(Ex* Ey), so the "+" mode (1, −i) has χ = −π/4 and "−" (clockwise for the observer,
     // η > 0 in §1) has χ > 0.
-    for (const [t, b, lengthM, lambda] of [[293.15, 1, 0.004, 632.8], [4, 5, 0.001, 400], [10, -2, 0.002, 1064], [4, 5, 4e-6, 250]] as const) {
+    for (const [t, b, lengthM, lambda] of [
+      [293.15, 1, 0.004, 632.8],
+      [4, 5, 0.001, 400],
+      [10, -2, 0.002, 1064],
+      [4, 5, 4e-6, 250],
+    ] as const) {
       const over = { temperatureK: t, fieldT: b, lengthM };
       const p = point(over, lambda);
       const omega = omegaOfNm(lambda);
@@ -331,7 +371,11 @@ describe("propagation and rotator", () => {
     }
     expect(rotatorLength45M(0, 1)).toBeNull();
     // The closed form (π/4)/(|V| |B0|) for either sign of V and B0 (physics-model.md §6.3).
-    for (const [v, b] of [[-40, 1], [-134, -0.5], [25, 2]] as const) {
+    for (const [v, b] of [
+      [-40, 1],
+      [-134, -0.5],
+      [25, 2],
+    ] as const) {
       expect(relErr(rotatorLength45M(v, b)!, Math.PI / 4 / (Math.abs(v) * Math.abs(b)))).toBeLessThan(1e-15);
     }
     // With the published −40 rad/(T m) at 1064 nm (see above) and 1 T: 19.6 mm, the rod length of
@@ -342,7 +386,8 @@ describe("propagation and rotator", () => {
 
 describe("guards", () => {
   it("rejects invalid input with field: rule messages", () => {
-    const bad = (over: Record<string, unknown>) => () => computeSpectrum({ ...TGG, method: "analytic", wavelengthsNm: [500], ...over } as SpectrumRequest);
+    const bad = (over: Record<string, unknown>) => () =>
+      computeSpectrum({ ...TGG, method: "analytic", wavelengthsNm: [500], ...over } as SpectrumRequest);
     expect(bad({ temperatureK: -1 })).toThrow(SpectrumInputError);
     expect(bad({ temperatureK: -1 })).toThrow(/temperatureK: /);
     expect(bad({ curieWeissK: 300, temperatureK: 300 })).toThrow(/temperatureK: must be above the Curie–Weiss/);

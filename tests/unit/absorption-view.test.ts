@@ -51,12 +51,35 @@ describe("absorption beside the rotation", () => {
   });
 
   it("formats bands, transmissions and old results without the columns", () => {
-    expect(formatBands([{ fromNm: 300, toNm: 703.2 }, { fromNm: 1200, toNm: 1200 }])).toBe("300–703.2 nm, 1200 nm");
-    expect(formatBands(Array.from({ length: 6 }, (_, i) => ({ fromNm: i, toNm: i })), 2)).toBe("0 nm, 1 nm and 4 more");
+    expect(
+      formatBands([
+        { fromNm: 300, toNm: 703.2 },
+        { fromNm: 1200, toNm: 1200 },
+      ]),
+    ).toBe("300–703.2 nm, 1200 nm");
+    expect(
+      formatBands(
+        Array.from({ length: 6 }, (_, i) => ({ fromNm: i, toNm: i })),
+        2,
+      ),
+    ).toBe("0 nm, 1 nm and 4 more");
     expect(formatTransmission(0.5)).toBe("50.0 %");
     expect(formatTransmission(0.0023)).toBe("0.23 %");
     expect(formatTransmission(1e-40)).toBe("1.0e-38 %");
     expect(formatTransmission(Infinity)).toBe("gain");
-    expect(hasAbsorption([{ wavelengthNm: 1, thetaRad: 0, thetaElectricRad: 0, thetaMagneticRad: 0, thetaCrossRad: 0, ellipticityRad: 0, magneticShare: null, verdetRadPerTm: null }])).toBe(false);
+    expect(
+      hasAbsorption([
+        {
+          wavelengthNm: 1,
+          thetaRad: 0,
+          thetaElectricRad: 0,
+          thetaMagneticRad: 0,
+          thetaCrossRad: 0,
+          ellipticityRad: 0,
+          magneticShare: null,
+          verdetRadPerTm: null,
+        },
+      ]),
+    ).toBe(false);
   });
 });

@@ -8,13 +8,21 @@ const base: SetSnapshot = { name: "TGG 293 K", description: "Room temperature", 
 describe("diffSnapshots", () => {
   it("lists name, description, tags and every model parameter, none changed for identical snapshots", () => {
     const rows = diffSnapshots(base, { ...base, params: { ...base.params } });
-    expect(rows.map((r) => r.key)).toEqual(["name", "description", "tags", ...PARAM_META.map((m) => m.key), ...FLAG_META.map((m) => m.key)]);
+    expect(rows.map((r) => r.key)).toEqual([
+      "name",
+      "description",
+      "tags",
+      ...PARAM_META.map((m) => m.key),
+      ...FLAG_META.map((m) => m.key),
+    ]);
     expect(rows.some((r) => r.changed)).toBe(false);
   });
 
   it("marks a changed parameter with its unit and both values", () => {
     const rows = changedFields(base, { ...base, params: { ...base.params, temperatureK: 77 } });
-    expect(rows).toEqual([{ key: "temperatureK", label: "Temperature", unit: "K", before: "293.15", after: "77", changed: true, relative: "\u221273.7 %" }]);
+    expect(rows).toEqual([
+      { key: "temperatureK", label: "Temperature", unit: "K", before: "293.15", after: "77", changed: true, relative: "\u221273.7 %" },
+    ]);
   });
 
   it("marks text fields and ignores tag order, spacing and duplicates", () => {
@@ -34,7 +42,15 @@ describe("diffSnapshots", () => {
     const { diamagneticTerm: _absent, ...old } = { ...TERBIUM_GARNET_DEFAULTS, diamagneticTerm: undefined };
     expect(changedFields({ ...base, params: old }, { ...base, params: { ...old, diamagneticTerm: false } })).toEqual([]);
     expect(changedFields({ ...base, params: old }, { ...base, params: { ...old, diamagneticTerm: true } })).toEqual([
-      { key: "diamagneticTerm", label: "Diamagnetic (bound-electron) term", unit: "", before: "off", after: "on", changed: true, relative: null },
+      {
+        key: "diamagneticTerm",
+        label: "Diamagnetic (bound-electron) term",
+        unit: "",
+        before: "off",
+        after: "on",
+        changed: true,
+        relative: null,
+      },
     ]);
   });
 

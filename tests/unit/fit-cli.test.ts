@@ -28,7 +28,10 @@ function run(args: string[]) {
 
 const params = { ...TGG, lengthM: 0.01, method: "analytic" };
 const truth = { ...TGG, lengthM: 0.01, gyrationPerT: 5.0e-3, oscillatorWavelengthNm: 270, magneticScale: 3 };
-const conds = [...evenly(400, 1600, 24).map((w) => verdetAt(w)), ...evenly(500, 1500, 8).map((w) => verdetAt(w, { temperatureK: 150, fieldT: 2 }))];
+const conds = [
+  ...evenly(400, 1600, 24).map((w) => verdetAt(w)),
+  ...evenly(500, 1500, 8).map((w) => verdetAt(w, { temperatureK: 150, fieldT: 2 })),
+];
 const points = syntheticPoints(truth, conds, 0.5, seededGaussian(21));
 const csv = `# generated for a test\nwavelength_nm,verdet_rad_per_T_m,sigma,temperature_K,field_T\n${points.map((p) => `${p.wavelengthNm},${p.value},${p.sigma},${p.temperatureK},${p.fieldT}`).join("\n")}\n`;
 const paramsFile = file("p.json", JSON.stringify(params));
@@ -45,8 +48,16 @@ describe("fit command line", () => {
     expect(out.dof).toBe(points.length - 3);
     expect(out.correlation).toHaveLength(3);
     expect(out.points).toHaveLength(points.length);
-    expect(Object.keys(out.points[0]).sort()).toEqual(["magneticShare", "magneticShareSigma", "measured", "model", "sigma", "wavelengthNm"]);
-    for (const key of out.free as string[]) expect(Math.abs(out.values[key] - (truth as unknown as Record<string, number>)[key]!)).toBeLessThan(3 * out.sigmas[key]);
+    expect(Object.keys(out.points[0]).sort()).toEqual([
+      "magneticShare",
+      "magneticShareSigma",
+      "measured",
+      "model",
+      "sigma",
+      "wavelengthNm",
+    ]);
+    for (const key of out.free as string[])
+      expect(Math.abs(out.values[key] - (truth as unknown as Record<string, number>)[key]!)).toBeLessThan(3 * out.sigmas[key]);
     // The temperature and field columns are used (the second block is at 150 K, 2 T).
     expect(out.points[points.length - 1].measured).toBeCloseTo(points[points.length - 1]!.value, 10);
 
@@ -72,15 +83,52 @@ describe("fit command line", () => {
   const refusals: [string, () => string[], RegExp][] = [
     ["no --data", () => ["--params", paramsFile], /^--data is required; usage: /],
     ["an unknown flag", () => ["--params", paramsFile, "--data", dataFile, "--fast"], /^--fast: unknown argument/],
-    ["a missing file", () => ["--params", join(dir, "none.json"), "--data", dataFile], /none\.json: cannot read the parameter file \(no such file\)$/],
+    [
+      "a missing file",
+      () => ["--params", join(dir, "none.json"), "--data", dataFile],
+      /none\.json: cannot read the parameter file \(no such file\)$/,
+    ],
     ["malformed JSON", () => ["--params", file("bad.json", "{"), "--data", dataFile], /bad\.json: malformed JSON/],
-    ["wavelengthsNm in the parameter file", () => ["--params", file("w.json", JSON.stringify({ ...params, wavelengthsNm: [600] })), "--data", dataFile], /^wavelengthsNm: not used by the fit/],
-    ["an invalid parameter", () => ["--params", file("g.json", JSON.stringify({ ...params, landeG: -1 })), "--data", dataFile], /^landeG: must be > 0$/],
-    ["an unknown parameter", () => ["--params", file("u.json", JSON.stringify({ ...params, colour: 1 })), "--data", dataFile], /^colour: unknown key/],
-    ["a key that cannot be freed", () => ["--params", paramsFile, "--data", dataFile, "--free", "temperatureK"], /^--free: "temperatureK" is not a model parameter that a fit can free/],
-    ["a file without σ", () => ["--params", paramsFile, "--data", file("ns.csv", "wavelength_nm,verdet_rad_per_T_m\n600,-100\n")], /^data file: no column "sigma"/],
-    ["a bad row", () => ["--params", paramsFile, "--data", file("br.csv", "wavelength_nm,verdet_rad_per_T_m,sigma\n600,-100,1\n700,,1\n800,-50,1\n900,-40,x\n1000,-30,1\n")], /^data file: line 3: Verdet constant is empty \(and 1 more problem\)$/],
-    ["too few points", () => ["--params", paramsFile, "--data", file("few.csv", "wavelength_nm,verdet_rad_per_T_m,sigma\n600,-100,1\n700,-80,1\n")], /^points: 2 point\(s\) cannot determine 3 free parameter\(s\)/],
+    [
+      "wavelengthsNm in the parameter file",
+      () => ["--params", file("w.json", JSON.stringify({ ...params, wavelengthsNm: [600] })), "--data", dataFile],
+      /^wavelengthsNm: not used by the fit/,
+    ],
+    [
+      "an invalid parameter",
+      () => ["--params", file("g.json", JSON.stringify({ ...params, landeG: -1 })), "--data", dataFile],
+      /^landeG: must be > 0$/,
+    ],
+    [
+      "an unknown parameter",
+      () => ["--params", file("u.json", JSON.stringify({ ...params, colour: 1 })), "--data", dataFile],
+      /^colour: unknown key/,
+    ],
+    [
+      "a key that cannot be freed",
+      () => ["--params", paramsFile, "--data", dataFile, "--free", "temperatureK"],
+      /^--free: "temperatureK" is not a model parameter that a fit can free/,
+    ],
+    [
+      "a file without σ",
+      () => ["--params", paramsFile, "--data", file("ns.csv", "wavelength_nm,verdet_rad_per_T_m\n600,-100\n")],
+      /^data file: no column "sigma"/,
+    ],
+    [
+      "a bad row",
+      () => [
+        "--params",
+        paramsFile,
+        "--data",
+        file("br.csv", "wavelength_nm,verdet_rad_per_T_m,sigma\n600,-100,1\n700,,1\n800,-50,1\n900,-40,x\n1000,-30,1\n"),
+      ],
+      /^data file: line 3: Verdet constant is empty \(and 1 more problem\)$/,
+    ],
+    [
+      "too few points",
+      () => ["--params", paramsFile, "--data", file("few.csv", "wavelength_nm,verdet_rad_per_T_m,sigma\n600,-100,1\n700,-80,1\n")],
+      /^points: 2 point\(s\) cannot determine 3 free parameter\(s\)/,
+    ],
   ];
   it("exits 2 from the real process on bad input", () => {
     const r = spawnFit(["--params", paramsFile, "--data", join(dir, "none.csv")]);

@@ -17,7 +17,14 @@ describe("shared forward model", () => {
     const points = [at(1064), at(632.8), at(632.8, { temperatureK: 77 }), at(800, { quantity: "rotation", fieldT: 2 })];
     const ev = evaluateModel(TGG, points);
     points.forEach((p, i) => {
-      const direct = computeSpectrum({ ...TGG, temperatureK: p.temperatureK, fieldT: p.fieldT, lengthM: p.lengthM, wavelengthsNm: [p.wavelengthNm], method: "analytic" }).points[0]!;
+      const direct = computeSpectrum({
+        ...TGG,
+        temperatureK: p.temperatureK,
+        fieldT: p.fieldT,
+        lengthM: p.lengthM,
+        wavelengthsNm: [p.wavelengthNm],
+        method: "analytic",
+      }).points[0]!;
       expect(ev.value[i]).toBe(p.quantity === "verdet" ? direct.verdetRadPerTm : direct.thetaRad);
       expect(ev.magneticShare[i]).toBe(direct.magneticShare);
     });
@@ -37,12 +44,21 @@ describe("shared forward model", () => {
     const points = [at(632.8), at(1064), at(1550)];
     const jac = modelJacobian(TGG, ["magneticScale", "gyrationPerT"], points);
     points.forEach((p, i) => {
-      const direct = computeSpectrum({ ...TGG, temperatureK: 293.15, fieldT: 1, lengthM: 0.01, wavelengthsNm: [p.wavelengthNm], method: "analytic" }).points[0]!;
+      const direct = computeSpectrum({
+        ...TGG,
+        temperatureK: 293.15,
+        fieldT: 1,
+        lengthM: 0.01,
+        wavelengthsNm: [p.wavelengthNm],
+        method: "analytic",
+      }).points[0]!;
       const magneticVerdet = direct.thetaMagneticRad / (1 * 0.01);
       expect(Math.abs(jac.valueJacobian.get(i, 0) - magneticVerdet) / Math.abs(magneticVerdet)).toBeLessThan(1e-4);
       // V_e is linear in κE to first order in G (§5.4): ∂V/∂κE = V_e / κE.
       const electricVerdet = direct.thetaElectricRad / 0.01;
-      expect(Math.abs(jac.valueJacobian.get(i, 1) - electricVerdet / TGG.gyrationPerT) / Math.abs(electricVerdet / TGG.gyrationPerT)).toBeLessThan(1e-3);
+      expect(
+        Math.abs(jac.valueJacobian.get(i, 1) - electricVerdet / TGG.gyrationPerT) / Math.abs(electricVerdet / TGG.gyrationPerT),
+      ).toBeLessThan(1e-3);
     });
   });
 });

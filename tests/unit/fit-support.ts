@@ -19,4 +19,5 @@ export function syntheticPoints(truth: ModelParams, conditions: ModelCondition[]
   return conditions.map((c, i) => ({ line: i + 2, ...c, value: clean[i]! + sigma * gauss(), sigma }));
 }
 
-export const evenly = (from: number, to: number, count: number) => Array.from({ length: count }, (_, i) => from + ((to - from) * i) / (count - 1));
+export const evenly = (from: number, to: number, count: number) =>
+  Array.from({ length: count }, (_, i) => from + ((to - from) * i) / (count - 1));

@@ -18,7 +18,10 @@ const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
  * two temperatures. The fit starts from the §9 values.
  */
 const truth: ModelParams = { ...base, gyrationPerT: 5.0e-3, oscillatorWavelengthNm: 270, magneticScale: 3 };
-const conditions = [...evenly(400, 1600, 20).map((w) => verdetAt(w)), ...evenly(450, 1550, 10).map((w) => verdetAt(w, { temperatureK: 200 }))];
+const conditions = [
+  ...evenly(400, 1600, 20).map((w) => verdetAt(w)),
+  ...evenly(450, 1550, 10).map((w) => verdetAt(w, { temperatureK: 200 })),
+];
 const SIGMA = 0.5; // rad/(T·m)
 
 describe("closed form: a model linear in its parameters", () => {
@@ -102,7 +105,11 @@ describe("closed form: the full model with oscillatorWavelengthNm fixed", () => 
     const w = split.map((p) => p.thetaMagneticRad / (base.fieldT * base.lengthM) / fixedLambda.magneticScale);
 
     // Linear weighted least squares in (κE, k) by the 2×2 normal equations (Cramer's rule).
-    let s11 = 0, s12 = 0, s22 = 0, b1 = 0, b2 = 0;
+    let s11 = 0,
+      s12 = 0,
+      s22 = 0,
+      b1 = 0,
+      b2 = 0;
     points.forEach((p, i) => {
       const wt = 1 / p.sigma ** 2;
       s11 += wt * uAt[i]! ** 2;
@@ -116,7 +123,7 @@ describe("closed form: the full model with oscillatorWavelengthNm fixed", () => 
     // H = (XᵀWX)⁻¹XᵀW maps a change of the data to a change of the linear solution.
     const H = points.map((p, i) => {
       const wt = 1 / p.sigma ** 2;
-      return [(s22 * uAt[i]! - s12 * w[i]!) * wt / det, (s11 * w[i]! - s12 * uAt[i]!) * wt / det];
+      return [((s22 * uAt[i]! - s12 * w[i]!) * wt) / det, ((s11 * w[i]! - s12 * uAt[i]!) * wt) / det];
     });
 
     const fit = fitMeasurements({ params: fixedLambda, free: [{ key: "gyrationPerT" }, { key: "magneticScale" }], points });
@@ -154,7 +161,8 @@ describe("fit on synthetic data", () => {
     }
     expect(fit.sigmaScaledByChi2).toBe(false);
     expect(fit.sigmas).toEqual(fit.sigmasUnscaled);
-    for (const key of fit.free) expect(rel(fit.sigmasScaled[key]!, fit.sigmasUnscaled[key]! * Math.sqrt(fit.reducedChi2))).toBeLessThan(1e-12);
+    for (const key of fit.free)
+      expect(rel(fit.sigmasScaled[key]!, fit.sigmasUnscaled[key]! * Math.sqrt(fit.reducedChi2))).toBeLessThan(1e-12);
     expect(fit.points).toHaveLength(points.length);
     const trueShares = evaluateModel(truth, conditions).magneticShare;
     fit.points.forEach((p, i) => {
@@ -177,7 +185,11 @@ describe("fit on synthetic data", () => {
     const shareSigmas: number[] = [];
     const at1064 = conditions.findIndex((c) => c.temperatureK === 293.15 && c.wavelengthNm > 1000);
     for (let d = 0; d < draws; d++) {
-      const fit = fitMeasurements({ params: base, free: DEFAULT_FREE, points: syntheticPoints(truth, conditions, SIGMA, seededGaussian(1000 + d)) });
+      const fit = fitMeasurements({
+        params: base,
+        free: DEFAULT_FREE,
+        points: syntheticPoints(truth, conditions, SIGMA, seededGaussian(1000 + d)),
+      });
       for (const k of keys) {
         values[k]!.push(fit.values[k]!);
         sigmas[k]!.push(fit.sigmas[k]!);
@@ -198,7 +210,11 @@ describe("fit on synthetic data", () => {
     ratios.magneticShare = std(shares) / mean(shareSigmas);
     expect(ratios.magneticShare).toBeGreaterThan(0.8);
     expect(ratios.magneticShare).toBeLessThan(1.2);
-    console.info(`fit σ check over ${draws} draws, scatter / reported σ: ${Object.entries(ratios).map(([k, r]) => `${k} ${r.toFixed(3)}`).join(", ")}`);
+    console.info(
+      `fit σ check over ${draws} draws, scatter / reported σ: ${Object.entries(ratios)
+        .map(([k, r]) => `${k} ${r.toFixed(3)}`)
+        .join(", ")}`,
+    );
   }, 120_000);
 });
 
@@ -206,14 +222,22 @@ describe("separation verdict", () => {
   it("says in words when the data cannot tell the parts apart", () => {
     // A narrow band far above λE: both parts are nearly flat there, so they trade off.
     const narrow = evenly(1500, 1560, 12).map((w) => verdetAt(w));
-    const fit = fitMeasurements({ params: base, free: [{ key: "gyrationPerT" }, { key: "magneticScale" }], points: syntheticPoints(truth, narrow, SIGMA, seededGaussian(3)) });
+    const fit = fitMeasurements({
+      params: base,
+      free: [{ key: "gyrationPerT" }, { key: "magneticScale" }],
+      points: syntheticPoints(truth, narrow, SIGMA, seededGaussian(3)),
+    });
     expect(fit.separation.separable).toBe(false);
     expect(Math.abs(fit.separation.amplitudeCorrelation!)).toBeGreaterThan(0.95);
     expect(fit.separation.reasons.join(" ")).toMatch(/cannot tell the two parts apart/);
   });
 
   it("does not call a split measured when magneticScale is held fixed", () => {
-    const fit = fitMeasurements({ params: base, free: [{ key: "gyrationPerT" }], points: syntheticPoints(truth, conditions, SIGMA, seededGaussian(4)) });
+    const fit = fitMeasurements({
+      params: base,
+      free: [{ key: "gyrationPerT" }],
+      points: syntheticPoints(truth, conditions, SIGMA, seededGaussian(4)),
+    });
     expect(fit.separation.separable).toBe(false);
     expect(fit.separation.reasons[0]).toMatch(/must both be free/);
   });
@@ -232,7 +256,11 @@ describe("options and errors", () => {
   });
 
   it("keeps a parameter inside its bounds and says it ended on one", () => {
-    const fit = fitMeasurements({ params: base, free: [{ key: "gyrationPerT" }, { key: "oscillatorWavelengthNm" }, { key: "magneticScale", min: 0, max: 2 }], points });
+    const fit = fitMeasurements({
+      params: base,
+      free: [{ key: "gyrationPerT" }, { key: "oscillatorWavelengthNm" }, { key: "magneticScale", min: 0, max: 2 }],
+      points,
+    });
     expect(fit.values.magneticScale).toBe(2);
     expect(fit.atBound).toEqual(["magneticScale"]);
   });
@@ -244,29 +272,41 @@ describe("options and errors", () => {
     // scale to first order in χ, physics-model.md §8, so both are the same slope).
     const conds = conditions.slice(0, 5);
     const central = modelJacobian({ ...base, magneticScale: 1e-3 }, ["magneticScale"], conds).valueJacobian;
-    const oneSided = modelJacobian({ ...base, magneticScale: 1e-3 }, ["magneticScale"], conds, { lower: { magneticScale: 1e-3 } }).valueJacobian;
+    const oneSided = modelJacobian({ ...base, magneticScale: 1e-3 }, ["magneticScale"], conds, {
+      lower: { magneticScale: 1e-3 },
+    }).valueJacobian;
     for (let i = 0; i < conds.length; i++) expect(rel(oneSided.get(i, 0), central.get(i, 0))).toBeLessThan(1e-6);
   });
 
   it("stops when cancelled", () => {
     let calls = 0;
-    expect(() => fitMeasurements({ params: base, free: DEFAULT_FREE, points }, { shouldCancel: () => ++calls > 2 })).toThrow(FitCancelledError);
+    expect(() => fitMeasurements({ params: base, free: DEFAULT_FREE, points }, { shouldCancel: () => ++calls > 2 })).toThrow(
+      FitCancelledError,
+    );
   });
 
   it("refuses too few points, a duplicate key and a start outside the bounds with a clear message", () => {
-    expect(() => fitMeasurements({ params: base, free: DEFAULT_FREE, points: points.slice(0, 3) })).toThrow(/needs more points than free parameters/);
-    expect(() => fitMeasurements({ params: base, free: [{ key: "gyrationPerT" }, { key: "gyrationPerT" }], points })).toThrow(/listed twice/);
+    expect(() => fitMeasurements({ params: base, free: DEFAULT_FREE, points: points.slice(0, 3) })).toThrow(
+      /needs more points than free parameters/,
+    );
+    expect(() => fitMeasurements({ params: base, free: [{ key: "gyrationPerT" }, { key: "gyrationPerT" }], points })).toThrow(
+      /listed twice/,
+    );
     expect(() => fitMeasurements({ params: base, free: [{ key: "magneticScale", min: 2, max: 4 }], points })).toThrow(FitError);
-    expect(() => fitMeasurements({ params: base, free: [{ key: "temperatureK" as never }], points })).toThrow(/not a model parameter that a fit can free/);
-    expect(() => fitMeasurements({ params: base, free: DEFAULT_FREE, points: points.map((p, i) => (i === 4 ? { ...p, fieldT: 0 } : p)) })).toThrow(/line 6: a Verdet constant needs a nonzero field/);
+    expect(() => fitMeasurements({ params: base, free: [{ key: "temperatureK" as never }], points })).toThrow(
+      /not a model parameter that a fit can free/,
+    );
+    expect(() =>
+      fitMeasurements({ params: base, free: DEFAULT_FREE, points: points.map((p, i) => (i === 4 ? { ...p, fieldT: 0 } : p)) }),
+    ).toThrow(/line 6: a Verdet constant needs a nonzero field/);
   });
 
   it("names a free parameter the data cannot determine, and shows a near-degenerate pair in the correlation", () => {
     // With magneticScale = 0 the magnetic-dipole part is exactly 0 (physics-model.md §8), so the
     // Gilbert damping has no effect on V at all.
-    expect(() => fitMeasurements({ params: { ...base, magneticScale: 0 }, free: [{ key: "gyrationPerT" }, { key: "gilbertDamping" }], points })).toThrow(
-      /gilbertDamping does not change the model at these points/,
-    );
+    expect(() =>
+      fitMeasurements({ params: { ...base, magneticScale: 0 }, free: [{ key: "gyrationPerT" }, { key: "gilbertDamping" }], points }),
+    ).toThrow(/gilbertDamping does not change the model at these points/);
     // κE and N enter the electric part only through their product κE·μ0M0 (§5.2, linear in N in
     // the low-field regime); N also sets ωM of the small magnetic part, so the pair is resolvable
     // in principle but nearly degenerate.

@@ -20,7 +20,12 @@ describe("lab-run kinds", () => {
     expect(result.columns.magneticShare).toHaveLength(15);
     const ys = result.columns.rowValue!;
     for (let j = 0; j < 3; j++) {
-      const row = computeSpectrumArrays({ ...TERBIUM_GARNET_DEFAULTS, fieldT: ys[j]!, method: "analytic", wavelengthsNm: Array.from(result.columns.wavelengthNm!) });
+      const row = computeSpectrumArrays({
+        ...TERBIUM_GARNET_DEFAULTS,
+        fieldT: ys[j]!,
+        method: "analytic",
+        wavelengthsNm: Array.from(result.columns.wavelengthNm!),
+      });
       expect(Array.from(result.columns.magneticShare!.slice(j * 5, j * 5 + 5))).toEqual(Array.from(row.magneticShare));
     }
     // Chunks computed out of order assemble to the same columns.
@@ -30,10 +35,18 @@ describe("lab-run kinds", () => {
   });
 
   it("a long spectrum is split into chunks of at most 256 wavelengths and joins up to one spectrum", () => {
-    const payload = { params: TERBIUM_GARNET_DEFAULTS, method: "analytic" as const, wavelengths: { fromNm: 300, toNm: 3000, count: 700, spacing: "log" as const } };
+    const payload = {
+      params: TERBIUM_GARNET_DEFAULTS,
+      method: "analytic" as const,
+      wavelengths: { fromNm: 300, toNm: 3000, count: 700, spacing: "log" as const },
+    };
     const p = spectrumRun.payloadSchema.parse(payload);
     expect(spectrumRun.chunks(p).map((c) => c.end - c.start)).toEqual([256, 256, 188]);
-    const whole = computeSpectrumArrays({ ...TERBIUM_GARNET_DEFAULTS, method: "analytic", wavelengthsNm: wavelengthGrid(300, 3000, 700, "log") });
+    const whole = computeSpectrumArrays({
+      ...TERBIUM_GARNET_DEFAULTS,
+      method: "analytic",
+      wavelengthsNm: wavelengthGrid(300, 3000, 700, "log"),
+    });
     expect(computeRunInProcess("spectrum", p).columns.thetaRad).toEqual(whole.thetaRad);
   });
 
@@ -44,7 +57,10 @@ describe("lab-run kinds", () => {
     const cold = runSpecSchema.safeParse({ kind: "map", payload: { ...map, axis: "temperature", rows: { from: -20, to: 300, count: 4 } } });
     expect(cold.success).toBe(false);
     expect(cold.error!.issues.map((i) => i.message).join(" ")).toMatch(/Curie–Weiss/);
-    const long = runSpecSchema.safeParse({ kind: "spectrum", payload: { params: TERBIUM_GARNET_DEFAULTS, method: "llg", wavelengths: { fromNm: 300, toNm: 3000, count: 20_001 } } });
+    const long = runSpecSchema.safeParse({
+      kind: "spectrum",
+      payload: { params: TERBIUM_GARNET_DEFAULTS, method: "llg", wavelengths: { fromNm: 300, toNm: 3000, count: 20_001 } },
+    });
     expect(long.success).toBe(false);
   });
 

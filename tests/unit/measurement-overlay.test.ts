@@ -2,12 +2,35 @@ import { describe, expect, it } from "vitest";
 import { describeConversion, toPlotUnits } from "@/lib/measurements/overlay";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 
-const verdet: MeasuredPoint = { line: 2, wavelengthNm: 632.8, quantity: "verdet", value: -134, sigma: 2, temperatureK: 293.15, fieldT: 1, lengthM: 0.01 };
-const rotation: MeasuredPoint = { line: 3, wavelengthNm: 1064, quantity: "rotation", value: -0.2, sigma: 0.004, temperatureK: 293.15, fieldT: 0.5, lengthM: 0.02 };
+const verdet: MeasuredPoint = {
+  line: 2,
+  wavelengthNm: 632.8,
+  quantity: "verdet",
+  value: -134,
+  sigma: 2,
+  temperatureK: 293.15,
+  fieldT: 1,
+  lengthM: 0.01,
+};
+const rotation: MeasuredPoint = {
+  line: 3,
+  wavelengthNm: 1064,
+  quantity: "rotation",
+  value: -0.2,
+  sigma: 0.004,
+  temperatureK: 293.15,
+  fieldT: 0.5,
+  lengthM: 0.02,
+};
 
 describe("measured points in the plot's units", () => {
   it("shows a Verdet value as is on a Verdet axis and as V·B·L at the plot's geometry on an angle axis", () => {
-    expect(toPlotUnits(verdet, { xUnit: "nm", yMode: "verdet", geometry: { fieldT: 2, lengthM: 0.05 } })).toMatchObject({ x: 632.8, y: -134, sigma: 2, rescaled: false });
+    expect(toPlotUnits(verdet, { xUnit: "nm", yMode: "verdet", geometry: { fieldT: 2, lengthM: 0.05 } })).toMatchObject({
+      x: 632.8,
+      y: -134,
+      sigma: 2,
+      rescaled: false,
+    });
     // θ = V·B·L (physics-model §1): −134 · 2 T · 0.05 m = −13.4 rad.
     const rad = toPlotUnits(verdet, { xUnit: "nm", yMode: "rad", geometry: { fieldT: 2, lengthM: 0.05 } })!;
     expect(rad.y).toBeCloseTo(-13.4, 12);

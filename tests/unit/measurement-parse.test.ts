@@ -21,7 +21,11 @@ describe("proposeMapping", () => {
   });
 
   it("recognises a rotation in rad and other units by suffix", () => {
-    expect(proposeMapping(["wavelength_nm", "rotation_rad", "sigma"])).toMatchObject({ quantity: "rotation", valueColumn: "rotation_rad", valueUnit: "rad" });
+    expect(proposeMapping(["wavelength_nm", "rotation_rad", "sigma"])).toMatchObject({
+      quantity: "rotation",
+      valueColumn: "rotation_rad",
+      valueUnit: "rad",
+    });
     expect(proposeMapping(["Energy (eV)", "Rotation (mrad)", "u"])).toMatchObject({
       wavelengthColumn: "Energy (eV)",
       wavelengthUnit: "eV",
@@ -29,11 +33,20 @@ describe("proposeMapping", () => {
       valueUnit: "mrad",
       sigmaColumn: "u",
     });
-    expect(proposeMapping(["wavenumber_cm-1", "verdet_min_per_Oe_cm"])).toMatchObject({ wavelengthUnit: "cm-1", valueUnit: "min/(Oe·cm)", quantity: "verdet" });
+    expect(proposeMapping(["wavenumber_cm-1", "verdet_min_per_Oe_cm"])).toMatchObject({
+      wavelengthUnit: "cm-1",
+      valueUnit: "min/(Oe·cm)",
+      quantity: "verdet",
+    });
   });
 
   it("leaves unknown columns to the user", () => {
-    expect(proposeMapping(["a", "b"])).toMatchObject({ wavelengthColumn: null, valueColumn: null, sigmaColumn: null, temperatureColumn: null });
+    expect(proposeMapping(["a", "b"])).toMatchObject({
+      wavelengthColumn: null,
+      valueColumn: null,
+      sigmaColumn: null,
+      temperatureColumn: null,
+    });
   });
 });
 

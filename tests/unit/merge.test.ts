@@ -3,7 +3,12 @@ import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import type { SetSnapshot } from "@/lib/model/diff";
 import { mergeOntoNewer } from "@/lib/model/merge";
 
-const base = { name: "TGG 293 K", description: "Room temperature", tags: ["tgg", "garnet"], params: { ...TERBIUM_GARNET_DEFAULTS } } satisfies SetSnapshot;
+const base = {
+  name: "TGG 293 K",
+  description: "Room temperature",
+  tags: ["tgg", "garnet"],
+  params: { ...TERBIUM_GARNET_DEFAULTS },
+} satisfies SetSnapshot;
 
 describe("mergeOntoNewer", () => {
   it("keeps the other person's change to a field this user never touched", () => {
@@ -20,7 +25,11 @@ describe("mergeOntoNewer", () => {
     const theirs = { ...base, description: "Measured again in March" };
     const mine = { ...base, name: "TGG 293 K (checked)", tags: ["garnet", "tgg", "reference"] };
     const { merged, mine: taken } = mergeOntoNewer({ base, mine, theirs });
-    expect(merged).toMatchObject({ name: "TGG 293 K (checked)", description: "Measured again in March", tags: ["garnet", "tgg", "reference"] });
+    expect(merged).toMatchObject({
+      name: "TGG 293 K (checked)",
+      description: "Measured again in March",
+      tags: ["garnet", "tgg", "reference"],
+    });
     expect(taken).toEqual(["name", "tags"]);
   });
 

@@ -41,12 +41,39 @@ describe("plan export and hand-over", () => {
     partsCorrelation: -0.9,
     parameterSigma: {},
     points: [
-      { index: 0, lineName: 'HeNe "table 2", red', wavelengthNm: 632.8, temperatureK: 77, fieldT: 1, count: 2, rotationRad: -1.5, magneticShare: 0.03, signalToNoise: 1.5e5, belowNoise: false },
-      { index: 5, lineName: "YAG", wavelengthNm: 1064, temperatureK: 77, fieldT: 1, count: 1, rotationRad: -0.4, magneticShare: 0.09, signalToNoise: 0.5, belowNoise: true },
+      {
+        index: 0,
+        lineName: 'HeNe "table 2", red',
+        wavelengthNm: 632.8,
+        temperatureK: 77,
+        fieldT: 1,
+        count: 2,
+        rotationRad: -1.5,
+        magneticShare: 0.03,
+        signalToNoise: 1.5e5,
+        belowNoise: false,
+      },
+      {
+        index: 5,
+        lineName: "YAG",
+        wavelengthNm: 1064,
+        temperatureK: 77,
+        fieldT: 1,
+        count: 1,
+        rotationRad: -0.4,
+        magneticShare: 0.09,
+        signalToNoise: 0.5,
+        belowNoise: true,
+      },
     ],
   };
   it("writes one CSV row per point with quoted names", () => {
-    const csv = planToCsv({ setName: "TGG", setVersion: 3, result: { criterionLabel: "σ of magneticScale", criterionUnit: "(×)", method: "greedy", candidateCount: 40, sigmaPerPointRad: 1e-5 }, plan });
+    const csv = planToCsv({
+      setName: "TGG",
+      setVersion: 3,
+      result: { criterionLabel: "σ of magneticScale", criterionUnit: "(×)", method: "greedy", candidateCount: 40, sigmaPerPointRad: 1e-5 },
+      plan,
+    });
     const rows = csv.trim().split("\n");
     expect(rows[0]).toBe('# Gyrolux measurement plan for "TGG" (version 3)');
     expect(rows[4]).toBe("line,wavelength_nm,temperature_K,field_T,count,predicted_rotation_rad,signal_to_noise,below_noise");

@@ -53,20 +53,38 @@ describe("planner against a Monte-Carlo of the fit", () => {
       const plan = result.plans[0]!;
       expect(plan.separable).toBe(true);
       const conditions = plan.points.flatMap((p) =>
-        Array.from({ length: p.count }, () => ({ wavelengthNm: p.wavelengthNm, temperatureK: p.temperatureK, fieldT: p.fieldT, lengthM: LENGTH_M, quantity: "rotation" as const })),
+        Array.from({ length: p.count }, () => ({
+          wavelengthNm: p.wavelengthNm,
+          temperatureK: p.temperatureK,
+          fieldT: p.fieldT,
+          lengthM: LENGTH_M,
+          quantity: "rotation" as const,
+        })),
       );
       const clean = evaluateModel(params, conditions).value;
       const gauss = seededGaussian(label === "share" ? 4242 : 2024);
       const estimates: number[] = [];
       for (let draw = 0; draw < 200; draw++) {
-        const points: MeasuredPoint[] = conditions.map((c, i) => ({ line: i + 2, ...c, value: clean[i]! + SIGMA_RAD * gauss(), sigma: SIGMA_RAD }));
+        const points: MeasuredPoint[] = conditions.map((c, i) => ({
+          line: i + 2,
+          ...c,
+          value: clean[i]! + SIGMA_RAD * gauss(),
+          sigma: SIGMA_RAD,
+        }));
         const fit = fitMeasurements({ params, free: [{ key: "gyrationPerT" }, { key: "magneticScale" }], points });
         expect(fit.converged).toBe(true);
         if (label === "magneticScale") estimates.push(fit.values.magneticScale!);
-        else estimates.push(evaluateModel(fit.params, [{ wavelengthNm: shareNm, temperatureK: params.temperatureK, fieldT: params.fieldT, lengthM: LENGTH_M, quantity: "rotation" }]).magneticShare[0]!);
+        else
+          estimates.push(
+            evaluateModel(fit.params, [
+              { wavelengthNm: shareNm, temperatureK: params.temperatureK, fieldT: params.fieldT, lengthM: LENGTH_M, quantity: "rotation" },
+            ]).magneticShare[0]!,
+          );
       }
       const ratio = std(estimates) / plan.expectedSigma;
-      ratios.push(`${label} ${ratio.toFixed(3)} (planner σ ${plan.expectedSigma.toPrecision(3)}, scatter ${std(estimates).toPrecision(3)})`);
+      ratios.push(
+        `${label} ${ratio.toFixed(3)} (planner σ ${plan.expectedSigma.toPrecision(3)}, scatter ${std(estimates).toPrecision(3)})`,
+      );
       expect(ratio).toBeGreaterThan(0.85);
       expect(ratio).toBeLessThan(1.15);
     }

@@ -53,7 +53,10 @@ function parts(params: ModelParams, wavelengthsNm: number[]) {
 }
 
 describe("planner: worked example, only the electric part disperses", () => {
-  const p = parts(FLAT_MAGNETIC, LINES.map((l) => l.wavelengthNm));
+  const p = parts(
+    FLAT_MAGNETIC,
+    LINES.map((l) => l.wavelengthNm),
+  );
 
   it("has a flat magnetic part and a dispersing electric part in this model", () => {
     const m = LINES.map((l) => p.get(l.wavelengthNm)!.m);
@@ -75,7 +78,11 @@ describe("planner: worked example, only the electric part disperses", () => {
         }
       }
     expect(widest).toEqual([405, 1550]);
-    for (const criterion of [{ kind: "magneticScale" as const }, { kind: "dOptimal" as const }, { kind: "share" as const, wavelengthNm: 1064 }]) {
+    for (const criterion of [
+      { kind: "magneticScale" as const },
+      { kind: "dOptimal" as const },
+      { kind: "share" as const, wavelengthNm: 1064 },
+    ]) {
       const result = plan({ criterion });
       expect(result.method).toBe("exhaustive");
       const best = result.plans[0]!;
@@ -107,7 +114,7 @@ describe("planner: worked example, only the electric part disperses", () => {
     const a2 = p.get(1550)!.e / k;
     const b1 = p.get(405)!.m;
     const b2 = p.get(1550)!.m;
-    const expected = sigma * Math.sqrt(a1 * a1 + a2 * a2) / Math.abs(a1 * b2 - a2 * b1);
+    const expected = (sigma * Math.sqrt(a1 * a1 + a2 * a2)) / Math.abs(a1 * b2 - a2 * b1);
     expect(Math.abs(result.plans[0]!.expectedSigma - expected) / expected).toBeLessThan(1e-4);
     expect(Math.abs(result.plans[0]!.parameterSigma.magneticScale! - expected) / expected).toBeLessThan(1e-4);
     // The two amplitudes are estimated from the same two points: strongly anticorrelated when the
@@ -117,7 +124,11 @@ describe("planner: worked example, only the electric part disperses", () => {
   });
 
   it("the search's own criterion agrees with the ml-matrix figures of the reported plan", () => {
-    for (const criterion of [{ kind: "magneticScale" as const }, { kind: "dOptimal" as const }, { kind: "share" as const, wavelengthNm: 800 }]) {
+    for (const criterion of [
+      { kind: "magneticScale" as const },
+      { kind: "dOptimal" as const },
+      { kind: "share" as const, wavelengthNm: 800 },
+    ]) {
       const result = plan({ criterion, points: 3 });
       const fast = result.sigmaVsPoints.find((s) => s.points === 3)!.sigma;
       expect(Math.abs(result.plans[0]!.expectedSigma - fast) / fast).toBeLessThan(1e-8);
@@ -144,7 +155,12 @@ describe("planner: temperature and field", () => {
   });
 
   it("one line at many temperatures and fields cannot separate the parts, and says so", () => {
-    const result = plan({ lines: [LINES[2]!], temperatures: { minK: 50, maxK: 300, stepK: 50 }, fields: { minT: 1, maxT: 3, stepT: 1 }, points: 3 });
+    const result = plan({
+      lines: [LINES[2]!],
+      temperatures: { minK: 50, maxK: 300, stepK: 50 },
+      fields: { minT: 1, maxT: 3, stepT: 1 },
+      points: 3,
+    });
     expect(result.plans[0]!.separable).toBe(false);
     expect(result.sigmaVsPoints.every((s) => s.sigma === Infinity)).toBe(true);
     expect(result.notes.join(" ")).toMatch(/Only one wavelength \(632.8 nm\).*Add a second line/);
@@ -193,7 +209,9 @@ describe("planner: impossible requests get specific messages", () => {
     return r.success ? [] : r.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`);
   };
   it("no lines", () => {
-    expect(messages({ lines: [] })).toContain("lines: no lines: add at least one light source (two or more different wavelengths are needed to separate the parts)");
+    expect(messages({ lines: [] })).toContain(
+      "lines: no lines: add at least one light source (two or more different wavelengths are needed to separate the parts)",
+    );
   });
   it("zero points", () => {
     expect(messages({ points: 0 }).join("\n")).toMatch(/^points: zero points: a plan needs at least one point/m);
@@ -208,6 +226,8 @@ describe("planner: impossible requests get specific messages", () => {
     );
   });
   it("a free key that is not a parameter", () => {
-    expect(messages({ freeKeys: ["gyrationPerT", "colour"] }).join("\n")).toMatch(/freeKeys\.1: colour is not a numeric material parameter/);
+    expect(messages({ freeKeys: ["gyrationPerT", "colour"] }).join("\n")).toMatch(
+      /freeKeys\.1: colour is not a numeric material parameter/,
+    );
   });
 });

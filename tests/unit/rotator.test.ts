@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { brillouinDerivative, isolationDb, magnetizationDerivatives, maxAngleErrorRad, rotatorRequestSchema, sizeRotator } from "@/lib/planner/rotator";
+import {
+  brillouinDerivative,
+  isolationDb,
+  magnetizationDerivatives,
+  maxAngleErrorRad,
+  rotatorRequestSchema,
+  sizeRotator,
+} from "@/lib/planner/rotator";
 import { brillouin, staticMagnetization } from "@/lib/physics/magnetization";
 import { computeSpectrum } from "@/lib/physics/spectrum";
 import { TGG, relErr } from "../physics/fixtures";

@@ -14,7 +14,9 @@ describe("object-storage settings", () => {
 
   it("builds the endpoint from the port and lets an explicit endpoint win", () => {
     expect(storageEnvSchema.parse({ GYROLUX_S3_PORT: "9344" }).endpoint).toBe("http://127.0.0.1:9344");
-    expect(storageEnvSchema.parse({ GYROLUX_S3_PORT: "9344", GYROLUX_S3_ENDPOINT: "https://s3.example.test" }).endpoint).toBe("https://s3.example.test");
+    expect(storageEnvSchema.parse({ GYROLUX_S3_PORT: "9344", GYROLUX_S3_ENDPOINT: "https://s3.example.test" }).endpoint).toBe(
+      "https://s3.example.test",
+    );
   });
 
   it("fails loudly on a bad port or bucket name", () => {

@@ -42,7 +42,9 @@ function textClassesInUse(): Map<string, { token: string; alpha: number }> {
   const found = new Map<string, { token: string; alpha: number }>();
   for (const file of [...sourceFiles("app"), ...sourceFiles("components")]) {
     const text = readFileSync(path.join(ROOT, file), "utf8");
-    for (const m of text.matchAll(/\btext-((?:ink|paper|lux|ember)(?:-(?:soft|faint|raised|sunk|dark|light))?|white)(?:\/(\d+))?(?![\w-])/g)) {
+    for (const m of text.matchAll(
+      /\btext-((?:ink|paper|lux|ember)(?:-(?:soft|faint|raised|sunk|dark|light))?|white)(?:\/(\d+))?(?![\w-])/g,
+    )) {
       found.set(m[0], { token: m[1]!, alpha: m[2] ? Number(m[2]) / 100 : 1 });
     }
   }
@@ -82,7 +84,10 @@ describe("theme text contrast (WCAG AA, 4.5:1)", () => {
   it("keeps the plot's axis text and banner readable on the white plot background", () => {
     const axes = readFileSync(path.join(ROOT, "components/plots/axes.tsx"), "utf8");
     const frame = readFileSync(path.join(ROOT, "components/plots/plot-frame.tsx"), "utf8");
-    const colours = [...axes.matchAll(/const (?:INK|SOFT) = "(#[0-9a-f]{6})"/gi), ...frame.matchAll(/<text[^>]*fill="(#[0-9a-f]{6})"/gi)].map((m) => m[1]!);
+    const colours = [
+      ...axes.matchAll(/const (?:INK|SOFT) = "(#[0-9a-f]{6})"/gi),
+      ...frame.matchAll(/<text[^>]*fill="(#[0-9a-f]{6})"/gi),
+    ].map((m) => m[1]!);
     expect(colours.length).toBeGreaterThanOrEqual(3);
     for (const c of colours) expect(contrastRatio(c, "#ffffff"), c).toBeGreaterThanOrEqual(AA_NORMAL_TEXT);
   });

@@ -33,7 +33,10 @@ describe("sign-in slowing", () => {
     expect(signInWaitFor({ rows: rows("attacker", FREE_FAILURES_ANY_ADDRESS + 10), ip: "owner", now })).toBe(0);
   });
   it("slows an address that failed once when the e-mail is under attack from many", () => {
-    const spread = [...rows("a", 1), ...Array.from({ length: FREE_FAILURES_ANY_ADDRESS }, (_, i) => ({ at: new Date(now - i * 10), ip: `x${i}` }))];
+    const spread = [
+      ...rows("a", 1),
+      ...Array.from({ length: FREE_FAILURES_ANY_ADDRESS }, (_, i) => ({ at: new Date(now - i * 10), ip: `x${i}` })),
+    ];
     expect(signInWaitFor({ rows: spread, ip: "a", now })).toBeGreaterThan(0);
   });
 });
@@ -69,7 +72,8 @@ describe("paging cursors", () => {
 
 describe("caught mail", () => {
   it("decodes quoted-printable bodies and encoded subjects (RFC 2045 §6.7, RFC 2047)", () => {
-    const raw = "Subject: =?UTF-8?Q?Einladung_=E2=80=93_=C3=BC?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\nhttp://x/invite/abc=\r\ndef =C3=BC\r\n";
+    const raw =
+      "Subject: =?UTF-8?Q?Einladung_=E2=80=93_=C3=BC?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\nhttp://x/invite/abc=\r\ndef =C3=BC\r\n";
     const parsed = parseMessage(raw);
     expect(parsed.subject).toBe("Einladung – ü");
     expect(parsed.text).toBe("http://x/invite/abcdef ü\n");

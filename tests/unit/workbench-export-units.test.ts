@@ -8,7 +8,18 @@ import { compareValue } from "@/lib/workbench/compare";
 const params = { ...TERBIUM_GARNET_DEFAULTS, fieldT: 1, lengthM: 0.01 };
 const result: SpectrumResult = {
   magnetizationAPerM: 1.2e4,
-  points: [{ wavelengthNm: 1000, thetaRad: -0.4, thetaElectricRad: -0.42, thetaMagneticRad: 0.02, thetaCrossRad: 0, ellipticityRad: 1e-5, magneticShare: 0.045, verdetRadPerTm: -40 }],
+  points: [
+    {
+      wavelengthNm: 1000,
+      thetaRad: -0.4,
+      thetaElectricRad: -0.42,
+      thetaMagneticRad: 0.02,
+      thetaCrossRad: 0,
+      ellipticityRad: 1e-5,
+      magneticShare: 0.045,
+      verdetRadPerTm: -40,
+    },
+  ],
 };
 const meta = { setName: "TGG", setId: null, version: 2, method: "analytic" as const, exportedAt: "2026-01-01T00:00:00.000Z" };
 
@@ -45,7 +56,13 @@ describe("CSV in the plot's chosen units", () => {
 
   it("in Verdet mode adds the parts per tesla and metre (the total is the SI Verdet column)", () => {
     const cols = chosenUnitColumns({ xUnit: "THz", yMode: "verdet" }).map((c) => c.name);
-    expect(cols).toEqual(["frequency_THz", "verdet_electric_rad_per_T_m", "verdet_magnetic_rad_per_T_m", "verdet_cross_rad_per_T_m", "ellipticity_per_B0_L_rad_per_T_m"]);
+    expect(cols).toEqual([
+      "frequency_THz",
+      "verdet_electric_rad_per_T_m",
+      "verdet_magnetic_rad_per_T_m",
+      "verdet_cross_rad_per_T_m",
+      "ellipticity_per_B0_L_rad_per_T_m",
+    ]);
     const t = table(buildSpectrumCsv({ ...meta, display: { xUnit: "THz", yMode: "verdet" } }, params, result));
     // θe / (B0 L) = −0.42 / (1 T × 0.01 m).
     expect(Number(t.rows[0]![t.columns.indexOf("verdet_electric_rad_per_T_m")])).toBeCloseTo(-42, 9);

@@ -7,12 +7,36 @@ const result: SpectrumResult = {
   magnetizationAPerM: 1.2e4,
   maxRelDeviationFromAnalytic: 3.2e-6,
   points: [
-    { wavelengthNm: 632.8, thetaRad: -1.34, thetaElectricRad: -1.39, thetaMagneticRad: 0.045, thetaCrossRad: 1e-10, ellipticityRad: 1e-5, magneticShare: 0.031, verdetRadPerTm: -134 },
-    { wavelengthNm: 1550, thetaRad: 0, thetaElectricRad: 0, thetaMagneticRad: 0, thetaCrossRad: 0, ellipticityRad: 0, magneticShare: null, verdetRadPerTm: null },
+    {
+      wavelengthNm: 632.8,
+      thetaRad: -1.34,
+      thetaElectricRad: -1.39,
+      thetaMagneticRad: 0.045,
+      thetaCrossRad: 1e-10,
+      ellipticityRad: 1e-5,
+      magneticShare: 0.031,
+      verdetRadPerTm: -134,
+    },
+    {
+      wavelengthNm: 1550,
+      thetaRad: 0,
+      thetaElectricRad: 0,
+      thetaMagneticRad: 0,
+      thetaCrossRad: 0,
+      ellipticityRad: 0,
+      magneticShare: null,
+      verdetRadPerTm: null,
+    },
   ],
   warnings: ["passivity fails\nbelow 248 nm"],
 };
-const meta = { setName: "Terbium gallium garnet", setId: "abc", version: 3, method: "llg" as const, exportedAt: "2025-01-01T00:00:00.000Z" };
+const meta = {
+  setName: "Terbium gallium garnet",
+  setId: "abc",
+  version: 3,
+  method: "llg" as const,
+  exportedAt: "2025-01-01T00:00:00.000Z",
+};
 
 describe("CSV export", () => {
   const csv = buildSpectrumCsv(meta, TERBIUM_GARNET_DEFAULTS, result);
@@ -31,7 +55,9 @@ describe("CSV export", () => {
   });
 
   it("has a column row with units, then one row per wavelength", () => {
-    expect(body[0]).toBe("wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m");
+    expect(body[0]).toBe(
+      "wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m",
+    );
     expect(body).toHaveLength(1 + result.points.length);
     expect(body[1]!.split(",")).toHaveLength(CSV_COLUMNS.length);
     expect(body[1]).toBe("632.8,-1.34,-1.39,0.045,1e-10,0.00001,0.031,-134");
@@ -41,7 +67,10 @@ describe("CSV export", () => {
 
   it("names every column with its meaning and unit in the header", () => {
     for (const column of CSV_COLUMNS) {
-      expect(header.some((l) => l.startsWith(`# column ${column}: `) && /\(.*\)/.test(l)), column).toBe(true);
+      expect(
+        header.some((l) => l.startsWith(`# column ${column}: `) && /\(.*\)/.test(l)),
+        column,
+      ).toBe(true);
     }
     expect(header).toContain("# column verdet_rad_per_T_m: Verdet constant θ / (B0 L) (rad/(T·m); empty when B0 = 0)");
     expect(header.some((l) => l.startsWith("# geometry: L = 0.01 m, B0 = 1 T"))).toBe(true);
@@ -50,7 +79,9 @@ describe("CSV export", () => {
   it("labels a non-unit magnetic scale", () => {
     const scaled = buildSpectrumCsv(meta, { ...TERBIUM_GARNET_DEFAULTS, magneticScale: 3 }, result);
     expect(scaled).toContain("# label: magnetic-dipole part × 3.0, not first-principles");
-    expect(scaled).toContain("# column theta_magnetic_rad: magnetic-dipole part θm (rad); magnetic-dipole part × 3.0, not first-principles");
+    expect(scaled).toContain(
+      "# column theta_magnetic_rad: magnetic-dipole part θm (rad); magnetic-dipole part × 3.0, not first-principles",
+    );
     expect(csv).not.toContain("# label:");
     expect(scaled).toContain("# column theta_electric_rad: electric-dipole part θe (rad)\n");
     expect(csv).not.toContain("not first-principles");

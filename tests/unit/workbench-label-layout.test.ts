@@ -3,7 +3,8 @@ import { describe, expect, it } from "vitest";
 import { labelsOverlap, layoutMarkerLabels, type PlacedLabel } from "@/lib/workbench/label-layout";
 
 function anyOverlap(labels: PlacedLabel[]): boolean {
-  for (let i = 0; i < labels.length; i++) for (let j = i + 1; j < labels.length; j++) if (labelsOverlap(labels[i]!, labels[j]!)) return true;
+  for (let i = 0; i < labels.length; i++)
+    for (let j = i + 1; j < labels.length; j++) if (labelsOverlap(labels[i]!, labels[j]!)) return true;
   return false;
 }
 
@@ -11,7 +12,9 @@ describe("marker label layout", () => {
   it("puts the 1030 and 1064 nm labels apart on a 300–3000 nm log axis", () => {
     // The workbench's default axis at desktop and at phone width.
     for (const widthPx of [1000, 300]) {
-      const x = scaleLog().domain([300, 3000]).range([76, 76 + widthPx]);
+      const x = scaleLog()
+        .domain([300, 3000])
+        .range([76, 76 + widthPx]);
       const labels = [632.8, 800, 1030, 1064, 1550].map((nm) => ({ x: x(nm), text: String(nm) }));
       // Without layout 1030 and 1064 collide: 3.3 % of a decade apart is 14 px at 1000 px.
       expect(x(1064) - x(1030)).toBeLessThan(6 * 4);

@@ -180,7 +180,9 @@ describe("progress and caption", () => {
   it("keeps the largest deviation over all rows", () => {
     expect(maxDeviation([1e-6, undefined, 3e-5, 2e-5])).toBe(3e-5);
     expect(maxDeviation([undefined])).toBeUndefined();
-    expect(methodCaption("llg", 32, 3.04e-5)).toBe("Computed with numerical LLG; largest deviation from linear response over all 32 rows: 3.0e-5.");
+    expect(methodCaption("llg", 32, 3.04e-5)).toBe(
+      "Computed with numerical LLG; largest deviation from linear response over all 32 rows: 3.0e-5.",
+    );
     expect(methodCaption("analytic", 32, undefined)).toMatch(/analytic/);
   });
   it("formats the share", () => {
@@ -213,7 +215,16 @@ describe("what a map shows and when it says so in words", () => {
   });
 
   it("reads each quantity from a computed point, and ranges and levels fit the quantity", () => {
-    const p = { wavelengthNm: 632.8, thetaRad: -1.34, thetaElectricRad: -1.385, thetaMagneticRad: 0.045, thetaCrossRad: 0, ellipticityRad: 0, magneticShare: 0.031, verdetRadPerTm: -134 };
+    const p = {
+      wavelengthNm: 632.8,
+      thetaRad: -1.34,
+      thetaElectricRad: -1.385,
+      thetaMagneticRad: 0.045,
+      thetaCrossRad: 0,
+      ellipticityRad: 0,
+      magneticShare: 0.031,
+      verdetRadPerTm: -134,
+    };
     expect(MAP_QUANTITIES.map((q) => quantityOf(p, q))).toEqual([0.031, -1.34, -1.385, 0.045, -134]);
     expect(quantityDomain([0.2, 0.4], "share")).toEqual([0, 1]);
     expect(quantityDomain([-3, null, 2], "theta")).toEqual([-3, 2]);

@@ -65,9 +65,12 @@ describe("marker values from a computed spectrum", () => {
 describe("marker table columns follow the plot's units", () => {
   const g = { fieldT: 2, lengthM: 0.01 };
   const p = point(1064, -0.5);
-  const headers = (x: Parameters<typeof markerColumns>[0], y: Parameters<typeof markerColumns>[1]) => markerColumns(x, y).map((c) => c.header);
+  const headers = (x: Parameters<typeof markerColumns>[0], y: Parameters<typeof markerColumns>[1]) =>
+    markerColumns(x, y).map((c) => c.header);
   const value = (x: Parameters<typeof markerColumns>[0], y: Parameters<typeof markerColumns>[1], id: string) =>
-    markerColumns(x, y).find((c) => c.id === id)!.value(p, g);
+    markerColumns(x, y)
+      .find((c) => c.id === id)!
+      .value(p, g);
 
   it("nm and rad: the SI columns only", () => {
     expect(headers("nm", "rad")).toEqual(["θ (rad)", "θe (rad)", "θm (rad)", "Magnetic share", "V (rad/(T·m))", "L45", "θm / θ"]);

@@ -9,7 +9,12 @@ describe("view-state schema", () => {
     expect(vs.markersNm).toEqual([632.8, 800, 1064, 1550]);
   });
   it("keeps valid fields and replaces only broken ones", () => {
-    const vs = parseViewState({ xUnit: "eV", yMode: "bogus", markersNm: [1550, "x"], range: { fromNm: 500, toNm: 400, points: 10, spacing: "log" } });
+    const vs = parseViewState({
+      xUnit: "eV",
+      yMode: "bogus",
+      markersNm: [1550, "x"],
+      range: { fromNm: 500, toNm: 400, points: 10, spacing: "log" },
+    });
     expect(vs.xUnit).toBe("eV");
     expect(vs.yMode).toBe(DEFAULT_VIEW_STATE.yMode);
     expect(vs.markersNm).toEqual(DEFAULT_VIEW_STATE.markersNm);

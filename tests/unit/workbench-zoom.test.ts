@@ -67,7 +67,14 @@ describe("automatic y range of the visible window", () => {
   });
 
   it("ignores nulls and non-finite values and takes every series", () => {
-    const y = visibleYExtent(xs, [[null, 1, NaN, 3, null, null], [0, 0, 0, 2, 0, 0]], [400, 800])!;
+    const y = visibleYExtent(
+      xs,
+      [
+        [null, 1, NaN, 3, null, null],
+        [0, 0, 0, 2, 0, 0],
+      ],
+      [400, 800],
+    )!;
     expect(y[0]).toBeCloseTo(-0.15, 12);
     expect(y[1]).toBeCloseTo(3.15, 12);
     expect(visibleYExtent(xs, [[null, null, null, null, null, null]], [400, 800])).toBeNull();

@@ -51,12 +51,22 @@ async function main(): Promise<void> {
     const { attempt } = claim;
     const handler = runKindHandler(claim.kind);
     if (!handler) {
-      await endRun(db, { runId, attempt, state: "failed", error: `This worker does not know runs of kind "${claim.kind}"; update the worker.` });
+      await endRun(db, {
+        runId,
+        attempt,
+        state: "failed",
+        error: `This worker does not know runs of kind "${claim.kind}"; update the worker.`,
+      });
       return;
     }
     const parsed = handler.payloadSchema.safeParse(claim.payload);
     if (!parsed.success) {
-      await endRun(db, { runId, attempt, state: "failed", error: `Invalid run: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}` });
+      await endRun(db, {
+        runId,
+        attempt,
+        state: "failed",
+        error: `Invalid run: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`,
+      });
       return;
     }
     const payload = parsed.data;
@@ -123,14 +133,20 @@ async function main(): Promise<void> {
     const computeMs = Date.now() - started;
     const { meta, data } = encodeResult(handler.assemble(payload, outputs));
     const stored = await finishRun(db, { runId, attempt, workerId: settings.workerId, meta: { ...meta, computeMs }, data, computeMs });
-    log(`run ${runId}: ${stored ? "done" : "finished but no longer ours; result not stored"} in ${computeMs} ms (${Math.round(claim.cells / (computeMs / 1000))} cells/s)`);
+    log(
+      `run ${runId}: ${stored ? "done" : "finished but no longer ours; result not stored"} in ${computeMs} ms (${Math.round(claim.cells / (computeMs / 1000))} cells/s)`,
+    );
   };
 
-  await boss.work<{ runId: string }>(RUN_QUEUE, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: settings.pollSeconds }, async ([job]) => {
-    if (!job) return;
-    const runId = job.data?.runId ?? job.id;
-    await compute(runId, job);
-  });
+  await boss.work<{ runId: string }>(
+    RUN_QUEUE,
+    { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: settings.pollSeconds },
+    async ([job]) => {
+      if (!job) return;
+      const runId = job.data?.runId ?? job.id;
+      await compute(runId, job);
+    },
+  );
 
   // A worker that died leaves its run "running" with no progress writes: hand its job back to
   // the queue (pg-boss retries it with backoff) instead of waiting for the job's expiry. Runs whose
@@ -144,13 +160,20 @@ async function main(): Promise<void> {
       const job = await boss.getJobById(RUN_QUEUE, run.id);
       if (!job) continue;
       if (job.state === "failed") {
-        await closeStaleRun(db, { runId: run.id, state: "failed", error: "The job queue gave up on this run: its worker stopped or failed on every attempt." });
+        await closeStaleRun(db, {
+          runId: run.id,
+          state: "failed",
+          error: "The job queue gave up on this run: its worker stopped or failed on every attempt.",
+        });
       } else if (job.state === "cancelled") {
         await closeStaleRun(db, { runId: run.id, state: "cancelled", error: null });
       }
     }
   };
-  const sweepTimer = setInterval(() => void sweep().catch((e: Error) => log(`sweep failed: ${e.message}`)), Math.max(1000, (settings.staleSeconds * 1000) / 4));
+  const sweepTimer = setInterval(
+    () => void sweep().catch((e: Error) => log(`sweep failed: ${e.message}`)),
+    Math.max(1000, (settings.staleSeconds * 1000) / 4),
+  );
 
   log(`serving queue "${RUN_QUEUE}" with ${threads.size} threads (expire ${settings.expireSeconds} s, retries ${settings.retryLimit})`);
   let stopping = false;

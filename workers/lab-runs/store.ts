@@ -45,7 +45,10 @@ export async function markCancelledIfRequested(db: Database, options: { runId: s
  * Writes progress and reads back whether to stop: "cancel" when cancel was asked, "lost" when
  * another attempt owns the run now.
  */
-export async function heartbeat(db: Database, options: { runId: string; attempt: number; progress: number }): Promise<"go" | "cancel" | "lost"> {
+export async function heartbeat(
+  db: Database,
+  options: { runId: string; attempt: number; progress: number },
+): Promise<"go" | "cancel" | "lost"> {
   const rows = await db
     .update(labRuns)
     .set({ progress: options.progress, updatedAt: sql`now()` })
@@ -69,7 +72,14 @@ export async function finishRun(
     if (owned.length === 0) return false;
     await tx
       .insert(labRunResults)
-      .values({ runId: options.runId, workerId: options.workerId, attempt: options.attempt, meta: options.meta, data: options.data, computeMs: options.computeMs })
+      .values({
+        runId: options.runId,
+        workerId: options.workerId,
+        attempt: options.attempt,
+        meta: options.meta,
+        data: options.data,
+        computeMs: options.computeMs,
+      })
       .onConflictDoNothing({ target: labRunResults.runId });
     return true;
   });
@@ -90,10 +100,17 @@ export async function endRun(
  * Running runs whose worker stopped writing progress (it died). The update is the arbiter between
  * workers sweeping at the same time: only the one whose update matched hands the job back.
  */
-export async function releaseSilentRuns(db: Database, options: { silentSeconds: number }): Promise<{ id: string; workerId: string | null }[]> {
+export async function releaseSilentRuns(
+  db: Database,
+  options: { silentSeconds: number },
+): Promise<{ id: string; workerId: string | null }[]> {
   return db
     .update(labRuns)
-    .set({ state: "queued", error: sql`'The worker ' || coalesce(${labRuns.workerId}, '?') || ' stopped answering; the run is queued again.'`, updatedAt: sql`now()` })
+    .set({
+      state: "queued",
+      error: sql`'The worker ' || coalesce(${labRuns.workerId}, '?') || ' stopped answering; the run is queued again.'`,
+      updatedAt: sql`now()`,
+    })
     .where(and(eq(labRuns.state, "running"), lt(labRuns.updatedAt, sql`now() - make_interval(secs => ${options.silentSeconds})`)))
     .returning({ id: labRuns.id, workerId: labRuns.workerId });
 }
@@ -103,11 +120,19 @@ export async function staleRuns(db: Database, options: { olderThanSeconds: numbe
   return db
     .select({ id: labRuns.id, state: labRuns.state })
     .from(labRuns)
-    .where(and(inArray(labRuns.state, ["queued", "running"]), lt(labRuns.updatedAt, sql`now() - make_interval(secs => ${options.olderThanSeconds})`)))
+    .where(
+      and(
+        inArray(labRuns.state, ["queued", "running"]),
+        lt(labRuns.updatedAt, sql`now() - make_interval(secs => ${options.olderThanSeconds})`),
+      ),
+    )
     .limit(100);
 }
 
-export async function closeStaleRun(db: Database, options: { runId: string; state: "failed" | "cancelled"; error: string | null }): Promise<void> {
+export async function closeStaleRun(
+  db: Database,
+  options: { runId: string; state: "failed" | "cancelled"; error: string | null },
+): Promise<void> {
   await db
     .update(labRuns)
     .set({ state: options.state, error: options.error, finishedAt: sql`now()`, updatedAt: sql`now()` })

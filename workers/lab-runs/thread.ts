@@ -23,7 +23,10 @@ parentPort?.on("message", (task: ChunkTask) => {
     if (!handler) throw new Error(`unknown run kind ${task.kind}`);
     if (cached?.runId !== task.runId) cached = { runId: task.runId, payload: handler.payloadSchema.parse(task.payload) };
     const output = handler.compute(cached.payload, task.chunk);
-    const transfer = [...Object.values(output.columns).map((c) => c.buffer as ArrayBuffer), ...(output.flags ? [output.flags.buffer as ArrayBuffer] : [])];
+    const transfer = [
+      ...Object.values(output.columns).map((c) => c.buffer as ArrayBuffer),
+      ...(output.flags ? [output.flags.buffer as ArrayBuffer] : []),
+    ];
     parentPort!.postMessage({ ok: true, output } satisfies ChunkReply, transfer);
   } catch (error) {
     const e = error instanceof Error ? error : new Error(String(error));

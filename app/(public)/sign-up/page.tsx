@@ -16,7 +16,10 @@ export default async function SignUpPage({ searchParams }: { searchParams: Promi
     <section className="rounded-lg border border-ink/10 bg-paper-raised p-6 shadow-sm sm:p-8">
       <h1 className="text-xl font-semibold">Create a Gyrolux account</h1>
       <p className="mt-1 text-sm text-ink-soft">A lab owner invites you to their lab by e-mail; you join when you accept.</p>
-      <SignUpForm redirectTo={redirectTo ? safeRedirectTarget(redirectTo) : undefined} initialEmail={(first(params.email) ?? "").slice(0, 320)} />
+      <SignUpForm
+        redirectTo={redirectTo ? safeRedirectTarget(redirectTo) : undefined}
+        initialEmail={(first(params.email) ?? "").slice(0, 320)}
+      />
       <p className="mt-6 text-sm text-ink-soft">
         Already have an account?{" "}
         <Link href="/sign-in" className="font-medium text-lux-dark underline underline-offset-4">

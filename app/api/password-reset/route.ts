@@ -24,7 +24,9 @@ export const POST = apiRoute(async (request) => {
   if (user) {
     const { secret, secretHash } = generateLinkSecret();
     await createPasswordReset({ userId: user.id, tokenHash: secretHash, ttlMs: RESET_MINUTES * 60 * 1000 });
-    void sendMail({ to: user.email, ...passwordResetMail({ link: appLink(`/reset-password/${secret}`), minutes: RESET_MINUTES }) }).catch(() => undefined);
+    void sendMail({ to: user.email, ...passwordResetMail({ link: appLink(`/reset-password/${secret}`), minutes: RESET_MINUTES }) }).catch(
+      () => undefined,
+    );
   }
   return json({ message: RESET_REQUESTED }, 202);
 });

@@ -28,7 +28,8 @@ export const POST = apiRoute(async (request) => {
   let set: { id: string; name: string; version: number; edited: boolean } | null = null;
   if (input.parameterSetId) {
     const stored = await getParameterSet({ id: input.parameterSetId, labId: access.labId, role: access.role });
-    if (!stored) throw new ApiError("validation", "One field is invalid.", { fields: { parameterSetId: "No such parameter set in this lab." } });
+    if (!stored)
+      throw new ApiError("validation", "One field is invalid.", { fields: { parameterSetId: "No such parameter set in this lab." } });
     set = { id: stored.id, name: stored.name, version: stored.version, edited: !isDeepStrictEqual(stored.params, input.payload.params) };
   }
   const item = await createRun({

@@ -14,7 +14,9 @@ export const POST = apiRoute(async (request) => {
   const input = await readJson(request, signUpSchema);
   const outcome = await signUpNeutrally(input);
   if (outcome === "throttled") {
-    throw new ApiError("rate_limited", "Too many sign-up attempts for this address. Try again in an hour.", { headers: { "Retry-After": "3600" } });
+    throw new ApiError("rate_limited", "Too many sign-up attempts for this address. Try again in an hour.", {
+      headers: { "Retry-After": "3600" },
+    });
   }
   return json({ message: SIGN_UP_RECEIVED }, 202);
 });

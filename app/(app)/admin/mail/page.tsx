@@ -18,7 +18,10 @@ export default async function CaughtMailPage() {
   const { dir, items } = await listCaughtMail({ limit: 100 });
   return (
     <>
-      <PageHeader title="Caught mail" lead={`The newest 100 messages the local mail catcher stored in ${dir}. Nothing here was delivered.`} />
+      <PageHeader
+        title="Caught mail"
+        lead={`The newest 100 messages the local mail catcher stored in ${dir}. Nothing here was delivered.`}
+      />
       {items.length === 0 ? (
         <p className="rounded-lg border border-dashed border-ink/20 px-5 py-6">No mail caught yet.</p>
       ) : (

@@ -56,19 +56,47 @@ export function AuditBrowser() {
   const sets = useParameterSets({ labId: chosen || undefined });
   const members = useLabMembers(chosen || "none");
   const audit = useAudit(chosen, filters);
-  const set = (key: keyof typeof filters) => (event: React.ChangeEvent<HTMLSelectElement | HTMLInputElement>) => setFilters((f) => ({ ...f, [key]: event.target.value }));
+  const set = (key: keyof typeof filters) => (event: React.ChangeEvent<HTMLSelectElement | HTMLInputElement>) =>
+    setFilters((f) => ({ ...f, [key]: event.target.value }));
 
   if (labs.isPending) return <SkeletonRows label="Loading your labs" rows={3} />;
   if (labs.isError) return <ErrorPanel error={labs.error} retry={() => void labs.refetch()} />;
-  if (owned.length === 0) return <p className="rounded-lg border border-dashed border-ink/20 px-5 py-6">You own no lab, so there is no audit trail for you to read.</p>;
+  if (owned.length === 0)
+    return (
+      <p className="rounded-lg border border-dashed border-ink/20 px-5 py-6">You own no lab, so there is no audit trail for you to read.</p>
+    );
 
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end gap-3" role="search" aria-label="Filter the audit trail">
-        <Select id="audit-lab" label="Lab" value={chosen} onChange={(e) => setLabId(e.target.value)} options={owned.map((lab) => ({ value: lab.id, label: lab.name }))} />
-        <Select id="audit-set" label="Parameter set" value={filters.setId} onChange={set("setId")} options={[{ value: "", label: "All sets" }, ...(sets.data ?? []).map((s) => ({ value: s.id, label: s.name }))]} />
-        <Select id="audit-person" label="Person" value={filters.actorId} onChange={set("actorId")} options={[{ value: "", label: "Everyone" }, ...members.items.map((m) => ({ value: m.userId, label: m.name }))]} />
-        <Select id="audit-kind" label="Kind" value={filters.kind} onChange={set("kind")} options={KINDS.map((k) => ({ value: k.value, label: k.label }))} />
+        <Select
+          id="audit-lab"
+          label="Lab"
+          value={chosen}
+          onChange={(e) => setLabId(e.target.value)}
+          options={owned.map((lab) => ({ value: lab.id, label: lab.name }))}
+        />
+        <Select
+          id="audit-set"
+          label="Parameter set"
+          value={filters.setId}
+          onChange={set("setId")}
+          options={[{ value: "", label: "All sets" }, ...(sets.data ?? []).map((s) => ({ value: s.id, label: s.name }))]}
+        />
+        <Select
+          id="audit-person"
+          label="Person"
+          value={filters.actorId}
+          onChange={set("actorId")}
+          options={[{ value: "", label: "Everyone" }, ...members.items.map((m) => ({ value: m.userId, label: m.name }))]}
+        />
+        <Select
+          id="audit-kind"
+          label="Kind"
+          value={filters.kind}
+          onChange={set("kind")}
+          options={KINDS.map((k) => ({ value: k.value, label: k.label }))}
+        />
         <DateInput id="audit-from" label="From (UTC day)" value={filters.from} onChange={set("from")} />
         <DateInput id="audit-to" label="To (UTC day)" value={filters.to} onChange={set("to")} />
       </div>
@@ -84,16 +112,26 @@ export function AuditBrowser() {
             <caption className="sr-only">Audit trail</caption>
             <thead className="border-b border-ink/10 bg-paper-sunk/70">
               <tr>
-                <th scope="col" className="px-3 py-2 text-left font-semibold">When</th>
-                <th scope="col" className="px-3 py-2 text-left font-semibold">Who</th>
-                <th scope="col" className="px-3 py-2 text-left font-semibold">What</th>
-                <th scope="col" className="px-3 py-2 text-left font-semibold">Details</th>
+                <th scope="col" className="px-3 py-2 text-left font-semibold">
+                  When
+                </th>
+                <th scope="col" className="px-3 py-2 text-left font-semibold">
+                  Who
+                </th>
+                <th scope="col" className="px-3 py-2 text-left font-semibold">
+                  What
+                </th>
+                <th scope="col" className="px-3 py-2 text-left font-semibold">
+                  Details
+                </th>
               </tr>
             </thead>
             <tbody className="divide-y divide-ink/10">
               {audit.items.map((entry) => (
                 <tr key={entry.id}>
-                  <td className="px-3 py-2 whitespace-nowrap"><DateTime iso={entry.at} /></td>
+                  <td className="px-3 py-2 whitespace-nowrap">
+                    <DateTime iso={entry.at} />
+                  </td>
                   <td className="px-3 py-2">{entry.actor?.name ?? "Gyrolux"}</td>
                   <td className="px-3 py-2">{ACTION_TEXT[entry.action] ?? entry.action}</td>
                   <td className="px-3 py-2 text-ink-soft">{detailText(entry)}</td>
@@ -102,7 +140,13 @@ export function AuditBrowser() {
             </tbody>
           </table>
           <div className="px-3 pb-3">
-            <LoadMore shown={audit.items.length} hasMore={audit.hasNextPage} loading={audit.isFetchingNextPage} onMore={() => void audit.fetchNextPage()} noun="entries" />
+            <LoadMore
+              shown={audit.items.length}
+              hasMore={audit.hasNextPage}
+              loading={audit.isFetchingNextPage}
+              onMore={() => void audit.fetchNextPage()}
+              noun="entries"
+            />
           </div>
         </div>
       )}
@@ -110,7 +154,13 @@ export function AuditBrowser() {
   );
 }
 
-function Select(props: { id: string; label: string; value: string; onChange: (e: React.ChangeEvent<HTMLSelectElement>) => void; options: { value: string; label: string }[] }) {
+function Select(props: {
+  id: string;
+  label: string;
+  value: string;
+  onChange: (e: React.ChangeEvent<HTMLSelectElement>) => void;
+  options: { value: string; label: string }[];
+}) {
   return (
     <div className="w-full sm:w-52">
       <label htmlFor={props.id} className="block text-sm font-medium">

@@ -62,7 +62,12 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
             <label htmlFor={`invite-role-${labId}`} className="block text-sm font-medium">
               Role
             </label>
-            <select id={`invite-role-${labId}`} value={role} onChange={(event) => setRole(event.target.value as LabRole)} className={`mt-1 ${INPUT_CLASS}`}>
+            <select
+              id={`invite-role-${labId}`}
+              value={role}
+              onChange={(event) => setRole(event.target.value as LabRole)}
+              className={`mt-1 ${INPUT_CLASS}`}
+            >
               {ROLES.map((r) => (
                 <option key={r} value={r}>
                   {ROLE_LABEL[r]} — {ROLE_MEANING[r]}
@@ -103,13 +108,26 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
                   <span>
                     <span className="font-medium">{item.email}</span> as {ROLE_LABEL[item.role]} · expires <DateTime iso={item.expiresAt} />
                   </span>
-                  <Button variant="danger" className="py-1" onClick={() => { revoke.reset(); setRevoking(item); }}>
+                  <Button
+                    variant="danger"
+                    className="py-1"
+                    onClick={() => {
+                      revoke.reset();
+                      setRevoking(item);
+                    }}
+                  >
                     Withdraw<span className="sr-only"> the invitation of {item.email}</span>
                   </Button>
                 </li>
               ))}
             </ul>
-            <LoadMore shown={pending.items.length} hasMore={pending.hasNextPage} loading={pending.isFetchingNextPage} onMore={() => void pending.fetchNextPage()} noun="invitations" />
+            <LoadMore
+              shown={pending.items.length}
+              hasMore={pending.hasNextPage}
+              loading={pending.isFetchingNextPage}
+              onMore={() => void pending.fetchNextPage()}
+              noun="invitations"
+            />
           </>
         )}
       </section>

@@ -49,10 +49,20 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
               <caption className="sr-only">Members of {lab.name}</caption>
               <thead className="border-b border-ink/10 bg-paper-sunk/70">
                 <tr>
-                  <th scope="col" className="px-3 py-2 text-left font-semibold">Name</th>
-                  <th scope="col" className="px-3 py-2 text-left font-semibold">E-mail</th>
-                  <th scope="col" className="px-3 py-2 text-left font-semibold">Role</th>
-                  {isOwner ? <th scope="col" className="px-3 py-2 text-left font-semibold"><span className="sr-only">Actions</span></th> : null}
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">
+                    Name
+                  </th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">
+                    E-mail
+                  </th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">
+                    Role
+                  </th>
+                  {isOwner ? (
+                    <th scope="col" className="px-3 py-2 text-left font-semibold">
+                      <span className="sr-only">Actions</span>
+                    </th>
+                  ) : null}
                 </tr>
               </thead>
               <tbody className="divide-y divide-ink/10">
@@ -70,19 +80,26 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
                             Role of {member.name}
                           </label>
                           <div className="w-32">
-                          <select
-                            id={`role-${lab.id}-${member.userId}`}
-                            value={changeRole.isPending && changeRole.variables.userId === member.userId ? changeRole.variables.role : member.role}
-                            disabled={changeRole.isPending}
-                            onChange={(event) => { changeRole.reset(); setRoleChange({ member, role: event.target.value as LabRole }); }}
-                            className={`${INPUT_CLASS} py-1`}
-                          >
-                            {ROLES.map((role) => (
-                              <option key={role} value={role}>
-                                {ROLE_LABEL[role]}
-                              </option>
-                            ))}
-                          </select>
+                            <select
+                              id={`role-${lab.id}-${member.userId}`}
+                              value={
+                                changeRole.isPending && changeRole.variables.userId === member.userId
+                                  ? changeRole.variables.role
+                                  : member.role
+                              }
+                              disabled={changeRole.isPending}
+                              onChange={(event) => {
+                                changeRole.reset();
+                                setRoleChange({ member, role: event.target.value as LabRole });
+                              }}
+                              className={`${INPUT_CLASS} py-1`}
+                            >
+                              {ROLES.map((role) => (
+                                <option key={role} value={role}>
+                                  {ROLE_LABEL[role]}
+                                </option>
+                              ))}
+                            </select>
                           </div>
                         </>
                       ) : (
@@ -91,7 +108,14 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
                     </td>
                     {isOwner ? (
                       <td className="px-3 py-2 text-right">
-                        <Button variant="danger" className="py-1" onClick={() => { remove.reset(); setRemoving(member); }}>
+                        <Button
+                          variant="danger"
+                          className="py-1"
+                          onClick={() => {
+                            remove.reset();
+                            setRemoving(member);
+                          }}
+                        >
                           Remove<span className="sr-only"> {member.name}</span>
                         </Button>
                       </td>
@@ -104,7 +128,15 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
         )}
       </div>
 
-      {members.isSuccess ? <LoadMore shown={members.data.length} hasMore={members.hasNextPage} loading={members.isFetchingNextPage} onMore={() => void members.fetchNextPage()} noun="members" /> : null}
+      {members.isSuccess ? (
+        <LoadMore
+          shown={members.data.length}
+          hasMore={members.hasNextPage}
+          loading={members.isFetchingNextPage}
+          onMore={() => void members.fetchNextPage()}
+          noun="members"
+        />
+      ) : null}
       {isOwner ? <InvitationsPanel labId={lab.id} labName={lab.name} /> : null}
 
       <ConfirmDialog
@@ -131,7 +163,8 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
         error={changeRole.isError ? describeError(changeRole.error) : null}
         onCancel={() => setRoleChange(null)}
         onConfirm={() => {
-          if (roleChange) changeRole.mutate({ userId: roleChange.member.userId, role: roleChange.role }, { onSuccess: () => setRoleChange(null) });
+          if (roleChange)
+            changeRole.mutate({ userId: roleChange.member.userId, role: roleChange.role }, { onSuccess: () => setRoleChange(null) });
         }}
       >
         {roleChange

@@ -35,7 +35,8 @@ export function MeasurementsBrowser() {
   const remove = useDeleteMeasurementSet();
 
   const sorted = useMemo(() => sortSets(sets.data ?? [], sort.key, sort.dir), [sets.data, sort.key, sort.dir]);
-  const onSort = (key: SortKey) => update({ sort: key, dir: key === sort.key ? (sort.dir === "asc" ? "desc" : "asc") : key === "uploaded" ? "desc" : "asc" });
+  const onSort = (key: SortKey) =>
+    update({ sort: key, dir: key === sort.key ? (sort.dir === "asc" ? "desc" : "asc") : key === "uploaded" ? "desc" : "asc" });
   const filtered = q !== "" || labId !== "";
   const onSearch = useCallback((text: string) => update({ q: text }), [update]);
 
@@ -89,7 +90,12 @@ export function MeasurementsBrowser() {
           <label htmlFor="measurements-lab" className="block text-sm font-medium">
             Lab
           </label>
-          <select id="measurements-lab" value={labId} onChange={(event) => update({ lab: event.target.value })} className={`mt-1 ${INPUT_CLASS}`}>
+          <select
+            id="measurements-lab"
+            value={labId}
+            onChange={(event) => update({ lab: event.target.value })}
+            className={`mt-1 ${INPUT_CLASS}`}
+          >
             <option value="">All my labs</option>
             {labs.data?.map((lab) => (
               <option key={lab.id} value={lab.id}>
@@ -122,13 +128,24 @@ export function MeasurementsBrowser() {
             <>
               <p className="font-medium">No measurement sets yet</p>
               <p className="mt-1 text-sm text-ink-soft">
-                {editorLabs.length > 0 ? "Upload a CSV or TSV file of your measured spectrum." : "An editor of your lab can upload the first one; you will see it here."}
+                {editorLabs.length > 0
+                  ? "Upload a CSV or TSV file of your measured spectrum."
+                  : "An editor of your lab can upload the first one; you will see it here."}
               </p>
             </>
           )}
         </div>
       ) : (
-        <MeasurementsTable items={sorted} sortKey={sort.key} sortDir={sort.dir} onSort={onSort} onDelete={(set) => { remove.reset(); setToDelete(set); }} />
+        <MeasurementsTable
+          items={sorted}
+          sortKey={sort.key}
+          sortDir={sort.dir}
+          onSort={onSort}
+          onDelete={(set) => {
+            remove.reset();
+            setToDelete(set);
+          }}
+        />
       )}
 
       <ConfirmDialog
@@ -143,7 +160,8 @@ export function MeasurementsBrowser() {
       >
         {toDelete ? (
           <p>
-            “{toDelete.name}” ({toDelete.rowCount} rows) and its original file {toDelete.fileName} will be removed for everyone in {toDelete.labName}. The lab’s audit log keeps a record. This cannot be undone: keep a copy of the file if you may need it.
+            “{toDelete.name}” ({toDelete.rowCount} rows) and its original file {toDelete.fileName} will be removed for everyone in{" "}
+            {toDelete.labName}. The lab’s audit log keeps a record. This cannot be undone: keep a copy of the file if you may need it.
           </p>
         ) : null}
       </ConfirmDialog>

@@ -14,7 +14,6 @@ interface TableProps {
   onDelete: (set: MeasurementSetSummary) => void;
 }
 
-
 export function MeasurementsTable({ items, sortKey, sortDir, onSort, onDelete }: TableProps) {
   const headerProps = { sortKey, sortDir, onSort };
   return (
@@ -57,14 +56,22 @@ export function MeasurementsTable({ items, sortKey, sortDir, onSort, onDelete }:
                 <span className="block text-xs text-ink-soft">by {set.uploadedBy.name}</span>
               </td>
               <td className="px-3 py-2.5 whitespace-nowrap">
-                <a href={originalFileUrl(set.id)} download={set.fileName} className="text-sm text-lux-dark underline-offset-4 hover:underline">
+                <a
+                  href={originalFileUrl(set.id)}
+                  download={set.fileName}
+                  className="text-sm text-lux-dark underline-offset-4 hover:underline"
+                >
                   Download original<span className="sr-only">: {set.fileName}</span>
                 </a>
                 <span className="block text-xs text-ink-soft">
                   {set.fileName} · {formatBytes(set.fileBytes)}
                 </span>
                 {hasRole(set.role, "editor") ? (
-                  <button type="button" onClick={() => onDelete(set)} className="mt-1 text-sm text-ember underline-offset-4 hover:underline">
+                  <button
+                    type="button"
+                    onClick={() => onDelete(set)}
+                    className="mt-1 text-sm text-ember underline-offset-4 hover:underline"
+                  >
                     Delete<span className="sr-only"> {set.name}</span>
                   </button>
                 ) : null}

@@ -5,7 +5,16 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { uploadMeasurementMetaSchema } from "@/lib/api/measurement-schemas";
-import { MAX_FILE_BYTES, MAX_ROWS, parseMeasurementTable, proposeMapping, readTable, type ColumnMapping, type FileDefaults, type Table } from "@/lib/measurements/parse";
+import {
+  MAX_FILE_BYTES,
+  MAX_ROWS,
+  parseMeasurementTable,
+  proposeMapping,
+  readTable,
+  type ColumnMapping,
+  type FileDefaults,
+  type Table,
+} from "@/lib/measurements/parse";
 import { unitsOf, VALUE_UNIT_LABEL, WAVELENGTH_UNIT_LABEL, type ValueUnit, type WavelengthUnit } from "@/lib/measurements/units";
 import { X_UNITS } from "@/lib/workbench/units";
 import { describeError } from "@/lib/query/fetcher";
@@ -32,7 +41,10 @@ interface DefaultDrafts {
 const EMPTY_DEFAULTS: DefaultDrafts = { relativeSigmaPercent: "", temperatureK: "", fieldT: "", lengthM: "" };
 
 /** Empty text → not given; anything else must be a number (the parser and the server check ranges). */
-function readDefaults(drafts: DefaultDrafts, mapping: ColumnMapping): { defaults: FileDefaults; errors: Partial<Record<keyof DefaultDrafts, string>> } {
+function readDefaults(
+  drafts: DefaultDrafts,
+  mapping: ColumnMapping,
+): { defaults: FileDefaults; errors: Partial<Record<keyof DefaultDrafts, string>> } {
   const errors: Partial<Record<keyof DefaultDrafts, string>> = {};
   const num = (key: keyof DefaultDrafts, used: boolean): number | undefined => {
     const text = drafts[key].trim();
@@ -51,9 +63,23 @@ function readDefaults(drafts: DefaultDrafts, mapping: ColumnMapping): { defaults
   return { defaults: Object.fromEntries(Object.entries(defaults).filter(([, v]) => v !== undefined)) as FileDefaults, errors };
 }
 
-const baseName = (fileName: string) => fileName.replace(/\.[^.]+$/, "").replace(/[_-]+/g, " ").trim();
+const baseName = (fileName: string) =>
+  fileName
+    .replace(/\.[^.]+$/, "")
+    .replace(/[_-]+/g, " ")
+    .trim();
 
-export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: Lab[]; defaultLabId: string; onDone: (name: string) => void; onCancel: () => void }) {
+export function UploadPanel({
+  labs,
+  defaultLabId,
+  onDone,
+  onCancel,
+}: {
+  labs: Lab[];
+  defaultLabId: string;
+  onDone: (name: string) => void;
+  onCancel: () => void;
+}) {
   const id = useId();
   const problemsRef = useRef<HTMLDivElement>(null);
   const [loaded, setLoaded] = useState<Loaded | null>(null);
@@ -134,7 +160,8 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
         <div>
           <h2 className="text-lg font-semibold">Upload measurements</h2>
           <p className="mt-1 text-sm text-ink-soft">
-            A CSV or TSV file with a header line, at most {formatBytes(MAX_FILE_BYTES)} and {MAX_ROWS.toLocaleString("en")} rows. Lines starting with # are comments. Nothing is stored until every row is valid.
+            A CSV or TSV file with a header line, at most {formatBytes(MAX_FILE_BYTES)} and {MAX_ROWS.toLocaleString("en")} rows. Lines
+            starting with # are comments. Nothing is stored until every row is valid.
           </p>
         </div>
         <Button variant="secondary" onClick={onCancel} disabled={upload.isPending}>
@@ -153,7 +180,11 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
         className={`block cursor-pointer rounded-lg border-2 border-dashed px-4 py-6 text-center text-sm ${dragging ? "border-lux bg-lux-light/50" : "border-ink/25"}`}
       >
         <span className="font-medium">Drop a file here, or choose one</span>
-        <span className="mt-1 block text-ink-soft">{loaded ? `${loaded.file.name} · ${formatBytes(loaded.file.size)} · ${loaded.table.rows.length} data rows` : "CSV (comma or semicolon) or TSV (tab)"}</span>
+        <span className="mt-1 block text-ink-soft">
+          {loaded
+            ? `${loaded.file.name} · ${formatBytes(loaded.file.size)} · ${loaded.table.rows.length} data rows`
+            : "CSV (comma or semicolon) or TSV (tab)"}
+        </span>
         <input
           id={`${id}-file`}
           type="file"
@@ -174,7 +205,8 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
           <div className="overflow-x-auto rounded-md border border-ink/10">
             <table className="w-full text-xs tabular-nums">
               <caption className="px-2 py-1 text-left text-xs text-ink-soft">
-                Preview: the first {Math.min(PREVIEW_ROWS, loaded.table.rows.length)} of {loaded.table.rows.length} data rows (header on line {loaded.table.headerLine})
+                Preview: the first {Math.min(PREVIEW_ROWS, loaded.table.rows.length)} of {loaded.table.rows.length} data rows (header on
+                line {loaded.table.headerLine})
               </caption>
               <thead className="bg-paper-sunk/70">
                 <tr>
@@ -206,7 +238,13 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
           <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
             <legend className="mb-2 text-sm font-semibold">Column mapping (proposed from the header; change what is wrong)</legend>
             <Pair>
-              <Select id={`${id}-wl-col`} label="Wavelength column" value={mapping.wavelengthColumn ?? NONE} onChange={(v) => patch({ wavelengthColumn: v || null })} className={selectClass}>
+              <Select
+                id={`${id}-wl-col`}
+                label="Wavelength column"
+                value={mapping.wavelengthColumn ?? NONE}
+                onChange={(v) => patch({ wavelengthColumn: v || null })}
+                className={selectClass}
+              >
                 <option value={NONE}>— choose —</option>
                 {columnOptions.map((h) => (
                   <option key={h} value={h}>
@@ -214,7 +252,13 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
                   </option>
                 ))}
               </Select>
-              <Select id={`${id}-wl-unit`} label="Wavelength unit" value={mapping.wavelengthUnit} onChange={(v) => patch({ wavelengthUnit: v as WavelengthUnit })} className={selectClass}>
+              <Select
+                id={`${id}-wl-unit`}
+                label="Wavelength unit"
+                value={mapping.wavelengthUnit}
+                onChange={(v) => patch({ wavelengthUnit: v as WavelengthUnit })}
+                className={selectClass}
+              >
                 {X_UNITS.map((u) => (
                   <option key={u} value={u}>
                     {WAVELENGTH_UNIT_LABEL[u]}
@@ -236,7 +280,13 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
                 <option value="verdet">Verdet constant</option>
                 <option value="rotation">Rotation θ</option>
               </Select>
-              <Select id={`${id}-value-unit`} label="Value unit" value={mapping.valueUnit} onChange={(v) => patch({ valueUnit: v as ValueUnit })} className={selectClass}>
+              <Select
+                id={`${id}-value-unit`}
+                label="Value unit"
+                value={mapping.valueUnit}
+                onChange={(v) => patch({ valueUnit: v as ValueUnit })}
+                className={selectClass}
+              >
                 {unitsOf(mapping.quantity).map((u) => (
                   <option key={u} value={u}>
                     {VALUE_UNIT_LABEL[u]}
@@ -244,7 +294,13 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
                 ))}
               </Select>
             </Pair>
-            <Select id={`${id}-value-col`} label="Value column" value={mapping.valueColumn ?? NONE} onChange={(v) => patch({ valueColumn: v || null })} className={selectClass}>
+            <Select
+              id={`${id}-value-col`}
+              label="Value column"
+              value={mapping.valueColumn ?? NONE}
+              onChange={(v) => patch({ valueColumn: v || null })}
+              className={selectClass}
+            >
               <option value={NONE}>— choose —</option>
               {columnOptions.map((h) => (
                 <option key={h} value={h}>
@@ -305,7 +361,13 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
 
           <div className="grid gap-4 sm:grid-cols-3">
             <TextInput id={`${id}-name`} label="Name" value={name} onChange={setName} error={tried ? metaErrors.name : undefined} />
-            <TextInput id={`${id}-sample`} label="Sample" value={sample} onChange={setSample} error={tried ? metaErrors.sample : undefined} />
+            <TextInput
+              id={`${id}-sample`}
+              label="Sample"
+              value={sample}
+              onChange={setSample}
+              error={tried ? metaErrors.sample : undefined}
+            />
             <Select id={`${id}-lab`} label="Lab" value={labId} onChange={setLabId} className={selectClass}>
               {labs.map((lab) => (
                 <option key={lab.id} value={lab.id}>
@@ -319,7 +381,9 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
             {problems.length > 0 ? (
               <div role="alert" className="rounded-md border border-ember bg-ember-light px-4 py-3 text-sm" data-testid="upload-problems">
                 <p className="font-semibold">
-                  {serverProblems.length > 0 ? "The server refused the file; nothing was stored." : `${problems.length === 1 ? "One problem" : `${problems.length} problems`} to fix before the upload:`}
+                  {serverProblems.length > 0
+                    ? "The server refused the file; nothing was stored."
+                    : `${problems.length === 1 ? "One problem" : `${problems.length} problems`} to fix before the upload:`}
                 </p>
                 <ul className="mt-1 max-h-60 list-disc overflow-y-auto pl-5">
                   {problems.map((p) => (
@@ -329,8 +393,8 @@ export function UploadPanel({ labs, defaultLabId, onDone, onCancel }: { labs: La
               </div>
             ) : checked ? (
               <Alert tone="success">
-                All {checked.result.points.length} rows are valid ({mapping.quantity === "verdet" ? "Verdet constants" : "rotations"} converted to{" "}
-                {mapping.quantity === "verdet" ? "rad/(T·m)" : "rad"}).
+                All {checked.result.points.length} rows are valid ({mapping.quantity === "verdet" ? "Verdet constants" : "rotations"}{" "}
+                converted to {mapping.quantity === "verdet" ? "rad/(T·m)" : "rad"}).
               </Alert>
             ) : null}
             {upload.isError && serverProblems.length === 0 ? (
@@ -355,7 +419,21 @@ function Pair({ children }: { children: ReactNode }) {
   return <div className="grid grid-cols-[minmax(0,3fr)_minmax(0,2fr)] gap-2">{children}</div>;
 }
 
-function Select({ id, label, value, onChange, className, children }: { id: string; label: string; value: string; onChange: (value: string) => void; className: string; children: ReactNode }) {
+function Select({
+  id,
+  label,
+  value,
+  onChange,
+  className,
+  children,
+}: {
+  id: string;
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+  className: string;
+  children: ReactNode;
+}) {
   return (
     <div>
       <label htmlFor={id} className="block text-sm font-medium">
@@ -368,13 +446,32 @@ function Select({ id, label, value, onChange, className, children }: { id: strin
   );
 }
 
-function TextInput({ id, label, value, onChange, error }: { id: string; label: string; value: string; onChange: (value: string) => void; error?: string }) {
+function TextInput({
+  id,
+  label,
+  value,
+  onChange,
+  error,
+}: {
+  id: string;
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+  error?: string;
+}) {
   return (
     <div>
       <label htmlFor={id} className="block text-sm font-medium">
         {label}
       </label>
-      <input id={id} value={value} onChange={(event) => onChange(event.target.value)} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-error` : undefined} className={`mt-1 ${INPUT_CLASS}`} />
+      <input
+        id={id}
+        value={value}
+        onChange={(event) => onChange(event.target.value)}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className={`mt-1 ${INPUT_CLASS}`}
+      />
       {error ? (
         <p id={`${id}-error`} className="mt-1 text-sm text-ember">
           {error}
@@ -400,7 +497,13 @@ function ColumnOrValue(props: {
 }) {
   return (
     <div className="space-y-2">
-      <Select id={`${props.id}-col`} label={props.columnLabel} value={props.column ?? NONE} onChange={(v) => props.onColumn(v || null)} className={props.selectClass}>
+      <Select
+        id={`${props.id}-col`}
+        label={props.columnLabel}
+        value={props.column ?? NONE}
+        onChange={(v) => props.onColumn(v || null)}
+        className={props.selectClass}
+      >
         <option value={NONE}>{props.noneLabel ?? "— not in the file: enter one value —"}</option>
         {props.columns.map((h) => (
           <option key={h} value={h}>

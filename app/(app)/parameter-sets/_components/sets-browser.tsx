@@ -90,7 +90,13 @@ export function SetsBrowser() {
       ) : (
         <>
           <SetsTable items={sorted} sortKey={sort.key} sortDir={sort.dir} onSort={onSort} activeTag={tag} onTag={onTag} />
-          <LoadMore shown={sorted.length} hasMore={sets.hasNextPage} loading={sets.isFetchingNextPage} onMore={() => void sets.fetchNextPage()} noun="sets" />
+          <LoadMore
+            shown={sorted.length}
+            hasMore={sets.hasNextPage}
+            loading={sets.isFetchingNextPage}
+            onMore={() => void sets.fetchNextPage()}
+            noun="sets"
+          />
         </>
       )}
     </>

@@ -15,7 +15,6 @@ interface SetsTableProps {
   onTag: (tag: string) => void;
 }
 
-
 export function SetsTable({ items, sortKey, sortDir, onSort, activeTag, onTag }: SetsTableProps) {
   const headerProps = { sortKey, sortDir, onSort };
   return (
@@ -69,10 +68,7 @@ export function SetsTable({ items, sortKey, sortDir, onSort, activeTag, onTag }:
                 <span className="block text-xs text-ink-soft">by {set.updatedBy.name}</span>
               </td>
               <td className="px-3 py-2.5 whitespace-nowrap">
-                <Link
-                  href={`/workbench/${set.id}`}
-                  className="text-sm text-lux-dark underline-offset-4 hover:underline"
-                >
+                <Link href={`/workbench/${set.id}`} className="text-sm text-lux-dark underline-offset-4 hover:underline">
                   Open in workbench<span className="sr-only">: {set.name}</span>
                 </Link>
               </td>

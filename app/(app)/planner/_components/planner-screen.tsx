@@ -49,7 +49,9 @@ export function PlannerScreen({ setId }: { setId: string | null }) {
       </label>
       {sets.isPending ? <SkeletonRows rows={2} label="Loading parameter sets…" /> : null}
       {sets.isError ? <ErrorPanel error={sets.error} retry={() => void sets.refetch()} /> : null}
-      {sets.data && sets.data.length === 0 ? <p className="text-sm text-ink-soft">No parameter sets yet: create one first, then plan for it.</p> : null}
+      {sets.data && sets.data.length === 0 ? (
+        <p className="text-sm text-ink-soft">No parameter sets yet: create one first, then plan for it.</p>
+      ) : null}
       {setId ? <PlannerForSet key={setId} setId={setId} /> : null}
     </div>
   );
@@ -111,7 +113,15 @@ const FIELD_LABEL: Record<string, string> = {
 
 const num = (s: string) => parseNumber(s) ?? Number.NaN;
 
-function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string; version: number; labId: string; labName: string }; params: ModelParams; canEdit: boolean }) {
+function PlannerBody({
+  set,
+  params,
+  canEdit,
+}: {
+  set: { id: string; name: string; version: number; labId: string; labName: string };
+  params: ModelParams;
+  canEdit: boolean;
+}) {
   const base = useId();
   const sources = useLightSources(set.labId);
   const plans = usePlans(set.id);
@@ -151,7 +161,13 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
       <span>
         {label} <span className="text-ink-soft">({unit})</span>
       </span>
-      <input id={`${base}-${key}`} inputMode="decimal" className={INPUT_CLASS} value={drafts[key]} onChange={(e) => setDraft(key)(e.target.value)} />
+      <input
+        id={`${base}-${key}`}
+        inputMode="decimal"
+        className={INPUT_CLASS}
+        value={drafts[key]}
+        onChange={(e) => setDraft(key)(e.target.value)}
+      />
     </label>
   );
 
@@ -174,7 +190,11 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
     e.preventDefault();
     const parsed = buildRequest();
     if (!parsed.success) {
-      setIssues(parsed.error.issues.map((i) => `${FIELD_LABEL[String(i.path.filter((p) => typeof p === "string").at(-1))] ?? "Request"}: ${i.message}`));
+      setIssues(
+        parsed.error.issues.map(
+          (i) => `${FIELD_LABEL[String(i.path.filter((p) => typeof p === "string").at(-1))] ?? "Request"}: ${i.message}`,
+        ),
+      );
       return;
     }
     setIssues([]);
@@ -197,13 +217,20 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
   })();
   const bMax = Math.max(Math.abs(num(drafts.bMin)) || 0, Math.abs(num(drafts.bMax)) || 0);
   const cautions = cautionsFor({
-    lines: [...labLines.filter((l) => !unchecked.has(l.id)).map((l) => ({ name: l.name, wavelengthNm: l.wavelengthNm, powerW: l.powerW })), ...typed.map((t) => ({ ...t, powerW: null }))],
+    lines: [
+      ...labLines.filter((l) => !unchecked.has(l.id)).map((l) => ({ name: l.name, wavelengthNm: l.wavelengthNm, powerW: l.powerW })),
+      ...typed.map((t) => ({ ...t, powerW: null })),
+    ],
     minTemperatureK: temps,
     maxFieldT: bMax > 0 ? bMax : null,
   });
   const candidateCount = (() => {
     try {
-      return chosenLines.length * rangeValues(num(drafts.tMin), num(drafts.tMax), num(drafts.tStep)).length * rangeValues(num(drafts.bMin), num(drafts.bMax), num(drafts.bStep)).filter((b) => b !== 0).length;
+      return (
+        chosenLines.length *
+        rangeValues(num(drafts.tMin), num(drafts.tMax), num(drafts.tStep)).length *
+        rangeValues(num(drafts.bMin), num(drafts.bMax), num(drafts.bStep)).filter((b) => b !== 0).length
+      );
     } catch {
       return null;
     }
@@ -223,13 +250,19 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
         </LinkButton>
       </div>
       {sources.isError ? <ErrorPanel error={sources.error} retry={() => void sources.refetch()} /> : null}
-      {sources.data ? <LightSourcesPanel labId={set.labId} labName={set.labName} sources={sources.data} canEdit={canEdit} /> : <SkeletonRows rows={2} label="Loading the lab's lines…" />}
+      {sources.data ? (
+        <LightSourcesPanel labId={set.labId} labName={set.labName} sources={sources.data} canEdit={canEdit} />
+      ) : (
+        <SkeletonRows rows={2} label="Loading the lab's lines…" />
+      )}
 
       <form onSubmit={submit} aria-label="Plan measurements" className="grid gap-4 rounded-lg border border-ink/15 bg-paper-raised p-4">
         <h2 className="text-lg font-semibold">Plan measurements</h2>
         <fieldset className="grid gap-2">
           <legend className="text-sm font-medium">Lines to choose from</legend>
-          {labLines.length === 0 && typed.length === 0 ? <p className="text-sm text-ink-soft">No lines: add the lab&apos;s lasers above, or type a wavelength here.</p> : null}
+          {labLines.length === 0 && typed.length === 0 ? (
+            <p className="text-sm text-ink-soft">No lines: add the lab&apos;s lasers above, or type a wavelength here.</p>
+          ) : null}
           <div className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
             {labLines.map((l) => (
               <label key={l.id} className="flex items-center gap-1.5">
@@ -277,7 +310,11 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
               Add line
             </Button>
           </div>
-          {typedError ? <p role="alert" className="text-sm text-ember">{typedError}</p> : null}
+          {typedError ? (
+            <p role="alert" className="text-sm text-ember">
+              {typedError}
+            </p>
+          ) : null}
         </fieldset>
         <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
           {input("tMin", "Lowest temperature", "K")}
@@ -291,7 +328,12 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
           {input("lengthMm", "Sample length", "mm")}
           <label className="grid gap-1 text-sm" htmlFor={`${base}-noiseKind`}>
             Noise given as
-            <select id={`${base}-noiseKind`} className={INPUT_CLASS} value={drafts.noiseKind} onChange={(e) => setDraft("noiseKind")(e.target.value)}>
+            <select
+              id={`${base}-noiseKind`}
+              className={INPUT_CLASS}
+              value={drafts.noiseKind}
+              onChange={(e) => setDraft("noiseKind")(e.target.value)}
+            >
               <option value="density">noise density and time</option>
               <option value="sigma">σ per point</option>
             </select>
@@ -309,7 +351,12 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
         <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
           <label className="grid gap-1 text-sm" htmlFor={`${base}-criterion`}>
             Quantity to pin down
-            <select id={`${base}-criterion`} className={INPUT_CLASS} value={drafts.criterion} onChange={(e) => setDraft("criterion")(e.target.value)}>
+            <select
+              id={`${base}-criterion`}
+              className={INPUT_CLASS}
+              value={drafts.criterion}
+              onChange={(e) => setDraft("criterion")(e.target.value)}
+            >
               <option value="share">σ of the magnetic share at a wavelength</option>
               <option value="magneticScale">σ of magneticScale</option>
               <option value="dOptimal">D-optimal (all free parameters)</option>
@@ -322,7 +369,11 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
           </p>
         </div>
         {issues.length > 0 ? (
-          <ul role="alert" aria-label="Problems with the request" className="list-disc rounded-md border border-ember bg-ember-light py-2 pr-3 pl-8 text-sm">
+          <ul
+            role="alert"
+            aria-label="Problems with the request"
+            className="list-disc rounded-md border border-ember bg-ember-light py-2 pr-3 pl-8 text-sm"
+          >
             {issues.map((m) => (
               <li key={m}>{m}</li>
             ))}
@@ -341,12 +392,22 @@ function PlannerBody({ set, params, canEdit }: { set: { id: string; name: string
               </Button>
             </>
           ) : null}
-          {state.status === "cancelled" ? <span role="status" className="text-sm text-ink-soft">Cancelled; nothing changed.</span> : null}
-          {state.status === "error" ? <span role="alert" className="text-sm text-ember">{state.message}</span> : null}
+          {state.status === "cancelled" ? (
+            <span role="status" className="text-sm text-ink-soft">
+              Cancelled; nothing changed.
+            </span>
+          ) : null}
+          {state.status === "error" ? (
+            <span role="alert" className="text-sm text-ember">
+              {state.message}
+            </span>
+          ) : null}
         </div>
       </form>
 
-      {state.status === "done" && ranRequest ? <PlanResults result={state.result} request={ranRequest} elapsedMs={state.elapsedMs} set={set} canSave={canEdit} /> : null}
+      {state.status === "done" && ranRequest ? (
+        <PlanResults result={state.result} request={ranRequest} elapsedMs={state.elapsedMs} set={set} canSave={canEdit} />
+      ) : null}
       {state.status === "idle" ? <p className="text-sm text-ink-soft">Run the planner to see ranked plans.</p> : null}
 
       <CautionsPanel cautions={cautions} />

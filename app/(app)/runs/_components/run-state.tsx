@@ -49,7 +49,9 @@ export function RunState({ run }: { run: LabRunSummary }) {
           <span>{eta === null ? "estimating time left…" : `about ${formatEta(eta)} left`}</span>
         </div>
       ) : null}
-      {run.error && run.state !== "done" ? <p className={`max-w-xs text-xs ${run.state === "failed" ? "text-ember" : "text-ink-soft"}`}>{run.error}</p> : null}
+      {run.error && run.state !== "done" ? (
+        <p className={`max-w-xs text-xs ${run.state === "failed" ? "text-ember" : "text-ink-soft"}`}>{run.error}</p>
+      ) : null}
     </div>
   );
 }

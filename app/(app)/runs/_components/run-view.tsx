@@ -38,7 +38,9 @@ export function RunView({ id }: { id: string }) {
   if (run.isPending) return <SkeletonRows rows={6} label="Loading the run…" />;
   if (run.isError) return <ErrorPanel error={run.error} retry={() => void run.refetch()} />;
   const item = run.data;
-  const setLabel = item.parameterSet ? `${item.parameterSet.name} v${item.parameterSet.version}${item.parameterSet.edited ? " with what-if edits" : ""}` : "parameters given with the run";
+  const setLabel = item.parameterSet
+    ? `${item.parameterSet.name} v${item.parameterSet.version}${item.parameterSet.edited ? " with what-if edits" : ""}`
+    : "parameters given with the run";
 
   return (
     <div className="space-y-5">
@@ -65,7 +67,9 @@ export function RunView({ id }: { id: string }) {
           <RunResult run={item} result={result.data} setLabel={setLabel} />
         )
       ) : item.state === "queued" ? (
-        <p className="text-sm text-ink-soft">Waiting for a worker. If nothing happens for long, check that a worker is running (`npm run worker`).</p>
+        <p className="text-sm text-ink-soft">
+          Waiting for a worker. If nothing happens for long, check that a worker is running (`npm run worker`).
+        </p>
       ) : null}
     </div>
   );
@@ -98,8 +102,17 @@ function MapResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRu
   const ys = useMemo(() => (c.rowValue as number[]).map((v) => (field ? Math.abs(v) : v)), [c.rowValue, field]);
   const yName = field ? "|B0|" : "temperature";
   const yUnit = field ? "T" : "K";
-  const describeCell = useCallback((x: number, y: number, v: number | null) => `Wavelength ${fmt(x)} nm, ${yName} ${fmt(y)} ${yUnit}: magnetic share ${formatShare(v)}`, [yName, yUnit]);
-  const figureId = { setName: run.parameterSet?.name ?? "run parameters", version: run.parameterSet?.version ?? null, edited: run.parameterSet?.edited ?? false, temperatureK: payload.params.temperatureK, fieldT: payload.params.fieldT };
+  const describeCell = useCallback(
+    (x: number, y: number, v: number | null) => `Wavelength ${fmt(x)} nm, ${yName} ${fmt(y)} ${yUnit}: magnetic share ${formatShare(v)}`,
+    [yName, yUnit],
+  );
+  const figureId = {
+    setName: run.parameterSet?.name ?? "run parameters",
+    version: run.parameterSet?.version ?? null,
+    edited: run.parameterSet?.edited ?? false,
+    temperatureK: payload.params.temperatureK,
+    fieldT: payload.params.fieldT,
+  };
   const fileBase = `${figureFileBase(figureId)}-run-${run.id.slice(0, 8)}`;
   const deviation = result.meta.maxRelDeviationFromAnalytic as number | null | undefined;
   return (
@@ -122,7 +135,9 @@ function MapResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRu
       />
       <figcaption className="text-xs text-ink-soft">
         {xs.length} × {ys.length} cells.
-        {deviation !== null && deviation !== undefined ? ` Largest deviation of numerical LLG from linear response: ${deviation.toExponential(1)}.` : ""}
+        {deviation !== null && deviation !== undefined
+          ? ` Largest deviation of numerical LLG from linear response: ${deviation.toExponential(1)}.`
+          : ""}
       </figcaption>
       <div className="flex flex-wrap items-center gap-2">
         <PlotExportButtons svgRef={svg} fileBase={fileBase} plotName="map" />
@@ -185,7 +200,13 @@ function SpectrumResultView({ run, result, setLabel }: { run: LabRunDetail; resu
     };
   }, [result, run.id, payload.method, payload.params]);
   const onView = useCallback((patch: Partial<ViewState>) => setView((v) => ({ ...v, ...patch })), []);
-  const figureId = { setName: run.parameterSet?.name ?? "run parameters", version: run.parameterSet?.version ?? null, edited: run.parameterSet?.edited ?? false, temperatureK: payload.params.temperatureK, fieldT: payload.params.fieldT };
+  const figureId = {
+    setName: run.parameterSet?.name ?? "run parameters",
+    version: run.parameterSet?.version ?? null,
+    edited: run.parameterSet?.edited ?? false,
+    temperatureK: payload.params.temperatureK,
+    fieldT: payload.params.fieldT,
+  };
   const fileBase = `${figureFileBase(figureId)}-run-${run.id.slice(0, 8)}`;
   return (
     <div className="space-y-4" data-testid="run-spectrum">
@@ -200,7 +221,14 @@ function SpectrumResultView({ run, result, setLabel }: { run: LabRunDetail; resu
         caption={figureCaption(figureId)}
         methodLabel={payload.method === "llg" ? "numerical LLG" : "analytic"}
       />
-      <ExportBar shown={shown} setName={setLabel} setId={run.parameterSet?.id ?? null} version={run.parameterSet?.version ?? null} fileBase={fileBase} display={view} />
+      <ExportBar
+        shown={shown}
+        setName={setLabel}
+        setId={run.parameterSet?.id ?? null}
+        version={run.parameterSet?.version ?? null}
+        fileBase={fileBase}
+        display={view}
+      />
     </div>
   );
 }

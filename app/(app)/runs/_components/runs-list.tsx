@@ -58,7 +58,9 @@ export function RunsList() {
                 </Link>
                 <p className="text-xs text-ink-soft">
                   {run.labName} · submitted by {run.submittedBy.name} · <DateTime iso={run.createdAt} />
-                  {run.parameterSet ? ` · ${run.parameterSet.name} v${run.parameterSet.version}${run.parameterSet.edited ? " with edits" : ""}` : ""}
+                  {run.parameterSet
+                    ? ` · ${run.parameterSet.name} v${run.parameterSet.version}${run.parameterSet.edited ? " with edits" : ""}`
+                    : ""}
                   {run.workerId ? ` · worker ${run.workerId}` : ""}
                   {run.attempt > 1 ? ` · attempt ${run.attempt}` : ""}
                 </p>

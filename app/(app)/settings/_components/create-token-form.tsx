@@ -90,7 +90,11 @@ function NewTokenNotice({ created, onDone }: { created: CreatedToken; onDone: ()
         </Button>
       </div>
       <p aria-live="polite" className="mt-2 text-xs">
-        {copied === "yes" ? "Copied to the clipboard." : copied === "failed" ? "The browser refused the clipboard; select the text and copy it by hand." : ""}
+        {copied === "yes"
+          ? "Copied to the clipboard."
+          : copied === "failed"
+            ? "The browser refused the clipboard; select the text and copy it by hand."
+            : ""}
       </p>
     </Alert>
   );

@@ -17,7 +17,8 @@ export function PasswordPanel({ userId }: { userId: string }) {
   const [mismatch, setMismatch] = useState(false);
   const [confirmEnd, setConfirmEnd] = useState(false);
   const fields = change.error instanceof ApiError ? change.error.fields : undefined;
-  const set = (key: keyof typeof values) => (event: React.ChangeEvent<HTMLInputElement>) => setValues((v) => ({ ...v, [key]: event.target.value }));
+  const set = (key: keyof typeof values) => (event: React.ChangeEvent<HTMLInputElement>) =>
+    setValues((v) => ({ ...v, [key]: event.target.value }));
 
   return (
     <section aria-labelledby="password-title" className="mb-10 max-w-3xl">
@@ -41,7 +42,17 @@ export function PasswordPanel({ userId }: { userId: string }) {
       >
         {change.isSuccess ? <Alert tone="info">Password changed. Your other browsers and devices are signed out.</Alert> : null}
         {change.isError && !fields ? <Alert tone="warning">{describeError(change.error)}</Alert> : null}
-        <TextField id="current-password" name="currentPassword" type="password" label="Current password" autoComplete="current-password" required value={values.currentPassword} onChange={set("currentPassword")} error={fields?.currentPassword} />
+        <TextField
+          id="current-password"
+          name="currentPassword"
+          type="password"
+          label="Current password"
+          autoComplete="current-password"
+          required
+          value={values.currentPassword}
+          onChange={set("currentPassword")}
+          error={fields?.currentPassword}
+        />
         <TextField
           id="new-password"
           name="newPassword"
@@ -54,7 +65,17 @@ export function PasswordPanel({ userId }: { userId: string }) {
           onChange={set("newPassword")}
           error={fields?.newPassword}
         />
-        <TextField id="confirm-password" name="confirm" type="password" label="Confirm the new password" autoComplete="new-password" required value={values.confirm} onChange={set("confirm")} error={mismatch ? "The two passwords differ." : undefined} />
+        <TextField
+          id="confirm-password"
+          name="confirm"
+          type="password"
+          label="Confirm the new password"
+          autoComplete="new-password"
+          required
+          value={values.confirm}
+          onChange={set("confirm")}
+          error={mismatch ? "The two passwords differ." : undefined}
+        />
         <Button type="submit" disabled={change.isPending || values.currentPassword === "" || values.newPassword === ""}>
           {change.isPending ? "Changing…" : "Change password"}
         </Button>

@@ -42,20 +42,37 @@ export function TokensPanel() {
               <caption className="sr-only">Your API tokens</caption>
               <thead className="border-b border-ink/10 bg-paper-sunk/70">
                 <tr>
-                  <th scope="col" className="px-3 py-2 text-left font-semibold">Name</th>
-                  <th scope="col" className="px-3 py-2 text-left font-semibold">Created</th>
-                  <th scope="col" className="px-3 py-2 text-left font-semibold">Last used</th>
-                  <th scope="col" className="px-3 py-2 text-left font-semibold"><span className="sr-only">Actions</span></th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">
+                    Name
+                  </th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">
+                    Created
+                  </th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">
+                    Last used
+                  </th>
+                  <th scope="col" className="px-3 py-2 text-left font-semibold">
+                    <span className="sr-only">Actions</span>
+                  </th>
                 </tr>
               </thead>
               <tbody className="divide-y divide-ink/10">
                 {tokens.items.map((token) => (
                   <tr key={token.id}>
                     <td className="px-3 py-2 font-medium">{token.name}</td>
-                    <td className="px-3 py-2"><DateTime iso={token.createdAt} /></td>
+                    <td className="px-3 py-2">
+                      <DateTime iso={token.createdAt} />
+                    </td>
                     <td className="px-3 py-2">{token.lastUsedAt ? <DateTime iso={token.lastUsedAt} /> : "Never"}</td>
                     <td className="px-3 py-2 text-right">
-                      <Button variant="danger" className="py-1" onClick={() => { revoke.reset(); setRevoking(token); }}>
+                      <Button
+                        variant="danger"
+                        className="py-1"
+                        onClick={() => {
+                          revoke.reset();
+                          setRevoking(token);
+                        }}
+                      >
                         Revoke<span className="sr-only"> {token.name}</span>
                       </Button>
                     </td>
@@ -64,7 +81,13 @@ export function TokensPanel() {
               </tbody>
             </table>
             <div className="px-3 pb-3">
-              <LoadMore shown={tokens.items.length} hasMore={tokens.hasNextPage} loading={tokens.isFetchingNextPage} onMore={() => void tokens.fetchNextPage()} noun="tokens" />
+              <LoadMore
+                shown={tokens.items.length}
+                hasMore={tokens.hasNextPage}
+                loading={tokens.isFetchingNextPage}
+                onMore={() => void tokens.fetchNextPage()}
+                noun="tokens"
+              />
             </div>
           </div>
         )}

@@ -24,7 +24,17 @@ export function ForgotPasswordForm() {
     >
       {request.isSuccess ? <Alert tone="info">{request.data.message}</Alert> : null}
       {request.isError && !fieldError ? <Alert tone="warning">{describeError(request.error)}</Alert> : null}
-      <TextField id="forgot-email" name="email" type="email" label="E-mail" autoComplete="email" required value={email} onChange={(e) => setEmail(e.target.value)} error={fieldError} />
+      <TextField
+        id="forgot-email"
+        name="email"
+        type="email"
+        label="E-mail"
+        autoComplete="email"
+        required
+        value={email}
+        onChange={(e) => setEmail(e.target.value)}
+        error={fieldError}
+      />
       <Button type="submit" disabled={request.isPending || email.trim() === ""}>
         {request.isPending ? "Sending…" : "Send the reset link"}
       </Button>

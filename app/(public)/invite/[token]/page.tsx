@@ -18,7 +18,10 @@ const STATE_TEXT = {
 
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const [invitation, user] = await Promise.all([isLinkSecret(token) ? findInvitationByToken({ tokenHash: hashToken(token) }) : null, getSessionUser()]);
+  const [invitation, user] = await Promise.all([
+    isLinkSecret(token) ? findInvitationByToken({ tokenHash: hashToken(token) }) : null,
+    getSessionUser(),
+  ]);
   const here = `/invite/${token}`;
 
   return (
@@ -33,15 +36,18 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
       ) : (
         <>
           <p className="mt-4">
-            {invitation.invitedByName ?? "An owner"} invites <strong>{invitation.email}</strong> to join <strong>{invitation.labName}</strong> as{" "}
-            <strong>{invitation.role}</strong>. You join only when you accept.
+            {invitation.invitedByName ?? "An owner"} invites <strong>{invitation.email}</strong> to join{" "}
+            <strong>{invitation.labName}</strong> as <strong>{invitation.role}</strong>. You join only when you accept.
           </p>
           {user ? (
             <AcceptInvitation token={token} labName={invitation.labName} signedInAs={user.email} invitedEmail={invitation.email} />
           ) : (
             <div className="mt-6 flex flex-wrap gap-3">
               <LinkButton href={`/sign-in?redirectTo=${encodeURIComponent(here)}`}>Sign in to accept</LinkButton>
-              <LinkButton variant="secondary" href={`/sign-up?redirectTo=${encodeURIComponent(here)}&email=${encodeURIComponent(invitation.email)}`}>
+              <LinkButton
+                variant="secondary"
+                href={`/sign-up?redirectTo=${encodeURIComponent(here)}&email=${encodeURIComponent(invitation.email)}`}
+              >
                 Create an account
               </LinkButton>
             </div>

@@ -47,7 +47,11 @@ export function SignInForm({ redirectTo, demo }: SignInFormProps) {
         </Button>
       </form>
       {demo ? (
-        <DemoAccounts accounts={demo.accounts} password={demo.password} onPick={(account) => setValues({ email: account.email, password: demo.password })} />
+        <DemoAccounts
+          accounts={demo.accounts}
+          password={demo.password}
+          onPick={(account) => setValues({ email: account.email, password: demo.password })}
+        />
       ) : null}
     </>
   );

@@ -56,7 +56,14 @@ export function SignUpForm({ redirectTo, initialEmail = "" }: { redirectTo?: str
     >
       {state?.error ? <Alert tone="warning">{state.error}</Alert> : null}
       {FIELDS.map((field) => (
-        <TextField key={field.name} {...field} required value={values[field.name]} onChange={set(field.name)} error={fieldError(field.name)} />
+        <TextField
+          key={field.name}
+          {...field}
+          required
+          value={values[field.name]}
+          onChange={set(field.name)}
+          error={fieldError(field.name)}
+        />
       ))}
       {redirectTo ? <input type="hidden" name="redirectTo" value={redirectTo} /> : null}
       <Button type="submit" className="w-full" disabled={pending}>

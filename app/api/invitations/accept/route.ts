@@ -7,7 +7,9 @@ import { safeString } from "@/lib/api/text";
 import { requireSessionCaller } from "@/lib/auth/access";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
 
-const acceptSchema = z.object({ token: safeString({ error: "The invitation link is incomplete." }).max(200, "The invitation link is not valid.") });
+const acceptSchema = z.object({
+  token: safeString({ error: "The invitation link is incomplete." }).max(200, "The invitation link is not valid."),
+});
 
 const REFUSED: Record<string, string> = {
   unknown: "This invitation link is not valid.",
@@ -25,7 +27,10 @@ export const POST = apiRoute(async (request) => {
   if (result.ok) return json({ labId: result.labId, labName: result.labName, role: result.role, alreadyMember: result.alreadyMember });
   if (result.reason === "unknown") throw new ApiError("not_found", REFUSED.unknown!);
   if (result.reason === "other_email") {
-    throw new ApiError("forbidden", `This invitation is for ${result.email}; you are signed in as ${caller.email}. Sign in with the invited address.`);
+    throw new ApiError(
+      "forbidden",
+      `This invitation is for ${result.email}; you are signed in as ${caller.email}. Sign in with the invited address.`,
+    );
   }
   throw new ApiError("conflict", REFUSED[result.reason]!);
 });

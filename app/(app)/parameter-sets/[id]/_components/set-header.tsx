@@ -3,7 +3,11 @@ import { DateTime } from "@/components/ui/date-time";
 import { PageHeader } from "@/components/ui/page-header";
 import type { ParameterSet } from "@/lib/query/types";
 
-const ROLE_TEXT = { owner: "You are an owner of this lab", editor: "You can edit", viewer: "You can view; editing needs the editor role" } as const;
+const ROLE_TEXT = {
+  owner: "You are an owner of this lab",
+  editor: "You can edit",
+  viewer: "You can view; editing needs the editor role",
+} as const;
 
 /** Title, provenance and the links shared by the detail and history pages. */
 export function SetHeader({ item, current }: { item: ParameterSet; current: "detail" | "history" }) {
@@ -34,17 +38,29 @@ export function SetHeader({ item, current }: { item: ParameterSet; current: "det
         actions={
           <>
             {current === "detail" ? (
-              <Link href={`/parameter-sets/${item.id}/history`} className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline">
+              <Link
+                href={`/parameter-sets/${item.id}/history`}
+                className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline"
+              >
                 History
               </Link>
             ) : null}
-            <Link href={`/workbench/${item.id}`} className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline">
+            <Link
+              href={`/workbench/${item.id}`}
+              className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline"
+            >
               Open in workbench
             </Link>
-            <Link href={`/planner?setId=${item.id}`} className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline">
+            <Link
+              href={`/planner?setId=${item.id}`}
+              className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline"
+            >
               Plan measurements
             </Link>
-            <Link href={`/parameter-sets/${item.id}/report`} className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline">
+            <Link
+              href={`/parameter-sets/${item.id}/report`}
+              className="rounded-md px-2 py-1 text-sm font-medium text-lux-dark underline-offset-4 hover:underline"
+            >
               Printable report
             </Link>
           </>

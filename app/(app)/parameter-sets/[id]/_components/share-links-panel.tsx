@@ -23,7 +23,8 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
         Read-only share links
       </h2>
       <p className="mt-1 text-sm text-ink-soft">
-        Anyone with such a link sees this set&apos;s workbench (plots, markers, exports), read-only and without signing in — nothing else of the lab.
+        Anyone with such a link sees this set&apos;s workbench (plots, markers, exports), read-only and without signing in — nothing else of
+        the lab.
       </p>
       <Button className="mt-3" variant="secondary" disabled={create.isPending} onClick={() => create.mutate()}>
         {create.isPending ? "Making a link…" : "Make a share link"}
@@ -40,7 +41,13 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
             <label htmlFor="new-share-link" className="sr-only">
               New share link
             </label>
-            <input id="new-share-link" readOnly value={create.data.url} onFocus={(e) => e.target.select()} className={`mt-2 font-mono text-xs ${INPUT_CLASS}`} />
+            <input
+              id="new-share-link"
+              readOnly
+              value={create.data.url}
+              onFocus={(e) => e.target.select()}
+              className={`mt-2 font-mono text-xs ${INPUT_CLASS}`}
+            />
           </Alert>
         </div>
       ) : null}
@@ -53,13 +60,26 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
                   Made <DateTime iso={link.createdAt} />
                   {link.createdBy ? ` by ${link.createdBy.name}` : ""}
                 </span>
-                <Button variant="danger" className="py-1" onClick={() => { revoke.reset(); setRevoking(link); }}>
+                <Button
+                  variant="danger"
+                  className="py-1"
+                  onClick={() => {
+                    revoke.reset();
+                    setRevoking(link);
+                  }}
+                >
                   Revoke<span className="sr-only"> the link made {link.createdAt}</span>
                 </Button>
               </li>
             ))}
           </ul>
-          <LoadMore shown={links.items.length} hasMore={links.hasNextPage} loading={links.isFetchingNextPage} onMore={() => void links.fetchNextPage()} noun="links" />
+          <LoadMore
+            shown={links.items.length}
+            hasMore={links.hasNextPage}
+            loading={links.isFetchingNextPage}
+            onMore={() => void links.fetchNextPage()}
+            noun="links"
+          />
         </>
       ) : links.isSuccess ? (
         <p className="mt-3 text-sm text-ink-soft">No live share links.</p>

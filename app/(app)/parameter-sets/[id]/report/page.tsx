@@ -25,11 +25,24 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
     if (error instanceof ApiError) notFound();
     throw error;
   }
-  const [set, fit, plans] = await Promise.all([getParameterSet({ id, labId, role }), latestProvenance({ setId: id, labId }), listPlans({ setId: id, labId })]);
+  const [set, fit, plans] = await Promise.all([
+    getParameterSet({ id, labId, role }),
+    latestProvenance({ setId: id, labId }),
+    listPlans({ setId: id, labId }),
+  ]);
   if (!set) notFound();
   return (
     <ReportView
-      set={{ id: set.id, name: set.name, version: set.version, labName: set.labName, description: set.description, updatedAt: set.updatedAt, params: set.params, viewState: set.viewState }}
+      set={{
+        id: set.id,
+        name: set.name,
+        version: set.version,
+        labName: set.labName,
+        description: set.description,
+        updatedAt: set.updatedAt,
+        params: set.params,
+        viewState: set.viewState,
+      }}
       fit={fit}
       plan={plans[0] ?? null}
     />

@@ -20,7 +20,10 @@ export function NewSet({ initialLabId }: { initialLabId?: string }) {
           Parameter sets
         </Link>
       </nav>
-      <PageHeader title="New parameter set" lead="Prefilled with terbium gallium garnet at room temperature, 1 T and 10 mm. Change what differs for your sample." />
+      <PageHeader
+        title="New parameter set"
+        lead="Prefilled with terbium gallium garnet at room temperature, 1 T and 10 mm. Change what differs for your sample."
+      />
       {labs.isPending ? (
         <SkeletonRows label="Loading your labs" rows={6} />
       ) : labs.isError ? (

@@ -14,7 +14,8 @@ export function ResetPasswordForm({ token }: { token: string }) {
   const [confirm, setConfirm] = useState("");
   const [mismatch, setMismatch] = useState(false);
   const reset = useMutation({
-    mutationFn: () => apiFetch<{ email: string }>("/api/password-reset/confirm", { method: "POST", json: { token, newPassword: password } }),
+    mutationFn: () =>
+      apiFetch<{ email: string }>("/api/password-reset/confirm", { method: "POST", json: { token, newPassword: password } }),
   });
   const fields = reset.error instanceof ApiError ? reset.error.fields : undefined;
   if (reset.isSuccess) {

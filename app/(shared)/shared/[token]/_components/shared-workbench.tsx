@@ -9,7 +9,11 @@ import { modelParamsSchema } from "@/lib/physics/schema";
 export function SharedWorkbench({ set }: { set: SharedSet }) {
   const parsed = modelParamsSchema.safeParse(set.params);
   if (!parsed.success) {
-    return <Alert tone="warning" title="This parameter set cannot be opened in the workbench">Its stored parameters are not valid.</Alert>;
+    return (
+      <Alert tone="warning" title="This parameter set cannot be opened in the workbench">
+        Its stored parameters are not valid.
+      </Alert>
+    );
   }
   return (
     <>

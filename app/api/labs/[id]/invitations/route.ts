@@ -29,11 +29,23 @@ export const POST = apiRoute<Params>(async (request, { params }) => {
   const access = await requireLabRole(caller, id, "owner");
   const input = await readJson(request, createInvitationSchema);
   const { secret, secretHash } = generateLinkSecret();
-  const item = await createInvitation({ actorId: caller.id, labId: access.labId, email: input.email, role: input.role, tokenHash: secretHash });
+  const item = await createInvitation({
+    actorId: caller.id,
+    labId: access.labId,
+    email: input.email,
+    role: input.role,
+    tokenHash: secretHash,
+  });
   try {
     await sendMail({
       to: input.email,
-      ...invitationMail({ labName: access.labName, inviterName: caller.name, role: input.role, link: appLink(`/invite/${secret}`), days: INVITATION_DAYS }),
+      ...invitationMail({
+        labName: access.labName,
+        inviterName: caller.name,
+        role: input.role,
+        link: appLink(`/invite/${secret}`),
+        days: INVITATION_DAYS,
+      }),
     });
   } catch (error) {
     if (error instanceof MailUnavailableError) {

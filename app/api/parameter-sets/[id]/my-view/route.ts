@@ -31,4 +31,6 @@ export const PUT = apiRoute<Params>(async (request, { params }) => {
 });
 
 /** DELETE /api/parameter-sets/{id}/my-view (viewer) → { item } with viewState null: back to the lab's shared view. */
-export const DELETE = apiRoute<Params>(async (request, { params }) => json({ item: await deleteMyWorkbenchView(await scope(request, params)) }));
+export const DELETE = apiRoute<Params>(async (request, { params }) =>
+  json({ item: await deleteMyWorkbenchView(await scope(request, params)) }),
+);

@@ -24,6 +24,13 @@ export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
   for (const [name, col] of Object.entries(decodeResult(result.meta, result.data))) {
     columns[name] = Array.from(col, (v) => (Number.isNaN(v) ? null : v));
   }
-  const body: LabRunResultBody = { runId: id, workerId: result.workerId, attempt: result.attempt, computeMs: result.computeMs, meta: result.meta, columns };
+  const body: LabRunResultBody = {
+    runId: id,
+    workerId: result.workerId,
+    attempt: result.attempt,
+    computeMs: result.computeMs,
+    meta: result.meta,
+    columns,
+  };
   return json(body);
 });

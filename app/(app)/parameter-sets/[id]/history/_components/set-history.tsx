@@ -32,14 +32,20 @@ export function SetHistory({ id }: { id: string }) {
       ) : null}
       <div className="grid gap-8 xl:grid-cols-[22rem_1fr]">
         <div>
-        <VersionList
-          setId={id}
-          versions={versions.items}
-          currentVersion={item.version}
-          canRestore={hasRole(item.role, "editor")}
-          onRestored={(from, to) => setRestored({ from, to })}
-        />
-        <LoadMore shown={versions.items.length} hasMore={versions.hasNextPage} loading={versions.isFetchingNextPage} onMore={() => void versions.fetchNextPage()} noun="versions" />
+          <VersionList
+            setId={id}
+            versions={versions.items}
+            currentVersion={item.version}
+            canRestore={hasRole(item.role, "editor")}
+            onRestored={(from, to) => setRestored({ from, to })}
+          />
+          <LoadMore
+            shown={versions.items.length}
+            hasMore={versions.hasNextPage}
+            loading={versions.isFetchingNextPage}
+            onMore={() => void versions.fetchNextPage()}
+            noun="versions"
+          />
         </div>
         <VersionCompare versions={versions.items} />
       </div>

@@ -6,7 +6,19 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { diffSnapshots } from "@/lib/model/diff";
 import type { ParameterSetVersion } from "@/lib/query/types";
 
-function VersionSelect({ id, label, value, versions, onChange }: { id: string; label: string; value: number; versions: ParameterSetVersion[]; onChange: (v: number) => void }) {
+function VersionSelect({
+  id,
+  label,
+  value,
+  versions,
+  onChange,
+}: {
+  id: string;
+  label: string;
+  value: number;
+  versions: ParameterSetVersion[];
+  onChange: (v: number) => void;
+}) {
   return (
     <div className="w-44">
       <label htmlFor={id} className="block text-sm font-medium">
@@ -43,8 +55,20 @@ export function VersionCompare({ versions }: { versions: ParameterSetVersion[] }
       ) : (
         <>
           <div className="mb-4 flex flex-wrap items-end gap-4">
-            <VersionSelect id="compare-from" label="Compare version" value={from} versions={versions} onChange={(v) => setPicked({ from: v, to })} />
-            <VersionSelect id="compare-to" label="with version" value={to} versions={versions} onChange={(v) => setPicked({ from, to: v })} />
+            <VersionSelect
+              id="compare-from"
+              label="Compare version"
+              value={from}
+              versions={versions}
+              onChange={(v) => setPicked({ from: v, to })}
+            />
+            <VersionSelect
+              id="compare-to"
+              label="with version"
+              value={to}
+              versions={versions}
+              onChange={(v) => setPicked({ from, to: v })}
+            />
           </div>
           {before && after ? (
             <DiffTable

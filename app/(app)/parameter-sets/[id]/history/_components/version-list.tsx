@@ -39,7 +39,9 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
             <div className="flex items-baseline justify-between gap-2">
               <h3 className="font-medium tabular-nums">
                 Version {v.version}
-                {v.version === currentVersion ? <span className="ml-2 rounded bg-lux px-1.5 py-0.5 text-xs font-semibold text-white">current</span> : null}
+                {v.version === currentVersion ? (
+                  <span className="ml-2 rounded bg-lux px-1.5 py-0.5 text-xs font-semibold text-white">current</span>
+                ) : null}
               </h3>
             </div>
             <p className="mt-0.5 text-sm text-ink-soft">
@@ -47,7 +49,14 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
             </p>
             <FitProvenanceSummary provenance={v.provenance} />
             {canRestore && v.version !== currentVersion ? (
-              <Button variant="secondary" className="mt-2" onClick={() => { restore.reset(); setPick(v.version); }}>
+              <Button
+                variant="secondary"
+                className="mt-2"
+                onClick={() => {
+                  restore.reset();
+                  setPick(v.version);
+                }}
+              >
                 Restore this version<span className="sr-only"> (version {v.version})</span>
               </Button>
             ) : null}

@@ -61,17 +61,20 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
     if (!params) return null;
     const fieldT = params.fieldT || 1;
     const from = Math.max(300, params.sellmeierB > 0 ? params.sellmeierWavelengthNm * 1.05 : 0);
-    const grid = logSpaced(from, Math.max(from * 1.5, 3000), 240).filter((w) => params.oscillatorDampingRadPerS > 0 || w !== params.oscillatorWavelengthNm);
+    const grid = logSpaced(from, Math.max(from * 1.5, 3000), 240).filter(
+      (w) => params.oscillatorDampingRadPerS > 0 || w !== params.oscillatorWavelengthNm,
+    );
     const spectrum = computeSpectrum({ ...params, fieldT, lengthM: 1, wavelengthsNm: grid, method: "analytic" });
     const usable = markers.filter((m) => !(params.sellmeierB > 0 && m <= params.sellmeierWavelengthNm));
-    const atMarkers = usable.length > 0 ? computeSpectrum({ ...params, fieldT, lengthM: 1, wavelengthsNm: usable, method: "analytic" }).points : [];
+    const atMarkers =
+      usable.length > 0 ? computeSpectrum({ ...params, fieldT, lengthM: 1, wavelengthsNm: usable, method: "analytic" }).points : [];
     return { fieldT, spectrum, atMarkers };
   }, [params, markers]);
 
   const scaleLabel = params ? magneticScaleLabel(params.magneticScale) : null;
   const cautions = cautionsFor({
     lines: (plan?.plan.points ?? []).map((p) => ({ name: p.lineName, wavelengthNm: p.wavelengthNm, powerW: null })),
-    minTemperatureK: plan ? Math.min(...plan.plan.points.map((p) => p.temperatureK)) : params?.temperatureK ?? null,
+    minTemperatureK: plan ? Math.min(...plan.plan.points.map((p) => p.temperatureK)) : (params?.temperatureK ?? null),
     maxFieldT: plan ? Math.max(...plan.plan.points.map((p) => Math.abs(p.fieldT))) : params ? Math.abs(params.fieldT) : null,
   });
 
@@ -81,7 +84,11 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
       <div className="no-print flex flex-wrap items-center gap-3 rounded-md border border-ink/15 bg-paper-raised px-3 py-2 text-sm">
         <label className="flex items-center gap-2">
           Paper
-          <select className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1" value={paper} onChange={(e) => setPaper(e.target.value as Paper)}>
+          <select
+            className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1"
+            value={paper}
+            onChange={(e) => setPaper(e.target.value as Paper)}
+          >
             <option value="A4">A4</option>
             <option value="letter">US Letter</option>
           </select>
@@ -108,10 +115,18 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
         <table className="mt-2 w-full text-sm">
           <thead className="text-left text-ink-soft">
             <tr>
-              <th scope="col" className="py-1 font-medium">Parameter</th>
-              <th scope="col" className="font-medium">Key</th>
-              <th scope="col" className="text-right font-medium">Value</th>
-              <th scope="col" className="pl-2 font-medium">Unit</th>
+              <th scope="col" className="py-1 font-medium">
+                Parameter
+              </th>
+              <th scope="col" className="font-medium">
+                Key
+              </th>
+              <th scope="col" className="text-right font-medium">
+                Value
+              </th>
+              <th scope="col" className="pl-2 font-medium">
+                Unit
+              </th>
             </tr>
           </thead>
           <tbody className="tabular-nums">
@@ -134,7 +149,8 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
         {computed ? (
           <>
             <p className="text-sm text-ink-soft">
-              Analytic model at {set.params.temperatureK} K and {fmt(computed.fieldT, 4)} T{set.params.fieldT === 0 ? " (the set's field is 0 T; 1 T is shown)" : ""}.
+              Analytic model at {set.params.temperatureK} K and {fmt(computed.fieldT, 4)} T
+              {set.params.fieldT === 0 ? " (the set's field is 0 T; 1 T is shown)" : ""}.
             </p>
             <LinePlot
               title={`Verdet constant of ${set.name}`}
@@ -147,9 +163,30 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
               banner={scaleLabel}
               markers={markers.map((m) => ({ x: m, label: `${m} nm` }))}
               series={[
-                { key: "total", label: "total", color: "#1d2433", dash: undefined, width: 2, values: computed.spectrum.points.map((p) => p.thetaRad / computed.fieldT) },
-                { key: "electric", label: "electric-dipole part", color: "#0f6e6e", dash: "6 3", width: 1.6, values: computed.spectrum.points.map((p) => p.thetaElectricRad / computed.fieldT) },
-                { key: "magnetic", label: "magnetic-dipole part", color: "#b4541a", dash: "2 3", width: 1.6, values: computed.spectrum.points.map((p) => p.thetaMagneticRad / computed.fieldT) },
+                {
+                  key: "total",
+                  label: "total",
+                  color: "#1d2433",
+                  dash: undefined,
+                  width: 2,
+                  values: computed.spectrum.points.map((p) => p.thetaRad / computed.fieldT),
+                },
+                {
+                  key: "electric",
+                  label: "electric-dipole part",
+                  color: "#0f6e6e",
+                  dash: "6 3",
+                  width: 1.6,
+                  values: computed.spectrum.points.map((p) => p.thetaElectricRad / computed.fieldT),
+                },
+                {
+                  key: "magnetic",
+                  label: "magnetic-dipole part",
+                  color: "#b4541a",
+                  dash: "2 3",
+                  width: 1.6,
+                  values: computed.spectrum.points.map((p) => p.thetaMagneticRad / computed.fieldT),
+                },
               ]}
             />
           </>
@@ -169,12 +206,24 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-ink-soft">
                 <tr>
-                  <th scope="col" className="py-1 font-medium">λ (nm)</th>
-                  <th scope="col" className="text-right font-medium">V (rad/(T·m))</th>
-                  <th scope="col" className="text-right font-medium">electric</th>
-                  <th scope="col" className="text-right font-medium">magnetic</th>
-                  <th scope="col" className="text-right font-medium">magnetic share</th>
-                  <th scope="col" className="text-right font-medium">L for 45° (mm)</th>
+                  <th scope="col" className="py-1 font-medium">
+                    λ (nm)
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    V (rad/(T·m))
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    electric
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    magnetic
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    magnetic share
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    L for 45° (mm)
+                  </th>
                 </tr>
               </thead>
               <tbody className="tabular-nums">
@@ -220,19 +269,33 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
         {plan ? (
           <>
             <p className="text-sm">
-              “{plan.name}” (for version {plan.setVersion}, by {plan.createdBy.name}, <DateTime iso={plan.createdAt} />): {plan.plan.criterionLabel} {plan.plan.criterionUnit} ={" "}
-              {plan.plan.expectedSigma === null ? "∞" : fmt(plan.plan.expectedSigma, 3)}; {plan.plan.method} search over {plan.plan.candidateCount} candidates; σ per point{" "}
-              {fmt(plan.plan.sigmaPerPointRad * 1e6, 3)} µrad{plan.plan.partsCorrelation !== null ? `; correlation between the parts ${fmt(plan.plan.partsCorrelation, 3)}` : ""}.
+              “{plan.name}” (for version {plan.setVersion}, by {plan.createdBy.name}, <DateTime iso={plan.createdAt} />
+              ): {plan.plan.criterionLabel} {plan.plan.criterionUnit} ={" "}
+              {plan.plan.expectedSigma === null ? "∞" : fmt(plan.plan.expectedSigma, 3)}; {plan.plan.method} search over{" "}
+              {plan.plan.candidateCount} candidates; σ per point {fmt(plan.plan.sigmaPerPointRad * 1e6, 3)} µrad
+              {plan.plan.partsCorrelation !== null ? `; correlation between the parts ${fmt(plan.plan.partsCorrelation, 3)}` : ""}.
             </p>
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-ink-soft">
                 <tr>
-                  <th scope="col" className="py-1 font-medium">Line</th>
-                  <th scope="col" className="text-right font-medium">λ (nm)</th>
-                  <th scope="col" className="text-right font-medium">T (K)</th>
-                  <th scope="col" className="text-right font-medium">B (T)</th>
-                  <th scope="col" className="text-right font-medium">×</th>
-                  <th scope="col" className="text-right font-medium">predicted θ (mrad)</th>
+                  <th scope="col" className="py-1 font-medium">
+                    Line
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    λ (nm)
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    T (K)
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    B (T)
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    ×
+                  </th>
+                  <th scope="col" className="text-right font-medium">
+                    predicted θ (mrad)
+                  </th>
                 </tr>
               </thead>
               <tbody className="tabular-nums">
@@ -277,7 +340,8 @@ function ProvenanceTable({ value }: { value: Record<string, unknown> }) {
     if (typeof v === "number") rows.push([prefix, fmt(v, 5)]);
     else if (typeof v === "string" || typeof v === "boolean") rows.push([prefix, String(v)]);
     else if (Array.isArray(v)) {
-      if (v.every((x) => typeof x === "string" || typeof x === "number")) rows.push([prefix, v.map((x) => (typeof x === "number" ? fmt(x, 5) : x)).join(", ")]);
+      if (v.every((x) => typeof x === "string" || typeof x === "number"))
+        rows.push([prefix, v.map((x) => (typeof x === "number" ? fmt(x, 5) : x)).join(", ")]);
       else if (depth < 3) v.slice(0, 20).forEach((x, i) => walk(`${prefix}[${i}]`, x, depth + 1));
     } else if (typeof v === "object") {
       const o = v as Record<string, unknown>;

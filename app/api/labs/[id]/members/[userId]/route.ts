@@ -19,7 +19,8 @@ async function change(options: { caller: Caller; labId: string; userId: string; 
     role: options.role,
   });
   if (!result.ok && result.reason === "not_member") throw notFound("No such member.");
-  if (!result.ok && result.reason === "not_owner") throw forbidden("Only an owner of this lab can change members; your role changed meanwhile.");
+  if (!result.ok && result.reason === "not_owner")
+    throw forbidden("Only an owner of this lab can change members; your role changed meanwhile.");
   if (!result.ok) throw new ApiError("conflict", "A lab needs at least one owner: make someone else owner first.");
   return result.member;
 }
