@@ -1,4 +1,4 @@
-import type { LabRole } from "./schema";
+import type { LabRole } from "@/lib/contracts/roles";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import type { ModelParams } from "@/lib/physics/schema";
 

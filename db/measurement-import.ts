@@ -1,7 +1,7 @@
 import { randomUUID, createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { uniqueViolation } from "@/lib/api/db-errors";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 import type { ColumnMapping, FileDefaults } from "@/lib/measurements/parse";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
@@ -42,8 +42,8 @@ export function objectKeyFor(options: { labId: string; setId: string; fileName: 
   return `labs/${options.labId}/measurement-sets/${options.setId}/${safe}`;
 }
 
-export function duplicateMeasurementName(name: string): ApiError {
-  return new ApiError("conflict", `A measurement set named “${name}” already exists in this lab.`, {
+export function duplicateMeasurementName(name: string): DomainError {
+  return new DomainError("conflict", `A measurement set named “${name}” already exists in this lab.`, {
     fields: { name: "This lab already has a measurement set with this name." },
   });
 }
@@ -57,10 +57,10 @@ export async function importMeasurementSet(options: {
   id?: string;
 }): Promise<string> {
   const { db, store, input } = options;
-  if (input.points.length === 0) throw new ApiError("validation", "The file has no data rows.");
+  if (input.points.length === 0) throw new DomainError("validation", "The file has no data rows.");
   const quantity = input.points[0]!.quantity;
   if (input.points.some((p) => p.quantity !== quantity))
-    throw new ApiError("validation", "All points of a set must measure the same quantity.");
+    throw new DomainError("validation", "All points of a set must measure the same quantity.");
 
   // Checked before storing anything, so the common mistake costs no upload; the unique constraint
   // below still decides when two uploads race.

@@ -15,6 +15,8 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import { LAB_RUN_STATES } from "@/lib/contracts/lab-runs";
+import { LAB_ROLES, SITE_ROLES } from "@/lib/contracts/roles";
 import type { ModelParams } from "@/lib/physics/schema";
 
 /*
@@ -22,11 +24,8 @@ import type { ModelParams } from "@/lib/physics/schema";
  * API's ISO strings are unambiguous. Types sit beside each table.
  */
 
-export const siteRoleEnum = pgEnum("site_role", ["admin", "member"]);
-export const labRoleEnum = pgEnum("lab_role", ["owner", "editor", "viewer"]);
-
-export type SiteRole = (typeof siteRoleEnum.enumValues)[number];
-export type LabRole = (typeof labRoleEnum.enumValues)[number];
+export const siteRoleEnum = pgEnum("site_role", SITE_ROLES);
+export const labRoleEnum = pgEnum("lab_role", LAB_ROLES);
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
 const updatedAt = () => timestamp("updated_at", { withTimezone: true }).notNull().defaultNow();
@@ -436,8 +435,7 @@ export const requestThrottle = pgTable(
 
 /* ---------- Lab runs: long computations on the job queue (workers/lab-runs) ---------- */
 
-export const labRunStateEnum = pgEnum("lab_run_state", ["queued", "running", "done", "failed", "cancelled"]);
-export type LabRunState = (typeof labRunStateEnum.enumValues)[number];
+export const labRunStateEnum = pgEnum("lab_run_state", LAB_RUN_STATES);
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 

@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { DateTime } from "@/components/ui/date-time";
 import { diffSnapshots, type DiffFieldKey, type SetSnapshot } from "@/lib/model/diff";
 import { PARAM_META } from "@/lib/model/param-meta";
-import type { ParameterSet } from "@/lib/query/types";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 import { DiffTable } from "./diff-table";
 import { formSnapshot, type SetFormInput } from "./form-schema";
 

@@ -3,9 +3,9 @@ import type { FieldErrors, Resolver, UseFormReturn } from "react-hook-form";
 import { z } from "zod";
 import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 import { modelParamsSchema, type ModelParamKey } from "@/lib/physics/schema";
-import { descriptionSchema, setNameSchema, tagsSchema } from "@/lib/api/schemas";
-import type { ParameterSet } from "@/lib/query/types";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { descriptionSchema, setNameSchema, tagsSchema } from "@/lib/contracts/parameter-sets";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import type { SetSnapshot } from "@/lib/model/diff";
 
 /** "a, b ,, a" → ["a", "b"]: the tag box takes a comma-separated list. */
@@ -131,7 +131,7 @@ export function mapServerFields(fields: Record<string, string>): { field: [FormF
  * the focus); the returned text, for the form's alert, holds the rest.
  */
 export function showServerError(form: UseFormReturn<SetFormInput, unknown, SetFormOutput>, error: unknown): string {
-  if (!(error instanceof ApiError && error.fields)) return describeError(error);
+  if (!(error instanceof RequestError && error.fields)) return describeError(error);
   const { field, other } = mapServerFields(error.fields);
   field.forEach(([path, message], i) => form.setError(path, { type: "server", message }, { shouldFocus: i === 0 }));
   return other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message;

@@ -6,13 +6,13 @@ import { Alert } from "@/components/ui/alert";
 import { Button, LinkButton } from "@/components/ui/button";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import { useCreateParameterSet } from "@/lib/query/parameter-sets";
-import type { Lab } from "@/lib/query/types";
+import type { LabSummary } from "@/lib/contracts/labs";
 import { setFormResolver, showServerError, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { SetFields } from "./set-fields";
 import { useGuardedRouter, useUnsavedGuard } from "./use-unsaved-guard";
 
 /** A new set starts from the terbium-garnet defaults in the first lab the caller can edit. */
-export function NewSetForm({ labs, initialLabId }: { labs: Lab[]; initialLabId?: string }) {
+export function NewSetForm({ labs, initialLabId }: { labs: LabSummary[]; initialLabId?: string }) {
   const router = useGuardedRouter();
   const create = useCreateParameterSet();
   const [generalError, setGeneralError] = useState<string | null>(null);

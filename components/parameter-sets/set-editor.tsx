@@ -6,9 +6,9 @@ import { useForm } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { parameterSetQuery, useDeleteParameterSet, useUpdateParameterSet } from "@/lib/query/parameter-sets";
-import type { ParameterSet } from "@/lib/query/types";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 import { mergeOntoNewer } from "@/lib/model/merge";
 import { formatIssues, modelParamsSchema } from "@/lib/physics/schema";
 import { ConflictBanner, type MergePreview } from "./conflict-banner";
@@ -16,7 +16,7 @@ import { setFormResolver, showServerError, toFormValues, type SetFormInput, type
 import { SetFields } from "./set-fields";
 import { useGuardedRouter, useUnsavedGuard } from "./use-unsaved-guard";
 
-function currentFromConflict(error: ApiError): ParameterSet | null {
+function currentFromConflict(error: RequestError): ParameterSet | null {
   const body = error.body as { error?: { current?: ParameterSet }; current?: ParameterSet } | null;
   return body?.error?.current ?? body?.current ?? null;
 }
@@ -62,7 +62,7 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
           setSavedVersion(item.version);
         },
         onError: async (error) => {
-          if (error instanceof ApiError && error.code === "stale_version") {
+          if (error instanceof RequestError && error.code === "stale_version") {
             const current =
               currentFromConflict(error) ?? (await queryClient.fetchQuery({ ...parameterSetQuery(initial.id), staleTime: 0 }));
             setConflict(current);

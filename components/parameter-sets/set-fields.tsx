@@ -3,7 +3,7 @@
 import type { UseFormReturn } from "react-hook-form";
 import { FLAG_META, PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
 import { Field } from "@/components/ui/text-field";
-import type { Lab } from "@/lib/query/types";
+import type { LabSummary } from "@/lib/contracts/labs";
 import { parseTags, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { FlagInput } from "./flag-input";
 import { ParamInput } from "./param-input";
@@ -13,7 +13,7 @@ const GROUPS: ParamMeta["group"][] = ["spins", "optics", "conditions"];
 interface SetFieldsProps {
   form: UseFormReturn<SetFormInput, unknown, SetFormOutput>;
   /** Labs the caller may create in; only when creating (a set never moves between labs). */
-  labs?: Lab[];
+  labs?: LabSummary[];
 }
 
 /** Every editable field of a parameter set: details, then each model parameter by group. */

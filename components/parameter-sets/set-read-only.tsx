@@ -1,6 +1,6 @@
 import { formatFlag, formatValue } from "@/lib/model/diff";
 import { FLAG_META, PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
-import type { ParameterSet } from "@/lib/query/types";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 
 const GROUPS: ParamMeta["group"][] = ["spins", "optics", "conditions"];
 

@@ -4,9 +4,9 @@ import { useId, useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { INPUT_CLASS } from "@/components/ui/text-field";
-import type { LightSource } from "@/lib/planner/records";
+import type { LightSource } from "@/lib/contracts/light-sources";
 import { useCreateLightSource, useDeleteLightSource } from "@/lib/query/planner";
-import { ApiError } from "@/lib/query/fetcher";
+import { RequestError } from "@/lib/query/fetcher";
 import { parseNumber } from "@/lib/workbench/validate";
 
 /** The lab's lines: everyone sees them; editors add and remove (with a confirmation). */
@@ -41,7 +41,7 @@ export function LightSourcesPanel({
       {
         onSuccess: () => setDraft({ name: "", wavelengthNm: "", powerMw: "" }),
         onError: (err) =>
-          setError(err instanceof ApiError ? (Object.values(err.fields ?? {})[0] ?? err.message) : "Could not add the line."),
+          setError(err instanceof RequestError ? (Object.values(err.fields ?? {})[0] ?? err.message) : "Could not add the line."),
       },
     );
   };

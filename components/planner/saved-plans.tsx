@@ -5,7 +5,7 @@ import { Button, LinkButton } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { DateTime } from "@/components/ui/date-time";
 import { markersQueryValue } from "@/lib/planner/markers-query";
-import type { SavedPlan } from "@/lib/planner/records";
+import type { SavedPlan } from "@/lib/contracts/plans";
 import { useDeletePlan } from "@/lib/query/planner";
 import { fmt } from "@/lib/workbench/format";
 

@@ -4,10 +4,10 @@ import Link from "next/link";
 import { memo, useId, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useParameterSet } from "@/lib/query/parameter-sets";
 import { useSubmitRun } from "@/lib/query/runs";
-import { hasRole } from "@/lib/query/types";
+import { roleAtLeast } from "@/lib/contracts/roles";
 import type { ModelParams } from "@/lib/physics/schema";
 import { MAX_MAP_COLUMNS, MAX_MAP_ROWS, MAX_RUN_WAVELENGTHS, runSpecSchema, type RunSpec } from "@/lib/runs/kinds";
 import { parseNumber } from "@/lib/workbench/validate";
@@ -107,9 +107,9 @@ export const LabRunPanel = memo(function LabRunPanel({
     return { spec: null, errors };
   }, [choice, method, params, drafts]);
 
-  const serverFields = submit.error instanceof ApiError ? (submit.error.fields ?? {}) : {};
+  const serverFields = submit.error instanceof RequestError ? (submit.error.fields ?? {}) : {};
   const errorOf = (k: keyof Drafts) => checked.errors[k] ?? Object.entries(serverFields).find(([path]) => FIELD_OF[path] === k)?.[1];
-  const canSubmit = set.data && hasRole(set.data.role, "editor");
+  const canSubmit = set.data && roleAtLeast(set.data.role, "editor");
   const isSpectrum = choice === "spectrum";
 
   const onChoice = (next: Choice) => {

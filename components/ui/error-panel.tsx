@@ -1,7 +1,7 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { Button } from "./button";
 import { NotFoundContent } from "./not-found-content";
 
@@ -22,17 +22,17 @@ async function fetchHealth(): Promise<Health> {
  * alike) is not "something went wrong" and no retry will fix it, so it gets the not-found page.
  */
 export function ErrorPanel({ error, retry }: { error: unknown; retry?: () => void }) {
-  if (error instanceof ApiError && error.status === 404) return <NotFoundContent />;
+  if (error instanceof RequestError && error.status === 404) return <NotFoundContent />;
   return <LoadErrorPanel error={error} retry={retry} />;
 }
 
 function LoadErrorPanel({ error, retry }: { error: unknown; retry?: () => void }) {
   const health = useQuery({ queryKey: ["health"], queryFn: fetchHealth, retry: false, staleTime: 0 });
-  const databaseDown = (error instanceof ApiError && error.code === "db_unavailable") || health.data?.database === "down";
+  const databaseDown = (error instanceof RequestError && error.code === "db_unavailable") || health.data?.database === "down";
 
   const message = databaseDown
     ? "The database is not reachable right now, so nothing can be loaded or saved. Your stored data is not affected; try again in a minute."
-    : error instanceof ApiError
+    : error instanceof RequestError
       ? describeError(error)
       : "This page could not be shown because of an unexpected error.";
 

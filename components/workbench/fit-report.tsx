@@ -13,10 +13,10 @@ import type { FitResult } from "@/lib/fit/fit";
 import { saveFitBody } from "@/lib/fit/provenance";
 import { PARAM_META } from "@/lib/model/param-meta";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useSaveFit } from "@/lib/query/fits";
 import { parameterSetKeys } from "@/lib/query/parameter-sets";
-import type { ParameterSet } from "@/lib/query/types";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
 import { fmt, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
 import { numericalBadgeText } from "./run-status";
@@ -355,7 +355,7 @@ function SaveFit({
       </Alert>
     );
   }
-  const stale = save.error instanceof ApiError && save.error.code === "stale_version";
+  const stale = save.error instanceof RequestError && save.error.code === "stale_version";
   return (
     <div className="space-y-2">
       {whatIfs.length > 0 ? (

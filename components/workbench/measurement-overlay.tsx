@@ -7,7 +7,8 @@ import type { PlotLayer } from "@/components/plots/line-plot";
 import { describeConversion, toPlotUnits, type OverlayPoint } from "@/lib/measurements/overlay";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import { describeError } from "@/lib/query/fetcher";
-import { measurementPointsQuery, useMeasurementSets, type MeasurementSetSummary } from "@/lib/query/measurements";
+import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurements";
+import { type MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { Geometry, XUnit, YMode } from "@/lib/workbench/units";
 

@@ -4,8 +4,8 @@ import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
-import { NAME_MAX, setNameSchema } from "@/lib/api/schemas";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { NAME_MAX, setNameSchema } from "@/lib/contracts/parameter-sets";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useLabs } from "@/lib/query/labs";
 import { useCreateParameterSet } from "@/lib/query/parameter-sets";
 import type { ModelParams } from "@/lib/physics/schema";
@@ -56,7 +56,7 @@ export function SaveAsNew({ params, defaultName }: { params: ModelParams | null;
     );
   }
   // A server message about the name belongs to the name that was sent; typing replaces it.
-  const serverNameError = create.error instanceof ApiError ? create.error.fields?.name : undefined;
+  const serverNameError = create.error instanceof RequestError ? create.error.fields?.name : undefined;
   const nameError = (tried ? clientNameError : undefined) ?? serverNameError;
   const otherError = create.isError && !serverNameError ? describeError(create.error) : null;
   return (

@@ -1,7 +1,8 @@
 import "server-only";
 import { and, desc, eq, gte, like, lt, sql } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
-import type { PageQuery } from "@/lib/api/schemas";
+import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { type Page } from "@/lib/contracts/paging";
+import type { PageQuery } from "@/lib/contracts/paging";
 import { db, type Database } from "../client";
 import { auditLog, users, type NewAuditLogEntry } from "../schema";
 

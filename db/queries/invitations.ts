@@ -1,9 +1,10 @@
 import "server-only";
 import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
-import type { LabRole } from "@/db/schema";
-import type { InvitationSummary } from "@/lib/api/dto";
-import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
-import type { PageQuery } from "@/lib/api/schemas";
+import type { LabRole } from "@/lib/contracts/roles";
+import type { InvitationSummary } from "@/lib/contracts/labs";
+import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { type Page } from "@/lib/contracts/paging";
+import type { PageQuery } from "@/lib/contracts/paging";
 import { db } from "../client";
 import { invitations, labMemberships, labs, users } from "../schema";
 import { recordAudit } from "./audit";

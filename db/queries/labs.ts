@@ -1,10 +1,12 @@
 import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
-import type { LabSummary, MemberSummary } from "@/lib/api/dto";
-import { decodeCursor, offsetCursor, toPage, type Page } from "@/lib/api/paging";
-import type { PageQuery } from "@/lib/api/schemas";
+import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
+import { decodeCursor, offsetCursor, toPage } from "@/lib/api/paging";
+import { type Page } from "@/lib/contracts/paging";
+import type { PageQuery } from "@/lib/contracts/paging";
 import { db } from "../client";
-import { labMemberships, labs, users, type LabRole, type SiteRole } from "../schema";
+import { labMemberships, labs, users } from "../schema";
+import { type LabRole, type SiteRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
 
 /** A lab and the user's own membership role in it (null when not a member); null when no such lab. */

@@ -1,12 +1,17 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { uniqueViolation } from "@/lib/api/db-errors";
-import { ApiError, notFound, validationError } from "@/lib/api/errors";
-import { type CreateLightSourceInput, type LightSource, type UpdateLightSourceInput, lightSourceInputSchema } from "@/lib/planner/records";
+import { DomainError, notFound, validationError } from "@/lib/contracts/errors";
+import {
+  type CreateLightSourceInput,
+  type LightSource,
+  type UpdateLightSourceInput,
+  lightSourceInputSchema,
+} from "@/lib/contracts/light-sources";
 import { db } from "../client";
 import { lightSources, type LightSourceRow } from "../schema";
 import { recordAudit } from "./audit";
-import type { Caller } from "./caller";
+import type { Caller } from "@/lib/contracts/access";
 
 /*
  * A lab's light sources. Callers pass the lab they were authorized for (requireLabRole) and every
@@ -29,9 +34,9 @@ function toDto(row: LightSourceRow): LightSource {
   };
 }
 
-function duplicateName(error: unknown, name: string): ApiError | null {
+function duplicateName(error: unknown, name: string): DomainError | null {
   if (uniqueViolation(error) !== "light_sources_lab_name_unique") return null;
-  return new ApiError("conflict", `This lab already has a light source named “${name}”.`, {
+  return new DomainError("conflict", `This lab already has a light source named “${name}”.`, {
     fields: { name: "This lab already has a light source with this name." },
   });
 }

@@ -1,13 +1,14 @@
 import "server-only";
 import { and, asc, desc, eq, ilike, or, type SQL } from "drizzle-orm";
-import type { MeasurementSetSummary } from "@/lib/api/dto";
+import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import { objectStore } from "@/lib/storage/server";
 import { db } from "../client";
 import { importMeasurementSet, type MeasurementImport } from "../measurement-import";
-import { labMemberships, labs, measurementPoints, measurementSets, users, type LabRole } from "../schema";
+import { labMemberships, labs, measurementPoints, measurementSets, users } from "../schema";
+import { type LabRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
-import type { Caller } from "./caller";
+import type { Caller } from "@/lib/contracts/access";
 
 /*
  * Measurement sets of a lab. Callers pass the lab they were authorized for (requireLabRole) and

@@ -1,19 +1,22 @@
 import "server-only";
 import { and, desc, eq, ilike, lt, or, sql, type SQL } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
-import type { PageQuery } from "@/lib/api/schemas";
+import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { type Page } from "@/lib/contracts/paging";
+import type { PageQuery } from "@/lib/contracts/paging";
 import { z } from "zod";
 import { alias } from "drizzle-orm/pg-core";
 import { uniqueViolation } from "@/lib/api/db-errors";
-import { ApiError, notFound, zodFields } from "@/lib/api/errors";
-import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/api/dto";
-import type { CreateParameterSetInput, UpdateParameterSetInput } from "@/lib/api/schemas";
+import { DomainError, notFound } from "@/lib/contracts/errors";
+import { zodIssueFields } from "@/lib/contracts/validation";
+import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/contracts/parameter-sets";
+import type { CreateParameterSetInput, UpdateParameterSetInput } from "@/lib/contracts/parameter-sets";
 import { type SaveFitInput, fitProvenance } from "@/lib/fit/provenance";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { db, type Database } from "../client";
-import { labMemberships, labs, parameterSets, parameterSetVersions, users, type LabRole } from "../schema";
+import { labMemberships, labs, parameterSets, parameterSetVersions, users } from "../schema";
+import { type LabRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
-import type { Caller } from "./caller";
+import type { Caller } from "@/lib/contracts/access";
 
 /*
  * Parameter sets and their immutable versions. Callers pass the lab they were authorized for
@@ -137,9 +140,9 @@ export async function getParameterSet(options: { id: string; labId: string; role
   return loadItem(db, options);
 }
 
-function duplicateName(error: unknown, name: string): ApiError | null {
+function duplicateName(error: unknown, name: string): DomainError | null {
   if (uniqueViolation(error) !== "parameter_sets_lab_name_unique") return null;
-  return new ApiError("conflict", `A parameter set named “${name}” already exists in this lab.`, {
+  return new DomainError("conflict", `A parameter set named “${name}” already exists in this lab.`, {
     fields: { name: "This lab already has a parameter set with this name." },
   });
 }
@@ -253,7 +256,7 @@ async function saveNewVersion(
   if (!current) throw notFound(NOT_FOUND);
   if (options.expectedVersion !== undefined && options.expectedVersion !== current.version) {
     const latest = await requireItem(tx, options);
-    throw new ApiError(
+    throw new DomainError(
       "stale_version",
       `Someone saved version ${current.version} after the version ${options.expectedVersion} you edited. Reload and apply your changes again.`,
       { extra: { current: latest } },
@@ -375,8 +378,8 @@ export async function saveFitAsVersion(options: {
       content: (current) => {
         const merged = modelParamsSchema.safeParse({ ...current.params, ...input.values });
         if (!merged.success) {
-          const fields = zodFields(merged.error);
-          throw new ApiError(
+          const fields = zodIssueFields(merged.error.issues);
+          throw new DomainError(
             "validation",
             `The fitted values do not make a valid parameter set: ${Object.entries(fields)
               .map(([k, m]) => `${k} ${m}`)

@@ -1,11 +1,11 @@
 import "server-only";
 import { and, desc, eq } from "drizzle-orm";
-import { notFound } from "@/lib/api/errors";
-import type { SavePlanInput, SavedPlan, SavedPlanBody } from "@/lib/planner/records";
+import { notFound } from "@/lib/contracts/errors";
+import type { SavePlanInput, SavedPlan, SavedPlanBody } from "@/lib/contracts/plans";
 import { db } from "../client";
 import { parameterSets, plans, users } from "../schema";
 import { recordAudit } from "./audit";
-import type { Caller } from "./caller";
+import type { Caller } from "@/lib/contracts/access";
 
 /*
  * Measurement plans saved with a parameter set. Callers pass the set's lab they were authorized

@@ -1,9 +1,10 @@
 import "server-only";
 import { and, desc, eq, inArray, sql } from "drizzle-orm";
-import type { LabRole } from "@/lib/api/dto";
-import type { LabRunDetail, LabRunSummary } from "@/lib/runs/dto";
+import type { LabRole } from "@/lib/contracts/roles";
+import type { LabRunDetail, LabRunSummary } from "@/lib/contracts/lab-runs";
 import { db } from "../client";
-import { labMemberships, labRunResults, labRuns, labs, users, type LabRun, type NewLabRun, type SiteRole } from "../schema";
+import { labMemberships, labRunResults, labRuns, labs, users, type LabRun, type NewLabRun } from "../schema";
+import { type SiteRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
 
 /*

@@ -1,8 +1,9 @@
 import "server-only";
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
-import type { SharedSet, ShareLinkSummary } from "@/lib/api/dto";
-import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
-import type { PageQuery } from "@/lib/api/schemas";
+import type { SharedSet, ShareLinkSummary } from "@/lib/contracts/sharing";
+import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { type Page } from "@/lib/contracts/paging";
+import type { PageQuery } from "@/lib/contracts/paging";
 import { db } from "../client";
 import { parameterSets, shareLinks, users } from "../schema";
 import { recordAudit } from "./audit";

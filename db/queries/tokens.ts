@@ -1,8 +1,9 @@
 import "server-only";
 import { and, desc, eq, isNull, lt, or, sql } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage, type Page } from "@/lib/api/paging";
-import type { PageQuery } from "@/lib/api/schemas";
-import type { TokenSummary } from "@/lib/api/dto";
+import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { type Page } from "@/lib/contracts/paging";
+import type { PageQuery } from "@/lib/contracts/paging";
+import type { TokenSummary } from "@/lib/contracts/tokens";
 import { db } from "../client";
 import { apiTokens, users, type User } from "../schema";
 import { recordAudit } from "./audit";

@@ -1,10 +1,10 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
-import { notFound } from "@/lib/api/errors";
-import type { MyWorkbenchView } from "@/lib/api/workbench-views";
+import { notFound } from "@/lib/contracts/errors";
+import type { MyWorkbenchView } from "@/lib/contracts/workbench-views";
 import { db } from "../client";
 import { parameterSets, workbenchViews } from "../schema";
-import type { Caller } from "./caller";
+import type { Caller } from "@/lib/contracts/access";
 
 /*
  * One workbench view per person and set. Callers pass the lab they were authorized for

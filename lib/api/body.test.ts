@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
 import { MAX_BODY_BYTES, readJson } from "./body";
-import { ApiError } from "./errors";
+import { DomainError } from "@/lib/contracts/errors";
+import { errorStatus } from "@/lib/api/errors";
 
 const schema = z.object({ x: z.number().refine(Number.isFinite, "must be finite") });
 
@@ -13,7 +14,7 @@ async function codeOf(promise: Promise<unknown>): Promise<string> {
     await promise;
     return "ok";
   } catch (error) {
-    if (error instanceof ApiError) return `${error.status} ${error.code}`;
+    if (error instanceof DomainError) return `${errorStatus(error)} ${error.code}`;
     throw error;
   }
 }
@@ -34,8 +35,8 @@ describe("readJson", () => {
 
   it("names the invalid field", async () => {
     const error = await readJson(request('{"x": 1e999}'), schema).catch((e: unknown) => e);
-    expect(error).toBeInstanceOf(ApiError);
-    expect((error as ApiError).fields).toEqual({ x: expect.any(String) });
+    expect(error).toBeInstanceOf(DomainError);
+    expect((error as DomainError).fields).toEqual({ x: expect.any(String) });
   });
 
   it("rejects bodies over the limit, also when streamed without a length", async () => {

@@ -1,6 +1,6 @@
 import type { z } from "zod";
-import { ApiError, validationError } from "./errors";
-import { jsonProblem } from "./text";
+import { DomainError, validationError } from "@/lib/contracts/errors";
+import { jsonProblem } from "@/lib/contracts/validation";
 
 /** Largest request body the API accepts (shared contract). */
 export const MAX_BODY_BYTES = 64 * 1024;
@@ -12,7 +12,7 @@ export const MAX_JSON_DEPTH = 32;
  * enforced on the bytes actually read, not only on Content-Length, because chunked requests carry
  * no length. Null when the request has no body.
  */
-export async function readBoundedBytes(request: Request, maxBytes: number, onTooLarge: () => ApiError): Promise<Uint8Array | null> {
+export async function readBoundedBytes(request: Request, maxBytes: number, onTooLarge: () => DomainError): Promise<Uint8Array | null> {
   const declared = request.headers.get("content-length");
   if (declared !== null && Number(declared) > maxBytes) throw onTooLarge();
   if (!request.body) return null;
@@ -45,17 +45,17 @@ export async function readText(request: Request): Promise<string> {
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {
-    throw new ApiError("bad_json", "The request body is not valid UTF-8.");
+    throw new DomainError("bad_json", "The request body is not valid UTF-8.");
   }
 }
 
-const tooLarge = () => new ApiError("payload_too_large", `The request body is larger than ${MAX_BODY_BYTES / 1024} KiB.`);
+const tooLarge = () => new DomainError("payload_too_large", `The request body is larger than ${MAX_BODY_BYTES / 1024} KiB.`);
 
 function requireJsonContentType(request: Request): void {
   const type = request.headers.get("content-type") ?? "";
   const mediaType = type.split(";")[0]?.trim().toLowerCase() ?? "";
   if (mediaType !== "application/json" && !mediaType.endsWith("+json")) {
-    throw new ApiError("unsupported_media_type", "Send the body as JSON (Content-Type: application/json).");
+    throw new DomainError("unsupported_media_type", "Send the body as JSON (Content-Type: application/json).");
   }
 }
 
@@ -65,11 +65,11 @@ function parseJson(text: string): unknown {
     // turn that into a validation error with a field, not a stored Infinity (which would become null).
     const value: unknown = JSON.parse(text);
     const problem = jsonProblem(value, MAX_JSON_DEPTH);
-    if (problem) throw new ApiError("validation", `The request body cannot be stored: ${problem}`, { fields: { body: problem } });
+    if (problem) throw new DomainError("validation", `The request body cannot be stored: ${problem}`, { fields: { body: problem } });
     return value;
   } catch (error) {
-    if (error instanceof ApiError) throw error;
-    throw new ApiError("bad_json", "The request body is not valid JSON.");
+    if (error instanceof DomainError) throw error;
+    throw new DomainError("bad_json", "The request body is not valid JSON.");
   }
 }
 
@@ -77,7 +77,7 @@ function parseJson(text: string): unknown {
 export async function readJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.infer<S>> {
   requireJsonContentType(request);
   const text = await readText(request);
-  if (text.trim() === "") throw new ApiError("bad_json", "The request body is empty; send a JSON object.");
+  if (text.trim() === "") throw new DomainError("bad_json", "The request body is empty; send a JSON object.");
   const result = schema.safeParse(parseJson(text));
   if (!result.success) throw validationError(result.error);
   return result.data;

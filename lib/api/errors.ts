@@ -1,11 +1,12 @@
 import type { z } from "zod";
+import { DomainError, type ErrorCode, validationError } from "@/lib/contracts/errors";
 
 /*
- * The one error model of the REST API (shared contract): every failure is
- * `{ error: { code, message, fields? } }` with the status fixed by the code.
+ * The route layer's half of the error model: the HTTP status of each error code, and the
+ * response built from a DomainError. Nothing below the route layer knows a status code.
  */
 
-export const ERROR_STATUS = {
+export const ERROR_STATUS: Record<ErrorCode, number> = {
   bad_json: 400,
   validation: 400,
   unauthenticated: 401,
@@ -20,62 +21,20 @@ export const ERROR_STATUS = {
   db_unavailable: 503,
   storage_unavailable: 503,
   busy: 503,
-} as const;
+};
 
-export type ErrorCode = keyof typeof ERROR_STATUS;
-
-export interface ApiErrorBody {
-  error: { code: ErrorCode; message: string; fields?: Record<string, string> } & Record<string, unknown>;
+export function errorStatus(error: DomainError): number {
+  return ERROR_STATUS[error.code];
 }
 
-export class ApiError extends Error {
-  readonly code: ErrorCode;
-  readonly fields?: Record<string, string>;
-  /** Extra keys placed beside code/message (e.g. `current` for stale_version). */
-  readonly extra?: Record<string, unknown>;
-  readonly headers?: Record<string, string>;
-
-  constructor(
-    code: ErrorCode,
-    message: string,
-    options: { fields?: Record<string, string>; extra?: Record<string, unknown>; headers?: Record<string, string> } = {},
-  ) {
-    super(message);
-    this.name = "ApiError";
-    this.code = code;
-    this.fields = options.fields;
-    this.extra = options.extra;
-    this.headers = options.headers;
-  }
-
-  get status(): number {
-    return ERROR_STATUS[this.code];
-  }
-
-  toResponse(): Response {
-    const body: ApiErrorBody = {
-      error: { code: this.code, message: this.message, ...(this.fields ? { fields: this.fields } : {}), ...this.extra },
-    };
-    return Response.json(body, { status: this.status, headers: this.headers });
-  }
+export function domainErrorResponse(error: DomainError): Response {
+  const headers = error.retryAfterS !== undefined ? { "Retry-After": String(error.retryAfterS) } : undefined;
+  return Response.json(error.body(), { status: errorStatus(error), headers });
 }
 
-export const notFound = (what = "Not found.") => new ApiError("not_found", what);
-export const forbidden = (message = "Your role in this lab does not allow that.") => new ApiError("forbidden", message);
-export const unauthenticated = () => new ApiError("unauthenticated", "Sign in first (or send a valid API token).");
-
-/** zod issues → `fields` keyed by dotted path ("params.temperatureK"); the first message per field wins. */
-export function zodFields(error: z.ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length > 0 ? issue.path.map(String).join(".") : "body";
-    fields[key] ??= issue.message;
-  }
-  return fields;
+/** A zod failure answered as the contract's 400. */
+export function validationResponse(error: z.ZodError): Response {
+  return domainErrorResponse(validationError(error));
 }
 
-export function validationError(error: z.ZodError): ApiError {
-  const fields = zodFields(error);
-  const count = Object.keys(fields).length;
-  return new ApiError("validation", count === 1 ? "One field is invalid." : `${count} fields are invalid.`, { fields });
-}
+export { DomainError };

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { notFound } from "./errors";
+import { notFound } from "@/lib/contracts/errors";
 
 const uuid = z.uuid();
 

@@ -1,8 +1,9 @@
 import "server-only";
 import { findMeasurementSetLabId } from "@/db/queries/measurement-sets";
-import type { LabRole } from "@/db/schema";
-import { requireLabRole, type Caller, type LabAccess } from "@/lib/auth/access";
-import { ApiError, notFound } from "./errors";
+import type { LabRole } from "@/lib/contracts/roles";
+import { requireLabRole, type LabAccess } from "@/lib/auth/access";
+import { type Caller } from "@/lib/contracts/access";
+import { DomainError, notFound } from "@/lib/contracts/errors";
 import { isUuid } from "./ids";
 import { StorageError } from "@/lib/storage/object-store";
 
@@ -23,8 +24,8 @@ export async function withStorage<T>(what: string, run: () => Promise<T>): Promi
   } catch (error) {
     if (!(error instanceof StorageError)) throw error;
     console.error(`[api] ${what}:`, error.message);
-    throw new ApiError("storage_unavailable", `The file store is unavailable; ${what}. Try again shortly.`, {
-      headers: { "Retry-After": "5" },
+    throw new DomainError("storage_unavailable", `The file store is unavailable; ${what}. Try again shortly.`, {
+      retryAfterS: 5,
     });
   }
 }

@@ -1,5 +1,5 @@
 import { readBoundedBytes } from "./body";
-import { ApiError } from "./errors";
+import { DomainError } from "@/lib/contracts/errors";
 
 /*
  * Reads a multipart/form-data body under a byte limit. The limit is enforced on the bytes read,
@@ -8,13 +8,13 @@ import { ApiError } from "./errors";
 export async function readMultipart(request: Request, maxBytes: number, tooLargeMessage: string): Promise<FormData> {
   const type = request.headers.get("content-type") ?? "";
   if (!type.toLowerCase().startsWith("multipart/form-data")) {
-    throw new ApiError("unsupported_media_type", "Send the upload as multipart/form-data (a file and its fields).");
+    throw new DomainError("unsupported_media_type", "Send the upload as multipart/form-data (a file and its fields).");
   }
-  const bytes = await readBoundedBytes(request, maxBytes, () => new ApiError("payload_too_large", tooLargeMessage));
-  if (!bytes) throw new ApiError("validation", "The request has no body.", { fields: { file: "Choose a file." } });
+  const bytes = await readBoundedBytes(request, maxBytes, () => new DomainError("payload_too_large", tooLargeMessage));
+  if (!bytes) throw new DomainError("validation", "The request has no body.", { fields: { file: "Choose a file." } });
   try {
     return await new Response(new Blob([bytes as BlobPart]), { headers: { "content-type": type } }).formData();
   } catch {
-    throw new ApiError("validation", "The multipart body could not be read.", { fields: { file: "Choose a file." } });
+    throw new DomainError("validation", "The multipart body could not be read.", { fields: { file: "Choose a file." } });
   }
 }

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { ApiError, validationError } from "./errors";
-import { pageQuerySchema, type PageQuery } from "./schemas";
+import { DomainError, validationError } from "@/lib/contracts/errors";
+import { pageQuerySchema, type PageQuery } from "@/lib/contracts/paging";
 
 /*
  * Keyset paging shared by every list: a page is `{ items, nextCursor }`; the cursor is the sort
@@ -26,7 +26,7 @@ export function encodeCursor(key: readonly (string | number)[]): string {
 }
 
 const badCursor = () =>
-  new ApiError("validation", "That cursor is not valid; start again from the first page.", {
+  new DomainError("validation", "That cursor is not valid; start again from the first page.", {
     fields: { cursor: "Not a cursor of this list." },
   });
 

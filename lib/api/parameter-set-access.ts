@@ -1,8 +1,9 @@
 import "server-only";
 import { findParameterSetLabId } from "@/db/queries/parameter-sets";
-import type { LabRole } from "@/db/schema";
-import { requireLabRole, type Caller, type LabAccess } from "@/lib/auth/access";
-import { notFound } from "./errors";
+import type { LabRole } from "@/lib/contracts/roles";
+import { requireLabRole, type LabAccess } from "@/lib/auth/access";
+import { type Caller } from "@/lib/contracts/access";
+import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "./ids";
 
 const NOT_FOUND = "No such parameter set.";

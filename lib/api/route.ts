@@ -1,7 +1,8 @@
 import "server-only";
 import { ZodError } from "zod";
 import { dbErrorSummary, isDbError, isDbUnavailable, isPoolBusy } from "./db-errors";
-import { ApiError, validationError } from "./errors";
+import { DomainError, validationError } from "@/lib/contracts/errors";
+import { domainErrorResponse } from "./errors";
 
 /*
  * Wraps every API route handler: turns thrown ApiErrors into the contract's JSON, a lost database
@@ -26,24 +27,26 @@ export function apiRoute<P = Record<string, never>>(handler: Handler<P>): Handle
 }
 
 export function errorResponse(error: unknown, request?: Request): Response {
-  if (error instanceof ApiError) return error.toResponse();
-  if (error instanceof ZodError) return validationError(error).toResponse();
+  if (error instanceof DomainError) return domainErrorResponse(error);
+  if (error instanceof ZodError) return domainErrorResponse(validationError(error));
   const where = request ? `${request.method} ${new URL(request.url).pathname}` : "api";
   if (isPoolBusy(error)) {
     console.error(`[api] ${where}: every database connection stayed busy for the whole wait`);
-    return new ApiError("busy", "The server is busy; try again in a moment.", { headers: { "Retry-After": "1" } }).toResponse();
+    return domainErrorResponse(new DomainError("busy", "The server is busy; try again in a moment.", { retryAfterS: 1 }));
   }
   if (isDbUnavailable(error)) {
     console.error(`[api] ${where}: database unavailable:`, dbErrorSummary(error));
-    return new ApiError("db_unavailable", "The database is unavailable; try again shortly.", {
-      headers: { "Retry-After": "5" },
-    }).toResponse();
+    return domainErrorResponse(
+      new DomainError("db_unavailable", "The database is unavailable; try again shortly.", {
+        retryAfterS: 5,
+      }),
+    );
   }
   // Drizzle's message carries the SQL and its parameters (password hashes, e-mails, token
   // hashes): a database error is logged by code and constraint only.
   if (isDbError(error)) console.error(`[api] ${where}: database error:`, dbErrorSummary(error));
   else console.error(`[api] ${where}: unexpected error:`, error instanceof Error ? (error.stack ?? error.message) : String(error));
-  return new ApiError("internal", "Something went wrong on our side.").toResponse();
+  return domainErrorResponse(new DomainError("internal", "Something went wrong on our side."));
 }
 
 export function json(data: unknown, status = 200): Response {

@@ -1,16 +1,14 @@
 import "server-only";
 import { headers as nextHeaders } from "next/headers";
-import type { Caller } from "@/db/queries/caller";
+import type { Caller } from "@/lib/contracts/access";
 import { getLabAccess } from "@/db/queries/labs";
 import { findUserByTokenHash } from "@/db/queries/tokens";
 import { findUserById } from "@/db/queries/users";
-import type { LabRole } from "@/db/schema";
-import { ApiError, forbidden, notFound, unauthenticated } from "@/lib/api/errors";
+import type { LabRole } from "@/lib/contracts/roles";
+import { DomainError, forbidden, notFound, unauthenticated } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { auth } from "./config";
 import { bearerToken, hashToken } from "./tokens";
-
-export type { Caller } from "@/db/queries/caller";
 
 /*
  * The one authorization module. Route handlers and server actions get the caller here and ask
@@ -31,10 +29,10 @@ export function roleAtLeast(role: LabRole, min: LabRole): boolean {
 export async function getCaller(request?: Request): Promise<Caller | null> {
   const headers = request?.headers ?? (await nextHeaders());
   const token = bearerToken(headers);
-  if (token === "malformed") throw new ApiError("unauthenticated", "The Authorization header must be `Bearer glx_…`.");
+  if (token === "malformed") throw new DomainError("unauthenticated", "The Authorization header must be `Bearer glx_…`.");
   if (token !== null) {
     const user = await findUserByTokenHash({ tokenHash: hashToken(token) });
-    if (!user) throw new ApiError("unauthenticated", "This API token is unknown or revoked.");
+    if (!user) throw new DomainError("unauthenticated", "This API token is unknown or revoked.");
     return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "token" };
   }
   const user = await getSessionUser();
@@ -82,12 +80,12 @@ export function requireSameOrigin(request: Request): void {
   if (!host || originHost !== host) throw crossOrigin();
 }
 
-const crossOrigin = () => new ApiError("forbidden", "This change must come from a Gyrolux page: the request came from another origin.");
+const crossOrigin = () => new DomainError("forbidden", "This change must come from a Gyrolux page: the request came from another origin.");
 
 /** A caller signed in through the browser; API tokens may not manage tokens or passwords. */
 export async function requireSessionCaller(request: Request, what = "Managing API tokens"): Promise<Caller> {
   const caller = await requireCaller(request);
-  if (caller.via !== "session") throw new ApiError("forbidden", `${what} needs a signed-in browser session; an API token cannot do it.`);
+  if (caller.via !== "session") throw new DomainError("forbidden", `${what} needs a signed-in browser session; an API token cannot do it.`);
   return caller;
 }
 

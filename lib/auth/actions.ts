@@ -3,12 +3,12 @@
 import { AuthError, CredentialsSignin } from "next-auth";
 import { headers } from "next/headers";
 import { isDbUnavailable } from "@/lib/api/db-errors";
-import { zodFields } from "@/lib/api/errors";
+import { zodIssueFields } from "@/lib/contracts/validation";
 import { clientIp } from "./client-ip";
 import { signIn, signOut } from "./config";
 import { rateLimitMessage, signInWaitSeconds } from "./rate-limit";
 import { safeRedirectTarget } from "./redirect-target";
-import { signInSchema, signUpSchema } from "./schemas";
+import { signInSchema, signUpSchema } from "@/lib/contracts/accounts";
 import { signUpNeutrally } from "./sign-up";
 
 /** State of the sign-in/sign-up forms (useActionState). */
@@ -50,7 +50,7 @@ async function signInAndRedirect(options: { email: string; password: string; red
 
 export async function signInAction(_prev: AuthFormState, formData: FormData): Promise<AuthFormState> {
   const parsed = signInSchema.safeParse({ email: text(formData, "email"), password: text(formData, "password") });
-  if (!parsed.success) return { error: "Check the highlighted fields.", fields: zodFields(parsed.error) };
+  if (!parsed.success) return { error: "Check the highlighted fields.", fields: zodIssueFields(parsed.error.issues) };
   const redirectTo = safeRedirectTarget(text(formData, "redirectTo"));
   try {
     const wait = await signInWaitSeconds({ email: parsed.data.email, ip: clientIp(await headers()) });
@@ -68,7 +68,7 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
     email: text(formData, "email"),
     password: text(formData, "password"),
   });
-  const fields = parsed.success ? {} : zodFields(parsed.error);
+  const fields = parsed.success ? {} : zodIssueFields(parsed.error.issues);
   const confirm = text(formData, "confirmPassword");
   if (confirm !== undefined && confirm !== text(formData, "password")) fields.confirmPassword = "The passwords do not match.";
   if (!parsed.success || Object.keys(fields).length > 0) return { error: "Check the highlighted fields.", fields };

@@ -1,12 +1,12 @@
 import "server-only";
 import NextAuth, { CredentialsSignin, type DefaultSession } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
-import type { SiteRole } from "@/db/schema";
+import type { SiteRole } from "@/lib/contracts/roles";
 import { bumpSessionVersion, findUserByEmail } from "@/db/queries/users";
 import { clientIp } from "./client-ip";
 import { dummyVerify, verifyPassword } from "./password";
 import { clearSignInFailures, recordSignInFailure, signInWaitSeconds } from "./rate-limit";
-import { signInSchema } from "./schemas";
+import { signInSchema } from "@/lib/contracts/accounts";
 
 declare module "next-auth" {
   interface Session {

@@ -3,7 +3,7 @@ import { createAccount, type CreateAccountResult } from "@/db/queries/users";
 import { signUpExistingMail } from "@/lib/mail/messages";
 import { appLink, sendMail } from "@/lib/mail/send";
 import { hashPassword } from "./password";
-import type { SignUpInput } from "./schemas";
+import type { SignUpInput } from "@/lib/contracts/accounts";
 import { takeThrottleSlot } from "./throttle";
 
 /** A new account and its personal lab (owned by the new user); shared by the form and the API. */

@@ -1,14 +1,19 @@
 import { z } from "zod";
-import { safeString } from "@/lib/api/text";
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, passwordBytes } from "./password-rules";
+import { emailField, safeString } from "./validation";
 
-/** Sign-in and sign-up inputs, shared by the server actions, the sign-up API and the forms (client-safe). */
+/** Accounts: sign-in, sign-up and password inputs, shared by the server actions, the API and the forms. */
 
-const email = safeString({ error: "Enter your e-mail address." })
-  .trim()
-  .toLowerCase()
-  .max(320, "That e-mail address is too long.")
-  .pipe(z.email({ error: "Enter a valid e-mail address." }));
+/** Password bounds, importable by client forms (no bcrypt here). bcrypt ignores bytes past 72. */
+export const PASSWORD_MIN_LENGTH = 8;
+export const PASSWORD_MAX_BYTES = 72;
+/** Kept for forms that show a character hint; the real limit is PASSWORD_MAX_BYTES. */
+export const PASSWORD_MAX_LENGTH = PASSWORD_MAX_BYTES;
+
+export function passwordBytes(password: string): number {
+  return new TextEncoder().encode(password).byteLength;
+}
+
+const email = emailField("Enter your e-mail address.");
 
 /** bcrypt reads only the first 72 bytes, so the limit is on UTF-8 bytes, not characters. */
 function newPasswordSchema() {

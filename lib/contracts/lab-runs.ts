@@ -1,12 +1,22 @@
 import { z } from "zod";
-import { runSpecSchema } from "./kinds";
+import { runSpecSchema } from "@/lib/runs/kinds";
+import type { LabRole } from "./roles";
 
 /*
- * The JSON shapes of the lab-run API, for both sides (types and the submit schema only; no server
- * import, so the browser bundle can use them).
+ * Lab runs: their states, the request schemas and the JSON shapes of the lab-run API, for both
+ * sides (no server import, so the browser bundle can use them).
  */
 
-export type LabRunState = "queued" | "running" | "done" | "failed" | "cancelled";
+/** Every state a lab run can be in; the database enum is built from this list. */
+export const LAB_RUN_STATES = ["queued", "running", "done", "failed", "cancelled"] as const;
+export type LabRunState = (typeof LAB_RUN_STATES)[number];
+
+/** The states in which a run still has work ahead (it can be cancelled, and screens keep polling). */
+export const ACTIVE_LAB_RUN_STATES = ["queued", "running"] as const satisfies readonly LabRunState[];
+
+export function isActiveLabRun(state: LabRunState): boolean {
+  return (ACTIVE_LAB_RUN_STATES as readonly LabRunState[]).includes(state);
+}
 
 export interface LabRunSummary {
   id: string;
@@ -30,7 +40,7 @@ export interface LabRunSummary {
   finishedAt: string | null;
   updatedAt: string;
   /** The caller's role in the run's lab. */
-  role: "owner" | "editor" | "viewer";
+  role: LabRole;
 }
 
 export interface LabRunDetail extends LabRunSummary {

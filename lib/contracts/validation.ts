@@ -43,3 +43,56 @@ export function jsonProblem(value: unknown, maxDepth: number): string | null {
   }
   return null;
 }
+
+/** A required one-line name: trimmed, not empty, at most `max` characters. */
+export function nameSchema(options: { max: number; missing?: string }) {
+  const missing = options.missing ?? "Enter a name.";
+  return safeString({ error: missing }).trim().min(1, missing).max(options.max, `At most ${options.max} characters.`);
+}
+
+/** Free text that may be empty: trimmed, at most `max` characters. */
+export function textSchema(options: { max: number }) {
+  return safeString({ error: "Must be text." }).trim().max(options.max, `At most ${options.max} characters.`);
+}
+
+/** An e-mail address, trimmed and lower-cased (how accounts and invitations store it). */
+export function emailField(missing = "Enter an e-mail address.") {
+  return safeString({ error: missing })
+    .trim()
+    .toLowerCase()
+    .max(320, "That e-mail address is too long.")
+    .pipe(z.email({ error: "Enter a valid e-mail address." }));
+}
+
+export const emailSchema = emailField();
+
+/*
+ * The one formatter of zod issues. Every place that shows or returns a failed parse goes through
+ * these two, so a path reads the same ("params.temperatureK") on a form, in an API answer and in
+ * a lab run's error.
+ */
+
+type Issue = Pick<z.core.$ZodIssue, "path" | "message">;
+
+const issuePath = (issue: Issue) => issue.path.map(String).join(".");
+
+/** Issues → `fields` keyed by dotted path; the first message per field wins; "body" for the root. */
+export function zodIssueFields(issues: readonly Issue[]): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of issues) fields[issuePath(issue) || "body"] ??= issue.message;
+  return fields;
+}
+
+/** Issues → "path: message" lines, the root named by `rootLabel`; `label` may rename a path. */
+export function zodIssueLines(
+  issues: readonly Issue[],
+  options: { rootLabel?: string; label?: (path: string) => string | undefined } = {},
+) {
+  return issues.map((issue) => {
+    const path = issuePath(issue);
+    const shown = (path && options.label?.(path)) || path || options.rootLabel || "(input)";
+    return `${shown}: ${issue.message}`;
+  });
+}
+
+export { finiteNumber } from "@/lib/physics/number-fields";

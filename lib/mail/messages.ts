@@ -1,4 +1,4 @@
-import type { LabRole } from "@/lib/api/dto";
+import type { LabRole } from "@/lib/contracts/roles";
 
 /* The texts of the e-mails Gyrolux sends; plain text, every link absolute and single-purpose. */
 

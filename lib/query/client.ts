@@ -1,9 +1,9 @@
 import { QueryClient } from "@tanstack/react-query";
-import { ApiError } from "./fetcher";
+import { RequestError } from "@/lib/query/fetcher";
 
 // Client errors (4xx) will not fix themselves on retry; only server or network trouble is retried.
 function shouldRetry(failureCount: number, error: unknown): boolean {
-  if (error instanceof ApiError && error.status >= 400 && error.status < 500) return false;
+  if (error instanceof RequestError && error.status >= 400 && error.status < 500) return false;
   return failureCount < 2;
 }
 

@@ -1,9 +1,9 @@
 /*
  * The one way the browser talks to our API: JSON in, JSON out, and every failure turned into an
- * ApiError carrying the contract's error code, so screens can react to codes instead of strings.
+ * RequestError carrying the contract's error code, so screens can react to codes instead of strings.
  */
 
-export class ApiError extends Error {
+export class RequestError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields?: Record<string, string>;
@@ -11,7 +11,7 @@ export class ApiError extends Error {
 
   constructor(options: { status: number; code: string; message: string; fields?: Record<string, string>; body?: unknown }) {
     super(options.message);
-    this.name = "ApiError";
+    this.name = "RequestError";
     this.status = options.status;
     this.code = options.code;
     this.fields = options.fields;
@@ -34,13 +34,13 @@ function isRecordOfStrings(value: unknown): value is Record<string, string> {
   return typeof value === "object" && value !== null && Object.values(value).every((v) => typeof v === "string");
 }
 
-function toApiError(status: number, body: unknown): ApiError {
+function toApiError(status: number, body: unknown): RequestError {
   const error = (body as ErrorBody | null)?.error;
   const code = typeof error?.code === "string" ? error.code : status >= 500 ? "internal" : "http_error";
   const message =
     typeof error?.message === "string" && error.message.length > 0 ? error.message : `The server answered with status ${status}.`;
   const fields = isRecordOfStrings(error?.fields) ? error.fields : undefined;
-  return new ApiError({ status, code, message, fields, body });
+  return new RequestError({ status, code, message, fields, body });
 }
 
 export async function apiFetch<T>(path: string, init: ApiFetchInit = {}): Promise<T> {
@@ -54,7 +54,11 @@ export async function apiFetch<T>(path: string, init: ApiFetchInit = {}): Promis
       credentials: "same-origin",
     });
   } catch {
-    throw new ApiError({ status: 0, code: "network", message: "Could not reach the Gyrolux server. Check your connection and try again." });
+    throw new RequestError({
+      status: 0,
+      code: "network",
+      message: "Could not reach the Gyrolux server. Check your connection and try again.",
+    });
   }
 
   if (response.status === 204) return undefined as T;
@@ -84,7 +88,7 @@ const PLAIN_MESSAGES: Record<string, string> = {
 
 /** A sentence a scientist can act on, for any thrown value. */
 export function describeError(error: unknown): string {
-  if (error instanceof ApiError) {
+  if (error instanceof RequestError) {
     if (error.code === "validation" || error.code === "conflict" || error.code === "stale_version" || error.code === "network") {
       return error.message;
     }

@@ -4,7 +4,8 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import type { SaveFitInput } from "@/lib/fit/provenance";
 import { apiFetch } from "./fetcher";
 import { parameterSetKeys } from "./parameter-sets";
-import type { ItemResponse, ParameterSet } from "./types";
+import type { ItemResponse } from "@/lib/contracts/common";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 
 /** POST /api/parameter-sets/{id}/fits: the fitted values as a new version with the fit's provenance. */
 export function useSaveFit(setId: string) {

@@ -3,7 +3,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "./fetcher";
 import { usePagedList } from "./paging";
-import type { ItemsResponse, Lab, LabMember, LabRole } from "./types";
+import type { ItemsResponse } from "@/lib/contracts/common";
+import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
+import type { LabRole } from "@/lib/contracts/roles";
 
 export const labKeys = {
   all: () => ["labs"] as const,
@@ -13,7 +15,7 @@ export const labKeys = {
 export const labsQuery = () =>
   queryOptions({
     queryKey: labKeys.all(),
-    queryFn: ({ signal }) => apiFetch<ItemsResponse<Lab>>("/api/labs", { signal }).then((r) => r.items),
+    queryFn: ({ signal }) => apiFetch<ItemsResponse<LabSummary>>("/api/labs", { signal }).then((r) => r.items),
   });
 
 export function useLabs() {
@@ -22,7 +24,7 @@ export function useLabs() {
 
 /** A lab's members, a page at a time; `data` is every member loaded so far. */
 export function useLabMembers(labId: string) {
-  const paged = usePagedList<LabMember>({ queryKey: labKeys.members(labId), path: `/api/labs/${encodeURIComponent(labId)}/members` });
+  const paged = usePagedList<MemberSummary>({ queryKey: labKeys.members(labId), path: `/api/labs/${encodeURIComponent(labId)}/members` });
   return { ...paged, data: paged.items };
 }
 

@@ -1,13 +1,12 @@
 "use client";
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { MeasurementSetSummary } from "@/lib/api/dto";
-import type { UploadMeasurementMeta } from "@/lib/api/measurement-schemas";
+import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import type { UploadMeasurementMeta } from "@/lib/contracts/measurement-sets";
 import type { MeasuredPoint } from "@/lib/measurements/point";
-import { ApiError, apiFetch } from "./fetcher";
-import type { ItemResponse, ItemsResponse } from "./types";
-
-export type { MeasurementSetSummary } from "@/lib/api/dto";
+import { RequestError } from "@/lib/query/fetcher";
+import { apiFetch } from "./fetcher";
+import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
 
 const LIST_ROOT = ["measurement-sets"] as const;
 
@@ -57,7 +56,7 @@ export function originalFileUrl(id: string): string {
 
 /** The row-by-row problems of a refused upload ("line 14: wavelength is empty"), or []. */
 export function uploadProblems(error: unknown): string[] {
-  if (!(error instanceof ApiError)) return [];
+  if (!(error instanceof RequestError)) return [];
   const problems = (error.body as { error?: { problems?: unknown } } | null)?.error?.problems;
   return Array.isArray(problems) ? problems.filter((p): p is string => typeof p === "string") : [];
 }

@@ -4,7 +4,8 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/r
 import type { ModelParams } from "@/lib/physics/schema";
 import { apiFetch } from "./fetcher";
 import { usePagedList } from "./paging";
-import type { ItemResponse, ItemsResponse, ParameterSet, ParameterSetSummary, ParameterSetVersion } from "./types";
+import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
+import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/contracts/parameter-sets";
 
 export interface ParameterSetFilter {
   labId?: string;

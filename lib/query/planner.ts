@@ -1,9 +1,10 @@
 "use client";
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { LightSource, LightSourceInput, SavePlanInput, SavedPlan, UpdateLightSourceInput } from "@/lib/planner/records";
+import type { LightSource, LightSourceInput, UpdateLightSourceInput } from "@/lib/contracts/light-sources";
+import type { SavePlanInput, SavedPlan } from "@/lib/contracts/plans";
 import { apiFetch } from "./fetcher";
-import type { ItemResponse, ItemsResponse } from "./types";
+import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
 
 export const plannerKeys = {
   lightSources: (labId: string) => ["light-sources", { labId }] as const,

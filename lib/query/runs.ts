@@ -1,9 +1,9 @@
 "use client";
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { LabRunDetail, LabRunResultBody, LabRunSummary, SubmitRunInput } from "@/lib/runs/dto";
+import type { LabRunDetail, LabRunResultBody, LabRunSummary, SubmitRunInput } from "@/lib/contracts/lab-runs";
 import { apiFetch } from "./fetcher";
-import type { ItemResponse, ItemsResponse } from "./types";
+import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
 
 /*
  * Lab runs: list, detail and result queries, and the submit/cancel mutations. While any run shown

@@ -1,7 +1,9 @@
 "use client";
 
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import type { InvitationSummary, LabRole, ShareLinkSummary } from "@/lib/api/dto";
+import type { InvitationSummary } from "@/lib/contracts/labs";
+import type { LabRole } from "@/lib/contracts/roles";
+import type { ShareLinkSummary } from "@/lib/contracts/sharing";
 import { apiFetch } from "./fetcher";
 import { usePagedList } from "./paging";
 

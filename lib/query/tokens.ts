@@ -3,17 +3,17 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "./fetcher";
 import { usePagedList } from "./paging";
-import type { ApiToken } from "./types";
+import type { TokenSummary } from "@/lib/contracts/tokens";
 
 export const tokenKeys = { all: () => ["tokens"] as const };
 
 /** The settings list, a page at a time. */
 export function useTokenPages() {
-  return usePagedList<ApiToken>({ queryKey: tokenKeys.all(), path: "/api/tokens" });
+  return usePagedList<TokenSummary>({ queryKey: tokenKeys.all(), path: "/api/tokens" });
 }
 
 export interface CreatedToken {
-  item: ApiToken;
+  item: TokenSummary;
   /** The secret; the server keeps only its hash, so this is the one chance to copy it. */
   token: string;
 }

@@ -1,10 +1,11 @@
 "use client";
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { MyWorkbenchView } from "@/lib/api/workbench-views";
+import type { MyWorkbenchView } from "@/lib/contracts/workbench-views";
 import { apiFetch } from "./fetcher";
 import { parameterSetKeys } from "./parameter-sets";
-import type { ItemResponse, ParameterSet } from "./types";
+import type { ItemResponse } from "@/lib/contracts/common";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 
 /*
  * A person's own workbench view of a set (…/my-view) and the lab's shared view (…/view-state).

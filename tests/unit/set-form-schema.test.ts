@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { mapServerFields, setFormResolver, setFormSchema, toFormValues, type SetFormInput } from "@/components/parameter-sets/form-schema";
-import { NAME_MAX, TAG_MAX } from "@/lib/api/schemas";
+import { NAME_MAX, TAG_MAX } from "@/lib/contracts/parameter-sets";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 
 const valid = (): SetFormInput =>

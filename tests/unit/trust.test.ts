@@ -6,10 +6,10 @@ vi.mock("@/db/client", () => ({ db: {} }));
 
 const { clientIpFrom, DIRECT_CLIENT } = await import("@/lib/auth/client-ip");
 const { signInWaitFor, FREE_FAILURES, FREE_FAILURES_ANY_ADDRESS } = await import("@/lib/auth/rate-limit");
-const { isStorableText, jsonProblem } = await import("@/lib/api/text");
+const { isStorableText, jsonProblem } = await import("@/lib/contracts/validation");
 const { decodeCursor, encodeCursor, timeIdCursor } = await import("@/lib/api/paging");
 const { parseMessage } = await import("@/lib/mail/mime");
-const { signUpSchema } = await import("@/lib/auth/schemas");
+const { signUpSchema } = await import("@/lib/contracts/accounts");
 
 describe("client address (X-Forwarded-For is trusted only from configured proxies)", () => {
   const headers = new Headers({ "x-forwarded-for": "203.0.113.9, 198.51.100.7, 10.0.0.2" });

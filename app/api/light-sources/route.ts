@@ -1,9 +1,9 @@
 import { createLightSource, listLightSources } from "@/db/queries/light-sources";
 import { readJson } from "@/lib/api/body";
-import { validationError } from "@/lib/api/errors";
+import { validationError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
-import { createLightSourceSchema, listLightSourcesQuery } from "@/lib/planner/records";
+import { createLightSourceSchema, listLightSourcesQuery } from "@/lib/contracts/light-sources";
 
 /** GET /api/light-sources?labId= (viewer) → { items: LightSource[] } */
 export const GET = apiRoute(async (request) => {

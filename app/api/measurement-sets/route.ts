@@ -1,7 +1,7 @@
 import { createMeasurementSet, listMeasurementSets } from "@/db/queries/measurement-sets";
-import { ApiError, validationError } from "@/lib/api/errors";
+import { DomainError, validationError } from "@/lib/contracts/errors";
 import { withStorage } from "@/lib/api/measurement-set-access";
-import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/api/measurement-schemas";
+import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
 import { readMultipart } from "@/lib/api/multipart";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
@@ -22,7 +22,7 @@ const MIB = 1024 * 1024;
 /** Room for the form's other fields beside the file. */
 const FORM_OVERHEAD_BYTES = 64 * 1024;
 const tooLarge = (bytes?: number) =>
-  new ApiError(
+  new DomainError(
     "payload_too_large",
     `${bytes === undefined ? "The upload is" : `The file is ${(bytes / MIB).toFixed(1)} MiB,`} larger than the ${MAX_FILE_BYTES / MIB} MiB a measurement file may be.`,
     { fields: { file: `At most ${MAX_FILE_BYTES / MIB} MiB.` } },
@@ -31,11 +31,12 @@ const tooLarge = (bytes?: number) =>
 function jsonField(form: FormData, key: string): unknown {
   const raw = form.get(key);
   if (raw === null) return undefined;
-  if (typeof raw !== "string") throw new ApiError("validation", `${key} must be JSON text.`, { fields: { [key]: "Must be JSON text." } });
+  if (typeof raw !== "string")
+    throw new DomainError("validation", `${key} must be JSON text.`, { fields: { [key]: "Must be JSON text." } });
   try {
     return JSON.parse(raw);
   } catch {
-    throw new ApiError("validation", `${key} is not valid JSON.`, { fields: { [key]: "Not valid JSON." } });
+    throw new DomainError("validation", `${key} is not valid JSON.`, { fields: { [key]: "Not valid JSON." } });
   }
 }
 
@@ -67,21 +68,21 @@ export const POST = apiRoute(async (request) => {
   const access = await requireLabRole(caller, meta.data.labId, "editor");
 
   const file = form.get("file");
-  if (!(file instanceof File)) throw new ApiError("validation", "Choose a CSV or TSV file.", { fields: { file: "Choose a file." } });
+  if (!(file instanceof File)) throw new DomainError("validation", "Choose a CSV or TSV file.", { fields: { file: "Choose a file." } });
   if (file.size > MAX_FILE_BYTES) throw tooLarge(file.size);
   const bytes = new Uint8Array(await file.arrayBuffer());
   let text: string;
   try {
     text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {
-    throw new ApiError("validation", "The file is not UTF-8 text. Save it as CSV or TSV in UTF-8 and upload it again.", {
+    throw new DomainError("validation", "The file is not UTF-8 text. Save it as CSV or TSV in UTF-8 and upload it again.", {
       fields: { file: "Not UTF-8 text." },
     });
   }
   const parsed = parseMeasurementTable(text, meta.data.mapping, meta.data.defaults);
   if (parsed.errors.length > 0) {
     const count = parsed.errors.length;
-    throw new ApiError("validation", `The file has ${count === 1 ? "a problem" : `${count} problems`}; nothing was stored.`, {
+    throw new DomainError("validation", `The file has ${count === 1 ? "a problem" : `${count} problems`}; nothing was stored.`, {
       fields: { file: parsed.errors[0]! },
       extra: { problems: parsed.errors },
     });

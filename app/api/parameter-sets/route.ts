@@ -1,9 +1,9 @@
 import { createParameterSet, listParameterSets } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
-import { validationError } from "@/lib/api/errors";
+import { validationError } from "@/lib/contracts/errors";
 import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
-import { createParameterSetSchema, listParameterSetsQuery } from "@/lib/api/schemas";
+import { createParameterSetSchema, listParameterSetsQuery } from "@/lib/contracts/parameter-sets";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
 
 /** GET /api/parameter-sets?labId=&q=&tag=&limit=&cursor= → { items: ParameterSetSummary[], nextCursor } */

@@ -1,7 +1,7 @@
 import { createPasswordReset, findUserByEmail } from "@/db/queries/users";
 import { readJson } from "@/lib/api/body";
 import { apiRoute, json } from "@/lib/api/route";
-import { emailOnlySchema } from "@/lib/auth/schemas";
+import { emailOnlySchema } from "@/lib/contracts/accounts";
 import { takeThrottleSlot } from "@/lib/auth/throttle";
 import { generateLinkSecret } from "@/lib/auth/tokens";
 import { passwordResetMail } from "@/lib/mail/messages";

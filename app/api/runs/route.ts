@@ -2,10 +2,10 @@ import { isDeepStrictEqual } from "node:util";
 import { createRun, listRuns, markRunUnqueued } from "@/db/queries/runs";
 import { getParameterSet } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
-import { ApiError, validationError } from "@/lib/api/errors";
+import { DomainError, validationError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
-import { listRunsQuery, submitRunSchema } from "@/lib/runs/dto";
+import { listRunsQuery, submitRunSchema } from "@/lib/contracts/lab-runs";
 import { runKindHandler } from "@/lib/runs/kinds";
 import { enqueueRun } from "@/lib/runs/queue";
 
@@ -29,7 +29,7 @@ export const POST = apiRoute(async (request) => {
   if (input.parameterSetId) {
     const stored = await getParameterSet({ id: input.parameterSetId, labId: access.labId, role: access.role });
     if (!stored)
-      throw new ApiError("validation", "One field is invalid.", { fields: { parameterSetId: "No such parameter set in this lab." } });
+      throw new DomainError("validation", "One field is invalid.", { fields: { parameterSetId: "No such parameter set in this lab." } });
     set = { id: stored.id, name: stored.name, version: stored.version, edited: !isDeepStrictEqual(stored.params, input.payload.params) };
   }
   const item = await createRun({
@@ -53,7 +53,7 @@ export const POST = apiRoute(async (request) => {
   } catch (error) {
     console.error("[runs] cannot queue run", item.id, error);
     await markRunUnqueued({ id: item.id, error: "The job queue could not take the run; submit it again." });
-    throw new ApiError("db_unavailable", "The job queue is unavailable; try again shortly.");
+    throw new DomainError("db_unavailable", "The job queue is unavailable; try again shortly.");
   }
   return json({ item }, 201);
 });

@@ -1,7 +1,7 @@
 import { readJson } from "@/lib/api/body";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
-import { signUpSchema } from "@/lib/auth/schemas";
+import { signUpSchema } from "@/lib/contracts/accounts";
 import { SIGN_UP_RECEIVED, signUpNeutrally } from "@/lib/auth/sign-up";
 
 /**
@@ -14,8 +14,8 @@ export const POST = apiRoute(async (request) => {
   const input = await readJson(request, signUpSchema);
   const outcome = await signUpNeutrally(input);
   if (outcome === "throttled") {
-    throw new ApiError("rate_limited", "Too many sign-up attempts for this address. Try again in an hour.", {
-      headers: { "Retry-After": "3600" },
+    throw new DomainError("rate_limited", "Too many sign-up attempts for this address. Try again in an hour.", {
+      retryAfterS: 3600,
     });
   }
   return json({ message: SIGN_UP_RECEIVED }, 202);

@@ -2,7 +2,7 @@ import { createToken, listTokens } from "@/db/queries/tokens";
 import { readJson } from "@/lib/api/body";
 import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
-import { createTokenSchema } from "@/lib/api/schemas";
+import { createTokenSchema } from "@/lib/contracts/tokens";
 import { requireSessionCaller } from "@/lib/auth/access";
 import { generateToken } from "@/lib/auth/tokens";
 

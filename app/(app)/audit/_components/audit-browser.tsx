@@ -8,7 +8,8 @@ import { SkeletonRows } from "@/components/ui/skeleton";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { useLabMembers, useLabs } from "@/lib/query/labs";
 import { useParameterSets } from "@/lib/query/parameter-sets";
-import { useAudit, type AuditEntry } from "@/lib/query/sharing";
+import { useAudit } from "@/lib/query/sharing";
+import { type AuditEntry } from "@/lib/contracts/audit";
 
 const KINDS = [
   { value: "", label: "Everything" },

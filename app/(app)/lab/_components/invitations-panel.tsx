@@ -7,9 +7,9 @@ import { DateTime } from "@/components/ui/date-time";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { LoadMore } from "@/components/ui/load-more";
 import { INPUT_CLASS } from "@/components/ui/text-field";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useInvitations, useInvite, useRevokeInvitation, type InvitationSummary } from "@/lib/query/sharing";
-import type { LabRole } from "@/lib/query/types";
+import type { LabRole } from "@/lib/contracts/roles";
 import { ROLE_LABEL, ROLE_MEANING, ROLES } from "./role-text";
 
 /** Owners invite people by e-mail; they join when they accept. Pending invitations can be withdrawn. */
@@ -21,7 +21,7 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
   const [role, setRole] = useState<LabRole>("viewer");
   const [sentTo, setSentTo] = useState<string | null>(null);
   const [revoking, setRevoking] = useState<InvitationSummary | null>(null);
-  const emailError = invite.error instanceof ApiError ? invite.error.fields?.email : undefined;
+  const emailError = invite.error instanceof RequestError ? invite.error.fields?.email : undefined;
 
   return (
     <div className="mt-4 space-y-4">

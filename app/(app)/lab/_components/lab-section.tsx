@@ -8,19 +8,20 @@ import { SkeletonRows } from "@/components/ui/skeleton";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { describeError } from "@/lib/query/fetcher";
 import { useChangeMemberRole, useLabMembers, useRemoveMember } from "@/lib/query/labs";
-import { hasRole, type Lab, type LabMember, type LabRole } from "@/lib/query/types";
+import { roleAtLeast, type LabRole } from "@/lib/contracts/roles";
+import { type LabSummary, type MemberSummary } from "@/lib/contracts/labs";
 import { LoadMore } from "@/components/ui/load-more";
 import { InvitationsPanel } from "./invitations-panel";
 import { ROLE_LABEL, ROLE_MEANING, ROLES } from "./role-text";
 
-export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: string }) {
+export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUserId: string }) {
   const members = useLabMembers(lab.id);
-  const isOwner = hasRole(lab.role, "owner");
+  const isOwner = roleAtLeast(lab.role, "owner");
   const changeRole = useChangeMemberRole(lab.id);
   const remove = useRemoveMember(lab.id);
-  const [removing, setRemoving] = useState<LabMember | null>(null);
+  const [removing, setRemoving] = useState<MemberSummary | null>(null);
   // A role change takes effect at once for the member, so it is confirmed first.
-  const [roleChange, setRoleChange] = useState<{ member: LabMember; role: LabRole } | null>(null);
+  const [roleChange, setRoleChange] = useState<{ member: MemberSummary; role: LabRole } | null>(null);
   const headingId = `lab-${lab.id}`;
 
   return (
@@ -158,7 +159,9 @@ export function LabSection({ lab, currentUserId }: { lab: Lab; currentUserId: st
         open={roleChange !== null}
         title={roleChange ? `Make ${roleChange.member.name} ${ROLE_LABEL[roleChange.role].toLowerCase()} of ${lab.name}?` : ""}
         confirmLabel="Change role"
-        destructive={roleChange !== null && hasRole(roleChange.member.role, roleChange.role) && roleChange.member.role !== roleChange.role}
+        destructive={
+          roleChange !== null && roleAtLeast(roleChange.member.role, roleChange.role) && roleChange.member.role !== roleChange.role
+        }
         pending={changeRole.isPending}
         error={changeRole.isError ? describeError(changeRole.error) : null}
         onCancel={() => setRoleChange(null)}

@@ -1,4 +1,4 @@
-import type { LabRole } from "@/lib/query/types";
+import type { LabRole } from "@/lib/contracts/roles";
 
 export const ROLES: readonly LabRole[] = ["owner", "editor", "viewer"];
 

@@ -1,4 +1,4 @@
-import type { MeasurementSetSummary } from "@/lib/query/measurements";
+import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 
 /** "77, 293.15 K"; long lists are shortened to their ends and a count. */

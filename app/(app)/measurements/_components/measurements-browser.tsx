@@ -12,8 +12,9 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { useSearchUpdate } from "@/components/ui/use-search-update";
 import { describeError } from "@/lib/query/fetcher";
 import { useLabs } from "@/lib/query/labs";
-import { useDeleteMeasurementSet, useMeasurementSets, type MeasurementSetSummary } from "@/lib/query/measurements";
-import { hasRole } from "@/lib/query/types";
+import { useDeleteMeasurementSet, useMeasurementSets } from "@/lib/query/measurements";
+import { type MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import { roleAtLeast } from "@/lib/contracts/roles";
 import { parseSort, sortSets, type SortKey } from "./format";
 import { MeasurementsTable } from "./measurements-table";
 import { UploadPanel } from "./upload-panel";
@@ -28,7 +29,7 @@ export function MeasurementsBrowser() {
 
   const labs = useLabs();
   const sets = useMeasurementSets(labId || undefined, q || undefined);
-  const editorLabs = useMemo(() => (labs.data ?? []).filter((lab) => hasRole(lab.role, "editor")), [labs.data]);
+  const editorLabs = useMemo(() => (labs.data ?? []).filter((lab) => roleAtLeast(lab.role, "editor")), [labs.data]);
   const [uploading, setUploading] = useState(false);
   const [uploaded, setUploaded] = useState<string | null>(null);
   const [toDelete, setToDelete] = useState<MeasurementSetSummary | null>(null);

@@ -1,8 +1,9 @@
 "use client";
 
 import { DateTime } from "@/components/ui/date-time";
-import { originalFileUrl, type MeasurementSetSummary } from "@/lib/query/measurements";
-import { hasRole } from "@/lib/query/types";
+import { originalFileUrl } from "@/lib/query/measurements";
+import { type MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import { roleAtLeast } from "@/lib/contracts/roles";
 import { formatBytes, formatSpan, formatValues, type SortDir, type SortKey } from "./format";
 import { SortHeader } from "@/components/ui/sort-header";
 
@@ -66,7 +67,7 @@ export function MeasurementsTable({ items, sortKey, sortDir, onSort, onDelete }:
                 <span className="block text-xs text-ink-soft">
                   {set.fileName} · {formatBytes(set.fileBytes)}
                 </span>
-                {hasRole(set.role, "editor") ? (
+                {roleAtLeast(set.role, "editor") ? (
                   <button
                     type="button"
                     onClick={() => onDelete(set)}

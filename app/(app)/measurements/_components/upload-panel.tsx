@@ -4,7 +4,7 @@ import { useId, useMemo, useRef, useState, type DragEvent, type ReactNode } from
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { INPUT_CLASS } from "@/components/ui/text-field";
-import { uploadMeasurementMetaSchema } from "@/lib/api/measurement-schemas";
+import { uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
 import {
   MAX_FILE_BYTES,
   MAX_ROWS,
@@ -18,7 +18,7 @@ import {
 import { unitsOf, VALUE_UNIT_LABEL, WAVELENGTH_UNIT_LABEL, type ValueUnit, type WavelengthUnit } from "@/lib/measurements/units";
 import { X_UNITS } from "@/lib/workbench/units";
 import { describeError } from "@/lib/query/fetcher";
-import type { Lab } from "@/lib/query/types";
+import type { LabSummary } from "@/lib/contracts/labs";
 import { uploadProblems, useUploadMeasurementSet } from "@/lib/query/measurements";
 import { formatBytes } from "./format";
 
@@ -75,7 +75,7 @@ export function UploadPanel({
   onDone,
   onCancel,
 }: {
-  labs: Lab[];
+  labs: LabSummary[];
   defaultLabId: string;
   onDone: (name: string) => void;
   onCancel: () => void;

@@ -11,7 +11,7 @@ import { useSearchUpdate } from "@/components/ui/use-search-update";
 import { useLabs } from "@/lib/query/labs";
 import { LoadMore } from "@/components/ui/load-more";
 import { useParameterSetPages } from "@/lib/query/parameter-sets";
-import { hasRole } from "@/lib/query/types";
+import { roleAtLeast } from "@/lib/contracts/roles";
 import { SearchBox } from "@/components/ui/search-box";
 import { SetsTable } from "./sets-table";
 import { parseSort, sortSets, type SortKey } from "./sort";
@@ -26,7 +26,7 @@ export function SetsBrowser() {
 
   const labs = useLabs();
   const sets = useParameterSetPages({ labId, q, tag });
-  const canCreate = labs.data?.some((lab) => hasRole(lab.role, "editor")) ?? false;
+  const canCreate = labs.data?.some((lab) => roleAtLeast(lab.role, "editor")) ?? false;
   const filtered = q !== "" || labId !== "" || tag !== "";
 
   const sorted = useMemo(() => sortSets(sets.items, sort.key, sort.dir), [sets.items, sort.key, sort.dir]);

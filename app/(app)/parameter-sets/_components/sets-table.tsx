@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { DateTime } from "@/components/ui/date-time";
-import type { ParameterSetSummary } from "@/lib/query/types";
+import type { ParameterSetSummary } from "@/lib/contracts/parameter-sets";
 import type { SortDir, SortKey } from "./sort";
 import { SortHeader } from "@/components/ui/sort-header";
 

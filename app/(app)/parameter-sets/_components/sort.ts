@@ -1,4 +1,4 @@
-import type { ParameterSetSummary } from "@/lib/query/types";
+import type { ParameterSetSummary } from "@/lib/contracts/parameter-sets";
 
 export type SortKey = "name" | "lab" | "version" | "updated";
 export type SortDir = "asc" | "desc";

@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useState } from "react";
-import type { LabRunSummary } from "@/lib/runs/dto";
+import type { LabRunSummary } from "@/lib/contracts/lab-runs";
 import { etaSeconds } from "@/lib/query/runs";
 
 const STATE_LABEL: Record<LabRunSummary["state"], string> = {

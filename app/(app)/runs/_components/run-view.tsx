@@ -17,7 +17,7 @@ import { SpectrumPanels } from "@/components/workbench/spectrum-panels";
 import type { ComputedSpectrum } from "@/components/workbench/use-spectrum-run";
 import type { SpectrumPoint } from "@/lib/physics/types";
 import { useRun, useRunResult } from "@/lib/query/runs";
-import type { LabRunDetail, LabRunResultBody } from "@/lib/runs/dto";
+import type { LabRunDetail, LabRunResultBody } from "@/lib/contracts/lab-runs";
 import { buildMapCsv } from "@/lib/runs/export";
 import { mapPayloadSchema, spectrumPayloadSchema } from "@/lib/runs/kinds";
 import { figureCaption, figureFileBase } from "@/lib/workbench/export";

@@ -4,14 +4,14 @@ import { useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { INPUT_CLASS } from "@/components/ui/text-field";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useCreateToken, type CreatedToken } from "@/lib/query/tokens";
 
 export function CreateTokenForm() {
   const create = useCreateToken();
   const [name, setName] = useState("");
   const [created, setCreated] = useState<CreatedToken | null>(null);
-  const nameError = create.error instanceof ApiError ? create.error.fields?.name : undefined;
+  const nameError = create.error instanceof RequestError ? create.error.fields?.name : undefined;
 
   return (
     <div className="mt-4 space-y-4">

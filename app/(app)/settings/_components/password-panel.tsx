@@ -5,8 +5,8 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { TextField } from "@/components/ui/text-field";
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from "@/lib/auth/password-rules";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from "@/lib/contracts/accounts";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useChangePassword, useEndAllSessions } from "@/lib/query/sharing";
 
 /** Change the password (ends the other sessions) and sign out everywhere. */
@@ -16,7 +16,7 @@ export function PasswordPanel({ userId }: { userId: string }) {
   const [values, setValues] = useState({ currentPassword: "", newPassword: "", confirm: "" });
   const [mismatch, setMismatch] = useState(false);
   const [confirmEnd, setConfirmEnd] = useState(false);
-  const fields = change.error instanceof ApiError ? change.error.fields : undefined;
+  const fields = change.error instanceof RequestError ? change.error.fields : undefined;
   const set = (key: keyof typeof values) => (event: React.ChangeEvent<HTMLInputElement>) =>
     setValues((v) => ({ ...v, [key]: event.target.value }));
 

@@ -9,13 +9,13 @@ import { SkeletonRows } from "@/components/ui/skeleton";
 import { describeError } from "@/lib/query/fetcher";
 import { LoadMore } from "@/components/ui/load-more";
 import { useRevokeToken, useTokenPages } from "@/lib/query/tokens";
-import type { ApiToken } from "@/lib/query/types";
+import type { TokenSummary } from "@/lib/contracts/tokens";
 import { CreateTokenForm } from "./create-token-form";
 
 export function TokensPanel() {
   const tokens = useTokenPages();
   const revoke = useRevokeToken();
-  const [revoking, setRevoking] = useState<ApiToken | null>(null);
+  const [revoking, setRevoking] = useState<TokenSummary | null>(null);
 
   return (
     <section aria-labelledby="tokens-title" className="max-w-3xl">

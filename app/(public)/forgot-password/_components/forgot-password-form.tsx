@@ -5,14 +5,14 @@ import { useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
-import { ApiError, apiFetch, describeError } from "@/lib/query/fetcher";
+import { RequestError, apiFetch, describeError } from "@/lib/query/fetcher";
 
 export function ForgotPasswordForm() {
   const [email, setEmail] = useState("");
   const request = useMutation({
     mutationFn: () => apiFetch<{ message: string }>("/api/password-reset", { method: "POST", json: { email } }),
   });
-  const fieldError = request.error instanceof ApiError ? request.error.fields?.email : undefined;
+  const fieldError = request.error instanceof RequestError ? request.error.fields?.email : undefined;
   return (
     <form
       className="mt-6 space-y-4"

@@ -2,8 +2,8 @@
 
 import { useActionState, useState } from "react";
 import { signUpAction } from "@/lib/auth/actions";
-import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/auth/password-rules";
-import { signUpSchema } from "@/lib/auth/schemas";
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/contracts/accounts";
+import { signUpSchema } from "@/lib/contracts/accounts";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";

@@ -1,13 +1,13 @@
 import { changePassword, findUserById } from "@/db/queries/users";
 import { readJson } from "@/lib/api/body";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireSessionCaller } from "@/lib/auth/access";
 import { clientIp } from "@/lib/auth/client-ip";
 import { signIn } from "@/lib/auth/config";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { rateLimitMessage, recordSignInFailure, signInWaitSeconds } from "@/lib/auth/rate-limit";
-import { changePasswordSchema } from "@/lib/auth/schemas";
+import { changePasswordSchema } from "@/lib/contracts/accounts";
 
 /**
  * POST /api/account/password { currentPassword, newPassword } (browser session) → { ok }.
@@ -19,11 +19,13 @@ export const POST = apiRoute(async (request) => {
   const { currentPassword, newPassword } = await readJson(request, changePasswordSchema);
   const ip = clientIp(request.headers);
   const wait = await signInWaitSeconds({ email: caller.email, ip });
-  if (wait > 0) throw new ApiError("rate_limited", rateLimitMessage(wait), { headers: { "Retry-After": String(wait) } });
+  if (wait > 0) throw new DomainError("rate_limited", rateLimitMessage(wait), { retryAfterS: wait });
   const user = await findUserById({ id: caller.id });
   if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) {
     await recordSignInFailure({ email: caller.email, ip });
-    throw new ApiError("validation", "The current password is wrong.", { fields: { currentPassword: "The current password is wrong." } });
+    throw new DomainError("validation", "The current password is wrong.", {
+      fields: { currentPassword: "The current password is wrong." },
+    });
   }
   await changePassword({ userId: caller.id, passwordHash: await hashPassword(newPassword) });
   // A fresh cookie carrying the new session version keeps this browser signed in.

@@ -1,8 +1,9 @@
 import { NextRequest } from "next/server";
 import { readText } from "@/lib/api/body";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
+import { domainErrorResponse } from "@/lib/api/errors";
 import { errorResponse } from "@/lib/api/route";
-import { isStorableText } from "@/lib/api/text";
+import { isStorableText } from "@/lib/contracts/validation";
 import { clientIp } from "@/lib/auth/client-ip";
 import { handlers } from "@/lib/auth/config";
 import { rateLimitMessage, signInWaitSeconds } from "@/lib/auth/rate-limit";
@@ -25,7 +26,9 @@ export async function POST(request: NextRequest): Promise<Response> {
   }
   const form = new URLSearchParams(text);
   if ([...form].some(([key, value]) => !isStorableText(key) || !isStorableText(value))) {
-    return new ApiError("validation", "The form contains a character that cannot be used (a NUL byte or a broken surrogate).").toResponse();
+    return domainErrorResponse(
+      new DomainError("validation", "The form contains a character that cannot be used (a NUL byte or a broken surrogate)."),
+    );
   }
   if (new URL(request.url).pathname.endsWith("/callback/credentials")) {
     try {
@@ -33,7 +36,7 @@ export async function POST(request: NextRequest): Promise<Response> {
       if (email !== null && email.length <= 320) {
         const wait = await signInWaitSeconds({ email, ip: clientIp(request.headers) });
         if (wait > 0) {
-          return new ApiError("rate_limited", rateLimitMessage(wait), { headers: { "Retry-After": String(wait) } }).toResponse();
+          return domainErrorResponse(new DomainError("rate_limited", rateLimitMessage(wait), { retryAfterS: wait }));
         }
       }
     } catch (error) {

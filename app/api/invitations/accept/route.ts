@@ -1,9 +1,9 @@
 import { z } from "zod";
 import { acceptInvitation } from "@/db/queries/invitations";
 import { readJson } from "@/lib/api/body";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
-import { safeString } from "@/lib/api/text";
+import { safeString } from "@/lib/contracts/validation";
 import { requireSessionCaller } from "@/lib/auth/access";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
 
@@ -22,15 +22,15 @@ const REFUSED: Record<string, string> = {
 export const POST = apiRoute(async (request) => {
   const caller = await requireSessionCaller(request, "Accepting an invitation");
   const { token } = await readJson(request, acceptSchema);
-  if (!isLinkSecret(token)) throw new ApiError("not_found", REFUSED.unknown!);
+  if (!isLinkSecret(token)) throw new DomainError("not_found", REFUSED.unknown!);
   const result = await acceptInvitation({ tokenHash: hashToken(token), userId: caller.id, userEmail: caller.email });
   if (result.ok) return json({ labId: result.labId, labName: result.labName, role: result.role, alreadyMember: result.alreadyMember });
-  if (result.reason === "unknown") throw new ApiError("not_found", REFUSED.unknown!);
+  if (result.reason === "unknown") throw new DomainError("not_found", REFUSED.unknown!);
   if (result.reason === "other_email") {
-    throw new ApiError(
+    throw new DomainError(
       "forbidden",
       `This invitation is for ${result.email}; you are signed in as ${caller.email}. Sign in with the invited address.`,
     );
   }
-  throw new ApiError("conflict", REFUSED[result.reason]!);
+  throw new DomainError("conflict", REFUSED[result.reason]!);
 });

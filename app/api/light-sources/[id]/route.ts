@@ -1,11 +1,12 @@
 import { deleteLightSource, findLightSourceLabId, getLightSource, updateLightSource } from "@/db/queries/light-sources";
-import type { LabRole } from "@/db/schema";
+import type { LabRole } from "@/lib/contracts/roles";
 import { readJson } from "@/lib/api/body";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, json, noContent } from "@/lib/api/route";
-import { type Caller, requireCaller, requireLabRole } from "@/lib/auth/access";
-import { updateLightSourceSchema } from "@/lib/planner/records";
+import { type Caller } from "@/lib/contracts/access";
+import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { updateLightSourceSchema } from "@/lib/contracts/light-sources";
 
 const NOT_FOUND = "No such light source.";
 

@@ -1,9 +1,9 @@
 import { deleteParameterSet, getParameterSet, updateParameterSet } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json, noContent } from "@/lib/api/route";
-import { updateParameterSetSchema } from "@/lib/api/schemas";
+import { updateParameterSetSchema } from "@/lib/contracts/parameter-sets";
 import { requireCaller } from "@/lib/auth/access";
 
 type Params = { id: string };

@@ -1,5 +1,5 @@
 import { findSharedSet } from "@/db/queries/share-links";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { apiRoute } from "@/lib/api/route";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
 

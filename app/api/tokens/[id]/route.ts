@@ -1,5 +1,5 @@
 import { revokeToken } from "@/db/queries/tokens";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, noContent } from "@/lib/api/route";
 import { requireSessionCaller } from "@/lib/auth/access";

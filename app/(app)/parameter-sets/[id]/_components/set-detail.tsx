@@ -5,7 +5,7 @@ import { SetReadOnly } from "@/components/parameter-sets/set-read-only";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { SkeletonRows } from "@/components/ui/skeleton";
 import { useParameterSet } from "@/lib/query/parameter-sets";
-import { hasRole } from "@/lib/query/types";
+import { roleAtLeast } from "@/lib/contracts/roles";
 import { SetHeader } from "./set-header";
 import { ShareLinksPanel } from "./share-links-panel";
 
@@ -21,8 +21,8 @@ export function SetDetail({ id }: { id: string }) {
   return (
     <>
       <SetHeader item={item} current="detail" />
-      {hasRole(item.role, "editor") ? <SetEditor initial={item} /> : <SetReadOnly item={item} />}
-      {hasRole(item.role, "editor") ? <ShareLinksPanel setId={item.id} /> : null}
+      {roleAtLeast(item.role, "editor") ? <SetEditor initial={item} /> : <SetReadOnly item={item} />}
+      {roleAtLeast(item.role, "editor") ? <ShareLinksPanel setId={item.id} /> : null}
     </>
   );
 }

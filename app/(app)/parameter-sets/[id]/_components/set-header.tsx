@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { DateTime } from "@/components/ui/date-time";
 import { PageHeader } from "@/components/ui/page-header";
-import type { ParameterSet } from "@/lib/query/types";
+import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 
 const ROLE_TEXT = {
   owner: "You are an owner of this lab",

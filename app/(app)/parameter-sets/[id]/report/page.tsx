@@ -3,7 +3,7 @@ import { notFound, redirect } from "next/navigation";
 import { getParameterSet } from "@/db/queries/parameter-sets";
 import { listPlans } from "@/db/queries/plans";
 import { latestProvenance } from "@/db/queries/report";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { getCaller } from "@/lib/auth/access";
 import { ReportView } from "./_components/report-view";
@@ -22,7 +22,7 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
     labId = access.labId;
     role = access.role;
   } catch (error) {
-    if (error instanceof ApiError) notFound();
+    if (error instanceof DomainError) notFound();
     throw error;
   }
   const [set, fit, plans] = await Promise.all([

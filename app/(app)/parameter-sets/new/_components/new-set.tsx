@@ -7,11 +7,11 @@ import { ErrorPanel } from "@/components/ui/error-panel";
 import { PageHeader } from "@/components/ui/page-header";
 import { SkeletonRows } from "@/components/ui/skeleton";
 import { useLabs } from "@/lib/query/labs";
-import { hasRole } from "@/lib/query/types";
+import { roleAtLeast } from "@/lib/contracts/roles";
 
 export function NewSet({ initialLabId }: { initialLabId?: string }) {
   const labs = useLabs();
-  const editable = labs.data?.filter((lab) => hasRole(lab.role, "editor")) ?? [];
+  const editable = labs.data?.filter((lab) => roleAtLeast(lab.role, "editor")) ?? [];
 
   return (
     <>

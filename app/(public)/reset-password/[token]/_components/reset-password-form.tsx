@@ -6,8 +6,8 @@ import { useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from "@/lib/auth/password-rules";
-import { ApiError, apiFetch, describeError } from "@/lib/query/fetcher";
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from "@/lib/contracts/accounts";
+import { RequestError, apiFetch, describeError } from "@/lib/query/fetcher";
 
 export function ResetPasswordForm({ token }: { token: string }) {
   const [password, setPassword] = useState("");
@@ -17,7 +17,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
     mutationFn: () =>
       apiFetch<{ email: string }>("/api/password-reset/confirm", { method: "POST", json: { token, newPassword: password } }),
   });
-  const fields = reset.error instanceof ApiError ? reset.error.fields : undefined;
+  const fields = reset.error instanceof RequestError ? reset.error.fields : undefined;
   if (reset.isSuccess) {
     return (
       <Alert tone="info" title="Password changed">

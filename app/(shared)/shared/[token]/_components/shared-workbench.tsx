@@ -2,7 +2,7 @@
 
 import { Alert } from "@/components/ui/alert";
 import { Workbench } from "@/components/workbench/workbench";
-import type { SharedSet } from "@/lib/api/dto";
+import type { SharedSet } from "@/lib/contracts/sharing";
 import { modelParamsSchema } from "@/lib/physics/schema";
 
 /** The read-only workbench of one shared set: plots, markers and exports, no lab and no saving. */

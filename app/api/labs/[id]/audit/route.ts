@@ -1,7 +1,7 @@
 import { listAudit } from "@/db/queries/audit";
-import { validationError } from "@/lib/api/errors";
+import { validationError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
-import { auditQuerySchema } from "@/lib/api/schemas";
+import { auditQuerySchema } from "@/lib/contracts/audit";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
 
 /**

@@ -1,9 +1,9 @@
 import { createInvitation, INVITATION_DAYS, listPendingInvitations } from "@/db/queries/invitations";
 import { readJson } from "@/lib/api/body";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
-import { createInvitationSchema } from "@/lib/api/schemas";
+import { createInvitationSchema } from "@/lib/contracts/labs";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
 import { generateLinkSecret } from "@/lib/auth/tokens";
 import { invitationMail } from "@/lib/mail/messages";
@@ -49,8 +49,8 @@ export const POST = apiRoute<Params>(async (request, { params }) => {
     });
   } catch (error) {
     if (error instanceof MailUnavailableError) {
-      throw new ApiError("busy", "The invitation was saved but the e-mail could not be sent; revoke it and invite again in a moment.", {
-        headers: { "Retry-After": "30" },
+      throw new DomainError("busy", "The invitation was saved but the e-mail could not be sent; revoke it and invite again in a moment.", {
+        retryAfterS: 30,
       });
     }
     throw error;

@@ -1,5 +1,5 @@
 import { getMeasurementPoints } from "@/db/queries/measurement-sets";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { MEASUREMENT_NOT_FOUND, requireMeasurementSetRole } from "@/lib/api/measurement-set-access";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller } from "@/lib/auth/access";

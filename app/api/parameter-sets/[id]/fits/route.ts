@@ -1,7 +1,7 @@
 import { findMeasurementSetLabId } from "@/db/queries/measurement-sets";
 import { saveFitAsVersion } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
-import { ApiError } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller } from "@/lib/auth/access";
@@ -21,7 +21,7 @@ export const POST = apiRoute<{ id: string }>(async (request, { params }) => {
   const labs = await Promise.all(input.fit.measurementSets.map((m) => findMeasurementSetLabId({ id: m.id })));
   const foreign = labs.findIndex((labId) => labId !== access.labId);
   if (foreign >= 0) {
-    throw new ApiError("validation", "The fit names a measurement set that is not in this parameter set's lab.", {
+    throw new DomainError("validation", "The fit names a measurement set that is not in this parameter set's lab.", {
       fields: { [`fit.measurementSets.${foreign}.id`]: "no such measurement set in this lab" },
     });
   }

@@ -2,7 +2,7 @@ import { deleteMyWorkbenchView, getMyWorkbenchView, saveMyWorkbenchView } from "
 import { readJson } from "@/lib/api/body";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
-import { myViewBodySchema } from "@/lib/api/workbench-views";
+import { myViewBodySchema } from "@/lib/contracts/workbench-views";
 import { requireCaller } from "@/lib/auth/access";
 
 /*

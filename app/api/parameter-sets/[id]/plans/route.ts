@@ -3,7 +3,7 @@ import { readJson } from "@/lib/api/body";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller } from "@/lib/auth/access";
-import { savePlanSchema } from "@/lib/planner/records";
+import { savePlanSchema } from "@/lib/contracts/plans";
 
 /** GET /api/parameter-sets/{id}/plans (viewer) → { items: SavedPlan[] }, newest first */
 export const GET = apiRoute<{ id: string }>(async (request, { params }) => {

@@ -1,5 +1,5 @@
 import { listParameterSetVersions } from "@/db/queries/parameter-sets";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { readPage } from "@/lib/api/paging";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";

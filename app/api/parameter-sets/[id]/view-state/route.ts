@@ -2,7 +2,7 @@ import { saveParameterSetViewState } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
-import { viewStateSchema } from "@/lib/api/schemas";
+import { viewStateSchema } from "@/lib/contracts/workbench-views";
 import { requireCaller } from "@/lib/auth/access";
 
 /** PUT /api/parameter-sets/{id}/view-state { viewState } (editor) → { item }; no new version. */

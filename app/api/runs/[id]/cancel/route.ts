@@ -1,5 +1,5 @@
 import { findRunLabId, getRun, requestCancel } from "@/db/queries/runs";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";

@@ -1,9 +1,9 @@
 import { findRunLabId, getRunResult } from "@/db/queries/runs";
-import { ApiError, notFound } from "@/lib/api/errors";
+import { DomainError, notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
-import type { LabRunResultBody } from "@/lib/runs/dto";
+import type { LabRunResultBody } from "@/lib/contracts/lab-runs";
 import { decodeResult } from "@/lib/runs/encoding";
 
 const NO_RUN = "No such run.";
@@ -19,7 +19,7 @@ export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
   if (!labId) throw notFound(NO_RUN);
   await requireLabRole(caller, labId, "viewer", { notFoundMessage: NO_RUN });
   const result = await getRunResult({ id, labId });
-  if (!result) throw new ApiError("not_found", "This run has no result (yet).");
+  if (!result) throw new DomainError("not_found", "This run has no result (yet).");
   const columns: LabRunResultBody["columns"] = {};
   for (const [name, col] of Object.entries(decodeResult(result.meta, result.data))) {
     columns[name] = Array.from(col, (v) => (Number.isNaN(v) ? null : v));

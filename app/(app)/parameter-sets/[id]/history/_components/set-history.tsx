@@ -5,7 +5,7 @@ import { ErrorPanel } from "@/components/ui/error-panel";
 import { SkeletonRows } from "@/components/ui/skeleton";
 import { LoadMore } from "@/components/ui/load-more";
 import { useParameterSet, useParameterSetVersionPages } from "@/lib/query/parameter-sets";
-import { hasRole } from "@/lib/query/types";
+import { roleAtLeast } from "@/lib/contracts/roles";
 import { SetHeader } from "../../_components/set-header";
 import { VersionCompare } from "./version-compare";
 import { VersionList } from "./version-list";
@@ -36,7 +36,7 @@ export function SetHistory({ id }: { id: string }) {
             setId={id}
             versions={versions.items}
             currentVersion={item.version}
-            canRestore={hasRole(item.role, "editor")}
+            canRestore={roleAtLeast(item.role, "editor")}
             onRestored={(from, to) => setRestored({ from, to })}
           />
           <LoadMore

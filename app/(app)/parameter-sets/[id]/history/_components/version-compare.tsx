@@ -4,7 +4,7 @@ import { useState } from "react";
 import { DiffTable } from "@/components/parameter-sets/diff-table";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { diffSnapshots } from "@/lib/model/diff";
-import type { ParameterSetVersion } from "@/lib/query/types";
+import type { ParameterSetVersion } from "@/lib/contracts/parameter-sets";
 
 function VersionSelect({
   id,

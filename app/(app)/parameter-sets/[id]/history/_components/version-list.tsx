@@ -5,9 +5,9 @@ import { FitProvenanceSummary } from "@/components/parameter-sets/fit-provenance
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { DateTime } from "@/components/ui/date-time";
-import { ApiError, describeError } from "@/lib/query/fetcher";
+import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useRestoreVersion } from "@/lib/query/parameter-sets";
-import type { ParameterSetVersion } from "@/lib/query/types";
+import type { ParameterSetVersion } from "@/lib/contracts/parameter-sets";
 
 interface VersionListProps {
   setId: string;
@@ -22,7 +22,7 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
   const [pick, setPick] = useState<number | null>(null);
 
   const error =
-    restore.error instanceof ApiError && restore.error.code === "stale_version"
+    restore.error instanceof RequestError && restore.error.code === "stale_version"
       ? "Someone saved a newer version in the meantime. The list is up to date now; check it and restore again if you still want to."
       : restore.isError
         ? describeError(restore.error)

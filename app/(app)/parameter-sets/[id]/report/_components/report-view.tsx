@@ -8,7 +8,7 @@ import { DateTime } from "@/components/ui/date-time";
 import type { ProvenanceRecord } from "@/db/queries/report";
 import { PARAM_META } from "@/lib/model/param-meta";
 import { cautionsFor } from "@/lib/planner/cautions";
-import type { SavedPlan } from "@/lib/planner/records";
+import type { SavedPlan } from "@/lib/contracts/plans";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { computeSpectrum } from "@/lib/physics/spectrum";
 import { fmt, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";

@@ -1,5 +1,5 @@
 import { revokeInvitation } from "@/db/queries/invitations";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, noContent } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";

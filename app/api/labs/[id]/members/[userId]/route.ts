@@ -1,11 +1,12 @@
 import { changeMember } from "@/db/queries/labs";
-import type { LabRole } from "@/db/schema";
+import type { LabRole } from "@/lib/contracts/roles";
 import { readJson } from "@/lib/api/body";
-import { ApiError, forbidden, notFound } from "@/lib/api/errors";
+import { DomainError, forbidden, notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { apiRoute, json, noContent } from "@/lib/api/route";
-import { changeMemberSchema } from "@/lib/api/schemas";
-import { requireCaller, requireLabRole, type Caller } from "@/lib/auth/access";
+import { changeMemberSchema } from "@/lib/contracts/labs";
+import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { type Caller } from "@/lib/contracts/access";
 
 type Params = { id: string; userId: string };
 
@@ -21,7 +22,7 @@ async function change(options: { caller: Caller; labId: string; userId: string; 
   if (!result.ok && result.reason === "not_member") throw notFound("No such member.");
   if (!result.ok && result.reason === "not_owner")
     throw forbidden("Only an owner of this lab can change members; your role changed meanwhile.");
-  if (!result.ok) throw new ApiError("conflict", "A lab needs at least one owner: make someone else owner first.");
+  if (!result.ok) throw new DomainError("conflict", "A lab needs at least one owner: make someone else owner first.");
   return result.member;
 }
 

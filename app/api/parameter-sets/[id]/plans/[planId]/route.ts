@@ -1,5 +1,5 @@
 import { deletePlan, getPlan } from "@/db/queries/plans";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json, noContent } from "@/lib/api/route";

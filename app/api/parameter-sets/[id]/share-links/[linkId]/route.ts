@@ -1,5 +1,5 @@
 import { revokeShareLink } from "@/db/queries/share-links";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/api/ids";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, noContent } from "@/lib/api/route";

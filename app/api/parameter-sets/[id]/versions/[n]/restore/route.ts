@@ -1,9 +1,9 @@
 import { restoreParameterSetVersion } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
-import { notFound } from "@/lib/api/errors";
+import { notFound } from "@/lib/contracts/errors";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
-import { restoreVersionSchema } from "@/lib/api/schemas";
+import { restoreVersionSchema } from "@/lib/contracts/parameter-sets";
 import { requireCaller } from "@/lib/auth/access";
 
 /**

@@ -1,0 +1,79 @@
+import { z } from "zod";
+import { pageQuerySchema } from "./paging";
+
+/*
+ * The audit trail: every action a writer may record, the kinds a reader may filter by, and the
+ * entry shape the list answers with. The action strings are stored in audit_log.action, so they
+ * never change once written; a kind is the part before the dot.
+ */
+
+export const AUDIT_ACTIONS = [
+  "demo.seed",
+  "invitation.accept",
+  "invitation.create",
+  "invitation.revoke",
+  "light_source.create",
+  "light_source.delete",
+  "light_source.update",
+  "measurement_set.create",
+  "measurement_set.delete",
+  "member.remove",
+  "member.role",
+  "parameter_set.create",
+  "parameter_set.delete",
+  "parameter_set.fit",
+  "parameter_set.restore",
+  "parameter_set.update",
+  "parameter_set.view_state",
+  "plan.delete",
+  "plan.save",
+  "run.cancel",
+  "run.submit",
+  "share_link.create",
+  "share_link.revoke",
+  "token.create",
+  "token.revoke",
+  "user.end_sessions",
+  "user.password_change",
+  "user.password_reset",
+  "user.sign_up",
+] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+
+/** What an entry is about (audit_log.target_type). */
+export const AUDIT_TARGETS = [
+  "api_token",
+  "invitation",
+  "lab_run",
+  "light_source",
+  "measurement_set",
+  "parameter_set",
+  "plan",
+  "user",
+] as const;
+export type AuditTarget = (typeof AUDIT_TARGETS)[number];
+
+/** The kinds the audit page filters by. */
+export const AUDIT_KINDS = ["parameter_set", "member", "invitation", "share_link"] as const;
+export type AuditKind = (typeof AUDIT_KINDS)[number];
+
+export const auditQuerySchema = pageQuerySchema.extend({
+  labId: z.uuid({ error: "Choose a lab." }),
+  setId: z.uuid({ error: "Not a parameter set id." }).optional(),
+  actorId: z.uuid({ error: "Not a person's id." }).optional(),
+  kind: z.enum(AUDIT_KINDS, { error: "Unknown kind." }).optional(),
+  from: z.iso.date({ error: "Use a date like 2026-01-31." }).optional(),
+  to: z.iso.date({ error: "Use a date like 2026-01-31." }).optional(),
+});
+
+/** One entry as the audit list answers it. */
+export interface AuditEntry {
+  id: string;
+  /** ISO 8601 */
+  at: string;
+  action: string;
+  actor: { id: string; name: string } | null;
+  targetType: string;
+  targetId: string;
+  details: Record<string, unknown>;
+}

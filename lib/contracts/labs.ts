@@ -1,0 +1,34 @@
+import { z } from "zod";
+import type { UserRef } from "./common";
+import { type LabRole, labRoleSchema } from "./roles";
+import { emailSchema } from "./validation";
+
+/* Labs, their members and invitations: request schemas and answer shapes. */
+
+export const createInvitationSchema = z.object({ email: emailSchema, role: labRoleSchema });
+
+export const changeMemberSchema = z.object({ role: labRoleSchema });
+
+/** A lab with the caller's role in it (GET /api/labs). */
+export interface LabSummary {
+  id: string;
+  name: string;
+  role: LabRole;
+}
+
+export interface MemberSummary {
+  userId: string;
+  email: string;
+  name: string;
+  role: LabRole;
+}
+
+/** A pending invitation to a lab (GET /api/labs/{id}/invitations). */
+export interface InvitationSummary {
+  id: string;
+  email: string;
+  role: LabRole;
+  createdAt: string;
+  expiresAt: string;
+  invitedBy: UserRef | null;
+}
