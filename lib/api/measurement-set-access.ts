@@ -1,16 +1,17 @@
 import "server-only";
 import { findMeasurementSetLabId } from "@/db/queries/measurement-sets";
 import type { LabRole } from "@/lib/contracts/roles";
-import { requireLabRole, type LabAccess } from "@/lib/auth/access";
+import { requireLabRole } from "@/lib/auth/access";
+import { type ResourceAccess } from "@/lib/contracts/access";
 import { type Caller } from "@/lib/contracts/access";
 import { DomainError, notFound } from "@/lib/contracts/errors";
-import { isUuid } from "./ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { StorageError } from "@/lib/storage/object-store";
 
 export const MEASUREMENT_NOT_FOUND = "No such measurement set.";
 
 /** Resolves a set's lab and checks the caller's role there (404 for unknown ids and non-members alike). */
-export async function requireMeasurementSetRole(caller: Caller, id: string, minRole: LabRole): Promise<LabAccess> {
+export async function requireMeasurementSetRole(caller: Caller, id: string, minRole: LabRole): Promise<ResourceAccess> {
   if (!isUuid(id)) throw notFound(MEASUREMENT_NOT_FOUND);
   const labId = await findMeasurementSetLabId({ id });
   if (!labId) throw notFound(MEASUREMENT_NOT_FOUND);

@@ -1,25 +1,20 @@
 import "server-only";
 import { headers as nextHeaders } from "next/headers";
-import type { Caller } from "@/lib/contracts/access";
-import { getLabAccess } from "@/db/queries/labs";
+import { db } from "@/db/client";
+import { findLabMembership, findResourceLabId } from "@/db/queries/resource-labs";
 import { findUserByTokenHash } from "@/db/queries/tokens";
 import { findUserById } from "@/db/queries/users";
-import type { LabRole } from "@/lib/contracts/roles";
+import type { Caller, ResourceAccess, ResourceKind } from "@/lib/contracts/access";
 import { DomainError, forbidden, notFound, unauthenticated } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { type LabRole, roleAtLeast } from "@/lib/contracts/roles";
+import { isUuid } from "@/lib/contracts/validation";
 import { auth } from "./config";
 import { bearerToken, hashToken } from "./tokens";
 
 /*
  * The one authorization module. Route handlers and server actions get the caller here and ask
- * requireLabRole for every lab-scoped resource; nothing else decides who may do what.
+ * authorize() for every lab-scoped resource; nothing else decides who may do what.
  */
-
-const RANK: Record<LabRole, number> = { viewer: 1, editor: 2, owner: 3 };
-
-export function roleAtLeast(role: LabRole, min: LabRole): boolean {
-  return RANK[role] >= RANK[min];
-}
 
 /**
  * The caller from `Authorization: Bearer glx_…` or else the session cookie; null when neither.
@@ -96,29 +91,54 @@ export async function requireCaller(request?: Request): Promise<Caller> {
   return caller;
 }
 
-export interface LabAccess {
-  labId: string;
-  labName: string;
-  /** The caller's effective role; site admins act as owner. */
-  role: LabRole;
-}
+const NOT_FOUND: Record<ResourceKind, string> = {
+  lab: "No such lab.",
+  parameter_set: "No such parameter set.",
+  measurement_set: "No such measurement set.",
+  light_source: "No such light source.",
+  lab_run: "No such run.",
+};
 
 /**
- * Non-member (or unknown/malformed lab id) → 404, so a lab's existence does not leak;
- * member below `minRole` → 403; site admin → owner everywhere.
+ * The one authorization step: resolves the resource to its lab, checks the caller's role there
+ * and returns the proof every lab-scoped query takes. Unknown or malformed ids and labs the caller
+ * is not a member of are all 404 (so a lab's existence does not leak); a member below `minRole`
+ * is 403; a site admin acts as owner everywhere.
  */
+export async function authorize<K extends ResourceKind>(
+  caller: Caller,
+  resource: { kind: K; id: string },
+  minRole: LabRole,
+): Promise<ResourceAccess<K>> {
+  const missing = () => notFound(NOT_FOUND[resource.kind]);
+  if (!isUuid(resource.id)) throw missing();
+  const labId = await findResourceLabId(db, resource);
+  if (!labId) throw missing();
+  const membership = await findLabMembership(db, { labId, userId: caller.id });
+  if (!membership) throw missing();
+  const role: LabRole | null = caller.siteRole === "admin" ? "owner" : membership.role;
+  if (!role) throw missing();
+  if (!roleAtLeast(role, minRole)) throw forbidden(`This needs the ${minRole} role in ${membership.labName}; you are ${role}.`);
+  // The only place a proof is made: the brand cannot be written outside this module.
+  return { caller, kind: resource.kind, id: resource.id, labId, labName: membership.labName, role } as ResourceAccess<K>;
+}
+
+/** authorize() for a lab itself (lists and creations inside a lab). */
+export function authorizeLab(caller: Caller, labId: string, minRole: LabRole): Promise<ResourceAccess<"lab">> {
+  return authorize(caller, { kind: "lab", id: labId }, minRole);
+}
+
+/** Transitional name of authorizeLab while the callers move over; removed once none is left. */
 export async function requireLabRole(
   caller: Caller,
   labId: string,
   minRole: LabRole,
   options: { notFoundMessage?: string } = {},
-): Promise<LabAccess> {
-  const missing = () => notFound(options.notFoundMessage ?? "No such lab.");
-  if (!isUuid(labId)) throw missing();
-  const access = await getLabAccess({ labId, userId: caller.id });
-  if (!access) throw missing();
-  const role: LabRole | null = caller.siteRole === "admin" ? "owner" : access.role;
-  if (!role) throw missing();
-  if (!roleAtLeast(role, minRole)) throw forbidden(`This needs the ${minRole} role in ${access.labName}; you are ${role}.`);
-  return { labId: access.labId, labName: access.labName, role };
+): Promise<ResourceAccess<"lab">> {
+  try {
+    return await authorizeLab(caller, labId, minRole);
+  } catch (error) {
+    if (error instanceof DomainError && error.code === "not_found" && options.notFoundMessage) throw notFound(options.notFoundMessage);
+    throw error;
+  }
 }

@@ -44,6 +44,13 @@ export function jsonProblem(value: unknown, maxDepth: number): string | null {
   return null;
 }
 
+const uuid = z.uuid();
+
+/** Whether a path or query value can be an id at all (a malformed one names nothing: 404, never a SQL cast error). */
+export function isUuid(value: string): boolean {
+  return uuid.safeParse(value).success;
+}
+
 /** A required one-line name: trimmed, not empty, at most `max` characters. */
 export function nameSchema(options: { max: number; missing?: string }) {
   const missing = options.missing ?? "Enter a name.";

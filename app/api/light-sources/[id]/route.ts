@@ -2,7 +2,7 @@ import { deleteLightSource, findLightSourceLabId, getLightSource, updateLightSou
 import type { LabRole } from "@/lib/contracts/roles";
 import { readJson } from "@/lib/api/body";
 import { notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { apiRoute, json, noContent } from "@/lib/api/route";
 import { type Caller } from "@/lib/contracts/access";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";

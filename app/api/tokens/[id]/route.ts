@@ -1,6 +1,6 @@
 import { revokeToken } from "@/db/queries/tokens";
 import { notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { apiRoute, noContent } from "@/lib/api/route";
 import { requireSessionCaller } from "@/lib/auth/access";
 

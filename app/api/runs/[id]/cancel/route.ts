@@ -1,6 +1,6 @@
 import { findRunLabId, getRun, requestCancel } from "@/db/queries/runs";
 import { notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
 import { cancelQueuedJob } from "@/lib/runs/queue";

@@ -2,7 +2,7 @@ import { bumpSessionVersion, findUserById } from "@/db/queries/users";
 import { recordAudit } from "@/db/queries/audit";
 import { db } from "@/db/client";
 import { forbidden, notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { apiRoute, noContent } from "@/lib/api/route";
 import { requireSessionCaller } from "@/lib/auth/access";
 

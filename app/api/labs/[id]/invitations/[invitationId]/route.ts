@@ -1,6 +1,6 @@
 import { revokeInvitation } from "@/db/queries/invitations";
 import { notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { apiRoute, noContent } from "@/lib/api/route";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";
 

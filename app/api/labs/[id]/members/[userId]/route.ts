@@ -2,7 +2,7 @@ import { changeMember } from "@/db/queries/labs";
 import type { LabRole } from "@/lib/contracts/roles";
 import { readJson } from "@/lib/api/body";
 import { DomainError, forbidden, notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { apiRoute, json, noContent } from "@/lib/api/route";
 import { changeMemberSchema } from "@/lib/contracts/labs";
 import { requireCaller, requireLabRole } from "@/lib/auth/access";

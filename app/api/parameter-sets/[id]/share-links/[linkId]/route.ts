@@ -1,6 +1,6 @@
 import { revokeShareLink } from "@/db/queries/share-links";
 import { notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/api/ids";
+import { isUuid } from "@/lib/contracts/validation";
 import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, noContent } from "@/lib/api/route";
 import { requireCaller } from "@/lib/auth/access";
