@@ -1,6 +1,6 @@
 import { randomUUID, createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
-import { uniqueViolation } from "@/lib/api/db-errors";
+import { uniqueViolation } from "@/db/errors";
 import { DomainError } from "@/lib/contracts/errors";
 import type { ColumnMapping, FileDefaults } from "@/lib/measurements/parse";
 import type { MeasuredPoint } from "@/lib/measurements/point";

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, desc, eq, gte, like, lt, sql } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
 import { type Page } from "@/lib/contracts/paging";
 import type { PageQuery } from "@/lib/contracts/paging";
 import { db, type Database } from "../client";

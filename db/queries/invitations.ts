@@ -2,7 +2,7 @@ import "server-only";
 import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
 import type { LabRole } from "@/lib/contracts/roles";
 import type { InvitationSummary } from "@/lib/contracts/labs";
-import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
 import { type Page } from "@/lib/contracts/paging";
 import type { PageQuery } from "@/lib/contracts/paging";
 import { db } from "../client";

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
-import { decodeCursor, offsetCursor, toPage } from "@/lib/api/paging";
+import { decodeCursor, offsetCursor, toPage } from "@/db/paging";
 import { type Page } from "@/lib/contracts/paging";
 import type { PageQuery } from "@/lib/contracts/paging";
 import { db } from "../client";

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import { uniqueViolation } from "@/lib/api/db-errors";
+import { uniqueViolation } from "@/db/errors";
 import { DomainError, notFound, validationError } from "@/lib/contracts/errors";
 import {
   type CreateLightSourceInput,

@@ -1,11 +1,11 @@
 import "server-only";
 import { and, desc, eq, ilike, lt, or, sql, type SQL } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
 import { type Page } from "@/lib/contracts/paging";
 import type { PageQuery } from "@/lib/contracts/paging";
 import { z } from "zod";
 import { alias } from "drizzle-orm/pg-core";
-import { uniqueViolation } from "@/lib/api/db-errors";
+import { uniqueViolation } from "@/db/errors";
 import { DomainError, notFound } from "@/lib/contracts/errors";
 import { zodIssueFields } from "@/lib/contracts/validation";
 import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/contracts/parameter-sets";

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import type { SharedSet, ShareLinkSummary } from "@/lib/contracts/sharing";
-import { decodeCursor, timeIdCursor, toPage } from "@/lib/api/paging";
+import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
 import { type Page } from "@/lib/contracts/paging";
 import type { PageQuery } from "@/lib/contracts/paging";
 import { db } from "../client";

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, isNull, sql } from "drizzle-orm";
-import { uniqueViolation } from "@/lib/api/db-errors";
+import { uniqueViolation } from "@/db/errors";
 import { db } from "../client";
 import { labMemberships, labs, passwordResets, users, type User } from "../schema";
 import { recordAudit } from "./audit";

@@ -1,6 +1,6 @@
 import "server-only";
 import { ZodError } from "zod";
-import { dbErrorSummary, isDbError, isDbUnavailable, isPoolBusy } from "./db-errors";
+import { dbErrorSummary, isDbError, isDbUnavailable, isPoolBusy } from "@/db/errors";
 import { DomainError, validationError } from "@/lib/contracts/errors";
 import { domainErrorResponse } from "./errors";
 

@@ -2,7 +2,7 @@
 
 import { AuthError, CredentialsSignin } from "next-auth";
 import { headers } from "next/headers";
-import { isDbUnavailable } from "@/lib/api/db-errors";
+import { isDbUnavailable } from "@/db/errors";
 import { zodIssueFields } from "@/lib/contracts/validation";
 import { clientIp } from "./client-ip";
 import { signIn, signOut } from "./config";

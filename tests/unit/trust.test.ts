@@ -7,7 +7,7 @@ vi.mock("@/db/client", () => ({ db: {} }));
 const { clientIpFrom, DIRECT_CLIENT } = await import("@/lib/auth/client-ip");
 const { signInWaitFor, FREE_FAILURES, FREE_FAILURES_ANY_ADDRESS } = await import("@/lib/auth/rate-limit");
 const { isStorableText, jsonProblem } = await import("@/lib/contracts/validation");
-const { decodeCursor, encodeCursor, timeIdCursor } = await import("@/lib/api/paging");
+const { decodeCursor, encodeCursor, timeIdCursor } = await import("@/db/paging");
 const { parseMessage } = await import("@/lib/mail/mime");
 const { signUpSchema } = await import("@/lib/contracts/accounts");
 
