@@ -21,7 +21,7 @@ export function parseTags(text: string): string[] {
 }
 
 /*
- * The form's schema is made of the API's own field schemas (lib/api/schemas.ts) and the model's
+ * The form's schema is made of the API's own field schemas (lib/contracts/parameter-sets.ts) and the model's
  * modelParamsSchema, unchanged, so the form enforces exactly the limits the API enforces; only the
  * tag box's text is split into a list first.
  */

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { ScratchWorkbench } from "@/components/workbench/scratch-workbench";
 
-export const metadata: Metadata = { title: "Workbench · Gyrolux" };
+export const metadata: Metadata = { title: "Workbench" };
 
 export default function WorkbenchScratchPage() {
   return <ScratchWorkbench />;

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { SetWorkbench } from "@/components/workbench/set-workbench";
 
-export const metadata: Metadata = { title: "Workbench · Gyrolux" };
+export const metadata: Metadata = { title: "Workbench" };
 
 export default async function WorkbenchSetPage({ params }: { params: Promise<{ setId: string }> }) {
   const { setId } = await params;
