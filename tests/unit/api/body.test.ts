@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { MAX_BODY_BYTES, readJson } from "./body";
-import { ApiError } from "./errors";
+import { MAX_BODY_BYTES, readJson } from "@/lib/api/body";
+import { ApiError } from "@/lib/api/errors";
 
 const schema = z.object({ x: z.number().refine(Number.isFinite, "must be finite") });
 
