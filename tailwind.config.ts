@@ -3,7 +3,7 @@ import type { Config } from "tailwindcss";
 // Tailwind 4 reads this through `@config` in app/globals.css. Our palette: ink (text), paper
 // (surfaces), and two accents used sparingly; plot colours live in lib/workbench/palette.ts.
 // Every text colour reaches 4.5:1 (WCAG 2.x AA) on every surface it may sit on; checked in
-// tests/unit/theme-contrast.test.ts.
+// tests/unit/theme/contrast.test.ts.
 export const themeColors = {
   ink: { DEFAULT: "#1d2433", soft: "#4a5468", faint: "#5c6576" },
   paper: { DEFAULT: "#fbfaf7", raised: "#ffffff", sunk: "#f1efe9" },

@@ -1,15 +1,27 @@
 import { defineConfig } from "vitest/config";
 
-// Unit tests (*.test.ts) and API/database tests (*.integ.test.ts). Browser specs (*.e2e.ts) run
-// through tests/e2e/run.ts against a production build, not here.
+// Two projects: unit tests (tests/unit, nothing but the code) and API/database tests
+// (tests/integration, HTTP against the server scripts/test.sh starts). `npm run test:unit` runs
+// the first alone; `npx vitest run` runs both, and the integration project refuses to start without
+// a server rather than passing while testing nothing. Browser specs (*.e2e.ts) have their own
+// config, vitest.e2e.config.mts.
 export default defineConfig({
   resolve: { tsconfigPaths: true },
   test: {
-    include: ["tests/**/*.test.ts", "lib/**/*.test.ts"],
-    exclude: ["**/node_modules/**", "tests/e2e/**"],
     environment: "node",
     pool: "forks",
     testTimeout: 60_000,
     hookTimeout: 120_000,
+    projects: [
+      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.ts"] } },
+      {
+        extends: true,
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.integ.test.ts"],
+          globalSetup: ["tests/integration/require-server.ts"],
+        },
+      },
+    ],
   },
 });

@@ -20,6 +20,11 @@ export const OTHER_LAB = {
   name: "Blackfen Optics Lab",
 } as const;
 
+/** The demo lab's terbium gallium garnet set, the one tests and links open. */
+export const DEMO_GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
+/** The other lab's set, which members of the demo lab must not see. */
+export const OTHER_LAB_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c005";
+
 export interface DemoUser {
   id: string;
   email: string;
@@ -142,7 +147,7 @@ const ceriumGlass: ModelParams = {
 
 export const DEMO_SETS: DemoSet[] = [
   {
-    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c001",
+    id: DEMO_GARNET_SET_ID,
     labId: DEMO_LAB.id,
     versions: [
       {
@@ -238,7 +243,7 @@ export const DEMO_SETS: DemoSet[] = [
     ],
   },
   {
-    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c005",
+    id: OTHER_LAB_SET_ID,
     labId: OTHER_LAB.id,
     versions: [
       {

@@ -7,7 +7,7 @@
  */
 import { fitMeasurements } from "../lib/fit/fit";
 import { TERBIUM_GARNET_DEFAULTS } from "../lib/model/defaults";
-import { seededGaussian, syntheticPoints, verdetAt } from "../tests/unit/fit-support";
+import { seededGaussian, syntheticPoints, verdetAt } from "../tests/unit/fit/support";
 
 const start = { ...TERBIUM_GARNET_DEFAULTS, temperatureK: 293.15, fieldT: 1, lengthM: 0.01 };
 const truth = { ...start, gyrationPerT: 5.0e-3, oscillatorWavelengthNm: 270, magneticScale: 3 };

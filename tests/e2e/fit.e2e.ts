@@ -1,7 +1,8 @@
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import { DEMO_LAB } from "@/db/demo-data";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * The fit end to end, as an editor of the demo lab: on a parameter set of the test's own, choose
@@ -10,24 +11,19 @@ import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support
  * find it in the version history as "from a fit".
  */
 
-const DEMO_LAB_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000a001";
 const GARNET_SET_NAME = /Garnet rod LM-T4/;
 const TIMEOUT = 120_000;
 
 describe("fit in the workbench", () => {
-  let browser: Browser;
-  let context: BrowserContext;
+  const browser = useBrowser();
   let page: Page;
   let setId: string;
 
   beforeAll(async () => {
-    browser = await launchBrowser();
-    context = await newContext(browser);
-    page = await context.newPage();
-    await signInAs(page, DEMO.editor);
+    page = await browser.signedInPage("editor");
     const created = await page.request.post("/api/parameter-sets", {
       data: {
-        labId: DEMO_LAB_ID,
+        labId: DEMO_LAB.id,
         name: `Fit browser test ${Date.now().toString(36)}`,
         description: "created by the fit browser test",
         tags: [],
@@ -37,11 +33,6 @@ describe("fit in the workbench", () => {
     expect(created.status()).toBe(201);
     setId = (await created.json()).item.id;
   }, TIMEOUT);
-
-  afterAll(async () => {
-    await context?.close();
-    await browser?.close();
-  });
 
   it("fits the demo measurement set, shows values ± σ and the share per point, and saves a new version", async () => {
     await page.goto(`/workbench/${setId}`);

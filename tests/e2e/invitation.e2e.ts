@@ -1,8 +1,9 @@
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { DEMO_GARNET_SET_ID, DEMO_LAB } from "@/db/demo-data";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * Sharing through the browser: the lab owner invites someone by e-mail, the test opens the link
@@ -10,7 +11,7 @@ import { BASE_URL, DEMO, launchBrowser, newContext, outputPath, signInAs } from 
  * sees the lab. Then an editor makes a read-only share link that works signed out.
  */
 
-const LAB_NAME = "Lindqvist Moor Faraday Laboratory";
+const LAB_NAME = DEMO_LAB.name;
 const MAIL_DIR = process.env.GYROLUX_MAIL_DIR ?? `/tmp/gyrolux-mail-${process.env.GYROLUX_SMTP_PORT ?? "2525"}`;
 
 async function mailLink(to: string, prefix: string): Promise<string> {
@@ -35,24 +36,13 @@ class LabPage {
 }
 
 describe("invitations and share links in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it("the owner invites, the invitee signs up from the e-mail, accepts and sees the lab", async () => {
     const email = `invitee-${Date.now()}@e2e.gyrolux.test`;
-    const ownerContext = await newContext(browser);
-    const owner = await ownerContext.newPage();
-    const inviteeContext = await newContext(browser);
-    const invitee = await inviteeContext.newPage();
+    const owner = await browser.signedInPage("owner");
+    const invitee = await browser.guestPage();
     try {
-      await signInAs(owner, DEMO.owner);
       await owner.goto("/lab");
       const lab = new LabPage(owner);
       await lab.inviteForm.getByLabel("E-mail address").fill(email);
@@ -83,23 +73,20 @@ describe("invitations and share links in the browser", () => {
       await invitee.goto(link);
       await invitee.getByText("This invitation has already been used.").waitFor();
     } finally {
-      await ownerContext.close();
-      await inviteeContext.close();
+      await owner.context().close();
+      await invitee.context().close();
     }
   });
 
   it("an editor's share link opens the read-only workbench signed out, and stops when revoked", async () => {
-    const editorContext = await newContext(browser);
-    const editor = await editorContext.newPage();
-    const guestContext = await browser.newContext({ baseURL: BASE_URL, viewport: { width: 390, height: 844 } });
-    const guest = await guestContext.newPage();
+    const editor = await browser.signedInPage("editor");
+    const guest = await browser.guestPage({ context: { viewport: { width: 390, height: 844 } } });
     const problems: string[] = [];
     guest.on("console", (message) => {
       if (message.type() === "error") problems.push(message.text());
     });
     try {
-      await signInAs(editor, DEMO.editor);
-      await editor.goto("/parameter-sets/6a1f0c2e-5b1d-4c1e-9f00-00000000c001");
+      await editor.goto(`/parameter-sets/${DEMO_GARNET_SET_ID}`);
       await editor.getByRole("button", { name: "Make a share link" }).click();
       const url = await editor.getByLabel("New share link").inputValue();
       const sharedPath = new URL(url).pathname;
@@ -123,8 +110,8 @@ describe("invitations and share links in the browser", () => {
       const gone = await guest.goto(sharedPath);
       expect(gone?.status()).toBe(404);
     } finally {
-      await editorContext.close();
-      await guestContext.close();
+      await editor.context().close();
+      await guest.context().close();
     }
   });
 });

@@ -1,7 +1,8 @@
 import { readFileSync } from "node:fs";
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import { DEMO_GARNET_SET_ID } from "@/db/demo-data";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * Lab runs in the browser, as the demo lab's editor: submit a numerical map from the workbench to
@@ -9,24 +10,14 @@ import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support
  * the runs page, and open the finished map with its exports.
  */
 
-const DEMO_GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
 const TIMEOUT = 150_000;
 
 describe("lab runs", () => {
-  let browser: Browser;
-  let context: BrowserContext;
+  const browser = useBrowser();
   let page: Page;
 
   beforeAll(async () => {
-    browser = await launchBrowser();
-    context = await newContext(browser);
-    page = await context.newPage();
-    await signInAs(page, DEMO.editor);
-  });
-
-  afterAll(async () => {
-    await context?.close();
-    await browser?.close();
+    page = await browser.signedInPage("editor");
   });
 
   it("submits a numerical map from the workbench, shows its progress, and opens the result", async () => {

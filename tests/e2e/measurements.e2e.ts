@@ -1,8 +1,9 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import { DEMO_GARNET_SET_ID } from "@/db/demo-data";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * Measurements end to end, as an editor of the demo lab: upload the demo measurement file, check
@@ -11,23 +12,14 @@ import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support
  */
 
 const DEMO_FILE = path.resolve(import.meta.dirname, "../../db/demo/generated-garnet-LM-T4-verdet.csv");
-const GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
 const NAME = `Browser upload ${Date.now().toString(36)}`;
 
 describe("measurements in the browser", () => {
-  let browser: Browser;
-  let context: BrowserContext;
+  const browser = useBrowser();
   let page: Page;
 
   beforeAll(async () => {
-    browser = await launchBrowser();
-    context = await newContext(browser);
-    page = await context.newPage();
-    await signInAs(page, DEMO.editor);
-  });
-
-  afterAll(async () => {
-    await browser?.close();
+    page = await browser.signedInPage("editor");
   });
 
   it("uploads the demo file with a changed mapping and shows it in the lab's table", async () => {
@@ -66,7 +58,7 @@ describe("measurements in the browser", () => {
   });
 
   it("overlays the uploaded points with error bars on the workbench spectrum", async () => {
-    await page.goto(`/workbench/${GARNET_SET_ID}`);
+    await page.goto(`/workbench/${DEMO_GARNET_SET_ID}`);
     const picker = page.getByRole("region", { name: "Measured data on the plot" });
     await picker.waitFor({ timeout: 120_000 });
     await picker.getByRole("checkbox", { name: new RegExp(NAME) }).check();

@@ -1,7 +1,7 @@
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { NAV_ITEMS } from "@/components/shell/nav-links";
-import { DEMO, launchBrowser, outputPath, signInAs, BASE_URL } from "./support";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * The product on a 390 px wide phone: every rail page is reachable through the menu (by pointer
@@ -16,20 +16,11 @@ async function horizontalOverflow(page: Page): Promise<number> {
 }
 
 describe("390 px wide", () => {
-  let browser: Browser;
-  let context: BrowserContext;
+  const browser = useBrowser();
   let page: Page;
 
   beforeAll(async () => {
-    browser = await launchBrowser();
-    context = await browser.newContext({ baseURL: BASE_URL, viewport: { width: WIDTH, height: 844 }, isMobile: true, hasTouch: true });
-    page = await context.newPage();
-    await signInAs(page, DEMO.owner);
-  });
-
-  afterAll(async () => {
-    await context?.close();
-    await browser?.close();
+    page = await browser.signedInPage("owner", { context: { viewport: { width: WIDTH, height: 844 }, isMobile: true, hasTouch: true } });
   });
 
   it("reaches every rail page through the menu, and Escape closes it", async () => {

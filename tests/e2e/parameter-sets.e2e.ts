@@ -1,6 +1,6 @@
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * Parameter sets through the browser: an editor creates, edits, compares and restores a set; a
@@ -23,22 +23,12 @@ class SetPage {
 }
 
 describe("parameter sets in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it("lets an editor create, edit, compare and restore a set", async () => {
-    const context = await newContext(browser);
-    const page = await context.newPage();
+    const page = await browser.signedInPage("editor");
     const set = new SetPage(page);
     try {
-      await signInAs(page, DEMO.editor);
       await page.goto("/parameter-sets");
       await page.getByRole("link", { name: "New parameter set" }).click();
       await page.waitForURL("**/parameter-sets/new");
@@ -79,15 +69,13 @@ describe("parameter sets in the browser", () => {
       await page.screenshot({ path: outputPath("parameter-sets-editor-failure.png"), fullPage: true });
       throw error;
     } finally {
-      await context.close();
+      await page.context().close();
     }
   });
 
   it("shows a viewer the values without any edit control", async () => {
-    const context = await newContext(browser);
-    const page = await context.newPage();
+    const page = await browser.signedInPage("viewer");
     try {
-      await signInAs(page, DEMO.viewer);
       await page.goto("/parameter-sets");
       await page.getByRole("table").getByRole("link").first().click();
       await page.waitForURL(SET_URL);
@@ -103,7 +91,7 @@ describe("parameter sets in the browser", () => {
       await page.screenshot({ path: outputPath("parameter-sets-viewer-failure.png"), fullPage: true });
       throw error;
     } finally {
-      await context.close();
+      await page.context().close();
     }
   });
 });

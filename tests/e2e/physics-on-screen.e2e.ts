@@ -1,6 +1,6 @@
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * Physics on the scratch workbench (terbium garnet defaults, 300–3000 nm, 10 mm): the opaque
@@ -12,20 +12,11 @@ import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support
 const RUN_TIMEOUT = 120_000;
 
 describe("physics on screen", () => {
-  let browser: Browser;
-  let context: BrowserContext;
+  const browser = useBrowser();
   let page: Page;
 
   beforeAll(async () => {
-    browser = await launchBrowser();
-    context = await newContext(browser);
-    page = await context.newPage();
-    await signInAs(page, DEMO.editor);
-  });
-
-  afterAll(async () => {
-    await context?.close();
-    await browser?.close();
+    page = await browser.signedInPage("editor");
   });
 
   it("absorption, map independence, the diamagnetic switch and a stale spin trace", async () => {

@@ -1,6 +1,7 @@
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { DEMO_GARNET_SET_ID } from "@/db/demo-data";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * The planner through the browser: an editor opens the planner on a demo set, runs it, sees a
@@ -8,7 +9,6 @@ import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support
  * in the workbench as markers and opens the printable report. Runs against a seeded server.
  */
 
-const DEMO_GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
 const RUN_TIMEOUT = 120_000;
 
 class PlannerPage {
@@ -28,22 +28,12 @@ class PlannerPage {
 }
 
 describe("planner in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it("runs, ranks, shows cautions, saves, opens the plan in the workbench and prints a report", async () => {
-    const context = await newContext(browser);
-    const page = await context.newPage();
+    const page = await browser.signedInPage("editor");
     const planner = new PlannerPage(page);
     try {
-      await signInAs(page, DEMO.editor);
       await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
       await page.getByText(/Planning for/).waitFor({ timeout: 30_000 });
       // The demo lab's lines are offered.
@@ -105,15 +95,13 @@ describe("planner in the browser", () => {
       expect(pdf.subarray(0, 4).toString()).toBe("%PDF");
       await page.screenshot({ path: outputPath("planner-report-print.png"), fullPage: true });
     } finally {
-      await context.close();
+      await page.context().close();
     }
   });
 
   it("cancels a long search and keeps the page usable", async () => {
-    const context = await newContext(browser);
-    const page = await context.newPage();
+    const page = await browser.signedInPage("viewer");
     try {
-      await signInAs(page, DEMO.viewer);
       await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
       await page.getByLabel(/Nd:YAG “Old Faithful” \(1064 nm\)/).waitFor({ timeout: 30_000 });
       // A fine grid: thousands of candidates, a greedy search of several seconds.
@@ -129,16 +117,14 @@ describe("planner in the browser", () => {
       expect(await page.getByRole("form", { name: "Add a light source" }).count()).toBe(0);
       expect(await page.getByText("Editors of the lab can add and remove lines.").count()).toBe(1);
     } finally {
-      await context.close();
+      await page.context().close();
     }
   });
 
   it("fits a 390 px wide screen with a ranked plan on it", async () => {
-    const context = await newContext(browser);
-    const page = await context.newPage();
+    const page = await browser.signedInPage("viewer");
     try {
       await page.setViewportSize({ width: 390, height: 844 });
-      await signInAs(page, DEMO.viewer);
       await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
       await page.getByLabel(/Nd:YAG “Old Faithful” \(1064 nm\)/).waitFor({ timeout: 30_000 });
       await page.getByLabel("Points you can afford").fill("3");
@@ -148,7 +134,7 @@ describe("planner in the browser", () => {
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
       await page.screenshot({ path: outputPath("planner-390.png"), fullPage: true });
     } finally {
-      await context.close();
+      await page.context().close();
     }
   });
 });

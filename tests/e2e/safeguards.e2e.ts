@@ -1,8 +1,9 @@
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { DEMO_LAB, DEMO_SETS, OTHER_LAB } from "@/db/demo-data";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { DemoAccount } from "../demo-accounts";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * What keeps a user's work and trust: unsaved edits survive a click in the rail or Back unless the
@@ -44,32 +45,22 @@ async function getSet(page: Page, id: string): Promise<ApiSet> {
 }
 
 describe("safeguards in the browser", () => {
-  let browser: Browser;
+  const browser = useBrowser();
 
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
-
-  async function withPage(user: string, shot: string, body: (page: Page, context: BrowserContext) => Promise<void>): Promise<void> {
-    const context = await newContext(browser);
-    const page = await context.newPage();
+  async function withPage(account: DemoAccount, shot: string, body: (page: Page) => Promise<void>): Promise<void> {
+    const page = await browser.signedInPage(account);
     try {
-      await signInAs(page, user);
-      await body(page, context);
+      await body(page);
     } catch (error) {
       await page.screenshot({ path: outputPath(`${shot}-failure.png`), fullPage: true });
       throw error;
     } finally {
-      await context.close();
+      await page.context().close();
     }
   }
 
   it("asks before a rail link or Back discards unsaved edits, and stays when the user cancels", async () => {
-    await withPage(DEMO.editor, "unsaved-guard", async (page) => {
+    await withPage("editor", "unsaved-guard", async (page) => {
       await page.goto("/parameter-sets");
       const set = await createSet(page, `Guard test ${Date.now()}`);
       await page.goto(`/parameter-sets/${set.id}`);
@@ -118,7 +109,7 @@ describe("safeguards in the browser", () => {
   });
 
   it("brings an edit conflict into view and saves only this user's changes on top of the newer version", async () => {
-    await withPage(DEMO.editor, "conflict-merge", async (page) => {
+    await withPage("editor", "conflict-merge", async (page) => {
       await page.setViewportSize({ width: 1280, height: 700 });
       await page.goto("/parameter-sets");
       const set = await createSet(page, `Conflict test ${Date.now()}`);
@@ -175,7 +166,7 @@ describe("safeguards in the browser", () => {
   });
 
   it("explains bad input: long tags, Not a number, a decimal comma, scientific values", async () => {
-    await withPage(DEMO.editor, "form-input", async (page) => {
+    await withPage("editor", "form-input", async (page) => {
       await page.setViewportSize({ width: 1280, height: 900 });
       await page.goto("/parameter-sets/new");
       const tags = page.getByLabel("Tags", { exact: true });
@@ -208,7 +199,7 @@ describe("safeguards in the browser", () => {
   });
 
   it("offers a viewer no save that would fail, and shows another lab's set as not found", async () => {
-    await withPage(DEMO.viewer, "viewer", async (page) => {
+    await withPage("viewer", "viewer", async (page) => {
       await page.goto("/workbench", { timeout: 120_000 });
       await page.getByRole("heading", { level: 1 }).waitFor({ timeout: 60_000 });
       // The labs load before the button would appear; give them the time, then expect none.
@@ -232,7 +223,7 @@ describe("safeguards in the browser", () => {
   });
 
   it("asks before changing a member's role and keeps it when cancelled", async () => {
-    await withPage(DEMO.owner, "role-change", async (page) => {
+    await withPage("owner", "role-change", async (page) => {
       await page.goto("/lab");
       const select = page.getByLabel(/^Role of /).first();
       await select.waitFor({ timeout: 30_000 });
@@ -248,7 +239,7 @@ describe("safeguards in the browser", () => {
   });
 
   it("checks the name in Save as new as it is typed, so no stale message stays", async () => {
-    await withPage(DEMO.editor, "save-as-new", async (page) => {
+    await withPage("editor", "save-as-new", async (page) => {
       await page.goto("/workbench", { timeout: 120_000 });
       await page.getByRole("button", { name: "Save as new parameter set" }).click({ timeout: 60_000 });
       const form = page.getByRole("form", { name: "Save as new parameter set" });
@@ -263,7 +254,7 @@ describe("safeguards in the browser", () => {
   });
 
   it("creates a set from the form without asking to leave", async () => {
-    await withPage(DEMO.editor, "create-no-guard", async (page) => {
+    await withPage("editor", "create-no-guard", async (page) => {
       await page.goto("/parameter-sets/new");
       const name = page.getByLabel("Name", { exact: true });
       await name.waitFor({ timeout: 30_000 });

@@ -1,51 +1,73 @@
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import { mkdirSync } from "node:fs";
+import { existsSync, mkdirSync } from "node:fs";
 import path from "node:path";
+import type { Browser, BrowserContextOptions, Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
+import { DEMO, type DemoAccount } from "../demo-accounts";
+import { CONTEXT_DEFAULTS, launchBrowser, SESSION_DIR, signInThroughForm } from "./browser";
 
-/** Base URL of the server under test; localhost, not 127.0.0.1 (Next rewrites 127.x hosts). */
-export const BASE_URL = process.env.GYROLUX_TEST_BASE_URL ?? "http://localhost:3100";
+export { BASE_URL, outputPath } from "./browser";
 
-/** Where screenshots and downloads go. */
-export const OUTPUT_DIR = path.resolve(process.env.GYROLUX_TEST_OUTPUT ?? "test-results");
-
-export const DEMO_PASSWORD = "gyrolux-demo";
-export const DEMO = {
-  owner: "lead@demo.gyrolux.test",
-  editor: "postdoc@demo.gyrolux.test",
-  viewer: "student@demo.gyrolux.test",
-} as const;
-
-const CHROMIUM_PATH = process.env.GYROLUX_CHROMIUM ?? "/usr/bin/chromium";
-
-// Flags that keep Debian's Chromium quiet on a machine without outside network (stack notes).
-const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-];
-
-export async function launchBrowser(): Promise<Browser> {
-  return chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS, headless: true });
+export interface PageOptions {
+  /** Context options over the desktop defaults (a phone's viewport, touch). */
+  context?: BrowserContextOptions;
+  /** A script run in every document before the page's own (probes a test reads back). */
+  initScript?: string;
 }
 
-export async function newContext(browser: Browser): Promise<BrowserContext> {
-  return browser.newContext({ baseURL: BASE_URL, viewport: { width: 1440, height: 900 }, acceptDownloads: true });
+export interface BrowserFixture {
+  /** A page in a new context that holds the account's stored session: signed in, no form filled. */
+  signedInPage(account: DemoAccount, options?: PageOptions): Promise<Page>;
+  /** A page in a new context signed in as nobody. */
+  guestPage(options?: PageOptions): Promise<Page>;
 }
 
-/** Signs in through the real sign-in form and waits for the signed-in shell. */
-export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
-  await page.goto("/sign-in");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(password);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 30_000 });
+/**
+ * One Chromium for the calling test file: launched before its tests and closed after them, with
+ * every context it opened. Call it once, at the top of the file's describe.
+ */
+export function useBrowser(): BrowserFixture {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  const launched = (): Browser => {
+    if (!browser) throw new Error("Chromium is launched in beforeAll: open pages in a hook or a test");
+    return browser;
+  };
+  async function open(storageState: string | undefined, options: PageOptions = {}): Promise<Page> {
+    const context = await launched().newContext({ ...CONTEXT_DEFAULTS, ...options.context, storageState });
+    if (options.initScript) await context.addInitScript({ content: options.initScript });
+    return context.newPage();
+  }
+
+  return {
+    async signedInPage(account, options) {
+      return open(await storedSession(launched(), account), options);
+    },
+    guestPage(options) {
+      return open(undefined, options);
+    },
+  };
 }
 
-export function outputPath(name: string): string {
-  mkdirSync(OUTPUT_DIR, { recursive: true });
-  return path.join(OUTPUT_DIR, name);
+/**
+ * The file holding the account's session. The first file of a run that asks for the account signs
+ * it in through the sign-in form; later files (one at a time, vitest.e2e.config.mts) reuse it.
+ */
+async function storedSession(browser: Browser, account: DemoAccount): Promise<string> {
+  const file = path.join(SESSION_DIR, `${account}.json`);
+  if (existsSync(file)) return file;
+  mkdirSync(SESSION_DIR, { recursive: true });
+  const context = await browser.newContext(CONTEXT_DEFAULTS);
+  try {
+    await signInThroughForm(await context.newPage(), DEMO[account]);
+    await context.storageState({ path: file });
+  } finally {
+    await context.close();
+  }
+  return file;
 }

@@ -1,7 +1,7 @@
-import type { Browser, BrowserContext, Locator, Page } from "playwright-core";
+import type { Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * The workbench's view, as an editor on a set this test creates: zoom and pan with a y range that
@@ -33,8 +33,7 @@ const domainOf = async (plot: Locator, axis: "x" | "y"): Promise<[number, number
 };
 
 describe("workbench view", () => {
-  let browser: Browser;
-  let context: BrowserContext;
+  const browser = useBrowser();
   let page: Page;
   let setId: string;
 
@@ -53,11 +52,9 @@ describe("workbench view", () => {
   }
 
   beforeAll(async () => {
-    browser = await launchBrowser();
-    context = await newContext(browser);
-    await context.addInitScript({ content: INIT_SCRIPT });
-    page = await context.newPage();
-    await signInAs(page, DEMO.editor);
+    page = await browser.signedInPage("editor", { initScript: INIT_SCRIPT });
+    // The set is made through the API from a page of the app, where the session cookie applies.
+    await page.goto("/parameter-sets");
     const name = `View test ${Date.now().toString(36)}-${process.pid}`;
     setId = await page.evaluate(
       async ({ name, params }) => {
@@ -78,8 +75,6 @@ describe("workbench view", () => {
 
   afterAll(async () => {
     if (setId && page) await page.evaluate((id) => fetch(`/api/parameter-sets/${id}`, { method: "DELETE" }), setId).catch(() => undefined);
-    await context?.close();
-    await browser?.close();
   });
 
   it("zooms, pans and resets, fitting the y range to the visible window", async () => {

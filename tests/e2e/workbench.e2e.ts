@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
-import type { Browser, BrowserContext, Locator, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO, launchBrowser, newContext, outputPath, signInAs } from "./support";
+import type { Locator, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import { outputPath, useBrowser } from "./support";
 
 /*
  * The workbench end to end, as an editor of the demo lab: open the terbium gallium garnet set,
@@ -93,23 +93,13 @@ class WorkbenchPage {
 }
 
 describe("workbench", () => {
-  let browser: Browser;
-  let context: BrowserContext;
+  const browser = useBrowser();
   let page: Page;
   let wb: WorkbenchPage;
 
   beforeAll(async () => {
-    browser = await launchBrowser();
-    context = await newContext(browser);
-    await context.addInitScript({ content: INIT_SCRIPT });
-    page = await context.newPage();
+    page = await browser.signedInPage("editor", { initScript: INIT_SCRIPT });
     wb = new WorkbenchPage(page);
-    await signInAs(page, DEMO.editor);
-  });
-
-  afterAll(async () => {
-    await context?.close();
-    await browser?.close();
   });
 
   it("runs, restarts, cancels and exports without blocking the main thread", async () => {

@@ -1,5 +1,5 @@
-import { beforeAll, expect, it } from "vitest";
-import { Client, DEMO, DEMO_LAB_ID, createSet, describeHttp, signIn, validParams } from "./support";
+import { beforeAll, describe, expect, it } from "vitest";
+import { type Client, DEMO, DEMO_LAB_ID, createSet, signIn, validParams } from "./support";
 
 /** A save body as the workbench sends it after a fit (values invented for the test). */
 let measurementSet = { id: "", name: "" };
@@ -28,7 +28,7 @@ const fitBody = (
   },
 });
 
-describeHttp("saving a fit as a version", () => {
+describe("saving a fit as a version", () => {
   let editor: Client;
   let viewer: Client;
   let outsider: Client;

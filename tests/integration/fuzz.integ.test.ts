@@ -1,5 +1,5 @@
-import { expect, it } from "vitest";
-import { Client, createSet, describeHttp, signUp, uniqueEmail, validParams } from "./support";
+import { describe, expect, it } from "vitest";
+import { Client, createSet, signUp, uniqueEmail, validParams } from "./support";
 import { seededRandom } from "@/lib/random";
 
 /*
@@ -128,7 +128,7 @@ async function send(client: Client, request: FuzzRequest): Promise<number> {
   }
 }
 
-describeHttp("fuzzing the mutating routes", () => {
+describe("fuzzing the mutating routes", () => {
   it("no 5xx and no change from any refused request", { timeout: 900_000 }, async () => {
     const account = await signUp({ name: "Fuzz Owner" });
     const owner = account.client;
@@ -137,7 +137,9 @@ describeHttp("fuzzing the mutating routes", () => {
     const snapshot = async () => ({
       set: (await owner.get(`/api/parameter-sets/${set.id}`)).body.item,
       versions: (await owner.get(`/api/parameter-sets/${set.id}/versions?limit=200`)).body.items.length,
-      sets: (await owner.get(`/api/parameter-sets?labId=${account.labId}&limit=200`)).body.items.map((s: any) => `${s.id}:${s.version}`),
+      sets: (await owner.get(`/api/parameter-sets?labId=${account.labId}&limit=200`)).body.items.map(
+        (s: { id: string; version: number }) => `${s.id}:${s.version}`,
+      ),
       members: (await owner.get(`/api/labs/${account.labId}/members?limit=200`)).body.items,
       invitations: (await owner.get(`/api/labs/${account.labId}/invitations?limit=200`)).body.items.length,
       tokens: (await owner.get("/api/tokens?limit=200")).body.items.length,

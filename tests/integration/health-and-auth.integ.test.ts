@@ -1,7 +1,7 @@
-import { expect, it } from "vitest";
-import { Client, DEMO_GARNET_SET_ID, DEMO_LAB_ID, describeHttp } from "./support";
+import { describe, expect, it } from "vitest";
+import { Client, DEMO_GARNET_SET_ID, DEMO_LAB_ID } from "./support";
 
-describeHttp("health", () => {
+describe("health", () => {
   it("reports the database as up", async () => {
     const response = await new Client().get("/api/health");
     expect(response.status).toBe(200);
@@ -9,7 +9,7 @@ describeHttp("health", () => {
   });
 });
 
-describeHttp("signed-out callers", () => {
+describe("signed-out callers", () => {
   const anonymous = new Client();
   const routes: [string, string][] = [
     ["GET", "/api/labs"],

@@ -1,10 +1,10 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import pg from "pg";
-import { afterAll, beforeAll, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { computeRunInProcess, type RunSpec } from "@/lib/runs/kinds";
 import { computeSpectrumArrays } from "@/lib/physics/spectrum";
 import { wavelengthGrid } from "@/lib/workbench/units";
-import { Client, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, OTHER_LAB_ID, describeHttp, signIn, validParams } from "./support";
+import { type Client, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, OTHER_LAB_ID, signIn, validParams } from "./support";
 
 /*
  * Lab runs end to end: the API queues a job on pg-boss, worker processes started here (the built
@@ -98,7 +98,7 @@ function expectBitIdentical(got: Record<string, (number | null)[]>, want: Record
   }
 }
 
-describeHttp("lab runs on the job queue", () => {
+describe("lab runs on the job queue", () => {
   let editor: Client;
   let viewer: Client;
   let outsider: Client;

@@ -3,14 +3,15 @@ import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import path from "node:path";
 import { eq } from "drizzle-orm";
-import { afterAll, beforeAll, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createDb, createPool } from "@/db/connection";
+import { DEMO_MEASUREMENT_SETS } from "@/db/demo-measurements";
 import { importMeasurementSet } from "@/db/measurement-import";
 import { auditLog, measurementSets, users } from "@/db/schema";
 import { parseMeasurementTable, proposeMapping, readTable } from "@/lib/measurements/parse";
 import { createObjectStore } from "@/lib/storage/object-store";
 import { storageEnvSchema } from "@/lib/storage/settings";
-import { Client, DEMO, DEMO_LAB_ID, describeHttp, signIn, uniqueName } from "./support";
+import { Client, DEMO, DEMO_LAB_ID, type JsonBody, signIn, uniqueName } from "./support";
 
 /*
  * Measurement sets over HTTP against the running server, plus the import's failure paths run
@@ -20,7 +21,7 @@ import { Client, DEMO, DEMO_LAB_ID, describeHttp, signIn, uniqueName } from "./s
 
 const DEMO_FILE = path.resolve(import.meta.dirname, "../../db/demo/generated-garnet-LM-T4-verdet.csv");
 const HEADER = "wavelength_nm,verdet_rad_per_T_m,sigma,temperature_K,field_T,length_m";
-const DEMO_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000d001";
+const DEMO_SET_ID = DEMO_MEASUREMENT_SETS.find((set) => set.file === path.basename(DEMO_FILE))!.id;
 
 const store = createObjectStore(storageEnvSchema.parse(process.env));
 const pool = createPool({ url: process.env.DATABASE_URL ?? "", max: 2 });
@@ -52,10 +53,10 @@ async function upload(
   form.set("defaults", JSON.stringify(options.defaults ?? {}));
   const response = await client.raw("POST", "/api/measurement-sets", { body: form });
   const body = (response.headers.get("content-type") ?? "").includes("json") ? await response.json() : await response.text();
-  return { status: response.status, body: body as any };
+  return { status: response.status, body: body as JsonBody };
 }
 
-describeHttp("measurement sets", () => {
+describe("measurement sets", () => {
   let editor: Client;
   let viewer: Client;
   let outsider: Client;
@@ -140,7 +141,7 @@ describeHttp("measurement sets", () => {
     const one = await viewer.get(`/api/measurement-sets/${item.id}`);
     expect(one.body.item).toMatchObject({ id: item.id, role: "viewer", rowCount: 24 });
     const found = await viewer.get(`/api/measurement-sets?labId=${DEMO_LAB_ID}&q=${encodeURIComponent(name)}`);
-    expect(found.body.items.map((s: any) => s.id)).toEqual([item.id]);
+    expect(found.body.items.map((s: { id: string }) => s.id)).toEqual([item.id]);
 
     const again = await upload(editor, { bytes, fileName: safeName("same-name"), name });
     expect(again.status).toBe(409);
@@ -195,7 +196,7 @@ describeHttp("measurement sets", () => {
     }
     expect((await outsider.delete(`/api/measurement-sets/${DEMO_SET_ID}`)).status).toBe(404);
     expect((await outsider.get(`/api/measurement-sets?labId=${DEMO_LAB_ID}`)).status).toBe(404);
-    expect((await outsider.get("/api/measurement-sets")).body.items.map((s: any) => s.id)).not.toContain(DEMO_SET_ID);
+    expect((await outsider.get("/api/measurement-sets")).body.items.map((s: { id: string }) => s.id)).not.toContain(DEMO_SET_ID);
     expect((await upload(outsider, { bytes: readFileSync(DEMO_FILE), fileName: safeName("outsider") })).status).toBe(404);
     expect((await new Client().get("/api/measurement-sets")).status).toBe(401);
   });
@@ -216,7 +217,7 @@ describeHttp("measurement sets", () => {
   });
 });
 
-describeHttp("measurement import as one unit", () => {
+describe("measurement import as one unit", () => {
   const text = readFileSync(DEMO_FILE, "utf8");
   const mapping = proposeMapping(readTable(text).headers);
   const { points } = parseMeasurementTable(text, mapping);

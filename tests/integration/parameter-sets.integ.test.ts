@@ -1,7 +1,7 @@
-import { beforeAll, expect, it } from "vitest";
-import { Client, DEMO, DEMO_LAB_ID, createSet, describeHttp, signIn, uniqueName, validParams } from "./support";
+import { beforeAll, describe, expect, it } from "vitest";
+import { type Client, DEMO, DEMO_LAB_ID, createSet, signIn, uniqueName, validParams } from "./support";
 
-describeHttp("parameter sets: lifecycle", () => {
+describe("parameter sets: lifecycle", () => {
   let editor: Client;
   let viewer: Client;
 
@@ -38,7 +38,7 @@ describeHttp("parameter sets: lifecycle", () => {
     expect(fetched.body.item).toMatchObject({ id: item.id, name, role: "viewer" });
 
     const listed = await viewer.get(`/api/parameter-sets?labId=${DEMO_LAB_ID}&q=${encodeURIComponent(name)}`);
-    expect(listed.body.items.map((s: any) => s.id)).toEqual([item.id]);
+    expect(listed.body.items.map((s: { id: string }) => s.id)).toEqual([item.id]);
     expect(listed.body.items[0]).not.toHaveProperty("params");
     const byTag = await viewer.get(`/api/parameter-sets?tag=TGG&q=${encodeURIComponent(name)}`);
     expect(byTag.body.items).toHaveLength(1);
@@ -56,7 +56,7 @@ describeHttp("parameter sets: lifecycle", () => {
 
     const versions = await viewer.get(`/api/parameter-sets/${item.id}/versions`);
     expect(versions.status).toBe(200);
-    expect(versions.body.items.map((v: any) => v.version)).toEqual([2, 1]);
+    expect(versions.body.items.map((v: { version: number }) => v.version)).toEqual([2, 1]);
     expect(versions.body.items[1].params.temperatureK).toBe(300);
     expect(versions.body.items[0].createdBy.name).toBeTruthy();
 
@@ -83,7 +83,7 @@ describeHttp("parameter sets: lifecycle", () => {
     expect((await editor.post(`/api/parameter-sets/${item.id}/versions/99/restore`, { version: 4 })).status).toBe(404);
     expect((await editor.post(`/api/parameter-sets/${item.id}/versions/abc/restore`, { version: 4 })).status).toBe(404);
     const history = await viewer.get(`/api/parameter-sets/${item.id}/versions`);
-    expect(history.body.items.map((v: any) => v.version)).toEqual([4, 3, 2, 1]);
+    expect(history.body.items.map((v: { version: number }) => v.version)).toEqual([4, 3, 2, 1]);
 
     const view = await editor.put(`/api/parameter-sets/${item.id}/view-state`, { viewState: { plot: "verdet", range: [400, 1100] } });
     expect(view.status).toBe(200);
@@ -120,7 +120,7 @@ describeHttp("parameter sets: lifecycle", () => {
     expect(sameValues.body.item).toMatchObject({ version: 1, updatedAt: set.updatedAt });
 
     const versions = await viewer.get(`/api/parameter-sets/${set.id}/versions`);
-    expect(versions.body.items.map((v: any) => v.version)).toEqual([1]);
+    expect(versions.body.items.map((v: { version: number }) => v.version)).toEqual([1]);
 
     // A stale version is still a conflict, and a real change still makes version 2.
     const real = await editor.patch(`/api/parameter-sets/${set.id}`, { version: 1, description: "changed" });
@@ -163,9 +163,9 @@ describeHttp("parameter sets: lifecycle", () => {
   });
 });
 
-describeHttp("parameter sets: bad input changes nothing", () => {
+describe("parameter sets: bad input changes nothing", () => {
   let editor: Client;
-  let set: any;
+  let set: { id: string; params: unknown };
 
   beforeAll(async () => {
     editor = await signIn(DEMO.editor);

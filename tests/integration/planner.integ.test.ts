@@ -1,9 +1,9 @@
-import { beforeAll, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { planMeasurements } from "@/lib/planner/plan";
 import { planRequestSchema } from "@/lib/planner/schema";
-import { Client, DEMO, DEMO_LAB_ID, createSet, describeHttp, signIn, uniqueName, validParams } from "./support";
+import { type Client, DEMO, DEMO_LAB_ID, createSet, signIn, uniqueName, validParams } from "./support";
 
-describeHttp("light sources and plans through the API", () => {
+describe("light sources and plans through the API", () => {
   let editor: Client;
   let viewer: Client;
   let outsider: Client;

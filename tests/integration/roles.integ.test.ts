@@ -1,4 +1,4 @@
-import { beforeAll, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import {
   Client,
   DEMO,
@@ -7,7 +7,6 @@ import {
   OTHER_LAB_ID,
   OTHER_LAB_SET_ID,
   createSet,
-  describeHttp,
   attemptSignIn,
   DEMO_PASSWORD,
   signIn,
@@ -18,7 +17,7 @@ import {
   validParams,
 } from "./support";
 
-describeHttp("roles through the API", () => {
+describe("roles through the API", () => {
   let owner: Client;
   let editor: Client;
   let viewer: Client;
@@ -34,7 +33,8 @@ describeHttp("roles through the API", () => {
   });
 
   it("each demo account sees its role in its labs", async () => {
-    const roles = async (client: Client) => (await client.get("/api/labs")).body.items.map((lab: any) => [lab.id, lab.role]);
+    const roles = async (client: Client) =>
+      (await client.get("/api/labs")).body.items.map((lab: { id: string; role: string }) => [lab.id, lab.role]);
     expect(await roles(owner)).toContainEqual([DEMO_LAB_ID, "owner"]);
     expect(await roles(editor)).toContainEqual([DEMO_LAB_ID, "editor"]);
     expect(await roles(viewer)).toContainEqual([DEMO_LAB_ID, "viewer"]);
@@ -82,7 +82,7 @@ describeHttp("roles through the API", () => {
 
     const list = await outsider.get("/api/parameter-sets");
     expect(list.status).toBe(200);
-    const ids = list.body.items.map((item: any) => item.id);
+    const ids = list.body.items.map((item: { id: string }) => item.id);
     expect(ids).toContain(OTHER_LAB_SET_ID);
     expect(ids).not.toContain(DEMO_GARNET_SET_ID);
 
@@ -128,7 +128,7 @@ describeHttp("roles through the API", () => {
 
     const members = await viewer.get(`/api/labs/${DEMO_LAB_ID}/members`);
     expect(members.status).toBe(200);
-    expect(members.body.items.map((m: any) => m.email)).toContain(fresh.email);
+    expect(members.body.items.map((m: { email: string }) => m.email)).toContain(fresh.email);
 
     expect((await owner.delete(`/api/labs/${DEMO_LAB_ID}/members/${fresh.userId}`)).status).toBe(204);
     expect((await owner.delete(`/api/labs/${DEMO_LAB_ID}/members/${fresh.userId}`)).status).toBe(404);
@@ -144,8 +144,8 @@ describeHttp("roles through the API", () => {
     expect((await attemptSignIn(new Client(), DEMO.admin, DEMO_PASSWORD)).headers.get("location")).toContain("error=");
     const admin = await signIn(DEMO.admin, ADMIN_PASSWORD);
     const labs = (await admin.get("/api/labs")).body.items;
-    expect(labs.map((l: any) => l.id)).toEqual(expect.arrayContaining([DEMO_LAB_ID, OTHER_LAB_ID]));
-    expect(new Set(labs.map((l: any) => l.role))).toEqual(new Set(["owner"]));
+    expect(labs.map((l: { id: string }) => l.id)).toEqual(expect.arrayContaining([DEMO_LAB_ID, OTHER_LAB_ID]));
+    expect(new Set(labs.map((l: { role: string }) => l.role))).toEqual(new Set(["owner"]));
     const set = await admin.get(`/api/parameter-sets/${OTHER_LAB_SET_ID}`);
     expect(set.status).toBe(200);
     expect(set.body.item.role).toBe("owner");

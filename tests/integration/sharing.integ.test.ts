@@ -1,4 +1,4 @@
-import { expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import {
   Client,
   DEMO,
@@ -7,7 +7,6 @@ import {
   attemptSignIn,
   createApiToken,
   createSet,
-  describeHttp,
   joinByInvitation,
   linkSecret,
   mailTo,
@@ -17,7 +16,7 @@ import {
   waitForMail,
 } from "./support";
 
-describeHttp("invitations by e-mail", () => {
+describe("invitations by e-mail", () => {
   it("the mail arrives; the invitee joins only on accepting; the link works once", async () => {
     const owner = await signIn(DEMO.owner);
     const account = await signUp({ name: "Invited Viewer" });
@@ -25,7 +24,7 @@ describeHttp("invitations by e-mail", () => {
     expect(invited.status).toBe(201);
     expect(invited.body.item).toMatchObject({ email: account.email, role: "editor" });
     const pending = await owner.get(`/api/labs/${DEMO_LAB_ID}/invitations`);
-    expect(pending.body.items.map((i: any) => i.id)).toContain(invited.body.item.id);
+    expect(pending.body.items.map((i: { id: string }) => i.id)).toContain(invited.body.item.id);
 
     const mail = await waitForMail(account.email);
     expect(mail.subject).toContain("Lindqvist Moor Faraday Laboratory");
@@ -43,7 +42,9 @@ describeHttp("invitations by e-mail", () => {
 
     const reused = await invitee.post("/api/invitations/accept", { token });
     expect(reused.status).toBe(409);
-    expect((await owner.get(`/api/labs/${DEMO_LAB_ID}/invitations`)).body.items.map((i: any) => i.id)).not.toContain(invited.body.item.id);
+    expect((await owner.get(`/api/labs/${DEMO_LAB_ID}/invitations`)).body.items.map((i: { id: string }) => i.id)).not.toContain(
+      invited.body.item.id,
+    );
   });
 
   it("a revoked link is refused; a link for another address is refused; a made-up link is 404", async () => {
@@ -87,7 +88,7 @@ describeHttp("invitations by e-mail", () => {
   });
 });
 
-describeHttp("password reset and change", () => {
+describe("password reset and change", () => {
   it("a reset mail for a known address; the same answer for an unknown one; the link works once and ends sessions", async () => {
     const account = await signUp();
     const oldSession = await signIn(account.email, account.password);
@@ -133,7 +134,7 @@ describeHttp("password reset and change", () => {
   });
 });
 
-describeHttp("read-only share links", () => {
+describe("read-only share links", () => {
   it("work signed out, show only that set, stop when revoked", async () => {
     const editor = await signIn(DEMO.editor);
     const set = await createSet(editor);
@@ -172,7 +173,7 @@ describeHttp("read-only share links", () => {
   });
 });
 
-describeHttp("audit page API", () => {
+describe("audit page API", () => {
   it("owners read the lab's trail with filters and paging; others cannot", async () => {
     const owner = await signIn(DEMO.owner);
     const editor = await signIn(DEMO.editor);
@@ -182,17 +183,21 @@ describeHttp("audit page API", () => {
 
     const bySet = await owner.get(`/api/labs/${DEMO_LAB_ID}/audit?setId=${set.id}`);
     expect(bySet.status).toBe(200);
-    expect(bySet.body.items.map((e: any) => e.action)).toEqual(["share_link.create", "parameter_set.update", "parameter_set.create"]);
+    expect(bySet.body.items.map((e: { action: string }) => e.action)).toEqual([
+      "share_link.create",
+      "parameter_set.update",
+      "parameter_set.create",
+    ]);
     expect(bySet.body.items[0].actor.name).toBeTruthy();
 
     const firstPage = await owner.get(`/api/labs/${DEMO_LAB_ID}/audit?setId=${set.id}&limit=2`);
     expect(firstPage.body.items).toHaveLength(2);
     const second = await owner.get(`/api/labs/${DEMO_LAB_ID}/audit?setId=${set.id}&limit=2&cursor=${firstPage.body.nextCursor}`);
-    expect(second.body.items.map((e: any) => e.action)).toEqual(["parameter_set.create"]);
+    expect(second.body.items.map((e: { action: string }) => e.action)).toEqual(["parameter_set.create"]);
     expect(second.body.nextCursor).toBeNull();
 
     const kind = await owner.get(`/api/labs/${DEMO_LAB_ID}/audit?kind=share_link&limit=200`);
-    expect(kind.body.items.every((e: any) => e.action.startsWith("share_link."))).toBe(true);
+    expect(kind.body.items.every((e: { action: string }) => e.action.startsWith("share_link."))).toBe(true);
     const today = new Date().toISOString().slice(0, 10);
     const dated = await owner.get(`/api/labs/${DEMO_LAB_ID}/audit?from=${today}&to=${today}&setId=${set.id}`);
     expect(dated.body.items).toHaveLength(3);
@@ -201,14 +206,14 @@ describeHttp("audit page API", () => {
   });
 });
 
-describeHttp("paging of every list", () => {
+describe("paging of every list", () => {
   it("sets, versions, members and tokens take limit and cursor, with a maximum", async () => {
     const editor = await signIn(DEMO.editor);
     const first = await editor.get(`/api/parameter-sets?labId=${DEMO_LAB_ID}&limit=2`);
     expect(first.body.items).toHaveLength(2);
     expect(first.body.nextCursor).toEqual(expect.any(String));
     const next = await editor.get(`/api/parameter-sets?labId=${DEMO_LAB_ID}&limit=2&cursor=${first.body.nextCursor}`);
-    const ids = new Set([...first.body.items, ...next.body.items].map((s: any) => s.id));
+    const ids = new Set([...first.body.items, ...next.body.items].map((s: { id: string }) => s.id));
     expect(ids.size).toBe(first.body.items.length + next.body.items.length);
     expect((await editor.get("/api/parameter-sets?limit=201")).status).toBe(400);
     expect((await editor.get("/api/parameter-sets?limit=0")).status).toBe(400);
@@ -234,7 +239,7 @@ describeHttp("paging of every list", () => {
   });
 });
 
-describeHttp("the defects found by the attack run stay closed", () => {
+describe("the defects found by the attack run stay closed", () => {
   it("1: the seeded site admin does not take the demo password", async () => {
     const response = await attemptSignIn(new Client(), DEMO.admin, "gyrolux-demo");
     expect(response.headers.get("location")).toContain("error=");

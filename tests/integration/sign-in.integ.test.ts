@@ -1,9 +1,9 @@
-import { expect, it } from "vitest";
-import { Client, attemptSignIn, describeHttp, signIn, signUp, uniqueEmail, waitForMail } from "./support";
+import { describe, expect, it } from "vitest";
+import { Client, attemptSignIn, signIn, signUp, uniqueEmail, waitForMail } from "./support";
 
 const isFailure = (response: Response) => response.status === 302 && (response.headers.get("location") ?? "").includes("error=");
 
-describeHttp("sign-up and sign-in", () => {
+describe("sign-up and sign-in", () => {
   it("sign-up creates a personal lab the new user owns", async () => {
     const account = await signUp({ name: "Fresh Tester" });
     const client = await signIn(account.email.toUpperCase(), account.password);

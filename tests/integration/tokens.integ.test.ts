@@ -1,7 +1,7 @@
-import { expect, it } from "vitest";
-import { Client, DEMO, DEMO_LAB_ID, createApiToken, describeHttp, signIn, uniqueName, validParams } from "./support";
+import { describe, expect, it } from "vitest";
+import { Client, DEMO, DEMO_LAB_ID, createApiToken, signIn, uniqueName, validParams } from "./support";
 
-describeHttp("API tokens", () => {
+describe("API tokens", () => {
   it("a bearer token acts as its user until revoked", async () => {
     const editor = await signIn(DEMO.editor);
     const name = uniqueName("script token");
@@ -9,7 +9,7 @@ describeHttp("API tokens", () => {
     expect(token).toMatch(/^glx_[A-Za-z0-9_-]{40,}$/);
 
     const listed = await editor.get("/api/tokens");
-    const entry = listed.body.items.find((t: any) => t.id === id);
+    const entry = listed.body.items.find((t: { id: string }) => t.id === id);
     expect(entry).toMatchObject({ id, name, lastUsedAt: null });
     expect(JSON.stringify(listed.body)).not.toContain(token);
 
@@ -21,14 +21,14 @@ describeHttp("API tokens", () => {
     expect(created.status).toBe(201);
     expect((await script.delete(`/api/parameter-sets/${created.body.item.id}`)).status).toBe(204);
 
-    const used = (await editor.get("/api/tokens")).body.items.find((t: any) => t.id === id);
+    const used = (await editor.get("/api/tokens")).body.items.find((t: { id: string }) => t.id === id);
     expect(used.lastUsedAt).not.toBeNull();
 
     expect((await editor.delete(`/api/tokens/${id}`)).status).toBe(204);
     const revoked = await script.get("/api/labs");
     expect(revoked.status).toBe(401);
     expect(revoked.body.error.code).toBe("unauthenticated");
-    expect((await editor.get("/api/tokens")).body.items.map((t: any) => t.id)).not.toContain(id);
+    expect((await editor.get("/api/tokens")).body.items.map((t: { id: string }) => t.id)).not.toContain(id);
     expect((await editor.delete(`/api/tokens/${id}`)).status).toBe(404);
   });
 

@@ -1,5 +1,5 @@
-import { beforeAll, expect, it } from "vitest";
-import { Client, DEMO, OTHER_LAB_SET_ID, createSet, describeHttp, signIn } from "./support";
+import { beforeAll, describe, expect, it } from "vitest";
+import { Client, DEMO, OTHER_LAB_SET_ID, createSet, signIn } from "./support";
 
 /*
  * Per-person workbench views: each member keeps their own view of a set, viewers included; the
@@ -7,7 +7,7 @@ import { Client, DEMO, OTHER_LAB_SET_ID, createSet, describeHttp, signIn } from 
  * is where everyone without their own view starts.
  */
 
-describeHttp("per-person workbench views", () => {
+describe("per-person workbench views", () => {
   let owner: Client;
   let editor: Client;
   let viewer: Client;

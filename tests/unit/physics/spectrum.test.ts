@@ -61,7 +61,9 @@ describe("terbium garnet against published Verdet constants", () => {
     // Product reference values (physics-model.md §8), not outside figures; ±0.15 percentage points.
     const r = analytic({ wavelengthsNm: [632.8, 800, 1064, 1550] });
     const expected = [0.032, 0.052, 0.092, 0.18];
-    r.points.forEach((p, i) => expect(Math.abs(p.magneticShare! - expected[i]!)).toBeLessThan(0.0015));
+    r.points.forEach((p, i) => {
+      expect(Math.abs(p.magneticShare! - expected[i]!)).toBeLessThan(0.0015);
+    });
   });
 });
 

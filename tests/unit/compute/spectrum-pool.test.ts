@@ -12,7 +12,7 @@ import {
 } from "@/lib/compute/spectrum-pool";
 import type { SpectrumRequest } from "@/lib/physics/schema";
 import { computeSpectrum, computeSpectrumArrays } from "@/lib/physics/spectrum";
-import { TGG } from "./fixtures";
+import { TGG } from "../physics/fixtures";
 
 const request = (over: Partial<SpectrumRequest> = {}): SpectrumRequest => ({
   ...TGG,
@@ -116,7 +116,9 @@ describe("worker API (without a Worker)", () => {
 
 describe("SpectrumPool over in-process message channels", () => {
   const pools: SpectrumPool[] = [];
-  afterEach(() => pools.splice(0).forEach((p) => p.dispose()));
+  afterEach(() => {
+    for (const p of pools.splice(0)) p.dispose();
+  });
   const makePool = (size: number) => {
     const pool = new SpectrumPool({
       size,
@@ -141,7 +143,9 @@ describe("SpectrumPool over in-process message channels", () => {
     const r = await makePool(3).spectrum(req, { onProgress: (f) => progress.push(f) });
     expect(r).toEqual(computeSpectrum(req));
     expect(progress[progress.length - 1]).toBe(1);
-    progress.forEach((f, i) => i > 0 && expect(f).toBeGreaterThanOrEqual(progress[i - 1]!));
+    progress.forEach((f, i) => {
+      if (i > 0) expect(f).toBeGreaterThanOrEqual(progress[i - 1]!);
+    });
   });
 
   it("rejects with an AbortError when aborted", async () => {

@@ -5,7 +5,7 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import { planMeasurements } from "@/lib/planner/plan";
 import { type PlanRequestInput, planRequestSchema } from "@/lib/planner/schema";
 import { TGG } from "../physics/fixtures";
-import { seededGaussian } from "./fit-support";
+import { seededGaussian } from "../fit/support";
 
 /*
  * The planner's expected standard error is the Cramér–Rao bound from JᵀWJ. Here it is checked

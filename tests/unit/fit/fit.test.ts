@@ -6,7 +6,7 @@ import { evaluateModel, modelJacobian } from "@/lib/fit/model";
 import type { ModelParams } from "@/lib/physics/schema";
 import { computeSpectrum } from "@/lib/physics/spectrum";
 import { TGG } from "../physics/fixtures";
-import { evenly, seededGaussian, syntheticPoints, verdetAt } from "./fit-support";
+import { evenly, seededGaussian, syntheticPoints, verdetAt } from "./support";
 
 const base: ModelParams = { ...TGG, temperatureK: 293.15, fieldT: 1, lengthM: 0.01 };
 const DEFAULT_FREE = [{ key: "gyrationPerT" as const }, { key: "oscillatorWavelengthNm" as const }, { key: "magneticScale" as const }];

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { MAX_BODY_BYTES, readJson } from "./body";
-import { DomainError } from "@/lib/contracts/errors";
+import { MAX_BODY_BYTES, readJson } from "@/lib/api/body";
 import { errorStatus } from "@/lib/api/errors";
+import { DomainError } from "@/lib/contracts/errors";
 
 const schema = z.object({ x: z.number().refine(Number.isFinite, "must be finite") });
 

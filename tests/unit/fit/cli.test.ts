@@ -5,7 +5,7 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { runFitCommand } from "@/lib/fit/cli-input";
 import { TGG } from "../physics/fixtures";
-import { evenly, seededGaussian, syntheticPoints, verdetAt } from "./fit-support";
+import { evenly, seededGaussian, syntheticPoints, verdetAt } from "./support";
 
 const dir = mkdtempSync(join(tmpdir(), "gyrolux-fit-cli-"));
 let count = 0;

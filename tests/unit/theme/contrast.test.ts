@@ -13,7 +13,7 @@ import { themeColors } from "@/tailwind.config";
  * on than the token itself.
  */
 
-const ROOT = path.resolve(__dirname, "../..");
+const ROOT = path.resolve(__dirname, "../../..");
 const LIGHT_SURFACES = {
   paper: themeColors.paper.DEFAULT,
   "paper-raised": themeColors.paper.raised,

@@ -111,7 +111,9 @@ describe("diamagnetic term in the spectrum", () => {
       expect(p.magneticShare).toBe(0);
     }
     const neg = run({ ionDensityPerM3: 0, diamagneticTerm: true, fieldT: -1 });
-    neg.points.forEach((p, i) => expect(p.thetaRad).toBe(-r.points[i]!.thetaRad));
+    neg.points.forEach((p, i) => {
+      expect(p.thetaRad).toBe(-r.points[i]!.thetaRad);
+    });
     // B0 = 0: nothing rotates even with the term on.
     for (const p of run({ diamagneticTerm: true, fieldT: 0 }).points) expect(p.thetaRad).toBe(0);
   });

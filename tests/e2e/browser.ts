@@ -1,0 +1,56 @@
+import { mkdirSync } from "node:fs";
+import path from "node:path";
+import { type Browser, type BrowserContextOptions, chromium, type Page } from "playwright-core";
+import { DEMO_PASSWORD } from "@/db/demo-data";
+
+/*
+ * Chromium and the server under test, without vitest: the global setup (sessions-setup.ts) runs
+ * outside the test runner and shares these paths with the fixture in support.ts.
+ */
+
+/** Base URL of the server under test; localhost, not 127.0.0.1 (Next rewrites 127.x hosts). */
+export const BASE_URL = process.env.GYROLUX_TEST_BASE_URL ?? "http://localhost:3100";
+
+/** Where screenshots and downloads go. */
+export const OUTPUT_DIR = path.resolve(process.env.GYROLUX_TEST_OUTPUT ?? "test-results");
+
+/** The demo accounts' stored sessions (Playwright storage state) of this run. */
+export const SESSION_DIR = path.join(OUTPUT_DIR, "sessions");
+
+const CHROMIUM_PATH = process.env.GYROLUX_CHROMIUM ?? "/usr/bin/chromium";
+
+// Flags that keep Debian's Chromium quiet on a machine without outside network (stack notes).
+const CHROMIUM_ARGS = [
+  "--no-sandbox",
+  "--disable-gpu",
+  "--disable-quic",
+  "--no-first-run",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
+];
+
+/** A desktop window against the server under test. */
+export const CONTEXT_DEFAULTS: BrowserContextOptions = {
+  baseURL: BASE_URL,
+  viewport: { width: 1440, height: 900 },
+  acceptDownloads: true,
+};
+
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS, headless: true });
+}
+
+/** Signs in through the real sign-in form and waits for the signed-in shell. */
+export async function signInThroughForm(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 30_000 });
+}
+
+export function outputPath(name: string): string {
+  mkdirSync(OUTPUT_DIR, { recursive: true });
+  return path.join(OUTPUT_DIR, name);
+}
