@@ -1,3 +1,7 @@
+import { readBuildSettings } from "./lib/settings/build.mjs";
+
+const buildSettings = readBuildSettings();
+
 /*
  * Security headers on every answer. The Content-Security-Policy is what the app itself needs:
  * Next's inline bootstrap scripts and styles ('unsafe-inline', as Next does not nonce a static
@@ -5,7 +9,7 @@
  * blob: and data: URLs (img-src), and no framing by anyone (frame-ancestors 'none'). The
  * development server also evaluates code for fast refresh, hence 'unsafe-eval' there only.
  */
-const isDev = process.env.NODE_ENV !== "production";
+const isDev = buildSettings.nodeEnv !== "production";
 
 const csp = [
   "default-src 'self'",
@@ -35,9 +39,8 @@ const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
   serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "pg-boss"],
-  // `npm test` builds into its own folder (.next-test), so a test run never rebuilds the build a
-  // running `npm run demo` serves from the same checkout.
-  distDir: process.env.GYROLUX_NEXT_DIST_DIR || ".next",
+  // `npm test` builds into its own folder (lib/settings/build.mjs).
+  distDir: buildSettings.nextDistDir,
   // Server actions (sign-in and sign-up forms) get the API's body limit instead of Next's 1 MB.
   experimental: { serverActions: { bodySizeLimit: "64kb" } },
   async headers() {

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Pool } from "pg";
-import { env } from "@/lib/env";
+import { serverSettings } from "@/lib/settings/server";
 import { createDb, createPool, type Database } from "./connection";
 
 export type { Database } from "./connection";
@@ -9,10 +9,10 @@ export type { Database } from "./connection";
 // edit, so the pool is cached on globalThis to avoid leaking connections.
 const globalForDb = globalThis as unknown as { gyroluxPool?: Pool; gyroluxDb?: Database };
 
-const pool = globalForDb.gyroluxPool ?? createPool({ url: env.DATABASE_URL });
+const pool = globalForDb.gyroluxPool ?? createPool({ url: serverSettings.database.url });
 export const db: Database = globalForDb.gyroluxDb ?? createDb(pool);
 
-if (env.NODE_ENV !== "production") {
+if (serverSettings.build.nodeEnv !== "production") {
   globalForDb.gyroluxPool = pool;
   globalForDb.gyroluxDb = db;
 }

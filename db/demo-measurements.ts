@@ -2,12 +2,12 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { eq, sql } from "drizzle-orm";
 import { parseMeasurementTable, proposeMapping, readTable, type ColumnMapping, type FileDefaults } from "@/lib/measurements/parse";
+import { scriptSettings } from "@/lib/settings/scripts";
 import { createObjectStore } from "@/lib/storage/object-store";
 import type { Database } from "./connection";
 import { DEMO_LAB, DEMO_USERS } from "./demo-data";
 import { importMeasurementSet } from "./measurement-import";
 import { measurementSets, users } from "./schema";
-import { scriptStorageSettings } from "./script-env";
 
 /*
  * The demo lab's measurement sets: the generated files in db/demo/ (scripts/generate-demo-measurements.ts),
@@ -47,7 +47,7 @@ export const DEMO_MEASUREMENT_SETS: DemoMeasurementSet[] = [
 ];
 
 export async function seedDemoMeasurements(db: Database): Promise<number> {
-  const store = createObjectStore(scriptStorageSettings);
+  const store = createObjectStore(scriptSettings.storage);
   await store.ensureBucket();
   // The uploader is the demo postdoc, by address: an account made before the seed keeps its own id.
   const [uploader] = await db

@@ -1,13 +1,13 @@
 import { randomBytes } from "node:crypto";
 import { eq, sql } from "drizzle-orm";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { scriptSettings } from "@/lib/settings/scripts";
 import { modelParamsSchema } from "@/lib/physics/schema";
 import { createDb, createPool } from "./connection";
 import { seedDemoMeasurements } from "./demo-measurements";
 import { DEMO_LAB, DEMO_PASSWORD, DEMO_SETS, DEMO_USERS, OTHER_LAB } from "./demo-data";
 import { seedDemoLightSources } from "./demo-light-sources";
 import { auditLog, labMemberships, labs, parameterSets, parameterSetVersions, users } from "./schema";
-import { scriptEnv } from "./script-env";
 
 /*
  * Idempotent demo seed: fixed ids + "on conflict do nothing", so running it twice (or on a
@@ -17,7 +17,7 @@ import { scriptEnv } from "./script-env";
 const DAY_MS = 24 * 60 * 60 * 1000;
 
 async function main(): Promise<void> {
-  const pool = createPool({ url: scriptEnv.DATABASE_URL, max: 1 });
+  const pool = createPool({ url: scriptSettings.database.url, max: 1 });
   const db = createDb(pool);
   const now = Date.now();
   let created = 0;
@@ -25,7 +25,7 @@ async function main(): Promise<void> {
     const passwordHash = await hashPassword(DEMO_PASSWORD);
     // The site admin acts as owner in every lab, so it never gets the published demo password:
     // GYROLUX_ADMIN_PASSWORD when set (the test run sets one), else a random one shown once below.
-    const adminPassword = scriptEnv.GYROLUX_ADMIN_PASSWORD ?? randomBytes(18).toString("base64url");
+    const adminPassword = scriptSettings.seed.adminPassword ?? randomBytes(18).toString("base64url");
     const adminHash = await hashPassword(adminPassword);
     await db.transaction(async (tx) => {
       await tx
@@ -50,7 +50,7 @@ async function main(): Promise<void> {
           .onConflictDoNothing()
           .returning({ id: users.id });
         created += inserted.length;
-        if (inserted.length > 0 && user.siteRole === "admin" && !scriptEnv.GYROLUX_ADMIN_PASSWORD) {
+        if (inserted.length > 0 && user.siteRole === "admin" && !scriptSettings.seed.adminPassword) {
           console.log(`[seed] site admin ${user.email} — password (shown only now): ${adminPassword}`);
         }
         // Someone may have signed up with a demo address before the seed ran: use that row.
@@ -67,7 +67,7 @@ async function main(): Promise<void> {
               .update(users)
               .set({ passwordHash: adminHash, sessionVersion: sql`${users.sessionVersion} + 1` })
               .where(eq(users.id, row.id));
-            if (!scriptEnv.GYROLUX_ADMIN_PASSWORD)
+            if (!scriptSettings.seed.adminPassword)
               console.log(`[seed] site admin ${user.email} had the demo password; new password (shown only now): ${adminPassword}`);
           }
         }

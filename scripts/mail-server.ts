@@ -3,7 +3,8 @@ import { mkdirSync, writeFileSync, renameSync } from "node:fs";
 import path from "node:path";
 import { SMTPServer } from "smtp-server";
 import { parseMessage } from "../lib/mail/mime";
-import { readMailSettings, type CaughtMail } from "../lib/mail/settings";
+import type { CaughtMail } from "../lib/mail/caught-mail";
+import { scriptSettings } from "../lib/settings/scripts";
 
 /*
  * The local SMTP stand-in for the demo and the tests (started by scripts/mail.sh). It listens on
@@ -11,7 +12,7 @@ import { readMailSettings, type CaughtMail } from "../lib/mail/settings";
  * as <id>.eml (raw) and <id>.json (sender, recipients, subject, decoded text).
  */
 
-const settings = readMailSettings();
+const settings = scriptSettings.mail;
 mkdirSync(settings.dir, { recursive: true });
 
 const server = new SMTPServer({

@@ -1,4 +1,4 @@
-import { env } from "@/lib/env";
+import { serverSettings } from "@/lib/settings/server";
 
 /*
  * The client address for rate limiting. `next start` does not hand route handlers the socket's
@@ -22,5 +22,5 @@ export function clientIpFrom(headers: Headers, trustedHops: number): string {
 }
 
 export function clientIp(headers: Headers): string {
-  return clientIpFrom(headers, env.GYROLUX_TRUSTED_PROXY_HOPS);
+  return clientIpFrom(headers, serverSettings.auth.trustedProxyHops);
 }

@@ -1,7 +1,7 @@
 import "server-only";
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
-import { caughtMailSchema, type CaughtMail } from "./settings";
+import { caughtMailSchema, type CaughtMail } from "./caught-mail";
 import { mailSettings } from "./send";
 
 /** Messages the local SMTP stand-in caught, newest first (the site-admin mail page). */

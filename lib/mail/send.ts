@@ -1,6 +1,7 @@
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
-import { readMailSettings, type MailSettings } from "./settings";
+import type { MailSettings } from "@/lib/settings/mail";
+import { serverSettings } from "@/lib/settings/server";
 
 /*
  * The one mail module: plain-text messages over SMTP with nodemailer. In the demo and the tests
@@ -8,7 +9,7 @@ import { readMailSettings, type MailSettings } from "./settings";
  * site's relay (GYROLUX_SMTP_*).
  */
 
-export const mailSettings: MailSettings = readMailSettings();
+export const mailSettings: MailSettings = serverSettings.mail;
 
 let transporter: Transporter | null = null;
 
@@ -46,5 +47,5 @@ export async function sendMail(message: { to: string; subject: string; text: str
 
 /** An absolute link into the app, from the configured public URL (never from the Host header). */
 export function appLink(path: string): string {
-  return `${mailSettings.publicUrl}${path}`;
+  return `${serverSettings.site.publicUrl}${path}`;
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import PgBoss from "pg-boss";
-import { RUN_QUEUE, runSettings, sendOptions } from "./settings";
+import { serverSettings } from "@/lib/settings/server";
+import { RUN_QUEUE, sendOptions } from "./queue-options";
 
 /*
  * The web server's side of the job queue: it only sends. One pg-boss instance per server process,
@@ -10,7 +11,7 @@ import { RUN_QUEUE, runSettings, sendOptions } from "./settings";
 const globalForBoss = globalThis as unknown as { gyroluxBoss?: Promise<PgBoss> };
 
 async function startSender(): Promise<PgBoss> {
-  const settings = runSettings();
+  const settings = serverSettings.runs;
   const boss = new PgBoss({ connectionString: settings.databaseUrl, max: 2, supervise: false, schedule: false });
   boss.on("error", (e: Error) => console.error("[runs] queue error:", e.message));
   await boss.start();
@@ -29,7 +30,7 @@ function sender(): Promise<PgBoss> {
 /** Queues the job of a run; its pg-boss id is the run id. */
 export async function enqueueRun(runId: string): Promise<void> {
   const boss = await sender();
-  await boss.send(RUN_QUEUE, { runId }, sendOptions(runSettings(), runId));
+  await boss.send(RUN_QUEUE, { runId }, sendOptions(serverSettings.runs, runId));
 }
 
 /** Takes a queued job off the queue (a running one is stopped by its worker, which sees the flag). */

@@ -8,7 +8,7 @@ import {
   PutObjectCommand,
   S3Client,
 } from "@aws-sdk/client-s3";
-import type { StorageSettings } from "./settings";
+import type { StorageSettings } from "@/lib/settings/storage";
 
 /*
  * The one module over the S3 SDK. Path-style addressing (bucket in the path, not the host name)

@@ -10,7 +10,7 @@ import { importMeasurementSet } from "@/db/measurement-import";
 import { auditLog, measurementSets, users } from "@/db/schema";
 import { parseMeasurementTable, proposeMapping, readTable } from "@/lib/measurements/parse";
 import { createObjectStore } from "@/lib/storage/object-store";
-import { storageEnvSchema } from "@/lib/storage/settings";
+import { storageEnvSchema } from "@/lib/settings/storage";
 import { Client, DEMO, DEMO_LAB_ID, type JsonBody, signIn, uniqueName } from "./support";
 
 /*

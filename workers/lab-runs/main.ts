@@ -14,11 +14,12 @@ import PgBoss from "pg-boss";
 import { createDb, createPool } from "@/db/connection";
 import { runKindHandler, type ChunkOutput } from "@/lib/runs/kinds";
 import { encodeResult } from "@/lib/runs/encoding";
-import { RUN_QUEUE, runSettings } from "@/lib/runs/settings";
+import { RUN_QUEUE } from "@/lib/runs/queue-options";
+import { scriptSettings } from "@/lib/settings/scripts";
 import { ChunkError, ThreadPool } from "./thread-pool";
 import { claimRun, closeStaleRun, endRun, finishRun, heartbeat, markCancelledIfRequested, releaseSilentRuns, staleRuns } from "./store";
 
-const settings = runSettings();
+const settings = scriptSettings.runs;
 const log = (msg: string) => process.stderr.write(`[worker ${settings.workerId}] ${msg}\n`);
 
 /** Errors of the input or the physics: deterministic, so not worth a retry. */

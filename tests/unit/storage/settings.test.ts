@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { storageEnvSchema } from "@/lib/storage/settings";
+import { storageEnvSchema } from "@/lib/settings/storage";
 
 describe("object-storage settings", () => {
   it("defaults to the local S3 fake", () => {

@@ -1,12 +1,11 @@
 import { z } from "zod";
+import { port } from "./port";
 
 /*
- * Object-storage settings from the environment, validated once. Every value has a working default
+ * The object-storage fragment (original measurement files). Every value has a working default
  * for the local S3 fake that scripts/s3.sh starts (s3rver, which accepts the key pair S3RVER /
  * S3RVER); a real S3-compatible service needs only these variables changed.
  */
-
-const port = z.coerce.number().int().min(1).max(65_535);
 
 export const storageEnvSchema = z
   .object({
