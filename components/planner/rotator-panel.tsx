@@ -2,6 +2,7 @@
 
 import { useId, useMemo, useState } from "react";
 import { INPUT_CLASS } from "@/components/ui/text-field";
+import { zodIssueLines } from "@/lib/contracts/validation";
 import { cautionsFor } from "@/lib/planner/cautions";
 import { isolationDb, rotatorRequestSchema, sizeRotator, type Window } from "@/lib/planner/rotator";
 import type { ModelParams } from "@/lib/physics/schema";
@@ -40,9 +41,7 @@ export function RotatorPanel({ params }: { params: ModelParams }) {
       return { ok: false as const, message: error instanceof Error ? error.message : "The rotator could not be sized here." };
     }
   }, [parsed]);
-  const issues = parsed.success
-    ? []
-    : parsed.error.issues.map((i) => `${FIELD_LABEL[String(i.path.at(-1))] ?? i.path.join(".")}: ${i.message}`);
+  const issues = parsed.success ? [] : zodIssueLines(parsed.error.issues, { label: (path) => FIELD_LABEL[path.split(".").at(-1)!] });
   const scaleLabel = magneticScaleLabel(params.magneticScale);
 
   const field = (key: keyof typeof drafts, label: string, unit: string) => (

@@ -8,6 +8,7 @@ import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useParameterSet } from "@/lib/query/parameter-sets";
 import { useSubmitRun } from "@/lib/query/runs";
 import { roleAtLeast } from "@/lib/contracts/roles";
+import { zodIssueFields } from "@/lib/contracts/validation";
 import type { ModelParams } from "@/lib/physics/schema";
 import { MAX_MAP_COLUMNS, MAX_MAP_ROWS, MAX_RUN_WAVELENGTHS, runSpecSchema, type RunSpec } from "@/lib/runs/kinds";
 import { parseNumber } from "@/lib/workbench/validate";
@@ -100,10 +101,7 @@ export const LabRunPanel = memo(function LabRunPanel({
     const parsed = runSpecSchema.safeParse(buildSpec(choice, method, params, drafts));
     if (parsed.success) return { spec: parsed.data as RunSpec, errors: {} };
     const errors: Errors = {};
-    for (const issue of parsed.error.issues) {
-      const key = FIELD_OF[issue.path.map(String).join(".")] ?? "other";
-      errors[key] ??= issue.message;
-    }
+    for (const [path, message] of Object.entries(zodIssueFields(parsed.error.issues))) errors[FIELD_OF[path] ?? "other"] ??= message;
     return { spec: null, errors };
   }, [choice, method, params, drafts]);
 

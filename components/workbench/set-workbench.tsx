@@ -4,6 +4,7 @@ import { useMemo } from "react";
 import { Alert } from "@/components/ui/alert";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { SkeletonRows } from "@/components/ui/skeleton";
+import { zodIssueLines } from "@/lib/contracts/validation";
 import { modelParamsSchema } from "@/lib/physics/schema";
 import { useParameterSet } from "@/lib/query/parameter-sets";
 import { useMyWorkbenchView } from "@/lib/query/workbench-views";
@@ -33,7 +34,7 @@ export function SetWorkbench({ setId }: { setId: string }) {
   if (!parsed.success) {
     return (
       <Alert tone="warning" title="This parameter set cannot be opened in the workbench">
-        Its stored parameters are not valid: {parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}
+        Its stored parameters are not valid: {zodIssueLines(parsed.error.issues).join("; ")}
       </Alert>
     );
   }

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { columnMappingSchema, fileDefaultsSchema } from "@/lib/measurements/parse";
 import type { UserRef } from "./common";
 import type { LabRole } from "./roles";
-import { nameSchema, safeString, textSchema } from "./validation";
+import { nameSchema, safeString, searchTermSchema, textSchema } from "./validation";
 
 /*
  * Measurement sets: request schemas and answer shapes, shared by the upload form and the route.
@@ -23,8 +23,9 @@ export const uploadMeasurementMetaSchema = z.object({
 export type UploadMeasurementMeta = z.infer<typeof uploadMeasurementMetaSchema>;
 
 export const listMeasurementSetsQuery = z.object({
-  labId: z.string().optional(),
-  q: safeString().trim().max(200, "At most 200 characters.").optional(),
+  // Storable text, not a uuid check: an id that names no lab answers 404 at the lookup, not 400 here.
+  labId: safeString().optional(),
+  q: searchTermSchema.optional(),
 });
 
 /** A measurement set as listed (GET /api/measurement-sets); the points come from …/{id}/points. */

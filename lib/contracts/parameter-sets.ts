@@ -2,7 +2,7 @@ import { z } from "zod";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import type { UserRef } from "./common";
 import type { LabRole } from "./roles";
-import { safeString } from "./validation";
+import { safeString, searchTermSchema } from "./validation";
 
 /*
  * Parameter sets: request schemas and answer shapes. Pure zod, so forms use the same schemas as
@@ -65,8 +65,9 @@ export type UpdateParameterSetInput = z.infer<typeof updateParameterSetSchema>;
 export const restoreVersionSchema = z.object({ version: setVersionSchema });
 
 export const listParameterSetsQuery = z.object({
-  labId: z.string().optional(),
-  q: safeString().trim().max(200, "At most 200 characters.").optional(),
+  // Storable text, not a uuid check: an id that names no lab answers 404 at the lookup, not 400 here.
+  labId: safeString().optional(),
+  q: searchTermSchema.optional(),
   tag: safeString().trim().max(TAG_MAX, `At most ${TAG_MAX} characters.`).optional(),
 });
 

@@ -1,13 +1,13 @@
 import { z } from "zod";
 import { planRequestSchema } from "@/lib/planner/schema";
 import { recordNameSchema } from "./light-sources";
-import { finiteNumber as finite } from "./validation";
+import { finiteNumber as finite, safeString } from "./validation";
 
 /* Plans saved with a parameter set: the stored record, its request schema and answer shape. */
 
 /** One point of a saved plan (JSON: no Infinity, so σ that cannot be had is null). */
 export const savedPlanPointSchema = z.strictObject({
-  lineName: z.string().max(120),
+  lineName: safeString().max(120),
   wavelengthNm: finite("wavelength").gt(0),
   temperatureK: finite("temperature").gt(0),
   fieldT: finite("field"),
@@ -17,15 +17,15 @@ export const savedPlanPointSchema = z.strictObject({
 });
 
 export const savedPlanSchema = z.strictObject({
-  criterionLabel: z.string().max(200),
-  criterionUnit: z.string().max(40),
+  criterionLabel: safeString().max(200),
+  criterionUnit: safeString().max(40),
   expectedSigma: finite("expected σ").min(0).nullable(),
   method: z.enum(["exhaustive", "greedy"]),
   candidateCount: finite("candidates").int().min(0),
   sigmaPerPointRad: finite("σ per point").gt(0),
   partsCorrelation: finite("correlation").min(-1.000001).max(1.000001).nullable(),
   points: z.array(savedPlanPointSchema).min(1, "A plan needs at least one point.").max(60),
-  notes: z.array(z.string().max(600)).max(20),
+  notes: z.array(safeString().max(600)).max(20),
 });
 export type SavedPlanBody = z.infer<typeof savedPlanSchema>;
 

@@ -62,6 +62,9 @@ export function textSchema(options: { max: number }) {
   return safeString({ error: "Must be text." }).trim().max(options.max, `At most ${options.max} characters.`);
 }
 
+/** The search term of a list query (?q=): trimmed, at most 200 characters. */
+export const searchTermSchema = safeString().trim().max(200, "At most 200 characters.");
+
 /** An e-mail address, trimmed and lower-cased (how accounts and invitations store it). */
 export function emailField(missing = "Enter an e-mail address.") {
   return safeString({ error: missing })
@@ -102,4 +105,4 @@ export function zodIssueLines(
   });
 }
 
-export { finiteNumber } from "@/lib/physics/number-fields";
+export { finiteNumber, positiveNumber } from "@/lib/physics/number-fields";

@@ -1,3 +1,4 @@
+import { zodIssueLines } from "@/lib/contracts/validation";
 import type { MeasuredPoint, MeasuredQuantity } from "@/lib/measurements/point";
 import type { ModelParams } from "@/lib/physics/schema";
 import { FitCancelledError, FitError, leastSquares } from "./least-squares";
@@ -130,10 +131,7 @@ function separationVerdict(free: readonly string[], correlation: number[][], poi
 /** Fits the free parameters of a parameter set to measured points. Throws FitError, FitCancelledError. */
 export function fitMeasurements(input: FitRequestInput, opts: FitOptions = {}): FitResult {
   const parsed = fitRequestSchema.safeParse(input);
-  if (!parsed.success) {
-    const issue = parsed.error.issues[0]!;
-    throw new FitError(`${issue.path.length > 0 ? `${issue.path.join(".")}: ` : ""}${issue.message}`);
-  }
+  if (!parsed.success) throw new FitError(zodIssueLines(parsed.error.issues, { rootLabel: "(request)" })[0]!);
   const { params, free, points, scaleByChi2 } = parsed.data;
   for (const p of points) {
     if (p.quantity === "verdet" && p.fieldT === 0)

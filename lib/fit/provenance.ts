@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { finiteNumber, safeString } from "@/lib/contracts/validation";
 import type { FitResult } from "./fit";
 import { FREEABLE_KEYS, type FreeableKey, freeParamSchema } from "./schema";
 
@@ -8,12 +9,12 @@ import { FREEABLE_KEYS, type FreeableKey, freeParamSchema } from "./schema";
  * (parameter_set_versions.provenance), which the version history shows.
  */
 
-const finite = z.number({ error: "must be a number" }).refine(Number.isFinite, { message: "must be finite" });
 const keySchema = z.enum(FREEABLE_KEYS as [FreeableKey, ...FreeableKey[]], { error: "not a parameter a fit can free" });
+const fittedValuesSchema = z.partialRecord(keySchema, finiteNumber("fitted value"));
 
 export const fitMeasurementSetRefSchema = z.strictObject({
   id: z.uuid({ error: "must be a measurement set id" }),
-  name: z.string().trim().min(1).max(200),
+  name: safeString().trim().min(1).max(200),
 });
 
 /** What the fit was: everything but the fitted values, which the body carries once. */
@@ -21,17 +22,18 @@ export const fitSummarySchema = z.strictObject({
   measurementSets: z.array(fitMeasurementSetRefSchema).min(1, "name the measurement set(s) the fit used").max(50),
   pointCount: z.number().int().min(1),
   free: z.array(freeParamSchema).min(1).max(FREEABLE_KEYS.length),
-  sigmas: z.partialRecord(
-    keySchema,
-    finite.refine((v) => v >= 0, { message: "must be ≥ 0" }),
-  ),
+  sigmas: z.partialRecord(keySchema, finiteNumber("σ").min(0, "must be ≥ 0")),
   sigmaScaledByChi2: z.boolean(),
   correlation: z
-    .array(z.array(finite.refine((v) => Math.abs(v) <= 1 + 1e-9, { message: "must lie in [−1, 1]" })).max(FREEABLE_KEYS.length))
+    .array(
+      z
+        .array(finiteNumber("correlation").refine((v) => Math.abs(v) <= 1 + 1e-9, { message: "must lie in [−1, 1]" }))
+        .max(FREEABLE_KEYS.length),
+    )
     .max(FREEABLE_KEYS.length),
-  chi2: finite.refine((v) => v >= 0, { message: "must be ≥ 0" }),
+  chi2: finiteNumber("χ²").min(0, "must be ≥ 0"),
   dof: z.number().int().min(1),
-  reducedChi2: finite.refine((v) => v >= 0, { message: "must be ≥ 0" }),
+  reducedChi2: finiteNumber("reduced χ²").min(0, "must be ≥ 0"),
   separable: z.boolean(),
   fittedAt: z.iso.datetime({ error: "must be an ISO date-time" }),
 });
@@ -44,7 +46,7 @@ export const saveFitSchema = z
       .number({ error: "Send the version the fit started from (a whole number)." })
       .int("Must be a whole number.")
       .min(1, "Must be ≥ 1."),
-    values: z.partialRecord(keySchema, finite),
+    values: fittedValuesSchema,
     fit: fitSummarySchema,
   })
   .superRefine((body, ctx) => {
@@ -75,7 +77,7 @@ export function fitProvenance(input: SaveFitInput): FitProvenance {
 export function asFitProvenance(value: unknown): FitProvenance | null {
   if (typeof value !== "object" || value === null || (value as { kind?: unknown }).kind !== "fit") return null;
   const summary = fitSummarySchema.safeParse(Object.fromEntries(Object.entries(value).filter(([k]) => k !== "kind" && k !== "values")));
-  const values = z.partialRecord(keySchema, finite).safeParse((value as { values?: unknown }).values);
+  const values = fittedValuesSchema.safeParse((value as { values?: unknown }).values);
   return summary.success && values.success ? { kind: "fit", ...summary.data, values: values.data } : null;
 }
 

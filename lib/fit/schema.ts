@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { finiteNumber } from "@/lib/contracts/validation";
 import { measuredPointSchema } from "@/lib/measurements/point";
 import { MODEL_FLAG_KEYS, type ModelFlagKey, materialShape, modelParamsSchema } from "@/lib/physics/schema";
 
@@ -23,16 +24,13 @@ export const DEFAULT_FREE_KEYS: FreeableKey[] = ["gyrationPerT", "oscillatorWave
 /** At most this many points in one fit (the upload's row limit). */
 export const MAX_FIT_POINTS = 20000;
 
-const finite = (what: string) =>
-  z.number({ error: `${what} must be a number` }).refine(Number.isFinite, { message: `${what} must be finite` });
-
 export const freeParamSchema = z
   .strictObject({
     key: z.enum(FREEABLE_KEYS as [FreeableKey, ...FreeableKey[]], {
       error: (issue) => `"${String(issue.input)}" is not a model parameter that a fit can free`,
     }),
-    min: finite("min").optional(),
-    max: finite("max").optional(),
+    min: finiteNumber("min").optional(),
+    max: finiteNumber("max").optional(),
   })
   .refine((f) => f.min === undefined || f.max === undefined || f.min < f.max, { message: "min must be below max", path: ["min"] });
 export type FreeParam = z.infer<typeof freeParamSchema>;

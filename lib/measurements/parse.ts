@@ -1,5 +1,6 @@
 import Papa from "papaparse";
 import { z } from "zod";
+import { finiteNumber, positiveNumber, safeString } from "@/lib/contracts/validation";
 import { measuredQuantitySchema, type MeasuredPoint, type MeasuredQuantity } from "./point";
 import {
   quantityOfUnit,
@@ -36,7 +37,7 @@ export const DEFAULT_COLUMNS = {
   length: "length_m",
 } as const;
 
-const column = z.string().trim().min(1).max(200).nullable();
+const column = safeString().trim().min(1).max(200).nullable();
 
 /** Which column holds what, and in which unit. A null column means "not in the file". */
 export const columnMappingSchema = z.object({
@@ -53,16 +54,13 @@ export const columnMappingSchema = z.object({
 });
 export type ColumnMapping = z.infer<typeof columnMappingSchema>;
 
-const positive = (what: string) =>
-  z.number({ error: `${what} must be a number.` }).refine((v) => Number.isFinite(v) && v > 0, { message: `${what} must be > 0.` });
-
 /** Values entered once in the form for every row of the file. */
 export const fileDefaultsSchema = z.object({
   /** σ as a fraction of |value| (0.02 = 2 %), used when no σ column is mapped. */
-  relativeSigma: positive("The relative σ").optional(),
-  temperatureK: positive("The temperature").optional(),
-  fieldT: z.number({ error: "The field must be a number." }).refine(Number.isFinite, { message: "The field must be finite." }).optional(),
-  lengthM: positive("The sample length").optional(),
+  relativeSigma: positiveNumber("The relative σ").optional(),
+  temperatureK: positiveNumber("The temperature").optional(),
+  fieldT: finiteNumber("The field").optional(),
+  lengthM: positiveNumber("The sample length").optional(),
 });
 export type FileDefaults = z.infer<typeof fileDefaultsSchema>;
 

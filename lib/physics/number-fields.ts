@@ -14,3 +14,8 @@ export function finiteNumber(what: string) {
     .number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) })
     .refine(Number.isFinite, { message: `${what} must be finite` });
 }
+
+/** A finite number above 0; the messages name the field, as finiteNumber's do, and "… must be > 0". */
+export function positiveNumber(what: string) {
+  return finiteNumber(what).gt(0, `${what} must be > 0`);
+}

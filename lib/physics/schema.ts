@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { finiteNumber } from "./number-fields";
 
 /*
  * The one validation schema for the model parameters (../shared/physics-model.md §2), shared by
@@ -6,28 +7,25 @@ import { z } from "zod";
  * Messages name the rule, so the command line can print "field: rule" on one line.
  */
 
-const finite = (what: string) =>
-  z
-    .number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) })
-    .refine(Number.isFinite, { message: `${what} must be finite` });
-
 const isHalfInteger = (j: number) => Math.abs(j * 2 - Math.round(j * 2)) < 1e-9 && j >= 0.5;
 
 /** Material parameters of a paramagnet (no measurement conditions). */
 export const materialShape = {
-  ionDensityPerM3: finite("ion density").min(0, "must be ≥ 0 m⁻³").max(1e30, "must be ≤ 1e30 m⁻³"),
-  landeG: finite("Landé g").gt(0, "must be > 0").max(10, "must be ≤ 10"),
-  totalJ: finite("J").max(50, "must be ≤ 50").refine(isHalfInteger, { message: "must be a positive multiple of 1/2 (1/2, 1, 3/2, …)" }),
-  curieWeissK: finite("Curie–Weiss temperature").min(-1000, "must be ≥ −1000 K").max(1000, "must be ≤ 1000 K"),
-  gilbertDamping: finite("Gilbert damping").min(0, "must be ≥ 0").max(10, "must be ≤ 10"),
-  epsInf: finite("ε∞").gt(0, "must be > 0").max(100, "must be ≤ 100"),
-  sellmeierB: finite("Sellmeier B").min(0, "must be ≥ 0").max(100, "must be ≤ 100"),
-  sellmeierWavelengthNm: finite("Sellmeier wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
-  oscillatorStrength: finite("oscillator strength").min(0, "must be ≥ 0").max(100, "must be ≤ 100"),
-  oscillatorWavelengthNm: finite("oscillator wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
-  oscillatorDampingRadPerS: finite("oscillator damping").min(0, "must be ≥ 0 rad/s").max(1e17, "must be ≤ 1e17 rad/s"),
-  gyrationPerT: finite("gyration").min(-10, "must be ≥ −10 T⁻¹").max(10, "must be ≤ 10 T⁻¹"),
-  magneticScale: finite("magnetic scale").min(0, "must be ≥ 0").max(1000, "must be ≤ 1000").default(1),
+  ionDensityPerM3: finiteNumber("ion density").min(0, "must be ≥ 0 m⁻³").max(1e30, "must be ≤ 1e30 m⁻³"),
+  landeG: finiteNumber("Landé g").gt(0, "must be > 0").max(10, "must be ≤ 10"),
+  totalJ: finiteNumber("J")
+    .max(50, "must be ≤ 50")
+    .refine(isHalfInteger, { message: "must be a positive multiple of 1/2 (1/2, 1, 3/2, …)" }),
+  curieWeissK: finiteNumber("Curie–Weiss temperature").min(-1000, "must be ≥ −1000 K").max(1000, "must be ≤ 1000 K"),
+  gilbertDamping: finiteNumber("Gilbert damping").min(0, "must be ≥ 0").max(10, "must be ≤ 10"),
+  epsInf: finiteNumber("ε∞").gt(0, "must be > 0").max(100, "must be ≤ 100"),
+  sellmeierB: finiteNumber("Sellmeier B").min(0, "must be ≥ 0").max(100, "must be ≤ 100"),
+  sellmeierWavelengthNm: finiteNumber("Sellmeier wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
+  oscillatorStrength: finiteNumber("oscillator strength").min(0, "must be ≥ 0").max(100, "must be ≤ 100"),
+  oscillatorWavelengthNm: finiteNumber("oscillator wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
+  oscillatorDampingRadPerS: finiteNumber("oscillator damping").min(0, "must be ≥ 0 rad/s").max(1e17, "must be ≤ 1e17 rad/s"),
+  gyrationPerT: finiteNumber("gyration").min(-10, "must be ≥ −10 T⁻¹").max(10, "must be ≤ 10 T⁻¹"),
+  magneticScale: finiteNumber("magnetic scale").min(0, "must be ≥ 0").max(1000, "must be ≤ 1000").default(1),
   /**
    * The classical bound-electron (diamagnetic) gyration of §5.5, added to G when true. A switch,
    * not a number, so it never appears among the numeric parameters a fit may free. Absent = off.
@@ -37,9 +35,9 @@ export const materialShape = {
 
 /** Measurement conditions. */
 export const conditionsShape = {
-  temperatureK: finite("temperature").gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
-  fieldT: finite("field").min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T"),
-  lengthM: finite("length").gt(0, "must be > 0 m").max(100, "must be ≤ 100 m"),
+  temperatureK: finiteNumber("temperature").gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
+  fieldT: finiteNumber("field").min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T"),
+  lengthM: finiteNumber("length").gt(0, "must be > 0 m").max(100, "must be ≤ 100 m"),
 } as const;
 
 type WithTemps = { temperatureK: number; curieWeissK: number };
@@ -73,7 +71,7 @@ export const spectrumRequestSchema = z
     ...materialShape,
     ...conditionsShape,
     wavelengthsNm: z
-      .array(finite("wavelength").gt(0, "each wavelength must be > 0 nm"), {
+      .array(finiteNumber("wavelength").gt(0, "each wavelength must be > 0 nm"), {
         error: (issue) => (issue.input === undefined ? "wavelengthsNm is required" : "wavelengthsNm must be a list of numbers"),
       })
       .min(1, "must hold at least one wavelength")
@@ -81,7 +79,7 @@ export const spectrumRequestSchema = z
     method: z.enum(["analytic", "llg"], {
       error: (issue) => (issue.input === undefined ? 'method is required ("analytic" or "llg")' : 'must be "analytic" or "llg"'),
     }),
-    intensityWPerM2: finite("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²").optional(),
+    intensityWPerM2: finiteNumber("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²").optional(),
   })
   .superRefine(temperatureAboveCurieWeiss)
   .superRefine((v, ctx) => {
@@ -144,9 +142,9 @@ export const spinTraceRequestSchema = z
   .strictObject({
     ...materialShape,
     ...conditionsShape,
-    wavelengthNm: finite("wavelength").gt(0, "must be > 0 nm").max(1e9, "must be ≤ 1e9 nm"),
-    intensityWPerM2: finite("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²"),
-    periods: finite("periods").int("must be a whole number").min(1, "must be ≥ 1").max(50, "must be ≤ 50"),
+    wavelengthNm: finiteNumber("wavelength").gt(0, "must be > 0 nm").max(1e9, "must be ≤ 1e9 nm"),
+    intensityWPerM2: finiteNumber("intensity").min(0, "must be ≥ 0 W/m²").max(1e20, "must be ≤ 1e20 W/m²"),
+    periods: finiteNumber("periods").int("must be a whole number").min(1, "must be ≥ 1").max(50, "must be ≤ 50"),
   })
   .superRefine(temperatureAboveCurieWeiss)
   .superRefine((v, ctx) => {

@@ -17,6 +17,7 @@ import {
   polderSusceptibilities,
   rotations,
 } from "./optics";
+import { numericalRangeIssues } from "./numerical-range";
 import { type SpectrumRequest, formatIssues, spectrumRequestSchema } from "./schema";
 import type { ProgressCallback, SpectrumArrays, SpectrumPoint, SpectrumResult } from "./types";
 
@@ -102,6 +103,7 @@ export function createSpectrumJob(input: SpectrumRequest): SpectrumJob {
   const parsed = spectrumRequestSchema.safeParse(input);
   if (!parsed.success) throw new SpectrumInputError(formatIssues(parsed.error));
   const request = parsed.data;
+  if (numericalRangeIssues(request).length > 0) throw new SpectrumInputError(numericalRangeIssues(request));
   const ctx = runContext(request);
   const n = request.wavelengthsNm.length;
   const withIntensity = request.intensityWPerM2 !== undefined;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { finiteNumber, safeString } from "@/lib/contracts/validation";
 import { modelParamsSchema } from "@/lib/physics/schema";
 
 /*
@@ -6,11 +7,6 @@ import { modelParamsSchema } from "@/lib/physics/schema";
  * stores plans and the tests. Units are in the keys. Impossible requests (no lines, no points, a
  * cryostat reaching the Curie–Weiss temperature) get a message that names what to change.
  */
-
-const finite = (what: string) =>
-  z
-    .number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a number`) })
-    .refine(Number.isFinite, { message: `${what} must be finite` });
 
 /** Per axis (temperature, field) at most this many steps; keeps the candidate list readable. */
 export const MAX_STEPS_PER_AXIS = 200;
@@ -21,21 +17,21 @@ export const MAX_PLAN_POINTS = 60;
 export const MAX_LINES = 50;
 
 export const planLineSchema = z.strictObject({
-  name: z.string({ error: "line name must be text" }).trim().min(1, "give the line a name").max(120, "at most 120 characters"),
-  wavelengthNm: finite("wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
+  name: safeString({ error: "line name must be text" }).trim().min(1, "give the line a name").max(120, "at most 120 characters"),
+  wavelengthNm: finiteNumber("wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
 });
 export type PlanLine = z.infer<typeof planLineSchema>;
 
 export const temperatureRangeSchema = z.strictObject({
-  minK: finite("lowest temperature").gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
-  maxK: finite("highest temperature").gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
-  stepK: finite("temperature step").gt(0, "must be > 0 K"),
+  minK: finiteNumber("lowest temperature").gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
+  maxK: finiteNumber("highest temperature").gt(0, "must be > 0 K").max(10000, "must be ≤ 10000 K"),
+  stepK: finiteNumber("temperature step").gt(0, "must be > 0 K"),
 });
 
 export const fieldRangeSchema = z.strictObject({
-  minT: finite("lowest field").min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T"),
-  maxT: finite("highest field").min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T"),
-  stepT: finite("field step").gt(0, "must be > 0 T"),
+  minT: finiteNumber("lowest field").min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T"),
+  maxT: finiteNumber("highest field").min(-100, "must be ≥ −100 T").max(100, "must be ≤ 100 T"),
+  stepT: finiteNumber("field step").gt(0, "must be > 0 T"),
 });
 
 /**
@@ -48,10 +44,10 @@ export const noiseSchema = z.discriminatedUnion(
   [
     z.strictObject({
       kind: z.literal("density"),
-      radPerSqrtHz: finite("noise density").gt(0, "must be > 0 rad/√Hz"),
-      integrationS: finite("integration time").gt(0, "must be > 0 s").max(1e6, "must be ≤ 1e6 s"),
+      radPerSqrtHz: finiteNumber("noise density").gt(0, "must be > 0 rad/√Hz"),
+      integrationS: finiteNumber("integration time").gt(0, "must be > 0 s").max(1e6, "must be ≤ 1e6 s"),
     }),
-    z.strictObject({ kind: z.literal("sigma"), sigmaRad: finite("σ per point").gt(0, "must be > 0 rad") }),
+    z.strictObject({ kind: z.literal("sigma"), sigmaRad: finiteNumber("σ per point").gt(0, "must be > 0 rad") }),
   ],
   { error: 'noise.kind must be "density" or "sigma"' },
 );
@@ -61,7 +57,7 @@ export const criterionSchema = z.discriminatedUnion(
   "kind",
   [
     /** Standard error of the magnetic share |θm|/(|θe|+|θm|) at one wavelength (the default). */
-    z.strictObject({ kind: z.literal("share"), wavelengthNm: finite("wavelength").gt(0, "must be > 0 nm") }),
+    z.strictObject({ kind: z.literal("share"), wavelengthNm: finiteNumber("wavelength").gt(0, "must be > 0 nm") }),
     /** Standard error of the fitted magneticScale. */
     z.strictObject({ kind: z.literal("magneticScale") }),
     /** D-optimal: the determinant of the covariance of the free parameters (as relative errors). */
@@ -80,16 +76,16 @@ export const planRequestSchema = z
     lines: z.array(planLineSchema).max(MAX_LINES, `at most ${MAX_LINES} lines`),
     temperatures: temperatureRangeSchema,
     fields: fieldRangeSchema,
-    lengthM: finite("sample length").gt(0, "must be > 0 m").max(100, "must be ≤ 100 m"),
+    lengthM: finiteNumber("sample length").gt(0, "must be > 0 m").max(100, "must be ≤ 100 m"),
     noise: noiseSchema,
-    points: finite("number of points").int("must be a whole number").max(MAX_PLAN_POINTS, `must be ≤ ${MAX_PLAN_POINTS}`),
+    points: finiteNumber("number of points").int("must be a whole number").max(MAX_PLAN_POINTS, `must be ≤ ${MAX_PLAN_POINTS}`),
     criterion: criterionSchema,
     freeKeys: z
       .array(z.string())
       .min(1, "free at least one parameter")
       .max(8, "free at most 8 parameters")
       .default([...DEFAULT_FREE_KEYS]),
-    topPlans: finite("number of plans").int().min(1).max(20).default(5),
+    topPlans: finiteNumber("number of plans").int().min(1).max(20).default(5),
   })
   .superRefine((v, ctx) => {
     const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });

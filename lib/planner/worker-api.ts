@@ -1,3 +1,4 @@
+import { zodIssueLines } from "@/lib/contracts/validation";
 import { planMeasurements, type PlanResult } from "./plan";
 import { planRequestSchema } from "./schema";
 
@@ -17,7 +18,7 @@ export function createPlannerWorkerApi(): PlannerWorkerApi {
   return {
     async plan(request, onProgress) {
       const parsed = planRequestSchema.safeParse(request);
-      if (!parsed.success) return { ok: false, issues: parsed.error.issues.map((i) => `${i.path.join(".") || "(request)"}: ${i.message}`) };
+      if (!parsed.success) return { ok: false, issues: zodIssueLines(parsed.error.issues, { rootLabel: "(request)" }) };
       let last = 0;
       const result = planMeasurements(parsed.data, {
         onProgress: onProgress

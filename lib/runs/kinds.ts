@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { finiteNumber } from "@/lib/contracts/validation";
+import { type NumericalRangeKey, numericalRangeProblem } from "@/lib/physics/numerical-range";
 import { modelParamsSchema, spectrumRequestSchema, type ModelParams } from "@/lib/physics/schema";
 import { createSpectrumJob, spectrumWarnings, staticMagnetization } from "@/lib/physics/spectrum";
 import { wavelengthGrid } from "@/lib/workbench/units";
@@ -57,13 +59,12 @@ export const MAX_RUN_WAVELENGTHS = 20_000;
 const SPECTRUM_CHUNK = 256;
 
 const methodSchema = z.enum(["analytic", "llg"], { error: 'must be "analytic" or "llg"' });
-const positive = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
 
 const wavelengthAxis = (max: number) =>
   z
     .strictObject({
-      fromNm: positive("fromNm").gt(0, "must be > 0 nm"),
-      toNm: positive("toNm").gt(0, "must be > 0 nm"),
+      fromNm: finiteNumber("fromNm").gt(0, "must be > 0 nm"),
+      toNm: finiteNumber("toNm").gt(0, "must be > 0 nm"),
       count: z.number().int("must be a whole number").min(1, "must be ≥ 1").max(max, `must be ≤ ${max}`),
       spacing: z.enum(["log", "linear"]).default("log"),
     })
@@ -82,6 +83,30 @@ function checkRequest(ctx: z.RefinementCtx, request: unknown, where: string): vo
   }
 }
 
+/**
+ * The numerical method's range (lib/physics/numerical-range.ts), each problem at the payload field
+ * that sets the value: the wavelength axis ends, the map's rows (every row, since a linear field
+ * axis may cross 0), and the set's damping and whichever condition the rows do not vary.
+ */
+function checkNumericalRange(ctx: z.RefinementCtx, p: MapPayload | SpectrumPayload): void {
+  if (p.method !== "llg") return;
+  const check = (path: (string | number)[], key: NumericalRangeKey, value: number) => {
+    const problem = numericalRangeProblem(key, value);
+    if (problem) ctx.addIssue({ code: "custom", path, message: problem });
+  };
+  check(["wavelengths", "fromNm"], "wavelengthNm", p.wavelengths.fromNm);
+  check(["wavelengths", "toNm"], "wavelengthNm", p.wavelengths.toNm);
+  check(["params", "gilbertDamping"], "gilbertDamping", p.params.gilbertDamping);
+  const map = "axis" in p ? p : null;
+  if (map?.axis !== "temperature") check(["params", "temperatureK"], "temperatureK", p.params.temperatureK);
+  if (map?.axis !== "field") check(["params", "fieldT"], "absFieldT", p.params.fieldT);
+  if (!map) return;
+  const key: NumericalRangeKey = map.axis === "temperature" ? "temperatureK" : "absFieldT";
+  const ys = mapRowValues(map);
+  const outside = ys.findIndex((y) => numericalRangeProblem(key, y) !== null);
+  if (outside >= 0) check(["rows", outside === ys.length - 1 ? "to" : "from"], key, ys[outside]!);
+}
+
 /* ---------- map: wavelength × temperature or wavelength × field ---------- */
 
 export const mapPayloadSchema = z
@@ -92,8 +117,8 @@ export const mapPayloadSchema = z
     axis: z.enum(["temperature", "field"]),
     wavelengths: wavelengthAxis(MAX_MAP_COLUMNS),
     rows: z.strictObject({
-      from: positive("from"),
-      to: positive("to"),
+      from: finiteNumber("from"),
+      to: finiteNumber("to"),
       count: z.number().int("must be a whole number").min(1, "must be ≥ 1").max(MAX_MAP_ROWS, `must be ≤ ${MAX_MAP_ROWS}`),
       spacing: z.enum(["log", "linear"]).default("linear"),
     }),
@@ -109,6 +134,7 @@ export const mapPayloadSchema = z
     const xs = axisValues(p.wavelengths);
     checkRequest(ctx, mapRowRequest(p, ys[0]!, xs), `first row (${ys[0]})`);
     if (ys.length > 1) checkRequest(ctx, mapRowRequest(p, ys[ys.length - 1]!, xs), `last row (${ys[ys.length - 1]})`);
+    checkNumericalRange(ctx, p);
   });
 export type MapPayload = z.infer<typeof mapPayloadSchema>;
 
@@ -196,6 +222,7 @@ export const spectrumPayloadSchema = z
     // The per-request cap of the physics (5000) applies to each chunk, not to the run.
     checkRequest(ctx, { ...p.params, method: p.method, wavelengthsNm: xs.slice(0, 2) }, "first wavelengths");
     checkRequest(ctx, { ...p.params, method: p.method, wavelengthsNm: xs.slice(-2) }, "last wavelengths");
+    checkNumericalRange(ctx, p);
   });
 export type SpectrumPayload = z.infer<typeof spectrumPayloadSchema>;
 

@@ -1,3 +1,4 @@
+import { NUMERICAL_RANGE, insideNumericalRange } from "@/lib/physics/numerical-range";
 import type { ModelParams } from "@/lib/physics/schema";
 import type { SpectrumPoint } from "@/lib/physics/types";
 import { parseNumber } from "./validate";
@@ -20,14 +21,6 @@ export const MAP_METHOD_LABEL: Record<MapMethod, string> = {
 
 export const MAP_COLS = 64;
 export const MAP_ROWS = 32;
-
-/** Where the numerical path is specified (physics-model.md §2 and §7). */
-export const NUMERICAL_LIMITS = {
-  wavelengthNm: [200, 20_000],
-  absFieldT: [0.01, 10],
-  temperatureK: [1, 400],
-  gilbertDamping: [1e-4, 0.5],
-} as const;
 
 export interface FieldAxisDrafts {
   fromT: string;
@@ -58,10 +51,6 @@ export interface MapPlan {
 
 const fmt = (x: number) => String(Number(x.toPrecision(4)));
 
-function inside(x: number, [lo, hi]: readonly [number, number]): boolean {
-  return x >= lo && x <= hi;
-}
-
 /**
  * Problems with the method itself for this set (the damping, and the set's own temperature or
  * field, which the other map keeps fixed). Empty for the analytic method.
@@ -69,24 +58,24 @@ function inside(x: number, [lo, hi]: readonly [number, number]): boolean {
 export function methodProblems(kind: MapKind, method: MapMethod, params: ModelParams, range: WavelengthRange): string[] {
   if (method === "analytic") return [];
   const out: string[] = [];
-  const [aLo, aHi] = NUMERICAL_LIMITS.gilbertDamping;
-  if (!inside(params.gilbertDamping, NUMERICAL_LIMITS.gilbertDamping)) {
+  const [aLo, aHi] = NUMERICAL_RANGE.gilbertDamping;
+  if (!insideNumericalRange("gilbertDamping", params.gilbertDamping)) {
     out.push(
       `Numerical LLG needs Gilbert damping α between ${aLo} and ${aHi}; this set has α = ${fmt(params.gilbertDamping)}. Use the analytic method.`,
     );
   }
-  const [wLo, wHi] = NUMERICAL_LIMITS.wavelengthNm;
+  const [wLo, wHi] = NUMERICAL_RANGE.wavelengthNm;
   if (range.toNm < wLo || range.fromNm > wHi) {
     out.push(
       `Numerical LLG covers ${wLo} nm–${wHi / 1000} µm; the wavelength range ${fmt(range.fromNm)}–${fmt(range.toNm)} nm lies outside it.`,
     );
   }
-  if (kind === "temperature" && !inside(Math.abs(params.fieldT), NUMERICAL_LIMITS.absFieldT)) {
-    const [bLo, bHi] = NUMERICAL_LIMITS.absFieldT;
+  if (kind === "temperature" && !insideNumericalRange("absFieldT", params.fieldT)) {
+    const [bLo, bHi] = NUMERICAL_RANGE.absFieldT;
     out.push(`Numerical LLG needs |B0| between ${bLo} and ${bHi} T; the temperature map uses the set's field, ${fmt(params.fieldT)} T.`);
   }
-  if (kind === "field" && !inside(params.temperatureK, NUMERICAL_LIMITS.temperatureK)) {
-    const [tLo, tHi] = NUMERICAL_LIMITS.temperatureK;
+  if (kind === "field" && !insideNumericalRange("temperatureK", params.temperatureK)) {
+    const [tLo, tHi] = NUMERICAL_RANGE.temperatureK;
     out.push(`Numerical LLG needs T between ${tLo} and ${tHi} K; the field map uses the set's temperature, ${fmt(params.temperatureK)} K.`);
   }
   return out;
@@ -98,7 +87,7 @@ export function mapColumns(range: WavelengthRange, method: MapMethod, cols = MAP
   let to = range.toNm;
   let note: string | null = null;
   if (method === "llg") {
-    const [lo, hi] = NUMERICAL_LIMITS.wavelengthNm;
+    const [lo, hi] = NUMERICAL_RANGE.wavelengthNm;
     if (to < lo || from > hi) return null;
     if (from < lo || to > hi) {
       from = Math.max(from, lo);
@@ -114,9 +103,9 @@ export function mapColumns(range: WavelengthRange, method: MapMethod, cols = MAP
  * modelled), at least 1 K, to 400 K. Null when that leaves nothing for the numerical method.
  */
 export function temperatureRows(params: ModelParams, method: MapMethod, rows = MAP_ROWS): number[] | null {
-  const lo = Math.max(NUMERICAL_LIMITS.temperatureK[0], params.curieWeissK + 1);
-  const hi = Math.max(lo + 1, NUMERICAL_LIMITS.temperatureK[1]);
-  if (method === "llg" && hi > NUMERICAL_LIMITS.temperatureK[1]) return null;
+  const lo = Math.max(NUMERICAL_RANGE.temperatureK[0], params.curieWeissK + 1);
+  const hi = Math.max(lo + 1, NUMERICAL_RANGE.temperatureK[1]);
+  if (method === "llg" && hi > NUMERICAL_RANGE.temperatureK[1]) return null;
   return wavelengthGrid(lo, hi, rows, "linear");
 }
 
@@ -129,7 +118,7 @@ export function parseFieldAxis(drafts: FieldAxisDrafts, method: MapMethod): { fr
   if (!(to > from)) return { error: "|B0| to must be above |B0| from." };
   if (to > 100) return { error: "|B0| to must be ≤ 100 T." };
   if (method === "llg") {
-    const [lo, hi] = NUMERICAL_LIMITS.absFieldT;
+    const [lo, hi] = NUMERICAL_RANGE.absFieldT;
     if (from < lo || to > hi)
       return {
         error: `Numerical LLG is specified for |B0| from ${lo} to ${hi} T; set the field axis within ${lo}–${hi} T or use the analytic method.`,

@@ -1,4 +1,6 @@
 import type { z } from "zod";
+import { zodIssueFields, zodIssueLines } from "@/lib/contracts/validation";
+import { numericalRangeIssues } from "@/lib/physics/numerical-range";
 import { modelParamsSchema, spectrumRequestSchema, type ModelParamKey, type ModelParams, type SpectrumRequest } from "@/lib/physics/schema";
 import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 import { formatNumberInput, parseDecimalOrNull } from "@/lib/model/number-text";
@@ -14,6 +16,11 @@ import { wavelengthGrid } from "./units";
 /** What the user typed, per parameter; a switch (FLAG_META) is held as "true" or "false". */
 export type ParamDrafts = Record<ModelParamKey, string>;
 export type FieldErrors<K extends string> = Partial<Record<K, string>>;
+
+/** The schema's message for each field that has none yet (the first issue per field wins); flat schemas only. */
+function addFieldErrors<K extends string>(errors: FieldErrors<K>, issues: readonly z.core.$ZodIssue[]): void {
+  for (const [field, message] of Object.entries(zodIssueFields(issues))) if (field !== "body") errors[field as K] ??= message;
+}
 
 export function draftsFromParams(params: ModelParams): ParamDrafts {
   const out = {} as ParamDrafts;
@@ -37,12 +44,7 @@ export function validateParams(drafts: ParamDrafts): { params: ModelParams | nul
     else candidate[m.key] = v;
   }
   const parsed = modelParamsSchema.safeParse(candidate);
-  if (!parsed.success) {
-    for (const issue of parsed.error.issues) {
-      const k = issue.path[0] as ModelParamKey | undefined;
-      if (k && !errors[k]) errors[k] = issue.message;
-    }
-  }
+  if (!parsed.success) addFieldErrors(errors, parsed.error.issues);
   return Object.keys(errors).length > 0 || !parsed.success ? { params: null, errors } : { params: parsed.data, errors };
 }
 
@@ -68,10 +70,7 @@ export function validateRange(drafts: RangeDrafts): { range: WavelengthRange | n
   if (from === null || to === null || points === null) return { range: null, errors };
   const parsed = rangeSchema.safeParse({ fromNm: from, toNm: to, points, spacing: drafts.spacing });
   if (!parsed.success) {
-    for (const issue of parsed.error.issues) {
-      const k = issue.path[0] as "fromNm" | "toNm" | "points" | undefined;
-      if (k && !errors[k]) errors[k] = issue.message;
-    }
+    addFieldErrors(errors, parsed.error.issues);
     return { range: null, errors };
   }
   return { range: parsed.data, errors };
@@ -105,16 +104,16 @@ export function computableMarkers(params: ModelParams, markersNm: readonly numbe
 }
 
 /**
- * A spectrum request checked by the shared schema before it is sent, for the panels that build
- * their own requests (maps, comparison, ΔMz curve): anything out of range becomes an error on the
- * page and never reaches a worker.
+ * A spectrum request checked by the shared schema, and for the numerical method by its range,
+ * before it is sent, for the panels that build their own requests (maps, comparison, ΔMz curve):
+ * anything out of range becomes an error on the page and never reaches a worker.
  */
 export function checkedSpectrumRequest(input: z.input<typeof spectrumRequestSchema>): SpectrumRequest {
   const parsed = spectrumRequestSchema.safeParse(input);
-  if (parsed.success) return parsed.data;
-  const issue = parsed.error.issues[0];
-  const where = issue && issue.path.length > 0 ? `${String(issue.path[0])}: ` : "";
-  throw new Error(issue ? `${where}${issue.message}` : "invalid spectrum request");
+  if (!parsed.success) throw new Error(zodIssueLines(parsed.error.issues)[0] ?? "invalid spectrum request");
+  const outside = numericalRangeIssues(parsed.data);
+  if (outside.length > 0) throw new Error(outside[0]);
+  return parsed.data;
 }
 
 /** True when two parameter sets differ in any model parameter (key order and extra keys ignored). */

@@ -12,6 +12,7 @@
  */
 import PgBoss from "pg-boss";
 import { createDb, createPool } from "@/db/connection";
+import { zodIssueLines } from "@/lib/contracts/validation";
 import { runKindHandler, type ChunkOutput } from "@/lib/runs/kinds";
 import { encodeResult } from "@/lib/runs/encoding";
 import { RUN_QUEUE } from "@/lib/runs/queue-options";
@@ -66,7 +67,7 @@ async function main(): Promise<void> {
         runId,
         attempt,
         state: "failed",
-        error: `Invalid run: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`,
+        error: `Invalid run: ${zodIssueLines(parsed.error.issues).join("; ")}`,
       });
       return;
     }

@@ -63,6 +63,21 @@ describe("command line", () => {
     expect(z.points[0].verdetRadPerTm).toBeNull();
   });
 
+  it("refuses method llg outside the numerical range (§2) with exit 2 and one line naming the field; analytic runs there", () => {
+    const cold = run(JSON.stringify({ ...valid, method: "llg", temperatureK: 0.5, curieWeissK: 0 }));
+    expect(cold.status).toBe(2);
+    expect(cold.stdout).toBe("");
+    expect(cold.stderrLines).toHaveLength(1);
+    expect(cold.stderrLines[0]).toMatch(
+      /^temperatureK: numerical LLG is specified for T from 1 to 400 K; 0\.5 K lies outside \(use method "analytic"\)$/,
+    );
+    const far = run(JSON.stringify({ ...valid, method: "llg", wavelengthsNm: [632.8, 30_000] }));
+    expect(far.status).toBe(2);
+    expect(far.stderrLines).toHaveLength(1);
+    expect(far.stderrLines[0]).toMatch(/^wavelengthsNm\.1: numerical LLG is specified for wavelengths from 200 to 20000 nm/);
+    expect(run(JSON.stringify({ ...valid, wavelengthsNm: [632.8, 30_000] })).status).toBe(0);
+  });
+
   it("takes the diamagnetic switch (§5.5): a per-point diamagnetic part when on, a one-line error when not a boolean", () => {
     const on = run(JSON.stringify({ ...valid, diamagneticTerm: true }));
     expect(on.status).toBe(0);

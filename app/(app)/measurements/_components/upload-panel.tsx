@@ -5,6 +5,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
+import { zodIssueFields } from "@/lib/contracts/validation";
 import {
   MAX_FILE_BYTES,
   MAX_ROWS,
@@ -130,7 +131,7 @@ export function UploadPanel({
     () => (mapping && checked ? uploadMeasurementMetaSchema.safeParse({ labId, name, sample, mapping, defaults: checked.defaults }) : null),
     [labId, name, sample, mapping, checked],
   );
-  const metaErrors = meta && !meta.success ? Object.fromEntries(meta.error.issues.map((i) => [String(i.path[0]), i.message])) : {};
+  const metaErrors = meta && !meta.success ? zodIssueFields(meta.error.issues) : {};
 
   const serverProblems = uploadProblems(upload.error);
   const problems = serverProblems.length > 0 ? serverProblems : (checked?.result.errors ?? []);

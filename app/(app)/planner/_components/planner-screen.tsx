@@ -13,6 +13,7 @@ import { ErrorPanel } from "@/components/ui/error-panel";
 import { PageHeader } from "@/components/ui/page-header";
 import { SkeletonRows } from "@/components/ui/skeleton";
 import { INPUT_CLASS } from "@/components/ui/text-field";
+import { zodIssueLines } from "@/lib/contracts/validation";
 import { cautionsFor } from "@/lib/planner/cautions";
 import { type PlanRequest, planRequestSchema, rangeValues } from "@/lib/planner/schema";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
@@ -111,6 +112,15 @@ const FIELD_LABEL: Record<string, string> = {
   freeKeys: "Free parameters",
 };
 
+/** An issue's field as the form names it: the last key of its path (list positions skipped), else "Request". */
+const planFieldLabel = (path: string) =>
+  FIELD_LABEL[
+    path
+      .split(".")
+      .filter((key) => !/^\d+$/.test(key))
+      .at(-1) ?? ""
+  ] ?? "Request";
+
 const num = (s: string) => parseNumber(s) ?? Number.NaN;
 
 function PlannerBody({
@@ -190,11 +200,7 @@ function PlannerBody({
     e.preventDefault();
     const parsed = buildRequest();
     if (!parsed.success) {
-      setIssues(
-        parsed.error.issues.map(
-          (i) => `${FIELD_LABEL[String(i.path.filter((p) => typeof p === "string").at(-1))] ?? "Request"}: ${i.message}`,
-        ),
-      );
+      setIssues(zodIssueLines(parsed.error.issues, { rootLabel: "Request", label: planFieldLabel }));
       return;
     }
     setIssues([]);

@@ -4,6 +4,7 @@ import { useActionState, useState } from "react";
 import { signUpAction } from "@/lib/auth/actions";
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/contracts/accounts";
 import { signUpSchema } from "@/lib/contracts/accounts";
+import { zodIssueFields } from "@/lib/contracts/validation";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
@@ -41,14 +42,8 @@ export function SignUpForm({ redirectTo, initialEmail = "" }: { redirectTo?: str
       noValidate
       onSubmit={(event) => {
         // The server action's own schema, for a quick answer; the action checks again.
-        const errors: Record<string, string> = {};
         const parsed = signUpSchema.safeParse(values);
-        if (!parsed.success) {
-          for (const issue of parsed.error.issues) {
-            const key = String(issue.path[0] ?? "");
-            errors[key] ??= issue.message;
-          }
-        }
+        const errors = parsed.success ? {} : zodIssueFields(parsed.error.issues);
         if (values.confirmPassword !== values.password) errors.confirmPassword = "The two passwords differ.";
         setLocalError(errors);
         if (Object.keys(errors).length > 0) event.preventDefault();
