@@ -7,7 +7,8 @@ import { createDb, createPool } from "./connection";
 import { seedDemoMeasurements } from "./demo-measurements";
 import { DEMO_LAB, DEMO_PASSWORD, DEMO_SETS, DEMO_USERS, OTHER_LAB } from "./demo-data";
 import { seedDemoLightSources } from "./demo-light-sources";
-import { auditLog, labMemberships, labs, parameterSets, parameterSetVersions, users } from "./schema";
+import { recordAudit } from "./queries/audit";
+import { labMemberships, labs, parameterSets, parameterSetVersions, users } from "./schema";
 
 /*
  * Idempotent demo seed: fixed ids + "on conflict do nothing", so running it twice (or on a
@@ -122,13 +123,15 @@ async function main(): Promise<void> {
             createdAt: at(version.daysAgo),
           })),
         );
-        await tx.insert(auditLog).values({
-          actorId: null,
-          action: "demo.seed",
-          targetType: "parameter_set",
-          targetId: set.id,
-          labId: set.labId,
-          details: { versions: set.versions.length },
+        await recordAudit(tx, {
+          entry: {
+            actorId: null,
+            action: "demo.seed",
+            targetType: "parameter_set",
+            targetId: set.id,
+            labId: set.labId,
+            details: { versions: set.versions.length },
+          },
         });
       }
       created += await seedDemoLightSources(tx);

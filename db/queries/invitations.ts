@@ -1,11 +1,10 @@
-import "server-only";
 import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
-import type { LabRole } from "@/lib/contracts/roles";
+import type { Caller, ResourceAccess } from "@/lib/contracts/access";
 import type { InvitationSummary } from "@/lib/contracts/labs";
-import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
-import { type Page } from "@/lib/contracts/paging";
-import type { PageQuery } from "@/lib/contracts/paging";
-import { db } from "../client";
+import type { Page, PageQuery } from "@/lib/contracts/paging";
+import type { LabRole } from "@/lib/contracts/roles";
+import type { Executor } from "../executor";
+import { decodeCursor, timeIdCursor, toPage } from "../paging";
 import { invitations, labMemberships, labs, users } from "../schema";
 import { recordAudit } from "./audit";
 
@@ -17,13 +16,11 @@ import { recordAudit } from "./audit";
 
 export const INVITATION_DAYS = 7;
 
-export async function createInvitation(options: {
-  actorId: string;
-  labId: string;
-  email: string;
-  role: LabRole;
-  tokenHash: string;
-}): Promise<InvitationSummary> {
+export async function createInvitation(
+  db: Executor,
+  options: { access: ResourceAccess<"lab">; email: string; role: LabRole; tokenHash: string },
+): Promise<InvitationSummary> {
+  const { caller, labId } = options.access;
   return db.transaction(async (tx) => {
     // A new invitation to the same address replaces the pending one: only the newest link works.
     await tx
@@ -31,7 +28,7 @@ export async function createInvitation(options: {
       .set({ revokedAt: new Date() })
       .where(
         and(
-          eq(invitations.labId, options.labId),
+          eq(invitations.labId, labId),
           eq(invitations.email, options.email),
           isNull(invitations.acceptedAt),
           isNull(invitations.revokedAt),
@@ -40,27 +37,26 @@ export async function createInvitation(options: {
     const [row] = await tx
       .insert(invitations)
       .values({
-        labId: options.labId,
+        labId,
         email: options.email,
         role: options.role,
         tokenHash: options.tokenHash,
-        invitedById: options.actorId,
+        invitedById: caller.id,
         expiresAt: new Date(Date.now() + INVITATION_DAYS * 24 * 60 * 60 * 1000),
       })
       .returning();
     if (!row) throw new Error("insert into invitations returned no row");
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
-        actorId: options.actorId,
+        actorId: caller.id,
         action: "invitation.create",
         targetType: "invitation",
         targetId: row.id,
-        labId: options.labId,
+        labId,
         details: { email: row.email, role: row.role },
       },
     });
-    const [actor] = await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, options.actorId));
+    const [actor] = await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, caller.id));
     return {
       id: row.id,
       email: row.email,
@@ -73,7 +69,10 @@ export async function createInvitation(options: {
 }
 
 /** Pending invitations of a lab (not accepted, not revoked, not expired), newest first. */
-export async function listPendingInvitations(options: { labId: string; page: PageQuery }): Promise<Page<InvitationSummary>> {
+export async function listPendingInvitations(
+  db: Executor,
+  options: { access: ResourceAccess<"lab">; page: PageQuery },
+): Promise<Page<InvitationSummary>> {
   const after = decodeCursor(options.page.cursor, timeIdCursor);
   const rows = await db
     .select({
@@ -90,7 +89,7 @@ export async function listPendingInvitations(options: { labId: string; page: Pag
     .leftJoin(users, eq(users.id, invitations.invitedById))
     .where(
       and(
-        eq(invitations.labId, options.labId),
+        eq(invitations.labId, options.access.labId),
         isNull(invitations.acceptedAt),
         isNull(invitations.revokedAt),
         gt(invitations.expiresAt, new Date()),
@@ -114,29 +113,25 @@ export async function listPendingInvitations(options: { labId: string; page: Pag
   );
 }
 
-export async function revokeInvitation(options: { actorId: string; labId: string; id: string }): Promise<boolean> {
+/** Withdraws a pending invitation of the lab; false when there is no such pending invitation. */
+export async function revokeInvitation(db: Executor, options: { access: ResourceAccess<"lab">; id: string }): Promise<boolean> {
+  const { caller, labId } = options.access;
   return db.transaction(async (tx) => {
     const [row] = await tx
       .update(invitations)
       .set({ revokedAt: new Date() })
       .where(
-        and(
-          eq(invitations.id, options.id),
-          eq(invitations.labId, options.labId),
-          isNull(invitations.acceptedAt),
-          isNull(invitations.revokedAt),
-        ),
+        and(eq(invitations.id, options.id), eq(invitations.labId, labId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)),
       )
       .returning({ id: invitations.id, email: invitations.email });
     if (!row) return false;
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
-        actorId: options.actorId,
+        actorId: caller.id,
         action: "invitation.revoke",
         targetType: "invitation",
         targetId: row.id,
-        labId: options.labId,
+        labId,
         details: { email: row.email },
       },
     });
@@ -163,7 +158,7 @@ function stateOf(row: { acceptedAt: Date | null; revokedAt: Date | null; expires
 }
 
 /** What the invitee's link shows; null when the token names no invitation. */
-export async function findInvitationByToken(options: { tokenHash: string }): Promise<InvitationView | null> {
+export async function findInvitationByToken(db: Executor, options: { tokenHash: string }): Promise<InvitationView | null> {
   const [row] = await db
     .select({
       labName: labs.name,
@@ -194,25 +189,24 @@ export type AcceptResult =
   | { ok: true; labId: string; labName: string; role: LabRole; alreadyMember: boolean }
   | { ok: false; reason: "unknown" | "accepted" | "revoked" | "expired" | "other_email"; email?: string };
 
-/** Accepts in one transaction with the invitation row locked, so a link works exactly once. */
-export async function acceptInvitation(options: { tokenHash: string; userId: string; userEmail: string }): Promise<AcceptResult> {
+/** The caller accepts, in one transaction with the invitation row locked, so a link works exactly once. */
+export async function acceptInvitation(db: Executor, options: { caller: Caller; tokenHash: string }): Promise<AcceptResult> {
+  const { caller } = options;
   return db.transaction(async (tx) => {
     const [row] = await tx.select().from(invitations).where(eq(invitations.tokenHash, options.tokenHash)).for("update");
     if (!row) return { ok: false as const, reason: "unknown" as const };
     const state = stateOf(row);
     if (state !== "pending") return { ok: false as const, reason: state };
-    if (row.email !== options.userEmail.trim().toLowerCase())
-      return { ok: false as const, reason: "other_email" as const, email: row.email };
+    if (row.email !== caller.email.trim().toLowerCase()) return { ok: false as const, reason: "other_email" as const, email: row.email };
     const inserted = await tx
       .insert(labMemberships)
-      .values({ labId: row.labId, userId: options.userId, role: row.role })
+      .values({ labId: row.labId, userId: caller.id, role: row.role })
       .onConflictDoNothing()
       .returning({ role: labMemberships.role });
-    await tx.update(invitations).set({ acceptedAt: new Date(), acceptedById: options.userId }).where(eq(invitations.id, row.id));
-    await recordAudit({
-      tx,
+    await tx.update(invitations).set({ acceptedAt: new Date(), acceptedById: caller.id }).where(eq(invitations.id, row.id));
+    await recordAudit(tx, {
       entry: {
-        actorId: options.userId,
+        actorId: caller.id,
         action: "invitation.accept",
         targetType: "invitation",
         targetId: row.id,

@@ -71,8 +71,7 @@ export async function createLightSource(options: { caller: Caller; input: Create
     return await db.transaction(async (tx) => {
       const [row] = await tx.insert(lightSources).values(input).returning();
       if (!row) throw new Error("insert into light_sources returned no row");
-      await recordAudit({
-        tx,
+      await recordAudit(tx, {
         entry: {
           actorId: caller.id,
           action: "light_source.create",
@@ -115,8 +114,7 @@ export async function updateLightSource(options: {
         .where(and(eq(lightSources.id, id), eq(lightSources.labId, labId)))
         .returning();
       if (!row) throw notFound(NOT_FOUND);
-      await recordAudit({
-        tx,
+      await recordAudit(tx, {
         entry: {
           actorId: caller.id,
           action: "light_source.update",
@@ -141,8 +139,7 @@ export async function deleteLightSource(options: { caller: Caller; id: string; l
       .where(and(eq(lightSources.id, id), eq(lightSources.labId, labId)))
       .returning({ name: lightSources.name });
     if (!row) throw notFound(NOT_FOUND);
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
         actorId: caller.id,
         action: "light_source.delete",

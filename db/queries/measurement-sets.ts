@@ -176,8 +176,7 @@ export async function deleteMeasurementSet(options: { caller: Caller; id: string
         objectKey: measurementSets.objectKey,
       });
     if (!row) return null;
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
         actorId: options.caller.id,
         action: "measurement_set.delete",

@@ -17,6 +17,7 @@ import { labMemberships, labs, parameterSets, parameterSetVersions, users } from
 import { type LabRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
 import type { Caller } from "@/lib/contracts/access";
+import type { AuditAction } from "@/lib/contracts/audit";
 
 /*
  * Parameter sets and their immutable versions. Callers pass the lab they were authorized for
@@ -179,8 +180,7 @@ export async function createParameterSet(options: {
         createdById: caller.id,
         createdAt: row.createdAt,
       });
-      await recordAudit({
-        tx,
+      await recordAudit(tx, {
         entry: {
           actorId: caller.id,
           action: "parameter_set.create",
@@ -239,7 +239,7 @@ async function saveNewVersion(
     skipIfUnchanged?: boolean;
     /** Where the new version came from (e.g. a fit), stored with its snapshot. */
     provenance?: Record<string, unknown>;
-    audit: { action: string; details: (changed: (keyof Content)[]) => Record<string, unknown> };
+    audit: { action: AuditAction; details: (changed: (keyof Content)[]) => Record<string, unknown> };
   },
 ): Promise<ParameterSet> {
   const [current] = await tx
@@ -280,8 +280,7 @@ async function saveNewVersion(
     createdById: options.caller.id,
     createdAt: now,
   });
-  await recordAudit({
-    tx,
+  await recordAudit(tx, {
     entry: {
       actorId: options.caller.id,
       action: options.audit.action,
@@ -407,8 +406,7 @@ export async function deleteParameterSet(options: { caller: Caller; id: string; 
       .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
       .returning({ name: parameterSets.name, version: parameterSets.version });
     if (!row) return false;
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
         actorId: options.caller.id,
         action: "parameter_set.delete",
@@ -488,8 +486,7 @@ export async function saveParameterSetViewState(options: {
       .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
       .returning({ id: parameterSets.id });
     if (rows.length === 0) throw notFound(NOT_FOUND);
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
         actorId: options.caller.id,
         action: "parameter_set.view_state",

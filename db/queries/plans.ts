@@ -77,8 +77,7 @@ export async function savePlan(options: { caller: Caller; setId: string; labId: 
       })
       .returning({ id: plans.id });
     if (!row) throw new Error("insert into plans returned no row");
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: { actorId: caller.id, action: "plan.save", targetType: "plan", targetId: row.id, labId, details: { setId, name: input.name } },
     });
     return row.id;
@@ -94,8 +93,7 @@ export async function deletePlan(options: { caller: Caller; id: string; setId: s
   if (!existing) throw notFound(NOT_FOUND);
   await db.transaction(async (tx) => {
     await tx.delete(plans).where(and(eq(plans.id, id), eq(plans.setId, setId)));
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
         actorId: caller.id,
         action: "plan.delete",

@@ -25,8 +25,7 @@ export async function createShareLink(options: {
       .values({ setId: options.setId, tokenHash: options.tokenHash, createdById: options.actorId })
       .returning({ id: shareLinks.id, createdAt: shareLinks.createdAt });
     if (!row) throw new Error("insert into share_links returned no row");
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
         actorId: options.actorId,
         action: "share_link.create",
@@ -82,8 +81,7 @@ export async function revokeShareLink(options: { actorId: string; setId: string;
       .where(and(eq(shareLinks.id, options.linkId), eq(shareLinks.setId, options.setId), isNull(shareLinks.revokedAt)))
       .returning({ id: shareLinks.id });
     if (!row) return false;
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: {
         actorId: options.actorId,
         action: "share_link.revoke",

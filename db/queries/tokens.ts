@@ -1,11 +1,9 @@
-import "server-only";
 import { and, desc, eq, isNull, lt, or, sql } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
-import { type Page } from "@/lib/contracts/paging";
-import type { PageQuery } from "@/lib/contracts/paging";
+import type { Page, PageQuery } from "@/lib/contracts/paging";
 import type { TokenSummary } from "@/lib/contracts/tokens";
-import { db } from "../client";
-import { apiTokens, users, type User } from "../schema";
+import type { Executor } from "../executor";
+import { decodeCursor, timeIdCursor, toPage } from "../paging";
+import { apiTokens, type User, users } from "../schema";
 import { recordAudit } from "./audit";
 
 const summary = (row: { id: string; name: string; createdAt: Date; lastUsedAt: Date | null }): TokenSummary => ({
@@ -15,7 +13,8 @@ const summary = (row: { id: string; name: string; createdAt: Date; lastUsedAt: D
   lastUsedAt: row.lastUsedAt?.toISOString() ?? null,
 });
 
-export async function listTokens(options: { userId: string; page: PageQuery }): Promise<Page<TokenSummary>> {
+/** The user's live tokens, newest first. */
+export async function listTokens(db: Executor, options: { userId: string; page: PageQuery }): Promise<Page<TokenSummary>> {
   const after = decodeCursor(options.page.cursor, timeIdCursor);
   const rows = await db
     .select({
@@ -38,15 +37,14 @@ export async function listTokens(options: { userId: string; page: PageQuery }): 
   return toPage(rows, options.page.limit, summary, (row) => [row.cursorAt, row.id]);
 }
 
-export async function createToken(options: { userId: string; name: string; tokenHash: string }): Promise<TokenSummary> {
+export async function createToken(db: Executor, options: { userId: string; name: string; tokenHash: string }): Promise<TokenSummary> {
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(apiTokens)
       .values({ userId: options.userId, name: options.name, tokenHash: options.tokenHash })
       .returning();
     if (!row) throw new Error("insert into api_tokens returned no row");
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: { actorId: options.userId, action: "token.create", targetType: "api_token", targetId: row.id, details: { name: row.name } },
     });
     return summary(row);
@@ -54,7 +52,7 @@ export async function createToken(options: { userId: string; name: string; token
 }
 
 /** Revokes one of the caller's own tokens; false when there is no such live token of theirs. */
-export async function revokeToken(options: { userId: string; tokenId: string }): Promise<boolean> {
+export async function revokeToken(db: Executor, options: { userId: string; tokenId: string }): Promise<boolean> {
   return db.transaction(async (tx) => {
     const rows = await tx
       .update(apiTokens)
@@ -63,8 +61,7 @@ export async function revokeToken(options: { userId: string; tokenId: string }):
       .returning({ id: apiTokens.id, name: apiTokens.name });
     const row = rows[0];
     if (!row) return false;
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: { actorId: options.userId, action: "token.revoke", targetType: "api_token", targetId: row.id, details: { name: row.name } },
     });
     return true;
@@ -76,7 +73,7 @@ export async function revokeToken(options: { userId: string; tokenId: string }):
 const LAST_USED_GRANULARITY_MS = 60 * 1000;
 
 /** The user a live (not revoked) token belongs to, or null. */
-export async function findUserByTokenHash(options: { tokenHash: string }): Promise<User | null> {
+export async function findUserByTokenHash(db: Executor, options: { tokenHash: string }): Promise<User | null> {
   const [row] = await db
     .select({ user: users, tokenId: apiTokens.id })
     .from(apiTokens)

@@ -1,11 +1,11 @@
-import "server-only";
 import { and, eq, isNull, sql } from "drizzle-orm";
-import { uniqueViolation } from "@/db/errors";
-import { db } from "../client";
-import { labMemberships, labs, passwordResets, users, type User } from "../schema";
+import type { Caller } from "@/lib/contracts/access";
+import { uniqueViolation } from "../errors";
+import type { Executor } from "../executor";
+import { labMemberships, labs, passwordResets, type User, users } from "../schema";
 import { recordAudit } from "./audit";
 
-export async function findUserByEmail(options: { email: string }): Promise<User | null> {
+export async function findUserByEmail(db: Executor, options: { email: string }): Promise<User | null> {
   const [row] = await db
     .select()
     .from(users)
@@ -14,7 +14,7 @@ export async function findUserByEmail(options: { email: string }): Promise<User 
   return row ?? null;
 }
 
-export async function findUserById(options: { id: string }): Promise<User | null> {
+export async function findUserById(db: Executor, options: { id: string }): Promise<User | null> {
   const [row] = await db.select().from(users).where(eq(users.id, options.id)).limit(1);
   return row ?? null;
 }
@@ -24,7 +24,10 @@ export type CreateAccountResult =
   | { ok: false; reason: "email_taken" };
 
 /** Creates a user and their personal lab (the user owns it) in one transaction. */
-export async function createAccount(options: { name: string; email: string; passwordHash: string }): Promise<CreateAccountResult> {
+export async function createAccount(
+  db: Executor,
+  options: { name: string; email: string; passwordHash: string },
+): Promise<CreateAccountResult> {
   try {
     return await db.transaction(async (tx) => {
       const [user] = await tx
@@ -38,8 +41,7 @@ export async function createAccount(options: { name: string; email: string; pass
         .returning({ id: labs.id });
       if (!lab) throw new Error("insert into labs returned no row");
       await tx.insert(labMemberships).values({ labId: lab.id, userId: user.id, role: "owner" });
-      await recordAudit({
-        tx,
+      await recordAudit(tx, {
         entry: { actorId: user.id, action: "user.sign_up", targetType: "user", targetId: user.id, labId: lab.id, details: {} },
       });
       return { ok: true as const, user, labId: lab.id };
@@ -51,15 +53,25 @@ export async function createAccount(options: { name: string; email: string; pass
 }
 
 /** Ends every session of the user (sign-out, password change or reset, "end all sessions"). */
-export async function bumpSessionVersion(options: { userId: string; executor?: Pick<typeof db, "update"> }): Promise<void> {
-  await (options.executor ?? db)
+export async function bumpSessionVersion(db: Executor, options: { userId: string }): Promise<void> {
+  await db
     .update(users)
     .set({ sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
     .where(eq(users.id, options.userId));
 }
 
+/** "End all sessions" of a user, on the caller's request, recorded in the audit trail. */
+export async function endSessions(db: Executor, options: { caller: Caller; userId: string }): Promise<void> {
+  await db.transaction(async (tx) => {
+    await bumpSessionVersion(tx, { userId: options.userId });
+    await recordAudit(tx, {
+      entry: { actorId: options.caller.id, action: "user.end_sessions", targetType: "user", targetId: options.userId, details: {} },
+    });
+  });
+}
+
 /** A new single-use reset link for the user; earlier unused ones stop working. */
-export async function createPasswordReset(options: { userId: string; tokenHash: string; ttlMs: number }): Promise<void> {
+export async function createPasswordReset(db: Executor, options: { userId: string; tokenHash: string; ttlMs: number }): Promise<void> {
   await db.transaction(async (tx) => {
     await tx
       .update(passwordResets)
@@ -75,10 +87,10 @@ export async function createPasswordReset(options: { userId: string; tokenHash: 
  * Sets the new password if the reset link is live, marks it used and ends every session, in one
  * transaction with the link's row locked (a link works once even when clicked twice at once).
  */
-export async function resetPasswordWithToken(options: {
-  tokenHash: string;
-  passwordHash: string;
-}): Promise<{ ok: true; email: string } | { ok: false }> {
+export async function resetPasswordWithToken(
+  db: Executor,
+  options: { tokenHash: string; passwordHash: string },
+): Promise<{ ok: true; email: string } | { ok: false }> {
   return db.transaction(async (tx) => {
     const [reset] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, options.tokenHash)).for("update");
     if (!reset || reset.usedAt || reset.expiresAt.getTime() <= Date.now()) return { ok: false as const };
@@ -89,8 +101,7 @@ export async function resetPasswordWithToken(options: {
       .where(eq(users.id, reset.userId))
       .returning({ email: users.email });
     if (!user) return { ok: false as const };
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: { actorId: reset.userId, action: "user.password_reset", targetType: "user", targetId: reset.userId, details: {} },
     });
     return { ok: true as const, email: user.email };
@@ -98,14 +109,13 @@ export async function resetPasswordWithToken(options: {
 }
 
 /** A password change: new hash and a new session version (the caller re-issues its own cookie). */
-export async function changePassword(options: { userId: string; passwordHash: string }): Promise<void> {
+export async function changePassword(db: Executor, options: { userId: string; passwordHash: string }): Promise<void> {
   await db.transaction(async (tx) => {
     await tx
       .update(users)
       .set({ passwordHash: options.passwordHash, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
       .where(eq(users.id, options.userId));
-    await recordAudit({
-      tx,
+    await recordAudit(tx, {
       entry: { actorId: options.userId, action: "user.password_change", targetType: "user", targetId: options.userId, details: {} },
     });
   });

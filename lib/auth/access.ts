@@ -26,7 +26,7 @@ export async function getCaller(request?: Request): Promise<Caller | null> {
   const token = bearerToken(headers);
   if (token === "malformed") throw new DomainError("unauthenticated", "The Authorization header must be `Bearer glx_…`.");
   if (token !== null) {
-    const user = await findUserByTokenHash({ tokenHash: hashToken(token) });
+    const user = await findUserByTokenHash(db, { tokenHash: hashToken(token) });
     if (!user) throw new DomainError("unauthenticated", "This API token is unknown or revoked.");
     return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "token" };
   }
@@ -45,7 +45,7 @@ export async function getSessionUser() {
   const session = await auth();
   const id = session?.user?.id;
   if (!id || !isUuid(id)) return null;
-  const user = await findUserById({ id });
+  const user = await findUserById(db, { id });
   if (!user || user.sessionVersion !== session.user.sessionVersion) return null;
   return user;
 }

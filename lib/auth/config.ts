@@ -2,6 +2,7 @@ import "server-only";
 import NextAuth, { CredentialsSignin, type DefaultSession } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import type { SiteRole } from "@/lib/contracts/roles";
+import { db } from "@/db/client";
 import { bumpSessionVersion, findUserByEmail } from "@/db/queries/users";
 import { clientIp } from "./client-ip";
 import { dummyVerify, verifyPassword } from "./password";
@@ -53,7 +54,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         const { email, password } = parsed.data;
         const ip = clientIp(request.headers);
         if ((await signInWaitSeconds({ email, ip })) > 0) throw new RateLimitedSignin();
-        const user = await findUserByEmail({ email });
+        const user = await findUserByEmail(db, { email });
         // Unknown e-mail: same bcrypt cost and the same answer as a wrong password.
         const valid = user ? await verifyPassword(password, user.passwordHash) : await dummyVerify(password);
         if (!user || !valid) {
@@ -86,7 +87,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
     // issued before (this one and the user's other browsers) stops signing anything in.
     async signOut(message) {
       const id = "token" in message ? message.token?.id : undefined;
-      if (typeof id === "string") await bumpSessionVersion({ userId: id });
+      if (typeof id === "string") await bumpSessionVersion(db, { userId: id });
     },
   },
 });

@@ -1,7 +1,6 @@
 import "server-only";
-import { and, desc, eq, gt, lt } from "drizzle-orm";
 import { db } from "@/db/client";
-import { signInFailures } from "@/db/schema";
+import * as failures from "@/db/queries/sign-in-failures";
 
 /*
  * Slows repeated sign-in failures per (e-mail, client address). Counts live in PostgreSQL, not in
@@ -34,12 +33,7 @@ function waitMs(failures: Date[], free: number, now: number): number {
 /** Seconds the caller must still wait, or 0 when an attempt is allowed. */
 export async function signInWaitSeconds(options: { email: string; ip: string }): Promise<number> {
   const now = Date.now();
-  const rows = await db
-    .select({ at: signInFailures.at, ip: signInFailures.ip })
-    .from(signInFailures)
-    .where(and(eq(signInFailures.email, normalise(options.email)), gt(signInFailures.at, new Date(now - FAILURE_WINDOW_MS))))
-    .orderBy(desc(signInFailures.at))
-    .limit(256);
+  const rows = await failures.listSignInFailures(db, { email: normalise(options.email), since: new Date(now - FAILURE_WINDOW_MS) });
   return signInWaitFor({ rows, ip: options.ip, now });
 }
 
@@ -54,13 +48,15 @@ export function signInWaitFor(options: { rows: { at: Date; ip: string }[]; ip: s
 }
 
 export async function recordSignInFailure(options: { email: string; ip: string }): Promise<void> {
-  await db.insert(signInFailures).values({ email: normalise(options.email), ip: options.ip });
-  // Old rows no longer count; trimming here keeps the table small without a separate job.
-  await db.delete(signInFailures).where(lt(signInFailures.at, new Date(Date.now() - FAILURE_WINDOW_MS)));
+  await failures.recordSignInFailure(db, {
+    email: normalise(options.email),
+    ip: options.ip,
+    keepSince: new Date(Date.now() - FAILURE_WINDOW_MS),
+  });
 }
 
 export async function clearSignInFailures(options: { email: string; ip: string }): Promise<void> {
-  await db.delete(signInFailures).where(and(eq(signInFailures.email, normalise(options.email)), eq(signInFailures.ip, options.ip)));
+  await failures.clearSignInFailures(db, { email: normalise(options.email), ip: options.ip });
 }
 
 export function rateLimitMessage(waitSeconds: number): string {

@@ -11,14 +11,23 @@
  * retries it on whichever worker asks next.
  */
 import PgBoss from "pg-boss";
-import { createDb, createPool } from "@/db/connection";
+import { createDb, createPool, type Database } from "@/db/connection";
+import {
+  claimRun,
+  closeStaleRun,
+  endRun,
+  finishRun,
+  heartbeat,
+  markCancelledIfRequested,
+  releaseSilentRuns,
+  staleRuns,
+} from "@/db/queries/lab-runs";
 import { zodIssueLines } from "@/lib/contracts/validation";
-import { runKindHandler, type ChunkOutput } from "@/lib/runs/kinds";
 import { encodeResult } from "@/lib/runs/encoding";
+import { type ChunkOutput, type RunChunk, type RunKindHandler, runKindHandler } from "@/lib/runs/kinds";
 import { RUN_QUEUE } from "@/lib/runs/queue-options";
 import { scriptSettings } from "@/lib/settings/scripts";
 import { ChunkError, ThreadPool } from "./thread-pool";
-import { claimRun, closeStaleRun, endRun, finishRun, heartbeat, markCancelledIfRequested, releaseSilentRuns, staleRuns } from "./store";
 
 const settings = scriptSettings.runs;
 const log = (msg: string) => process.stderr.write(`[worker ${settings.workerId}] ${msg}\n`);
@@ -26,6 +35,187 @@ const log = (msg: string) => process.stderr.write(`[worker ${settings.workerId}]
 /** Errors of the input or the physics: deterministic, so not worth a retry. */
 const PERMANENT = new Set(["SpectrumInputError", "NonFiniteResultError", "ZodError", "LlgIntegrationError"]);
 const HEARTBEAT_MS = 1000;
+
+type Job = PgBoss.JobWithMetadata<{ runId: string }>;
+
+/** A claimed run whose payload this worker understands, cut into its chunks. */
+interface StartedRun {
+  runId: string;
+  attempt: number;
+  kind: string;
+  cells: number;
+  handler: RunKindHandler<unknown>;
+  payload: unknown;
+  chunks: RunChunk[];
+}
+
+/** What the threads computed, and why they stopped early if they did. */
+interface Computed {
+  outputs: ChunkOutput[];
+  stop: "cancel" | "lost" | null;
+}
+
+/**
+ * Takes the run for this attempt and reads its payload. Null when there is nothing to compute:
+ * the run was cancelled, finished or unknown, or it failed here for good (unknown kind, invalid
+ * payload) and its row says why.
+ */
+async function startRun(db: Database, runId: string): Promise<StartedRun | null> {
+  const claim = await claimRun(db, { runId, workerId: settings.workerId });
+  if (!claim) {
+    await markCancelledIfRequested(db, { runId });
+    log(`run ${runId}: nothing to do (cancelled, finished or unknown)`);
+    return null;
+  }
+  const { attempt } = claim;
+  const handler = runKindHandler(claim.kind);
+  if (!handler) {
+    await endRun(db, {
+      runId,
+      attempt,
+      state: "failed",
+      error: `This worker does not know runs of kind "${claim.kind}"; update the worker.`,
+    });
+    return null;
+  }
+  const parsed = handler.payloadSchema.safeParse(claim.payload);
+  if (!parsed.success) {
+    await endRun(db, {
+      runId,
+      attempt,
+      state: "failed",
+      error: `Invalid run: ${zodIssueLines(parsed.error.issues).join("; ")}`,
+    });
+    return null;
+  }
+  const payload = parsed.data;
+  return { runId, attempt, kind: claim.kind, cells: claim.cells, handler, payload, chunks: handler.chunks(payload) };
+}
+
+/**
+ * Computes the chunks on the threads, as many at once as there are threads, writing progress and
+ * reading back the cancel flag about once a second. No further chunk starts once cancel was asked
+ * or the attempt was lost; a chunk that fails rejects the whole computation.
+ */
+async function computeChunks(db: Database, threads: ThreadPool, run: StartedRun, deadline: number): Promise<Computed> {
+  const { runId, attempt, chunks } = run;
+  const totalCells = run.handler.cells(run.payload);
+  const cellsPerChunk = chunks.map((c) => (totalCells * (c.end - c.start)) / Math.max(1, chunks.at(-1)!.end));
+  const outputs: ChunkOutput[] = new Array(chunks.length);
+  let stop: Computed["stop"] = null;
+  let doneCells = 0;
+  let next = 0;
+
+  const beat = async () => {
+    if (stop) return;
+    // Past the expiry pg-boss has given the job to another worker; stop without writing.
+    if (Date.now() > deadline) {
+      stop = "lost";
+      return;
+    }
+    const said = await heartbeat(db, { runId, attempt, progress: Math.min(0.999, doneCells / run.cells) });
+    if (said !== "go") stop = said;
+  };
+  const timer = setInterval(() => void beat().catch((e: Error) => log(`progress write failed: ${e.message}`)), HEARTBEAT_MS);
+  const lane = async () => {
+    while (!stop && next < chunks.length) {
+      const i = next++;
+      outputs[i] = await threads.run({ runId, kind: run.kind, payload: run.payload, chunk: chunks[i]! });
+      doneCells += cellsPerChunk[i]!;
+    }
+  };
+  try {
+    await Promise.all(Array.from({ length: Math.min(threads.size, chunks.length) }, lane));
+  } finally {
+    clearInterval(timer);
+  }
+  return { outputs, stop };
+}
+
+/**
+ * A chunk failed. Errors of the input or the physics fail the run at once (a retry would fail the
+ * same way); any other error fails the attempt: the run is queued again, or failed after the last
+ * retry, and the error is rethrown so pg-boss retries the job with backoff.
+ */
+async function failAttempt(db: Database, run: StartedRun, job: Job, error: unknown): Promise<void> {
+  const { runId, attempt } = run;
+  const name = error instanceof ChunkError ? error.errorName : error instanceof Error ? error.name : "Error";
+  const message = error instanceof Error ? error.message : String(error);
+  if (PERMANENT.has(name)) {
+    await endRun(db, { runId, attempt, state: "failed", error: message });
+    log(`run ${runId}: failed (${message})`);
+    return;
+  }
+  const last = job.retryCount >= job.retryLimit;
+  await endRun(db, {
+    runId,
+    attempt,
+    state: last ? "failed" : "queued",
+    error: last ? `Failed after ${attempt} attempts: ${message}` : `Attempt ${attempt} failed (${message}); retrying.`,
+  });
+  throw error;
+}
+
+/** Ends an attempt whose chunks all returned: cancelled, taken over, or done with its result stored. */
+async function finishAttempt(db: Database, run: StartedRun, computed: Computed, started: number): Promise<void> {
+  const { runId, attempt } = run;
+  if (computed.stop === "cancel") {
+    await endRun(db, { runId, attempt, state: "cancelled" });
+    log(`run ${runId}: cancelled after ${Date.now() - started} ms`);
+    return;
+  }
+  if (computed.stop === "lost") {
+    log(`run ${runId}: attempt ${attempt} was taken over; stopping without a result`);
+    return;
+  }
+  const computeMs = Date.now() - started;
+  const { meta, data } = encodeResult(run.handler.assemble(run.payload, computed.outputs));
+  const stored = await finishRun(db, { runId, attempt, workerId: settings.workerId, meta: { ...meta, computeMs }, data, computeMs });
+  const outcome = stored ? "done" : "finished but no longer ours; result not stored";
+  log(`run ${runId}: ${outcome} in ${computeMs} ms (${Math.round(run.cells / (computeMs / 1000))} cells/s)`);
+}
+
+/** One job: claim and start the run, compute its chunks, then finish, fail or requeue it. */
+async function computeRun(db: Database, threads: ThreadPool, job: Job): Promise<void> {
+  const runId = job.data?.runId ?? job.id;
+  const run = await startRun(db, runId);
+  if (!run) return;
+  log(`run ${runId} (${run.kind}, ${run.cells} cells, attempt ${run.attempt}): ${run.chunks.length} chunks on ${threads.size} threads`);
+  const started = Date.now();
+  let computed: Computed;
+  try {
+    computed = await computeChunks(db, threads, run, started + job.expireInSeconds * 1000);
+  } catch (error) {
+    await failAttempt(db, run, job, error);
+    return;
+  }
+  await finishAttempt(db, run, computed, started);
+}
+
+/**
+ * A worker that died leaves its run "running" with no progress writes: its job goes back to the
+ * queue (pg-boss retries it with backoff) instead of waiting for the job's expiry. Runs whose job
+ * the queue has given up on or cancelled would stay open forever; any worker closes them.
+ */
+async function sweepRuns(db: Database, boss: PgBoss): Promise<void> {
+  for (const run of await releaseSilentRuns(db, { silentSeconds: settings.staleSeconds })) {
+    log(`run ${run.id}: worker ${run.workerId ?? "?"} stopped answering; handing the job back to the queue`);
+    await boss.fail(RUN_QUEUE, run.id, { message: `worker ${run.workerId ?? "?"} stopped answering` });
+  }
+  for (const run of await staleRuns(db, { olderThanSeconds: settings.staleSeconds })) {
+    const job = await boss.getJobById(RUN_QUEUE, run.id);
+    if (!job) continue;
+    if (job.state === "failed") {
+      await closeStaleRun(db, {
+        runId: run.id,
+        state: "failed",
+        error: "The job queue gave up on this run: its worker stopped or failed on every attempt.",
+      });
+    } else if (job.state === "cancelled") {
+      await closeStaleRun(db, { runId: run.id, state: "cancelled", error: null });
+    }
+  }
+}
 
 async function main(): Promise<void> {
   const pool = createPool({ url: settings.databaseUrl, max: 4 });
@@ -43,137 +233,16 @@ async function main(): Promise<void> {
   await boss.start();
   await boss.createQueue(RUN_QUEUE).catch(() => undefined);
 
-  const compute = async (runId: string, job: PgBoss.JobWithMetadata<{ runId: string }>): Promise<void> => {
-    const claim = await claimRun(db, { runId, workerId: settings.workerId });
-    if (!claim) {
-      await markCancelledIfRequested(db, { runId });
-      log(`run ${runId}: nothing to do (cancelled, finished or unknown)`);
-      return;
-    }
-    const { attempt } = claim;
-    const handler = runKindHandler(claim.kind);
-    if (!handler) {
-      await endRun(db, {
-        runId,
-        attempt,
-        state: "failed",
-        error: `This worker does not know runs of kind "${claim.kind}"; update the worker.`,
-      });
-      return;
-    }
-    const parsed = handler.payloadSchema.safeParse(claim.payload);
-    if (!parsed.success) {
-      await endRun(db, {
-        runId,
-        attempt,
-        state: "failed",
-        error: `Invalid run: ${zodIssueLines(parsed.error.issues).join("; ")}`,
-      });
-      return;
-    }
-    const payload = parsed.data;
-    const chunks = handler.chunks(payload);
-    const cellsPerChunk = chunks.map((c) => (handler.cells(payload) * (c.end - c.start)) / Math.max(1, chunks.at(-1)!.end));
-    log(`run ${runId} (${claim.kind}, ${claim.cells} cells, attempt ${attempt}): ${chunks.length} chunks on ${threads.size} threads`);
-
-    const started = Date.now();
-    const deadline = started + job.expireInSeconds * 1000;
-    const outputs: ChunkOutput[] = new Array(chunks.length);
-    let stop: "cancel" | "lost" | null = null;
-    let doneCells = 0;
-    let next = 0;
-
-    const beat = async () => {
-      if (stop) return;
-      // Past the expiry pg-boss has given the job to another worker; stop without writing.
-      if (Date.now() > deadline) {
-        stop = "lost";
-        return;
-      }
-      const said = await heartbeat(db, { runId, attempt, progress: Math.min(0.999, doneCells / claim.cells) });
-      if (said !== "go") stop = said;
-    };
-    const timer = setInterval(() => void beat().catch((e: Error) => log(`progress write failed: ${e.message}`)), HEARTBEAT_MS);
-    try {
-      const lane = async () => {
-        while (!stop && next < chunks.length) {
-          const i = next++;
-          outputs[i] = await threads.run({ runId, kind: claim.kind, payload, chunk: chunks[i]! });
-          doneCells += cellsPerChunk[i]!;
-        }
-      };
-      await Promise.all(Array.from({ length: Math.min(threads.size, chunks.length) }, lane));
-    } catch (error) {
-      stop = stop ?? null;
-      clearInterval(timer);
-      const name = error instanceof ChunkError ? error.errorName : error instanceof Error ? error.name : "Error";
-      const message = error instanceof Error ? error.message : String(error);
-      if (PERMANENT.has(name)) {
-        await endRun(db, { runId, attempt, state: "failed", error: message });
-        log(`run ${runId}: failed (${message})`);
-        return;
-      }
-      const last = job.retryCount >= job.retryLimit;
-      await endRun(db, {
-        runId,
-        attempt,
-        state: last ? "failed" : "queued",
-        error: last ? `Failed after ${attempt} attempts: ${message}` : `Attempt ${attempt} failed (${message}); retrying.`,
-      });
-      throw error;
-    }
-    clearInterval(timer);
-    if (stop === "cancel") {
-      await endRun(db, { runId, attempt, state: "cancelled" });
-      log(`run ${runId}: cancelled after ${Date.now() - started} ms`);
-      return;
-    }
-    if (stop === "lost") {
-      log(`run ${runId}: attempt ${attempt} was taken over; stopping without a result`);
-      return;
-    }
-    const computeMs = Date.now() - started;
-    const { meta, data } = encodeResult(handler.assemble(payload, outputs));
-    const stored = await finishRun(db, { runId, attempt, workerId: settings.workerId, meta: { ...meta, computeMs }, data, computeMs });
-    log(
-      `run ${runId}: ${stored ? "done" : "finished but no longer ours; result not stored"} in ${computeMs} ms (${Math.round(claim.cells / (computeMs / 1000))} cells/s)`,
-    );
-  };
-
   await boss.work<{ runId: string }>(
     RUN_QUEUE,
     { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: settings.pollSeconds },
     async ([job]) => {
-      if (!job) return;
-      const runId = job.data?.runId ?? job.id;
-      await compute(runId, job);
+      if (job) await computeRun(db, threads, job);
     },
   );
 
-  // A worker that died leaves its run "running" with no progress writes: hand its job back to
-  // the queue (pg-boss retries it with backoff) instead of waiting for the job's expiry. Runs whose
-  // job the queue has given up on or cancelled would stay open forever; any worker closes them.
-  const sweep = async () => {
-    for (const run of await releaseSilentRuns(db, { silentSeconds: settings.staleSeconds })) {
-      log(`run ${run.id}: worker ${run.workerId ?? "?"} stopped answering; handing the job back to the queue`);
-      await boss.fail(RUN_QUEUE, run.id, { message: `worker ${run.workerId ?? "?"} stopped answering` });
-    }
-    for (const run of await staleRuns(db, { olderThanSeconds: settings.staleSeconds })) {
-      const job = await boss.getJobById(RUN_QUEUE, run.id);
-      if (!job) continue;
-      if (job.state === "failed") {
-        await closeStaleRun(db, {
-          runId: run.id,
-          state: "failed",
-          error: "The job queue gave up on this run: its worker stopped or failed on every attempt.",
-        });
-      } else if (job.state === "cancelled") {
-        await closeStaleRun(db, { runId: run.id, state: "cancelled", error: null });
-      }
-    }
-  };
   const sweepTimer = setInterval(
-    () => void sweep().catch((e: Error) => log(`sweep failed: ${e.message}`)),
+    () => void sweepRuns(db, boss).catch((e: Error) => log(`sweep failed: ${e.message}`)),
     Math.max(1000, (settings.staleSeconds * 1000) / 4),
   );
 

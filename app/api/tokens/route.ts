@@ -1,3 +1,4 @@
+import { db } from "@/db/client";
 import { createToken, listTokens } from "@/db/queries/tokens";
 import { readJson } from "@/lib/api/body";
 import { readPage } from "@/lib/api/paging";
@@ -14,7 +15,7 @@ import { generateToken } from "@/lib/auth/tokens";
 /** GET /api/tokens?limit=&cursor= → { items: [{ id, name, createdAt, lastUsedAt }], nextCursor } (live tokens) */
 export const GET = apiRoute(async (request) => {
   const caller = await requireSessionCaller(request);
-  return json(await listTokens({ userId: caller.id, page: readPage(request) }));
+  return json(await listTokens(db, { userId: caller.id, page: readPage(request) }));
 });
 
 /** POST /api/tokens { name } → 201 { item, token }; the secret is shown this once only. */
@@ -22,6 +23,6 @@ export const POST = apiRoute(async (request) => {
   const caller = await requireSessionCaller(request);
   const { name } = await readJson(request, createTokenSchema);
   const { token, tokenHash } = generateToken();
-  const item = await createToken({ userId: caller.id, name, tokenHash });
+  const item = await createToken(db, { userId: caller.id, name, tokenHash });
   return json({ item, token }, 201);
 });

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Alert } from "@/components/ui/alert";
 import { LinkButton } from "@/components/ui/button";
+import { db } from "@/db/client";
 import { findInvitationByToken } from "@/db/queries/invitations";
 import { getSessionUser } from "@/lib/auth/access";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
@@ -19,7 +20,7 @@ const STATE_TEXT = {
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const [invitation, user] = await Promise.all([
-    isLinkSecret(token) ? findInvitationByToken({ tokenHash: hashToken(token) }) : null,
+    isLinkSecret(token) ? findInvitationByToken(db, { tokenHash: hashToken(token) }) : null,
     getSessionUser(),
   ]);
   const here = `/invite/${token}`;

@@ -1,3 +1,4 @@
+import { db } from "@/db/client";
 import { changePassword, findUserById } from "@/db/queries/users";
 import { readJson } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
@@ -20,14 +21,14 @@ export const POST = apiRoute(async (request) => {
   const ip = clientIp(request.headers);
   const wait = await signInWaitSeconds({ email: caller.email, ip });
   if (wait > 0) throw new DomainError("rate_limited", rateLimitMessage(wait), { retryAfterS: wait });
-  const user = await findUserById({ id: caller.id });
+  const user = await findUserById(db, { id: caller.id });
   if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) {
     await recordSignInFailure({ email: caller.email, ip });
     throw new DomainError("validation", "The current password is wrong.", {
       fields: { currentPassword: "The current password is wrong." },
     });
   }
-  await changePassword({ userId: caller.id, passwordHash: await hashPassword(newPassword) });
+  await changePassword(db, { userId: caller.id, passwordHash: await hashPassword(newPassword) });
   // A fresh cookie carrying the new session version keeps this browser signed in.
   await signIn("credentials", { email: caller.email, password: newPassword, redirect: false });
   return json({ ok: true });

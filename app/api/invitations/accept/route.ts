@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { db } from "@/db/client";
 import { acceptInvitation } from "@/db/queries/invitations";
 import { readJson } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
@@ -23,7 +24,7 @@ export const POST = apiRoute(async (request) => {
   const caller = await requireSessionCaller(request, "Accepting an invitation");
   const { token } = await readJson(request, acceptSchema);
   if (!isLinkSecret(token)) throw new DomainError("not_found", REFUSED.unknown!);
-  const result = await acceptInvitation({ tokenHash: hashToken(token), userId: caller.id, userEmail: caller.email });
+  const result = await acceptInvitation(db, { caller, tokenHash: hashToken(token) });
   if (result.ok) return json({ labId: result.labId, labName: result.labName, role: result.role, alreadyMember: result.alreadyMember });
   if (result.reason === "unknown") throw new DomainError("not_found", REFUSED.unknown!);
   if (result.reason === "other_email") {

@@ -1,3 +1,4 @@
+import { db } from "@/db/client";
 import { resetPasswordWithToken } from "@/db/queries/users";
 import { readJson } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
@@ -12,7 +13,7 @@ const INVALID = "This reset link is not valid, was already used or has expired. 
 export const POST = apiRoute(async (request) => {
   const { token, newPassword } = await readJson(request, resetPasswordSchema);
   if (!isLinkSecret(token)) throw new DomainError("validation", INVALID, { fields: { token: INVALID } });
-  const result = await resetPasswordWithToken({ tokenHash: hashToken(token), passwordHash: await hashPassword(newPassword) });
+  const result = await resetPasswordWithToken(db, { tokenHash: hashToken(token), passwordHash: await hashPassword(newPassword) });
   if (!result.ok) throw new DomainError("validation", INVALID, { fields: { token: INVALID } });
   return json({ email: result.email });
 });

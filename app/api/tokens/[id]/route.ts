@@ -1,3 +1,4 @@
+import { db } from "@/db/client";
 import { revokeToken } from "@/db/queries/tokens";
 import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/contracts/validation";
@@ -8,6 +9,6 @@ import { requireSessionCaller } from "@/lib/auth/access";
 export const DELETE = apiRoute<{ id: string }>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireSessionCaller(request);
-  if (!isUuid(id) || !(await revokeToken({ userId: caller.id, tokenId: id }))) throw notFound("No such token.");
+  if (!isUuid(id) || !(await revokeToken(db, { userId: caller.id, tokenId: id }))) throw notFound("No such token.");
   return noContent();
 });

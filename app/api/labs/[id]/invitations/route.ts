@@ -1,10 +1,11 @@
+import { db } from "@/db/client";
 import { createInvitation, INVITATION_DAYS, listPendingInvitations } from "@/db/queries/invitations";
 import { readJson } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
 import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
 import { createInvitationSchema } from "@/lib/contracts/labs";
-import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { authorizeLab, requireCaller } from "@/lib/auth/access";
 import { generateLinkSecret } from "@/lib/auth/tokens";
 import { invitationMail } from "@/lib/mail/messages";
 import { appLink, MailUnavailableError, sendMail } from "@/lib/mail/send";
@@ -15,8 +16,8 @@ type Params = { id: string };
 export const GET = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireLabRole(caller, id, "owner");
-  return json(await listPendingInvitations({ labId: access.labId, page: readPage(request) }));
+  const access = await authorizeLab(caller, id, "owner");
+  return json(await listPendingInvitations(db, { access, page: readPage(request) }));
 });
 
 /**
@@ -26,16 +27,10 @@ export const GET = apiRoute<Params>(async (request, { params }) => {
 export const POST = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireLabRole(caller, id, "owner");
+  const access = await authorizeLab(caller, id, "owner");
   const input = await readJson(request, createInvitationSchema);
   const { secret, secretHash } = generateLinkSecret();
-  const item = await createInvitation({
-    actorId: caller.id,
-    labId: access.labId,
-    email: input.email,
-    role: input.role,
-    tokenHash: secretHash,
-  });
+  const item = await createInvitation(db, { access, email: input.email, role: input.role, tokenHash: secretHash });
   try {
     await sendMail({
       to: input.email,

@@ -1,7 +1,8 @@
+import { db } from "@/db/client";
 import { listMembers } from "@/db/queries/labs";
 import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
-import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { authorizeLab, requireCaller } from "@/lib/auth/access";
 
 type Params = { id: string };
 
@@ -12,6 +13,6 @@ type Params = { id: string };
 export const GET = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireLabRole(caller, id, "viewer");
-  return json(await listMembers({ labId: access.labId, page: readPage(request) }));
+  const access = await authorizeLab(caller, id, "viewer");
+  return json(await listMembers(db, { access, page: readPage(request) }));
 });

@@ -1,11 +1,9 @@
-import { findRunLabId, getRun, requestCancel } from "@/db/queries/runs";
-import { notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/contracts/validation";
+import { db } from "@/db/client";
+import { getRun, requestCancel } from "@/db/queries/lab-runs";
 import { apiRoute, json } from "@/lib/api/route";
-import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
+import { notFound } from "@/lib/contracts/errors";
 import { cancelQueuedJob } from "@/lib/runs/queue";
-
-const NO_RUN = "No such run.";
 
 /**
  * POST /api/runs/{id}/cancel (editor) → { item }. A queued run is cancelled at once and its job
@@ -15,11 +13,9 @@ const NO_RUN = "No such run.";
 export const POST = apiRoute<{ id: string }>(async (request, { params }) => {
   const caller = await requireCaller(request);
   const { id } = await params;
-  const labId = isUuid(id) ? await findRunLabId({ id }) : null;
-  if (!labId) throw notFound(NO_RUN);
-  const access = await requireLabRole(caller, labId, "editor", { notFoundMessage: NO_RUN });
-  const outcome = await requestCancel({ id, labId, actorId: caller.id });
-  if (!outcome) throw notFound(NO_RUN);
+  const access = await authorize(caller, { kind: "lab_run", id }, "editor");
+  const outcome = await requestCancel(db, { access });
+  if (!outcome) throw notFound("No such run.");
   if (outcome.wasQueued) await cancelQueuedJob(id).catch((e: unknown) => console.error("[runs] queue cancel failed", id, e));
-  return json({ item: await getRun({ id, labId, role: access.role }) });
+  return json({ item: await getRun(db, { access }) });
 });

@@ -1,12 +1,10 @@
-import { findRunLabId, getRunResult } from "@/db/queries/runs";
-import { DomainError, notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/contracts/validation";
+import { db } from "@/db/client";
+import { getRunResult } from "@/db/queries/lab-runs";
 import { apiRoute, json } from "@/lib/api/route";
-import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
+import { DomainError } from "@/lib/contracts/errors";
 import type { LabRunResultBody } from "@/lib/contracts/lab-runs";
 import { decodeResult } from "@/lib/runs/encoding";
-
-const NO_RUN = "No such run.";
 
 /**
  * GET /api/runs/{id}/result (viewer) → LabRunResultBody. Numbers go out as JSON's shortest
@@ -15,10 +13,8 @@ const NO_RUN = "No such run.";
 export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
   const caller = await requireCaller(request);
   const { id } = await params;
-  const labId = isUuid(id) ? await findRunLabId({ id }) : null;
-  if (!labId) throw notFound(NO_RUN);
-  await requireLabRole(caller, labId, "viewer", { notFoundMessage: NO_RUN });
-  const result = await getRunResult({ id, labId });
+  const access = await authorize(caller, { kind: "lab_run", id }, "viewer");
+  const result = await getRunResult(db, { access });
   if (!result) throw new DomainError("not_found", "This run has no result (yet).");
   const columns: LabRunResultBody["columns"] = {};
   for (const [name, col] of Object.entries(decodeResult(result.meta, result.data))) {

@@ -1,10 +1,9 @@
-import { bumpSessionVersion, findUserById } from "@/db/queries/users";
-import { recordAudit } from "@/db/queries/audit";
 import { db } from "@/db/client";
-import { forbidden, notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/contracts/validation";
+import { endSessions, findUserById } from "@/db/queries/users";
 import { apiRoute, noContent } from "@/lib/api/route";
 import { requireSessionCaller } from "@/lib/auth/access";
+import { forbidden, notFound } from "@/lib/contracts/errors";
+import { isUuid } from "@/lib/contracts/validation";
 
 /**
  * POST /api/users/{id}/end-sessions (a site admin, or the user themself) → 204: every browser
@@ -15,10 +14,7 @@ export const POST = apiRoute<{ id: string }>(async (request, { params }) => {
   const caller = await requireSessionCaller(request, "Ending sessions");
   if (!isUuid(id)) throw notFound("No such user.");
   if (caller.siteRole !== "admin" && caller.id !== id) throw forbidden("Only a site admin can end another person's sessions.");
-  if (!(await findUserById({ id }))) throw notFound("No such user.");
-  await db.transaction(async (tx) => {
-    await bumpSessionVersion({ userId: id, executor: tx });
-    await recordAudit({ tx, entry: { actorId: caller.id, action: "user.end_sessions", targetType: "user", targetId: id, details: {} } });
-  });
+  if (!(await findUserById(db, { id }))) throw notFound("No such user.");
+  await endSessions(db, { caller, userId: id });
   return noContent();
 });

@@ -1,7 +1,6 @@
-import "server-only";
 import { and, count, eq, gt, lt } from "drizzle-orm";
-import { db } from "@/db/client";
-import { requestThrottle } from "@/db/schema";
+import type { Executor } from "../executor";
+import { requestThrottle } from "../schema";
 
 /*
  * A small sliding-window counter in PostgreSQL for unauthenticated requests that create accounts
@@ -9,7 +8,11 @@ import { requestThrottle } from "@/db/schema";
  * sign-in failures, so the limit holds across restarts and several server processes.
  */
 
-export async function takeThrottleSlot(options: { kind: string; key: string; max: number; windowMs: number }): Promise<boolean> {
+/** Takes one slot of the window; false (and nothing recorded) when the window is full. */
+export async function takeThrottleSlot(
+  db: Executor,
+  options: { kind: string; key: string; max: number; windowMs: number },
+): Promise<boolean> {
   const since = new Date(Date.now() - options.windowMs);
   const key = options.key.trim().toLowerCase().slice(0, 320);
   const [row] = await db
