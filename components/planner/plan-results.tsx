@@ -166,15 +166,10 @@ export function PlanResults({
         {plottable >= 1 ? (
           <LinePlot
             title="Expected standard error against the number of points"
-            xs={result.sigmaVsPoints.map((s) => s.points)}
-            xType="linear"
-            yType="log"
-            xLabel="number of points"
-            yLabel={`expected σ ${result.criterionUnit}`}
-            series={sigmaSeries}
             width={width}
             height={260}
-            legend={false}
+            series={{ xs: result.sigmaVsPoints.map((s) => s.points), curves: sigmaSeries, legend: false }}
+            axes={{ x: { type: "linear", label: "number of points" }, y: { type: "log", label: `expected σ ${result.criterionUnit}` } }}
           />
         ) : (
           <p className="text-sm text-ink-soft">

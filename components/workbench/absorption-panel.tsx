@@ -114,7 +114,8 @@ function AbsorptionPanelImpl({
   if (!available) {
     return <p className="text-sm text-ink-soft">This result carries no absorption columns; run the spectrum again to see them.</p>;
   }
-  const shared = { xs, xType: xScale, xLabel: X_AXIS_TITLE[xUnit], width, banner };
+  const shared = { width, banner };
+  const xAxis = { type: xScale, label: X_AXIS_TITLE[xUnit] };
 
   return (
     <div ref={wrapRef} className="space-y-3" data-testid="absorption-panel">
@@ -134,12 +135,11 @@ function AbsorptionPanelImpl({
             <LinePlot
               {...shared}
               title={`Transmission of each circular mode through ${fmtLength(lengthM)}`}
-              yLabel="Transmission (%)"
-              series={transmission}
               height={240}
-              yDomain={tDomain}
-              hLines={hLines}
               svgRef={tSvg}
+              series={{ xs, curves: transmission }}
+              axes={{ x: xAxis, y: { label: "Transmission (%)", domain: tDomain } }}
+              marks={{ hLines }}
             />
             <PlotExportButtons svgRef={tSvg} fileBase={`${fileBase}-transmission`} plotName="transmission plot" />
 
@@ -148,22 +148,19 @@ function AbsorptionPanelImpl({
                 <LinePlot
                   {...shared}
                   title="Absorption coefficient (log scale)"
-                  yType="log"
-                  yLabel="α (cm⁻¹)"
-                  series={alpha}
                   height={240}
                   svgRef={aSvg}
+                  series={{ xs, curves: alpha }}
+                  axes={{ x: xAxis, y: { type: "log", label: "α (cm⁻¹)" } }}
                 />
                 <PlotExportButtons svgRef={aSvg} fileBase={`${fileBase}-absorption`} plotName="absorption plot" />
                 <LinePlot
                   {...shared}
                   title="Figure of merit |V| / α (log scale)"
-                  yType="log"
-                  yLabel="|V| / α (rad/T)"
-                  series={fom}
                   height={220}
-                  legend={false}
                   svgRef={fSvg}
+                  series={{ xs, curves: fom, legend: false }}
+                  axes={{ x: xAxis, y: { type: "log", label: "|V| / α (rad/T)" } }}
                 />
                 <PlotExportButtons svgRef={fSvg} fileBase={`${fileBase}-figure-of-merit`} plotName="figure of merit plot" />
               </>

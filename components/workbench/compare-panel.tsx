@@ -313,14 +313,11 @@ function CompareResults({
         <>
           <LinePlot
             title={`${compareAxisTitle(quantity, yMode)}, compared (analytic)`}
-            xs={xs}
-            xType={xScale}
-            xLabel={X_AXIS_TITLE[xUnit]}
-            yLabel={compareAxisTitle(quantity, yMode)}
-            series={series}
             width={width}
             height={320}
             svgRef={svg}
+            series={{ xs, curves: series }}
+            axes={{ x: { type: xScale, label: X_AXIS_TITLE[xUnit] }, y: { label: compareAxisTitle(quantity, yMode) } }}
           />
           <PlotExportButtons svgRef={svg} fileBase={`${fileBase}-compare`} plotName="comparison plot" />
           <div className="overflow-x-auto">

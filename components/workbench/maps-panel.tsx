@@ -359,16 +359,15 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
           {change !== null ? (
             <LinePlot
               title={`${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} against wavelength at ${view.yName} ${fmt(map.ys[ownRow]!)} ${view.yUnit} (${METHOD_SHORT[map.method]})`}
-              xs={map.xs}
-              xType="log"
-              xLabel="Wavelength (nm)"
-              yLabel={quantity === "share" ? "Magnetic share (%)" : `${qView.short} (${qView.unit})${unitNote}`}
-              series={curve}
               width={width}
               height={240}
-              legend={false}
               banner={map.banner}
               svgRef={svg}
+              series={{ xs: map.xs, curves: curve, legend: false }}
+              axes={{
+                x: { type: "log", label: "Wavelength (nm)" },
+                y: { label: quantity === "share" ? "Magnetic share (%)" : `${qView.short} (${qView.unit})${unitNote}` },
+              }}
             />
           ) : null}
         </>

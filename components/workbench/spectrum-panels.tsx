@@ -165,16 +165,12 @@ function SpectrumPanelsImpl({
   const yUnit = Y_UNIT_SHORT[yMode];
   const yLabel = yMode === "verdet" ? Y_MODE_LABEL.verdet : `Rotation (${yUnit}) at ${geometry.fieldT} T, ${geometry.lengthM * 1000} mm`;
   // Both plots share the x axis, the cursor, the markers and the readout below them.
-  const shared = {
-    xs,
-    xType: xScale,
-    xLabel: X_AXIS_TITLE[xUnit],
-    width,
+  const shared = { width, banner };
+  const xAxis = { type: xScale, label: X_AXIS_TITLE[xUnit] };
+  const interaction = {
     cursorIndex: cursor,
     onCursorChange: setCursor,
     onPick: pick,
-    markers,
-    banner,
     describedBy: "spectrum-readout",
     xView,
     onXViewChange,
@@ -257,11 +253,12 @@ function SpectrumPanelsImpl({
         <LinePlot
           {...shared}
           title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`}
-          yLabel={yLabel}
-          series={series}
           height={340}
           svgRef={spectrumSvg}
-          layers={layers}
+          series={{ xs, curves: series }}
+          axes={{ x: xAxis, y: { label: yLabel } }}
+          marks={{ markers, layers }}
+          interaction={interaction}
         />
         <PlotExportButtons svgRef={spectrumSvg} fileBase={`${fileBase}-spectrum`} plotName="spectrum plot" />
 
@@ -304,14 +301,12 @@ function SpectrumPanelsImpl({
             <LinePlot
               {...shared}
               title={`Magnetic share |θm| / (|θe| + |θm|) — ${crossingText} · ${caption}`}
-              yLabel="Magnetic share (%)"
-              series={shareSeries}
               height={240}
-              yDomain={shareDomain}
-              hLines={hLines}
-              dots={dots}
               svgRef={shareSvg}
-              legend={false}
+              series={{ xs, curves: shareSeries, legend: false }}
+              axes={{ x: xAxis, y: { label: "Magnetic share (%)", domain: shareDomain } }}
+              marks={{ markers, hLines, dots }}
+              interaction={interaction}
             />
             <p data-testid="share-crossing" className="text-sm">
               Magnetic share {crossingText}.

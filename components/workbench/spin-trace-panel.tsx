@@ -263,28 +263,21 @@ export function SpinTracePanel({
           <div className={traceStale ? "space-y-3 opacity-60" : "space-y-3"}>
             <LinePlot
               title={`Transverse magnetization after switch-on at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`}
-              xs={traceSeries.xs}
-              xType="linear"
-              xLabel="Time (drive periods)"
-              yLabel="u (1)"
-              series={traceSeries.uxy}
               width={width}
               height={240}
               banner={trace.banner}
               svgRef={svgA}
+              series={{ xs: traceSeries.xs, curves: traceSeries.uxy }}
+              axes={{ x: { type: "linear", label: "Time (drive periods)" }, y: { label: "u (1)" } }}
             />
             <PlotExportButtons svgRef={svgA} fileBase={`${fileBase}-spin-trace-uxy`} plotName="transverse magnetization plot" />
             <LinePlot
               title={`Longitudinal magnetization: uz − s at ${fmt(trace.inputs.wavelengthNm, 5)} nm${traceStale ? " (stale)" : ""}`}
-              xs={traceSeries.xs}
-              xType="linear"
-              xLabel="Time (drive periods)"
-              yLabel="uz − s (1)"
-              series={traceSeries.uz}
               width={width}
               height={200}
-              legend={false}
               svgRef={svgB}
+              series={{ xs: traceSeries.xs, curves: traceSeries.uz, legend: false }}
+              axes={{ x: { type: "linear", label: "Time (drive periods)" }, y: { label: "uz − s (1)" } }}
             />
             <PlotExportButtons svgRef={svgB} fileBase={`${fileBase}-spin-trace-uz`} plotName="longitudinal magnetization plot" />
             <table className="w-full max-w-3xl text-sm tabular-nums">
@@ -363,16 +356,12 @@ export function SpinTracePanel({
             ) : null}
             <LinePlot
               title={`Static change of Mz against optical intensity at ${fmt(curve.inputs.wavelengthNm, 5)} nm (numerical LLG, log-log)${curveStale ? " (stale)" : ""}`}
-              xs={curve.intensity}
-              xType="log"
-              yType="log"
-              xLabel="Intensity in the medium (W/m²)"
-              yLabel="|ΔMz| (A/m)"
-              series={curveSeries}
               width={width}
               height={280}
               banner={curve.banner}
               svgRef={svgC}
+              series={{ xs: curve.intensity, curves: curveSeries }}
+              axes={{ x: { type: "log", label: "Intensity in the medium (W/m²)" }, y: { type: "log", label: "|ΔMz| (A/m)" } }}
             />
             <p className="text-xs text-ink-soft">
               ΔMz has the opposite sign to M0 (the cone shortens Mz, §4.5); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.

@@ -6,7 +6,6 @@ import bcrypt from "bcryptjs";
  */
 const COST = 10;
 
-
 export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, COST);
 }

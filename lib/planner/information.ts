@@ -1,7 +1,7 @@
 /*
  * Small dense linear algebra for the planner's inner loop: the criterion of a design from its
  * Fisher information F = Σ nᵢ JᵢᵀJᵢ/σ² (in scaled parameters), evaluated thousands of times per
- * search. The reported figures of the final plans are recomputed with ml-matrix (plan.ts), and a
+ * search. The reported figures of the final plans are recomputed with ml-matrix (fisher.ts), and a
  * test checks that both agree.
  *
  * Conditioning: F is first normalized to its correlation form R = D F D, D = diag(F)^-1/2, so the

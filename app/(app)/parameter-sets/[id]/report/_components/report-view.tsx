@@ -154,40 +154,40 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
             </p>
             <LinePlot
               title={`Verdet constant of ${set.name}`}
-              xs={computed.spectrum.points.map((p) => p.wavelengthNm)}
-              xType="log"
-              xLabel="wavelength (nm)"
-              yLabel="V (rad/(T·m))"
               width={PLOT_WIDTH}
               height={300}
               banner={scaleLabel}
-              markers={markers.map((m) => ({ x: m, label: `${m} nm` }))}
-              series={[
-                {
-                  key: "total",
-                  label: "total",
-                  color: "#1d2433",
-                  dash: undefined,
-                  width: 2,
-                  values: computed.spectrum.points.map((p) => p.thetaRad / computed.fieldT),
-                },
-                {
-                  key: "electric",
-                  label: "electric-dipole part",
-                  color: "#0f6e6e",
-                  dash: "6 3",
-                  width: 1.6,
-                  values: computed.spectrum.points.map((p) => p.thetaElectricRad / computed.fieldT),
-                },
-                {
-                  key: "magnetic",
-                  label: "magnetic-dipole part",
-                  color: "#b4541a",
-                  dash: "2 3",
-                  width: 1.6,
-                  values: computed.spectrum.points.map((p) => p.thetaMagneticRad / computed.fieldT),
-                },
-              ]}
+              series={{
+                xs: computed.spectrum.points.map((p) => p.wavelengthNm),
+                curves: [
+                  {
+                    key: "total",
+                    label: "total",
+                    color: "#1d2433",
+                    dash: undefined,
+                    width: 2,
+                    values: computed.spectrum.points.map((p) => p.thetaRad / computed.fieldT),
+                  },
+                  {
+                    key: "electric",
+                    label: "electric-dipole part",
+                    color: "#0f6e6e",
+                    dash: "6 3",
+                    width: 1.6,
+                    values: computed.spectrum.points.map((p) => p.thetaElectricRad / computed.fieldT),
+                  },
+                  {
+                    key: "magnetic",
+                    label: "magnetic-dipole part",
+                    color: "#b4541a",
+                    dash: "2 3",
+                    width: 1.6,
+                    values: computed.spectrum.points.map((p) => p.thetaMagneticRad / computed.fieldT),
+                  },
+                ],
+              }}
+              axes={{ x: { type: "log", label: "wavelength (nm)" }, y: { label: "V (rad/(T·m))" } }}
+              marks={{ markers: markers.map((m) => ({ x: m, label: `${m} nm` })) }}
             />
           </>
         ) : (

@@ -1,0 +1,43 @@
+import type { Table } from "@/lib/measurements/parse";
+
+const PREVIEW_ROWS = 8;
+
+/** The first rows of the chosen file as read, with their line numbers, so a wrong mapping shows at a glance. */
+export function UploadPreviewTable({ table }: { table: Table }) {
+  return (
+    <div className="overflow-x-auto rounded-md border border-ink/10">
+      <table className="w-full text-xs tabular-nums">
+        <caption className="px-2 py-1 text-left text-xs text-ink-soft">
+          Preview: the first {Math.min(PREVIEW_ROWS, table.rows.length)} of {table.rows.length} data rows (header on line {table.headerLine}
+          )
+        </caption>
+        <thead className="bg-paper-sunk/70">
+          <tr>
+            <th scope="col" className="px-2 py-1 text-left font-semibold">
+              line
+            </th>
+            {table.headers.map((h, i) => (
+              // biome-ignore lint/suspicious/noArrayIndexKey: headers may repeat or be empty; the column's place is its identity.
+              <th key={`${h}-${i}`} scope="col" className="px-2 py-1 text-left font-semibold">
+                {h || `(column ${i + 1})`}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-ink/10">
+          {table.rows.slice(0, PREVIEW_ROWS).map((row) => (
+            <tr key={row.line}>
+              <td className="px-2 py-1 text-ink-soft">{row.line}</td>
+              {table.headers.map((_, i) => (
+                // biome-ignore lint/suspicious/noArrayIndexKey: a cell is identified by its column's place.
+                <td key={i} className="px-2 py-1">
+                  {row.cells[i] ?? ""}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
