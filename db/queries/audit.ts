@@ -1,42 +1,40 @@
-import "server-only";
 import { and, desc, eq, gte, like, lt, sql } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
-import { type Page } from "@/lib/contracts/paging";
-import type { PageQuery } from "@/lib/contracts/paging";
-import { db, type Database } from "../client";
-import { auditLog, users, type NewAuditLogEntry } from "../schema";
+import type { ResourceAccess } from "@/lib/contracts/access";
+import type { AuditAction, AuditEntry, AuditKind, AuditTarget } from "@/lib/contracts/audit";
+import type { Page, PageQuery } from "@/lib/contracts/paging";
+import type { Executor } from "../executor";
+import { decodeCursor, timeIdCursor, toPage } from "../paging";
+import { auditLog, type NewAuditLogEntry, users } from "../schema";
 
-type Executor = Pick<Database, "insert">;
+/** One audit entry as a writer records it: its action and target kind are the contract's. */
+export type NewAuditEntry = Omit<NewAuditLogEntry, "action" | "targetType"> & { action: AuditAction; targetType: AuditTarget };
 
 /** Writes one audit entry; pass the transaction so the record commits or rolls back with the change. */
-export async function recordAudit(options: { tx: Executor; entry: NewAuditLogEntry }): Promise<void> {
-  await options.tx.insert(auditLog).values(options.entry);
-}
-
-export type AuditKind = "parameter_set" | "member" | "invitation" | "share_link";
-
-export interface AuditEntrySummary {
-  id: string;
-  at: string;
-  action: string;
-  actor: { id: string; name: string } | null;
-  targetType: string;
-  targetId: string;
-  details: Record<string, unknown>;
+export async function recordAudit(db: Executor, options: { entry: NewAuditEntry }): Promise<void>;
+/** Transitional form for the writers that do not pass the executor first yet; removed once none is left. */
+export async function recordAudit(options: { tx: Pick<Executor, "insert">; entry: NewAuditLogEntry }): Promise<void>;
+export async function recordAudit(
+  ...args: [Executor, { entry: NewAuditEntry }] | [{ tx: Pick<Executor, "insert">; entry: NewAuditLogEntry }]
+): Promise<void> {
+  const [executor, entry] = args.length === 2 ? [args[0], args[1].entry] : [args[0].tx, args[0].entry];
+  await executor.insert(auditLog).values(entry);
 }
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
 /** A lab's audit trail, newest first, filtered by set, person, kind and date (UTC days, inclusive). */
-export async function listAudit(options: {
-  labId: string;
-  setId?: string;
-  actorId?: string;
-  kind?: AuditKind;
-  from?: string;
-  to?: string;
-  page: PageQuery;
-}): Promise<Page<AuditEntrySummary>> {
+export async function listAudit(
+  db: Executor,
+  options: {
+    access: ResourceAccess<"lab">;
+    setId?: string;
+    actorId?: string;
+    kind?: AuditKind;
+    from?: string;
+    to?: string;
+    page: PageQuery;
+  },
+): Promise<Page<AuditEntry>> {
   const after = decodeCursor(options.page.cursor, timeIdCursor);
   const rows = await db
     .select({
@@ -54,7 +52,7 @@ export async function listAudit(options: {
     .leftJoin(users, eq(users.id, auditLog.actorId))
     .where(
       and(
-        eq(auditLog.labId, options.labId),
+        eq(auditLog.labId, options.access.labId),
         options.setId ? and(eq(auditLog.targetType, "parameter_set"), eq(auditLog.targetId, options.setId)) : undefined,
         options.actorId ? eq(auditLog.actorId, options.actorId) : undefined,
         options.kind ? like(auditLog.action, `${options.kind}.%`) : undefined,

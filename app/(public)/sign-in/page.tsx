@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { db } from "@/db/client";
 import { DEMO_PASSWORD, DEMO_USERS } from "@/db/demo-data";
 import { isDemoSeeded } from "@/db/queries/demo";
 import { safeRedirectTarget } from "@/lib/auth/redirect-target";
@@ -18,7 +19,7 @@ function first(value: string | string[] | undefined): string | undefined {
 }
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const [params, demo] = await Promise.all([searchParams, isDemoSeeded()]);
+  const [params, demo] = await Promise.all([searchParams, isDemoSeeded(db)]);
   return (
     <div className="space-y-8">
       <section className="rounded-lg border border-ink/10 bg-paper-raised p-6 shadow-sm sm:p-8">

@@ -1,6 +1,7 @@
 import { isDeepStrictEqual } from "node:util";
+import { db } from "@/db/client";
 import { createRun, listRuns, markRunUnqueued } from "@/db/queries/runs";
-import { getParameterSet } from "@/db/queries/parameter-sets";
+import { getParameterSetInLab } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
 import { DomainError, validationError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
@@ -27,7 +28,7 @@ export const POST = apiRoute(async (request) => {
   const handler = runKindHandler(input.kind)!;
   let set: { id: string; name: string; version: number; edited: boolean } | null = null;
   if (input.parameterSetId) {
-    const stored = await getParameterSet({ id: input.parameterSetId, labId: access.labId, role: access.role });
+    const stored = await getParameterSetInLab(db, { access, id: input.parameterSetId });
     if (!stored)
       throw new DomainError("validation", "One field is invalid.", { fields: { parameterSetId: "No such parameter set in this lab." } });
     set = { id: stored.id, name: stored.name, version: stored.version, edited: !isDeepStrictEqual(stored.params, input.payload.params) };
