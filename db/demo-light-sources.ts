@@ -1,5 +1,5 @@
 import { DEMO_LAB } from "./demo-data";
-import type { Database } from "./connection";
+import type { Executor } from "./executor";
 import { lightSources, type NewLightSourceRow } from "./schema";
 
 /*
@@ -24,10 +24,8 @@ export const DEMO_LIGHT_SOURCES: NewLightSourceRow[] = [
   { id: "6a1f0c2e-5b1d-4c1e-9f00-00000000d006", labId: DEMO_LAB.id, name: "Telecom DFB 1550", wavelengthNm: 1550, powerW: 0.01 },
 ];
 
-type Executor = Pick<Database, "insert">;
-
 /** Inserts the demo lab's lines; existing ids are left as they are. Returns how many were new. */
-export async function seedDemoLightSources(tx: Executor): Promise<number> {
-  const inserted = await tx.insert(lightSources).values(DEMO_LIGHT_SOURCES).onConflictDoNothing().returning({ id: lightSources.id });
+export async function seedDemoLightSources(db: Executor): Promise<number> {
+  const inserted = await db.insert(lightSources).values(DEMO_LIGHT_SOURCES).onConflictDoNothing().returning({ id: lightSources.id });
   return inserted.length;
 }

@@ -4,8 +4,8 @@ import { eq, sql } from "drizzle-orm";
 import { parseMeasurementTable, proposeMapping, readTable, type ColumnMapping, type FileDefaults } from "@/lib/measurements/parse";
 import { scriptSettings } from "@/lib/settings/scripts";
 import { createObjectStore } from "@/lib/storage/object-store";
-import type { Database } from "./connection";
 import { DEMO_LAB, DEMO_USERS } from "./demo-data";
+import type { Executor } from "./executor";
 import { importMeasurementSet } from "./measurement-import";
 import { measurementSets, users } from "./schema";
 
@@ -46,7 +46,7 @@ export const DEMO_MEASUREMENT_SETS: DemoMeasurementSet[] = [
   },
 ];
 
-export async function seedDemoMeasurements(db: Database): Promise<number> {
+export async function seedDemoMeasurements(db: Executor): Promise<number> {
   const store = createObjectStore(scriptSettings.storage);
   await store.ensureBucket();
   // The uploader is the demo postdoc, by address: an account made before the seed keeps its own id.

@@ -5,8 +5,9 @@ import { DomainError } from "@/lib/contracts/errors";
 import type { ColumnMapping, FileDefaults } from "@/lib/measurements/parse";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
-import type { Database } from "./connection";
-import { auditLog, measurementPoints, measurementSets } from "./schema";
+import type { Executor } from "./executor";
+import { recordAudit } from "./queries/audit";
+import { measurementPoints, measurementSets } from "./schema";
 
 /*
  * Importing a measurement set as one unit: the original file into object storage first, then the
@@ -49,7 +50,7 @@ export function duplicateMeasurementName(name: string): DomainError {
 }
 
 export async function importMeasurementSet(options: {
-  db: Database;
+  db: Executor;
   store: ObjectStore;
   actorId: string;
   input: MeasurementImport;
@@ -113,13 +114,15 @@ export async function importMeasurementSet(options: {
           })),
         );
       }
-      await tx.insert(auditLog).values({
-        actorId: options.actorId,
-        action: "measurement_set.create",
-        targetType: "measurement_set",
-        targetId: id,
-        labId: input.labId,
-        details: { name: input.name, rows: input.points.length, fileName: input.fileName, fileBytes: input.bytes.byteLength },
+      await recordAudit(tx, {
+        entry: {
+          actorId: options.actorId,
+          action: "measurement_set.create",
+          targetType: "measurement_set",
+          targetId: id,
+          labId: input.labId,
+          details: { name: input.name, rows: input.points.length, fileName: input.fileName, fileBytes: input.bytes.byteLength },
+        },
       });
     });
   } catch (error) {

@@ -1,4 +1,3 @@
-import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { uniqueViolation } from "@/db/errors";
 import { DomainError, notFound, validationError } from "@/lib/contracts/errors";
@@ -8,15 +7,18 @@ import {
   type UpdateLightSourceInput,
   lightSourceInputSchema,
 } from "@/lib/contracts/light-sources";
-import { db } from "../client";
+import type { Executor } from "../executor";
 import { lightSources, type LightSourceRow } from "../schema";
 import { recordAudit } from "./audit";
-import type { Caller } from "@/lib/contracts/access";
+import type { ResourceAccess } from "@/lib/contracts/access";
 
 /*
- * A lab's light sources. Callers pass the lab they were authorized for (requireLabRole) and every
- * query filters on it, so an id from another lab finds nothing.
+ * A lab's light sources. Every query of one source takes the proof lib/auth/access.ts authorize()
+ * made for it and filters on both its id and its lab, so a proof can never reach a source of
+ * another lab; the actor of a change is the proof's caller.
  */
+
+type SourceAccess = ResourceAccess<"light_source">;
 
 const NOT_FOUND = "No such light source.";
 
@@ -41,43 +43,46 @@ function duplicateName(error: unknown, name: string): DomainError | null {
   });
 }
 
-export async function listLightSources(options: { labId: string }): Promise<LightSource[]> {
+export async function listLightSources(db: Executor, options: { access: ResourceAccess<"lab"> }): Promise<LightSource[]> {
   const rows = await db
     .select()
     .from(lightSources)
-    .where(eq(lightSources.labId, options.labId))
+    .where(eq(lightSources.labId, options.access.labId))
     .orderBy(asc(lightSources.wavelengthNm), asc(lightSources.name));
   return rows.map(toDto);
 }
 
-/** The lab a light source belongs to (for requireLabRole), or null. */
-export async function findLightSourceLabId(options: { id: string }): Promise<string | null> {
-  const [row] = await db.select({ labId: lightSources.labId }).from(lightSources).where(eq(lightSources.id, options.id)).limit(1);
-  return row?.labId ?? null;
-}
-
-export async function getLightSource(options: { id: string; labId: string }): Promise<LightSource | null> {
+/** The source the proof is for; null when it was deleted since. */
+export async function getLightSource(db: Executor, options: { access: SourceAccess }): Promise<LightSource | null> {
+  const { access } = options;
   const [row] = await db
     .select()
     .from(lightSources)
-    .where(and(eq(lightSources.id, options.id), eq(lightSources.labId, options.labId)))
+    .where(and(eq(lightSources.id, access.id), eq(lightSources.labId, access.labId)))
     .limit(1);
   return row ? toDto(row) : null;
 }
 
-export async function createLightSource(options: { caller: Caller; input: CreateLightSourceInput }): Promise<LightSource> {
-  const { caller, input } = options;
+/** A new source in the lab the proof is for (the lab `input.labId` named, which authorize checked). */
+export async function createLightSource(
+  db: Executor,
+  options: { access: ResourceAccess<"lab">; input: CreateLightSourceInput },
+): Promise<LightSource> {
+  const { access, input } = options;
   try {
     return await db.transaction(async (tx) => {
-      const [row] = await tx.insert(lightSources).values(input).returning();
+      const [row] = await tx
+        .insert(lightSources)
+        .values({ ...input, labId: access.labId })
+        .returning();
       if (!row) throw new Error("insert into light_sources returned no row");
       await recordAudit(tx, {
         entry: {
-          actorId: caller.id,
+          actorId: access.caller.id,
           action: "light_source.create",
           targetType: "light_source",
           targetId: row.id,
-          labId: input.labId,
+          labId: access.labId,
           details: { name: input.name, wavelengthNm: input.wavelengthNm },
         },
       });
@@ -88,14 +93,13 @@ export async function createLightSource(options: { caller: Caller; input: Create
   }
 }
 
-export async function updateLightSource(options: {
-  caller: Caller;
-  id: string;
-  labId: string;
-  patch: UpdateLightSourceInput;
-}): Promise<LightSource> {
-  const { caller, id, labId, patch } = options;
-  const current = await getLightSource({ id, labId });
+export async function updateLightSource(
+  db: Executor,
+  options: { access: SourceAccess; patch: UpdateLightSourceInput },
+): Promise<LightSource> {
+  const { access, patch } = options;
+  const { id, labId } = access;
+  const current = await getLightSource(db, { access });
   if (!current) throw notFound(NOT_FOUND);
   // The range rule spans fields, so the merged line is checked as a whole.
   const merged = lightSourceInputSchema.safeParse({
@@ -116,7 +120,7 @@ export async function updateLightSource(options: {
       if (!row) throw notFound(NOT_FOUND);
       await recordAudit(tx, {
         entry: {
-          actorId: caller.id,
+          actorId: access.caller.id,
           action: "light_source.update",
           targetType: "light_source",
           targetId: id,
@@ -131,8 +135,8 @@ export async function updateLightSource(options: {
   }
 }
 
-export async function deleteLightSource(options: { caller: Caller; id: string; labId: string }): Promise<void> {
-  const { caller, id, labId } = options;
+export async function deleteLightSource(db: Executor, options: { access: SourceAccess }): Promise<void> {
+  const { id, labId, caller } = options.access;
   await db.transaction(async (tx) => {
     const [row] = await tx
       .delete(lightSources)

@@ -1,19 +1,22 @@
-import "server-only";
 import { and, asc, desc, eq, ilike, or, type SQL } from "drizzle-orm";
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import type { MeasuredPoint } from "@/lib/measurements/point";
-import { objectStore } from "@/lib/storage/server";
-import { db } from "../client";
+import type { ObjectStore } from "@/lib/storage/object-store";
+import type { Executor } from "../executor";
 import { importMeasurementSet, type MeasurementImport } from "../measurement-import";
 import { labMemberships, labs, measurementPoints, measurementSets, users } from "../schema";
-import { type LabRole } from "@/lib/contracts/roles";
+import type { LabRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
-import type { Caller } from "@/lib/contracts/access";
+import type { Caller, ResourceAccess } from "@/lib/contracts/access";
 
 /*
- * Measurement sets of a lab. Callers pass the lab they were authorized for (requireLabRole) and
- * every query filters on it, so an id from another lab finds nothing.
+ * Measurement sets of a lab. Every query of one set takes the proof lib/auth/access.ts authorize()
+ * made for it and filters on both the set's id and its lab, so a proof can never reach a set of
+ * another lab. The original files live in the object store the caller passes (the server's own, or
+ * a script's), beside the database.
  */
+
+type MeasurementAccess = ResourceAccess<"measurement_set">;
 
 const summaryColumns = {
   id: measurementSets.id,
@@ -60,12 +63,15 @@ function toSummary(row: SummaryRow, role: LabRole): MeasurementSetSummary {
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** Sets in the caller's labs (every lab for a site admin), newest first. */
-export async function listMeasurementSets(options: { caller: Caller; labId?: string; q?: string }): Promise<MeasurementSetSummary[]> {
+/** Sets in the caller's labs (every lab for a site admin), newest first; `lab` narrows to one of them. */
+export async function listMeasurementSets(
+  db: Executor,
+  options: { caller: Caller; lab?: ResourceAccess<"lab">; q?: string },
+): Promise<MeasurementSetSummary[]> {
   const isAdmin = options.caller.siteRole === "admin";
   const conditions: (SQL | undefined)[] = [];
   if (!isAdmin) conditions.push(eq(labMemberships.userId, options.caller.id));
-  if (options.labId) conditions.push(eq(measurementSets.labId, options.labId));
+  if (options.lab) conditions.push(eq(measurementSets.labId, options.lab.labId));
   if (options.q) {
     const pattern = `%${escapeLike(options.q)}%`;
     conditions.push(
@@ -86,13 +92,7 @@ export async function listMeasurementSets(options: { caller: Caller; labId?: str
   });
 }
 
-/** The lab a set belongs to (for requireLabRole), or null when there is no such set. */
-export async function findMeasurementSetLabId(options: { id: string }): Promise<string | null> {
-  const [row] = await db.select({ labId: measurementSets.labId }).from(measurementSets).where(eq(measurementSets.id, options.id)).limit(1);
-  return row?.labId ?? null;
-}
-
-export async function getMeasurementSet(options: { id: string; labId: string; role: LabRole }): Promise<MeasurementSetSummary | null> {
+async function loadSummary(db: Executor, options: { id: string; labId: string; role: LabRole }): Promise<MeasurementSetSummary | null> {
   const [row] = await db
     .select(summaryColumns)
     .from(measurementSets)
@@ -103,11 +103,18 @@ export async function getMeasurementSet(options: { id: string; labId: string; ro
   return row ? toSummary(row, options.role) : null;
 }
 
-export async function getMeasurementPoints(options: { id: string; labId: string }): Promise<MeasuredPoint[] | null> {
+/** The set the proof is for; null when it was deleted since. */
+export async function getMeasurementSet(db: Executor, options: { access: MeasurementAccess }): Promise<MeasurementSetSummary | null> {
+  return loadSummary(db, options.access);
+}
+
+/** The set's points in file order, in SI; null when the set was deleted since. */
+export async function getMeasurementPoints(db: Executor, options: { access: MeasurementAccess }): Promise<MeasuredPoint[] | null> {
+  const { access } = options;
   const [set] = await db
     .select({ quantity: measurementSets.quantity })
     .from(measurementSets)
-    .where(and(eq(measurementSets.id, options.id), eq(measurementSets.labId, options.labId)));
+    .where(and(eq(measurementSets.id, access.id), eq(measurementSets.labId, access.labId)));
   if (!set) return null;
   const rows = await db
     .select({
@@ -120,7 +127,7 @@ export async function getMeasurementPoints(options: { id: string; labId: string 
       lengthM: measurementPoints.lengthM,
     })
     .from(measurementPoints)
-    .where(eq(measurementPoints.setId, options.id))
+    .where(eq(measurementPoints.setId, access.id))
     .orderBy(asc(measurementPoints.ordinal));
   return rows.map((row) => ({
     line: row.line,
@@ -135,27 +142,30 @@ export async function getMeasurementPoints(options: { id: string; labId: string 
 }
 
 /** The original file's bytes and name, byte for byte as uploaded; null when the set is unknown. */
-export async function getMeasurementOriginal(options: {
-  id: string;
-  labId: string;
-}): Promise<{ fileName: string; contentType: string; bytes: Uint8Array } | null> {
+export async function getMeasurementOriginal(
+  db: Executor,
+  options: { access: MeasurementAccess; store: ObjectStore },
+): Promise<{ fileName: string; contentType: string; bytes: Uint8Array } | null> {
+  const { access } = options;
   const [row] = await db
     .select({ fileName: measurementSets.fileName, contentType: measurementSets.contentType, objectKey: measurementSets.objectKey })
     .from(measurementSets)
-    .where(and(eq(measurementSets.id, options.id), eq(measurementSets.labId, options.labId)));
+    .where(and(eq(measurementSets.id, access.id), eq(measurementSets.labId, access.labId)));
   if (!row) return null;
-  const object = await objectStore.get(row.objectKey);
-  if (!object) throw new Error(`measurement set ${options.id}: object ${row.objectKey} is missing from storage`);
+  const object = await options.store.get(row.objectKey);
+  if (!object) throw new Error(`measurement set ${access.id}: object ${row.objectKey} is missing from storage`);
   return { fileName: row.fileName, contentType: row.contentType, bytes: object.bytes };
 }
 
-export async function createMeasurementSet(options: {
-  caller: Caller;
-  role: LabRole;
-  input: MeasurementImport;
-}): Promise<MeasurementSetSummary> {
-  const id = await importMeasurementSet({ db, store: objectStore, actorId: options.caller.id, input: options.input });
-  const item = await getMeasurementSet({ id, labId: options.input.labId, role: options.role });
+/** Imports an upload into the lab the proof is for, uploaded by the proof's caller. */
+export async function createMeasurementSet(
+  db: Executor,
+  options: { access: ResourceAccess<"lab">; store: ObjectStore; input: Omit<MeasurementImport, "labId"> },
+): Promise<MeasurementSetSummary> {
+  const { access } = options;
+  const input: MeasurementImport = { ...options.input, labId: access.labId };
+  const id = await importMeasurementSet({ db, store: options.store, actorId: access.caller.id, input });
+  const item = await loadSummary(db, { id, labId: access.labId, role: access.role });
   if (!item) throw new Error(`measurement set ${id} missing right after import`);
   return item;
 }
@@ -164,11 +174,12 @@ export async function createMeasurementSet(options: {
  * Deletes the rows (with an audit entry) in one transaction, then the object. A failure after the
  * commit leaves an orphan object, never a row without its file.
  */
-export async function deleteMeasurementSet(options: { caller: Caller; id: string; labId: string }): Promise<boolean> {
+export async function deleteMeasurementSet(db: Executor, options: { access: MeasurementAccess; store: ObjectStore }): Promise<boolean> {
+  const { access } = options;
   const deleted = await db.transaction(async (tx) => {
     const [row] = await tx
       .delete(measurementSets)
-      .where(and(eq(measurementSets.id, options.id), eq(measurementSets.labId, options.labId)))
+      .where(and(eq(measurementSets.id, access.id), eq(measurementSets.labId, access.labId)))
       .returning({
         name: measurementSets.name,
         rowCount: measurementSets.rowCount,
@@ -178,18 +189,18 @@ export async function deleteMeasurementSet(options: { caller: Caller; id: string
     if (!row) return null;
     await recordAudit(tx, {
       entry: {
-        actorId: options.caller.id,
+        actorId: access.caller.id,
         action: "measurement_set.delete",
         targetType: "measurement_set",
-        targetId: options.id,
-        labId: options.labId,
+        targetId: access.id,
+        labId: access.labId,
         details: { name: row.name, rows: row.rowCount, fileName: row.fileName },
       },
     });
     return row;
   });
   if (!deleted) return false;
-  await objectStore.delete(deleted.objectKey).catch((error: unknown) => {
+  await options.store.delete(deleted.objectKey).catch((error: unknown) => {
     console.error(
       `[measurements] could not remove ${deleted.objectKey} after deleting its set:`,
       error instanceof Error ? error.message : error,

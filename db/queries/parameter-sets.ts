@@ -1,32 +1,30 @@
-import "server-only";
-import { and, desc, eq, ilike, lt, or, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, ilike, inArray, lt, or, sql, type SQL } from "drizzle-orm";
 import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
-import { type Page } from "@/lib/contracts/paging";
+import type { Page } from "@/lib/contracts/paging";
 import type { PageQuery } from "@/lib/contracts/paging";
 import { z } from "zod";
 import { alias } from "drizzle-orm/pg-core";
 import { uniqueViolation } from "@/db/errors";
+import type { AuditAction } from "@/lib/contracts/audit";
 import { DomainError, notFound } from "@/lib/contracts/errors";
 import { zodIssueFields } from "@/lib/contracts/validation";
 import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/contracts/parameter-sets";
 import type { CreateParameterSetInput, UpdateParameterSetInput } from "@/lib/contracts/parameter-sets";
 import { type SaveFitInput, fitProvenance } from "@/lib/fit/provenance";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
-import { db, type Database } from "../client";
-import { labMemberships, labs, parameterSets, parameterSetVersions, users } from "../schema";
-import { type LabRole } from "@/lib/contracts/roles";
+import type { Executor, Tx } from "../executor";
+import { labMemberships, labs, measurementSets, parameterSets, parameterSetVersions, users } from "../schema";
+import type { LabRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
-import type { Caller } from "@/lib/contracts/access";
-import type { AuditAction } from "@/lib/contracts/audit";
+import type { Caller, ResourceAccess } from "@/lib/contracts/access";
 
 /*
- * Parameter sets and their immutable versions. Callers pass the lab they were authorized for
- * (lib/auth/access.ts requireLabRole) and every query filters on it, so a set id from another
- * lab finds nothing.
+ * Parameter sets and their immutable versions. Every query of one set takes the proof
+ * lib/auth/access.ts authorize() made for it and filters on both the set's id and its lab, so a
+ * proof can never reach a set of another lab; the actor of a change is the proof's caller.
  */
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
-type Executor = Database | Tx;
+type SetAccess = ResourceAccess<"parameter_set">;
 
 const NOT_FOUND = "No such parameter set.";
 const createdByUser = alias(users, "created_by_user");
@@ -72,18 +70,21 @@ function toSummary(row: SummaryRow, role: LabRole): ParameterSetSummary {
 // LIKE wildcards in a search box are literal text to the user.
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** Sets in the caller's labs (every lab for a site admin), newest edit first. */
-export async function listParameterSets(options: {
-  caller: Caller;
-  labId?: string;
-  q?: string;
-  tag?: string;
-  page: PageQuery;
-}): Promise<Page<ParameterSetSummary>> {
+/** Sets in the caller's labs (every lab for a site admin), newest edit first; `lab` narrows to one of them. */
+export async function listParameterSets(
+  db: Executor,
+  options: {
+    caller: Caller;
+    lab?: ResourceAccess<"lab">;
+    q?: string;
+    tag?: string;
+    page: PageQuery;
+  },
+): Promise<Page<ParameterSetSummary>> {
   const isAdmin = options.caller.siteRole === "admin";
   const conditions: (SQL | undefined)[] = [];
   if (!isAdmin) conditions.push(eq(labMemberships.userId, options.caller.id));
-  if (options.labId) conditions.push(eq(parameterSets.labId, options.labId));
+  if (options.lab) conditions.push(eq(parameterSets.labId, options.lab.labId));
   if (options.q) {
     const pattern = `%${escapeLike(options.q)}%`;
     conditions.push(or(ilike(parameterSets.name, pattern), ilike(parameterSets.description, pattern)));
@@ -112,12 +113,18 @@ export async function listParameterSets(options: {
   );
 }
 
-/** The lab a set belongs to (for requireLabRole), or null when there is no such set. */
-export async function findParameterSetLabId(options: { id: string }): Promise<string | null> {
-  const [row] = await db.select({ labId: parameterSets.labId }).from(parameterSets).where(eq(parameterSets.id, options.id)).limit(1);
-  return row?.labId ?? null;
+/**
+ * The proof's set id, as long as the set is still in the proof's lab: awaited, a row or none; in a
+ * WHERE, a subquery that ties a child table (links, views) to the set and its lab.
+ */
+export function selectSetInLab(db: Executor, access: SetAccess) {
+  return db
+    .select({ id: parameterSets.id })
+    .from(parameterSets)
+    .where(and(eq(parameterSets.id, access.id), eq(parameterSets.labId, access.labId)));
 }
 
+/** One set, found by its id inside a lab, as the caller with `role` sees it. */
 async function loadItem(executor: Executor, options: { id: string; labId: string; role: LabRole }): Promise<ParameterSet | null> {
   const [row] = await executor
     .select({ ...summaryColumns, params: parameterSets.params, viewState: parameterSets.viewState })
@@ -137,8 +144,9 @@ async function requireItem(executor: Executor, options: { id: string; labId: str
   return item;
 }
 
-export async function getParameterSet(options: { id: string; labId: string; role: LabRole }): Promise<ParameterSet | null> {
-  return loadItem(db, options);
+/** The set the proof is for; null when it was deleted since. */
+export async function getParameterSet(db: Executor, options: { access: SetAccess }): Promise<ParameterSet | null> {
+  return loadItem(db, options.access);
 }
 
 function duplicateName(error: unknown, name: string): DomainError | null {
@@ -148,18 +156,19 @@ function duplicateName(error: unknown, name: string): DomainError | null {
   });
 }
 
-export async function createParameterSet(options: {
-  caller: Caller;
-  role: LabRole;
-  input: CreateParameterSetInput;
-}): Promise<ParameterSet> {
-  const { caller, input } = options;
+/** A new set, version 1, in the lab the proof is for. */
+export async function createParameterSet(
+  db: Executor,
+  options: { access: ResourceAccess<"lab">; input: CreateParameterSetInput },
+): Promise<ParameterSet> {
+  const { access, input } = options;
+  const { caller, labId } = access;
   try {
     return await db.transaction(async (tx) => {
       const [row] = await tx
         .insert(parameterSets)
         .values({
-          labId: input.labId,
+          labId,
           name: input.name,
           description: input.description,
           tags: input.tags,
@@ -186,11 +195,11 @@ export async function createParameterSet(options: {
           action: "parameter_set.create",
           targetType: "parameter_set",
           targetId: row.id,
-          labId: input.labId,
+          labId,
           details: { name: input.name, version: 1 },
         },
       });
-      return requireItem(tx, { id: row.id, labId: input.labId, role: options.role });
+      return requireItem(tx, { id: row.id, labId, role: access.role });
     });
   } catch (error) {
     throw duplicateName(error, input.name) ?? error;
@@ -229,10 +238,7 @@ function sameJson(a: unknown, b: unknown): boolean {
 async function saveNewVersion(
   tx: Tx,
   options: {
-    caller: Caller;
-    id: string;
-    labId: string;
-    role: LabRole;
+    access: SetAccess;
     expectedVersion: number | undefined;
     content: (current: Content & { version: number }) => Promise<Content> | Content;
     /** When the new content equals the current one: save nothing and answer the item as it is. */
@@ -242,6 +248,7 @@ async function saveNewVersion(
     audit: { action: AuditAction; details: (changed: (keyof Content)[]) => Record<string, unknown> };
   },
 ): Promise<ParameterSet> {
+  const { access } = options;
   const [current] = await tx
     .select({
       version: parameterSets.version,
@@ -251,60 +258,58 @@ async function saveNewVersion(
       params: parameterSets.params,
     })
     .from(parameterSets)
-    .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
+    .where(and(eq(parameterSets.id, access.id), eq(parameterSets.labId, access.labId)))
     .for("update");
   if (!current) throw notFound(NOT_FOUND);
   if (options.expectedVersion !== undefined && options.expectedVersion !== current.version) {
-    const latest = await requireItem(tx, options);
+    const latest = await requireItem(tx, access);
     throw new DomainError(
       "stale_version",
-      `Someone saved version ${current.version} after the version ${options.expectedVersion} you edited. Reload and apply your changes again.`,
+      `Someone saved version ${current.version} after the version ${options.expectedVersion} you edited. ` +
+        "Reload and apply your changes again.",
       { extra: { current: latest } },
     );
   }
   const next = await options.content(current);
   const changed = CONTENT_KEYS.filter((key) => !sameJson(next[key], current[key]));
   // A save that changes nothing must not add a version identical to the current one.
-  if (options.skipIfUnchanged && changed.length === 0) return requireItem(tx, options);
+  if (options.skipIfUnchanged && changed.length === 0) return requireItem(tx, access);
   const version = current.version + 1;
   const now = new Date();
   await tx
     .update(parameterSets)
-    .set({ ...next, version, updatedById: options.caller.id, updatedAt: now })
-    .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)));
+    .set({ ...next, version, updatedById: access.caller.id, updatedAt: now })
+    .where(and(eq(parameterSets.id, access.id), eq(parameterSets.labId, access.labId)));
   await tx.insert(parameterSetVersions).values({
-    setId: options.id,
+    setId: access.id,
     version,
     ...next,
     provenance: options.provenance ?? null,
-    createdById: options.caller.id,
+    createdById: access.caller.id,
     createdAt: now,
   });
   await recordAudit(tx, {
     entry: {
-      actorId: options.caller.id,
+      actorId: access.caller.id,
       action: options.audit.action,
       targetType: "parameter_set",
-      targetId: options.id,
-      labId: options.labId,
+      targetId: access.id,
+      labId: access.labId,
       details: { ...options.audit.details(changed), version },
     },
   });
-  return requireItem(tx, options);
+  return requireItem(tx, access);
 }
 
-export async function updateParameterSet(options: {
-  caller: Caller;
-  id: string;
-  labId: string;
-  role: LabRole;
-  input: UpdateParameterSetInput;
-}): Promise<ParameterSet> {
+export async function updateParameterSet(
+  db: Executor,
+  options: { access: SetAccess; input: UpdateParameterSetInput },
+): Promise<ParameterSet> {
   const { input } = options;
   try {
     return await db.transaction((tx) =>
       saveNewVersion(tx, {
-        ...options,
+        access: options.access,
         expectedVersion: input.version,
         content: (current) => ({
           name: input.name ?? current.name,
@@ -321,19 +326,16 @@ export async function updateParameterSet(options: {
   }
 }
 
-export async function restoreParameterSetVersion(options: {
-  caller: Caller;
-  id: string;
-  labId: string;
-  role: LabRole;
-  restoreVersion: number;
-  expectedVersion: number;
-}): Promise<ParameterSet> {
+export async function restoreParameterSetVersion(
+  db: Executor,
+  options: { access: SetAccess; restoreVersion: number; expectedVersion: number },
+): Promise<ParameterSet> {
+  const { access } = options;
   let restoredName = "";
   try {
     return await db.transaction((tx) =>
       saveNewVersion(tx, {
-        ...options,
+        access,
         expectedVersion: options.expectedVersion,
         content: async () => {
           const [old] = await tx
@@ -344,7 +346,7 @@ export async function restoreParameterSetVersion(options: {
               params: parameterSetVersions.params,
             })
             .from(parameterSetVersions)
-            .where(and(eq(parameterSetVersions.setId, options.id), eq(parameterSetVersions.version, options.restoreVersion)));
+            .where(and(eq(parameterSetVersions.setId, access.id), eq(parameterSetVersions.version, options.restoreVersion)));
           if (!old) throw notFound(`This parameter set has no version ${options.restoreVersion}.`);
           restoredName = old.name;
           return old;
@@ -358,21 +360,35 @@ export async function restoreParameterSetVersion(options: {
 }
 
 /**
+ * The provenance may name only measurement sets of the set's own lab (others do not exist for the
+ * caller): the first one that is not there is a validation error on its field.
+ */
+async function requireSameLabMeasurements(db: Executor, options: { access: SetAccess; input: SaveFitInput }): Promise<void> {
+  const ids = options.input.fit.measurementSets.map((m) => m.id);
+  const rows = await db
+    .select({ id: measurementSets.id })
+    .from(measurementSets)
+    .where(and(inArray(measurementSets.id, ids), eq(measurementSets.labId, options.access.labId)));
+  const inLab = new Set(rows.map((row) => row.id));
+  const foreign = ids.findIndex((id) => !inLab.has(id));
+  if (foreign >= 0) {
+    throw new DomainError("validation", "The fit names a measurement set that is not in this parameter set's lab.", {
+      fields: { [`fit.measurementSets.${foreign}.id`]: "no such measurement set in this lab" },
+    });
+  }
+}
+
+/**
  * Saves fitted values as a new version with the fit's provenance. The fit started from
  * `input.version`; a newer current version answers 409 like an edit. The merged parameters are
  * validated with the one model schema, so a fit can never store an invalid set.
  */
-export async function saveFitAsVersion(options: {
-  caller: Caller;
-  id: string;
-  labId: string;
-  role: LabRole;
-  input: SaveFitInput;
-}): Promise<ParameterSet> {
+export async function saveFitAsVersion(db: Executor, options: { access: SetAccess; input: SaveFitInput }): Promise<ParameterSet> {
   const { input } = options;
+  await requireSameLabMeasurements(db, options);
   return db.transaction((tx) =>
     saveNewVersion(tx, {
-      ...options,
+      access: options.access,
       expectedVersion: input.version,
       content: (current) => {
         const merged = modelParamsSchema.safeParse({ ...current.params, ...input.values });
@@ -399,20 +415,22 @@ export async function saveFitAsVersion(options: {
   );
 }
 
-export async function deleteParameterSet(options: { caller: Caller; id: string; labId: string }): Promise<boolean> {
+/** False when the set was already gone. */
+export async function deleteParameterSet(db: Executor, options: { access: SetAccess }): Promise<boolean> {
+  const { access } = options;
   return db.transaction(async (tx) => {
     const [row] = await tx
       .delete(parameterSets)
-      .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
+      .where(and(eq(parameterSets.id, access.id), eq(parameterSets.labId, access.labId)))
       .returning({ name: parameterSets.name, version: parameterSets.version });
     if (!row) return false;
     await recordAudit(tx, {
       entry: {
-        actorId: options.caller.id,
+        actorId: access.caller.id,
         action: "parameter_set.delete",
         targetType: "parameter_set",
-        targetId: options.id,
-        labId: options.labId,
+        targetId: access.id,
+        labId: access.labId,
         details: row,
       },
     });
@@ -422,13 +440,14 @@ export async function deleteParameterSet(options: { caller: Caller; id: string; 
 
 const versionCursor = z.tuple([z.number().int().min(1)]);
 
-export async function listParameterSetVersions(options: {
-  id: string;
-  labId: string;
-  page: PageQuery;
-}): Promise<Page<ParameterSetVersion> | null> {
-  const exists = await findParameterSetLabId({ id: options.id });
-  if (exists !== options.labId) return null;
+/** The set's versions, newest first; null when the set was deleted since. */
+export async function listParameterSetVersions(
+  db: Executor,
+  options: { access: SetAccess; page: PageQuery },
+): Promise<Page<ParameterSetVersion> | null> {
+  const { access } = options;
+  const [exists] = await selectSetInLab(db, access).limit(1);
+  if (!exists) return null;
   const before = decodeCursor(options.page.cursor, versionCursor);
   const rows = await db
     .select({
@@ -447,8 +466,8 @@ export async function listParameterSetVersions(options: {
     .innerJoin(users, eq(users.id, parameterSetVersions.createdById))
     .where(
       and(
-        eq(parameterSetVersions.setId, options.id),
-        eq(parameterSets.labId, options.labId),
+        eq(parameterSetVersions.setId, access.id),
+        eq(parameterSets.labId, access.labId),
         before ? lt(parameterSetVersions.version, before[0]) : undefined,
       ),
     )
@@ -472,30 +491,28 @@ export async function listParameterSetVersions(options: {
 }
 
 /** Stores the workbench's view state; not a content change, so no new version. */
-export async function saveParameterSetViewState(options: {
-  caller: Caller;
-  id: string;
-  labId: string;
-  role: LabRole;
-  viewState: Record<string, unknown> | null;
-}): Promise<ParameterSet> {
+export async function saveParameterSetViewState(
+  db: Executor,
+  options: { access: SetAccess; viewState: Record<string, unknown> | null },
+): Promise<ParameterSet> {
+  const { access } = options;
   return db.transaction(async (tx) => {
     const rows = await tx
       .update(parameterSets)
       .set({ viewState: options.viewState })
-      .where(and(eq(parameterSets.id, options.id), eq(parameterSets.labId, options.labId)))
+      .where(and(eq(parameterSets.id, access.id), eq(parameterSets.labId, access.labId)))
       .returning({ id: parameterSets.id });
     if (rows.length === 0) throw notFound(NOT_FOUND);
     await recordAudit(tx, {
       entry: {
-        actorId: options.caller.id,
+        actorId: access.caller.id,
         action: "parameter_set.view_state",
         targetType: "parameter_set",
-        targetId: options.id,
-        labId: options.labId,
+        targetId: access.id,
+        labId: access.labId,
         details: { cleared: options.viewState === null },
       },
     });
-    return requireItem(tx, options);
+    return requireItem(tx, access);
   });
 }

@@ -1,16 +1,17 @@
-import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { notFound } from "@/lib/contracts/errors";
 import type { SavePlanInput, SavedPlan, SavedPlanBody } from "@/lib/contracts/plans";
-import { db } from "../client";
+import type { Executor } from "../executor";
 import { parameterSets, plans, users } from "../schema";
 import { recordAudit } from "./audit";
-import type { Caller } from "@/lib/contracts/access";
+import type { ResourceAccess } from "@/lib/contracts/access";
 
 /*
- * Measurement plans saved with a parameter set. Callers pass the set's lab they were authorized
- * for; every query joins the set and filters on that lab.
+ * Measurement plans saved with a parameter set. Every query takes the proof authorize() made for
+ * the set, joins the set and filters on both its id and its lab.
  */
+
+type SetAccess = ResourceAccess<"parameter_set">;
 
 const NOT_FOUND = "No such plan.";
 
@@ -39,31 +40,35 @@ const toDto = (row: Row): SavedPlan => ({
   createdAt: row.createdAt.toISOString(),
 });
 
-/** Newest first. */
-export async function listPlans(options: { setId: string; labId: string }): Promise<SavedPlan[]> {
+/** The set's plans, newest first. */
+export async function listPlans(db: Executor, options: { access: SetAccess }): Promise<SavedPlan[]> {
+  const { access } = options;
   const rows = await db
     .select(columns)
     .from(plans)
     .innerJoin(parameterSets, eq(parameterSets.id, plans.setId))
     .innerJoin(users, eq(users.id, plans.createdById))
-    .where(and(eq(plans.setId, options.setId), eq(parameterSets.labId, options.labId)))
+    .where(and(eq(plans.setId, access.id), eq(parameterSets.labId, access.labId)))
     .orderBy(desc(plans.createdAt), desc(plans.id));
   return rows.map(toDto);
 }
 
-export async function getPlan(options: { id: string; setId: string; labId: string }): Promise<SavedPlan | null> {
+/** One plan of the set; null when the set has no plan with this id. */
+export async function getPlan(db: Executor, options: { access: SetAccess; id: string }): Promise<SavedPlan | null> {
+  const { access } = options;
   const [row] = await db
     .select(columns)
     .from(plans)
     .innerJoin(parameterSets, eq(parameterSets.id, plans.setId))
     .innerJoin(users, eq(users.id, plans.createdById))
-    .where(and(eq(plans.id, options.id), eq(plans.setId, options.setId), eq(parameterSets.labId, options.labId)))
+    .where(and(eq(plans.id, options.id), eq(plans.setId, access.id), eq(parameterSets.labId, access.labId)))
     .limit(1);
   return row ? toDto(row) : null;
 }
 
-export async function savePlan(options: { caller: Caller; setId: string; labId: string; input: SavePlanInput }): Promise<SavedPlan> {
-  const { caller, setId, labId, input } = options;
+export async function savePlan(db: Executor, options: { access: SetAccess; input: SavePlanInput }): Promise<SavedPlan> {
+  const { access, input } = options;
+  const { caller, id: setId, labId } = access;
   const id = await db.transaction(async (tx) => {
     const [row] = await tx
       .insert(plans)
@@ -82,14 +87,15 @@ export async function savePlan(options: { caller: Caller; setId: string; labId: 
     });
     return row.id;
   });
-  const saved = await getPlan({ id, setId, labId });
+  const saved = await getPlan(db, { access, id });
   if (!saved) throw new Error("saved plan not found");
   return saved;
 }
 
-export async function deletePlan(options: { caller: Caller; id: string; setId: string; labId: string }): Promise<void> {
-  const { caller, id, setId, labId } = options;
-  const existing = await getPlan({ id, setId, labId });
+export async function deletePlan(db: Executor, options: { access: SetAccess; id: string }): Promise<void> {
+  const { access, id } = options;
+  const { caller, id: setId, labId } = access;
+  const existing = await getPlan(db, { access, id });
   if (!existing) throw notFound(NOT_FOUND);
   await db.transaction(async (tx) => {
     await tx.delete(plans).where(and(eq(plans.id, id), eq(plans.setId, setId)));

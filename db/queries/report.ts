@@ -1,11 +1,12 @@
-import "server-only";
 import { and, desc, eq, isNotNull } from "drizzle-orm";
-import { db } from "../client";
+import type { ResourceAccess } from "@/lib/contracts/access";
+import type { Executor } from "../executor";
 import { parameterSets, parameterSetVersions } from "../schema";
 
 /*
  * What the printable report of a set needs beyond the set itself: the newest version that carries
- * a provenance record (a fit, when there is one). Filtered on the lab the caller was authorized for.
+ * a provenance record (a fit, when there is one). Takes the proof authorize() made for the set and
+ * filters on both its id and its lab.
  */
 
 export interface ProvenanceRecord {
@@ -14,7 +15,11 @@ export interface ProvenanceRecord {
   provenance: Record<string, unknown>;
 }
 
-export async function latestProvenance(options: { setId: string; labId: string }): Promise<ProvenanceRecord | null> {
+export async function latestProvenance(
+  db: Executor,
+  options: { access: ResourceAccess<"parameter_set"> },
+): Promise<ProvenanceRecord | null> {
+  const { access } = options;
   const [row] = await db
     .select({
       version: parameterSetVersions.version,
@@ -24,14 +29,10 @@ export async function latestProvenance(options: { setId: string; labId: string }
     .from(parameterSetVersions)
     .innerJoin(parameterSets, eq(parameterSets.id, parameterSetVersions.setId))
     .where(
-      and(
-        eq(parameterSetVersions.setId, options.setId),
-        eq(parameterSets.labId, options.labId),
-        isNotNull(parameterSetVersions.provenance),
-      ),
+      and(eq(parameterSetVersions.setId, access.id), eq(parameterSets.labId, access.labId), isNotNull(parameterSetVersions.provenance)),
     )
     .orderBy(desc(parameterSetVersions.version))
     .limit(1);
-  if (!row || !row.provenance) return null;
+  if (!row?.provenance) return null;
   return { version: row.version, createdAt: row.createdAt.toISOString(), provenance: row.provenance };
 }

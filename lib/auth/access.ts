@@ -127,18 +127,3 @@ export async function authorize<K extends ResourceKind>(
 export function authorizeLab(caller: Caller, labId: string, minRole: LabRole): Promise<ResourceAccess<"lab">> {
   return authorize(caller, { kind: "lab", id: labId }, minRole);
 }
-
-/** Transitional name of authorizeLab while the callers move over; removed once none is left. */
-export async function requireLabRole(
-  caller: Caller,
-  labId: string,
-  minRole: LabRole,
-  options: { notFoundMessage?: string } = {},
-): Promise<ResourceAccess<"lab">> {
-  try {
-    return await authorizeLab(caller, labId, minRole);
-  } catch (error) {
-    if (error instanceof DomainError && error.code === "not_found" && options.notFoundMessage) throw notFound(options.notFoundMessage);
-    throw error;
-  }
-}

@@ -1,8 +1,9 @@
+import { db } from "@/db/client";
 import { createLightSource, listLightSources } from "@/db/queries/light-sources";
 import { readJson } from "@/lib/api/body";
 import { validationError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
-import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { authorizeLab, requireCaller } from "@/lib/auth/access";
 import { createLightSourceSchema, listLightSourcesQuery } from "@/lib/contracts/light-sources";
 
 /** GET /api/light-sources?labId= (viewer) → { items: LightSource[] } */
@@ -10,14 +11,14 @@ export const GET = apiRoute(async (request) => {
   const caller = await requireCaller(request);
   const parsed = listLightSourcesQuery.safeParse({ labId: new URL(request.url).searchParams.get("labId") ?? undefined });
   if (!parsed.success) throw validationError(parsed.error);
-  const access = await requireLabRole(caller, parsed.data.labId, "viewer");
-  return json({ items: await listLightSources({ labId: access.labId }) });
+  const access = await authorizeLab(caller, parsed.data.labId, "viewer");
+  return json({ items: await listLightSources(db, { access }) });
 });
 
 /** POST /api/light-sources { labId, name, wavelengthNm, tunableMinNm?, tunableMaxNm?, powerW? } (editor) → 201 { item } */
 export const POST = apiRoute(async (request) => {
   const caller = await requireCaller(request);
   const input = await readJson(request, createLightSourceSchema);
-  await requireLabRole(caller, input.labId, "editor");
-  return json({ item: await createLightSource({ caller, input }) }, 201);
+  const access = await authorizeLab(caller, input.labId, "editor");
+  return json({ item: await createLightSource(db, { access, input }) }, 201);
 });

@@ -1,11 +1,13 @@
+import { db } from "@/db/client";
 import { createMeasurementSet, listMeasurementSets } from "@/db/queries/measurement-sets";
 import { DomainError, validationError } from "@/lib/contracts/errors";
-import { withStorage } from "@/lib/api/measurement-set-access";
+import { withStorage } from "@/lib/api/storage";
 import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
 import { readMultipart } from "@/lib/api/multipart";
 import { apiRoute, json } from "@/lib/api/route";
-import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { authorizeLab, requireCaller } from "@/lib/auth/access";
 import { MAX_FILE_BYTES, parseMeasurementTable } from "@/lib/measurements/parse";
+import { objectStore } from "@/lib/storage/server";
 
 /** GET /api/measurement-sets?labId=&q= → { items: MeasurementSetSummary[] } */
 export const GET = apiRoute(async (request) => {
@@ -14,19 +16,19 @@ export const GET = apiRoute(async (request) => {
   const parsed = listMeasurementSetsQuery.safeParse({ labId: search.get("labId") || undefined, q: search.get("q") || undefined });
   if (!parsed.success) throw validationError(parsed.error);
   const { labId, q } = parsed.data;
-  if (labId) await requireLabRole(caller, labId, "viewer");
-  return json({ items: await listMeasurementSets({ caller, labId, q }) });
+  const lab = labId ? await authorizeLab(caller, labId, "viewer") : undefined;
+  return json({ items: await listMeasurementSets(db, { caller, lab, q }) });
 });
 
 const MIB = 1024 * 1024;
 /** Room for the form's other fields beside the file. */
 const FORM_OVERHEAD_BYTES = 64 * 1024;
-const tooLarge = (bytes?: number) =>
-  new DomainError(
-    "payload_too_large",
-    `${bytes === undefined ? "The upload is" : `The file is ${(bytes / MIB).toFixed(1)} MiB,`} larger than the ${MAX_FILE_BYTES / MIB} MiB a measurement file may be.`,
-    { fields: { file: `At most ${MAX_FILE_BYTES / MIB} MiB.` } },
-  );
+const tooLarge = (bytes?: number) => {
+  const subject = bytes === undefined ? "The upload is" : `The file is ${(bytes / MIB).toFixed(1)} MiB,`;
+  return new DomainError("payload_too_large", `${subject} larger than the ${MAX_FILE_BYTES / MIB} MiB a measurement file may be.`, {
+    fields: { file: `At most ${MAX_FILE_BYTES / MIB} MiB.` },
+  });
+};
 
 function jsonField(form: FormData, key: string): unknown {
   const raw = form.get(key);
@@ -65,7 +67,7 @@ export const POST = apiRoute(async (request) => {
     defaults: jsonField(form, "defaults"),
   });
   if (!meta.success) throw validationError(meta.error);
-  const access = await requireLabRole(caller, meta.data.labId, "editor");
+  const access = await authorizeLab(caller, meta.data.labId, "editor");
 
   const file = form.get("file");
   if (!(file instanceof File)) throw new DomainError("validation", "Choose a CSV or TSV file.", { fields: { file: "Choose a file." } });
@@ -88,11 +90,10 @@ export const POST = apiRoute(async (request) => {
     });
   }
   const item = await withStorage("nothing was stored", () =>
-    createMeasurementSet({
-      caller,
-      role: access.role,
+    createMeasurementSet(db, {
+      access,
+      store: objectStore,
       input: {
-        labId: meta.data.labId,
         name: meta.data.name,
         sample: meta.data.sample,
         fileName: file.name || "measurements.csv",

@@ -39,7 +39,7 @@ async function sourceSet(access: ResourceAccess<"lab">, input: SubmitRunInput & 
     },
   );
   if (setAccess?.labId !== access.labId) throw NO_SUCH_SET();
-  const stored = await getParameterSet({ id: setAccess.id, labId: setAccess.labId, role: setAccess.role });
+  const stored = await getParameterSet(db, { access: setAccess });
   if (!stored) throw NO_SUCH_SET();
   return { id: stored.id, name: stored.name, version: stored.version, edited: !isDeepStrictEqual(stored.params, input.payload.params) };
 }

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { Wordmark } from "@/components/brand/wordmark";
+import { db } from "@/db/client";
 import { findSharedSet } from "@/db/queries/share-links";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
 import { SharedWorkbench } from "./_components/shared-workbench";
@@ -11,7 +12,7 @@ export const dynamic = "force-dynamic";
 
 export default async function SharedSetPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const set = isLinkSecret(token) ? await findSharedSet({ tokenHash: hashToken(token) }) : null;
+  const set = isLinkSecret(token) ? await findSharedSet(db, { tokenHash: hashToken(token) }) : null;
   if (!set) notFound();
   return (
     <div className="min-h-screen">

@@ -1,30 +1,18 @@
-import { deleteLightSource, findLightSourceLabId, getLightSource, updateLightSource } from "@/db/queries/light-sources";
-import type { LabRole } from "@/lib/contracts/roles";
+import { db } from "@/db/client";
+import { deleteLightSource, getLightSource, updateLightSource } from "@/db/queries/light-sources";
 import { readJson } from "@/lib/api/body";
 import { notFound } from "@/lib/contracts/errors";
-import { isUuid } from "@/lib/contracts/validation";
 import { apiRoute, json, noContent } from "@/lib/api/route";
-import { type Caller } from "@/lib/contracts/access";
-import { requireCaller, requireLabRole } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
 import { updateLightSourceSchema } from "@/lib/contracts/light-sources";
-
-const NOT_FOUND = "No such light source.";
-
-/** The source's lab, with the caller's role checked there (404 for unknown ids and non-members alike). */
-async function requireSourceRole(caller: Caller, id: string, minRole: LabRole) {
-  if (!isUuid(id)) throw notFound(NOT_FOUND);
-  const labId = await findLightSourceLabId({ id });
-  if (!labId) throw notFound(NOT_FOUND);
-  return requireLabRole(caller, labId, minRole, { notFoundMessage: NOT_FOUND });
-}
 
 /** GET /api/light-sources/{id} (viewer) → { item } */
 export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireSourceRole(caller, id, "viewer");
-  const item = await getLightSource({ id, labId: access.labId });
-  if (!item) throw notFound(NOT_FOUND);
+  const access = await authorize(caller, { kind: "light_source", id }, "viewer");
+  const item = await getLightSource(db, { access });
+  if (!item) throw notFound("No such light source.");
   return json({ item });
 });
 
@@ -32,16 +20,16 @@ export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
 export const PATCH = apiRoute<{ id: string }>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireSourceRole(caller, id, "editor");
+  const access = await authorize(caller, { kind: "light_source", id }, "editor");
   const patch = await readJson(request, updateLightSourceSchema);
-  return json({ item: await updateLightSource({ caller, id, labId: access.labId, patch }) });
+  return json({ item: await updateLightSource(db, { access, patch }) });
 });
 
 /** DELETE /api/light-sources/{id} (editor) → 204 */
 export const DELETE = apiRoute<{ id: string }>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireSourceRole(caller, id, "editor");
-  await deleteLightSource({ caller, id, labId: access.labId });
+  const access = await authorize(caller, { kind: "light_source", id }, "editor");
+  await deleteLightSource(db, { access });
   return noContent();
 });

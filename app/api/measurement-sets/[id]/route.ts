@@ -1,8 +1,11 @@
+import { db } from "@/db/client";
 import { deleteMeasurementSet, getMeasurementSet } from "@/db/queries/measurement-sets";
 import { notFound } from "@/lib/contracts/errors";
-import { MEASUREMENT_NOT_FOUND, requireMeasurementSetRole } from "@/lib/api/measurement-set-access";
 import { apiRoute, json, noContent } from "@/lib/api/route";
-import { requireCaller } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
+import { objectStore } from "@/lib/storage/server";
+
+const NOT_FOUND = "No such measurement set.";
 
 type Params = { id: string };
 
@@ -10,9 +13,9 @@ type Params = { id: string };
 export const GET = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireMeasurementSetRole(caller, id, "viewer");
-  const item = await getMeasurementSet({ id, labId: access.labId, role: access.role });
-  if (!item) throw notFound(MEASUREMENT_NOT_FOUND);
+  const access = await authorize(caller, { kind: "measurement_set", id }, "viewer");
+  const item = await getMeasurementSet(db, { access });
+  if (!item) throw notFound(NOT_FOUND);
   return json({ item });
 });
 
@@ -20,7 +23,7 @@ export const GET = apiRoute<Params>(async (request, { params }) => {
 export const DELETE = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireMeasurementSetRole(caller, id, "editor");
-  if (!(await deleteMeasurementSet({ caller, id, labId: access.labId }))) throw notFound(MEASUREMENT_NOT_FOUND);
+  const access = await authorize(caller, { kind: "measurement_set", id }, "editor");
+  if (!(await deleteMeasurementSet(db, { access, store: objectStore }))) throw notFound(NOT_FOUND);
   return noContent();
 });

@@ -1,10 +1,10 @@
+import { db } from "@/db/client";
 import { deleteParameterSet, getParameterSet, updateParameterSet } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
 import { notFound } from "@/lib/contracts/errors";
-import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json, noContent } from "@/lib/api/route";
 import { updateParameterSetSchema } from "@/lib/contracts/parameter-sets";
-import { requireCaller } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
 
 type Params = { id: string };
 
@@ -12,8 +12,8 @@ type Params = { id: string };
 export const GET = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "viewer");
-  const item = await getParameterSet({ id, labId: access.labId, role: access.role });
+  const access = await authorize(caller, { kind: "parameter_set", id }, "viewer");
+  const item = await getParameterSet(db, { access });
   if (!item) throw notFound("No such parameter set.");
   return json({ item });
 });
@@ -25,16 +25,16 @@ export const GET = apiRoute<Params>(async (request, { params }) => {
 export const PATCH = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "editor");
+  const access = await authorize(caller, { kind: "parameter_set", id }, "editor");
   const input = await readJson(request, updateParameterSetSchema);
-  return json({ item: await updateParameterSet({ caller, id, labId: access.labId, role: access.role, input }) });
+  return json({ item: await updateParameterSet(db, { access, input }) });
 });
 
 /** DELETE /api/parameter-sets/{id} (editor) → 204 */
 export const DELETE = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "editor");
-  if (!(await deleteParameterSet({ caller, id, labId: access.labId }))) throw notFound("No such parameter set.");
+  const access = await authorize(caller, { kind: "parameter_set", id }, "editor");
+  if (!(await deleteParameterSet(db, { access }))) throw notFound("No such parameter set.");
   return noContent();
 });

@@ -1,11 +1,12 @@
 import type { Metadata } from "next";
 import { notFound, redirect } from "next/navigation";
+import { db } from "@/db/client";
 import { getParameterSet } from "@/db/queries/parameter-sets";
 import { listPlans } from "@/db/queries/plans";
 import { latestProvenance } from "@/db/queries/report";
+import type { ResourceAccess } from "@/lib/contracts/access";
 import { DomainError } from "@/lib/contracts/errors";
-import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
-import { getCaller } from "@/lib/auth/access";
+import { authorize, getCaller } from "@/lib/auth/access";
 import { ReportView } from "./_components/report-view";
 
 export const metadata: Metadata = { title: "Report" };
@@ -15,20 +16,17 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
   const { id } = await params;
   const caller = await getCaller();
   if (!caller) redirect("/sign-in");
-  let labId: string;
-  let role: "owner" | "editor" | "viewer";
+  let access: ResourceAccess<"parameter_set">;
   try {
-    const access = await requireParameterSetRole(caller, id, "viewer");
-    labId = access.labId;
-    role = access.role;
+    access = await authorize(caller, { kind: "parameter_set", id }, "viewer");
   } catch (error) {
     if (error instanceof DomainError) notFound();
     throw error;
   }
   const [set, fit, plans] = await Promise.all([
-    getParameterSet({ id, labId, role }),
-    latestProvenance({ setId: id, labId }),
-    listPlans({ setId: id, labId }),
+    getParameterSet(db, { access }),
+    latestProvenance(db, { access }),
+    listPlans(db, { access }),
   ]);
   if (!set) notFound();
   return (

@@ -1,8 +1,10 @@
+import { db } from "@/db/client";
 import { getMeasurementOriginal } from "@/db/queries/measurement-sets";
 import { notFound } from "@/lib/contracts/errors";
-import { MEASUREMENT_NOT_FOUND, requireMeasurementSetRole, withStorage } from "@/lib/api/measurement-set-access";
 import { apiRoute } from "@/lib/api/route";
-import { requireCaller } from "@/lib/auth/access";
+import { withStorage } from "@/lib/api/storage";
+import { authorize, requireCaller } from "@/lib/auth/access";
+import { objectStore } from "@/lib/storage/server";
 
 type Params = { id: string };
 
@@ -16,9 +18,11 @@ function contentDisposition(fileName: string): string {
 export const GET = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireMeasurementSetRole(caller, id, "viewer");
-  const original = await withStorage("the original file cannot be read now", () => getMeasurementOriginal({ id, labId: access.labId }));
-  if (!original) throw notFound(MEASUREMENT_NOT_FOUND);
+  const access = await authorize(caller, { kind: "measurement_set", id }, "viewer");
+  const original = await withStorage("the original file cannot be read now", () =>
+    getMeasurementOriginal(db, { access, store: objectStore }),
+  );
+  if (!original) throw notFound("No such measurement set.");
   return new Response(new Blob([original.bytes as BlobPart]), {
     headers: {
       "content-type": original.contentType,

@@ -1,8 +1,8 @@
+import { db } from "@/db/client";
 import { getMeasurementPoints } from "@/db/queries/measurement-sets";
 import { notFound } from "@/lib/contracts/errors";
-import { MEASUREMENT_NOT_FOUND, requireMeasurementSetRole } from "@/lib/api/measurement-set-access";
 import { apiRoute, json } from "@/lib/api/route";
-import { requireCaller } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
 
 type Params = { id: string };
 
@@ -10,8 +10,8 @@ type Params = { id: string };
 export const GET = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireMeasurementSetRole(caller, id, "viewer");
-  const points = await getMeasurementPoints({ id, labId: access.labId });
-  if (!points) throw notFound(MEASUREMENT_NOT_FOUND);
+  const access = await authorize(caller, { kind: "measurement_set", id }, "viewer");
+  const points = await getMeasurementPoints(db, { access });
+  if (!points) throw notFound("No such measurement set.");
   return json({ points });
 });

@@ -1,9 +1,9 @@
+import { db } from "@/db/client";
 import { deleteMyWorkbenchView, getMyWorkbenchView, saveMyWorkbenchView } from "@/db/queries/workbench-views";
 import { readJson } from "@/lib/api/body";
-import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
 import { myViewBodySchema } from "@/lib/contracts/workbench-views";
-import { requireCaller } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
 
 /*
  * The caller's own workbench view of a set. Every member, viewers included, keeps their own:
@@ -13,24 +13,25 @@ import { requireCaller } from "@/lib/auth/access";
 
 type Params = { id: string };
 
-async function scope(request: Request, params: Promise<Params>) {
+async function viewerAccess(request: Request, params: Promise<Params>) {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "viewer");
-  return { caller, setId: id, labId: access.labId };
+  return authorize(caller, { kind: "parameter_set", id }, "viewer");
 }
 
 /** GET /api/parameter-sets/{id}/my-view (viewer) → { item: { viewState, updatedAt, sharedViewState } } */
-export const GET = apiRoute<Params>(async (request, { params }) => json({ item: await getMyWorkbenchView(await scope(request, params)) }));
+export const GET = apiRoute<Params>(async (request, { params }) =>
+  json({ item: await getMyWorkbenchView(db, { access: await viewerAccess(request, params) }) }),
+);
 
 /** PUT /api/parameter-sets/{id}/my-view { viewState } (viewer) → { item } */
 export const PUT = apiRoute<Params>(async (request, { params }) => {
-  const s = await scope(request, params);
+  const access = await viewerAccess(request, params);
   const { viewState } = await readJson(request, myViewBodySchema);
-  return json({ item: await saveMyWorkbenchView({ ...s, viewState }) });
+  return json({ item: await saveMyWorkbenchView(db, { access, viewState }) });
 });
 
 /** DELETE /api/parameter-sets/{id}/my-view (viewer) → { item } with viewState null: back to the lab's shared view. */
 export const DELETE = apiRoute<Params>(async (request, { params }) =>
-  json({ item: await deleteMyWorkbenchView(await scope(request, params)) }),
+  json({ item: await deleteMyWorkbenchView(db, { access: await viewerAccess(request, params) }) }),
 );

@@ -1,8 +1,8 @@
+import { db } from "@/db/client";
 import { createShareLink, listShareLinks } from "@/db/queries/share-links";
 import { readPage } from "@/lib/api/paging";
-import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
-import { requireCaller } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
 import { generateLinkSecret } from "@/lib/auth/tokens";
 import { appLink } from "@/lib/mail/send";
 
@@ -12,8 +12,8 @@ type Params = { id: string };
 export const GET = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  await requireParameterSetRole(caller, id, "editor");
-  return json(await listShareLinks({ setId: id, page: readPage(request) }));
+  const access = await authorize(caller, { kind: "parameter_set", id }, "editor");
+  return json(await listShareLinks(db, { access, page: readPage(request) }));
 });
 
 /**
@@ -23,8 +23,8 @@ export const GET = apiRoute<Params>(async (request, { params }) => {
 export const POST = apiRoute<Params>(async (request, { params }) => {
   const { id } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "editor");
+  const access = await authorize(caller, { kind: "parameter_set", id }, "editor");
   const { secret, secretHash } = generateLinkSecret();
-  const item = await createShareLink({ actorId: caller.id, setId: id, labId: access.labId, tokenHash: secretHash });
+  const item = await createShareLink(db, { access, tokenHash: secretHash });
   return json({ item, url: appLink(`/shared/${secret}`) }, 201);
 });

@@ -1,9 +1,9 @@
+import { db } from "@/db/client";
 import { deletePlan, getPlan } from "@/db/queries/plans";
 import { notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/contracts/validation";
-import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json, noContent } from "@/lib/api/route";
-import { requireCaller } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
 
 const NOT_FOUND = "No such plan.";
 
@@ -11,9 +11,9 @@ const NOT_FOUND = "No such plan.";
 export const GET = apiRoute<{ id: string; planId: string }>(async (request, { params }) => {
   const { id, planId } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "viewer");
+  const access = await authorize(caller, { kind: "parameter_set", id }, "viewer");
   if (!isUuid(planId)) throw notFound(NOT_FOUND);
-  const item = await getPlan({ id: planId, setId: id, labId: access.labId });
+  const item = await getPlan(db, { access, id: planId });
   if (!item) throw notFound(NOT_FOUND);
   return json({ item });
 });
@@ -22,8 +22,8 @@ export const GET = apiRoute<{ id: string; planId: string }>(async (request, { pa
 export const DELETE = apiRoute<{ id: string; planId: string }>(async (request, { params }) => {
   const { id, planId } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "editor");
+  const access = await authorize(caller, { kind: "parameter_set", id }, "editor");
   if (!isUuid(planId)) throw notFound(NOT_FOUND);
-  await deletePlan({ caller, id: planId, setId: id, labId: access.labId });
+  await deletePlan(db, { access, id: planId });
   return noContent();
 });

@@ -1,10 +1,10 @@
+import { db } from "@/db/client";
 import { restoreParameterSetVersion } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
 import { notFound } from "@/lib/contracts/errors";
-import { requireParameterSetRole } from "@/lib/api/parameter-set-access";
 import { apiRoute, json } from "@/lib/api/route";
 import { restoreVersionSchema } from "@/lib/contracts/parameter-sets";
-import { requireCaller } from "@/lib/auth/access";
+import { authorize, requireCaller } from "@/lib/auth/access";
 
 /**
  * POST /api/parameter-sets/{id}/versions/{n}/restore { version } (editor) → { item }: a new
@@ -14,16 +14,9 @@ import { requireCaller } from "@/lib/auth/access";
 export const POST = apiRoute<{ id: string; n: string }>(async (request, { params }) => {
   const { id, n } = await params;
   const caller = await requireCaller(request);
-  const access = await requireParameterSetRole(caller, id, "editor");
+  const access = await authorize(caller, { kind: "parameter_set", id }, "editor");
   if (!/^[1-9][0-9]{0,8}$/.test(n)) throw notFound(`This parameter set has no version ${n}.`);
   const body = await readJson(request, restoreVersionSchema);
-  const item = await restoreParameterSetVersion({
-    caller,
-    id,
-    labId: access.labId,
-    role: access.role,
-    restoreVersion: Number(n),
-    expectedVersion: body.version,
-  });
+  const item = await restoreParameterSetVersion(db, { access, restoreVersion: Number(n), expectedVersion: body.version });
   return json({ item });
 });
