@@ -78,7 +78,10 @@ function wallMs(args: string[], label?: string): number {
   const ms = performance.now() - t0;
   if (r.status !== 0) throw new Error(`${args.join(" ")} failed: ${r.stderr}`);
   const m = TIME_BIN && label ? /cpu ([\d.]+) ([\d.]+)\s*$/.exec(r.stderr) : null;
-  if (m && label) (cpuMs[label] ??= []).push((Number(m[1]) + Number(m[2])) * 1000);
+  if (m && label) {
+    cpuMs[label] ??= [];
+    cpuMs[label].push((Number(m[1]) + Number(m[2])) * 1000);
+  }
   return ms;
 }
 const ROUNDS = 7;

@@ -23,7 +23,7 @@ const GARNET_TRUTH: ModelParams = { ...TERBIUM_GARNET_DEFAULTS, gyrationPerT: 5.
 
 function garnetFile(): string {
   const normal = gaussianFrom(seededRandom(8_2026));
-  const wavelengthsNm = Array.from({ length: 24 }, (_, i) => Math.round(420 * Math.pow(1600 / 420, i / 23)));
+  const wavelengthsNm = Array.from({ length: 24 }, (_, i) => Math.round(420 * (1600 / 420) ** (i / 23)));
   const conditions: ModelCondition[] = wavelengthsNm.map((wavelengthNm) => ({
     wavelengthNm,
     temperatureK: 293.15,

@@ -133,6 +133,6 @@ export function mapServerFields(fields: Record<string, string>): { field: [FormF
 export function showServerError(form: UseFormReturn<SetFormInput, unknown, SetFormOutput>, error: unknown): string {
   if (!(error instanceof RequestError && error.fields)) return describeError(error);
   const { field, other } = mapServerFields(error.fields);
-  field.forEach(([path, message], i) => form.setError(path, { type: "server", message }, { shouldFocus: i === 0 }));
+  for (const [i, [path, message]] of field.entries()) form.setError(path, { type: "server", message }, { shouldFocus: i === 0 });
   return other.length > 0 ? `${error.message} ${other.join("; ")}` : error.message;
 }

@@ -90,9 +90,7 @@ function LinePlotImpl({ title, width, height = 320, banner, svgRef, series, axes
   const cx = cursorIndex !== null && xs[cursorIndex] !== undefined ? xScale(xs[cursorIndex]!) : null;
 
   return (
-    // biome-ignore lint/a11y/useSemanticElements: a focusable plot that takes the arrow keys, not a group of form controls.
     <div
-      // biome-ignore lint/a11y/noNoninteractiveTabindex: the plot itself is focused to move its cursor from the keyboard.
       tabIndex={0}
       role="group"
       aria-label={`${title}. Arrow keys move the cursor${onPick ? ", Enter adds a marker" : ""}${onXViewChange ? "; + and − zoom, 0 shows the whole range" : ""}.`}
@@ -177,7 +175,6 @@ function PointerOverlay({
   onPick: ((x: number) => void) | undefined;
 }) {
   return (
-    // biome-ignore lint/a11y/noStaticElementInteractions: the pointer layer of the plot; its keyboard equivalent is on the focusable group.
     <rect
       ref={zoom.overlayRef}
       data-plot-overlay=""

@@ -31,7 +31,6 @@ export function legendHeightPx(rows: LegendRows): number {
 /** The rows, the first one centred on y = top + 4. */
 export function PlotLegend({ rows, left, top }: { rows: LegendRows; left: number; top: number }) {
   return rows.map((row, r) => (
-    // biome-ignore lint/suspicious/noArrayIndexKey: a legend row is identified by its place.
     <g key={`legend${r}`} transform={`translate(${left},${top + r * LEGEND_ROW_PX + 4})`}>
       {row.map(({ s, x }) => (
         <g key={s.key} transform={`translate(${x},0)`}>

@@ -8,7 +8,7 @@ import { describeConversion, toPlotUnits, type OverlayPoint } from "@/lib/measur
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import { describeError } from "@/lib/query/fetcher";
 import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurements";
-import { type MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { Geometry, XUnit, YMode } from "@/lib/workbench/units";
 

@@ -54,7 +54,7 @@ export function useMarkerValues({
 
   // Analytic results: compute the missing wavelengths right here.
   const analytic = useMemo<ReadonlyMap<number, SpectrumPoint>>(() => {
-    if (!shown || shown.method !== "analytic" || missing.length === 0) return new Map();
+    if (shown?.method !== "analytic" || missing.length === 0) return new Map();
     try {
       const r = computeAnalyticNow({ ...shown.params, wavelengthsNm: missing, method: "analytic" });
       return new Map(r.points.map((p) => [p.wavelengthNm, p]));
@@ -65,7 +65,7 @@ export function useMarkerValues({
 
   // Numerical results: one small pool job for the wavelengths not yet computed for this result.
   const pendingNm = useMemo(() => {
-    if (!shown || shown.method !== "llg") return [];
+    if (shown?.method !== "llg") return [];
     const have = cache && cache.key === shown.key ? cache.points : null;
     return missing.filter((nm) => !have?.has(nm));
   }, [shown, missing, cache]);

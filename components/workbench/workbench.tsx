@@ -182,7 +182,7 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
             />
           )}
         </div>
-        {!shared && (!set || set.role !== "viewer") ? (
+        {!shared && set?.role !== "viewer" ? (
           <SaveAsNew params={params} defaultName={set ? `${set.name} (what-if)` : "Workbench scratch"} />
         ) : null}
       </header>

@@ -20,7 +20,7 @@ export function bearerToken(headers: Headers): string | null | "malformed" {
   const header = headers.get("authorization");
   if (header === null) return null;
   const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
-  if (!match?.[1] || !match[1].startsWith(TOKEN_PREFIX) || match[1].length > 200) return "malformed";
+  if (!match?.[1]?.startsWith(TOKEN_PREFIX) || match[1].length > 200) return "malformed";
   return match[1];
 }
 

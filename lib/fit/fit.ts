@@ -1,5 +1,5 @@
 import { zodIssueLines } from "@/lib/contracts/validation";
-import type { MeasuredPoint, MeasuredQuantity } from "@/lib/measurements/point";
+import type { MeasuredQuantity } from "@/lib/measurements/point";
 import type { ModelParams } from "@/lib/physics/schema";
 import { FitCancelledError, FitError, leastSquares } from "./least-squares";
 import { type NumericParamKey, evaluateModel, modelJacobian, withFreeValues } from "./model";

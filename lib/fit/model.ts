@@ -68,7 +68,7 @@ export function evaluateModel(params: ModelParams, points: readonly ModelConditi
       method: "analytic",
     });
     const column = new Map<number, number>();
-    wavelengthsNm.forEach((w, j) => column.set(w, j));
+    for (const [j, w] of wavelengthsNm.entries()) column.set(w, j);
     for (const i of indices) {
       const p = points[i]!;
       const j = column.get(p.wavelengthNm)!;

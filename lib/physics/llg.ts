@@ -183,7 +183,7 @@ export function lockIn(o: LockInOptions): LockInResult {
       let dt = twoPi / tr.samplesPerPeriod;
       if (inSettle && tr.maxSettleSamples !== undefined) dt = Math.max(dt, (t1 - t0) / tr.maxSettleSamples);
       let next = t0;
-      solOut = (nr, xOld, x, y, dense) => {
+      solOut = (nr, _xOld, x, y, dense) => {
         if (nr === 1) {
           tr.sink(x, y[0]!, y[1]!, y[2]!);
           next = t0 + dt;

@@ -40,5 +40,5 @@ export function planToCsv(o: {
         .join(","),
     );
   }
-  return lines.join("\n") + "\n";
+  return `${lines.join("\n")}\n`;
 }

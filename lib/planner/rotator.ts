@@ -43,7 +43,7 @@ export function isolationDb(angleErrorRad: number): number {
 
 /** The largest |Δθ| that keeps the isolation at or above `targetDb` (inverse of isolationDb). */
 export function maxAngleErrorRad(targetDb: number): number {
-  return Math.asin(Math.pow(10, -targetDb / 20));
+  return Math.asin(10 ** (-targetDb / 20));
 }
 
 /** Length that turns by `angleRad` with Verdet constant V in field B: L = angle/(|V||B|) (§6.3, §8). */

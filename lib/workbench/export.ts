@@ -174,26 +174,24 @@ export function buildSpectrumCsv(meta: ExportMeta, params: ModelParams, result: 
       ].join(","),
     );
   }
-  return lines.join("\n") + "\n";
+  return `${lines.join("\n")}\n`;
 }
 
 export function buildSpectrumJson(meta: ExportMeta, params: ModelParams, result: SpectrumResult): string {
-  return (
-    JSON.stringify(
-      {
-        generator: "Gyrolux workbench",
-        model: MODEL_DESCRIPTION,
-        parameterSet: { id: meta.setId, name: meta.setName, version: meta.version },
-        method: meta.method,
-        exportedAt: meta.exportedAt,
-        label: magneticScaleLabel(params.magneticScale),
-        params,
-        result,
-      },
-      null,
-      2,
-    ) + "\n"
-  );
+  return `${JSON.stringify(
+    {
+      generator: "Gyrolux workbench",
+      model: MODEL_DESCRIPTION,
+      parameterSet: { id: meta.setId, name: meta.setName, version: meta.version },
+      method: meta.method,
+      exportedAt: meta.exportedAt,
+      label: magneticScaleLabel(params.magneticScale),
+      params,
+      result,
+    },
+    null,
+    2,
+  )}\n`;
 }
 
 /** A file name without characters that browsers or shells dislike. */

@@ -9,7 +9,7 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { useLabMembers, useLabs } from "@/lib/query/labs";
 import { useParameterSets } from "@/lib/query/parameter-sets";
 import { useAudit } from "@/lib/query/sharing";
-import { type AuditEntry } from "@/lib/contracts/audit";
+import type { AuditEntry } from "@/lib/contracts/audit";
 
 const KINDS = [
   { value: "", label: "Everything" },

@@ -9,7 +9,7 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { describeError } from "@/lib/query/fetcher";
 import { useChangeMemberRole, useLabMembers, useRemoveMember } from "@/lib/query/labs";
 import { roleAtLeast, type LabRole } from "@/lib/contracts/roles";
-import { type LabSummary, type MemberSummary } from "@/lib/contracts/labs";
+import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
 import { LoadMore } from "@/components/ui/load-more";
 import { InvitationsPanel } from "./invitations-panel";
 import { ROLE_LABEL, ROLE_MEANING, ROLES } from "./role-text";

@@ -13,7 +13,7 @@ import { useSearchUpdate } from "@/components/ui/use-search-update";
 import { describeError } from "@/lib/query/fetcher";
 import { useLabs } from "@/lib/query/labs";
 import { useDeleteMeasurementSet, useMeasurementSets } from "@/lib/query/measurements";
-import { type MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { roleAtLeast } from "@/lib/contracts/roles";
 import { parseSort, sortSets, type SortKey } from "./format";
 import { MeasurementsTable } from "./measurements-table";

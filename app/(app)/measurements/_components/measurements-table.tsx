@@ -2,7 +2,7 @@
 
 import { DateTime } from "@/components/ui/date-time";
 import { originalFileUrl } from "@/lib/query/measurements";
-import { type MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { roleAtLeast } from "@/lib/contracts/roles";
 import { formatBytes, formatSpan, formatValues, type SortDir, type SortKey } from "./format";
 import { SortHeader } from "@/components/ui/sort-header";

@@ -17,7 +17,6 @@ export function UploadPreviewTable({ table }: { table: Table }) {
               line
             </th>
             {table.headers.map((h, i) => (
-              // biome-ignore lint/suspicious/noArrayIndexKey: headers may repeat or be empty; the column's place is its identity.
               <th key={`${h}-${i}`} scope="col" className="px-2 py-1 text-left font-semibold">
                 {h || `(column ${i + 1})`}
               </th>
@@ -29,7 +28,6 @@ export function UploadPreviewTable({ table }: { table: Table }) {
             <tr key={row.line}>
               <td className="px-2 py-1 text-ink-soft">{row.line}</td>
               {table.headers.map((_, i) => (
-                // biome-ignore lint/suspicious/noArrayIndexKey: a cell is identified by its column's place.
                 <td key={i} className="px-2 py-1">
                   {row.cells[i] ?? ""}
                 </td>

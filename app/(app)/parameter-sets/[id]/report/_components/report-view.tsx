@@ -342,7 +342,9 @@ function ProvenanceTable({ value }: { value: Record<string, unknown> }) {
     else if (Array.isArray(v)) {
       if (v.every((x) => typeof x === "string" || typeof x === "number"))
         rows.push([prefix, v.map((x) => (typeof x === "number" ? fmt(x, 5) : x)).join(", ")]);
-      else if (depth < 3) v.slice(0, 20).forEach((x, i) => walk(`${prefix}[${i}]`, x, depth + 1));
+      else if (depth < 3) {
+        for (const [i, x] of v.slice(0, 20).entries()) walk(`${prefix}[${i}]`, x, depth + 1);
+      }
     } else if (typeof v === "object") {
       const o = v as Record<string, unknown>;
       const sigma = o.sigma ?? o.stdError ?? o.standardError;
