@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # `npm test`: sets up everything on a fresh machine and runs every test tier.
-#   1. dependencies, Debian's Chromium, PostgreSQL (db/pg.sh), a fresh database for this run
+#   1. dependencies, then the linter (npm run lint: format, lint rules, import boundaries, line
+#      length; a violation stops the run), Debian's Chromium, PostgreSQL (db/pg.sh), a fresh database for this run
 #   2. migrations and the demo seed (the browser tests sign in as the demo accounts)
 #   3. a production build served on $GYROLUX_TEST_PORT
 #   4. unit + API integration tests (vitest), then browser tests (playwright-core + Chromium)
@@ -47,6 +48,8 @@ cleanup() {
 trap cleanup EXIT
 
 ensure_node_modules
+log "linter (format, lint rules, import boundaries, line length)"
+npm run --silent lint
 ensure_chromium
 bash db/pg.sh status >/dev/null 2>&1 && pg_was_running=1
 bash db/pg.sh start
