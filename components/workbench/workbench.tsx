@@ -38,13 +38,14 @@ import { useMarkerValues } from "./use-marker-values";
 import { useViewState, type ViewSource } from "./use-view-state";
 import { ViewControls } from "./view-controls";
 import { useMarkersFromQuery } from "./use-markers-query";
+import type { LabRole } from "@/lib/contracts/roles";
 
 export interface WorkbenchSetInfo {
   id: string;
   name: string;
   version: number;
   labName: string;
-  role: "owner" | "editor" | "viewer";
+  role: LabRole;
 }
 
 export interface WorkbenchProps {

@@ -76,33 +76,6 @@ export function emailField(missing = "Enter an e-mail address.") {
 
 export const emailSchema = emailField();
 
-/*
- * The one formatter of zod issues. Every place that shows or returns a failed parse goes through
- * these two, so a path reads the same ("params.temperatureK") on a form, in an API answer and in
- * a lab run's error.
- */
-
-type Issue = Pick<z.core.$ZodIssue, "path" | "message">;
-
-const issuePath = (issue: Issue) => issue.path.map(String).join(".");
-
-/** Issues → `fields` keyed by dotted path; the first message per field wins; "body" for the root. */
-export function zodIssueFields(issues: readonly Issue[]): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of issues) fields[issuePath(issue) || "body"] ??= issue.message;
-  return fields;
-}
-
-/** Issues → "path: message" lines, the root named by `rootLabel`; `label` may rename a path. */
-export function zodIssueLines(
-  issues: readonly Issue[],
-  options: { rootLabel?: string; label?: (path: string) => string | undefined } = {},
-) {
-  return issues.map((issue) => {
-    const path = issuePath(issue);
-    const shown = (path && options.label?.(path)) || path || options.rootLabel || "(input)";
-    return `${shown}: ${issue.message}`;
-  });
-}
-
+// The one formatter of zod issues lives beside the physics, which may import nothing from here.
+export { zodIssueFields, zodIssueLines } from "@/lib/physics/zod-issues";
 export { finiteNumber, positiveNumber } from "@/lib/physics/number-fields";

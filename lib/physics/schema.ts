@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { finiteNumber } from "./number-fields";
+import { zodIssueLines } from "./zod-issues";
 
 /*
  * The one validation schema for the model parameters (../shared/physics-model.md §2), shared by
@@ -122,15 +123,7 @@ export type SpectrumRequestInput = z.input<typeof spectrumRequestSchema>;
 
 /** One line per problem: "field: rule". Used by the command line and the API's `fields`. */
 export function formatIssues(error: z.ZodError): string[] {
-  return error.issues.flatMap((issue) => {
-    const path = issue.path.length > 0 ? issue.path.map(String).join(".") : "(input)";
-    // Name each unknown key as the field, so "field: rule" holds for them too.
-    if (issue.code === "unrecognized_keys") {
-      const prefix = issue.path.length > 0 ? `${path}.` : "";
-      return issue.keys.map((key) => `${prefix}${key}: unknown key (not a model parameter)`);
-    }
-    return [`${path}: ${issue.message}`];
-  });
+  return zodIssueLines(error.issues, { unknownKey: "unknown key (not a model parameter)" });
 }
 
 /**

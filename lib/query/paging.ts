@@ -1,14 +1,10 @@
 "use client";
 
 import { keepPreviousData, useInfiniteQuery } from "@tanstack/react-query";
+import type { Page } from "@/lib/contracts/paging";
 import { apiFetch } from "./fetcher";
 
 /* One hook for every paged list of the API ({ items, nextCursor }): pages load on demand. */
-
-export interface PageResponse<T> {
-  items: T[];
-  nextCursor: string | null;
-}
 
 export const UI_PAGE_SIZE = 50;
 
@@ -23,7 +19,7 @@ export function usePagedList<T>(options: { queryKey: readonly unknown[]; path: s
   const limit = options.limit ?? UI_PAGE_SIZE;
   const query = useInfiniteQuery({
     queryKey: [...options.queryKey, "paged", limit],
-    queryFn: ({ pageParam, signal }) => apiFetch<PageResponse<T>>(withPage(options.path, pageParam, limit), { signal }),
+    queryFn: ({ pageParam, signal }) => apiFetch<Page<T>>(withPage(options.path, pageParam, limit), { signal }),
     initialPageParam: null as string | null,
     getNextPageParam: (last) => last.nextCursor,
     enabled: options.enabled,

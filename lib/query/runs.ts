@@ -1,7 +1,13 @@
 "use client";
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { LabRunDetail, LabRunResultBody, LabRunSummary, SubmitRunInput } from "@/lib/contracts/lab-runs";
+import {
+  isActiveLabRun,
+  type LabRunDetail,
+  type LabRunResultBody,
+  type LabRunSummary,
+  type SubmitRunInput,
+} from "@/lib/contracts/lab-runs";
 import { apiFetch } from "./fetcher";
 import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
 
@@ -11,7 +17,6 @@ import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
  */
 
 const POLL_MS = 1000;
-const active = (state: string) => state === "queued" || state === "running";
 
 export const runKeys = {
   lists: () => ["runs"] as const,
@@ -27,14 +32,14 @@ export const runsQuery = (labId: string | null) =>
       apiFetch<ItemsResponse<LabRunSummary>>(labId ? `/api/runs?labId=${encodeURIComponent(labId)}` : "/api/runs", { signal }).then(
         (r) => r.items,
       ),
-    refetchInterval: (q) => (q.state.data?.some((r) => active(r.state)) ? POLL_MS : false),
+    refetchInterval: (q) => (q.state.data?.some((r) => isActiveLabRun(r.state)) ? POLL_MS : false),
   });
 
 export const runQuery = (id: string) =>
   queryOptions({
     queryKey: runKeys.detail(id),
     queryFn: ({ signal }) => apiFetch<ItemResponse<LabRunDetail>>(`/api/runs/${encodeURIComponent(id)}`, { signal }).then((r) => r.item),
-    refetchInterval: (q) => (q.state.data && active(q.state.data.state) ? POLL_MS : false),
+    refetchInterval: (q) => (q.state.data && isActiveLabRun(q.state.data.state) ? POLL_MS : false),
   });
 
 export const runResultQuery = (id: string) =>

@@ -40,7 +40,8 @@ describe("numeric fields", () => {
 
 describe("the zod-issue formatter", () => {
   const schema = z.strictObject({ lines: z.array(z.strictObject({ wavelengthNm: finiteNumber("wavelength").gt(0, "must be > 0 nm") })) });
-  const issues = schema.safeParse({ lines: [{ wavelengthNm: 1 }, { wavelengthNm: -1 }], extra: 1 }).error!.issues;
+  const rooted = schema.refine((v) => v.lines.length < 2, { message: "at most one line" });
+  const issues = rooted.safeParse({ lines: [{ wavelengthNm: 1 }, { wavelengthNm: -1 }] }).error!.issues;
 
   it("writes dotted paths, the root under its label, and lets a caller rename a path", () => {
     expect(zodIssueLines(issues)).toEqual(["lines.1.wavelengthNm: must be > 0 nm", expect.stringMatching(/^\(input\): /)]);
@@ -48,6 +49,12 @@ describe("the zod-issue formatter", () => {
     expect(zodIssueLines(issues, { label: (path) => (path.endsWith("wavelengthNm") ? "Wavelength" : undefined) })[0]).toBe(
       "Wavelength: must be > 0 nm",
     );
+  });
+
+  it("names each unknown key of a strict object as a field of its own", () => {
+    const extra = schema.safeParse({ lines: [], extra: 1, other: 2 }).error!.issues;
+    expect(zodIssueLines(extra)).toEqual(["extra: unknown key", "other: unknown key"]);
+    expect(zodIssueLines(extra, { unknownKey: "not a model parameter" })[0]).toBe("extra: not a model parameter");
   });
 
   it("keys fields by dotted path, the root as body, the first message per field winning", () => {

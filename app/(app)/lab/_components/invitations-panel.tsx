@@ -10,7 +10,8 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useInvitations, useInvite, useRevokeInvitation, type InvitationSummary } from "@/lib/query/sharing";
 import type { LabRole } from "@/lib/contracts/roles";
-import { ROLE_LABEL, ROLE_MEANING, ROLES } from "./role-text";
+import { LAB_ROLES } from "@/lib/contracts/roles";
+import { ROLE_LABEL, ROLE_MEANING } from "./role-text";
 
 /** Owners invite people by e-mail; they join when they accept. Pending invitations can be withdrawn. */
 export function InvitationsPanel({ labId, labName }: { labId: string; labName: string }) {
@@ -68,7 +69,7 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
               onChange={(event) => setRole(event.target.value as LabRole)}
               className={`mt-1 ${INPUT_CLASS}`}
             >
-              {ROLES.map((r) => (
+              {LAB_ROLES.map((r) => (
                 <option key={r} value={r}>
                   {ROLE_LABEL[r]} — {ROLE_MEANING[r]}
                 </option>

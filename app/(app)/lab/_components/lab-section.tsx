@@ -12,7 +12,8 @@ import { roleAtLeast, type LabRole } from "@/lib/contracts/roles";
 import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
 import { LoadMore } from "@/components/ui/load-more";
 import { InvitationsPanel } from "./invitations-panel";
-import { ROLE_LABEL, ROLE_MEANING, ROLES } from "./role-text";
+import { LAB_ROLES } from "@/lib/contracts/roles";
+import { ROLE_LABEL, ROLE_MEANING } from "./role-text";
 
 export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUserId: string }) {
   const members = useLabMembers(lab.id);
@@ -95,7 +96,7 @@ export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUse
                               }}
                               className={`${INPUT_CLASS} py-1`}
                             >
-                              {ROLES.map((role) => (
+                              {LAB_ROLES.map((role) => (
                                 <option key={role} value={role}>
                                   {ROLE_LABEL[role]}
                                 </option>

@@ -1,6 +1,6 @@
 import type { LabRole } from "@/lib/contracts/roles";
 
-export const ROLES: readonly LabRole[] = ["owner", "editor", "viewer"];
+/* How the lab screens name and explain each role (the roles and their order: lib/contracts/roles.ts). */
 
 export const ROLE_LABEL: Record<LabRole, string> = { owner: "Owner", editor: "Editor", viewer: "Viewer" };
 

@@ -7,12 +7,13 @@ import { describeError } from "@/lib/query/fetcher";
 import { useCancelRun } from "@/lib/query/runs";
 import { roleAtLeast } from "@/lib/contracts/roles";
 import type { LabRunSummary } from "@/lib/contracts/lab-runs";
+import { isActiveLabRun } from "@/lib/contracts/lab-runs";
 
 /** Cancel with a confirmation (the work done so far is dropped); editors and owners only. */
 export function CancelRun({ run }: { run: LabRunSummary }) {
   const [open, setOpen] = useState(false);
   const cancel = useCancelRun();
-  if (!roleAtLeast(run.role, "editor") || (run.state !== "queued" && run.state !== "running") || run.cancelRequested) return null;
+  if (!roleAtLeast(run.role, "editor") || !isActiveLabRun(run.state) || run.cancelRequested) return null;
   return (
     <>
       <Button variant="quiet" onClick={() => setOpen(true)}>
