@@ -3,8 +3,7 @@ import type { FieldErrors, Resolver, UseFormReturn } from "react-hook-form";
 import { z } from "zod";
 import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 import { modelParamsSchema, type ModelParamKey } from "@/lib/physics/schema";
-import { descriptionSchema, setNameSchema, tagsSchema } from "@/lib/contracts/parameter-sets";
-import type { ParameterSet } from "@/lib/contracts/parameter-sets";
+import { descriptionSchema, setNameSchema, tagsSchema, type ParameterSet } from "@/lib/contracts/parameter-sets";
 import { RequestError, describeError } from "@/lib/query/fetcher";
 import type { SetSnapshot } from "@/lib/model/diff";
 

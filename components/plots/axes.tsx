@@ -1,5 +1,4 @@
-import type { NumScale, ScaleType } from "./scale";
-import { ticksOf } from "./scale";
+import { type NumScale, type ScaleType, ticksOf } from "./scale";
 
 /*
  * Axes drawn by React from d3 scales (no DOM-touching d3). Styling is by SVG attributes, not CSS

@@ -1,15 +1,19 @@
 import { and, desc, eq, ilike, inArray, lt, or, sql, type SQL } from "drizzle-orm";
 import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
-import type { Page } from "@/lib/contracts/paging";
-import type { PageQuery } from "@/lib/contracts/paging";
+import type { Page, PageQuery } from "@/lib/contracts/paging";
 import { z } from "zod";
 import { alias } from "drizzle-orm/pg-core";
 import { uniqueViolation } from "@/db/errors";
 import type { AuditAction } from "@/lib/contracts/audit";
 import { DomainError, notFound } from "@/lib/contracts/errors";
 import { zodIssueFields } from "@/lib/contracts/validation";
-import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/contracts/parameter-sets";
-import type { CreateParameterSetInput, UpdateParameterSetInput } from "@/lib/contracts/parameter-sets";
+import type {
+  ParameterSet,
+  ParameterSetSummary,
+  ParameterSetVersion,
+  CreateParameterSetInput,
+  UpdateParameterSetInput,
+} from "@/lib/contracts/parameter-sets";
 import { type SaveFitInput, fitProvenance } from "@/lib/fit/provenance";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import type { Executor, Tx } from "../executor";

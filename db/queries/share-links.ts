@@ -1,8 +1,7 @@
 import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { SharedSet, ShareLinkSummary } from "@/lib/contracts/sharing";
 import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
-import type { Page } from "@/lib/contracts/paging";
-import type { PageQuery } from "@/lib/contracts/paging";
+import type { Page, PageQuery } from "@/lib/contracts/paging";
 import type { ResourceAccess } from "@/lib/contracts/access";
 import type { Executor } from "../executor";
 import { parameterSets, shareLinks, users } from "../schema";

@@ -2,11 +2,10 @@
  * Verdet-constant helpers: the E ↔ κE conversion (physics-model.md §5.4), the 45° rotator length
  * (§6.3, §8) and the passivity limit (§5.3).
  */
-import { MU0_N_PER_A2 } from "./constants";
+import { MU0_N_PER_A2, angularFrequencyFromNm } from "./constants";
 import { staticMagnetization } from "./magnetization";
 import { type DielectricParams, permittivity } from "./optics";
 import { rootDecaying } from "./complex";
-import { angularFrequencyFromNm } from "./constants";
 
 /** Reference conditions at which the user knows the electric-dipole Verdet constant (§5.4 defaults). */
 export interface VerdetReference {

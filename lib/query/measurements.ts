@@ -1,8 +1,7 @@
 "use client";
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
-import type { UploadMeasurementMeta } from "@/lib/contracts/measurement-sets";
+import type { MeasurementSetSummary, UploadMeasurementMeta } from "@/lib/contracts/measurement-sets";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import { RequestError } from "@/lib/query/fetcher";
 import { apiFetch } from "./fetcher";

@@ -31,7 +31,9 @@ describe("lab runs", () => {
     await panel.getByLabel("Rows", { exact: true }).fill("999");
     await expect.poll(() => panel.getByText("must be ≤ 256").count()).toBeGreaterThan(0);
     expect(await panel.getByRole("button", { name: "Submit to the lab’s machines" }).isDisabled()).toBe(true);
-    await panel.getByLabel("Rows", { exact: true }).fill("64");
+    // 160 × 256 numerical cells take a worker a few seconds: long enough that the list sees the
+    // run while it is running (a 160 × 64 map was sometimes done before /runs had loaded).
+    await panel.getByLabel("Rows", { exact: true }).fill("256");
     await panel.getByRole("button", { name: "Submit to the lab’s machines" }).click();
     await panel.getByRole("status").getByText("Submitted:").waitFor({ timeout: 30_000 });
 
@@ -48,12 +50,12 @@ describe("lab runs", () => {
     await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/);
     const map = page.getByTestId("run-map");
     await map.waitFor({ timeout: 60_000 });
-    expect(await map.textContent()).toContain("160 × 64 cells");
+    expect(await map.textContent()).toContain("160 × 256 cells");
     const download = page.waitForEvent("download");
     await page.getByRole("button", { name: "Export map CSV" }).click();
     const file = await (await download).path();
     const lines = readFileSync(file!, "utf8").trim().split("\n");
-    expect(lines.filter((l) => !l.startsWith("#"))).toHaveLength(1 + 160 * 64);
+    expect(lines.filter((l) => !l.startsWith("#"))).toHaveLength(1 + 160 * 256);
     await page.screenshot({ path: outputPath("lab-runs-result.png"), fullPage: true });
   });
 });

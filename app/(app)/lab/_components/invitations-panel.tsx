@@ -9,8 +9,7 @@ import { LoadMore } from "@/components/ui/load-more";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useInvitations, useInvite, useRevokeInvitation, type InvitationSummary } from "@/lib/query/sharing";
-import type { LabRole } from "@/lib/contracts/roles";
-import { LAB_ROLES } from "@/lib/contracts/roles";
+import { type LabRole, LAB_ROLES } from "@/lib/contracts/roles";
 import { ROLE_LABEL, ROLE_MEANING } from "./role-text";
 
 /** Owners invite people by e-mail; they join when they accept. Pending invitations can be withdrawn. */

@@ -8,11 +8,10 @@ import { SkeletonRows } from "@/components/ui/skeleton";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { describeError } from "@/lib/query/fetcher";
 import { useChangeMemberRole, useLabMembers, useRemoveMember } from "@/lib/query/labs";
-import { roleAtLeast, type LabRole } from "@/lib/contracts/roles";
+import { roleAtLeast, type LabRole, LAB_ROLES } from "@/lib/contracts/roles";
 import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
 import { LoadMore } from "@/components/ui/load-more";
 import { InvitationsPanel } from "./invitations-panel";
-import { LAB_ROLES } from "@/lib/contracts/roles";
 import { ROLE_LABEL, ROLE_MEANING } from "./role-text";
 
 export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUserId: string }) {

@@ -6,8 +6,7 @@ import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { describeError } from "@/lib/query/fetcher";
 import { useCancelRun } from "@/lib/query/runs";
 import { roleAtLeast } from "@/lib/contracts/roles";
-import type { LabRunSummary } from "@/lib/contracts/lab-runs";
-import { isActiveLabRun } from "@/lib/contracts/lab-runs";
+import { type LabRunSummary, isActiveLabRun } from "@/lib/contracts/lab-runs";
 
 /** Cancel with a confirmation (the work done so far is dropped); editors and owners only. */
 export function CancelRun({ run }: { run: LabRunSummary }) {

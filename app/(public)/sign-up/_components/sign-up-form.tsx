@@ -2,8 +2,7 @@
 
 import { useActionState, useState } from "react";
 import { signUpAction } from "@/lib/auth/actions";
-import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/contracts/accounts";
-import { signUpSchema } from "@/lib/contracts/accounts";
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, signUpSchema } from "@/lib/contracts/accounts";
 import { zodIssueFields } from "@/lib/contracts/validation";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
