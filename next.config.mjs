@@ -46,6 +46,14 @@ const nextConfig = {
   async headers() {
     return [{ source: "/:path*", headers: securityHeaders }];
   },
+  // The measurement-set and lab-run pages were at /measurements and /runs; old links and
+  // bookmarks still arrive there.
+  async redirects() {
+    return [
+      { source: "/measurements/:path*", destination: "/measurement-sets/:path*", permanent: true },
+      { source: "/runs/:path*", destination: "/lab-runs/:path*", permanent: true },
+    ];
+  },
 };
 
 export default nextConfig;

@@ -6,9 +6,9 @@ import { usePathname } from "next/navigation";
 export const NAV_ITEMS = [
   { href: "/parameter-sets", label: "Parameter sets" },
   { href: "/workbench", label: "Workbench" },
-  { href: "/measurements", label: "Measurements" },
+  { href: "/measurement-sets", label: "Measurements" },
   { href: "/planner", label: "Planner" },
-  { href: "/runs", label: "Lab runs" },
+  { href: "/lab-runs", label: "Lab runs" },
   { href: "/lab", label: "Lab" },
   { href: "/audit", label: "Audit" },
   { href: "/settings", label: "Settings" },

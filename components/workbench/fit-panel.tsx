@@ -11,7 +11,7 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import { PARAM_META } from "@/lib/model/param-meta";
 import type { ModelParams } from "@/lib/physics/schema";
 import { describeError } from "@/lib/query/fetcher";
-import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurements";
+import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurement-sets";
 import { useParameterSet } from "@/lib/query/parameter-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { WorkbenchPool } from "@/lib/workbench/engine";
@@ -132,7 +132,7 @@ export const FitPanel = memo(function FitPanel({
         ) : (sets.data ?? []).length === 0 ? (
           <p className="text-sm text-ink-soft">
             This lab has no measurement sets yet.{" "}
-            <Link className="text-lux-dark underline-offset-4 hover:underline" href="/measurements">
+            <Link className="text-lux-dark underline-offset-4 hover:underline" href="/measurement-sets">
               Upload one on the Measurements page
             </Link>
             .

@@ -7,7 +7,7 @@ import type { PlotLayer } from "@/components/plots/line-plot";
 import { describeConversion, toPlotUnits, type OverlayPoint } from "@/lib/measurements/overlay";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import { describeError } from "@/lib/query/fetcher";
-import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurements";
+import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurement-sets";
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { Geometry, XUnit, YMode } from "@/lib/workbench/units";
@@ -153,7 +153,7 @@ export const MeasurementOverlayPicker = memo(function MeasurementOverlayPicker({
       ) : (sets.data ?? []).length === 0 ? (
         <p className="mt-2 text-ink-soft">
           No measurement sets in your labs yet.{" "}
-          <Link href="/measurements" className="text-lux-dark underline-offset-4 hover:underline">
+          <Link href="/measurement-sets" className="text-lux-dark underline-offset-4 hover:underline">
             Upload one on the Measurements page
           </Link>
           .

@@ -32,7 +32,7 @@ import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { AbsorptionPanel, OpaqueNote } from "./absorption-panel";
 import { FitPanel } from "./fit-panel";
-import { LabRunPanel } from "@/components/runs/lab-run-panel";
+import { LabRunPanel } from "@/components/lab-runs/lab-run-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
 import { useMarkerValues } from "./use-marker-values";
 import { useViewState, type ViewSource } from "./use-view-state";

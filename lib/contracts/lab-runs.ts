@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { runSpecSchema } from "@/lib/runs/kinds";
+import { runSpecSchema } from "@/lib/lab-runs/kinds";
 import type { LabRole } from "./roles";
 
 /*

@@ -37,7 +37,7 @@ describe("lab runs", () => {
     await panel.getByRole("button", { name: "Submit to the lab’s machines" }).click();
     await panel.getByRole("status").getByText("Submitted:").waitFor({ timeout: 30_000 });
 
-    await page.goto("/runs", { timeout: TIMEOUT });
+    await page.goto("/lab-runs", { timeout: TIMEOUT });
     const row = page.getByTestId("run-row").filter({ hasText: "160 wavelengths" }).first();
     await row.waitFor();
     expect(await row.textContent()).toContain("Terbium");

@@ -23,7 +23,7 @@ describe("measurements in the browser", () => {
   });
 
   it("uploads the demo file with a changed mapping and shows it in the lab's table", async () => {
-    await page.goto("/measurements");
+    await page.goto("/measurement-sets");
     await page.getByRole("heading", { name: "Measurements", level: 1 }).waitFor();
     // The seeded sets are listed.
     await page.getByRole("row").filter({ hasText: "Garnet rod LM-T4 — Verdet spectrum, 293 K (generated)" }).waitFor();
@@ -78,7 +78,7 @@ describe("measurements in the browser", () => {
   });
 
   it("deletes the uploaded set after a confirmation", async () => {
-    await page.goto(`/measurements?q=${encodeURIComponent(NAME)}`);
+    await page.goto(`/measurement-sets?q=${encodeURIComponent(NAME)}`);
     const row = page.getByRole("row").filter({ hasText: NAME });
     await row.getByRole("button", { name: /Delete/ }).click();
     const dialog = page.getByRole("dialog", { name: "Delete this measurement set?" });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { Client, DEMO_GARNET_SET_ID, DEMO_LAB_ID } from "./support";
+import { BASE_URL, Client, DEMO_GARNET_SET_ID, DEMO_LAB_ID } from "./support";
 
 describe("health", () => {
   it("reports the database as up", async () => {
@@ -40,5 +40,20 @@ describe("signed-out callers", () => {
     const location = new URL(response.headers.get("location") ?? "", "http://x");
     expect(location.pathname).toBe("/sign-in");
     expect(location.searchParams.get("redirectTo")).toBe("/parameter-sets?q=tgg");
+  });
+});
+
+describe("renamed pages", () => {
+  it("sends the old /measurements address, with its query, on to /measurement-sets", async () => {
+    const response = await fetch(`${BASE_URL}/measurements?q=garnet`, { redirect: "manual" });
+    expect(response.status).toBe(308);
+    const target = new URL(response.headers.get("location") ?? "", BASE_URL);
+    expect(`${target.pathname}${target.search}`).toBe("/measurement-sets?q=garnet");
+  });
+
+  it("sends an old /runs/{id} address on to /lab-runs/{id}", async () => {
+    const response = await fetch(`${BASE_URL}/runs/${DEMO_GARNET_SET_ID}`, { redirect: "manual" });
+    expect(response.status).toBe(308);
+    expect(new URL(response.headers.get("location") ?? "", BASE_URL).pathname).toBe(`/lab-runs/${DEMO_GARNET_SET_ID}`);
   });
 });

@@ -1,7 +1,7 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { computeRunInProcess, type RunSpec } from "@/lib/runs/kinds";
+import { computeRunInProcess, type RunSpec } from "@/lib/lab-runs/kinds";
 import { computeSpectrumArrays } from "@/lib/physics/spectrum";
 import { wavelengthGrid } from "@/lib/workbench/units";
 import { type Client, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, OTHER_LAB_ID, signIn, validParams } from "./support";

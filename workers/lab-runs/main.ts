@@ -23,9 +23,9 @@ import {
   staleRuns,
 } from "@/db/queries/lab-runs";
 import { zodIssueLines } from "@/lib/contracts/validation";
-import { encodeResult } from "@/lib/runs/encoding";
-import { type ChunkOutput, type RunChunk, type RunKindHandler, runKindHandler } from "@/lib/runs/kinds";
-import { RUN_QUEUE } from "@/lib/runs/queue-options";
+import { encodeResult } from "@/lib/lab-runs/encoding";
+import { type ChunkOutput, type RunChunk, type RunKindHandler, runKindHandler } from "@/lib/lab-runs/kinds";
+import { RUN_QUEUE } from "@/lib/lab-runs/queue-options";
 import { scriptSettings } from "@/lib/settings/scripts";
 import { ChunkError, ThreadPool } from "./thread-pool";
 

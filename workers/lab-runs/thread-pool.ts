@@ -1,5 +1,5 @@
 import { Worker } from "node:worker_threads";
-import type { ChunkOutput } from "@/lib/runs/kinds";
+import type { ChunkOutput } from "@/lib/lab-runs/kinds";
 import type { ChunkReply, ChunkTask } from "./thread";
 
 /** A chunk failed inside a thread; `name` is the physics error's name (e.g. NonFiniteResultError). */

@@ -4,7 +4,7 @@
  * transferred buffers. The payload is parsed once per run and kept while chunks of it arrive.
  */
 import { parentPort } from "node:worker_threads";
-import { runKindHandler, type ChunkOutput, type RunChunk } from "@/lib/runs/kinds";
+import { runKindHandler, type ChunkOutput, type RunChunk } from "@/lib/lab-runs/kinds";
 
 export interface ChunkTask {
   runId: string;

@@ -8,8 +8,8 @@ import { authorize, authorizeLab, requireCaller } from "@/lib/auth/access";
 import type { ResourceAccess } from "@/lib/contracts/access";
 import { DomainError, validationError } from "@/lib/contracts/errors";
 import { listRunsQuery, type SubmitRunInput, submitRunSchema } from "@/lib/contracts/lab-runs";
-import { runKindHandler } from "@/lib/runs/kinds";
-import { enqueueRun } from "@/lib/runs/queue";
+import { runKindHandler } from "@/lib/lab-runs/kinds";
+import { enqueueRun } from "@/lib/lab-runs/queue";
 
 /** GET /api/runs?labId=&limit= (viewer) → { items: LabRunSummary[] } */
 export const GET = apiRoute(async (request) => {

@@ -3,7 +3,7 @@ import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import { NUMERICAL_RANGE, insideNumericalRange, numericalRangeIssues, numericalRangeProblem } from "@/lib/physics/numerical-range";
 import type { SpectrumRequest } from "@/lib/physics/schema";
 import { SpectrumInputError, computeSpectrumArrays, createSpectrumJob } from "@/lib/physics/spectrum";
-import { runSpecSchema } from "@/lib/runs/kinds";
+import { runSpecSchema } from "@/lib/lab-runs/kinds";
 import { checkedSpectrumRequest } from "@/lib/workbench/validate";
 
 /*

@@ -3,7 +3,7 @@ import { getRun, requestCancel } from "@/db/queries/lab-runs";
 import { apiRoute, json } from "@/lib/api/route";
 import { authorize, requireCaller } from "@/lib/auth/access";
 import { notFound } from "@/lib/contracts/errors";
-import { cancelQueuedJob } from "@/lib/runs/queue";
+import { cancelQueuedJob } from "@/lib/lab-runs/queue";
 
 /**
  * POST /api/runs/{id}/cancel (editor) → { item }. A queued run is cancelled at once and its job

@@ -4,7 +4,7 @@ import { apiRoute, json } from "@/lib/api/route";
 import { authorize, requireCaller } from "@/lib/auth/access";
 import { DomainError } from "@/lib/contracts/errors";
 import type { LabRunResultBody } from "@/lib/contracts/lab-runs";
-import { decodeResult } from "@/lib/runs/encoding";
+import { decodeResult } from "@/lib/lab-runs/encoding";
 
 /**
  * GET /api/runs/{id}/result (viewer) → LabRunResultBody. Numbers go out as JSON's shortest

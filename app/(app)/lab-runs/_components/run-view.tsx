@@ -16,10 +16,10 @@ import { ExportBar } from "@/components/workbench/export-bar";
 import { SpectrumPanels } from "@/components/workbench/spectrum-panels";
 import type { ComputedSpectrum } from "@/components/workbench/use-spectrum-run";
 import type { SpectrumPoint } from "@/lib/physics/types";
-import { useRun, useRunResult } from "@/lib/query/runs";
+import { useRun, useRunResult } from "@/lib/query/lab-runs";
 import type { LabRunDetail, LabRunResultBody } from "@/lib/contracts/lab-runs";
-import { buildMapCsv } from "@/lib/runs/export";
-import { mapPayloadSchema, spectrumPayloadSchema } from "@/lib/runs/kinds";
+import { buildMapCsv } from "@/lib/lab-runs/export";
+import { mapPayloadSchema, spectrumPayloadSchema } from "@/lib/lab-runs/kinds";
 import { figureCaption, figureFileBase } from "@/lib/workbench/export";
 import { magneticScaleLabel } from "@/lib/workbench/format";
 import { formatShare } from "@/lib/workbench/maps";
@@ -29,7 +29,7 @@ import { RunState } from "./run-state";
 
 const fmt = (v: number) => String(Number(v.toPrecision(4)));
 
-/** /runs/{id}: one run's state, and once done its result in the workbench's plots and exports. */
+/** /lab-runs/{id}: one run's state, and once done its result in the workbench's plots and exports. */
 export function RunView({ id }: { id: string }) {
   const run = useRun(id);
   const done = run.data?.state === "done";
@@ -50,7 +50,7 @@ export function RunView({ id }: { id: string }) {
           <>
             {item.labName} · submitted by {item.submittedBy.name} · <DateTime iso={item.createdAt} /> · {setLabel}
             {item.workerId ? ` · worker ${item.workerId}` : ""} ·{" "}
-            <Link href="/runs" className="text-lux-dark underline-offset-4 hover:underline">
+            <Link href="/lab-runs" className="text-lux-dark underline-offset-4 hover:underline">
               all runs
             </Link>
           </>

@@ -7,7 +7,7 @@ import { SelectField } from "@/components/ui/select-field";
 import { TextField } from "@/components/ui/text-field";
 import { MAX_FILE_BYTES, MAX_ROWS } from "@/lib/measurements/parse";
 import { describeError } from "@/lib/query/fetcher";
-import { uploadProblems, useUploadMeasurementSet } from "@/lib/query/measurements";
+import { uploadProblems, useUploadMeasurementSet } from "@/lib/query/measurement-sets";
 import type { LabSummary } from "@/lib/contracts/labs";
 import { formatBytes } from "./format";
 import { UploadMappingFieldset } from "./upload-mapping-fieldset";

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import { computeSpectrumArrays } from "@/lib/physics/spectrum";
-import { decodeResult, encodeResult } from "@/lib/runs/encoding";
-import { computeRunInProcess, mapPayloadSchema, mapRun, runSpecSchema, spectrumRun } from "@/lib/runs/kinds";
+import { decodeResult, encodeResult } from "@/lib/lab-runs/encoding";
+import { computeRunInProcess, mapPayloadSchema, mapRun, runSpecSchema, spectrumRun } from "@/lib/lab-runs/kinds";
 import { wavelengthGrid } from "@/lib/workbench/units";
 
 const map = {

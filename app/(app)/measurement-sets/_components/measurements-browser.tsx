@@ -12,7 +12,7 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { useSearchUpdate } from "@/components/ui/use-search-update";
 import { describeError } from "@/lib/query/fetcher";
 import { useLabs } from "@/lib/query/labs";
-import { useDeleteMeasurementSet, useMeasurementSets } from "@/lib/query/measurements";
+import { useDeleteMeasurementSet, useMeasurementSets } from "@/lib/query/measurement-sets";
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { roleAtLeast } from "@/lib/contracts/roles";
 import { parseSort, sortSets, type SortKey } from "./format";

@@ -6,11 +6,11 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useParameterSet } from "@/lib/query/parameter-sets";
-import { useSubmitRun } from "@/lib/query/runs";
+import { useSubmitRun } from "@/lib/query/lab-runs";
 import { roleAtLeast } from "@/lib/contracts/roles";
 import { zodIssueFields } from "@/lib/contracts/validation";
 import type { ModelParams } from "@/lib/physics/schema";
-import { MAX_MAP_COLUMNS, MAX_MAP_ROWS, MAX_RUN_WAVELENGTHS, runSpecSchema, type RunSpec } from "@/lib/runs/kinds";
+import { MAX_MAP_COLUMNS, MAX_MAP_ROWS, MAX_RUN_WAVELENGTHS, runSpecSchema, type RunSpec } from "@/lib/lab-runs/kinds";
 import { parseNumber } from "@/lib/workbench/validate";
 import type { WavelengthRange } from "@/lib/workbench/view-state";
 
@@ -157,7 +157,7 @@ export const LabRunPanel = memo(function LabRunPanel({
       <p className="text-sm text-ink-soft">
         Fine maps (up to {MAX_MAP_COLUMNS} × {MAX_MAP_ROWS}) and long spectra (up to {MAX_RUN_WAVELENGTHS.toLocaleString("en")} wavelengths)
         are computed by the lab’s workers and kept on the{" "}
-        <Link href="/runs" className="text-lux-dark underline-offset-4 hover:underline">
+        <Link href="/lab-runs" className="text-lux-dark underline-offset-4 hover:underline">
           Lab runs
         </Link>{" "}
         page for everyone in the lab. They use the parameters as they are on the left now.
@@ -220,7 +220,7 @@ export const LabRunPanel = memo(function LabRunPanel({
       {submitted ? (
         <p role="status" className="text-sm">
           Submitted: {submitted.title}.{" "}
-          <Link href={`/runs/${submitted.id}`} className="font-medium text-lux-dark underline-offset-4 hover:underline">
+          <Link href={`/lab-runs/${submitted.id}`} className="font-medium text-lux-dark underline-offset-4 hover:underline">
             Follow it on the Lab runs page
           </Link>
         </p>

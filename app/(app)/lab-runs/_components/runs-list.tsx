@@ -7,7 +7,7 @@ import { ErrorPanel } from "@/components/ui/error-panel";
 import { PageHeader } from "@/components/ui/page-header";
 import { SkeletonRows } from "@/components/ui/skeleton";
 import { useLabs } from "@/lib/query/labs";
-import { useRuns } from "@/lib/query/runs";
+import { useRuns } from "@/lib/query/lab-runs";
 import { CancelRun } from "./cancel-run";
 import { RunState } from "./run-state";
 
@@ -53,7 +53,7 @@ export function RunsList() {
           {runs.data.map((run) => (
             <li key={run.id} className="flex flex-wrap items-start justify-between gap-3 px-4 py-3" data-testid="run-row">
               <div className="min-w-0 space-y-0.5">
-                <Link href={`/runs/${run.id}`} className="font-medium text-lux-dark underline-offset-4 hover:underline">
+                <Link href={`/lab-runs/${run.id}`} className="font-medium text-lux-dark underline-offset-4 hover:underline">
                   {run.title}
                 </Link>
                 <p className="text-xs text-ink-soft">

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { describeError } from "@/lib/query/fetcher";
-import { useCancelRun } from "@/lib/query/runs";
+import { useCancelRun } from "@/lib/query/lab-runs";
 import { roleAtLeast } from "@/lib/contracts/roles";
 import { type LabRunSummary, isActiveLabRun } from "@/lib/contracts/lab-runs";
 

@@ -1,7 +1,7 @@
 "use client";
 
 import { DateTime } from "@/components/ui/date-time";
-import { originalFileUrl } from "@/lib/query/measurements";
+import { originalFileUrl } from "@/lib/query/measurement-sets";
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { roleAtLeast } from "@/lib/contracts/roles";
 import { formatBytes, formatSpan, formatValues, type SortDir, type SortKey } from "./format";

@@ -2,7 +2,7 @@
 
 import { useEffect, useState } from "react";
 import type { LabRunSummary } from "@/lib/contracts/lab-runs";
-import { etaSeconds } from "@/lib/query/runs";
+import { etaSeconds } from "@/lib/query/lab-runs";
 
 const STATE_LABEL: Record<LabRunSummary["state"], string> = {
   queued: "Queued",
