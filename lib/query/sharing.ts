@@ -4,6 +4,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import type { InvitationSummary } from "@/lib/contracts/labs";
 import type { LabRole } from "@/lib/contracts/roles";
 import type { ShareLinkSummary } from "@/lib/contracts/sharing";
+import type { AuditEntry } from "@/lib/contracts/audit";
 import { apiFetch } from "./fetcher";
 import { usePagedList } from "./paging";
 
@@ -69,16 +70,6 @@ export function useRevokeShareLink(setId: string) {
       apiFetch<void>(`/api/parameter-sets/${encodeURIComponent(setId)}/share-links/${encodeURIComponent(linkId)}`, { method: "DELETE" }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: sharingKeys.shareLinks(setId) }),
   });
-}
-
-export interface AuditEntry {
-  id: string;
-  at: string;
-  action: string;
-  actor: { id: string; name: string } | null;
-  targetType: string;
-  targetId: string;
-  details: Record<string, unknown>;
 }
 
 export function useAudit(labId: string, filters: Record<string, string>) {
