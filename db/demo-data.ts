@@ -200,7 +200,10 @@ export const DEMO_SETS: DemoSet[] = [
         by: "lead",
         daysAgo: 3,
         name: "Tb-doped borate glass — sample LM-B7",
-        description: `Terbium-doped borate glass; gyration fitted to the 633 nm run, Curie–Weiss θ from the susceptibility sweep. ${INVENTED}`,
+        description:
+          "Terbium-doped borate glass; " +
+          "gyration fitted to the 633 nm run, " +
+          `Curie–Weiss θ from the susceptibility sweep. ${INVENTED}`,
         tags: ["glass", "Tb", "fitted"],
         params: { ...borateGlass },
       },
@@ -222,7 +225,10 @@ export const DEMO_SETS: DemoSet[] = [
         by: "postdoc",
         daysAgo: 5,
         name: "Terbium gallium garnet — 77 K (liquid nitrogen)",
-        description: `The handbook garnet cooled in the liquid-nitrogen cryostat, 0.5 T (the cryostat's magnet). ${DIAMAGNETIC_NOTE} ${INVENTED}`,
+        description:
+          "The handbook garnet cooled in the liquid-nitrogen cryostat, " +
+          "0.5 T (the cryostat's magnet). " +
+          `${DIAMAGNETIC_NOTE} ${INVENTED}`,
         tags: ["TGG", "cryogenic", "diamagnetic term"],
         params: { ...TERBIUM_GARNET_DEFAULTS, ...WITH_DIAMAGNETIC, temperatureK: 77, fieldT: 0.5 },
       },
@@ -236,7 +242,9 @@ export const DEMO_SETS: DemoSet[] = [
         by: "postdoc",
         daysAgo: 2,
         name: "Dysprosium gallium garnet — what-if",
-        description: `A dysprosium analogue of the garnet for comparison (Dy³⁺: g = 4/3, J = 15/2), with the diamagnetic (bound-electron) term on. ${INVENTED}`,
+        description:
+          "A dysprosium analogue of the garnet for comparison (Dy³⁺: g = 4/3, J = 15/2), " +
+          `with the diamagnetic (bound-electron) term on. ${INVENTED}`,
         tags: ["Dy", "what-if", "diamagnetic term"],
         params: dysprosiumGarnet,
       },

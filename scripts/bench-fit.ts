@@ -32,5 +32,6 @@ for (let i = 0; i < 11; i++) {
 }
 times.sort((a, b) => a - b);
 console.log(
-  `fit, 100 points, 3 free parameters, single thread: ${times[5]!.toFixed(1)} ms median of 11, fastest ${times[0]!.toFixed(1)} ms (${iterations} Levenberg–Marquardt iterations)`,
+  `fit, 100 points, 3 free parameters, single thread: ${times[5]!.toFixed(1)} ms median of 11, ` +
+    `fastest ${times[0]!.toFixed(1)} ms (${iterations} Levenberg–Marquardt iterations)`,
 );

@@ -68,7 +68,9 @@ for (const { label, request } of scenarios) {
   const best = last.plans[0];
   console.log(label);
   console.log(
-    `  candidates ${last.candidateCount}, ${last.method}, designs evaluated ${last.designsEvaluated}, best σ ${best ? best.expectedSigma.toPrecision(3) : "–"} ${last.criterionUnit}, time ${times[1]!.toFixed(0)} ms (fastest ${times[0]!.toFixed(0)} ms)`,
+    `  candidates ${last.candidateCount}, ${last.method}, designs evaluated ${last.designsEvaluated}, ` +
+      `best σ ${best ? best.expectedSigma.toPrecision(3) : "–"} ${last.criterionUnit}, ` +
+      `time ${times[1]!.toFixed(0)} ms (fastest ${times[0]!.toFixed(0)} ms)`,
   );
   console.log(
     `  best plan: ${best?.points.map((p) => `${p.wavelengthNm} nm @ ${p.temperatureK} K, ${p.fieldT} T ×${p.count}`).join("; ")}`,

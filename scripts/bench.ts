@@ -44,10 +44,12 @@ const llg = timeMs(
 const analytic = timeMs(() => computeSpectrum({ ...tgg, method: "analytic" }), 20, 51);
 
 console.log(
-  `numerical (llg) spectrum, 256 wavelengths 300–3000 nm, single thread: ${llg.median.toFixed(1)} ms median of 9, fastest ${llg.min.toFixed(1)} ms (target ≤ 100 ms)`,
+  `numerical (llg) spectrum, 256 wavelengths 300–3000 nm, single thread: ${llg.median.toFixed(1)} ms median of 9, ` +
+    `fastest ${llg.min.toFixed(1)} ms (target ≤ 100 ms)`,
 );
 console.log(
-  `analytic spectrum, 256 wavelengths: ${analytic.median.toFixed(3)} ms median of 51, fastest ${analytic.min.toFixed(3)} ms (target ≤ 2 ms)`,
+  `analytic spectrum, 256 wavelengths: ${analytic.median.toFixed(3)} ms median of 51, ` +
+    `fastest ${analytic.min.toFixed(3)} ms (target ≤ 2 ms)`,
 );
 console.log(`largest numerical-vs-analytic relative deviation of χ±: ${deviation.toExponential(2)} (target ≤ 1e-4)`);
 
@@ -97,15 +99,19 @@ for (let i = 0; i < ROUNDS; i++) {
 }
 const diffs = coldMany.map((m, i) => m - coldOne[i]!);
 console.log(
-  `cold command line, whole process: 256 wavelengths ${med(coldMany).toFixed(0)} ms, 1 wavelength ${med(coldOne).toFixed(0)} ms (median of ${ROUNDS}); ` +
-    `256 − 1 = ${med(diffs).toFixed(0)} ms (fastest ${Math.min(...diffs).toFixed(0)} ms) vs warm ${llg.median.toFixed(1)} ms (target ≤ 2× warm)`,
+  `cold command line, whole process: 256 wavelengths ${med(coldMany).toFixed(0)} ms, ` +
+    `1 wavelength ${med(coldOne).toFixed(0)} ms (median of ${ROUNDS}); ` +
+    `256 − 1 = ${med(diffs).toFixed(0)} ms (fastest ${Math.min(...diffs).toFixed(0)} ms) ` +
+    `vs warm ${llg.median.toFixed(1)} ms (target ≤ 2× warm)`,
 );
 console.log(
-  `one wavelength, whole command-line call (node dist/spectrum.mjs): ${med(coldOne).toFixed(0)} ms median, fastest ${Math.min(...coldOne).toFixed(0)} ms (target < 300 ms); bare \`node -e 0\` here: ${med(node0).toFixed(0)} ms`,
+  `one wavelength, whole command-line call (node dist/spectrum.mjs): ${med(coldOne).toFixed(0)} ms median, ` +
+    `fastest ${Math.min(...coldOne).toFixed(0)} ms (target < 300 ms); bare \`node -e 0\` here: ${med(node0).toFixed(0)} ms`,
 );
 if (cpuMs.one && cpuMs.many && cpuMs.node0) {
   const cpuDiff = cpuMs.many.map((m, i) => m - cpuMs.one![i]!);
   console.log(
-    `the same as CPU time (user + system, all threads): 256 − 1 = ${med(cpuDiff).toFixed(0)} ms vs warm ${llg.cpuMedian.toFixed(0)} ms; 1 wavelength ${med(cpuMs.one).toFixed(0)} ms; bare node ${med(cpuMs.node0).toFixed(0)} ms`,
+    `the same as CPU time (user + system, all threads): 256 − 1 = ${med(cpuDiff).toFixed(0)} ms ` +
+      `vs warm ${llg.cpuMedian.toFixed(0)} ms; 1 wavelength ${med(cpuMs.one).toFixed(0)} ms; bare node ${med(cpuMs.node0).toFixed(0)} ms`,
   );
 }

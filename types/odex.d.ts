@@ -1,6 +1,6 @@
 // odex ships no usable declarations (its own src/odex.ts fails strict checks); this covers what we use.
 export type Derivative = (x: number, y: number[]) => number[];
-// biome-ignore lint/suspicious/noConfusingVoidType: odex reads only an explicit `false` (stop); callbacks with no return statement must type-check.
+// biome-ignore lint/suspicious/noConfusingVoidType: odex stops only on an explicit `false`; callbacks without a return must type-check.
 export type OutputFunction = (nr: number, xold: number, x: number, y: number[], dense?: (c: number, x: number) => number) => boolean | void;
 export interface SolverResult {
   y: number[];

@@ -28,7 +28,8 @@ const CHOICES: { value: Choice; label: string }[] = [
 ];
 
 const INPUT =
-  "mt-1 block w-28 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
+  "mt-1 block w-28 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums " +
+  "focus:border-lux aria-[invalid=true]:border-ember";
 
 interface Drafts {
   fromNm: string;

@@ -73,7 +73,9 @@ export function ConflictBanner({
       tabIndex={-1}
       role="alert"
       aria-labelledby="conflict-title"
-      className="scroll-mt-4 rounded-lg border border-ember bg-ember-light px-5 py-4 outline-none focus-visible:ring-2 focus-visible:ring-lux"
+      className={
+        "scroll-mt-4 rounded-lg border border-ember bg-ember-light px-5 py-4 outline-none focus-visible:ring-2 focus-visible:ring-lux"
+      }
     >
       <h2 id="conflict-title" className="font-semibold">
         Someone saved version {current.version} while you were editing

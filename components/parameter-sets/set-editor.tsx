@@ -124,7 +124,11 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
 
       <SetFields form={form} />
 
-      <div className="sticky bottom-0 flex flex-wrap items-center justify-between gap-3 border-t border-ink/10 bg-paper/95 py-3 backdrop-blur">
+      <div
+        className={
+          "sticky bottom-0 flex flex-wrap items-center justify-between gap-3 border-t border-ink/10 bg-paper/95 py-3 backdrop-blur"
+        }
+      >
         <p className="text-sm text-ink-soft" aria-live="polite">
           {form.formState.isDirty ? "Unsaved changes" : `Showing version ${base.version}`}
         </p>

@@ -57,7 +57,10 @@ export function SetFields({ form, labs }: SetFieldsProps) {
                 {tags.map((tag) => (
                   <li
                     key={tag}
-                    className="max-w-full rounded-full border border-lux/40 bg-lux-light/50 px-2 py-0.5 text-xs text-lux-dark [overflow-wrap:anywhere]"
+                    className={
+                      "max-w-full rounded-full border border-lux/40 bg-lux-light/50 " +
+                      "px-2 py-0.5 text-xs text-lux-dark [overflow-wrap:anywhere]"
+                    }
                   >
                     {tag}
                   </li>

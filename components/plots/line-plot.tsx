@@ -93,7 +93,10 @@ function LinePlotImpl({ title, width, height = 320, banner, svgRef, series, axes
     <div
       tabIndex={0}
       role="group"
-      aria-label={`${title}. Arrow keys move the cursor${onPick ? ", Enter adds a marker" : ""}${onXViewChange ? "; + and − zoom, 0 shows the whole range" : ""}.`}
+      aria-label={
+        `${title}. Arrow keys move the cursor${onPick ? ", Enter adds a marker" : ""}` +
+        `${onXViewChange ? "; + and − zoom, 0 shows the whole range" : ""}.`
+      }
       aria-describedby={describedBy}
       // The drawn domains, for tests and tools that read the page (the axes show them rounded).
       data-x-domain={`${shownX[0]},${shownX[1]}`}

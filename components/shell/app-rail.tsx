@@ -7,7 +7,12 @@ import { SignOutButton } from "./sign-out-button";
 /** The signed-in frame: a left rail on wide screens, a bar with a menu button on narrow ones. */
 export function AppRail({ userName, userEmail }: { userName: string; userEmail: string }) {
   return (
-    <aside className="border-b border-ink/10 bg-paper-sunk/60 md:sticky md:top-0 md:flex md:h-screen md:w-60 md:overflow-y-auto md:shrink-0 md:flex-col md:border-r md:border-b-0">
+    <aside
+      className={
+        "border-b border-ink/10 bg-paper-sunk/60 " +
+        "md:sticky md:top-0 md:flex md:h-screen md:w-60 md:overflow-y-auto md:shrink-0 md:flex-col md:border-r md:border-b-0"
+      }
+    >
       <RailMenu
         brand={
           <Link href="/parameter-sets" className="rounded-md">

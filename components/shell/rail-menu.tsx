@@ -39,7 +39,10 @@ export function RailMenu({ brand, children }: { brand: ReactNode; children: Reac
           aria-expanded={open}
           aria-controls="rail-panel"
           onClick={() => setOpen((v) => !v)}
-          className="inline-flex items-center gap-2 rounded-md border border-ink/20 bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink md:hidden"
+          className={
+            "inline-flex items-center gap-2 rounded-md border border-ink/20 bg-paper-raised " +
+            "px-3 py-1.5 text-sm font-medium text-ink md:hidden"
+          }
         >
           <svg viewBox="0 0 16 16" width="16" height="16" aria-hidden="true">
             {open ? (

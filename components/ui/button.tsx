@@ -4,7 +4,8 @@ import type { ButtonHTMLAttributes, ComponentProps } from "react";
 export type ButtonVariant = "primary" | "secondary" | "danger" | "quiet";
 
 const BASE =
-  "inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-60";
+  "inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium transition-colors " +
+  "disabled:cursor-not-allowed disabled:opacity-60";
 
 const VARIANTS: Record<ButtonVariant, string> = {
   primary: "bg-lux text-white hover:bg-lux-dark",

@@ -1,7 +1,8 @@
 import type { InputHTMLAttributes, ReactNode } from "react";
 
 export const INPUT_CLASS =
-  "block w-full rounded-md border border-ink/25 bg-paper-raised px-3 py-2 text-ink placeholder:text-ink-faint focus:border-lux aria-[invalid=true]:border-ember disabled:bg-paper-sunk disabled:text-ink-soft";
+  "block w-full rounded-md border border-ink/25 bg-paper-raised px-3 py-2 text-ink placeholder:text-ink-faint " +
+  "focus:border-lux aria-[invalid=true]:border-ember disabled:bg-paper-sunk disabled:text-ink-soft";
 
 /** What a field hands its control: the id its label points at, and the links to hint and error. */
 export interface FieldControlProps {

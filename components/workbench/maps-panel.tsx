@@ -48,7 +48,8 @@ import type { WavelengthRange } from "@/lib/workbench/view-state";
  */
 
 const INPUT =
-  "block w-24 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
+  "block w-24 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums " +
+  "focus:border-lux aria-[invalid=true]:border-ember";
 
 interface MapData {
   kind: MapKind;
@@ -358,7 +359,10 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
           </p>
           {change !== null ? (
             <LinePlot
-              title={`${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} against wavelength at ${view.yName} ${fmt(map.ys[ownRow]!)} ${view.yUnit} (${METHOD_SHORT[map.method]})`}
+              title={
+                `${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} against wavelength ` +
+                `at ${view.yName} ${fmt(map.ys[ownRow]!)} ${view.yUnit} (${METHOD_SHORT[map.method]})`
+              }
               width={width}
               height={240}
               banner={map.banner}
@@ -395,7 +399,8 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
       <figcaption className="space-y-0.5 text-xs text-ink-soft">
         {!independence.independent && change !== null ? (
           <span className="block" data-testid={`map-${map.kind}-change`}>
-            {`Along the ${view.yName} axis ${qView.short} changes by up to ${(change.relative * 100).toPrecision(3)} % of its largest value at one wavelength (${fmt(map.xs[change.column]!)} nm)${unitNote ? `; rotations${unitNote}` : ""}.`}
+            {`Along the ${view.yName} axis ${qView.short} changes by up to ${(change.relative * 100).toPrecision(3)} % ` +
+              `of its largest value at one wavelength (${fmt(map.xs[change.column]!)} nm)${unitNote ? `; rotations${unitNote}` : ""}.`}
           </span>
         ) : null}
         <span className="block" data-testid={`share-map-${map.kind}-method`}>

@@ -48,7 +48,10 @@ function Marker({ x, y, style }: { x: number; y: number; style: OverlayStyle }) 
 }
 
 function formatPoint(p: OverlayPoint, yUnit: string): string {
-  return `line ${p.point.line}: ${fmt(p.point.wavelengthNm, 5)} nm, ${fmt(p.y, 4)} ± ${fmt(p.sigma, 2)} ${yUnit} at ${fmt(p.point.temperatureK, 5)} K`;
+  return (
+    `line ${p.point.line}: ${fmt(p.point.wavelengthNm, 5)} nm, ` +
+    `${fmt(p.y, 4)} ± ${fmt(p.sigma, 2)} ${yUnit} at ${fmt(p.point.temperatureK, 5)} K`
+  );
 }
 
 // Module-level, so TanStack Query keeps the combined array stable while the data is unchanged.
@@ -187,7 +190,8 @@ export const MeasurementOverlayPicker = memo(function MeasurementOverlayPicker({
               Points with ±σ error bars. {describeConversion({ yMode, geometry, quantities })} Points outside the plotted range are not
               drawn.
               {otherTemperature.length > 0
-                ? ` ${otherTemperature.map((s) => `“${s.name}”`).join(", ")} ${otherTemperature.length === 1 ? "has" : "have"} points at temperatures other than the curve's ${fmt(temperatureK, 5)} K.`
+                ? ` ${otherTemperature.map((s) => `“${s.name}”`).join(", ")} ${otherTemperature.length === 1 ? "has" : "have"} ` +
+                  `points at temperatures other than the curve's ${fmt(temperatureK, 5)} K.`
                 : ""}
             </p>
           ) : null}

@@ -7,7 +7,8 @@ import { PARAM_RANGES } from "@/lib/workbench/param-ranges";
 import type { FieldErrors, ParamDrafts } from "@/lib/workbench/validate";
 
 const INPUT =
-  "block w-full rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums text-ink focus:border-lux aria-[invalid=true]:border-ember aria-[invalid=true]:bg-ember-light/40 disabled:bg-paper-sunk";
+  "block w-full rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums text-ink " +
+  "focus:border-lux aria-[invalid=true]:border-ember aria-[invalid=true]:bg-ember-light/40 disabled:bg-paper-sunk";
 
 const GROUPS: ParamMeta["group"][] = ["conditions", "spins", "optics"];
 

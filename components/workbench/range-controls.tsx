@@ -5,7 +5,8 @@ import { MAX_WAVELENGTHS } from "@/lib/physics/schema";
 import type { FieldErrors, RangeDrafts } from "@/lib/workbench/validate";
 
 const INPUT =
-  "block w-full rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
+  "block w-full rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums " +
+  "focus:border-lux aria-[invalid=true]:border-ember";
 
 function RangeControlsImpl({
   drafts,

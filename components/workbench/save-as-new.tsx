@@ -72,7 +72,10 @@ export function SaveAsNew({ params, defaultName }: { params: ModelParams | null;
         </label>
         <input
           id="save-name"
-          className="mt-1 w-56 max-w-full rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm aria-[invalid=true]:border-ember"
+          className={
+            "mt-1 w-56 max-w-full rounded-md border border-ink/25 bg-paper-raised " +
+            "px-2.5 py-1.5 text-sm aria-[invalid=true]:border-ember"
+          }
           value={name}
           maxLength={NAME_MAX}
           required

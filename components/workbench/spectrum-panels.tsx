@@ -275,7 +275,10 @@ function SpectrumPanelsImpl({
               <Readout term="θx" value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
               <Readout
                 term="Ellipticity angle"
-                value={`${fmt(rotationTo(cp.ellipticityAngleRad ?? cp.ellipticityRad, yMode, geometry))} ${yUnit}${Math.abs(cp.ellipticityRad) > 0.1 ? " (η large)" : ""}`}
+                value={
+                  `${fmt(rotationTo(cp.ellipticityAngleRad ?? cp.ellipticityRad, yMode, geometry))} ${yUnit}` +
+                  `${Math.abs(cp.ellipticityRad) > 0.1 ? " (η large)" : ""}`
+                }
               />
               <Readout
                 term="T+ / T−"

@@ -20,7 +20,8 @@ type TraceView = ViewState["spinTrace"];
 const INTENSITIES = Array.from({ length: 11 }, (_, i) => 10 ** (12 + i / 2));
 
 const INPUT =
-  "mt-1 w-40 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums focus:border-lux aria-[invalid=true]:border-ember";
+  "mt-1 w-40 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums " +
+  "focus:border-lux aria-[invalid=true]:border-ember";
 
 interface ComplexValue {
   re: number;
@@ -355,7 +356,10 @@ export function SpinTracePanel({
               </p>
             ) : null}
             <LinePlot
-              title={`Static change of Mz against optical intensity at ${fmt(curve.inputs.wavelengthNm, 5)} nm (numerical LLG, log-log)${curveStale ? " (stale)" : ""}`}
+              title={
+                `Static change of Mz against optical intensity at ${fmt(curve.inputs.wavelengthNm, 5)} nm ` +
+                `(numerical LLG, log-log)${curveStale ? " (stale)" : ""}`
+              }
               width={width}
               height={280}
               banner={curve.banner}

@@ -86,7 +86,8 @@ export function ViewControls({
       >
         {scratch
           ? "Axes, units, markers, open panels and the range go back to their defaults."
-          : "Your own view of this set (axes, units, markers, open panels, spin-trace inputs, range) is deleted and you see the lab's shared view again. Parameters are not affected."}
+          : "Your own view of this set (axes, units, markers, open panels, spin-trace inputs, range) is deleted " +
+            "and you see the lab's shared view again. Parameters are not affected."}
       </ConfirmDialog>
       <ConfirmDialog
         open={asking === "share"}

@@ -19,7 +19,8 @@ export interface AuthFormState {
 
 const WRONG_CREDENTIALS = "Wrong e-mail or password.";
 const ALREADY_REGISTERED_HINT =
-  "We could not sign you in with this address and password. If the address already had an account, we sent it an e-mail: sign in with that account's password, or reset it.";
+  "We could not sign you in with this address and password. " +
+  "If the address already had an account, we sent it an e-mail: sign in with that account's password, or reset it.";
 const UNAVAILABLE = "Signing in is unavailable right now (the database is not reachable). Try again shortly.";
 
 const text = (formData: FormData, key: string) => {

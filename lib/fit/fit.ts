@@ -106,13 +106,16 @@ function separationVerdict(free: readonly string[], correlation: number[][], poi
   let amplitudeCorrelation: number | null = null;
   if (ig < 0 || im < 0) {
     reasons.push(
-      "The split is not measured: gyrationPerT and magneticScale must both be free for the data to weigh the electric-dipole part against the magnetic-dipole part; the shares shown follow from the values held fixed.",
+      "The split is not measured: gyrationPerT and magneticScale must both be free for the data to weigh the electric-dipole part " +
+        "against the magnetic-dipole part; the shares shown follow from the values held fixed.",
     );
   } else {
     amplitudeCorrelation = correlation[ig]![im]!;
     if (Math.abs(amplitudeCorrelation) > SEPARATION_CORRELATION_LIMIT) {
       reasons.push(
-        `The data cannot tell the two parts apart: the electric gyration and magneticScale are correlated at ${amplitudeCorrelation.toFixed(3)} (beyond ±${SEPARATION_CORRELATION_LIMIT}), so more of one part and less of the other fits almost as well.`,
+        "The data cannot tell the two parts apart: the electric gyration and magneticScale are correlated at " +
+          `${amplitudeCorrelation.toFixed(3)} (beyond ±${SEPARATION_CORRELATION_LIMIT}), ` +
+          "so more of one part and less of the other fits almost as well.",
       );
     }
   }
@@ -122,7 +125,8 @@ function separationVerdict(free: readonly string[], correlation: number[][], poi
   if (unresolved.length > 0) {
     const first = unresolved[0]!;
     reasons.push(
-      `At ${unresolved.length} of ${points.length} points the standard error of the magnetic share exceeds the share itself (e.g. ${percent(first.magneticShare!)} ± ${percent(first.magneticShareSigma!)} at ${first.wavelengthNm} nm).`,
+      `At ${unresolved.length} of ${points.length} points the standard error of the magnetic share exceeds the share itself ` +
+        `(e.g. ${percent(first.magneticShare!)} ± ${percent(first.magneticShareSigma!)} at ${first.wavelengthNm} nm).`,
     );
   }
   return { separable: reasons.length === 0, reasons, amplitudeCorrelation };

@@ -144,7 +144,8 @@ export function covarianceFromNormalMatrix(a: Matrix, names: readonly string[] =
     const ajj = a.get(j, j);
     if (!(ajj > 0))
       throw new FitError(
-        `${names[j] ?? `free parameter ${j + 1}`} does not change the model at these points, so the data cannot determine it; fix it or add data`,
+        `${names[j] ?? `free parameter ${j + 1}`} does not change the model at these points, ` +
+          "so the data cannot determine it; fix it or add data",
       );
     d[j] = 1 / Math.sqrt(ajj);
   }

@@ -66,7 +66,9 @@ export const fitRequestSchema = z
       ctx.addIssue({
         code: "custom",
         path: ["points"],
-        message: `${req.points.length} point(s) cannot determine ${req.free.length} free parameter(s); a fit needs more points than free parameters`,
+        message:
+          `${req.points.length} point(s) cannot determine ${req.free.length} free parameter(s); ` +
+          "a fit needs more points than free parameters",
       });
     }
   });

@@ -159,7 +159,8 @@ export const mapRun: RunKindHandler<MapPayload> = {
   payloadSchema: mapPayloadSchema,
   cells: (p) => p.wavelengths.count * p.rows.count,
   describe: (p) =>
-    `${p.method === "llg" ? "numerical LLG" : "analytic"} map, ${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm) × ${p.rows.count} ${
+    `${p.method === "llg" ? "numerical LLG" : "analytic"} map, ` +
+    `${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm) × ${p.rows.count} ${
       p.axis === "temperature" ? `temperatures (${p.rows.from}–${p.rows.to} K)` : `fields (${p.rows.from}–${p.rows.to} T)`
     }`,
   // One row per chunk: a row is one spectrum, at most 512 wavelengths.
@@ -242,7 +243,8 @@ export const spectrumRun: RunKindHandler<SpectrumPayload> = {
   payloadSchema: spectrumPayloadSchema,
   cells: (p) => p.wavelengths.count,
   describe: (p) =>
-    `${p.method === "llg" ? "numerical LLG" : "analytic"} spectrum, ${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm)`,
+    `${p.method === "llg" ? "numerical LLG" : "analytic"} spectrum, ` +
+    `${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm)`,
   chunks(p) {
     const out: RunChunk[] = [];
     for (let start = 0; start < p.wavelengths.count; start += SPECTRUM_CHUNK) {

@@ -56,7 +56,9 @@ export const PARAM_META: readonly ParamMeta[] = [
     unit: "",
     step: "any",
     group: "spins",
-    help: "Dimensionless damping of the spin precession in the LLG equation; 0.01 is illustrative (no measured value for a terbium garnet).",
+    help:
+      "Dimensionless damping of the spin precession in the LLG equation; " +
+      "0.01 is illustrative (no measured value for a terbium garnet).",
   },
   {
     key: "magneticScale",
@@ -165,7 +167,10 @@ export const FLAG_META: readonly FlagMeta[] = [
     key: "diamagneticTerm",
     label: "Diamagnetic (bound-electron) term",
     group: "optics",
-    help: "Adds the classical bound-electron gyration of every pole of ε (physics-model §5.5, the Becquerel form V = (e/2mₑc) λ |dn/dλ|). It follows the field, not the spins, so with it the share moves with temperature and field and a set without spins still rotates. Off by default.",
+    help:
+      "Adds the classical bound-electron gyration of every pole of ε (physics-model §5.5, the Becquerel form V = (e/2mₑc) λ |dn/dλ|). " +
+      "It follows the field, not the spins, so with it the share moves with temperature and field " +
+      "and a set without spins still rotates. Off by default.",
   },
 ];
 

@@ -47,7 +47,8 @@ export function spectrumWarnings(
   if (gain.length > 0) {
     const limit = passivityLimitNm({ ...request, magnetizationAPerM: arrays.magnetizationAPerM });
     warnings.push(
-      `passivity: ε± has gain (Im ε± > 0) where f·ωE < 2|κE μ0 M0|·ω, i.e. below ${formatNm(limit)} nm; affected wavelengths (nm): ${listWavelengths(gain)}`,
+      `passivity: ε± has gain (Im ε± > 0) where f·ωE < 2|κE μ0 M0|·ω, i.e. below ${formatNm(limit)} nm; ` +
+        `affected wavelengths (nm): ${listWavelengths(gain)}`,
     );
   }
   const cone = pick(WAVELENGTH_FLAG_CONE);
@@ -57,7 +58,8 @@ export function spectrumWarnings(
   const unsettled = pick(WAVELENGTH_FLAG_UNSETTLED);
   if (unsettled.length > 0) {
     warnings.push(
-      `llg: the free-precession transient cannot be given time to decay (|ω0/ω| > 0.05 with small damping) at (nm): ${listWavelengths(unsettled)}; the deviation from the analytic form may exceed 1e-4 there`,
+      "llg: the free-precession transient cannot be given time to decay (|ω0/ω| > 0.05 with small damping) " +
+        `at (nm): ${listWavelengths(unsettled)}; the deviation from the analytic form may exceed 1e-4 there`,
     );
   }
   return warnings;

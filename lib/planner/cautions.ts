@@ -42,11 +42,14 @@ export function cautionsFor(ctx: CautionContext): Caution[] {
   const out: Caution[] = [];
   const laser: string[] = ctx.lines.map(
     (l) =>
-      `${l.name} (${l.wavelengthNm} nm${l.powerW !== null ? `, ${formatPower(l.powerW)}` : ""}): indicative class ${indicativeLaserClass(l.wavelengthNm, l.powerW)}.`,
+      `${l.name} (${l.wavelengthNm} nm${l.powerW !== null ? `, ${formatPower(l.powerW)}` : ""}): ` +
+      `indicative class ${indicativeLaserClass(l.wavelengthNm, l.powerW)}.`,
   );
   laser.push(
-    "Classify each laser by IEC 60825-1 (and ANSI Z136.1 in the US); Class 3B and 4 beams need a controlled area, beam enclosures or stops, and eyewear of the optical density the laser safety officer specifies for that wavelength and power.",
-    "Near-infrared lines (800–1550 nm) are invisible: check beam paths with a viewer card, never by eye; remove watches and rings, and keep the beam below eye level.",
+    "Classify each laser by IEC 60825-1 (and ANSI Z136.1 in the US); Class 3B and 4 beams need a controlled area, " +
+      "beam enclosures or stops, and eyewear of the optical density the laser safety officer specifies for that wavelength and power.",
+    "Near-infrared lines (800–1550 nm) are invisible: check beam paths with a viewer card, never by eye; " +
+      "remove watches and rings, and keep the beam below eye level.",
   );
   out.push({ key: "laser", title: "Lasers", lines: laser });
   if (ctx.maxFieldT !== null && ctx.maxFieldT > 0) {
@@ -54,8 +57,10 @@ export function cautionsFor(ctx: CautionContext): Caution[] {
       key: "magnet",
       title: "Strong magnetic fields",
       lines: [
-        `Fields up to ${ctx.maxFieldT} T: a static field above 0.5 mT (5 gauss) can disturb pacemakers and other active implants. Mark the 0.5 mT line around the magnet and keep people with implants outside it.`,
-        "Ferromagnetic objects (tools, gas cylinders, chairs) become projectiles near a strong magnet: keep them out of the marked area; watch for quench hazards with superconducting magnets.",
+        `Fields up to ${ctx.maxFieldT} T: a static field above 0.5 mT (5 gauss) can disturb pacemakers and other active implants. ` +
+          "Mark the 0.5 mT line around the magnet and keep people with implants outside it.",
+        "Ferromagnetic objects (tools, gas cylinders, chairs) become projectiles near a strong magnet: " +
+          "keep them out of the marked area; watch for quench hazards with superconducting magnets.",
       ],
     });
   }
@@ -64,8 +69,11 @@ export function cautionsFor(ctx: CautionContext): Caution[] {
       key: "cryogen",
       title: "Cryogens and cryostats",
       lines: [
-        `Temperatures down to ${ctx.minTemperatureK} K mean liquid nitrogen or helium: they boil off into hundreds of times their volume of gas and can displace oxygen in a closed room (asphyxiation, with no warning smell). Ventilate; use an oxygen monitor where the rules ask for one.`,
-        "Cryogens and cold surfaces cause cold burns: face shield, loose cryogenic gloves, closed shoes; never seal a cryogen in a closed vessel.",
+        `Temperatures down to ${ctx.minTemperatureK} K mean liquid nitrogen or helium: ` +
+          "they boil off into hundreds of times their volume of gas and can displace oxygen in a closed room " +
+          "(asphyxiation, with no warning smell). Ventilate; use an oxygen monitor where the rules ask for one.",
+        "Cryogens and cold surfaces cause cold burns: face shield, loose cryogenic gloves, closed shoes; " +
+          "never seal a cryogen in a closed vessel.",
       ],
     });
   }
@@ -73,7 +81,8 @@ export function cautionsFor(ctx: CautionContext): Caution[] {
     key: "local",
     title: "Your local rules come first",
     lines: [
-      "These are reminders, not a risk assessment. Follow your institution's rules, and ask its laser safety officer (and whoever looks after magnets and cryogens) before the work starts.",
+      "These are reminders, not a risk assessment. Follow your institution's rules, " +
+        "and ask its laser safety officer (and whoever looks after magnets and cryogens) before the work starts.",
     ],
   });
   return out;

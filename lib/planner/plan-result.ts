@@ -27,10 +27,16 @@ export interface PlanPoint extends PlanCandidate {
 export interface RankedPlan {
   rank: number;
   points: PlanPoint[];
-  /** Expected standard error of the criterion (unit in PlanResult.criterionUnit); Infinity when the points cannot separate the free parameters. */
+  /**
+   * Expected standard error of the criterion (unit in PlanResult.criterionUnit); Infinity when the points cannot separate the
+   * free parameters.
+   */
   expectedSigma: number;
   separable: boolean;
-  /** Correlation of the electric (gyrationPerT) and magnetic (magneticScale) amplitudes; null unless both are free and the plan separates them. */
+  /**
+   * Correlation of the electric (gyrationPerT) and magnetic (magneticScale) amplitudes; null unless both are free and the plan
+   * separates them.
+   */
   partsCorrelation: number | null;
   /** Expected standard error of each free parameter, in its own unit. */
   parameterSigma: Record<string, number>;

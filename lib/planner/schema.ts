@@ -103,7 +103,8 @@ export const planRequestSchema = z
     if (v.temperatures.minK <= cw) {
       issue(
         ["temperatures", "minK"],
-        `${v.temperatures.minK} K is at or below the Curie–Weiss temperature of this set (${cw} K): the model has no ordered phase; start the range above ${cw} K`,
+        `${v.temperatures.minK} K is at or below the Curie–Weiss temperature of this set (${cw} K): ` +
+          `the model has no ordered phase; start the range above ${cw} K`,
       );
     }
     if (v.fields.maxT < v.fields.minT) issue(["fields", "maxT"], "must be ≥ the lowest field");

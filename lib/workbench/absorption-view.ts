@@ -98,14 +98,22 @@ export function formatBands(bands: readonly WavelengthBand[], max = 4): string {
 export function opaqueWarning(points: readonly SpectrumPoint[], lengthM: number): string | null {
   const bands = opaqueBandsOf(points);
   if (bands.length === 0) return null;
-  return `Opaque for this ${fmtLength(lengthM)} sample at ${formatBands(bands)}: both circular modes transmit less than ${OPAQUE_TRANSMISSION * 100} %, so the rotation shown there could not be measured in transmission.`;
+  return (
+    `Opaque for this ${fmtLength(lengthM)} sample at ${formatBands(bands)}: ` +
+    `both circular modes transmit less than ${OPAQUE_TRANSMISSION * 100} %, ` +
+    "so the rotation shown there could not be measured in transmission."
+  );
 }
 
 /** The note on η, or null when it is small everywhere. */
 export function ellipticityNote(points: readonly SpectrumPoint[]): string | null {
   const bands = largeEllipticityBands(points);
   if (bands.length === 0) return null;
-  return `|η| exceeds ${SMALL_ELLIPTICITY_RAD} rad at ${formatBands(bands)}: there η is outside the small-dichroism form and is not an angle; the ellipticity shown is that of the transmitted light, atan(tanh η), which never exceeds 45°.`;
+  return (
+    `|η| exceeds ${SMALL_ELLIPTICITY_RAD} rad at ${formatBands(bands)}: ` +
+    "there η is outside the small-dichroism form and is not an angle; " +
+    "the ellipticity shown is that of the transmitted light, atan(tanh η), which never exceeds 45°."
+  );
 }
 
 /** Transmission as a percentage with enough digits to tell 0.3 % from 1e-40 %. */

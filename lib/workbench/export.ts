@@ -9,7 +9,8 @@ import { fromNm, rotationTo, type Geometry, type XUnit, type YMode } from "./uni
  */
 
 export const MODEL_DESCRIPTION =
-  "Gyrolux model: one gyrotropic oscillator + LLG spins, physics-model §3 (Brillouin M0), §4 (magnetic-dipole part), §5 (electric-dipole part), §6 (split)";
+  "Gyrolux model: one gyrotropic oscillator + LLG spins, " +
+  "physics-model §3 (Brillouin M0), §4 (magnetic-dipole part), §5 (electric-dipole part), §6 (split)";
 
 export const CSV_COLUMNS = [
   "wavelength_nm",

@@ -61,7 +61,8 @@ export function methodProblems(kind: MapKind, method: MapMethod, params: ModelPa
   const [aLo, aHi] = NUMERICAL_RANGE.gilbertDamping;
   if (!insideNumericalRange("gilbertDamping", params.gilbertDamping)) {
     out.push(
-      `Numerical LLG needs Gilbert damping α between ${aLo} and ${aHi}; this set has α = ${fmt(params.gilbertDamping)}. Use the analytic method.`,
+      `Numerical LLG needs Gilbert damping α between ${aLo} and ${aHi}; ` +
+        `this set has α = ${fmt(params.gilbertDamping)}. Use the analytic method.`,
     );
   }
   const [wLo, wHi] = NUMERICAL_RANGE.wavelengthNm;
@@ -121,7 +122,9 @@ export function parseFieldAxis(drafts: FieldAxisDrafts, method: MapMethod): { fr
     const [lo, hi] = NUMERICAL_RANGE.absFieldT;
     if (from < lo || to > hi)
       return {
-        error: `Numerical LLG is specified for |B0| from ${lo} to ${hi} T; set the field axis within ${lo}–${hi} T or use the analytic method.`,
+        error:
+          `Numerical LLG is specified for |B0| from ${lo} to ${hi} T; ` +
+          `set the field axis within ${lo}–${hi} T or use the analytic method.`,
       };
   }
   return { fromT: from, toT: to };
@@ -143,7 +146,9 @@ export function planMap(
     if (!ys) {
       problems.push({
         control: "method",
-        message: `Numerical LLG covers 1–400 K, but this set's Curie–Weiss temperature (${fmt(params.curieWeissK)} K) leaves no temperatures there. Use the analytic method.`,
+        message:
+          `Numerical LLG covers 1–400 K, but this set's Curie–Weiss temperature (${fmt(params.curieWeissK)} K) ` +
+          "leaves no temperatures there. Use the analytic method.",
       });
     }
   } else {
@@ -363,13 +368,19 @@ export function axisIndependence(
   if (change.relative <= CONSTANT_REL_TOL) {
     return {
       independent: true,
-      reason: `The ${what} does not depend on ${axis} here: every wavelength column is constant to 1e-9.${measured} Shown against wavelength only.`,
+      reason:
+        `The ${what} does not depend on ${axis} here: every wavelength column is constant to 1e-9.` +
+        `${measured} Shown against wavelength only.`,
     };
   }
   if (q === "share" && !diamagneticTerm) {
     return {
       independent: true,
-      reason: `In this model the magnetic share does not depend on ${axis}: without the diamagnetic term both parts scale with the static magnetization M0 (physics-model §6.4), so only wavelength separates them (to first order in the gyration and χ).${measured} Shown against wavelength only; switch on the diamagnetic term for a part that does not follow M0.`,
+      reason:
+        `In this model the magnetic share does not depend on ${axis}: ` +
+        "without the diamagnetic term both parts scale with the static magnetization M0 (physics-model §6.4), " +
+        "so only wavelength separates them (to first order in the gyration and χ)." +
+        `${measured} Shown against wavelength only; switch on the diamagnetic term for a part that does not follow M0.`,
     };
   }
   return { independent: false, reason: null };

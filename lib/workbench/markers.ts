@@ -25,7 +25,9 @@ export function checkMarkerNm(nm: number, existingNm: readonly number[], maxMark
   if (!Number.isFinite(nm) || nm < MARKER_MIN_NM || nm > MARKER_MAX_NM) {
     return {
       nm: null,
-      error: `A marker must lie between ${MARKER_MIN_NM} and ${MARKER_MAX_NM} nm; ${Number.isFinite(nm) ? `${nm} nm` : "that value"} is outside.`,
+      error:
+        `A marker must lie between ${MARKER_MIN_NM} and ${MARKER_MAX_NM} nm; ` +
+        `${Number.isFinite(nm) ? `${nm} nm` : "that value"} is outside.`,
     };
   }
   if (existingNm.includes(nm)) return { nm: null, error: `There is already a marker at ${nm} nm.` };

@@ -48,5 +48,8 @@ export function staleReasons(was: TraceInputs, now: TraceInputs | null): string[
 export function staleText(what: string, was: TraceInputs, now: TraceInputs | null): string | null {
   const reasons = staleReasons(was, now);
   if (reasons.length === 0) return null;
-  return `Stale: this ${what} was computed at ${num(was.wavelengthNm)} nm with earlier inputs (changed since: ${reasons.join("; ")}). Run it again to update.`;
+  return (
+    `Stale: this ${what} was computed at ${num(was.wavelengthNm)} nm ` +
+    `with earlier inputs (changed since: ${reasons.join("; ")}). Run it again to update.`
+  );
 }

@@ -263,11 +263,13 @@ describe("fuzzing the mutating routes", () => {
     const serverErrors = results.filter((result) => result.status >= 500 || result.status === 0);
     const accepted = results.filter((result) => result.status >= 200 && result.status < 300);
     console.log(
-      `[fuzz] seed ${SEED}: ${results.length} cases on ${routes.length + 1} routes, ${serverErrors.length} answers of 5xx, ${accepted.length} accepted`,
+      `[fuzz] seed ${SEED}: ${results.length} cases on ${routes.length + 1} routes, ` +
+        `${serverErrors.length} answers of 5xx, ${accepted.length} accepted`,
     );
     for (const failure of [...serverErrors, ...accepted].slice(0, 10)) {
       console.log(
-        `[fuzz] ${failure.status} ${failure.route}: ${failure.request.method} ${failure.request.path} ${String(failure.request.body).slice(0, 200)}`,
+        `[fuzz] ${failure.status} ${failure.route}: ` +
+          `${failure.request.method} ${failure.request.path} ${String(failure.request.body).slice(0, 200)}`,
       );
     }
     expect(serverErrors).toEqual([]);

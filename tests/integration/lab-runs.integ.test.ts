@@ -224,7 +224,8 @@ describe("lab runs on the job queue", () => {
     const done = await finished(editor, run.id);
     const doneMs = Date.now() - killedAt;
     console.log(
-      `[lab runs] SIGKILL → retry started on another worker after ${(retryStartMs / 1000).toFixed(1)} s, run done after ${(doneMs / 1000).toFixed(1)} s`,
+      `[lab runs] SIGKILL → retry started on another worker after ${(retryStartMs / 1000).toFixed(1)} s, ` +
+        `run done after ${(doneMs / 1000).toFixed(1)} s`,
     );
     expect(retried.attempt).toBe(2);
     expect(done.state, done.error ?? "").toBe("done");

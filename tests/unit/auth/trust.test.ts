@@ -73,7 +73,8 @@ describe("paging cursors", () => {
 describe("caught mail", () => {
   it("decodes quoted-printable bodies and encoded subjects (RFC 2045 §6.7, RFC 2047)", () => {
     const raw =
-      "Subject: =?UTF-8?Q?Einladung_=E2=80=93_=C3=BC?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\nhttp://x/invite/abc=\r\ndef =C3=BC\r\n";
+      "Subject: =?UTF-8?Q?Einladung_=E2=80=93_=C3=BC?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\n" +
+      "http://x/invite/abc=\r\ndef =C3=BC\r\n";
     const parsed = parseMessage(raw);
     expect(parsed.subject).toBe("Einladung – ü");
     expect(parsed.text).toBe("http://x/invite/abcdef ü\n");

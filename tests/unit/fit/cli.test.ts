@@ -33,7 +33,9 @@ const conds = [
   ...evenly(500, 1500, 8).map((w) => verdetAt(w, { temperatureK: 150, fieldT: 2 })),
 ];
 const points = syntheticPoints(truth, conds, 0.5, seededGaussian(21));
-const csv = `# generated for a test\nwavelength_nm,verdet_rad_per_T_m,sigma,temperature_K,field_T\n${points.map((p) => `${p.wavelengthNm},${p.value},${p.sigma},${p.temperatureK},${p.fieldT}`).join("\n")}\n`;
+const csv =
+  "# generated for a test\nwavelength_nm,verdet_rad_per_T_m,sigma,temperature_K,field_T\n" +
+  `${points.map((p) => `${p.wavelengthNm},${p.value},${p.sigma},${p.temperatureK},${p.fieldT}`).join("\n")}\n`;
 const paramsFile = file("p.json", JSON.stringify(params));
 const dataFile = file("d.csv", csv);
 

@@ -98,30 +98,34 @@ describe("absorption from Im n±", () => {
 });
 
 describe("ellipticity of the transmitted light", () => {
-  it("atan(tanh η) is the axis-ratio angle of the ellipse that (1, 0) becomes (Jones vector; polarization ellipse of Born & Wolf ch. 1)", () => {
-    // Output of the slab for input (1, 0): E = ½ (a + b, −i(a − b)), a = e^{η′}, b = e^{−η′} with only
-    // the amplitudes differing (phases removed: they only turn the ellipse). For E = (Ex, Ey) the
-    // semi-axes satisfy a₁² + a₂² = |Ex|² + |Ey|² and a₁ a₂ = |Im(Ex* Ey)| (Born & Wolf, ch. 1, the
-    // polarization ellipse; section from memory), so
-    // tan χ = a₂/a₁ is the smaller root ratio.
-    for (const eta of [1e-6, 0.05, 0.3, 1, 2.5, 10, -0.7]) {
-      const a = Math.exp(-eta);
-      const b = Math.exp(eta);
-      const ex = c((a + b) / 2);
-      const ey = c(0, -(a - b) / 2);
-      const s0 = ex.re ** 2 + ex.im ** 2 + ey.re ** 2 + ey.im ** 2;
-      const cross = Math.abs(ex.re * ey.im - ex.im * ey.re);
-      // a₁ a₂ = cross, a₁² + a₂² = s0 → (a₂/a₁) solves r/(1 + r²) = cross/s0.
-      const q = cross / s0;
-      // Smaller root of q r² − r + q = 0, in the form that does not cancel for small q.
-      const ratio = (2 * q) / (1 + Math.sqrt(Math.max(0, 1 - 4 * q * q)));
-      const chi = Math.atan(ratio);
-      // Near circular light (q → ½) the square root amplifies round-off to about √1e-16.
-      expect(Math.abs(Math.abs(ellipticityAngleRad(eta)) - chi)).toBeLessThan(1e-7);
-      expect(Math.sign(ellipticityAngleRad(eta))).toBe(Math.sign(eta));
-      expect(Math.abs(ellipticityAngleRad(eta))).toBeLessThanOrEqual(Math.PI / 4);
-    }
-  });
+  it(
+    "atan(tanh η) is the axis-ratio angle of the ellipse that (1, 0) becomes " +
+      "(Jones vector; polarization ellipse of Born & Wolf ch. 1)",
+    () => {
+      // Output of the slab for input (1, 0): E = ½ (a + b, −i(a − b)), a = e^{η′}, b = e^{−η′} with only
+      // the amplitudes differing (phases removed: they only turn the ellipse). For E = (Ex, Ey) the
+      // semi-axes satisfy a₁² + a₂² = |Ex|² + |Ey|² and a₁ a₂ = |Im(Ex* Ey)| (Born & Wolf, ch. 1, the
+      // polarization ellipse; section from memory), so
+      // tan χ = a₂/a₁ is the smaller root ratio.
+      for (const eta of [1e-6, 0.05, 0.3, 1, 2.5, 10, -0.7]) {
+        const a = Math.exp(-eta);
+        const b = Math.exp(eta);
+        const ex = c((a + b) / 2);
+        const ey = c(0, -(a - b) / 2);
+        const s0 = ex.re ** 2 + ex.im ** 2 + ey.re ** 2 + ey.im ** 2;
+        const cross = Math.abs(ex.re * ey.im - ex.im * ey.re);
+        // a₁ a₂ = cross, a₁² + a₂² = s0 → (a₂/a₁) solves r/(1 + r²) = cross/s0.
+        const q = cross / s0;
+        // Smaller root of q r² − r + q = 0, in the form that does not cancel for small q.
+        const ratio = (2 * q) / (1 + Math.sqrt(Math.max(0, 1 - 4 * q * q)));
+        const chi = Math.atan(ratio);
+        // Near circular light (q → ½) the square root amplifies round-off to about √1e-16.
+        expect(Math.abs(Math.abs(ellipticityAngleRad(eta)) - chi)).toBeLessThan(1e-7);
+        expect(Math.sign(ellipticityAngleRad(eta))).toBe(Math.sign(eta));
+        expect(Math.abs(ellipticityAngleRad(eta))).toBeLessThanOrEqual(Math.PI / 4);
+      }
+    },
+  );
 
   it("the engine's angle stays within π/4 where η is large, and equals η to 1e-4 relative where it is small", () => {
     const r = computeSpectrum(req({ lengthM: 0.01 }, [256, 300, 632.8, 1064]));

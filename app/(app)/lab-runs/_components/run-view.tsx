@@ -76,7 +76,9 @@ export function RunView({ id }: { id: string }) {
 }
 
 function RunResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRunResultBody; setLabel: string }) {
-  const computed = `Computed by ${result.workerId} in ${(result.computeMs / 1000).toFixed(1)} s${result.attempt > 1 ? ` (attempt ${result.attempt})` : ""}.`;
+  const computed =
+    `Computed by ${result.workerId} in ${(result.computeMs / 1000).toFixed(1)} s` +
+    `${result.attempt > 1 ? ` (attempt ${result.attempt})` : ""}.`;
   const warnings = (result.meta.warnings as string[] | undefined) ?? [];
   return (
     <div className="space-y-4">
@@ -118,7 +120,10 @@ function MapResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRu
   return (
     <figure ref={wrapRef} className="space-y-2" data-testid="run-map">
       <HeatMap
-        title={`Magnetic share over wavelength × ${field ? "|field|" : "temperature"} (${payload.method === "llg" ? "numerical LLG" : "analytic"})`}
+        title={
+          `Magnetic share over wavelength × ${field ? "|field|" : "temperature"} ` +
+          `(${payload.method === "llg" ? "numerical LLG" : "analytic"})`
+        }
         xs={xs}
         ys={ys}
         xType={payload.wavelengths.spacing === "log" ? "log" : "linear"}

@@ -21,7 +21,10 @@ export function RunsList() {
     <div>
       <PageHeader
         title="Lab runs"
-        lead="Long computations (numerical maps, long spectra) computed by the lab's worker machines and kept for everyone in the lab. Submit one from a parameter set's workbench (“Run on the lab’s machines”)."
+        lead={
+          "Long computations (numerical maps, long spectra) computed by the lab's worker machines and kept for everyone in the lab. " +
+          "Submit one from a parameter set's workbench (“Run on the lab’s machines”)."
+        }
         actions={
           <label className="flex items-center gap-2 text-sm">
             Lab

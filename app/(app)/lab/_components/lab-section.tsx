@@ -171,7 +171,8 @@ export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUse
         }}
       >
         {roleChange
-          ? `From ${ROLE_LABEL[roleChange.member.role].toLowerCase()} (${ROLE_MEANING[roleChange.member.role]}) to ${ROLE_LABEL[roleChange.role].toLowerCase()} (${ROLE_MEANING[roleChange.role]}). It takes effect at once.`
+          ? `From ${ROLE_LABEL[roleChange.member.role].toLowerCase()} (${ROLE_MEANING[roleChange.member.role]}) ` +
+            `to ${ROLE_LABEL[roleChange.role].toLowerCase()} (${ROLE_MEANING[roleChange.role]}). It takes effect at once.`
           : null}
       </ConfirmDialog>
     </section>

@@ -50,7 +50,10 @@ export function MeasurementsBrowser() {
     <>
       <PageHeader
         title="Measurements"
-        lead="Measured rotation and Verdet spectra of your labs. Each set keeps its original file; the workbench can lay the points over a prediction."
+        lead={
+          "Measured rotation and Verdet spectra of your labs. " +
+          "Each set keeps its original file; the workbench can lay the points over a prediction."
+        }
         actions={
           editorLabs.length > 0 && !uploading ? (
             <Button

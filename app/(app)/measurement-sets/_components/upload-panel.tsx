@@ -166,7 +166,10 @@ function FileDropZone({ inputId, summary, onFile }: { inputId: string; summary: 
       }}
       onDragLeave={() => setDragging(false)}
       onDrop={onDrop}
-      className={`block cursor-pointer rounded-lg border-2 border-dashed px-4 py-6 text-center text-sm ${dragging ? "border-lux bg-lux-light/50" : "border-ink/25"}`}
+      className={
+        "block cursor-pointer rounded-lg border-2 border-dashed px-4 py-6 " +
+        `text-center text-sm ${dragging ? "border-lux bg-lux-light/50" : "border-ink/25"}`
+      }
     >
       <span className="font-medium">Drop a file here, or choose one</span>
       <span className="mt-1 block text-ink-soft">{summary}</span>

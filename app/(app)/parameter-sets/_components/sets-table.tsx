@@ -54,7 +54,11 @@ export function SetsTable({ items, sortKey, sortDir, onSort, activeTag, onTag }:
                         onClick={() => onTag(tag)}
                         aria-pressed={tag === activeTag}
                         aria-label={tag === activeTag ? `Tag ${tag}, filtering; remove filter` : `Show only sets tagged ${tag}`}
-                        className={`rounded-full border px-2 py-0.5 text-xs ${tag === activeTag ? "border-lux bg-lux text-white" : "border-lux/40 bg-lux-light/50 text-lux-dark hover:border-lux"}`}
+                        className={`rounded-full border px-2 py-0.5 text-xs ${
+                          tag === activeTag
+                            ? "border-lux bg-lux text-white"
+                            : "border-lux/40 bg-lux-light/50 text-lux-dark hover:border-lux"
+                        }`}
                       >
                         {tag}
                       </button>

@@ -30,7 +30,10 @@ export function PlannerScreen({ setId }: { setId: string | null }) {
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <PageHeader
         title="Planner"
-        lead="Which lines, temperatures and fields tell the electric-dipole and magnetic-dipole parts apart, and how well; and how long a rotator must be."
+        lead={
+          "Which lines, temperatures and fields tell the electric-dipole and magnetic-dipole parts apart, " +
+          "and how well; and how long a rotator must be."
+        }
       />
       <label className="grid max-w-xl gap-1 text-sm" htmlFor={`${id}-set`}>
         Parameter set

@@ -30,7 +30,8 @@ export function SetHeader({ item, current }: { item: ParameterSet; current: "det
         title={current === "history" ? `History of ${item.name}` : item.name}
         lead={
           <>
-            {item.labName} · <span className="tabular-nums">version {item.version}</span> · updated <DateTime iso={item.updatedAt} /> by{" "}
+            {item.labName} · <span className="tabular-nums">version {item.version}</span> · updated <DateTime iso={item.updatedAt} />
+            {" by "}
             {item.updatedBy.name}
             <span className="block text-sm">{ROLE_TEXT[item.role]}.</span>
           </>
