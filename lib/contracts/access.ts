@@ -4,8 +4,8 @@ import type { LabRole, SiteRole } from "./roles";
  * Who is asking, and the proof that they may. lib/auth alone resolves a resource to its lab,
  * checks the caller's role there and hands back a LabAccess; every query of a lab's data takes
  * that proof instead of a bare lab id, so a forgotten check does not compile. The brand is a
- * type-only symbol: nothing outside lib/auth can build a LabAccess without a cast, and the linter
- * forbids that cast elsewhere.
+ * type-only symbol: nothing outside lib/auth can build a LabAccess without a cast, and a unit test
+ * (tests/unit/auth/access-proof.test.ts) fails on such a cast anywhere else.
  */
 
 /** Who is making a request, as the queries need it (session or API token alike). */

@@ -31,9 +31,10 @@ describe("lab runs", () => {
     await panel.getByLabel("Rows", { exact: true }).fill("999");
     await expect.poll(() => panel.getByText("must be ≤ 256").count()).toBeGreaterThan(0);
     expect(await panel.getByRole("button", { name: "Submit to the lab’s machines" }).isDisabled()).toBe(true);
-    // 160 × 256 numerical cells take a worker a few seconds: long enough that the list sees the
-    // run while it is running (a 160 × 64 map was sometimes done before /runs had loaded).
-    await panel.getByLabel("Rows", { exact: true }).fill("256");
+    // 160 × 128 numerical cells keep a worker busy for a second or two (about 14,000 cells/s on
+    // two threads here): long enough that the list sees the run while it is running (a 160 × 64
+    // map was sometimes done before the list had loaded).
+    await panel.getByLabel("Rows", { exact: true }).fill("128");
     await panel.getByRole("button", { name: "Submit to the lab’s machines" }).click();
     await panel.getByRole("status").getByText("Submitted:").waitFor({ timeout: 30_000 });
 
@@ -47,15 +48,16 @@ describe("lab runs", () => {
     await row.getByText("Done").waitFor({ timeout: TIMEOUT });
 
     await row.getByRole("link").click();
-    await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/);
+    // The link is a client-side navigation; the map below is what says the page is ready.
+    await page.waitForURL(/\/lab-runs\/[0-9a-f-]{36}$/, { waitUntil: "commit" });
     const map = page.getByTestId("run-map");
     await map.waitFor({ timeout: 60_000 });
-    expect(await map.textContent()).toContain("160 × 256 cells");
+    expect(await map.textContent()).toContain("160 × 128 cells");
     const download = page.waitForEvent("download");
     await page.getByRole("button", { name: "Export map CSV" }).click();
     const file = await (await download).path();
     const lines = readFileSync(file!, "utf8").trim().split("\n");
-    expect(lines.filter((l) => !l.startsWith("#"))).toHaveLength(1 + 160 * 256);
+    expect(lines.filter((l) => !l.startsWith("#"))).toHaveLength(1 + 160 * 128);
     await page.screenshot({ path: outputPath("lab-runs-result.png"), fullPage: true });
   });
 });

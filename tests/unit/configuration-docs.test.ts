@@ -84,7 +84,7 @@ describe("configuration documentation", () => {
   });
 
   it.each(variables)("documents %s in the README's configuration table", (name) => {
-    // The name alone in the first cell; the formatter pads the cells to the column's width.
+    // The name alone in the first cell (a padded table, one space or more, reads the same).
     expect(readme).toMatch(new RegExp(`^\\| \`${name}\` +\\|`, "m"));
   });
 
