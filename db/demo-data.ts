@@ -22,6 +22,8 @@ export const OTHER_LAB = {
 
 /** The demo lab's terbium gallium garnet set, the one tests and links open. */
 export const DEMO_GARNET_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c001";
+/** The demo lab's borate glass set (the generated glass measurements are drawn from it). */
+export const DEMO_GLASS_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c002";
 /** The other lab's set, which members of the demo lab must not see. */
 export const OTHER_LAB_SET_ID = "6a1f0c2e-5b1d-4c1e-9f00-00000000c005";
 
@@ -177,7 +179,7 @@ export const DEMO_SETS: DemoSet[] = [
     ],
   },
   {
-    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000c002",
+    id: DEMO_GLASS_SET_ID,
     labId: DEMO_LAB.id,
     versions: [
       {

@@ -3,7 +3,7 @@ import path from "node:path";
 import { evaluateModel, type ModelCondition } from "@/lib/fit/model";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import { HC_EV_NM } from "@/lib/workbench/units";
-import { DEMO_SETS } from "@/db/demo-data";
+import { DEMO_GLASS_SET_ID, DEMO_SETS } from "@/db/demo-data";
 import type { ModelParams } from "@/lib/physics/schema";
 import { gaussianFrom, seededRandom } from "@/lib/random";
 
@@ -47,8 +47,7 @@ function garnetFile(): string {
 }
 
 // The borate glass as the demo lab last saved it.
-const BORATE_GLASS_SET = "6a1f0c2e-5b1d-4c1e-9f00-00000000c002";
-const glassParams = DEMO_SETS.find((set) => set.id === BORATE_GLASS_SET)?.versions.at(-1)?.params;
+const glassParams = DEMO_SETS.find((set) => set.id === DEMO_GLASS_SET_ID)?.versions.at(-1)?.params;
 if (!glassParams) throw new Error("demo borate glass set not found");
 
 function glassFile(): string {

@@ -384,7 +384,7 @@ async function requireSameLabMeasurements(db: Executor, options: { access: SetAc
 
 /**
  * Saves fitted values as a new version with the fit's provenance. The fit started from
- * `input.version`; a newer current version answers 409 like an edit. The merged parameters are
+ * `input.version`; a newer current version is refused (stale_version) like an edit. The merged parameters are
  * validated with the one model schema, so a fit can never store an invalid set.
  */
 export async function saveFitAsVersion(db: Executor, options: { access: SetAccess; input: SaveFitInput }): Promise<ParameterSet> {

@@ -5,7 +5,7 @@ import { DomainError, validationError } from "@/lib/contracts/errors";
 import { domainErrorResponse } from "./errors";
 
 /*
- * Wraps every API route handler: turns thrown ApiErrors into the contract's JSON, a lost database
+ * Wraps every API route handler: turns thrown DomainErrors into the contract's JSON, a lost database
  * into 503 db_unavailable, and anything else into a logged 500 whose body says nothing about the
  * cause (database errors carry SQL and values).
  */

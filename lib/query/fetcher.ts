@@ -34,7 +34,7 @@ function isRecordOfStrings(value: unknown): value is Record<string, string> {
   return typeof value === "object" && value !== null && Object.values(value).every((v) => typeof v === "string");
 }
 
-function toApiError(status: number, body: unknown): RequestError {
+function toRequestError(status: number, body: unknown): RequestError {
   const error = (body as ErrorBody | null)?.error;
   const code = typeof error?.code === "string" ? error.code : status >= 500 ? "internal" : "http_error";
   const message =
@@ -72,7 +72,7 @@ export async function apiFetch<T>(path: string, init: ApiFetchInit = {}): Promis
       body = text;
     }
   }
-  if (!response.ok) throw toApiError(response.status, body);
+  if (!response.ok) throw toRequestError(response.status, body);
   return body as T;
 }
 
