@@ -37,7 +37,7 @@ export function DiffTable({
         </label>
       </div>
       {shown.length > 0 ? (
-        <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+        <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
           <table className="w-full text-sm">
             <caption className="sr-only">{caption}</caption>
             <thead className="border-b border-ink/10 bg-paper-sunk/70">

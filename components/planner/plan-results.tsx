@@ -208,7 +208,7 @@ function PlanCard({
           <span className="text-sm text-ink-soft">correlation between the parts {fmt(plan.partsCorrelation, 3)}</span>
         ) : null}
       </label>
-      <div className="mt-2 overflow-x-auto">
+      <div className="relative mt-2 overflow-x-auto">
         <table className="w-full min-w-[32rem] text-sm">
           <caption className="sr-only">Points of plan {plan.rank}</caption>
           <thead className="text-left text-ink-soft">

@@ -171,7 +171,7 @@ function AbsorptionPanelImpl({
             )}
 
             {markerRows.length > 0 ? (
-              <div className="overflow-x-auto">
+              <div className="relative overflow-x-auto">
                 <table className="w-full min-w-[36rem] text-sm tabular-nums">
                   <caption className="text-left font-semibold">Absorption at the markers</caption>
                   <thead className="text-left text-xs text-ink-soft">

@@ -320,7 +320,7 @@ function CompareResults({
             axes={{ x: { type: xScale, label: X_AXIS_TITLE[xUnit] }, y: { label: compareAxisTitle(quantity, yMode) } }}
           />
           <PlotExportButtons svgRef={svg} fileBase={`${fileBase}-compare`} plotName="comparison plot" />
-          <div className="overflow-x-auto">
+          <div className="relative overflow-x-auto">
             <table className="w-full text-sm tabular-nums">
               <caption className="pb-1 text-left font-semibold">Differences at markers (against “{base?.entry.label}”)</caption>
               <thead className="text-left text-xs text-ink-soft">

@@ -166,7 +166,7 @@ export const FitPanel = memo(function FitPanel({
 
       <fieldset className="space-y-2">
         <legend className="text-sm font-semibold">Free parameters and bounds</legend>
-        <div className="overflow-x-auto">
+        <div className="relative overflow-x-auto">
           <table className="w-full min-w-[22rem] text-sm">
             <thead>
               <tr className="text-left text-xs text-ink-soft">

@@ -78,7 +78,7 @@ export function FitReport({
         </Alert>
       ) : null}
 
-      <div className="overflow-x-auto">
+      <div className="relative overflow-x-auto">
         <table className="w-full min-w-[24rem] text-sm" aria-label="Fitted values">
           <caption className="pb-1 text-left text-xs text-ink-soft">
             Reported σ:{" "}
@@ -131,7 +131,7 @@ export function FitReport({
 
 function CorrelationTable({ result }: { result: FitResult }) {
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <table className="text-sm" aria-label="Correlation matrix">
         <caption className="pb-1 text-left text-xs text-ink-soft">
           Correlation of the fitted values (|r| near 1: the data trade one for the other)

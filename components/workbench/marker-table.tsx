@@ -58,7 +58,7 @@ function MarkerTableImpl({
 
   return (
     <section aria-label="Markers" className="space-y-3">
-      <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+      <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
         <table className="w-full text-sm tabular-nums">
           <caption className="px-3 pt-3 pb-1 text-left font-semibold">
             Values at markers

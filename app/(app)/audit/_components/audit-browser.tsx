@@ -108,7 +108,7 @@ export function AuditBrowser() {
       ) : audit.items.length === 0 ? (
         <p className="rounded-lg border border-dashed border-ink/20 px-5 py-6 text-sm">Nothing recorded matches these filters.</p>
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+        <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
           <table className="w-full text-sm">
             <caption className="sr-only">Audit trail</caption>
             <thead className="border-b border-ink/10 bg-paper-sunk/70">

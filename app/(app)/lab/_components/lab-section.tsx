@@ -45,7 +45,7 @@ export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUse
         ) : members.isError ? (
           <ErrorPanel error={members.error} retry={() => void members.refetch()} />
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+          <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
             <table className="w-full text-sm">
               <caption className="sr-only">Members of {lab.name}</caption>
               <thead className="border-b border-ink/10 bg-paper-sunk/70">

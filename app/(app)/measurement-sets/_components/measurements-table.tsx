@@ -18,7 +18,7 @@ interface TableProps {
 export function MeasurementsTable({ items, sortKey, sortDir, onSort, onDelete }: TableProps) {
   const headerProps = { sortKey, sortDir, onSort };
   return (
-    <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+    <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
       <table className="w-full text-sm">
         <caption className="sr-only">Measurement sets. Column headers with buttons sort the table.</caption>
         <thead className="border-b border-ink/10 bg-paper-sunk/70 text-ink">

@@ -5,7 +5,7 @@ const PREVIEW_ROWS = 8;
 /** The first rows of the chosen file as read, with their line numbers, so a wrong mapping shows at a glance. */
 export function UploadPreviewTable({ table }: { table: Table }) {
   return (
-    <div className="overflow-x-auto rounded-md border border-ink/10">
+    <div className="relative overflow-x-auto rounded-md border border-ink/10">
       <table className="w-full text-xs tabular-nums">
         <caption className="px-2 py-1 text-left text-xs text-ink-soft">
           Preview: the first {Math.min(PREVIEW_ROWS, table.rows.length)} of {table.rows.length} data rows (header on line {table.headerLine}

@@ -18,7 +18,7 @@ interface SetsTableProps {
 export function SetsTable({ items, sortKey, sortDir, onSort, activeTag, onTag }: SetsTableProps) {
   const headerProps = { sortKey, sortDir, onSort };
   return (
-    <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+    <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
       <table className="w-full text-sm">
         <caption className="sr-only">Parameter sets. Column headers with buttons sort the table.</caption>
         <thead className="border-b border-ink/10 bg-paper-sunk/70 text-ink">

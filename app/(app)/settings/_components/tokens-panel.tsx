@@ -37,7 +37,7 @@ export function TokensPanel() {
         ) : tokens.items.length === 0 ? (
           <p className="text-sm text-ink-soft">You have no API tokens.</p>
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
+          <div className="relative overflow-x-auto rounded-lg border border-ink/10 bg-paper-raised">
             <table className="w-full text-sm">
               <caption className="sr-only">Your API tokens</caption>
               <thead className="border-b border-ink/10 bg-paper-sunk/70">
