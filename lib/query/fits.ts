@@ -1,7 +1,7 @@
 "use client";
 
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import type { SaveFitInput } from "@/lib/fit/provenance";
+import type { SaveFitInput } from "@/lib/contracts/fits";
 import { apiFetch } from "./fetcher";
 import { parameterSetKeys } from "./parameter-sets";
 import type { ItemResponse } from "@/lib/contracts/common";

@@ -3,7 +3,7 @@ import { saveFitAsVersion } from "@/db/queries/parameter-sets";
 import { readJson } from "@/lib/api/body";
 import { apiRoute, json } from "@/lib/api/route";
 import { authorize, requireCaller } from "@/lib/auth/access";
-import { saveFitSchema } from "@/lib/fit/provenance";
+import { saveFitSchema } from "@/lib/contracts/fits";
 
 /**
  * POST /api/parameter-sets/{id}/fits { version, values, fit } (editor) → 201 { item }: the fitted
