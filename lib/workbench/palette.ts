@@ -5,7 +5,7 @@
  * matters most in the infrared, so it is a deep red. The total is the page's ink; the cross term
  * is gold and the ellipticity a grey-teal. Violet and red differ in lightness and on the blue–yellow
  * axis, which every common colour-vision deficiency keeps, so they stay apart for colour-blind
- * readers (checked in tests/unit/workbench-palette.test.ts with the Machado 2009 simulation); every
+ * readers (checked in tests/unit/workbench/palette.test.ts with the Machado 2009 simulation); every
  * series also has its own dash pattern and width, so a grey print still separates them.
  */
 

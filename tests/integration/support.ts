@@ -36,7 +36,7 @@ export function uniqueEmail(prefix: string): string {
 
 /**
  * A parsed response body as the tests read it. Each test states the shape it relies on with
- * `expect`, which is what it tests; a declared type per endpoint would restate lib/api/dto.ts
+ * `expect`, which is what it tests; a declared type per endpoint would restate lib/contracts
  * without checking it against the server.
  */
 // biome-ignore lint/suspicious/noExplicitAny: the one loosely read type of this HTTP client (see above).

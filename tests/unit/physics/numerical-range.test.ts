@@ -10,7 +10,7 @@ import { checkedSpectrumRequest } from "@/lib/workbench/validate";
  * The numerical method's range (physics-model.md §2: 200 nm to 20 µm, |B0| 0.01 to 10 T, T 1 to
  * 400 K, α 1e-4 to 0.5) on every path that runs it: the spectrum job (which the browser pool, the
  * worker and the command line all go through; the command line itself is checked in
- * tests/physics/cli.test.ts), the lab-run payloads of the API, and the workbench panels' requests.
+ * tests/unit/physics/cli.test.ts), the lab-run payloads of the API, and the workbench panels' requests.
  * The analytic method is never limited by it.
  */
 
