@@ -5,24 +5,13 @@
  *
  *   npx tsx scripts/readme-screenshot.ts [base URL, default http://localhost:3000]
  */
-import { chromium } from "playwright-core";
 import path from "node:path";
+import { launchChromium } from "./chromium";
 
 const baseURL = process.argv[2] ?? "http://localhost:3000";
 const out = path.resolve("public/screenshots/workbench.png");
 
-const browser = await chromium.launch({
-  executablePath: "/usr/bin/chromium",
-  args: [
-    "--no-sandbox",
-    "--disable-gpu",
-    "--disable-quic",
-    "--no-first-run",
-    "--disable-background-networking",
-    "--disable-component-update",
-    "--disable-sync",
-  ],
-});
+const browser = await launchChromium();
 try {
   const context = await browser.newContext({ baseURL, viewport: { width: 1440, height: 900 } });
   const page = await context.newPage();

@@ -1,6 +1,6 @@
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { type Browser, type BrowserContextOptions, chromium, type Page } from "playwright-core";
+import type { BrowserContextOptions, Page } from "playwright-core";
 import { DEMO_PASSWORD } from "@/db/demo-data";
 
 /*
@@ -17,29 +17,12 @@ export const OUTPUT_DIR = path.resolve(process.env.GYROLUX_TEST_OUTPUT ?? "test-
 /** The demo accounts' stored sessions (Playwright storage state) of this run. */
 export const SESSION_DIR = path.join(OUTPUT_DIR, "sessions");
 
-const CHROMIUM_PATH = process.env.GYROLUX_CHROMIUM ?? "/usr/bin/chromium";
-
-// Flags that keep Debian's Chromium quiet on a machine without outside network (stack notes).
-const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-];
-
 /** A desktop window against the server under test. */
 export const CONTEXT_DEFAULTS: BrowserContextOptions = {
   baseURL: BASE_URL,
   viewport: { width: 1440, height: 900 },
   acceptDownloads: true,
 };
-
-export async function launchBrowser(): Promise<Browser> {
-  return chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS, headless: true });
-}
 
 /** Signs in through the real sign-in form and waits for the signed-in shell. */
 export async function signInThroughForm(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {

@@ -3,7 +3,8 @@ import path from "node:path";
 import type { Browser, BrowserContextOptions, Page } from "playwright-core";
 import { afterAll, beforeAll } from "vitest";
 import { DEMO, type DemoAccount } from "../demo-accounts";
-import { CONTEXT_DEFAULTS, launchBrowser, SESSION_DIR, signInThroughForm } from "./browser";
+import { CONTEXT_DEFAULTS, SESSION_DIR, signInThroughForm } from "./browser";
+import { launchChromium } from "@/scripts/chromium";
 
 export { BASE_URL, outputPath } from "./browser";
 
@@ -28,7 +29,7 @@ export interface BrowserFixture {
 export function useBrowser(): BrowserFixture {
   let browser: Browser | undefined;
   beforeAll(async () => {
-    browser = await launchBrowser();
+    browser = await launchChromium();
   });
   afterAll(async () => {
     await browser?.close();
