@@ -1,5 +1,4 @@
-import type { z } from "zod";
-import { DomainError, type ErrorCode, validationError } from "@/lib/contracts/errors";
+import type { DomainError, ErrorCode } from "@/lib/contracts/errors";
 
 /*
  * The route layer's half of the error model: the HTTP status of each error code, and the
@@ -31,10 +30,3 @@ export function domainErrorResponse(error: DomainError): Response {
   const headers = error.retryAfterS !== undefined ? { "Retry-After": String(error.retryAfterS) } : undefined;
   return Response.json(error.body(), { status: errorStatus(error), headers });
 }
-
-/** A zod failure answered as the contract's 400. */
-export function validationResponse(error: z.ZodError): Response {
-  return domainErrorResponse(validationError(error));
-}
-
-export { DomainError };

@@ -64,7 +64,6 @@ export class DomainError extends Error {
 export const notFound = (message = "Not found.") => new DomainError("not_found", message);
 export const forbidden = (message = "Your role in this lab does not allow that.") => new DomainError("forbidden", message);
 export const unauthenticated = () => new DomainError("unauthenticated", "Sign in first (or send a valid API token).");
-export const conflict = (message: string, options?: DomainErrorOptions) => new DomainError("conflict", message, options);
 
 /** A zod failure as the contract's validation error, one message per field. */
 export function validationError(error: z.ZodError): DomainError {
