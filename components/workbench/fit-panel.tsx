@@ -6,7 +6,7 @@ import { memo, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { INPUT_CLASS } from "@/components/ui/text-field";
-import { DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeParam, type FreeableKey } from "@/lib/fit/schema";
+import { DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeParam, type FreeableKey } from "@/lib/analysis/definition";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import { PARAM_META } from "@/lib/model/param-meta";
 import type { ModelParams } from "@/lib/physics/schema";

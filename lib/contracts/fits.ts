@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { FREEABLE_KEYS, type FreeableKey, freeParamSchema } from "@/lib/fit/schema";
+import { FREEABLE_KEYS, type FreeableKey, freeParamSchema } from "@/lib/analysis/definition";
 import { finiteNumber, safeString } from "./validation";
 
 /*

@@ -3,7 +3,7 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import { type ColumnMapping, DEFAULT_COLUMNS, parseMeasurementTable, readTable } from "@/lib/measurements/parse";
 import { type ModelParams, conditionsShape, formatIssues, materialShape, modelParamsSchema } from "@/lib/physics/schema";
 import { FitError, type FitResult, fitMeasurements } from "./fit";
-import { FREEABLE_KEYS, type FreeParam, type FreeableKey, DEFAULT_FREE_KEYS } from "./schema";
+import { DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeParam, type FreeableKey } from "@/lib/analysis/definition";
 
 /*
  * The inputs of the fit's command line, pure so they can be tested without a process:

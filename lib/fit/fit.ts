@@ -3,7 +3,8 @@ import type { MeasuredQuantity } from "@/lib/measurements/point";
 import type { ModelParams } from "@/lib/physics/schema";
 import { FitCancelledError, FitError, leastSquares } from "./least-squares";
 import { type NumericParamKey, evaluateModel, modelJacobian, withFreeValues } from "./model";
-import { type FitRequestInput, type FreeParam, type FreeableKey, fitRequestSchema } from "./schema";
+import { type FreeParam, type FreeableKey, NATURAL_LOWER } from "@/lib/analysis/definition";
+import { type FitRequestInput, fitRequestSchema } from "./schema";
 
 /*
  * The fit of the model (physics-model.md, analytic path) to measured points: weighted least
@@ -81,16 +82,6 @@ export interface FitOptions {
   shouldCancel?: () => boolean;
   maxIterations?: number;
 }
-
-/** Default bounds that keep a free parameter inside the model's valid range (physics-model.md §2). */
-const NATURAL_LOWER: Partial<Record<FreeableKey, number>> = {
-  ionDensityPerM3: 0,
-  gilbertDamping: 0,
-  sellmeierB: 0,
-  oscillatorStrength: 0,
-  oscillatorDampingRadPerS: 0,
-  magneticScale: 0,
-};
 
 function toRecord(keys: readonly string[], values: ArrayLike<number>): Record<string, number> {
   return Object.fromEntries(keys.map((k, i) => [k, values[i]!]));

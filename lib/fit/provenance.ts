@@ -1,6 +1,6 @@
 import { type FitSummary, type SaveFitInput, fitSummarySchema, fittedValuesSchema } from "@/lib/contracts/fits";
 import type { FitResult } from "./fit";
-import type { FreeableKey } from "./schema";
+import type { FreeableKey } from "@/lib/analysis/definition";
 
 /*
  * The provenance stored with a version that came from a fit (parameter_set_versions.provenance),

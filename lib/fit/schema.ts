@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { finiteNumber } from "@/lib/contracts/validation";
 import { measuredPointSchema } from "@/lib/measurements/point";
-import { MODEL_FLAG_KEYS, type ModelFlagKey, materialShape, modelParamsSchema } from "@/lib/physics/schema";
+import { modelParamsSchema } from "@/lib/physics/schema";
+import { FREEABLE_KEYS, freeParamSchema } from "@/lib/analysis/definition";
 
 /*
  * The one request schema of the fit, shared by the worker, the API and the command line.
@@ -9,31 +10,8 @@ import { MODEL_FLAG_KEYS, type ModelFlagKey, materialShape, modelParamsSchema } 
  * each measured point.
  */
 
-type MaterialKey = keyof typeof materialShape;
-/**
- * totalJ is a quantum number (a multiple of 1/2), not a continuous parameter, and a switch such as
- * the diamagnetic term is not a number at all (physics-model.md §5.5): neither is ever fitted.
- */
-export type FreeableKey = Exclude<MaterialKey, "totalJ" | ModelFlagKey>;
-const NOT_FREEABLE: ReadonlySet<string> = new Set<string>(["totalJ", ...MODEL_FLAG_KEYS]);
-export const FREEABLE_KEYS = (Object.keys(materialShape) as MaterialKey[]).filter((k): k is FreeableKey => !NOT_FREEABLE.has(k));
-
-/** The default free parameters (the two amplitudes and the dispersion of the electric part). */
-export const DEFAULT_FREE_KEYS: FreeableKey[] = ["gyrationPerT", "oscillatorWavelengthNm", "magneticScale"];
-
 /** At most this many points in one fit (the upload's row limit). */
 export const MAX_FIT_POINTS = 20000;
-
-export const freeParamSchema = z
-  .strictObject({
-    key: z.enum(FREEABLE_KEYS as [FreeableKey, ...FreeableKey[]], {
-      error: (issue) => `"${String(issue.input)}" is not a model parameter that a fit can free`,
-    }),
-    min: finiteNumber("min").optional(),
-    max: finiteNumber("max").optional(),
-  })
-  .refine((f) => f.min === undefined || f.max === undefined || f.min < f.max, { message: "min must be below max", path: ["min"] });
-export type FreeParam = z.infer<typeof freeParamSchema>;
 
 export const fitRequestSchema = z
   .strictObject({
