@@ -27,7 +27,7 @@ module.exports = {
     {
       name: "pure-areas-stay-pure",
       comment:
-        "The computations beside the physics (analysis, fit, planner, measurements, model, workbench, lab-run kinds) know no server, database or UI.",
+        "Computations beside the physics (analysis, fit, planner, measurements, model, workbench, lab-run kinds): no server, db or UI.",
       severity: "error",
       from: { path: "^lib/(analysis|fit|planner|measurements|model|workbench|lab-runs/(kinds|encoding|export))" },
       to: { path: ["^db/", "^workers/", UI, SERVER_LIB, "^lib/query/", "^node_modules/(next|react|react-dom|drizzle-orm|pg|pg-boss)/"] },
