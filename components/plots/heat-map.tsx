@@ -1,9 +1,10 @@
 "use client";
 
-import { contours, geoPath, geoTransform, interpolateCividis, rgb } from "d3";
+import { contours, geoPath, geoTransform, interpolateCividis } from "d3";
 import { memo, useCallback, useId, useMemo, useState, type KeyboardEvent, type PointerEvent, type Ref } from "react";
 import { cellAt, formatShare, moveCell, type Cell, type CellGeometry } from "@/lib/workbench/maps";
 import { XAxis, YAxis } from "./axes";
+import { cellPixels } from "./heat-map-pixels";
 import { frameTop, PlotFrame } from "./plot-frame";
 import { makeScale, type ScaleType } from "./scale";
 
@@ -70,11 +71,7 @@ function assignRef<T>(ref: Ref<T> | undefined, value: T | null) {
   else if (ref) (ref as { current: T | null }).current = value;
 }
 
-const UNDEFINED_FILL = rgb("#d9d6cf");
-/** Colours of the scale in 256 steps (the usual size of a colour map's table; common practice, no source). */
-const CIVIDIS_TABLE = Array.from({ length: 256 }, (_, k) => rgb(interpolateCividis(k / 255)));
-
-/** A PNG data URL of the cells, row 0 at the bottom; null where there is no canvas (server). */
+/** A PNG data URL of the cells (cellPixels), one pixel a cell; null where there is no canvas (server). */
 function cellBitmap(values: readonly (number | null)[], nx: number, ny: number, lo: number, span: number): string | null {
   if (typeof document === "undefined" || nx < 1 || ny < 1) return null;
   const canvas = document.createElement("canvas");
@@ -83,20 +80,7 @@ function cellBitmap(values: readonly (number | null)[], nx: number, ny: number, 
   const ctx = canvas.getContext("2d");
   if (!ctx) return null;
   const image = ctx.createImageData(nx, ny);
-  for (let j = 0; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      const v = values[j * nx + i];
-      const c =
-        v === null || v === undefined || !Number.isFinite(v)
-          ? UNDEFINED_FILL
-          : CIVIDIS_TABLE[Math.round(Math.min(1, Math.max(0, (v - lo) / span)) * 255)]!;
-      const at = ((ny - 1 - j) * nx + i) * 4;
-      image.data[at] = c.r;
-      image.data[at + 1] = c.g;
-      image.data[at + 2] = c.b;
-      image.data[at + 3] = 255;
-    }
-  }
+  image.data.set(cellPixels(values, nx, ny, lo, span));
   ctx.putImageData(image, 0, 0);
   return canvas.toDataURL("image/png");
 }
