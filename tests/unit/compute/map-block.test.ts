@@ -1,9 +1,8 @@
-import { expose } from "comlink";
-import { afterEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
+import { inProcessPools } from "./in-process-pool";
 import { computeMapBlock, mapRowRequest, warmUpAndMeasure } from "@/lib/compute/map-block";
 import { MAP_BLOCK_QUANTITIES, type MapBlockRequest } from "@/lib/compute/protocol";
-import { SpectrumPool, blockRanges, MAP_BLOCK_CELLS } from "@/lib/compute/spectrum-pool";
-import { createSpectrumWorkerApi } from "@/lib/compute/worker-api";
+import { blockRanges, MAP_BLOCK_CELLS } from "@/lib/compute/spectrum-pool";
 import { computeSpectrumArrays } from "@/lib/physics/spectrum";
 import { TGG } from "../physics/fixtures";
 
@@ -76,27 +75,7 @@ describe("blocks of a map", () => {
 });
 
 describe("maps over a pool of in-process workers", () => {
-  const pools: SpectrumPool[] = [];
-  afterEach(() => {
-    for (const p of pools.splice(0)) p.dispose();
-  });
-  const makePool = (size: number) => {
-    const pool = new SpectrumPool({
-      size,
-      createWorker: () => {
-        const { port1, port2 } = new MessageChannel();
-        expose(createSpectrumWorkerApi({ chunkMs: 1 }), port2);
-        return Object.assign(port1, {
-          terminate: () => {
-            port1.close();
-            port2.close();
-          },
-        }) as unknown as Worker;
-      },
-    });
-    pools.push(pool);
-    return pool;
-  };
+  const makePool = inProcessPools();
 
   it("assembles the blocks of several workers into the row-by-row map, with progress up to 1", async () => {
     // 300 columns: three rows a block, so 17 rows make six blocks over two workers.
