@@ -4,6 +4,7 @@ import { contours, geoPath, geoTransform, interpolateCividis } from "d3";
 import { memo, useCallback, useId, useMemo, useState, type KeyboardEvent, type PointerEvent, type Ref } from "react";
 import { cellAt, formatShare, moveCell, type Cell, type CellGeometry } from "@/lib/workbench/maps";
 import { XAxis, YAxis } from "./axes";
+import { cellPixels } from "./heat-map-pixels";
 import { frameTop, PlotFrame } from "./plot-frame";
 import { makeScale, type ScaleType } from "./scale";
 
@@ -70,6 +71,20 @@ function assignRef<T>(ref: Ref<T> | undefined, value: T | null) {
   else if (ref) (ref as { current: T | null }).current = value;
 }
 
+/** A PNG data URL of the cells (cellPixels), one pixel a cell; null where there is no canvas (server). */
+function cellBitmap(values: readonly (number | null)[], nx: number, ny: number, lo: number, span: number): string | null {
+  if (typeof document === "undefined" || nx < 1 || ny < 1) return null;
+  const canvas = document.createElement("canvas");
+  canvas.width = nx;
+  canvas.height = ny;
+  const ctx = canvas.getContext("2d");
+  if (!ctx) return null;
+  const image = ctx.createImageData(nx, ny);
+  image.data.set(cellPixels(values, nx, ny, lo, span));
+  ctx.putImageData(image, 0, 0);
+  return canvas.toDataURL("image/png");
+}
+
 function HeatMapImpl({
   title,
   xs,
@@ -110,29 +125,11 @@ function HeatMapImpl({
   // A cell from an older, larger grid must not index past the new one.
   const shownCell = cell && cell.i < nx && cell.j < ny ? cell : null;
 
-  const cells = useMemo(() => {
-    const cw = innerW / nx;
-    const ch = innerH / ny;
-    const out: { key: number; x: number; y: number; w: number; h: number; fill: string }[] = [];
-    for (let j = 0; j < ny; j++) {
-      for (let i = 0; i < nx; i++) {
-        const v = values[j * nx + i];
-        out.push({
-          key: j * nx + i,
-          x: M.left + i * cw,
-          y: M.top + innerH - (j + 1) * ch,
-          // Overlap by a fraction of a pixel so anti-aliasing leaves no hairlines between cells.
-          w: cw + 0.5,
-          h: ch + 0.5,
-          fill:
-            v === null || v === undefined || !Number.isFinite(v)
-              ? "#d9d6cf"
-              : interpolateCividis(Math.min(1, Math.max(0, (v - lo) / span))),
-        });
-      }
-    }
-    return out;
-  }, [values, nx, ny, innerW, innerH, M.left, M.top, lo, span]);
+  // The cells as one bitmap, one pixel a cell, stretched over the plotting area: the grid is
+  // uniform in the axis scales, so pixel i of row j covers exactly cell (i, j). One <image> instead
+  // of a <rect> per cell keeps the redraw of a 256 × 128 map short (32,768 rects took seconds of
+  // the page's thread); the data URL also travels with the SVG and PNG exports.
+  const cellImage = useMemo(() => cellBitmap(values, nx, ny, lo, span), [values, nx, ny, lo, span]);
 
   const contourPaths = useMemo(() => {
     if (nx < 2 || ny < 2) return [];
@@ -151,16 +148,22 @@ function HeatMapImpl({
       .map((c) => ({ level: c.value, d: path(c) ?? "" }));
   }, [values, nx, ny, levels, innerW, innerH, M.left, M.top, lo, span]);
 
-  // Memoized elements: moving the readout re-renders only the highlight, not the 2000 cells.
+  // Memoized elements: moving the readout re-renders only the highlight, not the cells.
   const cellLayer = useMemo(
-    () => (
-      <g>
-        {cells.map((c) => (
-          <rect key={c.key} x={c.x} y={c.y} width={c.w} height={c.h} fill={c.fill} />
-        ))}
-      </g>
-    ),
-    [cells],
+    () =>
+      cellImage ? (
+        <image
+          href={cellImage}
+          x={M.left}
+          y={M.top}
+          width={innerW}
+          height={innerH}
+          preserveAspectRatio="none"
+          imageRendering="optimizeSpeed"
+          style={{ imageRendering: "pixelated" }}
+        />
+      ) : null,
+    [cellImage, M.left, M.top, innerW, innerH],
   );
   const contourLayer = useMemo(
     () =>

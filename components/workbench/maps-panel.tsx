@@ -7,6 +7,7 @@ import { HeatMap } from "@/components/plots/heat-map";
 import { LinePlot } from "@/components/plots/line-plot";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
 import { useElementWidth } from "@/components/plots/use-element-size";
+import { MAX_MAP_COLUMNS, MAX_MAP_ROWS } from "@/lib/lab-runs/kinds";
 import type { ModelParams } from "@/lib/physics/schema";
 import { isAbortError, type WorkbenchPool } from "@/lib/workbench/engine";
 import { fmt as fmtNum, magneticScaleLabel } from "@/lib/workbench/format";
@@ -20,15 +21,17 @@ import {
   maxColumnChange,
   quantityDomain,
   quantityLevels,
-  quantityOf,
   type MapQuantity,
-  MAP_COLS,
+  DEFAULT_MAP_RESOLUTION,
+  expectedMapTime,
   MAP_METHOD_LABEL,
-  MAP_ROWS,
-  mapProgress,
+  MAP_RESOLUTIONS,
+  mapValues,
   maxDeviation,
   methodCaption,
+  parseResolution,
   planMap,
+  resolutionKey,
   rowParams,
   type FieldAxisDrafts,
   type MapKind,
@@ -40,12 +43,15 @@ import type { WavelengthRange } from "@/lib/workbench/view-state";
 
 /*
  * The magnetic share, θ, θe, θm or the Verdet constant over wavelength × temperature and
- * wavelength × field (a select per map; one computation serves them all). Each row is one spectrum
- * request to the worker pool, with the chosen method: analytic (Polder linear response, ~1 ms a
- * row) or numerical LLG (split across the pool's workers, ~0.2 ms per wavelength, so a 64 × 32 map
- * takes well under a second). lib/workbench/maps.ts builds the grid and keeps everything out of
- * the numerical path's range away from the workers.
+ * wavelength × field (a select per map; one computation serves them all), at a resolution the
+ * user picks (32 × 16 … 256 × 128) with the expected time said before the run. The whole map goes
+ * to the pool as one job, computed in blocks of rows by warm workers and returned as typed arrays;
+ * progress reaches React at most PROGRESS_EVERY_MS apart. lib/workbench/maps.ts builds the grid
+ * and keeps everything out of the numerical path's range away from the workers.
  */
+
+/** Fewest milliseconds between two progress renders: a few a second is enough to read. */
+const PROGRESS_EVERY_MS = 200;
 
 const INPUT =
   "block w-24 rounded-md border border-ink/25 bg-paper-raised px-2.5 py-1.5 text-sm tabular-nums " +
@@ -107,16 +113,32 @@ export function MapsPanel({
   const [maps, setMaps] = useState<Partial<Record<MapKind, MapData>>>({});
   const [method, setMethod] = useState<MapMethod>("analytic");
   const [fieldAxis, setFieldAxis] = useState<FieldAxisDrafts>(DEFAULT_FIELD_AXIS);
+  const [resolution, setResolution] = useState(DEFAULT_MAP_RESOLUTION);
+  // The pool's measured rate, for the expected time; known once its warm-up has finished.
+  const [cellsPerSecond, setCellsPerSecond] = useState<number | null>(null);
   const [running, setRunning] = useState<{ kind: MapKind; method: MapMethod } | null>(null);
   const [progress, setProgress] = useState(0);
   const [error, setError] = useState<string | null>(null);
   const abort = useRef<AbortController | null>(null);
 
   useEffect(() => () => abort.current?.abort(), []);
+  useEffect(() => {
+    if (!pool) return;
+    let live = true;
+    void pool.warmUp().then(() => {
+      if (live) setCellsPerSecond(pool.numericalCellsPerSecond());
+    });
+    return () => {
+      live = false;
+    };
+  }, [pool]);
 
   const plans =
     params && range
-      ? { temperature: planMap("temperature", method, params, range, fieldAxis), field: planMap("field", method, params, range, fieldAxis) }
+      ? {
+          temperature: planMap("temperature", method, params, range, fieldAxis, resolution),
+          field: planMap("field", method, params, range, fieldAxis, resolution),
+        }
       : null;
   const problemsAt = (control: MapProblem["control"]) => {
     if (!plans) return [];
@@ -136,24 +158,24 @@ export function MapsPanel({
     setRunning({ kind, method: plan.method });
     setProgress(0);
     setError(null);
-    const values = Object.fromEntries(MAP_QUANTITIES.map((q) => [q, [] as (number | null)[]])) as Record<MapQuantity, (number | null)[]>;
-    const deviations: (number | undefined)[] = [];
-    const warnings = new Set<string>();
-    const rows = plan.ys.length;
+    let lastRender = 0;
     try {
-      for (let j = 0; j < rows; j++) {
-        const request = checkedSpectrumRequest({ ...rowParams(plan, params, j), wavelengthsNm: plan.xs, method: plan.method });
-        const res = await pool.spectrum(request, {
+      const base = checkedSpectrumRequest({ ...rowParams(plan, params, 0), wavelengthsNm: plan.xs, method: plan.method });
+      const arrays = await pool.map(
+        { base, axis: kind, rowValues: plan.ys },
+        {
           signal: ac.signal,
           onProgress: (f) => {
-            if (!ac.signal.aborted) setProgress(mapProgress(j, f, rows));
+            const now = performance.now();
+            if (ac.signal.aborted || now - lastRender < PROGRESS_EVERY_MS) return;
+            lastRender = now;
+            setProgress(f);
           },
-        });
-        for (const p of res.points) for (const q of MAP_QUANTITIES) values[q].push(quantityOf(p, q));
-        deviations.push(res.maxRelDeviationFromAnalytic);
-        for (const w of res.warnings ?? []) warnings.add(w);
-        setProgress(mapProgress(j + 1, 0, rows));
-      }
+        },
+      );
+      const values = mapValues(arrays.values);
+      const deviations = Array.from(arrays.deviation, (d) => (Number.isNaN(d) ? undefined : d));
+      setCellsPerSecond(pool.numericalCellsPerSecond());
       setMaps((m) => ({
         ...m,
         [kind]: {
@@ -170,7 +192,7 @@ export function MapsPanel({
           banner: magneticScaleLabel(params.magneticScale),
           deviation: plan.method === "llg" ? maxDeviation(deviations) : undefined,
           notes: plan.notes,
-          warnings: [...warnings],
+          warnings: arrays.warnings,
         },
       }));
     } catch (e) {
@@ -188,11 +210,11 @@ export function MapsPanel({
   return (
     <div ref={wrapRef} className="space-y-4">
       <p className="text-sm text-ink-soft">
-        The magnetic share |θm| / (|θe| + |θm|), θ, θe, θm or the Verdet constant, computed in the worker pool, {MAP_COLS} log-spaced
-        wavelengths over the current range × {MAP_ROWS} rows; choose the quantity under each map. Dashed lines: the 50 % contour of the
-        share, or where a signed quantity changes sign. Colours: cividis (colour-blind safe, lightness rises with the value, so it also
-        reads in grey). Where the quantity does not depend on the map&apos;s second axis, the map says so and shows a curve against
-        wavelength instead of stripes.
+        The magnetic share |θm| / (|θe| + |θm|), θ, θe, θm or the Verdet constant, computed in the worker pool over log-spaced wavelengths
+        in the current range × temperatures or fields, at the resolution chosen below; choose the quantity under each map. Dashed lines: the
+        50 % contour of the share, or where a signed quantity changes sign. Colours: cividis (colour-blind safe, lightness rises with the
+        value, so it also reads in grey). Where the quantity does not depend on the map&apos;s second axis, the map says so and shows a
+        curve against wavelength instead of stripes.
       </p>
       <div className="flex flex-wrap items-start gap-6">
         <fieldset className="space-y-1 text-sm" aria-describedby={methodProblems.length > 0 ? methodErrorId : undefined}>
@@ -251,6 +273,29 @@ export function MapsPanel({
             </p>
           )}
         </fieldset>
+      </div>
+      <div className="space-y-1 text-sm">
+        <label htmlFor={`${id}-resolution`} className="flex flex-wrap items-center gap-2">
+          <span className="font-medium">Map resolution</span>
+          <select
+            id={`${id}-resolution`}
+            className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux"
+            value={resolutionKey(resolution)}
+            disabled={running !== null}
+            aria-describedby={`${id}-expected`}
+            onChange={(e) => setResolution(parseResolution(e.target.value))}
+          >
+            {MAP_RESOLUTIONS.map((r) => (
+              <option key={resolutionKey(r)} value={resolutionKey(r)}>
+                {`${r.cols} wavelengths × ${r.rows} rows (${(r.cols * r.rows).toLocaleString("en")} cells)`}
+              </option>
+            ))}
+          </select>
+        </label>
+        <p id={`${id}-expected`} className="text-xs text-ink-soft" data-testid="map-expected-time">
+          {expectedMapTime(resolution.cols * resolution.rows, method, cellsPerSecond)} Finer maps (up to {MAX_MAP_COLUMNS} × {MAX_MAP_ROWS})
+          run on the lab&apos;s machines.
+        </p>
       </div>
       <div className="flex flex-wrap items-center gap-2">
         <Button onClick={() => void run("temperature")} disabled={!canRun("temperature")}>
@@ -332,7 +377,7 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
   const title = `${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} ${view.title} (${METHOD_SHORT[map.method]})`;
   const noLevelText = quantity === "share" ? undefined : `${qView.short} keeps one sign over this map`;
   return (
-    <figure className="space-y-1" data-testid={`share-map-${map.kind}`}>
+    <figure className="space-y-1" data-testid={`share-map-${map.kind}`} data-grid={`${nx}x${ny}`}>
       <label htmlFor={selectId} className="flex flex-wrap items-center gap-2 text-sm">
         <span className="font-medium">Show on the {view.plotName}</span>
         <select

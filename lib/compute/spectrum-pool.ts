@@ -1,12 +1,24 @@
 /*
  * A small pool of spectrum web workers (browser only, no React). A numerical spectrum is split
  * into contiguous wavelength chunks, one per worker; progress is aggregated by chunk size; the
- * chunks are merged back in order. The analytic path runs in one worker (it takes ~1 ms).
+ * chunks are merged back in order. The analytic path runs in one worker (it takes ~1 ms). A map
+ * goes out in blocks of rows (about MAP_BLOCK_CELLS cells each), handed to whichever worker is
+ * free, and comes back as transferred typed arrays. The workers live as long as the pool (one
+ * per page) and can be warmed up once, which also measures their rate for the time estimates.
  */
 import { type Remote, proxy, wrap } from "comlink";
 import { arraysToResult, spectrumWarnings } from "../physics/spectrum";
 import type { SpectrumResult } from "../physics/types";
-import type { SpectrumArrays, SpectrumRequest, SpectrumWorkerApi, SpinTraceRequest, SpinTraceResult } from "./protocol";
+import {
+  MAP_BLOCK_QUANTITIES,
+  type MapBlockArrays,
+  type MapBlockRequest,
+  type SpectrumArrays,
+  type SpectrumRequest,
+  type SpectrumWorkerApi,
+  type SpinTraceRequest,
+  type SpinTraceResult,
+} from "./protocol";
 
 export { arraysToResult };
 
@@ -121,6 +133,37 @@ export function mergeArrays(request: SpectrumRequest, parts: SpectrumArrays[]): 
   return merged;
 }
 
+/**
+ * Cells per map block: about 0.1 s of numerical work on a warm worker (~90 µs a cell), so
+ * progress moves a few times a second and a cancel or a free worker waits at most that long, while
+ * the messages stay few (32 blocks for 256 × 128).
+ */
+export const MAP_BLOCK_CELLS = 1024;
+
+/** Row ranges [start, end) of about `cellsPerBlock` cells each, at least one row each. */
+export function blockRanges(rows: number, columns: number, cellsPerBlock = MAP_BLOCK_CELLS): [number, number][] {
+  const per = Math.max(1, Math.floor(cellsPerBlock / Math.max(1, columns)));
+  const out: [number, number][] = [];
+  for (let start = 0; start < rows; start += per) out.push([start, Math.min(rows, start + per)]);
+  return out;
+}
+
+/** A whole map for the pool: the rows of MapBlockRequest, all of them. */
+export type MapJob = MapBlockRequest;
+export type MapArrays = Omit<MapBlockArrays, "computeMs">;
+
+/** Copies a block's arrays into the whole map at its first row. */
+export function placeBlock(map: MapArrays, block: MapBlockArrays, firstRow: number): void {
+  for (const q of MAP_BLOCK_QUANTITIES) map.values[q].set(block.values[q], firstRow * map.columns);
+  map.deviation.set(block.deviation, firstRow);
+  for (const w of block.warnings) if (!map.warnings.includes(w)) map.warnings.push(w);
+}
+
+function emptyMap(rows: number, columns: number): MapArrays {
+  const values = Object.fromEntries(MAP_BLOCK_QUANTITIES.map((q) => [q, new Float64Array(rows * columns)])) as MapArrays["values"];
+  return { rows, columns, values, deviation: new Float64Array(rows).fill(Number.NaN), warnings: [] };
+}
+
 const abortError = () => new DOMException("Cancelled", "AbortError");
 
 interface PoolWorker {
@@ -152,6 +195,9 @@ export class SpectrumPool {
   private readonly createWorker: () => Worker;
   private workers: (PoolWorker | undefined)[] = [];
   private disposed = false;
+  private warming: Promise<number | null> | null = null;
+  /** The latest measured numerical rate of one worker (cells/s), from the warm-up and from map blocks. */
+  private rate: number | null = null;
 
   constructor(opts: SpectrumPoolOptions = {}) {
     this.size = Math.max(
@@ -221,6 +267,89 @@ export class SpectrumPool {
           settled = true;
           // Stop the other chunks: one failure fails the whole spectrum.
           for (const w of used) w.api.cancel().catch(() => undefined);
+          reject(err);
+        },
+      );
+    });
+  }
+
+  /**
+   * Starts every worker and warms it up once (see SpectrumWorkerApi.warmUp); resolves with the
+   * measured rate of one worker in numerical cells/s, or null when the warm-up failed. Later
+   * calls return the same promise.
+   */
+  warmUp(): Promise<number | null> {
+    if (this.disposed) return Promise.resolve(null);
+    if (!this.warming) {
+      const all = Array.from({ length: this.size }, (_, i) => this.worker(i).api.warmUp());
+      this.warming = Promise.all(all).then(
+        (rates) => {
+          this.rate ??= Math.min(...rates);
+          return this.rate;
+        },
+        () => null,
+      );
+    }
+    return this.warming;
+  }
+
+  /** The latest measured numerical rate of the whole pool (cells/s), or null before any measurement. */
+  numericalCellsPerSecond(): number | null {
+    return this.rate === null ? null : this.rate * this.size;
+  }
+
+  /**
+   * Computes a map over the pool in blocks of rows; progress is the fraction of cells done, once
+   * per finished block. Rejects with DOMException("Cancelled", "AbortError") on abort; one failed
+   * block fails the map and stops the others.
+   */
+  map(job: MapJob, opts: PoolRunOptions = {}): Promise<MapArrays> {
+    const { signal, onProgress } = opts;
+    if (signal?.aborted) return Promise.reject(abortError());
+    const columns = job.base.wavelengthsNm.length;
+    const rows = job.rowValues.length;
+    const blocks = blockRanges(rows, columns);
+    const used = Array.from({ length: Math.min(this.size, blocks.length) }, (_, i) => this.worker(i));
+    const out = emptyMap(rows, columns);
+    const numerical = job.base.method === "llg";
+    let next = 0;
+    let doneRows = 0;
+    let settled = false;
+    return new Promise<MapArrays>((resolve, reject) => {
+      const stop = () => {
+        for (const w of used) w.api.cancel().catch(() => undefined);
+      };
+      const onAbort = () => {
+        if (settled) return;
+        settled = true;
+        stop();
+        reject(abortError());
+      };
+      signal?.addEventListener("abort", onAbort, { once: true });
+      // Each worker takes the next block as soon as it is free, so a slower worker takes fewer.
+      const loop = async (w: PoolWorker) => {
+        while (!settled && next < blocks.length) {
+          const [start, end] = blocks[next++]!;
+          const block = await w.api.mapBlock({ ...job, rowValues: job.rowValues.slice(start, end) });
+          if (settled) return;
+          placeBlock(out, block, start);
+          if (numerical && block.computeMs > 0) this.rate = (block.rows * block.columns * 1000) / block.computeMs;
+          doneRows += end - start;
+          onProgress?.(doneRows / rows);
+        }
+      };
+      Promise.all(used.map(loop)).then(
+        () => {
+          signal?.removeEventListener("abort", onAbort);
+          if (settled) return;
+          settled = true;
+          resolve(out);
+        },
+        (err: unknown) => {
+          signal?.removeEventListener("abort", onAbort);
+          if (settled) return;
+          settled = true;
+          stop();
           reject(err);
         },
       );

@@ -1,4 +1,4 @@
-import { SpectrumPool } from "@/lib/compute/spectrum-pool";
+import { type MapArrays, type MapJob, SpectrumPool } from "@/lib/compute/spectrum-pool";
 import { computeSpectrum } from "@/lib/physics/spectrum";
 import type { SpectrumRequest, SpinTraceRequest } from "@/lib/physics/schema";
 import type { SpectrumResult, SpinTraceResult } from "@/lib/physics/types";
@@ -8,7 +8,7 @@ import type { SpectrumResult, SpinTraceResult } from "@/lib/physics/types";
  * workbench speaks these names, so a change in the engine's surface touches this file only.
  */
 
-export type { SpinTraceRequest, SpinTraceResult };
+export type { MapArrays, MapJob, SpinTraceRequest, SpinTraceResult };
 
 export interface RunOptions {
   onProgress?: (fractionDone: number) => void;
@@ -18,6 +18,12 @@ export interface RunOptions {
 export interface WorkbenchPool {
   spectrum(request: SpectrumRequest, opts?: RunOptions): Promise<SpectrumResult>;
   spinTrace(request: SpinTraceRequest, opts?: RunOptions): Promise<SpinTraceResult>;
+  /** A map in blocks of rows across the pool's workers. */
+  map(job: MapJob, opts?: RunOptions): Promise<MapArrays>;
+  /** Starts and warms up every worker once; resolves with a worker's numerical rate (cells/s) or null. */
+  warmUp(): Promise<number | null>;
+  /** The pool's latest measured numerical rate (cells/s), or null before the warm-up has finished. */
+  numericalCellsPerSecond(): number | null;
   dispose(): void;
 }
 
@@ -36,6 +42,9 @@ export function createPool(opts: { size?: number } = {}): WorkbenchPool {
   return {
     spectrum: (request, runOpts) => pool.spectrum(request, runOpts ?? {}),
     spinTrace: (request, runOpts) => pool.spinTrace(request, runOpts ?? {}),
+    map: (job, runOpts) => pool.map(job, runOpts ?? {}),
+    warmUp: () => pool.warmUp(),
+    numericalCellsPerSecond: () => pool.numericalCellsPerSecond(),
     dispose: () => pool.dispose(),
   };
 }

@@ -1,6 +1,6 @@
 import { NUMERICAL_RANGE, insideNumericalRange } from "@/lib/physics/numerical-range";
 import type { ModelParams } from "@/lib/physics/schema";
-import type { SpectrumPoint } from "@/lib/physics/types";
+import type { MapBlockQuantity } from "@/lib/compute/protocol";
 import { parseNumber } from "./validate";
 import { wavelengthGrid } from "./units";
 import type { WavelengthRange } from "./view-state";
@@ -19,8 +19,52 @@ export const MAP_METHOD_LABEL: Record<MapMethod, string> = {
   llg: "Numerical LLG",
 };
 
+/** The default grid (wavelengths × rows). */
 export const MAP_COLS = 64;
 export const MAP_ROWS = 32;
+
+/** A map's grid: columns (wavelengths) × rows (temperatures or fields). */
+export interface MapResolution {
+  cols: number;
+  rows: number;
+}
+
+/** The grids the browser offers, 32 × 16 to 256 × 128 (larger maps run on the lab's machines). */
+export const MAP_RESOLUTIONS: readonly MapResolution[] = [
+  { cols: 32, rows: 16 },
+  { cols: MAP_COLS, rows: MAP_ROWS },
+  { cols: 128, rows: 64 },
+  { cols: 256, rows: 128 },
+];
+
+export const DEFAULT_MAP_RESOLUTION: MapResolution = { cols: MAP_COLS, rows: MAP_ROWS };
+
+/** "128x64", the value of a resolution in the picker. */
+export const resolutionKey = (r: MapResolution) => `${r.cols}x${r.rows}`;
+
+/** The offered resolution for a picker value (the default for anything else). */
+export function parseResolution(key: string): MapResolution {
+  return MAP_RESOLUTIONS.find((r) => resolutionKey(r) === key) ?? DEFAULT_MAP_RESOLUTION;
+}
+
+/**
+ * Seconds per cell of the analytic method: 0.82 ms for 256 wavelengths (the README's `npm run
+ * bench` figure) is 3.2 µs a cell, so even 256 × 128 takes about 0.1 s.
+ */
+const ANALYTIC_S_PER_CELL = 0.82e-3 / 256;
+
+/**
+ * What a map of `cells` cells should take, said before the run: for the numerical method from
+ * the rate this page's workers measured (null until their warm-up has finished).
+ */
+export function expectedMapTime(cells: number, method: MapMethod, cellsPerSecond: number | null): string {
+  const say = (s: number) => (s < 1 ? "under 1 s" : `about ${s < 10 ? s.toFixed(1) : Math.round(s)} s`);
+  if (method === "analytic") return `Expected time: ${say(cells * ANALYTIC_S_PER_CELL)} (analytic).`;
+  if (cellsPerSecond === null || !(cellsPerSecond > 0))
+    return "Expected time: shown once this browser's speed is measured (a few seconds after the page opens).";
+  const rate = Math.round(cellsPerSecond / 100) * 100;
+  return `Expected time: ${say(cells / cellsPerSecond)} at the ${rate.toLocaleString("en")} cells/s this browser measured.`;
+}
 
 export interface FieldAxisDrafts {
   fromT: string;
@@ -137,12 +181,13 @@ export function planMap(
   params: ModelParams,
   range: WavelengthRange,
   fieldAxis: FieldAxisDrafts,
+  resolution: MapResolution = DEFAULT_MAP_RESOLUTION,
 ): { plan: MapPlan; problems: [] } | { plan: null; problems: MapProblem[] } {
   const problems: MapProblem[] = methodProblems(kind, method, params, range).map((message) => ({ control: "method" as const, message }));
   let ys: number[] | null = null;
   let yType: "log" | "linear" = "linear";
   if (kind === "temperature") {
-    ys = temperatureRows(params, method);
+    ys = temperatureRows(params, method, resolution.rows);
     if (!ys) {
       problems.push({
         control: "method",
@@ -157,11 +202,11 @@ export function planMap(
     else {
       // Same sign as the set's field.
       const sign = params.fieldT < 0 ? -1 : 1;
-      ys = wavelengthGrid(axis.fromT, axis.toT, MAP_ROWS, "log").map((b) => b * sign);
+      ys = wavelengthGrid(axis.fromT, axis.toT, resolution.rows, "log").map((b) => b * sign);
       yType = "log";
     }
   }
-  const cols = mapColumns(range, method);
+  const cols = mapColumns(range, method, resolution.cols);
   if (problems.length > 0 || !ys || !cols) return { plan: null, problems };
   return { plan: { kind, method, xs: cols.xs, ys, yType, notes: cols.note ? [cols.note] : [] }, problems: [] };
 }
@@ -170,13 +215,6 @@ export function planMap(
 export function rowParams(plan: MapPlan, params: ModelParams, j: number): ModelParams {
   const y = plan.ys[j]!;
   return plan.kind === "temperature" ? { ...params, temperatureK: y } : { ...params, fieldT: y };
-}
-
-/** Progress over the whole map: rows done plus the fraction of the running row. */
-export function mapProgress(rowIndex: number, rowFraction: number, rows: number): number {
-  if (rows <= 0) return 1;
-  const f = Math.min(1, Math.max(0, Number.isFinite(rowFraction) ? rowFraction : 0));
-  return Math.min(1, (rowIndex + f) / rows);
 }
 
 /** Largest of the per-row deviations from linear response (undefined when no row reported one). */
@@ -277,20 +315,20 @@ export const MAP_QUANTITY_VIEW: Record<MapQuantity, { label: string; short: stri
   verdet: { label: "Verdet constant V", short: "V", unit: "rad/(T·m)", file: "verdet" },
 };
 
-/** The value a map cell shows for a computed point (share as a fraction 0…1; null where undefined). */
-export function quantityOf(point: SpectrumPoint, q: MapQuantity): number | null {
-  switch (q) {
-    case "share":
-      return point.magneticShare;
-    case "theta":
-      return point.thetaRad;
-    case "thetaElectric":
-      return point.thetaElectricRad;
-    case "thetaMagnetic":
-      return point.thetaMagneticRad;
-    case "verdet":
-      return point.verdetRadPerTm;
-  }
+/** The column of a worker's map block that holds each quantity. */
+export const MAP_QUANTITY_COLUMN: Record<MapQuantity, MapBlockQuantity> = {
+  share: "magneticShare",
+  theta: "thetaRad",
+  thetaElectric: "thetaElectricRad",
+  thetaMagnetic: "thetaMagneticRad",
+  verdet: "verdetRadPerTm",
+};
+
+/** Every quantity of a computed map as plotted values (NaN, an undefined share or V, becomes null). */
+export function mapValues(columns: Record<MapBlockQuantity, Float64Array>): Record<MapQuantity, (number | null)[]> {
+  const out = {} as Record<MapQuantity, (number | null)[]>;
+  for (const q of MAP_QUANTITIES) out[q] = Array.from(columns[MAP_QUANTITY_COLUMN[q]], (v) => (Number.isNaN(v) ? null : v));
+  return out;
 }
 
 /** A value of a quantity with its unit, as the readout and the legend say it. */

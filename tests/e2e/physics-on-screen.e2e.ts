@@ -33,10 +33,14 @@ describe("physics on screen", () => {
     await page.getByRole("img", { name: /^Figure of merit \|V\| \/ α/ }).waitFor();
 
     // Maps: the share over temperature is said to be independent of it (no stripes drawn).
+    // The resolution is the user's: the coarsest grid, its expected time said before the run.
     await page.getByRole("checkbox", { name: "Maps", exact: true }).check();
+    await page.getByLabel("Map resolution").selectOption("32x16");
+    expect(await page.getByTestId("map-expected-time").innerText()).toMatch(/^Expected time: under 1 s \(analytic\)/);
     await page.getByRole("button", { name: "Compute wavelength × temperature map" }).click();
     const independent = page.getByTestId("map-temperature-independent");
     await independent.waitFor({ timeout: RUN_TIMEOUT });
+    expect(await page.getByTestId("share-map-temperature").getAttribute("data-grid")).toBe("32x16");
     expect(await independent.innerText()).toMatch(/does not depend on temperature/);
     // θ does depend on it: drawn as a map.
     await page.getByLabel("Show on the temperature map").selectOption("theta");

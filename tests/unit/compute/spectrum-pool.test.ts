@@ -1,15 +1,7 @@
-import { expose } from "comlink";
-import { afterEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
+import { inProcessPools } from "./in-process-pool";
 import { createSpectrumWorkerApi } from "@/lib/compute/worker-api";
-import {
-  SpectrumPool,
-  aggregateProgress,
-  defaultPoolSize,
-  arraysToResult,
-  mergeArrays,
-  splitRanges,
-  splitRequest,
-} from "@/lib/compute/spectrum-pool";
+import { aggregateProgress, defaultPoolSize, arraysToResult, mergeArrays, splitRanges, splitRequest } from "@/lib/compute/spectrum-pool";
 import type { SpectrumRequest } from "@/lib/physics/schema";
 import { computeSpectrum, computeSpectrumArrays } from "@/lib/physics/spectrum";
 import { TGG } from "../physics/fixtures";
@@ -115,27 +107,7 @@ describe("worker API (without a Worker)", () => {
 });
 
 describe("SpectrumPool over in-process message channels", () => {
-  const pools: SpectrumPool[] = [];
-  afterEach(() => {
-    for (const p of pools.splice(0)) p.dispose();
-  });
-  const makePool = (size: number) => {
-    const pool = new SpectrumPool({
-      size,
-      createWorker: () => {
-        const { port1, port2 } = new MessageChannel();
-        expose(createSpectrumWorkerApi({ chunkMs: 1 }), port2);
-        return Object.assign(port1, {
-          terminate: () => {
-            port1.close();
-            port2.close();
-          },
-        }) as unknown as Worker;
-      },
-    });
-    pools.push(pool);
-    return pool;
-  };
+  const makePool = inProcessPools();
 
   it("returns the same result as a single synchronous run, with monotone progress", async () => {
     const req = request({ method: "llg", wavelengthsNm: Array.from({ length: 17 }, (_, i) => 300 + 100 * i) });

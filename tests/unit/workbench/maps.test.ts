@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import type { ModelParams } from "@/lib/physics/schema";
-import { computeSpectrum } from "@/lib/physics/spectrum";
+import { computeMapBlock } from "@/lib/compute/map-block";
 import {
   axisIndependence,
   CONSTANT_REL_TOL,
@@ -10,15 +10,19 @@ import {
   maxColumnChange,
   quantityDomain,
   quantityLevels,
-  quantityOf,
   type MapQuantity,
   cellAt,
   DEFAULT_FIELD_AXIS,
+  DEFAULT_MAP_RESOLUTION,
+  expectedMapTime,
   formatShare,
+  MAP_RESOLUTIONS,
+  mapValues,
+  parseResolution,
+  resolutionKey,
   MAP_COLS,
   MAP_ROWS,
   mapColumns,
-  mapProgress,
   maxDeviation,
   methodCaption,
   moveCell,
@@ -169,14 +173,30 @@ describe("map grid", () => {
   });
 });
 
-describe("progress and caption", () => {
-  it("reports progress over the whole map", () => {
-    expect(mapProgress(0, 0, 32)).toBe(0);
-    expect(mapProgress(0, 0.5, 32)).toBeCloseTo(0.5 / 32, 12);
-    expect(mapProgress(31, 1, 32)).toBe(1);
-    expect(mapProgress(16, Number.NaN, 32)).toBe(0.5);
-    expect(mapProgress(0, 0, 0)).toBe(1);
+describe("resolution and expected time", () => {
+  it("offers 32 × 16 to 256 × 128, defaults to 64 × 32, and plans the chosen grid", () => {
+    expect(MAP_RESOLUTIONS.map(resolutionKey)).toEqual(["32x16", "64x32", "128x64", "256x128"]);
+    expect(DEFAULT_MAP_RESOLUTION).toEqual({ cols: MAP_COLS, rows: MAP_ROWS });
+    expect(parseResolution("128x64")).toEqual({ cols: 128, rows: 64 });
+    expect(parseResolution("4096x4096")).toEqual(DEFAULT_MAP_RESOLUTION);
+    for (const kind of ["temperature", "field"] as const) {
+      const { plan } = planMap(kind, "llg", params, range, DEFAULT_FIELD_AXIS, { cols: 256, rows: 128 });
+      expect(plan!.xs).toHaveLength(256);
+      expect(plan!.ys).toHaveLength(128);
+    }
   });
+
+  it("says the expected time from the measured rate, and waits for a measurement on the numerical path", () => {
+    expect(expectedMapTime(8192, "llg", 4096)).toBe("Expected time: about 2.0 s at the 4,100 cells/s this browser measured.");
+    expect(expectedMapTime(32768, "llg", 1000)).toMatch(/about 33 s/);
+    expect(expectedMapTime(512, "llg", 8000)).toMatch(/under 1 s/);
+    expect(expectedMapTime(8192, "llg", null)).toMatch(/shown once this browser's speed is measured/);
+    // Analytic: 3.2 µs a cell from the engine benchmark, so 256 × 128 stays under a second.
+    expect(expectedMapTime(32768, "analytic", null)).toMatch(/under 1 s \(analytic\)/);
+  });
+});
+
+describe("progress and caption", () => {
   it("keeps the largest deviation over all rows", () => {
     expect(maxDeviation([1e-6, undefined, 3e-5, 2e-5])).toBe(3e-5);
     expect(maxDeviation([undefined])).toBeUndefined();
@@ -214,18 +234,22 @@ describe("what a map shows and when it says so in words", () => {
     expect(axisIndependence("share", "temperature", true, { relative: 3e-3 }).independent).toBe(false);
   });
 
-  it("reads each quantity from a computed point, and ranges and levels fit the quantity", () => {
-    const p = {
-      wavelengthNm: 632.8,
-      thetaRad: -1.34,
-      thetaElectricRad: -1.385,
-      thetaMagneticRad: 0.045,
-      thetaCrossRad: 0,
-      ellipticityRad: 0,
-      magneticShare: 0.031,
-      verdetRadPerTm: -134,
-    };
-    expect(MAP_QUANTITIES.map((q) => quantityOf(p, q))).toEqual([0.031, -1.34, -1.385, 0.045, -134]);
+  it("reads each quantity from a computed block (NaN as undefined), and ranges and levels fit the quantity", () => {
+    const col = (v: number) => Float64Array.of(v, Number.NaN);
+    const values = mapValues({
+      magneticShare: col(0.031),
+      thetaRad: col(-1.34),
+      thetaElectricRad: col(-1.385),
+      thetaMagneticRad: col(0.045),
+      verdetRadPerTm: col(-134),
+    });
+    expect(MAP_QUANTITIES.map((q) => values[q])).toEqual([
+      [0.031, null],
+      [-1.34, null],
+      [-1.385, null],
+      [0.045, null],
+      [-134, null],
+    ]);
     expect(quantityDomain([0.2, 0.4], "share")).toEqual([0, 1]);
     expect(quantityDomain([-3, null, 2], "theta")).toEqual([-3, 2]);
     expect(quantityLevels([-3, 2], "theta")).toEqual([0]);
@@ -236,25 +260,22 @@ describe("what a map shows and when it says so in words", () => {
 });
 
 describe("maps computed by the engine", () => {
-  const rowsOf = (kind: "temperature" | "field", over: Partial<ModelParams>, q: MapQuantity) => {
-    const base = { ...TERBIUM_GARNET_DEFAULTS, ...over };
-    const planned = planMap(kind, "analytic", base, range, DEFAULT_FIELD_AXIS);
+  const rowsOf = async (kind: "temperature" | "field", over: Partial<ModelParams>, q: MapQuantity) => {
+    const params = { ...TERBIUM_GARNET_DEFAULTS, ...over };
+    const planned = planMap(kind, "analytic", params, range, DEFAULT_FIELD_AXIS);
     if (!planned.plan) throw new Error("no plan");
     const plan = planned.plan;
-    const values: (number | null)[] = [];
-    plan.ys.forEach((_, j) => {
-      const r = computeSpectrum({ ...rowParams(plan, base, j), wavelengthsNm: plan.xs, method: "analytic" });
-      for (const pt of r.points) values.push(quantityOf(pt, q));
-    });
-    return maxColumnChange(values, plan.xs.length, plan.ys.length);
+    const base = { ...rowParams(plan, params, 0), wavelengthsNm: plan.xs, method: "analytic" as const };
+    const block = await computeMapBlock({ base, axis: kind, rowValues: plan.ys });
+    return maxColumnChange(mapValues(block.values)[q], plan.xs.length, plan.ys.length);
   };
 
-  it("without the diamagnetic term the share is stripes (first-order constant); with it the share moves with T and B", () => {
+  it("without the diamagnetic term the share is stripes (first-order constant); with it the share moves with T and B", async () => {
     // Both parts ∝ M0 (§6.4): only the second-order terms in G and χ move the share.
-    const offT = rowsOf("temperature", {}, "share")!.relative;
-    const offB = rowsOf("field", { temperatureK: 4 }, "share")!.relative;
-    const onT = rowsOf("temperature", { diamagneticTerm: true }, "share")!.relative;
-    const onB = rowsOf("field", { diamagneticTerm: true, temperatureK: 4 }, "share")!.relative;
+    const offT = (await rowsOf("temperature", {}, "share"))!.relative;
+    const offB = (await rowsOf("field", { temperatureK: 4 }, "share"))!.relative;
+    const onT = (await rowsOf("temperature", { diamagneticTerm: true }, "share"))!.relative;
+    const onB = (await rowsOf("field", { diamagneticTerm: true, temperatureK: 4 }, "share"))!.relative;
     // Off: below 1e-5 (measured 1.2e-7 over T, 1.6e-6 over B at 4 K). On: the diamagnetic part does
     // not follow M0, so the share moves by ~20 % over 1–400 K; over B only where M0 saturates (4 K).
     expect(offT).toBeLessThan(1e-5);
@@ -263,8 +284,8 @@ describe("maps computed by the engine", () => {
     expect(onB).toBeGreaterThan(100 * offB);
   });
 
-  it("no spins with the term on: θ is exactly the same at every temperature (detected from the data)", () => {
-    const change = rowsOf("temperature", { ionDensityPerM3: 0, diamagneticTerm: true }, "theta")!;
+  it("no spins with the term on: θ is exactly the same at every temperature (detected from the data)", async () => {
+    const change = (await rowsOf("temperature", { ionDensityPerM3: 0, diamagneticTerm: true }, "theta"))!;
     expect(change.relative).toBeLessThanOrEqual(CONSTANT_REL_TOL);
     expect(axisIndependence("theta", "temperature", true, change).independent).toBe(true);
   });
