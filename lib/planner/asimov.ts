@@ -2,7 +2,7 @@ import { Matrix } from "ml-matrix";
 import { leastSquares } from "@/lib/fit/least-squares";
 import { type ModelCondition, type NumericParamKey, evaluateModel, modelJacobian, withFreeValues } from "@/lib/fit/model";
 import type { ModelParams } from "@/lib/physics/schema";
-import type { AnalysisLayout } from "./fisher";
+import type { AnalysisLayout } from "./layout";
 
 /*
  * The expected Δχ² of a plan between a fixed magneticScale and the alternative, without

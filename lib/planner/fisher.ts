@@ -1,16 +1,10 @@
 import { Matrix, inverse } from "ml-matrix";
-import {
-  type AnalysisDefinition,
-  NATURAL_LOWER,
-  type NoiseModel,
-  designedPointSigma,
-  effectiveVariance,
-  variedKeys,
-} from "@/lib/analysis/definition";
-import { type JacobianOptions, type ModelCondition, type NumericParamKey, modelJacobian } from "@/lib/fit/model";
+import { type AnalysisDefinition, type NoiseModel, designedPointSigma, effectiveVariance } from "@/lib/analysis/definition";
+import { type ModelCondition, type NumericParamKey, modelJacobian } from "@/lib/fit/model";
 import type { ModelParams } from "@/lib/physics/schema";
 import { asimovDeltaChi2 } from "./asimov";
 import { type CriterionSpec, criterionOf } from "./information";
+import type { AnalysisLayout } from "./layout";
 import { candidateOptics, temperatureDerivative } from "./optics";
 import type { PlanCriterion } from "./schema";
 
@@ -27,44 +21,10 @@ import type { PlanCriterion } from "./schema";
  * source).
  */
 
-/** The name of the field × length calibration nuisance among the varied parameters. */
-export const SCALE_NUISANCE = "fieldLengthScale";
-
 /** Candidates per Jacobian call: points sharing T and B are one spectrum call, so slices follow the candidate order. */
 const JACOBIAN_SLICE = 512;
 
-/** The varied parameters of an analysis and how the planner scales and differentiates them. */
-export interface AnalysisLayout {
-  definition: AnalysisDefinition;
-  /** Model keys that vary: the free ones, then those with a prior. */
-  keys: NumericParamKey[];
-  /** Whether the field × length scale nuisance is carried (scaleSigma > 0). */
-  withScale: boolean;
-  /** keys, then SCALE_NUISANCE when carried. */
-  names: string[];
-  p: number;
-  /** Each parameter's nominal value, or 1 where it is 0, so the information is well conditioned in any units. */
-  scale: number[];
-  jacobian: JacobianOptions;
-}
-
-export function analysisLayout(definition: AnalysisDefinition, params: ModelParams): AnalysisLayout {
-  const keys = variedKeys(definition) as NumericParamKey[];
-  const withScale = definition.calibration.scaleSigma > 0;
-  const names = [...keys, ...(withScale ? [SCALE_NUISANCE] : [])];
-  const bounds = new Map(definition.free.map((f) => [f.key as string, f]));
-  const lower: Partial<Record<NumericParamKey, number>> = {};
-  const typicalScale: Partial<Record<NumericParamKey, number>> = {};
-  for (const k of keys) {
-    const f = bounds.get(k);
-    const lo = Math.max(f?.min ?? -Infinity, NATURAL_LOWER[k as keyof typeof NATURAL_LOWER] ?? -Infinity);
-    if (Number.isFinite(lo)) lower[k] = lo;
-    // The step scale for a parameter whose value is 0: the size of its bounds, else 1 (as the fit does).
-    typicalScale[k] = Math.max(Math.abs(f?.min ?? 0), Math.abs(f?.max ?? 0)) || 1;
-  }
-  const scale = [...keys.map((k) => Math.abs(params[k] as number) || 1), ...(withScale ? [1] : [])];
-  return { definition, keys, withScale, names, p: names.length, scale, jacobian: { lower, typicalScale } };
-}
+export { type AnalysisLayout, SCALE_NUISANCE, analysisLayout } from "./layout";
 
 /** What the noise of one designed point depends on beyond the parameters. */
 export interface NoiseInputs {

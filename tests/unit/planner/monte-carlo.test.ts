@@ -120,7 +120,7 @@ describe("planner against a Monte-Carlo of the fit, same analysis definition", (
       const m = measurements(result, params, ABSOLUTE_RAD, RELATIVE_FLOOR);
       // The planner's σ per point is the same effective variance the fit is given.
       const planSigmas = plan.points.flatMap((p) => Array.from({ length: p.count }, () => p.sigmaRad));
-      planSigmas.forEach((s, i) => expect(s / m.fitSigma[i]!).toBeCloseTo(1, 3));
+      for (const [i, s] of planSigmas.entries()) expect(s / m.fitSigma[i]!).toBeCloseTo(1, 3);
       const gauss = seededGaussian(criterion.kind === "share" ? 4242 : 2024);
       const estimates: number[] = [];
       let unconverged = 0;
