@@ -3,6 +3,7 @@ import { zodIssueLines } from "@/lib/contracts/validation";
 import { parseParameterFile } from "@/lib/fit/cli-input";
 import { type PlanResult, planMeasurements } from "./plan";
 import { type PlanCriterion, type PlanRequestInput, planRequestSchema } from "./schema";
+import { TextInputError, parsePriorText } from "./text-input";
 
 /*
  * The inputs of the plan command line, pure so they can be tested without a process: the
@@ -63,13 +64,12 @@ function oneNumber(flag: string, text: string): number {
 const isFreeable = (key: string): key is FreeableKey => (FREEABLE_KEYS as readonly string[]).includes(key);
 
 function parsePrior(text: string): Prior {
-  const match = /^([A-Za-z]+)=([^:]+):(.+)$/.exec(text.trim());
-  if (!match) throw new PlanInputError(`--prior: "${text}" is not KEY=MEAN:SIGMA (e.g. oscillatorWavelengthNm=258:10)`);
-  const [, key, mean, sigma] = match;
-  if (!isFreeable(key!)) throw new PlanInputError(`--prior: "${key}" is not a model parameter (choose from ${FREEABLE_KEYS.join(", ")})`);
-  const s = oneNumber("--prior", sigma!);
-  if (!(s > 0)) throw new PlanInputError(`--prior: the σ of ${key} must be > 0`);
-  return { key, mean: oneNumber("--prior", mean!), sigma: s };
+  try {
+    return parsePriorText(text);
+  } catch (err) {
+    if (err instanceof TextInputError) throw new PlanInputError(`--prior: ${err.message}`);
+    throw err;
+  }
 }
 
 export function parsePlanArgs(argv: readonly string[]): PlanArgs {
