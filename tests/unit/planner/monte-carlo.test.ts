@@ -11,11 +11,13 @@ import { seededGaussian } from "../fit/support";
 /*
  * The planner's expected σ and expected Δχ² are linearized figures of the fit it plans for. Here
  * they are checked against what the product's fit (lib/fit/fit.ts) delivers on 200 synthetic data
- * sets at the best plan's points: the model at the truth, each point's temperature off by its
+ * sets at the best plan's points: the model at the truth times one field × length scale factor
+ * per data set (drawn from its prior 1 ± scaleSigma), each point's temperature off by its
  * calibration error (drawn, and propagated through the model, not linearized), plus Gaussian
  * noise of the laboratory's absolute σ (grown by 1/√transmission) and relative floor. The fit is
- * given the same analysis definition and each point's σ without the temperature term, which the
- * shared definition's effectiveVariance adds (as the fit would for data with a calibration). The
+ * given the same analysis definition (free set and calibration: it fits the scale factor as a
+ * nuisance with its prior and adds the temperature term to each point's σ itself) and each
+ * point's own σ. The
  * standard deviation of 200 draws has a relative standard error of about 1/√(2·199) = 5 %, and
  * the mean of 200 Δχ² (a noncentral χ² with variance 4λ for λ ≫ 1) one of 2/√(200λ) (common
  * practice, no source), so 15 % is three or more of those.
@@ -35,7 +37,7 @@ const LINES = [
   { name: "O-band", wavelengthNm: 1310 },
   { name: "telecom", wavelengthNm: 1550 },
 ];
-const CALIBRATION = { scaleSigma: 0, temperatureSigmaK: 2, relativeFloor: 0 };
+const CALIBRATION = { scaleSigma: 0.02, temperatureSigmaK: 2, relativeFloor: 0 };
 const FREE = [{ key: "gyrationPerT" as const }, { key: "oscillatorWavelengthNm" as const }, { key: "magneticScale" as const, min: 0 }];
 
 const request = (over: Partial<PlanRequestInput>): PlanRequestInput => ({
@@ -86,12 +88,17 @@ function measurements(result: PlanResult, params: ModelParams, absoluteRad: numb
   return { conditions, ownSigma, fitSigma };
 }
 
-/** One synthetic data set at the truth: temperatures off by their calibration error, then the noise. */
-function simulate(truth: ModelParams, m: ReturnType<typeof measurements>, gauss: () => number): MeasuredPoint[] {
-  const shifted = m.conditions.map((c) => ({ ...c, temperatureK: c.temperatureK + CALIBRATION.temperatureSigmaK * gauss() }));
+/** One synthetic data set at the truth: its scale factor, temperatures off by their calibration error, then the noise. */
+function simulate(truth: ModelParams, m: ReturnType<typeof measurements>, gauss: () => number, calibration = CALIBRATION): MeasuredPoint[] {
+  const scale = 1 + calibration.scaleSigma * gauss();
+  const shifted = m.conditions.map((c) => ({ ...c, temperatureK: c.temperatureK + calibration.temperatureSigmaK * gauss() }));
   const clean = evaluateModel(truth, shifted).value;
-  return m.conditions.map((c, i) => ({ line: i + 2, ...c, value: clean[i]! + m.ownSigma[i]! * gauss(), sigma: m.fitSigma[i]! }));
+  return m.conditions.map((c, i) => ({ line: i + 2, ...c, value: scale * clean[i]! + m.ownSigma[i]! * gauss(), sigma: m.ownSigma[i]! }));
 }
+
+/** The fit the planner plans for: the same free set and calibration, one start (the truth is the start). */
+const fitAs = (params: ModelParams, free: typeof FREE, points: MeasuredPoint[], calibration = CALIBRATION) =>
+  fitMeasurements({ params, free, points, calibration, starts: 1 }, { maxIterations: 500 });
 
 describe("planner against a Monte-Carlo of the fit, same analysis definition", () => {
   it("never proposes a point below the minimum transmission (checked against the engine)", () => {
@@ -125,7 +132,7 @@ describe("planner against a Monte-Carlo of the fit, same analysis definition", (
       const estimates: number[] = [];
       let unconverged = 0;
       for (let draw = 0; draw < DRAWS; draw++) {
-        const fit = fitMeasurements({ params, free: FREE, points: simulate(params, m, gauss) }, { maxIterations: 500 });
+        const fit = fitAs(params, FREE, simulate(params, m, gauss));
         if (!fit.converged) unconverged++;
         estimates.push(
           criterion.kind === "magneticScale"
@@ -145,7 +152,14 @@ describe("planner against a Monte-Carlo of the fit, same analysis definition", (
 
   it("planned at magneticScale = 0, the mean Δχ² of null-vs-alternative fits matches the expected Δχ² within 15 %", () => {
     const atNull = { ...TGG, lengthM: LENGTH_M, magneticScale: 0 };
-    const plan0 = planMeasurements(planRequestSchema.parse(request({ params: atNull, criterion: { kind: "detect", alternative: 1 } })));
+    // The scale nuisance only: the fit takes each point's temperature term at its own starting values, which differ
+    // between the null and the alternative fit, so with it Δχ² would compare two different weightings.
+    const SCALE_ONLY = { ...CALIBRATION, temperatureSigmaK: 0 };
+    const plan0 = planMeasurements(
+      planRequestSchema.parse(
+        request({ params: atNull, criterion: { kind: "detect", alternative: 1 }, definition: { free: FREE, calibration: SCALE_ONLY } }),
+      ),
+    );
     expect(plan0.plans[0]!.separable).toBe(true);
     const first = plan0.plans[0]!.detection!;
     // A noise that makes the expected Δχ² about 30 (λ ∝ 1/σ² with the relative floor and the calibration off).
@@ -157,6 +171,7 @@ describe("planner against a Monte-Carlo of the fit, same analysis definition", (
           criterion: { kind: "detect", alternative: 1 },
           noise: { kind: "sigma", sigmaRad: absoluteRad },
           optics: { relativeFloor: 0, minTransmission: 0.01 },
+          definition: { free: FREE, calibration: SCALE_ONLY },
         }),
       ),
     );
@@ -169,9 +184,9 @@ describe("planner against a Monte-Carlo of the fit, same analysis definition", (
     const gauss = seededGaussian(77);
     const deltas: number[] = [];
     for (let draw = 0; draw < DRAWS; draw++) {
-      const points = simulate(truth, m, gauss);
-      const fitNull = fitMeasurements({ params: atNull, free: nuisances, points });
-      const fitAlt = fitMeasurements({ params: truth, free: nuisances, points });
+      const points = simulate(truth, m, gauss, SCALE_ONLY);
+      const fitNull = fitAs(atNull, nuisances, points, SCALE_ONLY);
+      const fitAlt = fitAs(truth, nuisances, points, SCALE_ONLY);
       deltas.push(fitNull.chi2 - fitAlt.chi2);
     }
     const ratio = mean(deltas) / detection.deltaChi2Null;
