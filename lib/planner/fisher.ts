@@ -200,15 +200,17 @@ const toMatrix = (f: Float64Array, p: number) =>
  * The reported figures of a plan from ml-matrix: F = base + Σ count·info, Cov = F⁻¹ in scaled
  * parameters. `at` indexes the rows of `information.info`.
  */
-export function planFigures(o: {
+/** A plan as the figures see it: its points' information, counts and the detection's alternative. */
+interface PlanInputs {
   layout: AnalysisLayout;
   info: Float64Array;
   points: readonly { at: number; count: number }[];
-  spec: CriterionSpec;
   alternative: number;
   /** For the expected Δχ² without linearizing: the set's values and each `at`'s condition and σ. */
   asimov?: { params: ModelParams; conditions: readonly ModelCondition[]; sigma: ArrayLike<number> };
-}): PlanFigures {
+}
+
+export function planFigures(o: PlanInputs & { spec: CriterionSpec }): PlanFigures {
   const { layout } = o;
   const { p, scale, names } = layout;
   const pp = p * p;
@@ -238,14 +240,7 @@ export function planFigures(o: {
 
 const MAX_REPEATS = 1_000_000;
 
-function detectionFigures(o: {
-  layout: AnalysisLayout;
-  info: Float64Array;
-  points: readonly { at: number; count: number }[];
-  alternative: number;
-  magneticIndex: number;
-  asimov?: { params: ModelParams; conditions: readonly ModelCondition[]; sigma: ArrayLike<number> };
-}): DetectionFigures | null {
+function detectionFigures(o: PlanInputs & { magneticIndex: number }): DetectionFigures | null {
   const { layout, alternative, magneticIndex: im } = o;
   const { p } = layout;
   const pp = p * p;
