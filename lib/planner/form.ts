@@ -82,6 +82,12 @@ export function defaultPlannerDrafts(params: ModelParams): PlannerDrafts {
 /** A number as typed, NaN when it is not one (the schema then names the field). */
 export const readNumber = (s: string): number => parseNumber(s) ?? Number.NaN;
 
+/** The fit's default free keys first, in its order, then the others in the model's order. */
+const freeInFitOrder = (free: readonly FreeableKey[]) => [
+  ...DEFAULT_FREE_KEYS.filter((k) => free.includes(k)),
+  ...FREEABLE_KEYS.filter((k) => free.includes(k) && !DEFAULT_FREE_KEYS.includes(k)),
+];
+
 function readList<T>(text: string, field: string, read: (s: string) => T, issues: string[]): T[] {
   const out: T[] = [];
   for (const part of splitList(text)) {
@@ -137,9 +143,7 @@ export function planRequestFromDrafts(
             : { kind: "detect", alternative: readNumber(d.alternative) }
           : { kind: d.criterion },
     definition: {
-      free: FREEABLE_KEYS.filter((k) => d.free.includes(k)).map((key) =>
-        NATURAL_LOWER[key] === undefined ? { key } : { key, min: NATURAL_LOWER[key] },
-      ),
+      free: freeInFitOrder(d.free).map((key) => (NATURAL_LOWER[key] === undefined ? { key } : { key, min: NATURAL_LOWER[key] })),
       priors,
       calibration: {
         scaleSigma: readNumber(d.scaleSigmaPct) / 100,
