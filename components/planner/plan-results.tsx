@@ -10,6 +10,7 @@ import { planToCsv } from "@/lib/planner/export";
 import { markersQueryValue } from "@/lib/planner/markers-query";
 import type { PlanResult, RankedPlan } from "@/lib/planner/plan";
 import type { PlanRequest } from "@/lib/planner/schema";
+import { costText, definitionText, detectionText, noiseText } from "@/lib/planner/summary";
 import { useSavePlan } from "@/lib/query/planner";
 import { fmt, fmtPercent } from "@/lib/workbench/format";
 
@@ -77,8 +78,21 @@ export function PlanResults({
             count: p.count,
             rotationRad: p.rotationRad,
             belowNoise: p.belowNoise,
+            transmission: p.transmission,
+            flags: p.flags,
           })),
           notes: result.notes,
+          detection: plan.detection
+            ? {
+                alternative: plan.detection.alternative,
+                deltaChi2Null: plan.detection.deltaChi2Null,
+                significance: plan.detection.significance,
+                repeatsFor3Sigma: plan.detection.repeatsFor3Sigma,
+                repeatsFor5Sigma: plan.detection.repeatsFor5Sigma,
+              }
+            : null,
+          costHours: plan.costHours,
+          noise: result.noise,
         },
       },
       { onSuccess: (item) => setSaved(`Saved “${item.name}”.`) },
@@ -101,9 +115,26 @@ export function PlanResults({
       <p className="text-sm text-ink-soft">
         {result.criterionLabel} {result.criterionUnit}. {result.candidateCount} candidate points,{" "}
         {result.method === "exhaustive" ? "searched exhaustively" : "greedy search with exchange"} (
-        {result.designsEvaluated.toLocaleString("en")} designs, {fmt(elapsedMs / 1000, 3)} s). σ per measurement{" "}
-        {fmt(result.sigmaPerPointRad * 1e6, 3)} µrad.
+        {result.designsEvaluated.toLocaleString("en")} designs, {fmt(elapsedMs / 1000, 3)} s).
       </p>
+      <ul aria-label="What the plans assume" className="grid gap-0.5 text-sm">
+        <li>{definitionText(request) ?? `Analysis: free ${result.freeKeys.join(", ")}.`}</li>
+        <li>{noiseText(result.noise)}</li>
+        {result.robust ? (
+          <li>
+            Ranked by the {result.robust.mode === "worst" ? "worst case" : "average"} over {result.robust.samples} seeded samples of the
+            prior ranges; the best plan at the ranges&apos; ends:{" "}
+            {result.robust.ends
+              .map(
+                (e) =>
+                  `${e.key} = ${fmt(e.value, 4)}: σ ${sigmaText(e.expectedSigma, result.criterionUnit)}` +
+                  (e.detectionSignificance !== null ? `, ${fmt(e.detectionSignificance, 3)}σ detection` : ""),
+              )
+              .join("; ")}
+            .
+          </li>
+        ) : null}
+      </ul>
       <div role="note" aria-label="What the model implies" className="rounded-md border border-lux/40 bg-lux-light/60 px-4 py-3 text-sm">
         <p className="font-semibold">What the model implies</p>
         <ul className="mt-1 list-disc space-y-1 pl-5">
@@ -173,7 +204,7 @@ export function PlanResults({
           />
         ) : (
           <p className="text-sm text-ink-soft">
-            No number of points up to {request.points} separates the free parameters, so there is no σ to plot.
+            No number of points up to {request.points} separates the varied parameters, so there is no σ to plot.
           </p>
         )}
       </div>
@@ -204,12 +235,14 @@ function PlanCard({
         <input id={id} type="radio" name={name} checked={checked} onChange={onChoose} />
         <span className="font-semibold">Plan {plan.rank}</span>
         <span className="tabular-nums">expected σ {sigmaText(plan.expectedSigma, unit)}</span>
+        <span className="tabular-nums text-sm">{costText(plan.costHours)}</span>
         {plan.partsCorrelation !== null ? (
           <span className="text-sm text-ink-soft">correlation between the parts {fmt(plan.partsCorrelation, 3)}</span>
         ) : null}
       </label>
+      {plan.detection ? <p className="mt-1 text-sm">{detectionText(plan.detection)}</p> : null}
       <div className="relative mt-2 overflow-x-auto">
-        <table className="w-full min-w-[32rem] text-sm">
+        <table className="w-full min-w-[40rem] text-sm">
           <caption className="sr-only">Points of plan {plan.rank}</caption>
           <thead className="text-left text-ink-soft">
             <tr>
@@ -232,10 +265,16 @@ function PlanCard({
                 predicted θ (mrad)
               </th>
               <th scope="col" className="pr-2 font-medium">
+                transmission
+              </th>
+              <th scope="col" className="pr-2 font-medium">
+                σ (mrad)
+              </th>
+              <th scope="col" className="pr-2 font-medium">
                 magnetic share
               </th>
               <th scope="col" className="font-medium">
-                signal / noise
+                signal / noise, flags
               </th>
             </tr>
           </thead>
@@ -248,10 +287,17 @@ function PlanCard({
                 <td className="pr-2">{p.fieldT}</td>
                 <td className="pr-2">{p.count}</td>
                 <td className="pr-2">{fmt(p.rotationRad * 1000, 4)}</td>
+                <td className="pr-2">{fmtPercent(p.transmission)}</td>
+                <td className="pr-2">{fmt(p.sigmaRad * 1000, 3)}</td>
                 <td className="pr-2">{fmtPercent(Number.isFinite(p.magneticShare) ? p.magneticShare : null)}</td>
                 <td>
                   {fmt(p.signalToNoise, 3)}
                   {p.belowNoise ? <span className="ml-2 rounded bg-ember-light px-1.5 text-ember">below noise</span> : null}
+                  {p.flags.includes("phase-wrap") ? (
+                    <span className="ml-2 rounded bg-ember-light px-1.5 text-ember" title="needs a field sweep to unwrap">
+                      past π/2
+                    </span>
+                  ) : null}
                 </td>
               </tr>
             ))}

@@ -5,6 +5,7 @@ import { Button, LinkButton } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { DateTime } from "@/components/ui/date-time";
 import { markersQueryValue } from "@/lib/planner/markers-query";
+import { savedPlanSummary } from "@/lib/planner/summary";
 import type { SavedPlan } from "@/lib/contracts/plans";
 import { useDeletePlan } from "@/lib/query/planner";
 import { fmt } from "@/lib/workbench/format";
@@ -38,6 +39,11 @@ export function SavedPlans({
               <strong>{p.name}</strong> — {p.plan.points.map((pt) => `${pt.wavelengthNm} nm×${pt.count}`).join(", ")}; σ{" "}
               {p.plan.expectedSigma === null ? "∞" : fmt(p.plan.expectedSigma, 3)} {p.plan.criterionUnit} · v{p.setVersion} ·{" "}
               {p.createdBy.name} · <DateTime iso={p.createdAt} />
+              {savedPlanSummary(p.plan, p.request).map((line) => (
+                <span key={line} className="block text-ink-soft">
+                  {line}
+                </span>
+              ))}
             </span>
             <span className="flex gap-1">
               <LinkButton

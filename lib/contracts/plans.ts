@@ -14,6 +14,12 @@ export const savedPlanPointSchema = z.strictObject({
   count: finite("count").int().min(1).max(1000),
   rotationRad: finite("rotation"),
   belowNoise: z.boolean(),
+  /** Fraction of the light that leaves the sample there (absent in plans saved before the noise model). */
+  transmission: finite("transmission").min(0).max(1).optional(),
+  flags: z
+    .array(z.enum(["phase-wrap", "below-noise"]))
+    .max(2)
+    .optional(),
 });
 
 export const savedPlanSchema = z.strictObject({
@@ -26,6 +32,27 @@ export const savedPlanSchema = z.strictObject({
   partsCorrelation: finite("correlation").min(-1.000001).max(1.000001).nullable(),
   points: z.array(savedPlanPointSchema).min(1, "A plan needs at least one point.").max(60),
   notes: z.array(safeString().max(600)).max(20),
+  /** Detection of the magnetic-dipole part in this model; absent or null when the plan does not determine magneticScale. */
+  detection: z
+    .strictObject({
+      alternative: finite("alternative").gt(0),
+      deltaChi2Null: finite("expected Δχ²").min(0),
+      significance: finite("significance").min(0),
+      repeatsFor3Sigma: finite("repeats").int().min(1).nullable(),
+      repeatsFor5Sigma: finite("repeats").int().min(1).nullable(),
+    })
+    .nullable()
+    .optional(),
+  /** Lab time of the plan, hours. */
+  costHours: finite("cost").min(0).optional(),
+  /** The laboratory noise the plan assumed. */
+  noise: z
+    .strictObject({
+      absoluteRad: finite("polarimeter noise").gt(0),
+      relativeFloor: finite("relative floor").min(0).max(1),
+      minTransmission: finite("minimum transmission").gt(0).max(1),
+    })
+    .optional(),
 });
 export type SavedPlanBody = z.infer<typeof savedPlanSchema>;
 

@@ -45,13 +45,26 @@ export class TopK {
   }
 }
 
-/** What a search needs: the per-candidate information (information.ts layout) and the criterion. */
+/**
+ * What a search needs: the per-candidate information (information.ts layout) and the criterion.
+ * A candidate's block is one p×p information per parameter sample (the robust design evaluates a
+ * design at several samples of the prior ranges at once); a design's criterion aggregates the
+ * samples' criteria by `aggregate`.
+ */
 export interface SearchProblem {
-  /** Row-major p×p information of each candidate, candidate after candidate. */
+  /** Row-major p×p information per sample, samples after each other, candidate after candidate. */
   info: Float64Array;
   candidateCount: number;
-  /** Number of free parameters. */
+  /** Number of varied parameters (free ones and nuisances). */
   p: number;
+  /** Information every design starts from (the priors), one p×p per sample; absent: zero. */
+  base?: Float64Array;
+  /** 1 where a candidate may be chosen; absent: all. */
+  allowed?: Uint8Array;
+  /** Per-sample criteria, one per block; absent: `spec` for one sample. */
+  specs?: CriterionSpec[];
+  /** How the samples' criteria combine (default "average"). */
+  aggregate?: "average" | "worst";
   /** Points per design. */
   points: number;
   /** How many ranked designs to keep. */
@@ -76,27 +89,46 @@ export interface SearchResult {
 type Evaluate = (f: Float64Array, floor?: number) => number;
 
 function evaluator(problem: SearchProblem): Evaluate {
-  const { p, spec } = problem;
+  const { p } = problem;
+  const pp = p * p;
+  const specs = problem.specs ?? [problem.spec];
   const work = new Float64Array(2 * p * p + 2 * p);
-  return (f, floor) => criterionOf(f, p, spec, work, floor);
+  if (specs.length === 1) return (f, floor) => criterionOf(f, p, specs[0]!, work, floor);
+  const worst = problem.aggregate === "worst";
+  return (f, floor) => {
+    let acc = 0;
+    for (let s = 0; s < specs.length; s++) {
+      const v = criterionOf(f.subarray(s * pp, (s + 1) * pp), p, specs[s]!, work, floor);
+      if (!Number.isFinite(v)) return Infinity;
+      acc = worst ? Math.max(acc, v) : acc + v / specs.length;
+    }
+    return acc;
+  };
 }
+
+/** Length of one candidate's information block (p² per sample). */
+export const blockLength = (problem: SearchProblem) => problem.p * problem.p * (problem.specs?.length ?? 1);
+
+const isAllowed = (problem: SearchProblem, c: number) => problem.allowed === undefined || problem.allowed[c] === 1;
 
 /** Exhaustive when the designs of 1…N points number at most `exhaustiveLimit`, else greedy with exchanges. */
 export function searchDesigns(problem: SearchProblem, exhaustiveLimit = EXHAUSTIVE_LIMIT): SearchResult {
   let totalDesigns = 0;
-  for (let k = 1; k <= problem.points; k++) totalDesigns += multisetCount(problem.candidateCount, k);
+  const n = problem.allowed ? problem.allowed.reduce((a, b) => a + b, 0) : problem.candidateCount;
+  for (let k = 1; k <= problem.points; k++) totalDesigns += multisetCount(n, k);
   return totalDesigns <= exhaustiveLimit ? exhaustiveSearch(problem, totalDesigns) : greedySearch(problem);
 }
 
 /** Every multiset of 1…N points, depth first, the information summed along the way. */
 function exhaustiveSearch(problem: SearchProblem, totalDesigns: number): SearchResult {
   const { info, candidateCount: C, points: N, checkCancel, progress } = problem;
-  const pp = problem.p * problem.p;
+  const pp = blockLength(problem);
   const evaluate = evaluator(problem);
   let evaluated = 0;
   const top = new TopK(problem.topPlans);
   const sigmaVsPoints: { points: number; sigma: number }[] = [];
   const levels = Array.from({ length: N + 1 }, () => new Float64Array(pp));
+  if (problem.base) levels[0]!.set(problem.base);
   const stack = new Array<number>(N).fill(0);
   for (let size = 1; size <= N; size++) {
     const bestOfSize = new TopK(size === N ? problem.topPlans : 1);
@@ -104,6 +136,7 @@ function exhaustiveSearch(problem: SearchProblem, totalDesigns: number): SearchR
       const parent = levels[depth]!;
       const child = levels[depth + 1]!;
       for (let c = start; c < C; c++) {
+        if (!isAllowed(problem, c)) continue;
         child.set(parent);
         addScaled(child, info, c * pp, pp);
         stack[depth] = c;
@@ -144,8 +177,10 @@ interface GreedyState {
 
 /** Greedy addition, exchange passes, then the best plan with one point exchanged as the alternatives. */
 function greedySearch(problem: SearchProblem): SearchResult {
-  const pp = problem.p * problem.p;
+  const pp = blockLength(problem);
   const { candidateCount: C, points: N } = problem;
+  if (problem.allowed && !problem.allowed.some((a) => a === 1))
+    return { method: "greedy", top: new TopK(problem.topPlans), sigmaVsPoints: [], evaluated: 0 };
   const state: GreedyState = {
     problem,
     evaluate: evaluator(problem),
@@ -157,6 +192,7 @@ function greedySearch(problem: SearchProblem): SearchResult {
     evaluated: 0,
     steps: N * C + 3 * N * C,
   };
+  if (problem.base) state.current.set(problem.base);
   const sigmaVsPoints = greedyAddition(state);
   const bestValue = exchangePasses(state);
   const last = sigmaVsPoints[N - 1];
@@ -176,26 +212,30 @@ function greedyAddition(s: GreedyState): { points: number; sigma: number }[] {
   const { info, candidateCount: C, points: N, p, checkCancel, progress } = s.problem;
   const { pp, current, trial } = s;
   const ridge = new Float64Array(pp);
-  for (let k = 0; k < p; k++) {
-    let max = 0;
-    for (let c = 0; c < C; c++) max = Math.max(max, info[c * pp + k * p + k]!);
-    ridge[k * p + k] = 1e-9 * max;
+  for (let b = 0; b < pp; b += p * p) {
+    for (let k = 0; k < p; k++) {
+      let max = 0;
+      for (let c = 0; c < C; c++) max = Math.max(max, info[c * pp + b + k * p + k]!);
+      ridge[b + k * p + k] = 1e-9 * max;
+    }
   }
   const sigmaVsPoints: { points: number; sigma: number }[] = [];
   for (let k = 1; k <= N; k++) {
-    let bestC = 0;
+    let bestC = -1;
     let bestV = Infinity;
     for (let c = 0; c < C; c++) {
+      if (!isAllowed(s.problem, c)) continue;
       trial.set(current);
       addScaled(trial, info, c * pp, pp);
       addScaled(trial, ridge, 0, pp);
       s.evaluated++;
       const v = s.evaluate(trial, 0);
-      if (v < bestV) {
+      if (v < bestV || bestC < 0) {
         bestV = v;
         bestC = c;
       }
     }
+    if (bestC < 0) break;
     s.chosen.push(bestC);
     addScaled(current, info, bestC * pp, pp);
     sigmaVsPoints.push({ points: k, sigma: s.evaluate(current) });
@@ -229,7 +269,7 @@ function exchangePasses(s: GreedyState): number {
     for (let pos = 0; pos < N; pos++) {
       removeChosen(s, pos);
       for (let c = 0; c < C; c++) {
-        if (c === chosen[pos]) continue;
+        if (c === chosen[pos] || !isAllowed(s.problem, c)) continue;
         const v = withCandidate(s, c);
         if (v < bestValue * (1 - 1e-12)) {
           bestValue = v;
@@ -254,7 +294,7 @@ function offerOneExchangeAlternatives(s: GreedyState, top: TopK): void {
   for (let pos = 0; pos < N; pos++) {
     removeChosen(s, pos);
     for (let c = 0; c < C; c++) {
-      if (c === chosen[pos]) continue;
+      if (c === chosen[pos] || !isAllowed(s.problem, c)) continue;
       const v = withCandidate(s, c);
       if (v < top.worst()) {
         const alt = [...chosen];

@@ -82,6 +82,14 @@ describe("planner in the browser", () => {
         await markerTable.getByRole("rowheader", { name: `${w} nm`, exact: true }).waitFor({ timeout: 30_000 });
       }
 
+      // Back on the planner, the inputs and the last results are still there.
+      await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
+      await planner.plans.first().waitFor({ timeout: 30_000 });
+      expect(await page.getByLabel("Points you can afford").inputValue()).toBe("3");
+      // The plan card shows the detection and the cost, each point its transmission.
+      expect(await planner.plans.first().innerText()).toMatch(/Cost: about .* h of lab time/);
+      expect(await page.getByRole("list", { name: "What the plans assume" }).innerText()).toMatch(/Analysis: free gyrationPerT/);
+
       await page.goto(`/parameter-sets/${DEMO_GARNET_SET_ID}/report`);
       await page.getByRole("heading", { name: "Saved measurement plan" }).waitFor({ timeout: 30_000 });
       await page.getByText(planName, { exact: false }).first().waitFor();
@@ -105,9 +113,10 @@ describe("planner in the browser", () => {
       await page.goto(`/planner?setId=${DEMO_GARNET_SET_ID}`);
       await page.getByLabel(/Nd:YAG “Old Faithful” \(1064 nm\)/).waitFor({ timeout: 30_000 });
       // A fine grid: thousands of candidates, a greedy search of several seconds.
+      await page.getByLabel("Temperatures given as").selectOption("range");
       await page.getByLabel("Temperature step").fill("2");
       await page.getByLabel("Field step").fill("0.1");
-      await page.getByLabel("Highest field").fill("2.5");
+      await page.getByLabel("Magnet's largest field").fill("2.5");
       await page.getByLabel("Points you can afford").fill("20");
       await page.getByRole("button", { name: "Run planner" }).click();
       await page.getByRole("button", { name: "Cancel" }).click({ timeout: 10_000 });

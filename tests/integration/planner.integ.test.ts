@@ -85,6 +85,9 @@ describe("light sources and plans through the API", () => {
       noise: { kind: "sigma", sigmaRad: 1e-5 },
       points: 2,
       criterion: { kind: "share", wavelengthNm: 1064 },
+      // The two amplitudes, and every line usable: this test is about storing a plan.
+      definition: { free: [{ key: "gyrationPerT" }, { key: "magneticScale", min: 0 }] },
+      optics: { minTransmission: 1e-9 },
     });
     const result = planMeasurements(request);
     const best = result.plans[0]!;
@@ -108,8 +111,12 @@ describe("light sources and plans through the API", () => {
           count: p.count,
           rotationRad: p.rotationRad,
           belowNoise: p.belowNoise,
+          transmission: p.transmission,
+          flags: p.flags,
         })),
         notes: result.notes,
+        costHours: best.costHours,
+        noise: result.noise,
       },
     };
     expect((await viewer.post(`/api/parameter-sets/${set.id}/plans`, body)).status).toBe(403);
@@ -118,6 +125,10 @@ describe("light sources and plans through the API", () => {
     expect(saved.status).toBe(201);
     const planId = saved.body.item.id as string;
     expect(saved.body.item.plan.points).toHaveLength(best.points.length);
+    // The saved plan records the analysis definition it was made for, the noise model and the cost.
+    expect(saved.body.item.request.definition.free.map((f: { key: string }) => f.key)).toEqual(["gyrationPerT", "magneticScale"]);
+    expect(saved.body.item.plan.noise).toEqual(result.noise);
+    expect(saved.body.item.plan.costHours).toBeCloseTo(best.costHours, 12);
 
     const list = await viewer.get(`/api/parameter-sets/${set.id}/plans`);
     expect(list.status).toBe(200);

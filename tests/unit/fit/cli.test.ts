@@ -64,8 +64,9 @@ describe("fit command line", () => {
     expect(out.points[points.length - 1].measured).toBeCloseTo(points[points.length - 1]!.value, 10);
 
     const scaled = JSON.parse(run(["--params", paramsFile, "--data", dataFile, "--scale-by-chi2"]).stdout);
-    const factor = Math.sqrt(out.chi2 / out.dof);
-    expect(scaled.sigmas.magneticScale / out.sigmas.magneticScale).toBeCloseTo(factor, 9);
+    // Scaling never shrinks σ (χ²/dof below 1 leaves them as they are).
+    const factor = Math.max(1, Math.sqrt(out.chi2 / out.dof));
+    expect(scaled.sigmas.magneticScale / out.sigmas.magneticScale).toBeCloseTo(factor, 6);
   });
 
   it("takes missing condition columns from the parameter file and honours --free", () => {

@@ -246,13 +246,28 @@ describe("separation verdict", () => {
 describe("options and errors", () => {
   const points = syntheticPoints(truth, conditions, SIGMA, seededGaussian(8));
 
-  it("scales σ and the share σ by √(χ²/dof) on request", () => {
-    const plain = fitMeasurements({ params: base, free: DEFAULT_FREE, points });
-    const scaled = fitMeasurements({ params: base, free: DEFAULT_FREE, points, scaleByChi2: true });
+  it("scales σ and the share σ by √(χ²/dof) on request, never below 1, and not at dof < 3", () => {
+    // σ stated at half the true scatter: χ²/dof ≈ 4, so scaling doubles σ.
+    const understated = points.map((p) => ({ ...p, sigma: p.sigma / 2 }));
+    const plain = fitMeasurements({ params: base, free: DEFAULT_FREE, points: understated });
+    const scaled = fitMeasurements({ params: base, free: DEFAULT_FREE, points: understated, scaleByChi2: true });
+    expect(plain.reducedChi2).toBeGreaterThan(2);
     const f = Math.sqrt(plain.reducedChi2);
     expect(scaled.sigmaScaledByChi2).toBe(true);
+    expect(scaled.sigmaScale).toBeCloseTo(f, 9);
     for (const k of plain.free) expect(rel(scaled.sigmas[k]!, plain.sigmas[k]! * f)).toBeLessThan(1e-9);
     expect(rel(scaled.points[5]!.magneticShareSigma!, plain.points[5]!.magneticShareSigma! * f)).toBeLessThan(1e-9);
+    // σ stated at twice the scatter: χ²/dof ≈ 1/4, and scaling leaves σ unchanged.
+    const overstated = points.map((p) => ({ ...p, sigma: p.sigma * 2 }));
+    const loose = fitMeasurements({ params: base, free: DEFAULT_FREE, points: overstated });
+    const looseScaled = fitMeasurements({ params: base, free: DEFAULT_FREE, points: overstated, scaleByChi2: true });
+    expect(loose.reducedChi2).toBeLessThan(0.5);
+    expect(looseScaled.sigmaScale).toBe(1);
+    for (const k of loose.free) expect(looseScaled.sigmas[k]).toBe(loose.sigmas[k]);
+    // Four points, two free: dof = 2 is too few to estimate σ from the scatter.
+    expect(() => fitMeasurements({ params: base, free: DEFAULT_FREE.slice(0, 2), points: points.slice(0, 4), scaleByChi2: true })).toThrow(
+      /at least 3 degrees of freedom/,
+    );
   });
 
   it("keeps a parameter inside its bounds and says it ended on one", () => {

@@ -40,6 +40,11 @@ describe("plan export and hand-over", () => {
     separable: true,
     partsCorrelation: -0.9,
     parameterSigma: {},
+    rankedValue: 0.0123,
+    detection: null,
+    measurements: 3,
+    cooldowns: 1,
+    costHours: 1.05,
     points: [
       {
         index: 0,
@@ -52,6 +57,10 @@ describe("plan export and hand-over", () => {
         magneticShare: 0.03,
         signalToNoise: 1.5e5,
         belowNoise: false,
+        powerW: null,
+        transmission: 0.9,
+        sigmaRad: 1e-5,
+        flags: [],
       },
       {
         index: 5,
@@ -64,6 +73,10 @@ describe("plan export and hand-over", () => {
         magneticShare: 0.09,
         signalToNoise: 0.5,
         belowNoise: true,
+        powerW: 2,
+        transmission: 0.5,
+        sigmaRad: 0.8,
+        flags: ["below-noise"],
       },
     ],
   };

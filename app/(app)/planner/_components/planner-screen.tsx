@@ -1,13 +1,14 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useId, useMemo, useState, type FormEvent } from "react";
+import { useEffect, useId, useMemo, useState, type FormEvent } from "react";
 import { CautionsPanel } from "@/components/planner/cautions-panel";
 import { LightSourcesPanel } from "@/components/planner/light-sources-panel";
 import { PlanResults } from "@/components/planner/plan-results";
 import { RotatorPanel } from "@/components/planner/rotator-panel";
 import { SavedPlans } from "@/components/planner/saved-plans";
 import { usePlanRun } from "@/components/planner/use-plan-run";
+import { usePlannerDraft } from "@/components/planner/use-planner-draft";
 import { Button, LinkButton } from "@/components/ui/button";
 import { ErrorPanel } from "@/components/ui/error-panel";
 import { PageHeader } from "@/components/ui/page-header";
@@ -15,10 +16,14 @@ import { SkeletonRows } from "@/components/ui/skeleton";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { zodIssueLines } from "@/lib/contracts/validation";
 import { cautionsFor } from "@/lib/planner/cautions";
+import { FREEABLE_KEYS, type FreeableKey } from "@/lib/analysis/definition";
+import { type PlannerDrafts, defaultPlannerDrafts, planRequestFromDrafts } from "@/lib/planner/form";
+import type { PlanResult } from "@/lib/planner/plan";
 import { type PlanRequest, planRequestSchema, rangeValues } from "@/lib/planner/schema";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { useParameterSet, useParameterSets } from "@/lib/query/parameter-sets";
 import { useLightSources, usePlans } from "@/lib/query/planner";
+import { fmt } from "@/lib/workbench/format";
 import { parseNumber } from "@/lib/workbench/validate";
 
 /** /planner: choose a parameter set, then plan measurements and size a rotator for it. */
@@ -79,28 +84,12 @@ function PlannerForSet({ setId }: { setId: string }) {
   );
 }
 
-interface Drafts {
-  tMin: string;
-  tMax: string;
-  tStep: string;
-  bMin: string;
-  bMax: string;
-  bStep: string;
-  lengthMm: string;
-  noiseKind: "density" | "sigma";
-  densityUrad: string;
-  integrationS: string;
-  sigmaUrad: string;
-  points: string;
-  criterion: "share" | "magneticScale" | "dOptimal";
-  shareNm: string;
-}
-
 const FIELD_LABEL: Record<string, string> = {
   lines: "Lines",
   minK: "Lowest temperature",
   maxK: "Highest temperature",
   stepK: "Temperature step",
+  valuesK: "Temperatures",
   minT: "Lowest field",
   maxT: "Highest field",
   stepT: "Field step",
@@ -109,10 +98,21 @@ const FIELD_LABEL: Record<string, string> = {
   radPerSqrtHz: "Noise",
   integrationS: "Integration time",
   sigmaRad: "σ per point",
+  relativeFloor: "Relative floor",
+  minTransmission: "Minimum transmission",
+  referencePowerW: "Reference power",
   points: "Points",
   criterion: "Quantity",
+  alternative: "Alternative magneticScale",
   wavelengthNm: "Wavelength",
-  freeKeys: "Free parameters",
+  free: "Free parameters",
+  key: "Free parameters",
+  scaleSigma: "Field × length calibration",
+  temperatureSigmaK: "Temperature calibration",
+  samples: "Samples",
+  ranges: "Prior ranges",
+  perPointS: "Time per point",
+  perCooldownS: "Time per cool-down",
 };
 
 /** An issue's field as the form names it: the last key of its path (list positions skipped), else "Request". */
@@ -125,6 +125,16 @@ const planFieldLabel = (path: string) =>
   ] ?? "Request";
 
 const num = (s: string) => parseNumber(s) ?? Number.NaN;
+
+/** What the planner keeps in the tab for this set: the inputs as typed and the last run. */
+interface PlannerDraft {
+  drafts: PlannerDrafts;
+  unchecked: string[];
+  typed: { name: string; wavelengthNm: number }[];
+  last: { result: PlanResult; request: PlanRequest; elapsedMs: number } | null;
+}
+
+type TextDraftKey = { [K in keyof PlannerDrafts]: PlannerDrafts[K] extends string ? K : never }[keyof PlannerDrafts];
 
 function PlannerBody({
   set,
@@ -139,75 +149,89 @@ function PlannerBody({
   const sources = useLightSources(set.labId);
   const plans = usePlans(set.id);
   const { state, run, cancel } = usePlanRun();
-  const [unchecked, setUnchecked] = useState<Set<string>>(new Set());
-  const [typed, setTyped] = useState<{ name: string; wavelengthNm: number }[]>([]);
+  const [draft, setDraft] = usePlannerDraft<PlannerDraft>(set.id, () => ({
+    drafts: defaultPlannerDrafts(params),
+    unchecked: [],
+    typed: [],
+    last: null,
+  }));
+  const { drafts, typed } = draft;
+  const unchecked = useMemo(() => new Set(draft.unchecked), [draft.unchecked]);
   const [typedDraft, setTypedDraft] = useState("");
   const [typedError, setTypedError] = useState<string | null>(null);
-  const [drafts, setDrafts] = useState<Drafts>(() => ({
-    tMin: String(Math.max(10, Math.ceil(params.curieWeissK + 1))),
-    tMax: "300",
-    tStep: "10",
-    bMin: "0.5",
-    bMax: "2",
-    bStep: "0.5",
-    lengthMm: String(Number((params.lengthM * 1000).toPrecision(6))),
-    noiseKind: "density",
-    densityUrad: "1",
-    integrationS: "1",
-    sigmaUrad: "1",
-    points: "4",
-    criterion: "share",
-    shareNm: "1064",
-  }));
-  const [ranRequest, setRanRequest] = useState<PlanRequest | null>(null);
+  const [pendingRequest, setPendingRequest] = useState<PlanRequest | null>(null);
   const [issues, setIssues] = useState<string[]>([]);
 
   const labLines = useMemo(() => sources.data ?? [], [sources.data]);
   const chosenLines = useMemo(
-    () => [...labLines.filter((l) => !unchecked.has(l.id)).map((l) => ({ name: l.name, wavelengthNm: l.wavelengthNm })), ...typed],
+    () => [
+      ...labLines
+        .filter((l) => !unchecked.has(l.id))
+        .map((l) => ({ name: l.name, wavelengthNm: l.wavelengthNm, powerW: l.powerW ?? null })),
+      ...typed,
+    ],
     [labLines, unchecked, typed],
   );
 
-  const setDraft = (key: keyof Drafts) => (value: string) => setDrafts((d) => ({ ...d, [key]: value }));
-  const input = (key: keyof Drafts, label: string, unit: string) => (
+  // A finished run becomes the remembered last result.
+  useEffect(() => {
+    if (state.status === "done" && pendingRequest) {
+      const { result, elapsedMs } = state;
+      setDraft((d) => ({ ...d, last: { result, request: pendingRequest, elapsedMs } }));
+      setPendingRequest(null);
+    }
+  }, [state, pendingRequest, setDraft]);
+
+  const setField =
+    <K extends keyof PlannerDrafts>(key: K) =>
+    (value: PlannerDrafts[K]) =>
+      setDraft((d) => ({ ...d, drafts: { ...d.drafts, [key]: value } }));
+  const input = (key: TextDraftKey, label: string, unit: string) => (
     <label className="grid gap-1 text-sm" htmlFor={`${base}-${key}`}>
       <span>
-        {label} <span className="text-ink-soft">({unit})</span>
+        {label} {unit ? <span className="text-ink-soft">({unit})</span> : null}
       </span>
       <input
         id={`${base}-${key}`}
-        inputMode="decimal"
+        inputMode={key === "priors" || key === "robustRanges" || key === "tSet" ? "text" : "decimal"}
         className={INPUT_CLASS}
         value={drafts[key]}
-        onChange={(e) => setDraft(key)(e.target.value)}
+        onChange={(e) => setField(key)(e.target.value)}
       />
     </label>
   );
-
-  const buildRequest = () =>
-    planRequestSchema.safeParse({
-      params,
-      lines: chosenLines,
-      temperatures: { minK: num(drafts.tMin), maxK: num(drafts.tMax), stepK: num(drafts.tStep) },
-      fields: { minT: num(drafts.bMin), maxT: num(drafts.bMax), stepT: num(drafts.bStep) },
-      lengthM: num(drafts.lengthMm) / 1000,
-      noise:
-        drafts.noiseKind === "density"
-          ? { kind: "density", radPerSqrtHz: num(drafts.densityUrad) * 1e-6, integrationS: num(drafts.integrationS) }
-          : { kind: "sigma", sigmaRad: num(drafts.sigmaUrad) * 1e-6 },
-      points: num(drafts.points),
-      criterion: drafts.criterion === "share" ? { kind: "share", wavelengthNm: num(drafts.shareNm) } : { kind: drafts.criterion },
-    });
+  const select = <K extends keyof PlannerDrafts>(key: K, label: string, options: [PlannerDrafts[K] & string, string][]) => (
+    <label className="grid gap-1 text-sm" htmlFor={`${base}-${key}`}>
+      {label}
+      <select
+        id={`${base}-${key}`}
+        className={INPUT_CLASS}
+        value={drafts[key] as string}
+        onChange={(e) => setField(key)(e.target.value as PlannerDrafts[K])}
+      >
+        {options.map(([value, text]) => (
+          <option key={value} value={value}>
+            {text}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
 
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    const parsed = buildRequest();
+    const built = planRequestFromDrafts(drafts, params, chosenLines);
+    if (!built.ok) {
+      setIssues(built.issues);
+      return;
+    }
+    const parsed = planRequestSchema.safeParse(built.input);
     if (!parsed.success) {
       setIssues(zodIssueLines(parsed.error.issues, { rootLabel: "Request", label: planFieldLabel }));
       return;
     }
     setIssues([]);
-    setRanRequest(parsed.data);
+    setPendingRequest(parsed.data);
     void run(parsed.data);
   };
 
@@ -216,34 +240,34 @@ function PlannerBody({
     const nm = parseNumber((nmPart ?? "").trim());
     if (nm === null || nm <= 0) return setTypedError("Type a wavelength in nm (e.g. 780), or name@wavelength (e.g. probe@780).");
     setTypedError(null);
-    setTyped((t) => [...t, { name: (namePart ?? "").trim() || `typed ${nm} nm`, wavelengthNm: nm }]);
+    setDraft((d) => ({ ...d, typed: [...d.typed, { name: (namePart ?? "").trim() || `typed ${nm} nm`, wavelengthNm: nm }] }));
     setTypedDraft("");
   };
 
-  const temps = (() => {
-    const a = num(drafts.tMin);
-    return Number.isFinite(a) ? a : null;
-  })();
+  const temperatureList = drafts.tMode === "set" ? drafts.tSet.split(/[,;]/).map(num).filter(Number.isFinite) : [];
+  const lowestK = drafts.tMode === "set" ? (temperatureList.length > 0 ? Math.min(...temperatureList) : null) : num(drafts.tMin);
   const bMax = Math.max(Math.abs(num(drafts.bMin)) || 0, Math.abs(num(drafts.bMax)) || 0);
   const cautions = cautionsFor({
     lines: [
       ...labLines.filter((l) => !unchecked.has(l.id)).map((l) => ({ name: l.name, wavelengthNm: l.wavelengthNm, powerW: l.powerW })),
       ...typed.map((t) => ({ ...t, powerW: null })),
     ],
-    minTemperatureK: temps,
+    minTemperatureK: lowestK !== null && Number.isFinite(lowestK) ? lowestK : null,
     maxFieldT: bMax > 0 ? bMax : null,
   });
   const candidateCount = (() => {
     try {
-      return (
-        chosenLines.length *
-        rangeValues(num(drafts.tMin), num(drafts.tMax), num(drafts.tStep)).length *
-        rangeValues(num(drafts.bMin), num(drafts.bMax), num(drafts.bStep)).filter((b) => b !== 0).length
-      );
+      const temps =
+        drafts.tMode === "set" ? temperatureList.length : rangeValues(num(drafts.tMin), num(drafts.tMax), num(drafts.tStep)).length;
+      return chosenLines.length * temps * rangeValues(num(drafts.bMin), num(drafts.bMax), num(drafts.bStep)).filter((b) => b !== 0).length;
     } catch {
       return null;
     }
   })();
+  const toggleFree = (key: FreeableKey, on: boolean) =>
+    setField("free")(on ? [...drafts.free.filter((k) => k !== key), key] : drafts.free.filter((k) => k !== key));
+  // The last finished run (also after a cancel or an error of a newer one, and after coming back to the page).
+  const shown = state.status === "running" ? null : draft.last;
 
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
@@ -266,7 +290,15 @@ function PlannerBody({
       )}
 
       <form onSubmit={submit} aria-label="Plan measurements" className="grid gap-4 rounded-lg border border-ink/15 bg-paper-raised p-4">
-        <h2 className="text-lg font-semibold">Plan measurements</h2>
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h2 className="text-lg font-semibold">Plan measurements</h2>
+          <Button
+            variant="quiet"
+            onClick={() => setDraft((d) => ({ ...d, drafts: defaultPlannerDrafts(params), unchecked: [], typed: [] }))}
+          >
+            Reset inputs
+          </Button>
+        </div>
         <fieldset className="grid gap-2">
           <legend className="text-sm font-medium">Lines to choose from</legend>
           {labLines.length === 0 && typed.length === 0 ? (
@@ -279,21 +311,23 @@ function PlannerBody({
                   type="checkbox"
                   checked={!unchecked.has(l.id)}
                   onChange={(e) =>
-                    setUnchecked((u) => {
-                      const next = new Set(u);
-                      if (e.target.checked) next.delete(l.id);
-                      else next.add(l.id);
-                      return next;
-                    })
+                    setDraft((d) => ({
+                      ...d,
+                      unchecked: e.target.checked ? d.unchecked.filter((x) => x !== l.id) : [...d.unchecked, l.id],
+                    }))
                   }
                 />
-                {l.name} ({l.wavelengthNm} nm)
+                {l.name} ({l.wavelengthNm} nm){l.powerW ? <span className="text-ink-soft"> · {fmt(l.powerW * 1000, 3)} mW</span> : null}
               </label>
             ))}
             {typed.map((t, i) => (
               <span key={`${t.name}-${i}`} className="flex items-center gap-1">
                 {t.name} ({t.wavelengthNm} nm)
-                <Button variant="quiet" aria-label={`Remove ${t.name}`} onClick={() => setTyped((all) => all.filter((_, j) => j !== i))}>
+                <Button
+                  variant="quiet"
+                  aria-label={`Remove ${t.name}`}
+                  onClick={() => setDraft((d) => ({ ...d, typed: d.typed.filter((_, j) => j !== i) }))}
+                >
                   ×
                 </Button>
               </span>
@@ -325,58 +359,106 @@ function PlannerBody({
             </p>
           ) : null}
         </fieldset>
-        <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
-          {input("tMin", "Lowest temperature", "K")}
-          {input("tMax", "Highest temperature", "K")}
-          {input("tStep", "Temperature step", "K")}
-          {input("bMin", "Lowest field", "T")}
-          {input("bMax", "Highest field", "T")}
-          {input("bStep", "Field step", "T")}
-        </div>
-        <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
-          {input("lengthMm", "Sample length", "mm")}
-          <label className="grid gap-1 text-sm" htmlFor={`${base}-noiseKind`}>
-            Noise given as
-            <select
-              id={`${base}-noiseKind`}
-              className={INPUT_CLASS}
-              value={drafts.noiseKind}
-              onChange={(e) => setDraft("noiseKind")(e.target.value)}
-            >
-              <option value="density">noise density and time</option>
-              <option value="sigma">σ per point</option>
-            </select>
+        <fieldset className="grid gap-2">
+          <legend className="text-sm font-medium">Temperatures, field and sample</legend>
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+            {select("tMode", "Temperatures given as", [
+              ["set", "the lab's set (e.g. room, 77 K)"],
+              ["range", "a range with a step"],
+            ])}
+            {drafts.tMode === "set" ? (
+              input("tSet", "Available temperatures", "K, comma-separated")
+            ) : (
+              <>
+                {input("tMin", "Lowest temperature", "K")}
+                {input("tMax", "Highest temperature", "K")}
+                {input("tStep", "Temperature step", "K")}
+              </>
+            )}
+          </div>
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+            {input("bMin", "Lowest field", "T")}
+            {input("bMax", "Magnet's largest field", "T")}
+            {input("bStep", "Field step", "T")}
+            {input("lengthMm", "Sample length", "mm")}
+          </div>
+        </fieldset>
+        <fieldset className="grid gap-2">
+          <legend className="text-sm font-medium">Noise of the laboratory</legend>
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+            {select("noiseKind", "Polarimeter noise given as", [
+              ["density", "noise density and time"],
+              ["sigma", "σ per point"],
+            ])}
+            {drafts.noiseKind === "density" ? (
+              <>
+                {input("densityUrad", "Rotation noise at full transmission", "µrad/√Hz")}
+                {input("integrationS", "Integration per point", "s")}
+              </>
+            ) : (
+              input("sigmaUrad", "σ per point at full transmission", "µrad")
+            )}
+            {input("relativeFloorPct", "Relative floor", "% of θ")}
+            {input("minTransmissionPct", "Minimum transmission", "%")}
+            {input("referencePowerMw", "Noise stated at power (optional)", "mW")}
+          </div>
+          <label className="flex items-center gap-2 text-sm">
+            <input type="checkbox" checked={drafts.excludeWrapped} onChange={(e) => setField("excludeWrapped")(e.target.checked)} />
+            Exclude points that rotate past π/2 (otherwise they are flagged: they need a field sweep to unwrap)
           </label>
-          {drafts.noiseKind === "density" ? (
-            <>
-              {input("densityUrad", "Rotation noise", "µrad/√Hz")}
-              {input("integrationS", "Integration per point", "s")}
-            </>
-          ) : (
-            input("sigmaUrad", "σ per point", "µrad")
-          )}
-          {input("points", "Points you can afford", "count")}
-        </div>
-        <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
-          <label className="grid gap-1 text-sm" htmlFor={`${base}-criterion`}>
-            Quantity to pin down
-            <select
-              id={`${base}-criterion`}
-              className={INPUT_CLASS}
-              value={drafts.criterion}
-              onChange={(e) => setDraft("criterion")(e.target.value)}
-            >
-              <option value="share">σ of the magnetic share at a wavelength</option>
-              <option value="magneticScale">σ of magneticScale</option>
-              <option value="dOptimal">D-optimal (all free parameters)</option>
-            </select>
-          </label>
-          {drafts.criterion === "share" ? input("shareNm", "Share at wavelength", "nm") : null}
-          <p className="self-end text-xs text-ink-soft">
-            Free parameters: gyrationPerT (electric-dipole part) and magneticScale (magnetic-dipole part).{" "}
+          <p className="text-xs text-ink-soft">
+            σ per point = polarimeter noise / √(transmission × power / reference power) ⊕ relative floor ⊕ the calibration below, propagated
+            through the model. Points below the minimum transmission are never proposed.
+          </p>
+        </fieldset>
+        <fieldset className="grid gap-2">
+          <legend className="text-sm font-medium">The analysis (the fit&apos;s definition)</legend>
+          <div className="flex flex-wrap gap-x-4 gap-y-1 text-sm" role="group" aria-label="Free parameters">
+            {FREEABLE_KEYS.map((k) => (
+              <label key={k} className="flex items-center gap-1.5">
+                <input type="checkbox" checked={drafts.free.includes(k)} onChange={(e) => toggleFree(k, e.target.checked)} />
+                {k}
+              </label>
+            ))}
+          </div>
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
+            {input("priors", "Priors (KEY=MEAN:SIGMA, comma-separated)", "")}
+            {input("scaleSigmaPct", "Field × length calibration σ", "%")}
+            {input("temperatureSigmaK", "Temperature calibration σ", "K")}
+          </div>
+        </fieldset>
+        <fieldset className="grid gap-2">
+          <legend className="text-sm font-medium">What to plan for</legend>
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+            {select("criterion", "Quantity", [
+              ["detect", "detect the magnetic-dipole part"],
+              ["share", "σ of the magnetic share at a wavelength"],
+              ["magneticScale", "σ of magneticScale"],
+              ["dOptimal", "D-optimal (all varied parameters)"],
+            ])}
+            {drafts.criterion === "share" ? input("shareNm", "Share at wavelength", "nm") : null}
+            {drafts.criterion === "detect" ? input("alternative", "Alternative magneticScale (blank: prior or set)", "×") : null}
+            {input("points", "Points you can afford", "count")}
+            {select("robustMode", "Robust design", [
+              ["off", "off: at the set's values"],
+              ["average", "average over the prior ranges"],
+              ["worst", "worst case over the prior ranges"],
+            ])}
+            {drafts.robustMode !== "off" ? (
+              <>
+                {input("robustRanges", "Prior ranges (KEY=MIN:MAX)", "")}
+                {input("robustSamples", "Samples", "count")}
+              </>
+            ) : null}
+          </div>
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+            {input("perPointS", "Time per point", "s")}
+            {input("perCooldownH", "Time per cool-down", "h")}
+          </div>
+          <p className="text-xs text-ink-soft">
             {candidateCount !== null && Number.isFinite(candidateCount) ? `${candidateCount} candidate points.` : ""}
           </p>
-        </div>
+        </fieldset>
         {issues.length > 0 ? (
           <ul
             role="alert"
@@ -414,10 +496,8 @@ function PlannerBody({
         </div>
       </form>
 
-      {state.status === "done" && ranRequest ? (
-        <PlanResults result={state.result} request={ranRequest} elapsedMs={state.elapsedMs} set={set} canSave={canEdit} />
-      ) : null}
-      {state.status === "idle" ? <p className="text-sm text-ink-soft">Run the planner to see ranked plans.</p> : null}
+      {shown ? <PlanResults result={shown.result} request={shown.request} elapsedMs={shown.elapsedMs} set={set} canSave={canEdit} /> : null}
+      {state.status === "idle" && !draft.last ? <p className="text-sm text-ink-soft">Run the planner to see ranked plans.</p> : null}
 
       <CautionsPanel cautions={cautions} />
       <SavedPlans setId={set.id} plans={plans.data ?? null} loading={plans.isPending} canEdit={canEdit} />

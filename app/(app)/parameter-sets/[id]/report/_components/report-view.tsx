@@ -1,5 +1,6 @@
 "use client";
 
+import { savedPlanSummary } from "@/lib/planner/summary";
 import { useMemo, useState } from "react";
 import { CautionsPanel } from "@/components/planner/cautions-panel";
 import { LinePlot } from "@/components/plots/line-plot";
@@ -275,6 +276,11 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
               {plan.plan.candidateCount} candidates; σ per point {fmt(plan.plan.sigmaPerPointRad * 1e6, 3)} µrad
               {plan.plan.partsCorrelation !== null ? `; correlation between the parts ${fmt(plan.plan.partsCorrelation, 3)}` : ""}.
             </p>
+            <ul className="mt-1 text-sm">
+              {savedPlanSummary(plan.plan, plan.request).map((line) => (
+                <li key={line}>{line}</li>
+              ))}
+            </ul>
             <table className="mt-2 w-full text-sm">
               <thead className="text-left text-ink-soft">
                 <tr>
@@ -304,6 +310,8 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
                     <td className="py-0.5">
                       {p.lineName}
                       {p.belowNoise ? " (below noise)" : ""}
+                      {p.flags?.includes("phase-wrap") ? " (past π/2: unwrap with a field sweep)" : ""}
+                      {p.transmission !== undefined ? ` · transmission ${fmt(100 * p.transmission, 3)} %` : ""}
                     </td>
                     <td className="text-right">{p.wavelengthNm}</td>
                     <td className="text-right">{p.temperatureK}</td>
