@@ -25,6 +25,7 @@ export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
     workerId: result.workerId,
     attempt: result.attempt,
     computeMs: result.computeMs,
+    engineVersion: result.engineVersion,
     meta: result.meta,
     columns,
   };
