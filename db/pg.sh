@@ -12,6 +12,8 @@
 #      DATABASE_URL (its database name is created on start; default gyrolux),
 #      GYROLUX_PG_FAST=1 turns fsync off (test runs only: a crash can corrupt the cluster).
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 
 PORT="${GYROLUX_PG_PORT:-54329}"
 DATA="${GYROLUX_PG_DATA:-/tmp/gyrolux-pg-$PORT}"

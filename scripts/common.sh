@@ -1,6 +1,9 @@
 # Shared steps of scripts/demo.sh and scripts/test.sh. Sourced, not run.
 # Every step is idempotent: it does nothing when its work is already done.
 
+# Next.js would report build telemetry to its server; the scripts never phone home.
+export NEXT_TELEMETRY_DISABLED=1
+
 log() { printf '\033[1m[gyrolux]\033[0m %s\n' "$*" >&2; }
 
 as_root() {

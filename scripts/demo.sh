@@ -2,6 +2,8 @@
 # `npm run demo`: installs what is missing, starts PostgreSQL, migrates, seeds the demo lab and
 # serves the production build on http://localhost:${PORT:-3000}.
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 source scripts/common.sh
 

@@ -6,6 +6,8 @@
 #   3. a production build served on $GYROLUX_TEST_PORT
 #   4. unit + API integration tests (vitest), then browser tests (playwright-core + Chromium)
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 source scripts/common.sh
 

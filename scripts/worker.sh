@@ -10,6 +10,8 @@
 #      GYROLUX_WORKER_THREADS and the GYROLUX_RUN_* queue settings (README, "Lab runs"),
 #      GYROLUX_WORKER_STATE (pid/log folder, default /tmp/gyrolux-worker-$GYROLUX_PG_PORT).
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 
 STATE="${GYROLUX_WORKER_STATE:-/tmp/gyrolux-worker-${GYROLUX_PG_PORT:-54329}}"

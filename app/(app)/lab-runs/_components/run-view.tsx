@@ -77,7 +77,7 @@ export function RunView({ id }: { id: string }) {
 
 function RunResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRunResultBody; setLabel: string }) {
   const computed =
-    `Computed by ${result.workerId} in ${(result.computeMs / 1000).toFixed(1)} s` +
+    `Computed by ${result.workerId} with engine ${result.engineVersion} in ${(result.computeMs / 1000).toFixed(1)} s` +
     `${result.attempt > 1 ? ` (attempt ${result.attempt})` : ""}.`;
   const warnings = (result.meta.warnings as string[] | undefined) ?? [];
   return (
