@@ -43,10 +43,15 @@ describe("the .env loader", () => {
     const file = envFile(SAMPLE);
     const want = readEnvFile(file);
     const script = `eval "$(node lib/settings/env-file.mjs '${file}')"; printf '%s\\0' "$GYROLUX_PG_PORT" "$GYROLUX_MAIL_FROM" "$GYROLUX_SMTP_PASS" "$DATABASE_URL"`;
-    const env = { PATH: process.env.PATH ?? "", HOME: "/nonexistent" };
+    const env = { PATH: process.env.PATH ?? "", HOME: "/nonexistent", NODE_ENV: "test" as const };
     const out = spawnSync("bash", ["-c", script], { cwd: ROOT, env, encoding: "utf8" });
     expect(out.status, out.stderr).toBe(0);
-    expect(out.stdout.split("\0").slice(0, 4)).toEqual([want.GYROLUX_PG_PORT, want.GYROLUX_MAIL_FROM, want.GYROLUX_SMTP_PASS, want.DATABASE_URL]);
+    expect(out.stdout.split("\0").slice(0, 4)).toEqual([
+      want.GYROLUX_PG_PORT,
+      want.GYROLUX_MAIL_FROM,
+      want.GYROLUX_SMTP_PASS,
+      want.DATABASE_URL,
+    ]);
     const kept = spawnSync("bash", ["-c", script], { cwd: ROOT, env: { ...env, GYROLUX_PG_PORT: "999" }, encoding: "utf8" });
     expect(kept.stdout.split("\0")[0]).toBe("999");
   });
