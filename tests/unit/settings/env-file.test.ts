@@ -42,7 +42,8 @@ describe("the .env loader", () => {
   it("bash, through scripts/env.sh's loader, reads every value exactly as Node does (spaces, quotes, $, ;)", () => {
     const file = envFile(SAMPLE);
     const want = readEnvFile(file);
-    const script = `eval "$(node lib/settings/env-file.mjs '${file}')"; printf '%s\\0' "$GYROLUX_PG_PORT" "$GYROLUX_MAIL_FROM" "$GYROLUX_SMTP_PASS" "$DATABASE_URL"`;
+    const names = ["GYROLUX_PG_PORT", "GYROLUX_MAIL_FROM", "GYROLUX_SMTP_PASS", "DATABASE_URL"];
+    const script = `eval "$(node lib/settings/env-file.mjs '${file}')"; printf '%s\\0' ${names.map((n) => `"$${n}"`).join(" ")}`;
     const env = { PATH: process.env.PATH ?? "", HOME: "/nonexistent", NODE_ENV: "test" as const };
     const out = spawnSync("bash", ["-c", script], { cwd: ROOT, env, encoding: "utf8" });
     expect(out.status, out.stderr).toBe(0);
