@@ -60,3 +60,12 @@ build_fingerprint() {
     echo "distDir=${GYROLUX_NEXT_DIST_DIR:-.next}"
   } | sha256sum | cut -d' ' -f1
 }
+
+# DATABASE_URL as the lab-run workers log in: their own least-privilege role (db/pg.sh worker-role,
+# db/worker-role.sql) over TLS, checked against the certificate db/pg.sh made for 127.0.0.1.
+worker_database_url() {
+  local rest="${DATABASE_URL#*://}"
+  rest="${rest#*@}"
+  printf 'postgres://gyrolux_worker:%s@%s?sslmode=verify-full&sslrootcert=%s.crt' \
+    "${GYROLUX_WORKER_DB_PASSWORD:-gyrolux-worker}" "${rest%%\?*}" "$GYROLUX_PG_DATA"
+}

@@ -311,6 +311,38 @@ describe("the worker and the queue, straight on the database", () => {
       return ["done", "failed", "cancelled"].includes(run.state) ? run : null;
     });
 
+  it("a worker logged in with the least-privilege role over TLS completes a run and cannot read the users table", async () => {
+    // The role db/pg.sh worker-role creates (db/worker-role.sql), and the certificate db/pg.sh made.
+    const url = new URL(process.env.DATABASE_URL!);
+    url.username = "gyrolux_worker";
+    url.password = process.env.GYROLUX_WORKER_DB_PASSWORD ?? "gyrolux-worker";
+    url.searchParams.set("sslmode", "verify-full");
+    url.searchParams.set("sslrootcert", `${process.env.GYROLUX_PG_DATA ?? `/tmp/gyrolux-pg-${url.port}`}.crt`);
+    const asWorker = new pg.Client({ connectionString: url.href });
+    await asWorker.connect();
+    try {
+      const tls = await asWorker.query("select ssl from pg_stat_ssl where pid = pg_backend_pid()");
+      expect(tls.rows[0].ssl).toBe(true);
+      await expect(asWorker.query("select email, password_hash from users limit 1")).rejects.toThrow(/permission denied/);
+      await expect(asWorker.query("select * from parameter_sets limit 1")).rejects.toThrow(/permission denied/);
+    } finally {
+      await asWorker.end();
+    }
+    await Promise.all([...workers.keys()].map((id) => stopWorker(id, "SIGKILL")));
+    startWorker("queue-role", { DATABASE_URL: url.href });
+    const spec = mapSpec(32, 8);
+    const id = await insertRun(spec);
+    const done = await settledRun(id);
+    expect(done.state, done.error ?? "").toBe("done");
+    const result = (await db.query("select worker_id, meta, data from lab_run_results where run_id = $1", [id])).rows[0];
+    expect(result.worker_id).toBe("queue-role");
+    const { decodeResult } = await import("@/lib/lab-runs/encoding");
+    const want = computeRunInProcess(spec.kind, spec.payload).columns;
+    const got = decodeResult(result.meta, result.data);
+    expect(Object.is(got.thetaRad![7], want.thetaRad![7])).toBe(true);
+    await stopWorker("queue-role");
+  });
+
   it("a run cancelled while queued never starts, even when its job is still on the queue", async () => {
     const id = await insertRun(mapSpec(8, 4));
     // The cancel as requestCancel stores it for a queued run; the queue's own cancel is left out,
