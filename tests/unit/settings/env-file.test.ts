@@ -45,7 +45,8 @@ describe("the .env loader", () => {
     const names = ["GYROLUX_PG_PORT", "GYROLUX_MAIL_FROM", "GYROLUX_SMTP_PASS", "DATABASE_URL"];
     const script = `eval "$(node lib/settings/env-file.mjs '${file}')"; printf '%s\\0' ${names.map((n) => `"$${n}"`).join(" ")}`;
     // This process's environment without the names under test, so the file supplies them.
-    const env = Object.fromEntries(Object.entries(process.env).filter(([name]) => !names.includes(name)));
+    const env: NodeJS.ProcessEnv = { ...process.env };
+    for (const name of names) delete env[name];
     const out = spawnSync("bash", ["-c", script], { cwd: ROOT, env, encoding: "utf8" });
     expect(out.status, out.stderr).toBe(0);
     expect(out.stdout.split("\0").slice(0, 4)).toEqual([
