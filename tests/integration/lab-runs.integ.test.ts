@@ -1,4 +1,7 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { mkdtempSync, readdirSync, rmSync, statSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import pg from "pg";
 import PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -19,9 +22,9 @@ import { type Client, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, OTHER_LAB_ID, signI
 
 const workers = new Map<string, ChildProcess>();
 
-function startWorker(id: string, env: Record<string, string> = {}): ChildProcess {
-  const child = spawn(process.execPath, ["dist/lab-worker.mjs"], {
-    cwd: process.cwd(),
+function startWorker(id: string, env: Record<string, string> = {}, bundle?: string): ChildProcess {
+  const child = spawn(process.execPath, [bundle ? "lab-worker.mjs" : "dist/lab-worker.mjs"], {
+    cwd: bundle ?? process.cwd(),
     env: { ...process.env, GYROLUX_WORKER_ID: id, GYROLUX_WORKER_THREADS: "1", ...env },
     stdio: ["ignore", "ignore", "pipe"],
   });
@@ -341,6 +344,29 @@ describe("the worker and the queue, straight on the database", () => {
     const got = decodeResult(result.meta, result.data);
     expect(Object.is(got.thetaRad![7], want.thetaRad![7])).toBe(true);
     await stopWorker("queue-role");
+  });
+
+  it("the self-contained worker bundle (npm run build:worker) runs a job from a folder outside the checkout", async () => {
+    const folder = mkdtempSync(path.join(tmpdir(), "gyrolux-worker-bundle-"));
+    const build = spawnSync(process.execPath, ["scripts/build-cli.mjs", "--worker-bundle", folder], {
+      cwd: process.cwd(),
+      encoding: "utf8",
+    });
+    expect(build.status, build.stderr).toBe(0);
+    expect(path.relative(process.cwd(), folder).startsWith("..")).toBe(true);
+    const files = readdirSync(folder).sort();
+    expect(files).toEqual(["lab-worker-thread.mjs", "lab-worker.mjs", "package.json"]);
+    const bytes = files.reduce((sum, f) => sum + statSync(path.join(folder, f)).size, 0);
+    console.log(`[lab runs] worker bundle: ${files.join(", ")}, ${(bytes / 1e6).toFixed(2)} MB`);
+    await Promise.all([...workers.keys()].map((w) => stopWorker(w, "SIGKILL")));
+    // No node_modules on the way up from the folder: only Node and the bundle.
+    startWorker("queue-bundle", { NODE_PATH: "" }, folder);
+    const id = await insertRun(spectrumSpec(300));
+    const done = await settledRun(id);
+    expect(done.state, done.error ?? "").toBe("done");
+    expect((await db.query("select worker_id from lab_run_results where run_id = $1", [id])).rows[0].worker_id).toBe("queue-bundle");
+    await stopWorker("queue-bundle");
+    rmSync(folder, { recursive: true, force: true });
   });
 
   it("a run cancelled while queued never starts, even when its job is still on the queue", async () => {
