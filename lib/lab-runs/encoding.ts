@@ -22,6 +22,13 @@ export function encodeResult(result: RunResultData): { meta: Record<string, unkn
   return { meta: { ...result.meta, columns }, data };
 }
 
+/** Columns for a JSON answer: every double in its shortest round-trip form, NaN (which JSON lacks) as null. */
+export function columnsAsJson(columns: Record<string, Float64Array>): Record<string, (number | null)[]> {
+  const out: Record<string, (number | null)[]> = {};
+  for (const [name, col] of Object.entries(columns)) out[name] = Array.from(col, (v) => (Number.isNaN(v) ? null : v));
+  return out;
+}
+
 export function decodeResult(meta: Record<string, unknown>, data: Uint8Array): Record<string, Float64Array> {
   const columns = (meta.columns ?? []) as ColumnInfo[];
   const view = new DataView(data.buffer, data.byteOffset, data.byteLength);
