@@ -7,7 +7,8 @@
  * one by one never mixes two engines in one result).
  */
 
-export const ENGINE_VERSION = "1.0.0";
+// 1.1.0: map results carry θe and the Verdet constant per cell beside the share, θ and θm.
+export const ENGINE_VERSION = "1.1.0";
 
 /** The major number of a version string such as "1.4.2"; NaN when it is not one. */
 export function engineMajor(version: string): number {

@@ -160,7 +160,7 @@ function mapRowRequest(p: MapPayload, y: number, xs: number[]) {
 }
 
 /** Cell columns of a map, row-major (row j, column i at j·columns + i). */
-export const MAP_COLUMNS = ["magneticShare", "thetaRad", "thetaMagneticRad"] as const;
+export const MAP_COLUMNS = ["magneticShare", "thetaRad", "thetaElectricRad", "thetaMagneticRad", "verdetRadPerTm"] as const;
 
 export const mapRun: RunKindHandler<MapPayload> = {
   kind: "map",
@@ -190,9 +190,7 @@ export const mapRun: RunKindHandler<MapPayload> = {
       job.computeRange(0, job.length);
       const a = job.finish();
       const offset = (j - chunk.start) * xs.length;
-      columns.magneticShare.set(a.magneticShare, offset);
-      columns.thetaRad.set(a.thetaRad, offset);
-      columns.thetaMagneticRad.set(a.thetaMagneticRad, offset);
+      for (const name of MAP_COLUMNS) columns[name].set(a[name], offset);
       if (a.maxRelDeviationFromAnalytic !== undefined) deviation = Math.max(deviation ?? 0, a.maxRelDeviationFromAnalytic);
       for (const w of a.warnings) warnings.add(w);
     }
