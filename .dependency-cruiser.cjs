@@ -29,7 +29,9 @@ module.exports = {
       comment:
         "The computations beside the physics (fit, planner, measurements, model, workbench, lab-run kinds) know no server, database or UI.",
       severity: "error",
-      from: { path: "^lib/(fit|planner|measurements|model|workbench|lab-runs/(kinds|encoding|export|engine|compute-now))" },
+      from: {
+        path: "^lib/(fit|planner|measurements|model|workbench|lab-runs/(kinds|encoding|export|engine|compute-now|open-in-workbench))",
+      },
       to: { path: ["^db/", "^workers/", UI, SERVER_LIB, "^lib/query/", "^node_modules/(next|react|react-dom|drizzle-orm|pg|pg-boss)/"] },
     },
     {

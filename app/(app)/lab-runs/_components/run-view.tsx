@@ -19,6 +19,7 @@ import type { SpectrumPoint } from "@/lib/physics/types";
 import { useRun, useRunResult } from "@/lib/query/lab-runs";
 import type { LabRunDetail, LabRunResultBody } from "@/lib/contracts/lab-runs";
 import { buildMapCsv, mapFileBase } from "@/lib/lab-runs/export";
+import { workbenchHrefOfRun } from "@/lib/lab-runs/open-in-workbench";
 import { mapPayloadSchema, spectrumPayloadSchema } from "@/lib/lab-runs/kinds";
 import { figureCaption, figureFileBase } from "@/lib/workbench/export";
 import { magneticScaleLabel } from "@/lib/workbench/format";
@@ -48,14 +49,33 @@ export function RunView({ id }: { id: string }) {
         title={item.title}
         lead={
           <>
-            {item.labName} · submitted by {item.submittedBy.name} · <DateTime iso={item.createdAt} /> · {setLabel}
+            {item.labName} · submitted by {item.submittedBy.name} · <DateTime iso={item.createdAt} /> ·{" "}
+            {item.parameterSet?.id ? (
+              <Link href={`/parameter-sets/${item.parameterSet.id}`} className="text-lux-dark underline-offset-4 hover:underline">
+                {setLabel}
+              </Link>
+            ) : (
+              setLabel
+            )}
             {item.workerId ? ` · worker ${item.workerId}` : ""} ·{" "}
             <Link href="/lab-runs" className="text-lux-dark underline-offset-4 hover:underline">
               all runs
             </Link>
           </>
         }
-        actions={<CancelRun run={item} />}
+        actions={
+          <div className="flex flex-wrap items-center gap-2">
+            {done ? (
+              <Link
+                href={workbenchHrefOfRun(item)}
+                className="rounded-md border border-ink/25 px-3 py-1.5 text-sm font-medium text-lux-dark hover:border-lux"
+              >
+                Open in the workbench
+              </Link>
+            ) : null}
+            <CancelRun run={item} />
+          </div>
+        }
       />
       <RunState run={item} />
       {done ? (
