@@ -67,7 +67,7 @@ describe("lab runs", () => {
 
     // The quantity picker: the map shows θe instead of the share.
     await page.getByLabel("Show on the map").selectOption("thetaElectric");
-    await expect.poll(() => map.getByText("Electric-dipole part θe").count()).toBeGreaterThan(0);
+    await expect.poll(() => map.getByText("Electric-dipole part").count()).toBeGreaterThan(0);
     await page.screenshot({ path: outputPath("lab-runs-result.png"), fullPage: true });
 
     // Open in the workbench: the set's workbench, starting from the run.
