@@ -427,7 +427,7 @@ describe("the worker and the queue, straight on the database", () => {
     const stopped = await runRow(id);
     const saved = await checkpointCount(id);
     expect(stopped.state).toBe("queued");
-    expect(stopped.error).toMatch(/stopped; \d+ of 256 parts are saved/);
+    expect(stopped.error).toMatch(/stopped with \d+ of 256 parts saved/);
     const job = await jobRow(id);
     expect(job.state).toBe("created");
     expect(job.retry_count).toBe(0);

@@ -230,7 +230,8 @@ async function finishAttempt(db: Database, run: StartedRun, computed: Computed, 
   }
   if (computed.stop === "stopping") {
     const kept = computed.resumed + computed.computed;
-    const note = `Worker ${settings.workerId} stopped; ${kept} of ${run.chunks.length} parts are saved and the run is queued again.`;
+    const saved = `${kept} of ${run.chunks.length} parts saved`;
+    const note = `Worker ${settings.workerId} stopped with ${saved}; the next attempt resumes from them.`;
     await endRun(db, { runId, attempt, state: "queued", error: note });
     log(`run ${runId}: handed back on stop (${figures})`);
     return { kind: "handBack", delaySeconds: 0 };
