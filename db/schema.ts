@@ -465,6 +465,8 @@ export const labRuns = pgTable(
     paramsEdited: boolean("params_edited").notNull().default(false),
     state: labRunStateEnum("state").notNull().default("queued"),
     progress: doublePrecision("progress").notNull().default(0),
+    /** Progress the current attempt began with (chunks saved by earlier attempts), for the time left. */
+    progressAtStart: doublePrecision("progress_at_start").notNull().default(0),
     cancelRequested: boolean("cancel_requested").notNull().default(false),
     error: text("error"),
     workerId: text("worker_id"),

@@ -51,6 +51,7 @@ function toSummary(row: Row, role: LabRole): LabRunSummary {
     cells: r.cells,
     state: r.state,
     progress: r.progress,
+    progressAtStart: r.progressAtStart,
     cancelRequested: r.cancelRequested,
     error: r.error,
     workerId: r.workerId,
@@ -230,6 +231,7 @@ export async function claimRun(db: Executor, options: { runId: string; workerId:
       attempt: sql`${labRuns.attempt} + 1`,
       workerId: options.workerId,
       progress: 0,
+      progressAtStart: 0,
       startedAt: sql`now()`,
       updatedAt: sql`now()`,
     })
@@ -294,6 +296,14 @@ export async function saveCheckpoint(
     on conflict do nothing
     returning chunk_index`);
   return rows.rows.length > 0;
+}
+
+/** An attempt that resumes from saved chunks starts at their share of the run (the time left counts from there). */
+export async function markResumed(db: Executor, options: { runId: string; attempt: number; progress: number }): Promise<void> {
+  await db
+    .update(labRuns)
+    .set({ progress: options.progress, progressAtStart: options.progress, updatedAt: sql`now()` })
+    .where(ownRunning(options));
 }
 
 /** The saved chunks of a run, by chunk index. */

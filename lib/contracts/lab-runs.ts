@@ -28,6 +28,8 @@ export interface LabRunSummary {
   state: LabRunState;
   /** 0…1 */
   progress: number;
+  /** 0…1: where the current attempt began (chunks saved by an earlier attempt count as done). */
+  progressAtStart: number;
   cancelRequested: boolean;
   error: string | null;
   workerId: string | null;

@@ -438,6 +438,8 @@ describe("the worker and the queue, straight on the database", () => {
     const result = (await db.query("select meta, worker_id, attempt, engine_version from lab_run_results where run_id = $1", [id])).rows[0];
     expect(result.worker_id).toBe("queue-b");
     expect(result.engine_version).toBe(ENGINE_VERSION);
+    // The resumed attempt began at the saved rows' share of the run (its time left counts from there).
+    expect(done.progress_at_start).toBeCloseTo(saved / 256, 9);
     const { resumed, computed, chunks } = result.meta.checkpoints;
     expect(chunks).toBe(256);
     expect(resumed).toBe(saved);

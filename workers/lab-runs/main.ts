@@ -27,6 +27,7 @@ import {
   heartbeat,
   loadCheckpoints,
   markCancelledIfRequested,
+  markResumed,
   noteHandedBack,
   releaseSilentRuns,
   runToTake,
@@ -152,6 +153,7 @@ async function computeChunks(db: Database, threads: ThreadPool, run: StartedRun,
     doneCells += cellsPerChunk[i]!;
   }
   const todo = chunks.map((_, i) => i).filter((i) => !saved.has(i));
+  if (saved.size > 0) await markResumed(db, { runId, attempt, progress: Math.min(0.999, doneCells / run.cells) });
   let stop: Computed["stop"] = null;
   let computed = 0;
   let next = 0;
