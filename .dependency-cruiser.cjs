@@ -29,7 +29,12 @@ module.exports = {
       comment:
         "Computations beside the physics (analysis, fit, planner, measurements, model, workbench, lab-run kinds): no server, db or UI.",
       severity: "error",
-      from: { path: "^lib/(analysis|fit|planner|measurements|model|workbench|lab-runs/(kinds|encoding|export))" },
+      from: {
+        path: [
+          "^lib/(analysis|fit|planner|measurements|model|workbench)/",
+          "^lib/lab-runs/(kinds|encoding|export|engine|compute-now|open-in-workbench)",
+        ],
+      },
       to: { path: ["^db/", "^workers/", UI, SERVER_LIB, "^lib/query/", "^node_modules/(next|react|react-dom|drizzle-orm|pg|pg-boss)/"] },
     },
     {

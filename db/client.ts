@@ -9,7 +9,7 @@ export type { Database } from "./connection";
 // edit, so the pool is cached on globalThis to avoid leaking connections.
 const globalForDb = globalThis as unknown as { gyroluxPool?: Pool; gyroluxDb?: Database };
 
-const pool = globalForDb.gyroluxPool ?? createPool({ url: serverSettings.database.url });
+const pool = globalForDb.gyroluxPool ?? createPool({ url: serverSettings.database.url, max: serverSettings.database.pool });
 export const db: Database = globalForDb.gyroluxDb ?? createDb(pool);
 
 if (serverSettings.build.nodeEnv !== "production") {

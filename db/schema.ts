@@ -465,10 +465,14 @@ export const labRuns = pgTable(
     paramsEdited: boolean("params_edited").notNull().default(false),
     state: labRunStateEnum("state").notNull().default("queued"),
     progress: doublePrecision("progress").notNull().default(0),
+    /** Progress the current attempt began with (chunks saved by earlier attempts), for the time left. */
+    progressAtStart: doublePrecision("progress_at_start").notNull().default(0),
     cancelRequested: boolean("cancel_requested").notNull().default(false),
     error: text("error"),
     workerId: text("worker_id"),
     attempt: integer("attempt").notNull().default(0),
+    /** The engine version (lib/lab-runs/engine.ts) the run was made for; workers of another major hand it back. */
+    engineVersion: text("engine_version").notNull().default("1.0.0"),
     startedAt: timestamp("started_at", { withTimezone: true }),
     finishedAt: timestamp("finished_at", { withTimezone: true }),
     createdAt: createdAt(),
@@ -490,6 +494,29 @@ export const labRunResults = pgTable("lab_run_results", {
   meta: jsonb("meta").$type<Record<string, unknown>>().notNull(),
   data: bytea("data").notNull(),
   computeMs: integer("compute_ms").notNull(),
+  /** The engine version of the worker that computed the result. */
+  engineVersion: text("engine_version").notNull().default("1.0.0"),
   createdAt: createdAt(),
 });
 export type LabRunResult = typeof labRunResults.$inferSelect;
+
+/**
+ * Finished chunks of a run that is still in progress (map rows, spectrum stretches), saved as the
+ * worker goes so that a retry computes only what is missing. Same encoding as the result (`meta`
+ * names the columns, `data` holds them as little-endian float64); deleted when the result is stored.
+ */
+export const labRunCheckpoints = pgTable(
+  "lab_run_checkpoints",
+  {
+    runId: uuid("run_id")
+      .notNull()
+      .references(() => labRuns.id, { onDelete: "cascade" }),
+    chunkIndex: integer("chunk_index").notNull(),
+    attempt: integer("attempt").notNull(),
+    meta: jsonb("meta").$type<Record<string, unknown>>().notNull(),
+    data: bytea("data").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.runId, t.chunkIndex] })],
+);
+export type LabRunCheckpoint = typeof labRunCheckpoints.$inferSelect;

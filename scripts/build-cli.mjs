@@ -5,6 +5,7 @@
  * its output, so the check costs a few file stats.
  *
  *   node scripts/build-cli.mjs            build every stale target
+ *   node scripts/build-cli.mjs --worker-bundle [DIR]   the self-contained worker folder (npm run build:worker)
  *   import { ensureBuilt } from "./build-cli.mjs"; await ensureBuilt("spectrum")
  */
 import { existsSync, mkdirSync, readFileSync, renameSync, statSync, writeFileSync } from "node:fs";
@@ -49,14 +50,12 @@ function isStale(name) {
   return false;
 }
 
-async function build(name) {
-  const { entry, bundleDeps } = TARGETS[name];
-  const esbuild = await import("esbuild");
-  mkdirSync(dist, { recursive: true });
-  const result = await esbuild.build({
+/** esbuild's options for one entry point written to `outfile`. */
+function buildOptions(entry, outfile, bundleDeps) {
+  return {
     absWorkingDir: root,
     entryPoints: [entry],
-    outfile: outFile(name),
+    outfile,
     bundle: true,
     platform: "node",
     format: "esm",
@@ -74,7 +73,16 @@ async function build(name) {
     minify: true,
     keepNames: true,
     write: false,
-  });
+    // pg's optional native binding is loaded only when asked for (pg.native); never here.
+    external: ["pg-native"],
+  };
+}
+
+async function build(name) {
+  const { entry, bundleDeps } = TARGETS[name];
+  const esbuild = await import("esbuild");
+  mkdirSync(dist, { recursive: true });
+  const result = await esbuild.build(buildOptions(entry, outFile(name), bundleDeps));
   // Written under a temporary name and renamed, so a process building at the same moment (tests
   // run in parallel) never sees half a file.
   for (const file of result.outputFiles) {
@@ -86,6 +94,34 @@ async function build(name) {
   const tmp = `${inputsFile(name)}.${process.pid}.tmp`;
   writeFileSync(tmp, JSON.stringify([...inputs, "package-lock.json", "scripts/build-cli.mjs"]));
   renameSync(tmp, inputsFile(name));
+}
+
+/**
+ * `npm run build:worker`: the lab-run worker as one folder that runs with plain `node`, every
+ * dependency (pg, pg-boss, drizzle-orm, zod, the physics) bundled in, so a lab PC needs Node 20 and
+ * this folder only: `node lab-worker.mjs` with DATABASE_URL (or a .env beside it). Returns the
+ * folder's files and their total size in bytes.
+ */
+export async function buildWorkerBundle(outDir = path.join(dist, "worker")) {
+  const esbuild = await import("esbuild");
+  mkdirSync(outDir, { recursive: true });
+  const files = [];
+  for (const [name, entry] of [
+    ["lab-worker", TARGETS["lab-worker"].entry],
+    ["lab-worker-thread", TARGETS["lab-worker-thread"].entry],
+  ]) {
+    const result = await esbuild.build({ ...buildOptions(entry, path.join(outDir, `${name}.mjs`), true), write: true });
+    if (result.errors.length > 0) throw new Error(`esbuild failed for ${name}`);
+    files.push(`${name}.mjs`);
+  }
+  const version = JSON.parse(readFileSync(path.join(root, "package.json"), "utf8")).version;
+  writeFileSync(
+    path.join(outDir, "package.json"),
+    `${JSON.stringify({ name: "gyrolux-lab-worker", version, private: true, type: "module", engines: { node: ">=20" } }, null, 2)}\n`,
+  );
+  files.push("package.json");
+  const bytes = files.reduce((sum, f) => sum + statSync(path.join(outDir, f)).size, 0);
+  return { outDir, files, bytes };
 }
 
 /** Builds the named targets that are stale; returns the names built. */
@@ -101,7 +137,13 @@ export async function ensureBuilt(...names) {
   return built;
 }
 
-if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href) {
+if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href && process.argv[2] === "--worker-bundle") {
+  const { outDir, files, bytes } = await buildWorkerBundle(process.argv[3] ? path.resolve(process.argv[3]) : undefined);
+  process.stderr.write(
+    `[build] self-contained lab-run worker in ${path.relative(process.cwd(), outDir) || outDir}: ${files.join(", ")} ` +
+      `(${(bytes / 1e6).toFixed(2)} MB). Copy the folder to a lab PC with Node 20 and run: node lab-worker.mjs\n`,
+  );
+} else if (import.meta.url === pathToFileURL(process.argv[1] ?? "").href) {
   const names = process.argv.slice(2).length > 0 ? process.argv.slice(2) : Object.keys(TARGETS);
   const started = Date.now();
   const built = await ensureBuilt(...names);

@@ -1,6 +1,9 @@
 # Shared steps of scripts/demo.sh and scripts/test.sh. Sourced, not run.
 # Every step is idempotent: it does nothing when its work is already done.
 
+# Next.js would report build telemetry to its server; the scripts never phone home.
+export NEXT_TELEMETRY_DISABLED=1
+
 log() { printf '\033[1m[gyrolux]\033[0m %s\n' "$*" >&2; }
 
 as_root() {
@@ -56,4 +59,13 @@ build_fingerprint() {
       tailwind.config.ts postcss.config.mjs tsconfig.json -type f -print0 2>/dev/null | LC_ALL=C sort -z | xargs -0 sha256sum
     echo "distDir=${GYROLUX_NEXT_DIST_DIR:-.next}"
   } | sha256sum | cut -d' ' -f1
+}
+
+# DATABASE_URL as the lab-run workers log in: their own least-privilege role (db/pg.sh worker-role,
+# db/worker-role.sql) over TLS, checked against the certificate db/pg.sh made for 127.0.0.1.
+worker_database_url() {
+  local rest="${DATABASE_URL#*://}"
+  rest="${rest#*@}"
+  printf 'postgres://gyrolux_worker:%s@%s?sslmode=verify-full&sslrootcert=%s.crt' \
+    "${GYROLUX_WORKER_DB_PASSWORD:-gyrolux-worker}" "${rest%%\?*}" "$GYROLUX_PG_DATA"
 }

@@ -2,6 +2,8 @@
 # `npm run demo`: installs what is missing, starts PostgreSQL, migrates, seeds the demo lab and
 # serves the production build on http://localhost:${PORT:-3000}.
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 source scripts/common.sh
 
@@ -18,6 +20,7 @@ bash db/pg.sh start
 bash scripts/s3.sh start
 bash scripts/mail.sh start
 npx tsx db/migrate.ts
+bash db/pg.sh worker-role
 npx tsx db/seed.ts
 build_dir="${GYROLUX_NEXT_DIST_DIR:-.next}"
 fingerprint="$(build_fingerprint)"
@@ -29,6 +32,6 @@ else
   echo "$fingerprint" > "$build_dir/gyrolux-build-fingerprint"
 fi
 log "Gyrolux demo on http://localhost:$PORT — sign in as lead@demo.gyrolux.test, postdoc@demo.gyrolux.test or student@demo.gyrolux.test (password gyrolux-demo). Caught e-mail: ${GYROLUX_MAIL_DIR:-/tmp/gyrolux-mail-$GYROLUX_SMTP_PORT}. Ctrl-C stops the web server and its lab-run worker; 'bash db/pg.sh stop', 'bash scripts/s3.sh stop' and 'bash scripts/mail.sh stop' stop PostgreSQL, the object store and the mail catcher."
-bash scripts/worker.sh start
+DATABASE_URL="$(worker_database_url)" bash scripts/worker.sh start
 trap 'bash scripts/worker.sh stop' EXIT
 npx next start -p "$PORT"

@@ -9,6 +9,8 @@
 #
 # Env: GYROLUX_SMTP_PORT (2525), GYROLUX_MAIL_DIR (/tmp/gyrolux-mail-$GYROLUX_SMTP_PORT).
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 
 PORT="${GYROLUX_SMTP_PORT:-2525}"

@@ -9,6 +9,8 @@
 # Env: GYROLUX_S3_PORT (4568), GYROLUX_S3_DIR (/tmp/gyrolux-s3-$PORT), GYROLUX_S3_BUCKET
 #      (gyrolux-measurements). The fake accepts the key pair S3RVER / S3RVER, the app's default.
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 
 PORT="${GYROLUX_S3_PORT:-4568}"

@@ -6,6 +6,8 @@
 #   3. a production build served on $GYROLUX_TEST_PORT
 #   4. unit + API integration tests (vitest), then browser tests (playwright-core + Chromium)
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 source scripts/common.sh
 
@@ -57,6 +59,7 @@ bash db/pg.sh create-db "$RUN_DB"
 bash scripts/s3.sh stop && rm -rf "$GYROLUX_S3_DIR" && bash scripts/s3.sh start
 bash scripts/mail.sh start
 npx tsx db/migrate.ts
+bash db/pg.sh worker-role "$RUN_DB"
 npx tsx db/seed.ts
 node scripts/build-cli.mjs
 
@@ -70,5 +73,5 @@ wait_for_http "$GYROLUX_TEST_BASE_URL/api/health"
 log "unit and API integration tests"
 npx vitest run
 log "browser tests"
-bash scripts/worker.sh start
+DATABASE_URL="$(worker_database_url)" bash scripts/worker.sh start
 npx vitest run -c vitest.e2e.config.mts

@@ -3,13 +3,16 @@
 # program in the foreground). Other machines start theirs with `npm run worker` and DATABASE_URL.
 #
 #   bash scripts/worker.sh start    build if stale, start in the background, wait until it serves
-#   bash scripts/worker.sh stop     stop it (SIGTERM to its process group; no-op when not running)
+#   bash scripts/worker.sh stop     stop it gracefully (SIGTERM to its process group: its run goes back
+#                                   to the queue with its saved chunks; no-op when not running)
 #   bash scripts/worker.sh status   exit 0 when running, 3 when not
 #
 # Env: DATABASE_URL (the app's database), GYROLUX_WORKER_ID (default gyrolux-worker-$PORT),
 #      GYROLUX_WORKER_THREADS and the GYROLUX_RUN_* queue settings (README, "Lab runs"),
 #      GYROLUX_WORKER_STATE (pid/log folder, default /tmp/gyrolux-worker-$GYROLUX_PG_PORT).
 set -euo pipefail
+# Variables of the checkout's .env that the environment does not set (one loader for every program).
+source "$(dirname "${BASH_SOURCE[0]}")/../scripts/env.sh"
 cd "$(dirname "$0")/.."
 
 STATE="${GYROLUX_WORKER_STATE:-/tmp/gyrolux-worker-${GYROLUX_PG_PORT:-54329}}"
@@ -37,7 +40,8 @@ case "${1:-}" in
     if running; then
       pid="$(cat "$PID_FILE")"
       kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true
-      for _ in $(seq 20); do kill -0 "$pid" 2>/dev/null || break; sleep 0.5; done
+      # A graceful stop lets the chunks in flight finish and hands the job back (at most 30 s).
+      for _ in $(seq 70); do kill -0 "$pid" 2>/dev/null || break; sleep 0.5; done
       kill -KILL -- "-$pid" 2>/dev/null || true
       log "stopped"
     fi

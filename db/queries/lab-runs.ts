@@ -3,7 +3,17 @@ import type { Caller, ResourceAccess } from "@/lib/contracts/access";
 import { ACTIVE_LAB_RUN_STATES, isActiveLabRun, type LabRunDetail, type LabRunState, type LabRunSummary } from "@/lib/contracts/lab-runs";
 import type { LabRole } from "@/lib/contracts/roles";
 import type { Executor } from "../executor";
-import { type LabRun, type LabRunResult, labMemberships, labRunResults, labRuns, labs, type NewLabRun, users } from "../schema";
+import {
+  type LabRun,
+  type LabRunResult,
+  labMemberships,
+  labRunCheckpoints,
+  labRunResults,
+  labRuns,
+  labs,
+  type NewLabRun,
+  users,
+} from "../schema";
 import { recordAudit } from "./audit";
 
 /*
@@ -41,10 +51,12 @@ function toSummary(row: Row, role: LabRole): LabRunSummary {
     cells: r.cells,
     state: r.state,
     progress: r.progress,
+    progressAtStart: r.progressAtStart,
     cancelRequested: r.cancelRequested,
     error: r.error,
     workerId: r.workerId,
     attempt: r.attempt,
+    engineVersion: r.engineVersion,
     submittedBy: { id: r.submittedById, name: row.submitterName },
     parameterSet:
       r.parameterSetVersion !== null
@@ -155,6 +167,7 @@ export async function requestCancel(
       .update(labRuns)
       .set({ cancelRequested: true, updatedAt: sql`now()`, ...(queued ? { state: "cancelled" as const, finishedAt: sql`now()` } : {}) })
       .where(and(ofAccess(access), isActive()));
+    if (queued) await tx.delete(labRunCheckpoints).where(eq(labRunCheckpoints.runId, access.id));
     await recordAudit(tx, {
       entry: {
         actorId: access.caller.id,
@@ -186,6 +199,27 @@ export interface Claim {
   kind: string;
   payload: unknown;
   cells: number;
+  engineVersion: string;
+}
+
+/** What a worker may read before claiming: the engine version the run was made for, while it is still active. */
+export async function runToTake(db: Executor, options: { runId: string }): Promise<{ engineVersion: string } | null> {
+  const [row] = await db
+    .select({ engineVersion: labRuns.engineVersion })
+    .from(labRuns)
+    .where(and(eq(labRuns.id, options.runId), isActive(), eq(labRuns.cancelRequested, false)));
+  return row ?? null;
+}
+
+/**
+ * A job this worker will not compute (another engine version, or the worker is stopping before it
+ * began) goes back to waiting: the row says why, and the attempt it did not make is not counted.
+ */
+export async function noteHandedBack(db: Executor, options: { runId: string; note: string }): Promise<void> {
+  await db
+    .update(labRuns)
+    .set({ error: options.note, updatedAt: sql`now()` })
+    .where(and(eq(labRuns.id, options.runId), eq(labRuns.state, "queued")));
 }
 
 /** Takes the run for this worker; null when it is cancelled, finished or unknown. */
@@ -197,11 +231,18 @@ export async function claimRun(db: Executor, options: { runId: string; workerId:
       attempt: sql`${labRuns.attempt} + 1`,
       workerId: options.workerId,
       progress: 0,
+      progressAtStart: 0,
       startedAt: sql`now()`,
       updatedAt: sql`now()`,
     })
     .where(and(eq(labRuns.id, options.runId), isActive(), eq(labRuns.cancelRequested, false)))
-    .returning({ attempt: labRuns.attempt, kind: labRuns.kind, payload: labRuns.payload, cells: labRuns.cells });
+    .returning({
+      attempt: labRuns.attempt,
+      kind: labRuns.kind,
+      payload: labRuns.payload,
+      cells: labRuns.cells,
+      engineVersion: labRuns.engineVersion,
+    });
   return rows[0] ?? null;
 }
 
@@ -211,6 +252,7 @@ export async function markCancelledIfRequested(db: Executor, options: { runId: s
     .update(labRuns)
     .set({ state: "cancelled", finishedAt: sql`now()`, updatedAt: sql`now()` })
     .where(and(eq(labRuns.id, options.runId), isActive(), eq(labRuns.cancelRequested, true)));
+  await db.delete(labRunCheckpoints).where(eq(labRunCheckpoints.runId, options.runId));
 }
 
 /** An attempt's own run, still running: the condition of every write after the claim. */
@@ -235,10 +277,58 @@ export async function heartbeat(
   return row.cancel ? "cancel" : "go";
 }
 
+/**
+ * Saves one finished chunk of the attempt's run. A chunk is the same whichever attempt computed it,
+ * so a second save of the same chunk changes nothing; an attempt that no longer owns the run saves
+ * nothing.
+ */
+export async function saveCheckpoint(
+  db: Executor,
+  options: { runId: string; attempt: number; chunkIndex: number; meta: Record<string, unknown>; data: Buffer },
+): Promise<boolean> {
+  const rows = await db.execute<{ chunk_index: number }>(sql`
+    insert into ${labRunCheckpoints} (run_id, chunk_index, attempt, meta, data)
+    select ${options.runId}, ${options.chunkIndex}, ${options.attempt}, ${JSON.stringify(options.meta)}::jsonb, ${options.data}
+    where exists (
+      select 1 from ${labRuns}
+      where ${labRuns.id} = ${options.runId} and ${labRuns.attempt} = ${options.attempt} and ${labRuns.state} = 'running'
+    )
+    on conflict do nothing
+    returning chunk_index`);
+  return rows.rows.length > 0;
+}
+
+/** An attempt that resumes from saved chunks starts at their share of the run (the time left counts from there). */
+export async function markResumed(db: Executor, options: { runId: string; attempt: number; progress: number }): Promise<void> {
+  await db
+    .update(labRuns)
+    .set({ progress: options.progress, progressAtStart: options.progress, updatedAt: sql`now()` })
+    .where(ownRunning(options));
+}
+
+/** The saved chunks of a run, by chunk index. */
+export async function loadCheckpoints(
+  db: Executor,
+  options: { runId: string },
+): Promise<{ chunkIndex: number; meta: Record<string, unknown>; data: Buffer }[]> {
+  return db
+    .select({ chunkIndex: labRunCheckpoints.chunkIndex, meta: labRunCheckpoints.meta, data: labRunCheckpoints.data })
+    .from(labRunCheckpoints)
+    .where(eq(labRunCheckpoints.runId, options.runId));
+}
+
 /** Marks the run done and stores its result; false when the attempt no longer owns the run. */
 export async function finishRun(
   db: Executor,
-  options: { runId: string; attempt: number; workerId: string; meta: Record<string, unknown>; data: Buffer; computeMs: number },
+  options: {
+    runId: string;
+    attempt: number;
+    workerId: string;
+    meta: Record<string, unknown>;
+    data: Buffer;
+    computeMs: number;
+    engineVersion: string;
+  },
 ): Promise<boolean> {
   return db.transaction(async (tx) => {
     const owned = await tx
@@ -256,8 +346,10 @@ export async function finishRun(
         meta: options.meta,
         data: options.data,
         computeMs: options.computeMs,
+        engineVersion: options.engineVersion,
       })
       .onConflictDoNothing({ target: labRunResults.runId });
+    await tx.delete(labRunCheckpoints).where(eq(labRunCheckpoints.runId, options.runId));
     return true;
   });
 }
@@ -268,10 +360,13 @@ export async function endRun(
   options: { runId: string; attempt: number; state: "failed" | "cancelled" | "queued"; error?: string },
 ): Promise<void> {
   const final = options.state !== "queued";
-  await db
+  const ended = await db
     .update(labRuns)
     .set({ state: options.state, error: options.error ?? null, updatedAt: sql`now()`, ...(final ? { finishedAt: sql`now()` } : {}) })
-    .where(ownRunning(options));
+    .where(ownRunning(options))
+    .returning({ id: labRuns.id });
+  // Checkpoints serve a retry; a run that ended for good has none ahead.
+  if (final && ended.length > 0) await db.delete(labRunCheckpoints).where(eq(labRunCheckpoints.runId, options.runId));
 }
 
 /**
@@ -311,4 +406,5 @@ export async function closeStaleRun(
     .update(labRuns)
     .set({ state: options.state, error: options.error, finishedAt: sql`now()`, updatedAt: sql`now()` })
     .where(and(eq(labRuns.id, options.runId), isActive()));
+  await db.delete(labRunCheckpoints).where(eq(labRunCheckpoints.runId, options.runId));
 }

@@ -28,10 +28,14 @@ export interface LabRunSummary {
   state: LabRunState;
   /** 0…1 */
   progress: number;
+  /** 0…1: where the current attempt began (chunks saved by an earlier attempt count as done). */
+  progressAtStart: number;
   cancelRequested: boolean;
   error: string | null;
   workerId: string | null;
   attempt: number;
+  /** The engine version the run was made for (lib/lab-runs/engine.ts). */
+  engineVersion: string;
   submittedBy: { id: string; name: string };
   parameterSet: { id: string | null; name: string; version: number; edited: boolean } | null;
   /** ISO 8601 */
@@ -53,6 +57,8 @@ export interface LabRunResultBody {
   workerId: string;
   attempt: number;
   computeMs: number;
+  /** The engine version of the worker that computed it. */
+  engineVersion: string;
   meta: Record<string, unknown>;
   columns: Record<string, (number | null)[]>;
 }

@@ -45,6 +45,8 @@ export interface RunKindHandler<P> {
   payloadSchema: z.ZodType<P>;
   /** Cells (spectrum points) the run computes: the unit of progress and of a worker's throughput. */
   cells(payload: P): number;
+  /** A pessimistic time for the whole run on one slow core: the basis of the queue's expiry for it. */
+  slowCoreSeconds(payload: P): number;
   /** One line describing the grid, for the runs list. */
   describe(payload: P): string;
   chunks(payload: P): RunChunk[];
@@ -57,6 +59,13 @@ export const MAX_MAP_ROWS = 256;
 export const MAX_RUN_WAVELENGTHS = 20_000;
 /** Wavelengths per chunk of a long spectrum: a few hundred ms of numerical LLG on one core. */
 const SPECTRUM_CHUNK = 256;
+
+/**
+ * Cells per second of one slow core, for the expiry only: about a tenth of what one thread of the
+ * test machine reaches (numerical LLG about 7,000 cells/s per thread, tests/e2e/lab-runs.e2e.ts;
+ * the analytic model some 100 times more, scripts/bench.ts), so a busy lab PC stays inside it.
+ */
+const SLOW_CORE_CELLS_PER_S = { analytic: 50_000, llg: 700 } as const;
 
 const methodSchema = z.enum(["analytic", "llg"], { error: 'must be "analytic" or "llg"' });
 
@@ -151,13 +160,14 @@ function mapRowRequest(p: MapPayload, y: number, xs: number[]) {
 }
 
 /** Cell columns of a map, row-major (row j, column i at j·columns + i). */
-export const MAP_COLUMNS = ["magneticShare", "thetaRad", "thetaMagneticRad"] as const;
+export const MAP_COLUMNS = ["magneticShare", "thetaRad", "thetaElectricRad", "thetaMagneticRad", "verdetRadPerTm"] as const;
 
 export const mapRun: RunKindHandler<MapPayload> = {
   kind: "map",
   label: "Map",
   payloadSchema: mapPayloadSchema,
   cells: (p) => p.wavelengths.count * p.rows.count,
+  slowCoreSeconds: (p) => (p.wavelengths.count * p.rows.count) / SLOW_CORE_CELLS_PER_S[p.method],
   describe: (p) =>
     `${p.method === "llg" ? "numerical LLG" : "analytic"} map, ` +
     `${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm) × ${p.rows.count} ${
@@ -180,9 +190,7 @@ export const mapRun: RunKindHandler<MapPayload> = {
       job.computeRange(0, job.length);
       const a = job.finish();
       const offset = (j - chunk.start) * xs.length;
-      columns.magneticShare.set(a.magneticShare, offset);
-      columns.thetaRad.set(a.thetaRad, offset);
-      columns.thetaMagneticRad.set(a.thetaMagneticRad, offset);
+      for (const name of MAP_COLUMNS) columns[name].set(a[name], offset);
       if (a.maxRelDeviationFromAnalytic !== undefined) deviation = Math.max(deviation ?? 0, a.maxRelDeviationFromAnalytic);
       for (const w of a.warnings) warnings.add(w);
     }
@@ -242,6 +250,7 @@ export const spectrumRun: RunKindHandler<SpectrumPayload> = {
   label: "Spectrum",
   payloadSchema: spectrumPayloadSchema,
   cells: (p) => p.wavelengths.count,
+  slowCoreSeconds: (p) => p.wavelengths.count / SLOW_CORE_CELLS_PER_S[p.method],
   describe: (p) =>
     `${p.method === "llg" ? "numerical LLG" : "analytic"} spectrum, ` +
     `${p.wavelengths.count} wavelengths (${p.wavelengths.fromNm}–${p.wavelengths.toNm} nm)`,

@@ -1,7 +1,7 @@
 import "server-only";
 import PgBoss from "pg-boss";
 import { serverSettings } from "@/lib/settings/server";
-import { RUN_QUEUE, sendOptions } from "./queue-options";
+import { ensureQueue, RUN_QUEUE, runJobData, sendOptions } from "./queue-options";
 
 /*
  * The web server's side of the job queue: it only sends. One pg-boss instance per server process,
@@ -15,7 +15,7 @@ async function startSender(): Promise<PgBoss> {
   const boss = new PgBoss({ connectionString: settings.databaseUrl, max: 2, supervise: false, schedule: false });
   boss.on("error", (e: Error) => console.error("[runs] queue error:", e.message));
   await boss.start();
-  await boss.createQueue(RUN_QUEUE).catch(() => undefined);
+  await ensureQueue(boss);
   return boss;
 }
 
@@ -28,9 +28,10 @@ function sender(): Promise<PgBoss> {
 }
 
 /** Queues the job of a run; its pg-boss id is the run id. */
-export async function enqueueRun(runId: string): Promise<void> {
+export async function enqueueRun(run: { id: string; kind: string; payload: unknown }): Promise<void> {
   const boss = await sender();
-  await boss.send(RUN_QUEUE, { runId }, sendOptions(serverSettings.runs, runId));
+  const sent = await boss.send(RUN_QUEUE, runJobData(run.id), sendOptions(serverSettings.runs, run));
+  if (sent === null) throw new Error(`the queue refused job ${run.id}`);
 }
 
 /** Takes a queued job off the queue (a running one is stopped by its worker, which sees the flag). */

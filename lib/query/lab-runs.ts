@@ -82,10 +82,17 @@ export function useCancelRun() {
   });
 }
 
-/** Seconds left, from the progress so far (null until there is enough to go on). */
-export function etaSeconds(run: Pick<LabRunSummary, "state" | "progress" | "startedAt">, nowMs: number): number | null {
-  if (run.state !== "running" || !run.startedAt || !(run.progress > 0.02)) return null;
+/**
+ * Seconds left, from this attempt's pace (null until there is enough to go on). An attempt that
+ * resumed from saved chunks began at progressAtStart; only what it computed since counts.
+ */
+export function etaSeconds(
+  run: Pick<LabRunSummary, "state" | "progress" | "startedAt"> & { progressAtStart?: number },
+  nowMs: number,
+): number | null {
+  const done = run.progress - (run.progressAtStart ?? 0);
+  if (run.state !== "running" || !run.startedAt || !(done > 0.02)) return null;
   const elapsed = (nowMs - Date.parse(run.startedAt)) / 1000;
   if (!(elapsed > 0)) return null;
-  return Math.max(0, (elapsed * (1 - run.progress)) / run.progress);
+  return Math.max(0, (elapsed * (1 - run.progress)) / done);
 }

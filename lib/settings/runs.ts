@@ -18,7 +18,10 @@ export const runSettingsSchema = z
     GYROLUX_RUN_RETRY_LIMIT: z.coerce.number().int().min(0).max(20).default(3),
     /** Delay before the first retry; pg-boss doubles it each time (retryBackoff). */
     GYROLUX_RUN_RETRY_DELAY_S: seconds(10),
-    /** A job still active after this long counts as lost (its worker died) and is retried. */
+    /**
+     * The least expiry of a job: one still active after this long counts as lost (its worker died)
+     * and is retried. A run whose kind estimates more (lib/lab-runs/queue-options.ts) gets more.
+     */
     GYROLUX_RUN_EXPIRE_S: seconds(900),
     /**
      * A running run whose worker has not written progress for this long is given back to the queue
@@ -32,6 +35,13 @@ export const runSettingsSchema = z
     GYROLUX_RUN_POLL_S: z.coerce.number().min(0.5).max(60).default(2),
     /** Threads per worker; default one per core. */
     GYROLUX_WORKER_THREADS: z.coerce.number().int().min(1).max(256).optional(),
+    /**
+     * Connections of one worker: its run queries (progress, checkpoints, results) and its queue
+     * client (fetch, settle, sweep, pg-boss maintenance). 2 + 2 serve a worker of any thread count,
+     * since one run at a time writes about once a second and once per finished chunk.
+     */
+    GYROLUX_WORKER_DB_POOL: z.coerce.number().int().min(1).max(50).default(2),
+    GYROLUX_WORKER_QUEUE_POOL: z.coerce.number().int().min(2).max(50).default(2),
     /** Name of the worker in the runs list; default host-pid. */
     GYROLUX_WORKER_ID: z.string().min(1).max(100).optional(),
   })
@@ -46,6 +56,8 @@ export const runSettingsSchema = z
       pollSeconds: env.GYROLUX_RUN_POLL_S,
       threads: env.GYROLUX_WORKER_THREADS ?? Math.max(1, cpus().length),
       workerId: env.GYROLUX_WORKER_ID ?? `${hostname()}-${process.pid}`,
+      workerDbPool: env.GYROLUX_WORKER_DB_POOL,
+      workerQueuePool: env.GYROLUX_WORKER_QUEUE_POOL,
     }),
   );
 
@@ -59,4 +71,6 @@ export interface RunSettings {
   pollSeconds: number;
   threads: number;
   workerId: string;
+  workerDbPool: number;
+  workerQueuePool: number;
 }

@@ -216,7 +216,7 @@ export interface FigureIdentity {
   edited?: boolean;
 }
 
-function shortNumber(v: number): string {
+export function shortNumber(v: number): string {
   return String(Number(v.toPrecision(6)));
 }
 

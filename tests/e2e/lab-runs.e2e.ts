@@ -55,9 +55,24 @@ describe("lab runs", () => {
     expect(await map.textContent()).toContain("160 × 128 cells");
     const download = page.waitForEvent("download");
     await page.getByRole("button", { name: "Export map CSV" }).click();
-    const file = await (await download).path();
+    const saved = await download;
+    // Named after the temperatures the map spans, not one temperature.
+    expect(saved.suggestedFilename()).toMatch(/-map-[\d.]+-[\d.]+K-[\d.]+T-run-[0-9a-f]{8}\.csv$/);
+    const file = await saved.path();
     const lines = readFileSync(file!, "utf8").trim().split("\n");
-    expect(lines.filter((l) => !l.startsWith("#"))).toHaveLength(1 + 160 * 128);
+    const rows = lines.filter((l) => !l.startsWith("#"));
+    expect(rows).toHaveLength(1 + 160 * 128);
+    expect(rows[0]).toContain("wavelength_nm,temperature_K,field_T,length_m");
+    expect(rows[0]).toContain("theta_electric_rad");
+
+    // The quantity picker: the map shows θe instead of the share.
+    await page.getByLabel("Show on the map").selectOption("thetaElectric");
+    await expect.poll(() => map.getByText("Electric-dipole part").count()).toBeGreaterThan(0);
     await page.screenshot({ path: outputPath("lab-runs-result.png"), fullPage: true });
+
+    // Open in the workbench: the set's workbench, starting from the run.
+    await page.getByRole("link", { name: "Open in the workbench" }).click();
+    await page.waitForURL(/\/workbench\/[0-9a-f-]{36}\?run=/, { waitUntil: "commit" });
+    await page.getByText("Opened from a lab run").waitFor({ timeout: 60_000 });
   });
 });

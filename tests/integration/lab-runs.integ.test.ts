@@ -1,7 +1,15 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { mkdtempSync, readdirSync, rmSync, statSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import pg from "pg";
+import PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { computeRunInProcess, type RunSpec } from "@/lib/lab-runs/kinds";
+import { DEMO_USERS } from "@/db/demo-data";
+import { ENGINE_VERSION } from "@/lib/lab-runs/engine";
+import { computeRunInProcess, runKindHandler, type RunSpec } from "@/lib/lab-runs/kinds";
+import { RUN_QUEUE, sendOptions } from "@/lib/lab-runs/queue-options";
+import { scriptSettings } from "@/lib/settings/scripts";
 import { computeSpectrumArrays } from "@/lib/physics/spectrum";
 import { wavelengthGrid } from "@/lib/workbench/units";
 import { type Client, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, OTHER_LAB_ID, signIn, validParams } from "./support";
@@ -14,10 +22,10 @@ import { type Client, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, OTHER_LAB_ID, signI
 
 const workers = new Map<string, ChildProcess>();
 
-function startWorker(id: string): ChildProcess {
-  const child = spawn(process.execPath, ["dist/lab-worker.mjs"], {
-    cwd: process.cwd(),
-    env: { ...process.env, GYROLUX_WORKER_ID: id, GYROLUX_WORKER_THREADS: "1" },
+function startWorker(id: string, env: Record<string, string> = {}, bundle?: string): ChildProcess {
+  const child = spawn(process.execPath, [bundle ? "lab-worker.mjs" : "dist/lab-worker.mjs"], {
+    cwd: bundle ?? process.cwd(),
+    env: { ...process.env, GYROLUX_WORKER_ID: id, GYROLUX_WORKER_THREADS: "1", ...env },
     stdio: ["ignore", "ignore", "pipe"],
   });
   child.stderr?.on("data", (b: Buffer) => process.stderr.write(b));
@@ -239,5 +247,246 @@ describe("lab runs on the job queue", () => {
       run.id,
     ]);
     expect(job.rows.map((r) => r.state)).toEqual(["completed"]);
+  });
+});
+
+/*
+ * The worker's handling of the queue, straight on the database: runs are inserted as the API would
+ * store them and their jobs sent with the API's options, so each case controls what the worker sees
+ * (a job whose cancel never reached the queue, a job made for another engine, a payload the
+ * registry refuses) and reads the queue's own record of how the job ended.
+ */
+describe("the worker and the queue, straight on the database", () => {
+  let db: pg.Client;
+  let boss: PgBoss;
+  let submitterId: string;
+
+  beforeAll(async () => {
+    const build = spawnSync(process.execPath, ["scripts/build-cli.mjs", "lab-worker", "lab-worker-thread"], {
+      cwd: process.cwd(),
+      encoding: "utf8",
+    });
+    if (build.status !== 0) throw new Error(`worker build failed: ${build.stderr}`);
+    db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    await db.connect();
+    boss = new PgBoss({ connectionString: process.env.DATABASE_URL, max: 2, supervise: false, schedule: false });
+    await boss.start();
+    const user = await db.query("select id from users where email = $1", [DEMO_USERS.postdoc.email]);
+    submitterId = user.rows[0].id;
+  });
+
+  afterAll(async () => {
+    await Promise.all([...workers.keys()].map((id) => stopWorker(id, "SIGKILL")));
+    await boss?.stop({ graceful: false, wait: true });
+    await db?.end();
+  });
+
+  /** Stores a run as POST /api/runs does and queues its job; `engineVersion` as the submitting server had it. */
+  async function insertRun(spec: { kind: string; payload: unknown }, options: { engineVersion?: string; send?: boolean } = {}) {
+    const handler = runKindHandler(spec.kind);
+    const parsed = handler?.payloadSchema.safeParse(spec.payload);
+    const cells = handler && parsed?.success ? handler.cells(parsed.data) : 1;
+    const engineVersion = options.engineVersion ?? ENGINE_VERSION;
+    const row = await db.query(
+      `insert into lab_runs (lab_id, submitted_by, kind, title, payload, cells, engine_version)
+       values ($1, $2, $3, 'worker test', $4, $5, $6) returning id`,
+      [DEMO_LAB_ID, submitterId, spec.kind, JSON.stringify(spec.payload), cells, engineVersion],
+    );
+    const id: string = row.rows[0].id;
+    if (options.send !== false) {
+      await boss.send(RUN_QUEUE, { runId: id, engineVersion }, sendOptions(scriptSettings.runs, { id, ...spec }));
+    }
+    return id;
+  }
+
+  /** Each case names the worker it relies on, so it also runs alone (vitest -t). */
+  const ensureWorker = (id: string) => {
+    if (!workers.has(id)) startWorker(id);
+  };
+  const runRow = async (id: string) => (await db.query("select * from lab_runs where id = $1", [id])).rows[0];
+  const jobRow = async (id: string) =>
+    (await db.query("select state, retry_count, start_after > now() as delayed, output from pgboss.job where id = $1", [id])).rows[0];
+  const checkpointCount = async (id: string) =>
+    (await db.query("select count(*)::int as n from lab_run_checkpoints where run_id = $1", [id])).rows[0].n as number;
+  const settledRun = (id: string) =>
+    waitFor(`run ${id} to end`, async () => {
+      const run = await runRow(id);
+      return ["done", "failed", "cancelled"].includes(run.state) ? run : null;
+    });
+
+  it("a worker logged in with the least-privilege role over TLS completes a run and cannot read the users table", async () => {
+    // The role db/pg.sh worker-role creates (db/worker-role.sql), and the certificate db/pg.sh made.
+    const url = new URL(process.env.DATABASE_URL!);
+    url.username = "gyrolux_worker";
+    url.password = process.env.GYROLUX_WORKER_DB_PASSWORD ?? "gyrolux-worker";
+    url.searchParams.set("sslmode", "verify-full");
+    url.searchParams.set("sslrootcert", `${process.env.GYROLUX_PG_DATA ?? `/tmp/gyrolux-pg-${url.port}`}.crt`);
+    const asWorker = new pg.Client({ connectionString: url.href });
+    await asWorker.connect();
+    try {
+      const tls = await asWorker.query("select ssl from pg_stat_ssl where pid = pg_backend_pid()");
+      expect(tls.rows[0].ssl).toBe(true);
+      await expect(asWorker.query("select email, password_hash from users limit 1")).rejects.toThrow(/permission denied/);
+      await expect(asWorker.query("select * from parameter_sets limit 1")).rejects.toThrow(/permission denied/);
+    } finally {
+      await asWorker.end();
+    }
+    await Promise.all([...workers.keys()].map((id) => stopWorker(id, "SIGKILL")));
+    startWorker("queue-role", { DATABASE_URL: url.href });
+    const spec = mapSpec(32, 8);
+    const id = await insertRun(spec);
+    const done = await settledRun(id);
+    expect(done.state, done.error ?? "").toBe("done");
+    const result = (await db.query("select worker_id, meta, data from lab_run_results where run_id = $1", [id])).rows[0];
+    expect(result.worker_id).toBe("queue-role");
+    const { decodeResult } = await import("@/lib/lab-runs/encoding");
+    const want = computeRunInProcess(spec.kind, spec.payload).columns;
+    const got = decodeResult(result.meta, result.data);
+    expect(Object.is(got.thetaRad![7], want.thetaRad![7])).toBe(true);
+    await stopWorker("queue-role");
+  });
+
+  it("the self-contained worker bundle (npm run build:worker) runs a job from a folder outside the checkout", async () => {
+    const folder = mkdtempSync(path.join(tmpdir(), "gyrolux-worker-bundle-"));
+    const build = spawnSync(process.execPath, ["scripts/build-cli.mjs", "--worker-bundle", folder], {
+      cwd: process.cwd(),
+      encoding: "utf8",
+    });
+    expect(build.status, build.stderr).toBe(0);
+    expect(path.relative(process.cwd(), folder).startsWith("..")).toBe(true);
+    const files = readdirSync(folder).sort();
+    expect(files).toEqual(["lab-worker-thread.mjs", "lab-worker.mjs", "package.json"]);
+    const bytes = files.reduce((sum, f) => sum + statSync(path.join(folder, f)).size, 0);
+    console.log(`[lab runs] worker bundle: ${files.join(", ")}, ${(bytes / 1e6).toFixed(2)} MB`);
+    await Promise.all([...workers.keys()].map((w) => stopWorker(w, "SIGKILL")));
+    // No node_modules on the way up from the folder: only Node and the bundle.
+    startWorker("queue-bundle", { NODE_PATH: "" }, folder);
+    const id = await insertRun(spectrumSpec(300));
+    const done = await settledRun(id);
+    expect(done.state, done.error ?? "").toBe("done");
+    expect((await db.query("select worker_id from lab_run_results where run_id = $1", [id])).rows[0].worker_id).toBe("queue-bundle");
+    await stopWorker("queue-bundle");
+    rmSync(folder, { recursive: true, force: true });
+  });
+
+  it("a run cancelled while queued never starts, even when its job is still on the queue", async () => {
+    const id = await insertRun(mapSpec(8, 4));
+    // The cancel as requestCancel stores it for a queued run; the queue's own cancel is left out,
+    // as when it failed or a worker had already fetched the job.
+    await db.query("update lab_runs set cancel_requested = true, state = 'cancelled', finished_at = now() where id = $1", [id]);
+    ensureWorker("queue-a");
+    const job = await waitFor("the job to be settled", async () => {
+      const j = await jobRow(id);
+      return j && j.state !== "created" && j.state !== "active" ? j : null;
+    });
+    expect(job.state).toBe("cancelled");
+    const run = await runRow(id);
+    expect(run.state).toBe("cancelled");
+    expect(run.attempt).toBe(0);
+    expect(run.started_at).toBeNull();
+    expect(run.worker_id).toBeNull();
+  });
+
+  it("a job made for another major engine version is handed back, not computed and not counted as a retry", async () => {
+    const major = Number(ENGINE_VERSION.split(".")[0]);
+    ensureWorker("queue-a");
+    const id = await insertRun(mapSpec(8, 4), { engineVersion: `${major + 1}.0.0` });
+    const run = await waitFor("the hand-back note", async () => {
+      const r = await runRow(id);
+      return r.error ? r : null;
+    });
+    expect(run.error).toMatch(new RegExp(`engine ${major + 1}\\.x`));
+    expect(run.state).toBe("queued");
+    expect(run.attempt).toBe(0);
+    const job = await jobRow(id);
+    expect(job.state).toBe("created");
+    expect(job.retry_count).toBe(0);
+    expect(job.delayed).toBe(true);
+    await db.query("update lab_runs set cancel_requested = true, state = 'cancelled' where id = $1", [id]);
+  });
+
+  it("a run whose payload the registry refuses fails for good: failed in the queue at once, no retry", async () => {
+    ensureWorker("queue-a");
+    const id = await insertRun({ kind: "map", payload: { method: "llg" } });
+    const run = await settledRun(id);
+    expect(run.state).toBe("failed");
+    expect(run.error).toMatch(/Invalid run/);
+    const job = await waitFor("the job to fail", async () => {
+      const j = await jobRow(id);
+      return j?.state === "failed" ? j : null;
+    });
+    expect(job.retry_count).toBe(0);
+  });
+
+  it("a 65k-cell map: a graceful stop hands it back without a retry, and the next worker resumes from the saved rows", async () => {
+    const spec = mapSpec(256, 256);
+    ensureWorker("queue-a");
+    const id = await insertRun(spec);
+    await waitFor("a third of the rows saved", async () => (await checkpointCount(id)) >= 86, 180_000);
+    await stopWorker("queue-a", "SIGTERM");
+    const stopped = await runRow(id);
+    const saved = await checkpointCount(id);
+    expect(stopped.state).toBe("queued");
+    expect(stopped.error).toMatch(/stopped with \d+ of 256 parts saved/);
+    const job = await jobRow(id);
+    expect(job.state).toBe("created");
+    expect(job.retry_count).toBe(0);
+
+    startWorker("queue-b");
+    const done = await settledRun(id);
+    expect(done.state, done.error ?? "").toBe("done");
+    const result = (await db.query("select meta, worker_id, attempt, engine_version from lab_run_results where run_id = $1", [id])).rows[0];
+    expect(result.worker_id).toBe("queue-b");
+    expect(result.engine_version).toBe(ENGINE_VERSION);
+    // The resumed attempt began at the saved rows' share of the run (its time left counts from there).
+    expect(done.progress_at_start).toBeCloseTo(saved / 256, 9);
+    const { resumed, computed, chunks } = result.meta.checkpoints;
+    expect(chunks).toBe(256);
+    expect(resumed).toBe(saved);
+    expect(resumed + computed).toBe(256);
+    expect(await checkpointCount(id)).toBe(0);
+    const finalJob = await jobRow(id);
+    expect(finalJob.state).toBe("completed");
+    expect(finalJob.retry_count).toBe(0);
+    console.log(
+      `[lab runs] graceful stop of a 65,536-cell map: ${saved} of 256 rows saved at the stop, the next worker computed ${computed}`,
+    );
+  });
+
+  it("a 65k-cell map whose worker is killed: the retry redoes less than half the work and gives the same bits", async () => {
+    const spec = mapSpec(256, 256);
+    ensureWorker("queue-b");
+    const id = await insertRun(spec);
+    await waitFor("half the rows saved", async () => (await checkpointCount(id)) >= 128, 180_000);
+    await stopWorker("queue-b", "SIGKILL");
+    const killedAt = Date.now();
+    const saved = await checkpointCount(id);
+    startWorker("queue-c");
+    const done = await settledRun(id);
+    const doneS = (Date.now() - killedAt) / 1000;
+    expect(done.state, done.error ?? "").toBe("done");
+    expect(done.attempt).toBe(2);
+    const result = (await db.query("select meta, data from lab_run_results where run_id = $1", [id])).rows[0];
+    const { resumed, computed } = result.meta.checkpoints;
+    expect(resumed).toBe(saved);
+    // Work redone: what the killed attempt had computed beyond its saved rows (at most the rows in
+    // flight on its one thread) plus nothing else, since the retry computes only the missing rows.
+    expect(computed).toBe(256 - saved);
+    const totalComputed = saved + computed;
+    expect(totalComputed / 256).toBeLessThan(1.5);
+    const { decodeResult } = await import("@/lib/lab-runs/encoding");
+    const got = decodeResult(result.meta, result.data);
+    const want = computeRunInProcess(spec.kind, spec.payload).columns;
+    for (const name of Object.keys(want)) {
+      const a = got[name]!;
+      const b = want[name]!;
+      expect(a.length, name).toBe(b.length);
+      const differing = a.findIndex((v, i) => !Object.is(v, b[i]));
+      expect(differing, `${name} first differing cell`).toBe(-1);
+    }
+    console.log(
+      `[lab runs] SIGKILL of a 65,536-cell map: ${saved} of 256 rows saved before the kill; the retry computed ${computed} rows ` +
+        `(a restart from zero: 256), done ${doneS.toFixed(1)} s after the kill`,
+    );
   });
 });

@@ -3,6 +3,7 @@ import { ScratchWorkbench } from "@/components/workbench/scratch-workbench";
 
 export const metadata: Metadata = { title: "Workbench" };
 
-export default function WorkbenchScratchPage() {
-  return <ScratchWorkbench />;
+export default async function WorkbenchScratchPage({ searchParams }: { searchParams: Promise<{ run?: string | string[] }> }) {
+  const { run } = await searchParams;
+  return <ScratchWorkbench runId={typeof run === "string" ? run : null} />;
 }

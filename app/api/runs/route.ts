@@ -8,6 +8,7 @@ import { authorize, authorizeLab, requireCaller } from "@/lib/auth/access";
 import type { ResourceAccess } from "@/lib/contracts/access";
 import { DomainError, validationError } from "@/lib/contracts/errors";
 import { listRunsQuery, type SubmitRunInput, submitRunSchema } from "@/lib/contracts/lab-runs";
+import { ENGINE_VERSION } from "@/lib/lab-runs/engine";
 import { runKindHandler } from "@/lib/lab-runs/kinds";
 import { enqueueRun } from "@/lib/lab-runs/queue";
 
@@ -62,10 +63,11 @@ export const POST = apiRoute(async (request) => {
       parameterSetName: set?.name ?? null,
       parameterSetVersion: set?.version ?? null,
       paramsEdited: set?.edited ?? false,
+      engineVersion: ENGINE_VERSION,
     },
   });
   try {
-    await enqueueRun(item.id);
+    await enqueueRun({ id: item.id, kind: input.kind, payload: input.payload });
   } catch (error) {
     console.error("[runs] cannot queue run", item.id, error);
     await markRunUnqueued(db, { access, runId: item.id, error: "The job queue could not take the run; submit it again." });

@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useCallback, useMemo, useRef, useState } from "react";
+import { useCallback, useId, useMemo, useRef, useState } from "react";
 import { downloadText } from "@/components/plots/export-image";
 import { HeatMap } from "@/components/plots/heat-map";
 import { PlotExportButtons } from "@/components/plots/plot-export-buttons";
@@ -18,11 +18,12 @@ import type { ComputedSpectrum } from "@/components/workbench/use-spectrum-run";
 import type { SpectrumPoint } from "@/lib/physics/types";
 import { useRun, useRunResult } from "@/lib/query/lab-runs";
 import type { LabRunDetail, LabRunResultBody } from "@/lib/contracts/lab-runs";
-import { buildMapCsv } from "@/lib/lab-runs/export";
+import { buildMapCsv, mapFileBase } from "@/lib/lab-runs/export";
+import { workbenchHrefOfRun } from "@/lib/lab-runs/open-in-workbench";
 import { mapPayloadSchema, spectrumPayloadSchema } from "@/lib/lab-runs/kinds";
 import { figureCaption, figureFileBase } from "@/lib/workbench/export";
 import { magneticScaleLabel } from "@/lib/workbench/format";
-import { formatShare } from "@/lib/workbench/maps";
+import { formatQuantity, MAP_QUANTITIES, MAP_QUANTITY_VIEW, type MapQuantity, quantityDomain, quantityLevels } from "@/lib/workbench/maps";
 import { DEFAULT_VIEW_STATE, type ViewState } from "@/lib/workbench/view-state";
 import { CancelRun } from "./cancel-run";
 import { RunState } from "./run-state";
@@ -48,14 +49,33 @@ export function RunView({ id }: { id: string }) {
         title={item.title}
         lead={
           <>
-            {item.labName} · submitted by {item.submittedBy.name} · <DateTime iso={item.createdAt} /> · {setLabel}
+            {item.labName} · submitted by {item.submittedBy.name} · <DateTime iso={item.createdAt} /> ·{" "}
+            {item.parameterSet?.id ? (
+              <Link href={`/parameter-sets/${item.parameterSet.id}`} className="text-lux-dark underline-offset-4 hover:underline">
+                {setLabel}
+              </Link>
+            ) : (
+              setLabel
+            )}
             {item.workerId ? ` · worker ${item.workerId}` : ""} ·{" "}
             <Link href="/lab-runs" className="text-lux-dark underline-offset-4 hover:underline">
               all runs
             </Link>
           </>
         }
-        actions={<CancelRun run={item} />}
+        actions={
+          <div className="flex flex-wrap items-center gap-2">
+            {done ? (
+              <Link
+                href={workbenchHrefOfRun(item)}
+                className="rounded-md border border-ink/25 px-3 py-1.5 text-sm font-medium text-lux-dark hover:border-lux"
+              >
+                Open in the workbench
+              </Link>
+            ) : null}
+            <CancelRun run={item} />
+          </div>
+        }
       />
       <RunState run={item} />
       {done ? (
@@ -77,7 +97,7 @@ export function RunView({ id }: { id: string }) {
 
 function RunResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRunResultBody; setLabel: string }) {
   const computed =
-    `Computed by ${result.workerId} in ${(result.computeMs / 1000).toFixed(1)} s` +
+    `Computed by ${result.workerId} with engine ${result.engineVersion} in ${(result.computeMs / 1000).toFixed(1)} s` +
     `${result.attempt > 1 ? ` (attempt ${result.attempt})` : ""}.`;
   const warnings = (result.meta.warnings as string[] | undefined) ?? [];
   return (
@@ -94,42 +114,79 @@ function RunResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRu
   );
 }
 
+/** The result column of each map quantity (older results lack θe and V: the picker offers what is there). */
+const MAP_QUANTITY_COLUMN: Record<MapQuantity, string> = {
+  share: "magneticShare",
+  theta: "thetaRad",
+  thetaElectric: "thetaElectricRad",
+  thetaMagnetic: "thetaMagneticRad",
+  verdet: "verdetRadPerTm",
+};
+
 function MapResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRunResultBody; setLabel: string }) {
   const payload = mapPayloadSchema.parse(run.payload);
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
   const svg = useRef<SVGSVGElement>(null);
+  const pickerId = useId();
   const c = result.columns;
   const field = payload.axis === "field";
   const xs = c.wavelengthNm as number[];
   const ys = useMemo(() => (c.rowValue as number[]).map((v) => (field ? Math.abs(v) : v)), [c.rowValue, field]);
+  const available = MAP_QUANTITIES.filter((q) => c[MAP_QUANTITY_COLUMN[q]] !== undefined);
+  const [quantity, setQuantity] = useState<MapQuantity>("share");
+  const values = c[MAP_QUANTITY_COLUMN[quantity]] ?? [];
+  const qView = MAP_QUANTITY_VIEW[quantity];
+  const domain = useMemo(() => quantityDomain(values, quantity), [values, quantity]);
+  const levels = useMemo(() => quantityLevels(domain, quantity), [domain, quantity]);
   const yName = field ? "|B0|" : "temperature";
   const yUnit = field ? "T" : "K";
   const describeCell = useCallback(
-    (x: number, y: number, v: number | null) => `Wavelength ${fmt(x)} nm, ${yName} ${fmt(y)} ${yUnit}: magnetic share ${formatShare(v)}`,
-    [yName, yUnit],
+    (x: number, y: number, v: number | null) =>
+      `Wavelength ${fmt(x)} nm, ${yName} ${fmt(y)} ${yUnit}: ${qView.short} ${formatQuantity(v, quantity)}`,
+    [yName, yUnit, qView.short, quantity],
   );
-  const figureId = {
+  const formatLegend = useCallback((v: number) => (quantity === "share" ? `${Math.round(v * 100)} %` : fmt(v)), [quantity]);
+  const identity = {
+    runId: run.id,
     setName: run.parameterSet?.name ?? "run parameters",
     version: run.parameterSet?.version ?? null,
     edited: run.parameterSet?.edited ?? false,
-    temperatureK: payload.params.temperatureK,
-    fieldT: payload.params.fieldT,
   };
-  const fileBase = `${figureFileBase(figureId)}-run-${run.id.slice(0, 8)}`;
+  const fileBase = mapFileBase(identity, payload);
   const deviation = result.meta.maxRelDeviationFromAnalytic as number | null | undefined;
+  const conditions = field ? `at ${fmt(payload.params.temperatureK)} K` : `at ${fmt(payload.params.fieldT)} T`;
+  const lengthNote = quantity === "share" || quantity === "verdet" ? "" : `, L = ${fmt(payload.params.lengthM * 1000)} mm`;
   return (
     <figure ref={wrapRef} className="space-y-2" data-testid="run-map">
+      <label htmlFor={pickerId} className="flex flex-wrap items-center gap-2 text-sm">
+        <span className="font-medium">Show on the map</span>
+        <select
+          id={pickerId}
+          className="rounded-md border border-ink/25 bg-paper-raised px-2 py-1 text-sm focus:border-lux"
+          value={quantity}
+          onChange={(e) => setQuantity(e.target.value as MapQuantity)}
+        >
+          {available.map((q) => (
+            <option key={q} value={q}>
+              {MAP_QUANTITY_VIEW[q].label}
+            </option>
+          ))}
+        </select>
+      </label>
       <HeatMap
         title={
-          `Magnetic share over wavelength × ${field ? "|field|" : "temperature"} ` +
-          `(${payload.method === "llg" ? "numerical LLG" : "analytic"})`
+          `${qView.label}${quantity === "share" ? "" : ` (${qView.unit})`} over wavelength × ${field ? "|field|" : "temperature"} ` +
+          `${conditions}${lengthNote} (${payload.method === "llg" ? "numerical LLG" : "analytic"})`
         }
         xs={xs}
         ys={ys}
         xType={payload.wavelengths.spacing === "log" ? "log" : "linear"}
         yType={payload.rows.spacing === "log" ? "log" : "linear"}
-        values={c.magneticShare!}
-        levels={[0.5]}
+        values={values}
+        levels={levels}
+        domain={domain}
+        formatLegend={formatLegend}
+        noLevelText={quantity === "share" ? undefined : `${qView.short} keeps one sign over this map`}
         xLabel="Wavelength (nm)"
         yLabel={field ? "|B0| (T)" : "Temperature (K)"}
         width={width}
@@ -145,26 +202,11 @@ function MapResult({ run, result, setLabel }: { run: LabRunDetail; result: LabRu
           : ""}
       </figcaption>
       <div className="flex flex-wrap items-center gap-2">
-        <PlotExportButtons svgRef={svg} fileBase={fileBase} plotName="map" />
+        <PlotExportButtons svgRef={svg} fileBase={`${fileBase}-${qView.file}`} plotName="map" />
         <Button
           variant="secondary"
           onClick={() =>
-            downloadText(
-              buildMapCsv({
-                title: run.title,
-                axis: payload.axis,
-                method: payload.method,
-                wavelengthNm: xs,
-                rowValue: c.rowValue as number[],
-                magneticShare: c.magneticShare!,
-                thetaRad: c.thetaRad!,
-                thetaMagneticRad: c.thetaMagneticRad!,
-                setLabel,
-                runId: run.id,
-              }),
-              `${fileBase}-map.csv`,
-              "text/csv",
-            )
+            downloadText(buildMapCsv({ title: run.title, payload, columns: c, setLabel, runId: run.id }), `${fileBase}.csv`, "text/csv")
           }
         >
           Export map CSV

@@ -66,6 +66,7 @@ export function RunsList() {
                     : ""}
                   {run.workerId ? ` · worker ${run.workerId}` : ""}
                   {run.attempt > 1 ? ` · attempt ${run.attempt}` : ""}
+                  {` · engine ${run.engineVersion}`}
                 </p>
               </div>
               <div className="flex items-start gap-3">

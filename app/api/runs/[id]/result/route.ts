@@ -4,7 +4,7 @@ import { apiRoute, json } from "@/lib/api/route";
 import { authorize, requireCaller } from "@/lib/auth/access";
 import { DomainError } from "@/lib/contracts/errors";
 import type { LabRunResultBody } from "@/lib/contracts/lab-runs";
-import { decodeResult } from "@/lib/lab-runs/encoding";
+import { columnsAsJson, decodeResult } from "@/lib/lab-runs/encoding";
 
 /**
  * GET /api/runs/{id}/result (viewer) → LabRunResultBody. Numbers go out as JSON's shortest
@@ -16,15 +16,13 @@ export const GET = apiRoute<{ id: string }>(async (request, { params }) => {
   const access = await authorize(caller, { kind: "lab_run", id }, "viewer");
   const result = await getRunResult(db, { access });
   if (!result) throw new DomainError("not_found", "This run has no result (yet).");
-  const columns: LabRunResultBody["columns"] = {};
-  for (const [name, col] of Object.entries(decodeResult(result.meta, result.data))) {
-    columns[name] = Array.from(col, (v) => (Number.isNaN(v) ? null : v));
-  }
+  const columns = columnsAsJson(decodeResult(result.meta, result.data));
   const body: LabRunResultBody = {
     runId: id,
     workerId: result.workerId,
     attempt: result.attempt,
     computeMs: result.computeMs,
+    engineVersion: result.engineVersion,
     meta: result.meta,
     columns,
   };
