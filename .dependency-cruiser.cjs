@@ -29,7 +29,7 @@ module.exports = {
       comment:
         "The computations beside the physics (fit, planner, measurements, model, workbench, lab-run kinds) know no server, database or UI.",
       severity: "error",
-      from: { path: "^lib/(fit|planner|measurements|model|workbench|lab-runs/(kinds|encoding|export))" },
+      from: { path: "^lib/(fit|planner|measurements|model|workbench|api-docs|csv|lab-runs/(kinds|encoding|export))" },
       to: { path: ["^db/", "^workers/", UI, SERVER_LIB, "^lib/query/", "^node_modules/(next|react|react-dom|drizzle-orm|pg|pg-boss)/"] },
     },
     {
