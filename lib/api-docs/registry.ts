@@ -5,7 +5,12 @@ import { saveFitSchema } from "@/lib/contracts/fits";
 import { listRunsQuery, submitRunSchema } from "@/lib/contracts/lab-runs";
 import { acceptInvitationSchema, changeMemberSchema, createInvitationSchema } from "@/lib/contracts/labs";
 import { createLightSourceSchema, listLightSourcesQuery, updateLightSourceSchema } from "@/lib/contracts/light-sources";
-import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
+import {
+  editPointsSchema,
+  listMeasurementSetsQuery,
+  pointHistoryQuery,
+  uploadMeasurementMetaSchema,
+} from "@/lib/contracts/measurement-sets";
 import { pageQuerySchema } from "@/lib/contracts/paging";
 import {
   createParameterSetSchema,
@@ -445,9 +450,30 @@ export const ROUTES: ApiRouteDoc[] = [
     method: "GET",
     path: "/api/measurement-sets/{id}/points",
     tag: "Measurements",
-    summary: "The points in SI, file order",
+    summary: "The points in SI, file order, with masks, notes and edits",
     access: "viewer",
-    response: ok(z.object({ points: z.array(r.measuredPointResponse) })),
+    response: ok(r.pointsResponse),
+  },
+  {
+    method: "PATCH",
+    path: "/api/measurement-sets/{id}/points",
+    tag: "Measurements",
+    summary: "Mask, annotate or correct points (one new revision)",
+    description:
+      "`revision` is the revision you edited (an older one answers 409 stale_version). Values are in SI. Masking needs a reason. " +
+      "The original file is never changed; a point keeps its imported values in `original`.",
+    access: "editor",
+    body: editPointsSchema,
+    response: ok(z.object({ revision: z.number().int(), changedPoints: z.number().int() })),
+  },
+  {
+    method: "GET",
+    path: "/api/measurement-sets/{id}/history",
+    tag: "Measurements",
+    summary: "What each revision changed, point by point",
+    access: "viewer",
+    query: pointHistoryQuery,
+    response: ok(r.items(r.pointChangeResponse)),
   },
   {
     method: "GET",

@@ -5,14 +5,14 @@ import { ERROR_CODES, type ErrorBody } from "@/lib/contracts/errors";
 import { LAB_RUN_STATES, type LabRunDetail, type LabRunResultBody, type LabRunSummary } from "@/lib/contracts/lab-runs";
 import type { InvitationSummary, LabSummary, MemberSummary } from "@/lib/contracts/labs";
 import type { LightSource } from "@/lib/contracts/light-sources";
-import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import type { MeasurementSetSummary, PointChangeEntry, PointsResponse, StoredPoint } from "@/lib/contracts/measurement-sets";
 import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/contracts/parameter-sets";
 import { savedPlanSchema, type SavedPlan } from "@/lib/contracts/plans";
 import { labRoleSchema } from "@/lib/contracts/roles";
 import type { SharedSet, ShareLinkSummary } from "@/lib/contracts/sharing";
 import type { TokenSummary } from "@/lib/contracts/tokens";
 import type { MyWorkbenchView } from "@/lib/contracts/workbench-views";
-import { measuredPointSchema } from "@/lib/measurements/point";
+import { EDITABLE_POINT_FIELDS, measuredPointSchema } from "@/lib/measurements/point";
 import { modelParamsSchema } from "@/lib/physics/schema";
 
 /*
@@ -103,9 +103,28 @@ export const measurementSetResponse: z.ZodType<MeasurementSetSummary> = z.object
   fileBytes: z.number().int(),
   uploadedBy: userRefResponse,
   createdAt: iso,
+  revision: z.number().int().describe("1 at import; each edit of the points makes the next."),
+  maskedCount: z.number().int().describe("Points left out of fits and overlays."),
   role: labRoleSchema,
 });
-export const measuredPointResponse = measuredPointSchema;
+
+const editableValues = z.object(Object.fromEntries(EDITABLE_POINT_FIELDS.map((f) => [f, z.number().optional()])));
+export const storedPointResponse: z.ZodType<StoredPoint> = measuredPointSchema.extend({
+  ordinal: z.number().int().describe("0-based position in the file; the point's id within the set."),
+  masked: z.boolean().describe("Masked points are left out of fits and overlays."),
+  maskReason: z.string().nullable(),
+  note: z.string(),
+  original: editableValues.nullable().describe("The imported values of the fields an edit changed; null while as in the file."),
+});
+export const pointsResponse: z.ZodType<PointsResponse> = z.object({ revision: z.number().int(), points: z.array(storedPointResponse) });
+export const pointChangeResponse: z.ZodType<PointChangeEntry> = z.object({
+  revision: z.number().int(),
+  ordinal: z.number().int(),
+  line: z.number().int(),
+  changes: z.record(z.string(), z.object({ from: z.unknown(), to: z.unknown() })),
+  actor: userRefResponse.nullable(),
+  at: iso,
+});
 
 const runSummaryFields = {
   id: z.string(),
