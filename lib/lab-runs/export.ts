@@ -1,3 +1,5 @@
+import { buildCsv, type CsvCell } from "@/lib/csv/write";
+
 /*
  * Exports of a finished lab run that the workbench has no exporter for: a map as CSV, one row per
  * cell, with the same header style as the spectrum export (a comment block saying what it is).
@@ -16,21 +18,24 @@ export interface MapExportInput {
   runId: string;
 }
 
-const cell = (v: number | null | undefined) => (v === null || v === undefined || Number.isNaN(v) ? "" : String(v));
-
-export function buildMapCsv(m: MapExportInput): string {
-  const lines = [
-    `# Gyrolux lab run ${m.runId}: ${m.title}`,
-    `# parameters: ${m.setLabel}; method: ${m.method}`,
-    "# magnetic_share = |theta_m| / (|theta_e| + |theta_m|); empty where undefined",
-    `wavelength_nm,${m.axis === "temperature" ? "temperature_K" : "field_T"},magnetic_share,theta_rad,theta_magnetic_rad`,
-  ];
+function* mapRows(m: MapExportInput): Generator<CsvCell[]> {
   const nx = m.wavelengthNm.length;
   for (let j = 0; j < m.rowValue.length; j++) {
     for (let i = 0; i < nx; i++) {
       const k = j * nx + i;
-      lines.push(`${m.wavelengthNm[i]},${m.rowValue[j]},${cell(m.magneticShare[k])},${cell(m.thetaRad[k])},${cell(m.thetaMagneticRad[k])}`);
+      yield [m.wavelengthNm[i], m.rowValue[j], m.magneticShare[k], m.thetaRad[k], m.thetaMagneticRad[k]];
     }
   }
-  return `${lines.join("\n")}\n`;
+}
+
+export function buildMapCsv(m: MapExportInput): string {
+  return buildCsv({
+    comments: [
+      `Gyrolux lab run ${m.runId}: ${m.title}`,
+      `parameters: ${m.setLabel}; method: ${m.method}`,
+      "magnetic_share = |theta_m| / (|theta_e| + |theta_m|); empty where undefined",
+    ],
+    header: ["wavelength_nm", m.axis === "temperature" ? "temperature_K" : "field_T", "magnetic_share", "theta_rad", "theta_magnetic_rad"],
+    rows: mapRows(m),
+  });
 }
