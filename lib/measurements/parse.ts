@@ -130,12 +130,13 @@ function splitLines(normalized: string, delimiter: Delimiter): string[][] {
   return Papa.parse<string[]>(normalized, { delimiter, newline: "\n", skipEmptyLines: false }).data;
 }
 
-const allNumbers = (cells: string[], decimal: "." | ",") => cells.length > 0 && cells.every((c) => numberText(c, decimal) !== null);
+/** A header names its columns; a row with a number in it is data (numpy.savetxt may add text columns with fmt="%s"). */
+const looksLikeData = (cells: string[], decimal: "." | ",") => cells.some((c) => numberText(c, decimal) !== null);
 
 /**
  * Splits the text into a header and data rows with their line numbers. Lines starting with `#`
- * and blank lines are skipped. The header is the first other line, unless that line is all
- * numbers: then the last comment line before it, without its `#`, when it has as many fields
+ * and blank lines are skipped. The header is the first other line, unless that line holds a
+ * number: then the last comment line before it, without its `#`, when it has as many fields
  * (what numpy.savetxt writes with `header=`). The delimiter is the first data line's (tab, else
  * semicolon, else comma, else runs of spaces); decimal commas are recognised with a semicolon, tab
  * or whitespace delimiter. `format` overrides either detection.
@@ -167,7 +168,7 @@ export function readTable(text: string, format: TableFormat = AUTO_FORMAT): Tabl
   const first = data[0];
   if (!first) return table;
   let rows = data;
-  if (allNumbers(first.cells, decimal)) {
+  if (looksLikeData(first.cells, decimal)) {
     const comment = entries.filter((e) => e.line < first.line && isComment(e.cells) && !isBlank(e.cells)).at(-1);
     const headerText = comment ? comment.cells.join(delimiter === "whitespace" ? " " : delimiter).replace(/^\s*#\s*/, "") : "";
     const headerCells = headerText === "" ? [] : splitLines(headerText, delimiter)[0]!;

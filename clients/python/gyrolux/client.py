@@ -77,7 +77,7 @@ def _header_cells(text: str) -> List[str]:
         return line.split()
 
     cells = split(first)
-    numeric = all(_is_number(c) for c in cells)
+    numeric = any(_is_number(c) for c in cells)
     comments = [line for line in lines[: lines.index(first)] if line.lstrip().startswith("#")]
     if numeric and comments:  # numpy.savetxt's "# a b c" header
         return split(comments[-1].lstrip()[1:].strip())

@@ -1,6 +1,6 @@
 """The client against a running Gyrolux server.
 
-tests/integration/python-client.integ.test.ts runs this inside `npm test` with GYROLUX_TEST_BASE_URL,
+tests/e2e/python-client.e2e.ts runs this inside `npm test` with GYROLUX_TEST_BASE_URL,
 GYROLUX_TEST_TOKEN (an editor's API token in the demo lab), GYROLUX_TEST_LAB_ID and
 GYROLUX_TEST_SET_ID (the demo garnet set). Without them every test here is skipped, and that
 integration test fails on a skip.
@@ -80,7 +80,9 @@ class LiveTest(unittest.TestCase):
         saved = self.gx.save_fit(own["id"], fit, [item])
         self.assertEqual(saved["version"], own["version"] + 1)
         provenance = self.gx.versions(own["id"])[0]["provenance"]
-        self.assertEqual(provenance["fit"]["measurementSets"][0]["id"], item["id"])
+        self.assertEqual(provenance["kind"], "fit")
+        self.assertEqual(provenance["measurementSets"][0]["id"], item["id"])
+        self.assertEqual(provenance["values"]["magneticScale"], fit["values"]["magneticScale"])
 
     def test_lab_run_submit_wait_result(self):
         params = self.gx.parameter_set(SET)["params"]

@@ -95,3 +95,12 @@ describe("parseMeasurementTable: extra text columns", () => {
     expect(result.errors).toEqual(["line 2: source is longer than 200 characters"]);
   });
 });
+
+describe("readTable: a # header above data with text columns", () => {
+  it("takes the comment as the header when the first row holds numbers beside text", () => {
+    const table = readTable("# wavelength_nm verdet source\n632.8 -134 HeNe\n1064 -40 Nd:YAG\n");
+    expect(table.headerSource).toBe("comment");
+    expect(table.headers).toEqual(["wavelength_nm", "verdet", "source"]);
+    expect(table.rows).toHaveLength(2);
+  });
+});

@@ -1,12 +1,14 @@
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { BASE_URL, createApiToken, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, signIn } from "./support";
+import { BASE_URL, createApiToken, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, signIn } from "../integration/support";
 
 /*
  * The Python client (clients/python) against this test server: its unittest suite runs with an
  * editor's fresh API token. Every live test must run (a skip here means the environment did not
- * reach Python) and pass.
+ * reach Python) and pass. No browser: it sits with the browser tests because scripts/test.sh runs
+ * them with a lab-run worker up (the API tier's lab-run test needs a queue without one), and the
+ * client submits a lab run and waits for its result.
  */
 
 const CLIENT_DIR = path.resolve(import.meta.dirname, "../../clients/python");
