@@ -124,13 +124,3 @@ describe("measurement points", () => {
     expect(unknown.body.error.fields["changes.0.ordinal"]).toBe("No such point in this set.");
   });
 });
-
-describe("the API description", () => {
-  it("is served at /api/openapi.json without signing in, with the lab-run body", async () => {
-    const response = await new Client().get("/api/openapi.json");
-    expect(response.status).toBe(200);
-    expect(response.body.openapi).toBe("3.1.0");
-    expect(response.body.paths["/api/runs"].post.requestBody.content["application/json"].schema).toBeDefined();
-    expect(response.body.paths["/api/measurement-sets/{id}/points"].patch).toBeDefined();
-  });
-});
