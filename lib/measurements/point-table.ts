@@ -98,10 +98,16 @@ export function undoOf(before: StoredPoint, change: PointChange): PointChange {
 
 const show = (v: unknown) => (v === null || v === "" ? "—" : typeof v === "number" ? fmtStored(v) : String(v));
 
-/** "masked (reason: “laser drift”); σ 2 → 3" */
+/** The order a revision's changes are told in (the stored JSON keeps no key order: PostgreSQL's jsonb sorts them). */
+const CHANGE_ORDER: string[] = ["masked", "maskReason", "note", ...EDITABLE_POINT_FIELDS];
+const rank = (field: string) => (CHANGE_ORDER.includes(field) ? CHANGE_ORDER.indexOf(field) : CHANGE_ORDER.length);
+
+/** "masked; reason “laser drift”; σ 2 → 3" */
 export function describeChanges(changes: Record<string, { from: unknown; to: unknown }>): string {
   const parts: string[] = [];
-  for (const [field, { from, to }] of Object.entries(changes)) {
+  const fields = Object.keys(changes).sort((a, b) => rank(a) - rank(b));
+  for (const field of fields) {
+    const { from, to } = changes[field]!;
     if (field === "masked") parts.push(to ? "masked" : "unmasked");
     else if (field === "maskReason") {
       if (to !== null) parts.push(`reason “${show(to)}”`);

@@ -30,6 +30,12 @@ export type MeasuredPoint = z.infer<typeof measuredPointSchema>;
 /** The numeric fields of a point a person may correct on the measurement-set page. */
 export const EDITABLE_POINT_FIELDS = ["wavelengthNm", "value", "sigma", "temperatureK", "fieldT", "lengthM"] as const;
 
+/** Just the measured point of a stored one (the fit's schema is strict: no mask, note or ordinal). */
+export function toMeasuredPoint(p: MeasuredPoint): MeasuredPoint {
+  const { line, wavelengthNm, quantity, value, sigma, temperatureK, fieldT, lengthM, extra } = p;
+  return { line, wavelengthNm, quantity, value, sigma, temperatureK, fieldT, lengthM, ...(extra ? { extra } : {}) };
+}
+
 /** The points a fit or an overlay uses: all but the masked ones. */
 export function usablePoints<P extends MeasuredPoint & { masked?: boolean }>(points: readonly P[]): P[] {
   return points.filter((p) => p.masked !== true);

@@ -8,7 +8,7 @@ import type {
   PointsResponse,
   UploadMeasurementMeta,
 } from "@/lib/contracts/measurement-sets";
-import { type MeasuredPoint, usablePoints } from "@/lib/measurements/point";
+import { type MeasuredPoint, toMeasuredPoint, usablePoints } from "@/lib/measurements/point";
 import { RequestError } from "@/lib/query/fetcher";
 import { apiFetch } from "./fetcher";
 import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
@@ -47,7 +47,10 @@ export const storedPointsQuery = (id: string) =>
 
 /** The points a fit or an overlay uses: the unmasked ones, as measured points. */
 export const measurementPointsQuery = (id: string) =>
-  queryOptions({ ...storedPointsQuery(id), select: (data: PointsResponse): MeasuredPoint[] => usablePoints(data.points) });
+  queryOptions({
+    ...storedPointsQuery(id),
+    select: (data: PointsResponse): MeasuredPoint[] => usablePoints(data.points).map(toMeasuredPoint),
+  });
 
 export const pointHistoryQueryOptions = (id: string) =>
   queryOptions({

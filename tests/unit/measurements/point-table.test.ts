@@ -83,5 +83,9 @@ describe("describeChanges", () => {
       "masked; reason “drift”; σ 2 → 3",
     );
     expect(describeChanges({ note: { from: "x", to: "" } })).toBe("note removed");
+    // Told in one order whatever order the stored JSON has its keys in.
+    expect(describeChanges({ note: { from: "", to: "n" }, sigma: { from: 2, to: 3 }, masked: { from: false, to: true } })).toBe(
+      "masked; note “n”; σ 2 → 3",
+    );
   });
 });
