@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { Client, DEMO, DEMO_LAB_ID, type JsonBody, signIn, uniqueName } from "./support";
+import { type Client, DEMO, DEMO_LAB_ID, type JsonBody, signIn, uniqueName } from "./support";
 
 /*
  * The measurement-set page's API: the formats the upload reads, extra text columns kept per
