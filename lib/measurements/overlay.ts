@@ -1,3 +1,4 @@
+import { fmtStored } from "@/lib/workbench/format";
 import { fromNm, rotationTo, type Geometry, type XUnit, type YMode } from "@/lib/workbench/units";
 import type { MeasuredPoint } from "./point";
 
@@ -70,7 +71,8 @@ export function describeConversion(options: {
   quantities: ReadonlySet<MeasuredPoint["quantity"]>;
 }): string {
   const { yMode, geometry, quantities } = options;
-  const bl = `B = ${geometry.fieldT} T, L = ${geometry.lengthM * 1000} mm`;
+  // Rounded like every stored value on screen: 0.0133 m × 1000 is 13.299999999999999 in binary64.
+  const bl = `B = ${fmtStored(geometry.fieldT)} T, L = ${fmtStored(geometry.lengthM * 1000)} mm`;
   if (yMode === "verdet") {
     return quantities.has("rotation")
       ? "Measured rotations are shown as Verdet constants θ/(B·L) at each point's own field and length."

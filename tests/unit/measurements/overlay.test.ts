@@ -91,3 +91,11 @@ describe("points grouped by their conditions", () => {
     expect(conditionGroups([[{ temperatureK: 293, fieldT: 1.01 }]], { temperatureK: 293, fieldT: 1 })[0]!.matchesCurve).toBe(false);
   });
 });
+
+describe("the conversion sentence", () => {
+  it("writes the plot's length without binary noise", () => {
+    expect(0.0133 * 1000).not.toBe(13.3);
+    const text = describeConversion({ yMode: "rad", geometry: { fieldT: 1, lengthM: 0.0133 }, quantities: new Set(["verdet"]) });
+    expect(text).toContain("B = 1 T, L = 13.3 mm");
+  });
+});
