@@ -56,5 +56,6 @@ export const config = {
     "/settings/:path*",
     "/audit/:path*",
     "/admin/:path*",
+    "/api-reference/:path*",
   ],
 };

@@ -2,7 +2,7 @@ import { randomUUID, createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { uniqueViolation } from "@/db/errors";
 import { DomainError } from "@/lib/contracts/errors";
-import type { ColumnMapping, FileDefaults } from "@/lib/measurements/parse";
+import type { ColumnMapping, FileDefaults, TableFormat } from "@/lib/measurements/parse";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
 import type { Executor } from "./executor";
@@ -28,11 +28,13 @@ export interface MeasurementImport {
   bytes: Uint8Array;
   mapping: ColumnMapping;
   defaults: FileDefaults;
+  /** How the file was read (detected or chosen); absent for the seed's plain CSV files. */
+  format?: TableFormat;
   /** Already parsed and validated (lib/measurements/parse.ts). */
   points: MeasuredPoint[];
 }
 
-/** Rows per INSERT: 9 parameters each stays far below PostgreSQL's 65 535 bind parameters. */
+/** Rows per INSERT: 10 parameters each stays far below PostgreSQL's 65 535 bind parameters. */
 const POINT_BATCH = 2000;
 
 const distinct = (values: number[]) => [...new Set(values)].sort((a, b) => a - b);
@@ -91,7 +93,7 @@ export async function importMeasurementSet(options: {
         temperaturesK: distinct(input.points.map((p) => p.temperatureK)),
         fieldsT: distinct(input.points.map((p) => p.fieldT)),
         lengthsM: distinct(input.points.map((p) => p.lengthM)),
-        mapping: { ...input.mapping, defaults: input.defaults },
+        mapping: { ...input.mapping, defaults: input.defaults, ...(input.format ? { format: input.format } : {}) },
         fileName: input.fileName,
         fileBytes: input.bytes.byteLength,
         contentType: input.contentType,
@@ -111,6 +113,7 @@ export async function importMeasurementSet(options: {
             temperatureK: p.temperatureK,
             fieldT: p.fieldT,
             lengthM: p.lengthM,
+            extra: p.extra ?? null,
           })),
         );
       }

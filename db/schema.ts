@@ -275,6 +275,9 @@ export const measurementSets = pgTable(
     contentType: text("content_type").notNull(),
     fileSha256: text("file_sha256").notNull(),
     objectKey: text("object_key").notNull(),
+    /** 1 at import; every edit of its points (mask, note, value) makes the next revision. The file is never changed. */
+    revision: integer("revision").notNull().default(1),
+    maskedCount: integer("masked_count").notNull().default(0),
     createdById: uuid("created_by")
       .notNull()
       .references(() => users.id),
@@ -300,10 +303,37 @@ export const measurementPoints = pgTable(
     temperatureK: doublePrecision("temperature_k").notNull(),
     fieldT: doublePrecision("field_t").notNull(),
     lengthM: doublePrecision("length_m").notNull(),
+    /** The file's other columns for this row, as text; null when it had none. */
+    extra: jsonb("extra").$type<Record<string, string>>(),
+    /** Masked points stay in the set but are left out of fits and overlays. */
+    masked: boolean("masked").notNull().default(false),
+    maskReason: text("mask_reason"),
+    note: text("note").notNull().default(""),
+    /** The values as imported, for the fields an edit changed; null while the point is as in the file. */
+    original: jsonb("original").$type<Record<string, number>>(),
   },
   (t) => [primaryKey({ columns: [t.setId, t.ordinal] })],
 );
 export type MeasurementPointRow = typeof measurementPoints.$inferSelect;
+
+/** What each revision of a set changed, point by point (who, when, why): the set's own history beside the audit log. */
+export const measurementPointChanges = pgTable(
+  "measurement_point_changes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    setId: uuid("set_id")
+      .notNull()
+      .references(() => measurementSets.id, { onDelete: "cascade" }),
+    revision: integer("revision").notNull(),
+    ordinal: integer("ordinal").notNull(),
+    /** { field: { from, to } } for every field the change touched. */
+    changes: jsonb("changes").$type<Record<string, { from: unknown; to: unknown }>>().notNull(),
+    actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("measurement_point_changes_set_idx").on(t.setId, t.revision)],
+);
+export type MeasurementPointChangeRow = typeof measurementPointChanges.$inferSelect;
 
 export const measurementSetsRelations = relations(measurementSets, ({ one, many }) => ({
   lab: one(labs, { fields: [measurementSets.labId], references: [labs.id] }),

@@ -5,7 +5,12 @@ import { type NumScale, type ScaleType, ticksOf } from "./scale";
  * classes, so an exported SVG looks the same outside the page.
  */
 
-export const AXIS_FONT = "Inter Variable, Inter, system-ui, sans-serif";
+/**
+ * The product's font first; an exported SVG opened where Inter is not installed (a journal's
+ * editor, Inkscape, another machine) falls back to fonts most systems have with similar widths,
+ * then to the generic sans-serif, so labels never fall to a serif default.
+ */
+export const AXIS_FONT = "'Inter Variable', Inter, 'DejaVu Sans', 'Liberation Sans', Arial, Helvetica, sans-serif";
 const INK = "#1d2433";
 const SOFT = "#4a5468";
 const GRID = "#e3e0d8";

@@ -12,6 +12,7 @@ export const NAV_ITEMS = [
   { href: "/lab", label: "Lab" },
   { href: "/audit", label: "Audit" },
   { href: "/settings", label: "Settings" },
+  { href: "/api-reference", label: "API" },
 ] as const;
 
 function isActive(pathname: string, href: string): boolean {

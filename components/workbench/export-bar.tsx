@@ -47,6 +47,16 @@ export function ExportBar({
       <Button
         variant="secondary"
         disabled={!ready}
+        title="One header row and the data: reads with numpy.genfromtxt(names=True), pandas.read_csv or the csv module"
+        onClick={() =>
+          downloadText(buildSpectrumCsv(meta(), shown!.params, shown!.result, "plain"), `${fileBase}-spectrum-plain.csv`, "text/csv")
+        }
+      >
+        CSV, plain header
+      </Button>
+      <Button
+        variant="secondary"
+        disabled={!ready}
         onClick={() =>
           downloadText(buildSpectrumJson(meta(), shown!.params, shown!.result), `${fileBase}-spectrum.json`, "application/json")
         }

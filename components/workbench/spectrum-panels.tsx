@@ -58,6 +58,7 @@ function SpectrumPanelsImpl({
   caption,
   methodLabel,
   overlaySetIds = NO_IDS,
+  curveTemperatureK = Number.NaN,
 }: {
   points: readonly SpectrumPoint[];
   geometry: Geometry;
@@ -71,6 +72,8 @@ function SpectrumPanelsImpl({
   methodLabel: string;
   /** Measurement sets drawn as points with error bars over the spectrum. */
   overlaySetIds?: readonly string[];
+  /** The temperature the curves were computed at: overlay points at other conditions are drawn hollow. */
+  curveTemperatureK?: number;
 }) {
   const [wrapRef, width] = useElementWidth<HTMLDivElement>();
   const [cursor, setCursor] = useState<number | null>(null);
@@ -160,7 +163,15 @@ function SpectrumPanelsImpl({
     () => (points.length > 0 ? ([points[0]!.wavelengthNm, points[points.length - 1]!.wavelengthNm] as const) : null),
     [points],
   );
-  const layers = useMeasurementLayers({ setIds: overlaySetIds, xUnit, yMode, yUnit: Y_UNIT_SHORT[yMode], geometry, rangeNm });
+  const layers = useMeasurementLayers({
+    setIds: overlaySetIds,
+    xUnit,
+    yMode,
+    yUnit: Y_UNIT_SHORT[yMode],
+    geometry,
+    rangeNm,
+    curveTemperatureK,
+  });
   const cp = cursor !== null ? points[cursor] : undefined;
   const yUnit = Y_UNIT_SHORT[yMode];
   const yLabel = yMode === "verdet" ? Y_MODE_LABEL.verdet : `Rotation (${yUnit}) at ${geometry.fieldT} T, ${geometry.lengthM * 1000} mm`;

@@ -232,6 +232,7 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
                 caption={figureCaption(figureId)}
                 methodLabel={methodLabel}
                 overlaySetIds={overlayIds}
+                curveTemperatureK={shownParams.temperatureK}
               />
               <OpaqueNote points={run.shown.result.points} lengthM={geometry.lengthM} />
               {shared ? null : (

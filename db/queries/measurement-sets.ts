@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, ilike, or, type SQL } from "drizzle-orm";
-import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
+import type { MeasurementSetSummary, PointsResponse, StoredPoint } from "@/lib/contracts/measurement-sets";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
 import type { Executor } from "../executor";
@@ -34,6 +34,8 @@ const summaryColumns = {
   fileName: measurementSets.fileName,
   fileBytes: measurementSets.fileBytes,
   createdAt: measurementSets.createdAt,
+  revision: measurementSets.revision,
+  maskedCount: measurementSets.maskedCount,
   uploadedById: users.id,
   uploadedByName: users.name,
 };
@@ -57,6 +59,8 @@ function toSummary(row: SummaryRow, role: LabRole): MeasurementSetSummary {
     fileBytes: row.fileBytes,
     uploadedBy: { id: row.uploadedById, name: row.uploadedByName },
     createdAt: row.createdAt.toISOString(),
+    revision: row.revision,
+    maskedCount: row.maskedCount,
     role,
   };
 }
@@ -108,37 +112,39 @@ export async function getMeasurementSet(db: Executor, options: { access: Measure
   return loadSummary(db, options.access);
 }
 
-/** The set's points in file order, in SI; null when the set was deleted since. */
-export async function getMeasurementPoints(db: Executor, options: { access: MeasurementAccess }): Promise<MeasuredPoint[] | null> {
+const pointColumns = {
+  ordinal: measurementPoints.ordinal,
+  line: measurementPoints.line,
+  wavelengthNm: measurementPoints.wavelengthNm,
+  value: measurementPoints.value,
+  sigma: measurementPoints.sigma,
+  temperatureK: measurementPoints.temperatureK,
+  fieldT: measurementPoints.fieldT,
+  lengthM: measurementPoints.lengthM,
+  extra: measurementPoints.extra,
+  masked: measurementPoints.masked,
+  maskReason: measurementPoints.maskReason,
+  note: measurementPoints.note,
+  original: measurementPoints.original,
+};
+const selectPoints = (db: Executor, setId: string) =>
+  db.select(pointColumns).from(measurementPoints).where(eq(measurementPoints.setId, setId)).orderBy(asc(measurementPoints.ordinal));
+
+function toStoredPoint(row: Awaited<ReturnType<typeof selectPoints>>[number], quantity: MeasuredPoint["quantity"]): StoredPoint {
+  const { extra, original, ...rest } = row;
+  return { ...rest, quantity, ...(extra ? { extra } : {}), original: original ?? null };
+}
+
+/** The set's points in file order, in SI, with the set's revision; null when the set was deleted since. */
+export async function getMeasurementPoints(db: Executor, options: { access: MeasurementAccess }): Promise<PointsResponse | null> {
   const { access } = options;
   const [set] = await db
-    .select({ quantity: measurementSets.quantity })
+    .select({ quantity: measurementSets.quantity, revision: measurementSets.revision })
     .from(measurementSets)
     .where(and(eq(measurementSets.id, access.id), eq(measurementSets.labId, access.labId)));
   if (!set) return null;
-  const rows = await db
-    .select({
-      line: measurementPoints.line,
-      wavelengthNm: measurementPoints.wavelengthNm,
-      value: measurementPoints.value,
-      sigma: measurementPoints.sigma,
-      temperatureK: measurementPoints.temperatureK,
-      fieldT: measurementPoints.fieldT,
-      lengthM: measurementPoints.lengthM,
-    })
-    .from(measurementPoints)
-    .where(eq(measurementPoints.setId, access.id))
-    .orderBy(asc(measurementPoints.ordinal));
-  return rows.map((row) => ({
-    line: row.line,
-    wavelengthNm: row.wavelengthNm,
-    quantity: set.quantity,
-    value: row.value,
-    sigma: row.sigma,
-    temperatureK: row.temperatureK,
-    fieldT: row.fieldT,
-    lengthM: row.lengthM,
-  }));
+  const rows = await selectPoints(db, access.id);
+  return { revision: set.revision, points: rows.map((row) => toStoredPoint(row, set.quantity)) };
 }
 
 /** The original file's bytes and name, byte for byte as uploaded; null when the set is unknown. */

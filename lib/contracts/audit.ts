@@ -17,6 +17,7 @@ export const AUDIT_ACTIONS = [
   "light_source.update",
   "measurement_set.create",
   "measurement_set.delete",
+  "measurement_set.revise",
   "member.remove",
   "member.role",
   "parameter_set.create",

@@ -1,11 +1,16 @@
 import { z } from "zod";
 import type { UserRef } from "./common";
 import { type LabRole, labRoleSchema } from "./roles";
-import { emailSchema } from "./validation";
+import { emailSchema, safeString } from "./validation";
 
 /* Labs, their members and invitations: request schemas and answer shapes. */
 
 export const createInvitationSchema = z.object({ email: emailSchema, role: labRoleSchema });
+
+/** POST /api/invitations/accept: the secret from the invitation link. */
+export const acceptInvitationSchema = z.object({
+  token: safeString({ error: "The invitation link is incomplete." }).max(200, "The invitation link is not valid."),
+});
 
 export const changeMemberSchema = z.object({ role: labRoleSchema });
 

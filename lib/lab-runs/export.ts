@@ -1,3 +1,4 @@
+import { buildCsv, type CsvCell } from "@/lib/csv/write";
 import { exportFileName, shortNumber } from "@/lib/workbench/export";
 import type { MapPayload } from "./kinds";
 
@@ -46,34 +47,40 @@ export interface MapExportInput {
   runId: string;
 }
 
-const cell = (v: number | null | undefined) => (v === null || v === undefined || Number.isNaN(v) ? "" : String(v));
+const cell = (v: number | null | undefined): CsvCell => (v === null || v === undefined || Number.isNaN(v) ? null : v);
 
-export function buildMapCsv(m: MapExportInput): string {
+function* mapRows(m: MapExportInput, present: (typeof CSV_QUANTITIES)[number][]): Generator<CsvCell[]> {
   const p = m.payload;
   const xs = m.columns.wavelengthNm ?? [];
   const ys = m.columns.rowValue ?? [];
+  const nx = xs.length;
+  for (let j = 0; j < ys.length; j++) {
+    const y = ys[j] ?? null;
+    const t = p.axis === "temperature" ? cell(y) : p.params.temperatureK;
+    const b = p.axis === "field" ? cell(y) : p.params.fieldT;
+    for (let i = 0; i < nx; i++) {
+      const k = j * nx + i;
+      yield [cell(xs[i]), t, b, p.params.lengthM, ...present.map(([, column]) => cell(m.columns[column]![k]))];
+    }
+  }
+}
+
+export function buildMapCsv(m: MapExportInput): string {
+  const p = m.payload;
   const varied =
     p.axis === "temperature"
       ? `temperature varies by row (${p.rows.from}–${p.rows.to} K); field ${p.params.fieldT} T for every cell`
       : `field varies by row (${p.rows.from}–${p.rows.to} T); temperature ${p.params.temperatureK} K for every cell`;
   const present = CSV_QUANTITIES.filter(([, column]) => m.columns[column] !== undefined);
-  const lines = [
-    `# Gyrolux lab run ${m.runId}: ${m.title}`,
-    `# parameters: ${m.setLabel}; method: ${p.method === "llg" ? "numerical LLG" : "analytic"}`,
-    `# ${varied}; sample length ${p.params.lengthM} m`,
-    "# theta = rotation over the sample length in this model; theta_electric, theta_magnetic: its electric- and magnetic-dipole parts",
-    "# magnetic_share = |theta_magnetic| / (|theta_electric| + |theta_magnetic|); empty where undefined",
-    ["wavelength_nm", "temperature_K", "field_T", "length_m", ...present.map(([header]) => header)].join(","),
-  ];
-  const nx = xs.length;
-  for (let j = 0; j < ys.length; j++) {
-    const y = ys[j] ?? null;
-    const t = p.axis === "temperature" ? cell(y) : String(p.params.temperatureK);
-    const b = p.axis === "field" ? cell(y) : String(p.params.fieldT);
-    for (let i = 0; i < nx; i++) {
-      const k = j * nx + i;
-      lines.push([cell(xs[i]), t, b, String(p.params.lengthM), ...present.map(([, column]) => cell(m.columns[column]![k]))].join(","));
-    }
-  }
-  return `${lines.join("\n")}\n`;
+  return buildCsv({
+    comments: [
+      `Gyrolux lab run ${m.runId}: ${m.title}`,
+      `parameters: ${m.setLabel}; method: ${p.method === "llg" ? "numerical LLG" : "analytic"}`,
+      `${varied}; sample length ${p.params.lengthM} m`,
+      "theta = rotation over the sample length in this model; theta_electric, theta_magnetic: its electric- and magnetic-dipole parts",
+      "magnetic_share = |theta_magnetic| / (|theta_electric| + |theta_magnetic|); empty where undefined",
+    ],
+    header: ["wavelength_nm", "temperature_K", "field_T", "length_m", ...present.map(([header]) => header)],
+    rows: mapRows(m, present),
+  });
 }

@@ -1,3 +1,4 @@
+import { fmtStored } from "@/lib/workbench/format";
 import { fromNm, rotationTo, type Geometry, type XUnit, type YMode } from "@/lib/workbench/units";
 import type { MeasuredPoint } from "./point";
 
@@ -70,7 +71,8 @@ export function describeConversion(options: {
   quantities: ReadonlySet<MeasuredPoint["quantity"]>;
 }): string {
   const { yMode, geometry, quantities } = options;
-  const bl = `B = ${geometry.fieldT} T, L = ${geometry.lengthM * 1000} mm`;
+  // Rounded like every stored value on screen: 0.0133 m × 1000 is 13.299999999999999 in binary64.
+  const bl = `B = ${fmtStored(geometry.fieldT)} T, L = ${fmtStored(geometry.lengthM * 1000)} mm`;
   if (yMode === "verdet") {
     return quantities.has("rotation")
       ? "Measured rotations are shown as Verdet constants θ/(B·L) at each point's own field and length."
@@ -81,4 +83,51 @@ export function describeConversion(options: {
   if (quantities.has("rotation"))
     parts.push(`rotations measured at another field or length are scaled to the plot's ${bl} (linear in B·L)`);
   return `${parts.join("; ").replace(/^./, (c) => c.toUpperCase())}.`;
+}
+
+/* ---- points grouped by their measurement conditions (temperature, field) ---- */
+
+/** Within this the curve's conditions count as the point's: 0.5 K (a cryostat's usual stability) and 1 mT. */
+export const SAME_TEMPERATURE_K = 0.5;
+export const SAME_FIELD_T = 1e-3;
+
+export interface ConditionGroup {
+  key: string;
+  temperatureK: number;
+  fieldT: number;
+  /** Index into the plot's marker shapes (one shape per condition, in ascending T then B). */
+  shape: number;
+  /** The curve was computed at these conditions; otherwise the curve does not predict these points. */
+  matchesCurve: boolean;
+  count: number;
+}
+
+/** Conditions rounded so that 293.15 K from one file and 293.1500001 K from a conversion are one group. */
+export function conditionKey(point: Pick<MeasuredPoint, "temperatureK" | "fieldT">): string {
+  return `${Number(point.temperatureK.toPrecision(6))} K|${Number(point.fieldT.toPrecision(6))} T`;
+}
+
+/** The distinct (T, B) of the points of every shown set, each with its marker shape and whether it is the curve's. */
+export function conditionGroups(
+  pointSets: readonly (readonly Pick<MeasuredPoint, "temperatureK" | "fieldT">[])[],
+  curve: { temperatureK: number; fieldT: number },
+): ConditionGroup[] {
+  const byKey = new Map<string, { temperatureK: number; fieldT: number; count: number }>();
+  for (const points of pointSets) {
+    for (const p of points) {
+      const key = conditionKey(p);
+      const group = byKey.get(key);
+      if (group) group.count += 1;
+      else byKey.set(key, { temperatureK: p.temperatureK, fieldT: p.fieldT, count: 1 });
+    }
+  }
+  return [...byKey.entries()]
+    .sort(([, a], [, b]) => a.temperatureK - b.temperatureK || a.fieldT - b.fieldT)
+    .map(([key, g], shape) => ({
+      key,
+      ...g,
+      shape,
+      matchesCurve:
+        Math.abs(g.temperatureK - curve.temperatureK) <= SAME_TEMPERATURE_K && Math.abs(g.fieldT - curve.fieldT) <= SAME_FIELD_T,
+    }));
 }

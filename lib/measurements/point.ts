@@ -22,5 +22,21 @@ export const measuredPointSchema = z.strictObject({
   temperatureK: finiteNumber("temperature").gt(0, "must be > 0 K"),
   fieldT: finiteNumber("field"),
   lengthM: finiteNumber("length").gt(0, "must be > 0 m"),
+  /** The file's other columns for this row, as text ("source": "run 4"), when it had any. */
+  extra: z.record(z.string(), z.string().max(200)).optional(),
 });
 export type MeasuredPoint = z.infer<typeof measuredPointSchema>;
+
+/** The numeric fields of a point a person may correct on the measurement-set page. */
+export const EDITABLE_POINT_FIELDS = ["wavelengthNm", "value", "sigma", "temperatureK", "fieldT", "lengthM"] as const;
+
+/** Just the measured point of a stored one (the fit's schema is strict: no mask, note or ordinal). */
+export function toMeasuredPoint(p: MeasuredPoint): MeasuredPoint {
+  const { line, wavelengthNm, quantity, value, sigma, temperatureK, fieldT, lengthM, extra } = p;
+  return { line, wavelengthNm, quantity, value, sigma, temperatureK, fieldT, lengthM, ...(extra ? { extra } : {}) };
+}
+
+/** The points a fit or an overlay uses: all but the masked ones. */
+export function usablePoints<P extends MeasuredPoint & { masked?: boolean }>(points: readonly P[]): P[] {
+  return points.filter((p) => p.masked !== true);
+}

@@ -1,8 +1,14 @@
 "use client";
 
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { MeasurementSetSummary, UploadMeasurementMeta } from "@/lib/contracts/measurement-sets";
-import type { MeasuredPoint } from "@/lib/measurements/point";
+import type {
+  EditPointsInput,
+  MeasurementSetSummary,
+  PointChangeEntry,
+  PointsResponse,
+  UploadMeasurementMeta,
+} from "@/lib/contracts/measurement-sets";
+import { type MeasuredPoint, toMeasuredPoint, usablePoints } from "@/lib/measurements/point";
 import { RequestError } from "@/lib/query/fetcher";
 import { apiFetch } from "./fetcher";
 import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
@@ -30,14 +36,61 @@ export const measurementSetsQuery = (filter: { labId?: string; q?: string }) =>
     queryFn: ({ signal }) => apiFetch<ItemsResponse<MeasurementSetSummary>>(listPath(filter), { signal }).then((r) => r.items),
   });
 
-export const measurementPointsQuery = (id: string) =>
+/** Every point of a set with its mask, note and edits, and the set's revision (the measurement-set page). */
+export const storedPointsQuery = (id: string) =>
   queryOptions({
     queryKey: measurementKeys.points(id),
-    queryFn: ({ signal }) =>
-      apiFetch<{ points: MeasuredPoint[] }>(`/api/measurement-sets/${encodeURIComponent(id)}/points`, { signal }).then((r) => r.points),
-    // A set's points never change after import.
-    staleTime: Number.POSITIVE_INFINITY,
+    queryFn: ({ signal }) => apiFetch<PointsResponse>(`/api/measurement-sets/${encodeURIComponent(id)}/points`, { signal }),
+    // Points change only through the edit below, which invalidates this key.
+    staleTime: 60_000,
   });
+
+/** The points a fit or an overlay uses: the unmasked ones, as measured points. */
+export const measurementPointsQuery = (id: string) =>
+  queryOptions({
+    ...storedPointsQuery(id),
+    select: (data: PointsResponse): MeasuredPoint[] => usablePoints(data.points).map(toMeasuredPoint),
+  });
+
+export const pointHistoryQueryOptions = (id: string) =>
+  queryOptions({
+    queryKey: [...measurementKeys.points(id), "history"] as const,
+    queryFn: ({ signal }) =>
+      apiFetch<ItemsResponse<PointChangeEntry>>(`/api/measurement-sets/${encodeURIComponent(id)}/history`, { signal }).then((r) => r.items),
+  });
+
+export function useMeasurementSet(id: string) {
+  return useQuery({
+    queryKey: measurementKeys.detail(id),
+    queryFn: ({ signal }) =>
+      apiFetch<ItemResponse<MeasurementSetSummary>>(`/api/measurement-sets/${encodeURIComponent(id)}`, { signal }).then((r) => r.item),
+  });
+}
+
+export function useStoredPoints(id: string) {
+  return useQuery(storedPointsQuery(id));
+}
+
+export function usePointHistory(id: string) {
+  return useQuery(pointHistoryQueryOptions(id));
+}
+
+/** One new revision of the set with these changes; the points, history, set and lists reload. */
+export function useEditPoints(id: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: EditPointsInput) =>
+      apiFetch<{ revision: number; changedPoints: number }>(`/api/measurement-sets/${encodeURIComponent(id)}/points`, {
+        method: "PATCH",
+        json: input,
+      }),
+    onSettled: () => {
+      void queryClient.invalidateQueries({ queryKey: measurementKeys.points(id) });
+      void queryClient.invalidateQueries({ queryKey: measurementKeys.detail(id) });
+      void queryClient.invalidateQueries({ queryKey: measurementKeys.lists() });
+    },
+  });
+}
 
 /** The sets of one lab (all the caller's labs when labId is undefined), newest first. */
 export function useMeasurementSets(labId: string | undefined, q?: string) {
@@ -71,6 +124,7 @@ export function useUploadMeasurementSet() {
       form.set("sample", input.meta.sample);
       form.set("mapping", JSON.stringify(input.meta.mapping));
       form.set("defaults", JSON.stringify(input.meta.defaults));
+      form.set("format", JSON.stringify(input.meta.format));
       return apiFetch<ItemResponse<MeasurementSetSummary>>("/api/measurement-sets", { method: "POST", form }).then((r) => r.item);
     },
     onSuccess: () => void queryClient.invalidateQueries({ queryKey: measurementKeys.lists() }),

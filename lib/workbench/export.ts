@@ -1,5 +1,6 @@
 import type { ModelParams } from "@/lib/physics/schema";
 import type { SpectrumPoint, SpectrumResult } from "@/lib/physics/types";
+import { buildCsv, csvCell } from "@/lib/csv/write";
 import { magneticScaleLabel } from "./format";
 import { fromNm, rotationTo, type Geometry, type XUnit, type YMode } from "./units";
 
@@ -114,10 +115,8 @@ function oneLine(s: string): string {
   return s.replace(/[\r\n]+/g, " ").trim();
 }
 
-function cell(value: number | null | undefined): string {
-  // Shortest round-trip form keeps full precision; null (e.g. share without spins) is an empty cell.
-  return value === null || value === undefined || !Number.isFinite(value) ? "" : String(value);
-}
+// Shortest round-trip form keeps full precision; null (e.g. share without spins) is an empty cell.
+const cell = csvCell;
 
 export function csvHeaderLines(meta: ExportMeta, params: ModelParams, result: SpectrumResult): string[] {
   const lines = [
@@ -155,27 +154,37 @@ export function csvHeaderLines(meta: ExportMeta, params: ModelParams, result: Sp
   return lines;
 }
 
-export function buildSpectrumCsv(meta: ExportMeta, params: ModelParams, result: SpectrumResult): string {
-  const lines = csvHeaderLines(meta, params, result);
+/**
+ * "commented": the self-describing file (what, which set and version, every column's meaning in `#`
+ * lines above the header). "plain": the header row and the data only, for numpy.genfromtxt(names=True),
+ * pandas or a spreadsheet; its column names are the same.
+ */
+export type CsvHeaderStyle = "commented" | "plain";
+
+export function buildSpectrumCsv(
+  meta: ExportMeta,
+  params: ModelParams,
+  result: SpectrumResult,
+  style: CsvHeaderStyle = "commented",
+): string {
   const extra = chosenUnitColumns(meta.display);
   const geometry: Geometry = { fieldT: params.fieldT, lengthM: params.lengthM };
-  lines.push([...CSV_COLUMNS, ...extra.map((c) => c.name)].join(","));
-  for (const p of result.points) {
-    lines.push(
-      [
-        cell(p.wavelengthNm),
-        cell(p.thetaRad),
-        cell(p.thetaElectricRad),
-        cell(p.thetaMagneticRad),
-        cell(p.thetaCrossRad),
-        cell(p.ellipticityRad),
-        cell(p.magneticShare),
-        cell(p.verdetRadPerTm),
-        ...extra.map((c) => cell(c.value(p, geometry))),
-      ].join(","),
-    );
-  }
-  return `${lines.join("\n")}\n`;
+  return buildCsv({
+    // The header lines start with "# " already; buildCsv adds it again.
+    comments: style === "commented" ? csvHeaderLines(meta, params, result).map((l) => l.replace(/^# /, "")) : [],
+    header: [...CSV_COLUMNS, ...extra.map((c) => c.name)],
+    rows: result.points.map((p) => [
+      p.wavelengthNm,
+      p.thetaRad,
+      p.thetaElectricRad,
+      p.thetaMagneticRad,
+      p.thetaCrossRad,
+      p.ellipticityRad,
+      p.magneticShare,
+      p.verdetRadPerTm,
+      ...extra.map((c) => c.value(p, geometry)),
+    ]),
+  });
 }
 
 export function buildSpectrumJson(meta: ExportMeta, params: ModelParams, result: SpectrumResult): string {

@@ -9,6 +9,15 @@ export function fmt(value: number | null | undefined, digits = 4): string {
   return Number(value.toPrecision(digits)).toString();
 }
 
+/**
+ * A stored value as a person reads it: 12 significant digits, so the binary noise of a unit
+ * conversion (0.6328 µm → 632.8000000000001 nm) is gone while every digit a file can carry stays.
+ */
+export function fmtStored(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "–";
+  return String(Number(value.toPrecision(12)));
+}
+
 export function fmtPercent(share: number | null | undefined, digits = 1): string {
   if (share === null || share === undefined || !Number.isFinite(share)) return "–";
   return `${(share * 100).toFixed(digits)} %`;

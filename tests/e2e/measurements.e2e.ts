@@ -73,8 +73,37 @@ describe("measurements in the browser", () => {
     expect(await page.getByTestId("overlay-conversion").innerText()).toContain("Verdet constants are shown as measured.");
     await expect.poll(() => points.count()).toBe(24);
     // The first point's tooltip carries its line in the file and its value ± σ in the axis unit.
-    expect(await points.first().locator("title").textContent()).toMatch(/^line 5: 420 nm, -390 ± 6\.2 rad\/\(T·m\) at 293\.15 K$/);
+    expect(await points.first().locator("title").textContent()).toMatch(/^line 5: 420 nm, -390 ± 6\.2 rad\/\(T·m\) at 293\.15 K, 1 T$/);
+    // The legend names the points' conditions; the demo garnet's curve is at the same 293.15 K and 1 T.
+    expect(await page.getByTestId("overlay-conditions").innerText()).toContain("293.15 K, 1 T · 24 points · the curve's conditions");
     await page.screenshot({ path: outputPath("workbench-measured-overlay.png"), fullPage: true });
+  });
+
+  it("masks a point with a reason on the set's page, as a new revision the overlay follows", async () => {
+    await page.goto(`/measurement-sets?q=${encodeURIComponent(NAME)}`);
+    await page.getByRole("link", { name: NAME }).click();
+    await page.getByRole("heading", { name: NAME, level: 1 }).waitFor();
+    await expect.poll(() => page.getByTestId("point-row").count()).toBe(24);
+    await page.getByRole("button", { name: "Edit the point on line 5" }).click();
+    const editor = page.getByRole("form", { name: "Edit the point on line 5" });
+    await editor.getByLabel(/Mask this point/).check();
+    await editor.getByRole("button", { name: "Save as a new revision" }).click();
+    await editor.getByText("Say why the point is masked.").waitFor();
+    await editor.getByLabel("Why").fill("laser power drifted");
+    await editor.getByLabel("Note").fill("re-measure next week");
+    await editor.getByRole("button", { name: "Save as a new revision" }).click();
+    await page.getByText("Saved the point on line 5 as revision 2.").waitFor();
+    await page.getByText(/Revision 2, line 5: masked; reason “laser power drifted”; note “re-measure next week”/).waitFor();
+    const row = page.getByTestId("point-row").filter({ hasText: "laser power drifted" });
+    expect(await row.innerText()).toContain("Masked");
+    await page.screenshot({ path: outputPath("measurement-set-points.png"), fullPage: true });
+
+    await page.goto(`/workbench/${DEMO_GARNET_SET_ID}`);
+    const picker = page.getByRole("region", { name: "Measured data on the plot" });
+    await picker.waitFor({ timeout: 120_000 });
+    await picker.getByRole("checkbox", { name: new RegExp(NAME) }).check();
+    const points = page.locator('[data-testid^="overlay-"] [data-testid="measured-point"]');
+    await expect.poll(() => points.count(), { timeout: 30_000 }).toBe(23);
   });
 
   it("deletes the uploaded set after a confirmation", async () => {

@@ -157,11 +157,11 @@ describe("workbench", () => {
     await wb.setField("Points (≤ 5000)", "256");
     await wb.waitForNumericalRun();
 
-    // 4. CSV export: # header, one column row, one row per wavelength.
+    // 4. CSV export: # header, one column row, one row per wavelength, CRLF line ends (RFC 4180).
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Export CSV" }).click()]);
     const file = outputPath("workbench-spectrum.csv");
     await download.saveAs(file);
-    const lines = readFileSync(file, "utf8").trimEnd().split("\n");
+    const lines = readFileSync(file, "utf8").trimEnd().split("\r\n");
     const header = lines.filter((l) => l.startsWith("#"));
     const body = lines.filter((l) => !l.startsWith("#"));
     expect(header.some((l) => /^# parameter set: .*Terbium gallium garnet/i.test(l))).toBe(true);
@@ -192,7 +192,7 @@ describe("workbench", () => {
     const file = outputPath("workbench-scaled.csv");
     await download.saveAs(file);
     const header = readFileSync(file, "utf8")
-      .split("\n")
+      .split("\r\n")
       .filter((l) => l.startsWith("#"));
     expect(header).toContain(`# label: ${label}`);
     expect(header.some((l) => l.startsWith("# parameters: ") && l.includes("magneticScale=3;"))).toBe(true);

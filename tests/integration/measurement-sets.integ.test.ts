@@ -122,7 +122,9 @@ describe("measurement sets", () => {
     expect(points.status).toBe(200);
     expect(points.body.points).toHaveLength(24);
     // Line 1 is the added comment, lines 2–4 the generator's comments, line 5 the header.
+    expect(points.body.revision).toBe(1);
     expect(points.body.points[0]).toEqual({
+      ordinal: 0,
       line: 6,
       wavelengthNm: 420,
       quantity: "verdet",
@@ -131,6 +133,10 @@ describe("measurement sets", () => {
       temperatureK: 293.15,
       fieldT: 1,
       lengthM: 0.01,
+      masked: false,
+      maskReason: null,
+      note: "",
+      original: null,
     });
 
     const original = await viewer.raw("GET", `/api/measurement-sets/${item.id}/original`);

@@ -53,7 +53,8 @@ const textField = (form: FormData, key: string) => {
 
 /**
  * POST /api/measurement-sets (editor), multipart: file, labId, name, sample, mapping (JSON),
- * defaults (JSON) → 201 { item }. Every row is checked first; a file with problems answers 400
+ * defaults (JSON), format (JSON, optional: delimiter and decimal mark, detected when absent)
+ * → 201 { item }. Every row is checked first; a file with problems answers 400
  * with `problems: ["line 14: wavelength is empty", …]` and stores nothing.
  */
 export const POST = apiRoute(async (request) => {
@@ -65,6 +66,7 @@ export const POST = apiRoute(async (request) => {
     sample: textField(form, "sample"),
     mapping: jsonField(form, "mapping"),
     defaults: jsonField(form, "defaults"),
+    format: jsonField(form, "format"),
   });
   if (!meta.success) throw validationError(meta.error);
   const access = await authorizeLab(caller, meta.data.labId, "editor");
@@ -81,7 +83,7 @@ export const POST = apiRoute(async (request) => {
       fields: { file: "Not UTF-8 text." },
     });
   }
-  const parsed = parseMeasurementTable(text, meta.data.mapping, meta.data.defaults);
+  const parsed = parseMeasurementTable(text, meta.data.mapping, meta.data.defaults, meta.data.format);
   if (parsed.errors.length > 0) {
     const count = parsed.errors.length;
     throw new DomainError("validation", `The file has ${count === 1 ? "a problem" : `${count} problems`}; nothing was stored.`, {
@@ -101,6 +103,7 @@ export const POST = apiRoute(async (request) => {
         bytes,
         mapping: meta.data.mapping,
         defaults: meta.data.defaults,
+        format: meta.data.format,
         points: parsed.points,
       },
     }),

@@ -27,9 +27,11 @@ describe("map exports", () => {
       const p = payload(axis);
       const result = computeRunInProcess("map", p);
       const csv = buildMapCsv({ title: "t", payload: p, columns: columnsAsJson(result.columns), setLabel: "TGG v3", runId: id.runId });
+      // Records end in CRLF (RFC 4180 §2.1), as every CSV of the product.
+      expect(csv.endsWith("\r\n")).toBe(true);
       const rows = csv
         .trim()
-        .split("\n")
+        .split("\r\n")
         .filter((l) => !l.startsWith("#"));
       expect(rows[0]).toBe(
         "wavelength_nm,temperature_K,field_T,length_m,magnetic_share,theta_rad,theta_electric_rad,theta_magnetic_rad,verdet_rad_per_T_m",

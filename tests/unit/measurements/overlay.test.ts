@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { describeConversion, toPlotUnits } from "@/lib/measurements/overlay";
+import { conditionGroups, conditionKey, describeConversion, toPlotUnits } from "@/lib/measurements/overlay";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 
 const verdet: MeasuredPoint = {
@@ -67,5 +67,35 @@ describe("measured points in the plot's units", () => {
     expect(describeConversion({ yMode: "rad", geometry: { fieldT: 1, lengthM: 0.01 }, quantities: new Set(["verdet"]) })).toBe(
       "Verdet constants are shown as the rotation V·B·L at the plot's B = 1 T, L = 10 mm.",
     );
+  });
+});
+
+describe("points grouped by their conditions", () => {
+  it("gives each (T, B) its own shape in ascending order and says which is the curve's", () => {
+    const a = [
+      { temperatureK: 293.15, fieldT: 1 },
+      { temperatureK: 77, fieldT: 1 },
+      { temperatureK: 293.15000000001, fieldT: 1 },
+    ];
+    const b = [{ temperatureK: 77, fieldT: 0.5 }];
+    const groups = conditionGroups([a, b], { temperatureK: 293.4, fieldT: 1 });
+    expect(groups.map((g) => [g.temperatureK, g.fieldT, g.shape, g.matchesCurve, g.count])).toEqual([
+      [77, 0.5, 0, false, 1],
+      [77, 1, 1, false, 1],
+      [293.15, 1, 2, true, 2],
+    ]);
+    expect(conditionKey(a[0]!)).toBe(conditionKey(a[2]!));
+  });
+
+  it("a field off by more than 1 mT is another condition", () => {
+    expect(conditionGroups([[{ temperatureK: 293, fieldT: 1.01 }]], { temperatureK: 293, fieldT: 1 })[0]!.matchesCurve).toBe(false);
+  });
+});
+
+describe("the conversion sentence", () => {
+  it("writes the plot's length without binary noise", () => {
+    expect(0.0133 * 1000).not.toBe(13.3);
+    const text = describeConversion({ yMode: "rad", geometry: { fieldT: 1, lengthM: 0.0133 }, quantities: new Set(["verdet"]) });
+    expect(text).toContain("B = 1 T, L = 13.3 mm");
   });
 });

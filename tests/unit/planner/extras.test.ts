@@ -87,7 +87,7 @@ describe("plan export and hand-over", () => {
       result: { criterionLabel: "σ of magneticScale", criterionUnit: "(×)", method: "greedy", candidateCount: 40, sigmaPerPointRad: 1e-5 },
       plan,
     });
-    const rows = csv.trim().split("\n");
+    const rows = csv.trim().split("\r\n");
     expect(rows[0]).toBe('# Gyrolux measurement plan for "TGG" (version 3)');
     expect(rows[4]).toBe("line,wavelength_nm,temperature_K,field_T,count,predicted_rotation_rad,signal_to_noise,below_noise");
     expect(rows[5]).toBe('"HeNe ""table 2"", red",632.8,77,1,2,-1.50000,1.500e+5,false');

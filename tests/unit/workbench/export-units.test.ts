@@ -24,7 +24,7 @@ const result: SpectrumResult = {
 const meta = { setName: "TGG", setId: null, version: 2, method: "analytic" as const, exportedAt: "2026-01-01T00:00:00.000Z" };
 
 function table(csv: string) {
-  const lines = csv.trimEnd().split("\n");
+  const lines = csv.trimEnd().split("\r\n");
   const body = lines.filter((l) => !l.startsWith("#"));
   return { header: lines.filter((l) => l.startsWith("#")), columns: body[0]!.split(","), rows: body.slice(1).map((r) => r.split(",")) };
 }

@@ -40,7 +40,7 @@ const meta = {
 
 describe("CSV export", () => {
   const csv = buildSpectrumCsv(meta, TERBIUM_GARNET_DEFAULTS, result);
-  const lines = csv.trimEnd().split("\n");
+  const lines = csv.trimEnd().split("\r\n");
   const header = lines.filter((l) => l.startsWith("#"));
   const body = lines.filter((l) => !l.startsWith("#"));
 
@@ -83,7 +83,7 @@ describe("CSV export", () => {
       "# column theta_magnetic_rad: magnetic-dipole part θm (rad); magnetic-dipole part × 3.0, not first-principles",
     );
     expect(csv).not.toContain("# label:");
-    expect(scaled).toContain("# column theta_electric_rad: electric-dipole part θe (rad)\n");
+    expect(scaled).toContain("# column theta_electric_rad: electric-dipole part θe (rad)\r\n");
     expect(csv).not.toContain("not first-principles");
   });
 });

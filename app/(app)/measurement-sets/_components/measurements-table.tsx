@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { DateTime } from "@/components/ui/date-time";
 import { originalFileUrl } from "@/lib/query/measurement-sets";
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
@@ -42,10 +43,14 @@ export function MeasurementsTable({ items, sortKey, sortDir, onSort, onDelete }:
           {items.map((set) => (
             <tr key={set.id} className="align-top hover:bg-paper">
               <td className="px-3 py-2.5">
-                <span className="font-medium">{set.name}</span>
+                <Link href={`/measurement-sets/${set.id}`} className="font-medium text-lux-dark underline-offset-4 hover:underline">
+                  {set.name}
+                </Link>
                 <span className="mt-0.5 block text-xs text-ink-soft">
                   {set.sample ? `${set.sample} · ` : ""}
                   {set.quantity === "verdet" ? "Verdet constant" : "rotation"} · {set.labName}
+                  {set.maskedCount > 0 ? ` · ${set.maskedCount} masked` : ""}
+                  {set.revision > 1 ? ` · revision ${set.revision}` : ""}
                 </span>
               </td>
               <td className="px-3 py-2.5 tabular-nums">{set.rowCount.toLocaleString("en")}</td>

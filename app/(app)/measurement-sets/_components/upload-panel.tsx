@@ -11,6 +11,7 @@ import { uploadProblems, useUploadMeasurementSet } from "@/lib/query/measurement
 import type { LabSummary } from "@/lib/contracts/labs";
 import { formatBytes } from "./format";
 import { UploadMappingFieldset } from "./upload-mapping-fieldset";
+import { UploadFormatFieldset } from "./upload-format-fieldset";
 import { UploadPreviewTable } from "./upload-preview-table";
 import { useUploadDraft } from "./use-upload-draft";
 
@@ -55,8 +56,9 @@ export function UploadPanel({
         <div>
           <h2 className="text-lg font-semibold">Upload measurements</h2>
           <p className="mt-1 text-sm text-ink-soft">
-            A CSV or TSV file with a header line, at most {formatBytes(MAX_FILE_BYTES)} and {MAX_ROWS.toLocaleString("en")} rows. Lines
-            starting with # are comments. Nothing is stored until every row is valid.
+            A CSV, TSV, semicolon- or space-separated file with a header line (or numpy&apos;s <code>#</code> header), at most{" "}
+            {formatBytes(MAX_FILE_BYTES)} and {MAX_ROWS.toLocaleString("en")} rows. Other lines starting with # are comments. Nothing is
+            stored until every row is valid.
           </p>
         </div>
         <Button variant="secondary" onClick={onCancel} disabled={upload.isPending}>
@@ -69,7 +71,7 @@ export function UploadPanel({
         summary={
           loaded
             ? `${loaded.file.name} · ${formatBytes(loaded.file.size)} · ${loaded.table.rows.length} data rows`
-            : "CSV (comma or semicolon) or TSV (tab)"
+            : "CSV (comma or semicolon, decimal point or comma), TSV, or space-separated text"
         }
         onFile={accept}
       />
@@ -81,7 +83,8 @@ export function UploadPanel({
 
       {loaded && mapping ? (
         <>
-          <UploadPreviewTable table={loaded.table} />
+          <UploadFormatFieldset id={id} table={loaded.table} format={draft.format} onFormat={draft.patchFormat} />
+          <UploadPreviewTable table={loaded.table} mapping={mapping} />
 
           <UploadMappingFieldset
             id={id}

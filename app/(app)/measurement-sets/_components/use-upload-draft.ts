@@ -8,8 +8,10 @@ import {
   MAX_FILE_BYTES,
   parseMeasurementTable,
   proposeMapping,
+  AUTO_FORMAT,
   readTable,
   type Table,
+  type TableFormat,
 } from "@/lib/measurements/parse";
 import { formatBytes } from "./format";
 import { zodIssueFields } from "@/lib/contracts/validation";
@@ -42,6 +44,8 @@ interface DraftState {
   loaded: LoadedFile | null;
   fileError: string | null;
   mapping: ColumnMapping | null;
+  /** How the file is read: detected ("auto") unless the user chose otherwise. */
+  format: TableFormat;
   drafts: DefaultDrafts;
   labId: string;
   name: string;
@@ -55,6 +59,7 @@ type DraftAction =
   | { type: "fileRejected"; message: string }
   | { type: "fileLoaded"; loaded: LoadedFile; proposedName: string | null }
   | { type: "mapping"; patch: Partial<ColumnMapping> }
+  | { type: "format"; patch: Partial<TableFormat> }
   | { type: "default"; key: keyof DefaultDrafts; value: string }
   | { type: "text"; key: "labId" | "name" | "sample"; value: string }
   | { type: "tried" };
@@ -70,10 +75,18 @@ function reduce(state: DraftState, action: DraftAction): DraftState {
         ...state,
         fileError: null,
         loaded: action.loaded,
+        format: AUTO_FORMAT,
         mapping: proposeMapping(action.loaded.table.headers),
         drafts: EMPTY_DEFAULTS,
         name: action.proposedName ?? state.name,
       };
+    case "format": {
+      if (!state.loaded) return state;
+      // Another delimiter gives other columns: the table is read again and the mapping proposed afresh.
+      const format = { ...state.format, ...action.patch };
+      const table = readTable(state.loaded.text, format);
+      return { ...state, format, loaded: { ...state.loaded, table }, mapping: proposeMapping(table.headers) };
+    }
     case "mapping":
       return { ...state, mapping: state.mapping ? { ...state.mapping, ...action.patch } : state.mapping };
     case "default":
@@ -132,23 +145,27 @@ export function useUploadDraft(defaultLabId: string) {
     loaded: null,
     fileError: null,
     mapping: null,
+    format: AUTO_FORMAT,
     drafts: EMPTY_DEFAULTS,
     labId: defaultLabId,
     name: "",
     sample: "",
     tried: false,
   });
-  const { loaded, mapping, drafts, labId, name, sample } = state;
+  const { loaded, mapping, format, drafts, labId, name, sample } = state;
 
   const checked = useMemo(() => {
     if (!loaded || !mapping) return null;
     const { defaults, errors } = readDefaults(drafts, mapping);
-    return { defaults, fieldErrors: errors, result: parseMeasurementTable(loaded.text, mapping, defaults) };
-  }, [loaded, mapping, drafts]);
+    return { defaults, fieldErrors: errors, result: parseMeasurementTable(loaded.text, mapping, defaults, format) };
+  }, [loaded, mapping, drafts, format]);
 
   const meta = useMemo(
-    () => (mapping && checked ? uploadMeasurementMetaSchema.safeParse({ labId, name, sample, mapping, defaults: checked.defaults }) : null),
-    [labId, name, sample, mapping, checked],
+    () =>
+      mapping && checked
+        ? uploadMeasurementMetaSchema.safeParse({ labId, name, sample, mapping, defaults: checked.defaults, format })
+        : null,
+    [labId, name, sample, mapping, checked, format],
   );
   const metaErrors: Record<string, string> = meta && !meta.success ? zodIssueFields(meta.error.issues) : {};
 
@@ -178,6 +195,7 @@ export function useUploadDraft(defaultLabId: string) {
     chooseFile,
     trySubmit,
     patchMapping: (patch: Partial<ColumnMapping>) => dispatch({ type: "mapping", patch }),
+    patchFormat: (patch: Partial<TableFormat>) => dispatch({ type: "format", patch }),
     setDefault: (key: keyof DefaultDrafts, value: string) => dispatch({ type: "default", key, value }),
     setText: (key: "labId" | "name" | "sample", value: string) => dispatch({ type: "text", key, value }),
   };

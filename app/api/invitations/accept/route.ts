@@ -1,16 +1,11 @@
-import { z } from "zod";
 import { db } from "@/db/client";
 import { acceptInvitation } from "@/db/queries/invitations";
 import { readJson } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
-import { safeString } from "@/lib/contracts/validation";
+import { acceptInvitationSchema } from "@/lib/contracts/labs";
 import { requireSessionCaller } from "@/lib/auth/access";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
-
-const acceptSchema = z.object({
-  token: safeString({ error: "The invitation link is incomplete." }).max(200, "The invitation link is not valid."),
-});
 
 const REFUSED: Record<string, string> = {
   unknown: "This invitation link is not valid.",
@@ -22,7 +17,7 @@ const REFUSED: Record<string, string> = {
 /** POST /api/invitations/accept { token } (signed-in browser session) → { labId, labName, role } */
 export const POST = apiRoute(async (request) => {
   const caller = await requireSessionCaller(request, "Accepting an invitation");
-  const { token } = await readJson(request, acceptSchema);
+  const { token } = await readJson(request, acceptInvitationSchema);
   if (!isLinkSecret(token)) throw new DomainError("not_found", REFUSED.unknown!);
   const result = await acceptInvitation(db, { caller, tokenHash: hashToken(token) });
   if (result.ok) return json({ labId: result.labId, labName: result.labName, role: result.role, alreadyMember: result.alreadyMember });
