@@ -177,7 +177,8 @@ function SpectrumPanelsImpl({
   };
 
   return (
-    <section aria-label="Spectrum" className="space-y-3">
+    // On a narrow screen the plots come first and their controls follow (CSS order; wide screens keep the source order).
+    <section aria-label="Spectrum" className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-x-4 gap-y-2 text-sm">
         <AxisSelect
           label="x axis"
@@ -249,7 +250,7 @@ function SpectrumPanelsImpl({
         </span>
       </div>
 
-      <div ref={wrapRef} className="space-y-2">
+      <div ref={wrapRef} className="order-first space-y-2 lg:order-none">
         <LinePlot
           {...shared}
           title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`}

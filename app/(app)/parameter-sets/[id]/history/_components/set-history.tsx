@@ -30,8 +30,9 @@ export function SetHistory({ id }: { id: string }) {
           Restored: version {restored.to} now holds the content of version {restored.from}.
         </p>
       ) : null}
-      <div className="grid gap-8 xl:grid-cols-[22rem_1fr]">
-        <div>
+      {/* minmax(0,…) columns: a wide comparison table scrolls in its own box instead of widening the page. */}
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-8 xl:grid-cols-[22rem_minmax(0,1fr)]">
+        <div className="min-w-0">
           <VersionList
             setId={id}
             versions={versions.items}

@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { type ReactNode, useMemo, useState } from "react";
 import { CautionsPanel } from "@/components/planner/cautions-panel";
 import { LinePlot } from "@/components/plots/line-plot";
 import { Button, LinkButton } from "@/components/ui/button";
@@ -79,7 +79,10 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
   });
 
   return (
-    <article className="report mx-auto grid max-w-4xl gap-6 text-ink" aria-label="Printable report">
+    <article
+      className="report mx-auto grid max-w-4xl grid-cols-[minmax(0,1fr)] gap-6 text-ink [&_svg]:h-auto [&_svg]:max-w-full"
+      aria-label="Printable report"
+    >
       <style>{printCss(paper)}</style>
       <div className="no-print flex flex-wrap items-center gap-3 rounded-md border border-ink/15 bg-paper-raised px-3 py-2 text-sm">
         <label className="flex items-center gap-2">
@@ -112,34 +115,36 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
         <h2 id="report-params" className="text-lg font-semibold">
           Parameters
         </h2>
-        <table className="mt-2 w-full text-sm">
-          <thead className="text-left text-ink-soft">
-            <tr>
-              <th scope="col" className="py-1 font-medium">
-                Parameter
-              </th>
-              <th scope="col" className="font-medium">
-                Key
-              </th>
-              <th scope="col" className="text-right font-medium">
-                Value
-              </th>
-              <th scope="col" className="pl-2 font-medium">
-                Unit
-              </th>
-            </tr>
-          </thead>
-          <tbody className="tabular-nums">
-            {PARAM_META.map((m) => (
-              <tr key={m.key} className="border-t border-ink/10">
-                <td className="py-0.5">{m.label}</td>
-                <td className="font-mono text-xs">{m.key}</td>
-                <td className="text-right">{fmt((set.params as Record<string, unknown>)[m.key] as number | undefined, 6)}</td>
-                <td className="pl-2">{m.unit || "1"}</td>
+        <ScrollBox>
+          <table className="w-full text-sm">
+            <thead className="text-left text-ink-soft">
+              <tr>
+                <th scope="col" className="py-1 font-medium">
+                  Parameter
+                </th>
+                <th scope="col" className="font-medium">
+                  Key
+                </th>
+                <th scope="col" className="text-right font-medium">
+                  Value
+                </th>
+                <th scope="col" className="pl-2 font-medium">
+                  Unit
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody className="tabular-nums">
+              {PARAM_META.map((m) => (
+                <tr key={m.key} className="border-t border-ink/10">
+                  <td className="py-0.5">{m.label}</td>
+                  <td className="font-mono text-xs">{m.key}</td>
+                  <td className="text-right">{fmt((set.params as Record<string, unknown>)[m.key] as number | undefined, 6)}</td>
+                  <td className="pl-2">{m.unit || "1"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </ScrollBox>
       </section>
 
       <section aria-labelledby="report-split">
@@ -203,45 +208,47 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
           {computed.atMarkers.length === 0 ? (
             <p className="text-sm text-ink-soft">No markers.</p>
           ) : (
-            <table className="mt-2 w-full text-sm">
-              <thead className="text-left text-ink-soft">
-                <tr>
-                  <th scope="col" className="py-1 font-medium">
-                    λ (nm)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    V (rad/(T·m))
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    electric
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    magnetic
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    magnetic share
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    L for 45° (mm)
-                  </th>
-                </tr>
-              </thead>
-              <tbody className="tabular-nums">
-                {computed.atMarkers.map((p) => {
-                  const v = p.thetaRad / computed.fieldT;
-                  return (
-                    <tr key={p.wavelengthNm} className="border-t border-ink/10">
-                      <td className="py-0.5">{p.wavelengthNm}</td>
-                      <td className="text-right">{fmt(v, 4)}</td>
-                      <td className="text-right">{fmt(p.thetaElectricRad / computed.fieldT, 4)}</td>
-                      <td className="text-right">{fmt(p.thetaMagneticRad / computed.fieldT, 4)}</td>
-                      <td className="text-right">{fmtPercent(p.magneticShare)}</td>
-                      <td className="text-right">{v !== 0 ? fmt((Math.PI / 4 / Math.abs(v * computed.fieldT)) * 1000, 4) : "–"}</td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
+            <ScrollBox>
+              <table className="w-full text-sm">
+                <thead className="text-left text-ink-soft">
+                  <tr>
+                    <th scope="col" className="py-1 font-medium">
+                      λ (nm)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      V (rad/(T·m))
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      electric
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      magnetic
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      magnetic share
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      L for 45° (mm)
+                    </th>
+                  </tr>
+                </thead>
+                <tbody className="tabular-nums">
+                  {computed.atMarkers.map((p) => {
+                    const v = p.thetaRad / computed.fieldT;
+                    return (
+                      <tr key={p.wavelengthNm} className="border-t border-ink/10">
+                        <td className="py-0.5">{p.wavelengthNm}</td>
+                        <td className="text-right">{fmt(v, 4)}</td>
+                        <td className="text-right">{fmt(p.thetaElectricRad / computed.fieldT, 4)}</td>
+                        <td className="text-right">{fmt(p.thetaMagneticRad / computed.fieldT, 4)}</td>
+                        <td className="text-right">{fmtPercent(p.magneticShare)}</td>
+                        <td className="text-right">{v !== 0 ? fmt((Math.PI / 4 / Math.abs(v * computed.fieldT)) * 1000, 4) : "–"}</td>
+                      </tr>
+                    );
+                  })}
+                </tbody>
+              </table>
+            </ScrollBox>
           )}
         </section>
       ) : null}
@@ -275,45 +282,47 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
               {plan.plan.candidateCount} candidates; σ per point {fmt(plan.plan.sigmaPerPointRad * 1e6, 3)} µrad
               {plan.plan.partsCorrelation !== null ? `; correlation between the parts ${fmt(plan.plan.partsCorrelation, 3)}` : ""}.
             </p>
-            <table className="mt-2 w-full text-sm">
-              <thead className="text-left text-ink-soft">
-                <tr>
-                  <th scope="col" className="py-1 font-medium">
-                    Line
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    λ (nm)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    T (K)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    B (T)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    ×
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    predicted θ (mrad)
-                  </th>
-                </tr>
-              </thead>
-              <tbody className="tabular-nums">
-                {plan.plan.points.map((p, i) => (
-                  <tr key={i} className="border-t border-ink/10">
-                    <td className="py-0.5">
-                      {p.lineName}
-                      {p.belowNoise ? " (below noise)" : ""}
-                    </td>
-                    <td className="text-right">{p.wavelengthNm}</td>
-                    <td className="text-right">{p.temperatureK}</td>
-                    <td className="text-right">{p.fieldT}</td>
-                    <td className="text-right">{p.count}</td>
-                    <td className="text-right">{fmt(p.rotationRad * 1000, 4)}</td>
+            <ScrollBox>
+              <table className="w-full text-sm">
+                <thead className="text-left text-ink-soft">
+                  <tr>
+                    <th scope="col" className="py-1 font-medium">
+                      Line
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      λ (nm)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      T (K)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      B (T)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      ×
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      predicted θ (mrad)
+                    </th>
                   </tr>
-                ))}
-              </tbody>
-            </table>
+                </thead>
+                <tbody className="tabular-nums">
+                  {plan.plan.points.map((p, i) => (
+                    <tr key={i} className="border-t border-ink/10">
+                      <td className="py-0.5">
+                        {p.lineName}
+                        {p.belowNoise ? " (below noise)" : ""}
+                      </td>
+                      <td className="text-right">{p.wavelengthNm}</td>
+                      <td className="text-right">{p.temperatureK}</td>
+                      <td className="text-right">{p.fieldT}</td>
+                      <td className="text-right">{p.count}</td>
+                      <td className="text-right">{fmt(p.rotationRad * 1000, 4)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </ScrollBox>
             {plan.plan.notes.length > 0 ? (
               <ul className="mt-2 list-disc pl-5 text-sm">
                 {plan.plan.notes.map((n) => (
@@ -355,17 +364,24 @@ function ProvenanceTable({ value }: { value: Record<string, unknown> }) {
   walk("", value, 0);
   if (rows.length === 0) return <p className="text-sm text-ink-soft">The record holds no values to show.</p>;
   return (
-    <table className="mt-2 w-full text-sm">
-      <tbody className="tabular-nums">
-        {rows.slice(0, 60).map(([k, v]) => (
-          <tr key={k} className="border-t border-ink/10">
-            <th scope="row" className="py-0.5 text-left font-normal text-ink-soft">
-              {k}
-            </th>
-            <td className="text-right">{v}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <ScrollBox>
+      <table className="w-full text-sm">
+        <tbody className="tabular-nums">
+          {rows.slice(0, 60).map(([k, v]) => (
+            <tr key={k} className="border-t border-ink/10">
+              <th scope="row" className="py-0.5 text-left font-normal text-ink-soft">
+                {k}
+              </th>
+              <td className="text-right">{v}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </ScrollBox>
   );
+}
+
+/** A table's own horizontal scroll box: a wide table scrolls inside it instead of widening the page. */
+function ScrollBox({ children }: { children: ReactNode }) {
+  return <div className="relative mt-2 overflow-x-auto">{children}</div>;
 }
