@@ -48,7 +48,8 @@ export function InputsDrawer({ children, problems }: { children: ReactNode; prob
         aria-label="Parameters"
         className={
           `${open ? "fixed inset-0 z-40 block overflow-y-auto bg-paper p-4" : "hidden"} space-y-6 ` +
-          "lg:sticky lg:top-4 lg:z-auto lg:block lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:bg-transparent lg:p-0 lg:pr-2"
+          "lg:sticky lg:top-4 lg:z-auto lg:block lg:max-h-[calc(100vh-2rem)] lg:self-start " +
+          "lg:overflow-y-auto lg:bg-transparent lg:p-0 lg:pr-2"
         }
       >
         <div className="flex items-center justify-between gap-3 lg:hidden">
