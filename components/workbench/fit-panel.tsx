@@ -132,7 +132,7 @@ export const FitPanel = memo(function FitPanel({
         ) : (sets.data ?? []).length === 0 ? (
           <p className="text-sm text-ink-soft">
             This lab has no measurement sets yet.{" "}
-            <Link className="text-lux-dark underline-offset-4 hover:underline" href="/measurement-sets">
+            <Link className="text-lux-dark underline underline-offset-4" href="/measurement-sets">
               Upload one on the Measurements page
             </Link>
             .

@@ -156,7 +156,7 @@ export const MeasurementOverlayPicker = memo(function MeasurementOverlayPicker({
       ) : (sets.data ?? []).length === 0 ? (
         <p className="mt-2 text-ink-soft">
           No measurement sets in your labs yet.{" "}
-          <Link href="/measurement-sets" className="text-lux-dark underline-offset-4 hover:underline">
+          <Link href="/measurement-sets" className="text-lux-dark underline underline-offset-4">
             Upload one on the Measurements page
           </Link>
           .

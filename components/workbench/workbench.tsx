@@ -162,7 +162,7 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
             ) : set ? (
               <>
                 {set.labName} · version {set.version} · your role: {set.role} ·{" "}
-                <Link className="text-lux-dark underline-offset-4 hover:underline" href={`/parameter-sets/${encodeURIComponent(set.id)}`}>
+                <Link className="text-lux-dark underline underline-offset-4" href={`/parameter-sets/${encodeURIComponent(set.id)}`}>
                   open the set
                 </Link>
               </>

@@ -50,7 +50,7 @@ export function RunView({ id }: { id: string }) {
           <>
             {item.labName} · submitted by {item.submittedBy.name} · <DateTime iso={item.createdAt} /> · {setLabel}
             {item.workerId ? ` · worker ${item.workerId}` : ""} ·{" "}
-            <Link href="/lab-runs" className="text-lux-dark underline-offset-4 hover:underline">
+            <Link href="/lab-runs" className="text-lux-dark underline underline-offset-4">
               all runs
             </Link>
           </>

@@ -8,6 +8,7 @@ import { DateTime } from "@/components/ui/date-time";
 import { LoadMore } from "@/components/ui/load-more";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { describeError } from "@/lib/query/fetcher";
+import { formatDateTime } from "@/lib/text/date-time";
 import { useCreateShareLink, useRevokeShareLink, useShareLinks, type ShareLinkSummary } from "@/lib/query/sharing";
 
 /** Editors make read-only links to this set for people outside the lab, and revoke them. */
@@ -68,7 +69,7 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
                     setRevoking(link);
                   }}
                 >
-                  Revoke<span className="sr-only"> the link made {link.createdAt}</span>
+                  Revoke<span className="sr-only"> the link made {formatDateTime(link.createdAt)}</span>
                 </Button>
               </li>
             ))}
