@@ -11,6 +11,7 @@ import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurem
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { Geometry, XUnit, YMode } from "@/lib/workbench/units";
+import { agree, countOf, noun } from "@/lib/text/plural";
 
 /*
  * Measured points with ±σ error bars on the spectrum plot: a picker of the caller's measurement
@@ -116,7 +117,7 @@ function Swatch({ index }: { index: number }) {
 
 function setLabel(set: MeasurementSetSummary): string {
   const t = set.temperaturesK.map((v) => fmt(v, 5)).join(", ");
-  return `${set.rowCount} points, ${fmt(set.wavelengthSpanNm.min, 4)}–${fmt(set.wavelengthSpanNm.max, 4)} nm, ${t} K`;
+  return `${countOf(set.rowCount, noun("point"))}, ${fmt(set.wavelengthSpanNm.min, 4)}–${fmt(set.wavelengthSpanNm.max, 4)} nm, ${t} K`;
 }
 
 /**
@@ -190,7 +191,7 @@ export const MeasurementOverlayPicker = memo(function MeasurementOverlayPicker({
               Points with ±σ error bars. {describeConversion({ yMode, geometry, quantities })} Points outside the plotted range are not
               drawn.
               {otherTemperature.length > 0
-                ? ` ${otherTemperature.map((s) => `“${s.name}”`).join(", ")} ${otherTemperature.length === 1 ? "has" : "have"} ` +
+                ? ` ${otherTemperature.map((s) => `“${s.name}”`).join(", ")} ${agree(otherTemperature.length, "has", "have")} ` +
                   `points at temperatures other than the curve's ${fmt(temperatureK, 5)} K.`
                 : ""}
             </p>

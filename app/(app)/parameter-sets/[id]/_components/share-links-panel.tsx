@@ -10,6 +10,7 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { describeError } from "@/lib/query/fetcher";
 import { formatDateTime } from "@/lib/text/date-time";
 import { useCreateShareLink, useRevokeShareLink, useShareLinks, type ShareLinkSummary } from "@/lib/query/sharing";
+import { noun } from "@/lib/text/plural";
 
 /** Editors make read-only links to this set for people outside the lab, and revoke them. */
 export function ShareLinksPanel({ setId }: { setId: string }) {
@@ -79,7 +80,7 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
             hasMore={links.hasNextPage}
             loading={links.isFetchingNextPage}
             onMore={() => void links.fetchNextPage()}
-            noun="links"
+            noun={noun("link")}
           />
         </>
       ) : links.isSuccess ? (

@@ -9,6 +9,7 @@ import { roleAtLeast } from "@/lib/contracts/roles";
 import { SetHeader } from "../../_components/set-header";
 import { VersionCompare } from "./version-compare";
 import { VersionList } from "./version-list";
+import { noun } from "@/lib/text/plural";
 
 export function SetHistory({ id }: { id: string }) {
   const set = useParameterSet(id);
@@ -45,7 +46,7 @@ export function SetHistory({ id }: { id: string }) {
             hasMore={versions.hasNextPage}
             loading={versions.isFetchingNextPage}
             onMore={() => void versions.fetchNextPage()}
-            noun="versions"
+            noun={noun("version")}
           />
         </div>
         <VersionCompare versions={versions.items} />
