@@ -150,8 +150,12 @@ export const FitPanel = memo(function FitPanel({
                   />
                   <span className="font-medium">{s.name}</span>
                   <span className="text-ink-soft">
-                    {s.sample} · {countOf(s.rowCount, noun("point"))} · {fmt(s.wavelengthSpanNm.min)}–{fmt(s.wavelengthSpanNm.max)} nm ·{" "}
-                    {s.quantity === "verdet" ? "Verdet constant" : "rotation"}
+                    {[
+                      s.sample,
+                      countOf(s.rowCount, noun("point")),
+                      `${fmt(s.wavelengthSpanNm.min)}–${fmt(s.wavelengthSpanNm.max)} nm`,
+                      s.quantity === "verdet" ? "Verdet constant" : "rotation",
+                    ].join(" · ")}
                   </span>
                 </label>
               </li>
