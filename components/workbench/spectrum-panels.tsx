@@ -21,6 +21,8 @@ import {
   Y_MODE_LABEL,
   Y_MODES,
   Y_UNIT_SHORT,
+  curveLabel,
+  curveSymbol,
   type Geometry,
   type YMode,
 } from "@/lib/workbench/units";
@@ -86,7 +88,7 @@ function SpectrumPanelsImpl({
       const s = SERIES_STYLE[k];
       return {
         key: k,
-        label: k === "ellipticity" ? "Ellipticity angle atan(tanh η)" : s.label,
+        label: curveLabel(k, yMode),
         color: s.color,
         dash: s.dash,
         width: s.width,
@@ -217,7 +219,7 @@ function SpectrumPanelsImpl({
                   strokeDasharray={SERIES_STYLE[k].dash}
                 />
               </svg>
-              {SERIES_STYLE[k].label}
+              {curveLabel(k, yMode)}
             </label>
           ))}
           <label className="flex items-center gap-1.5">
@@ -270,12 +272,12 @@ function SpectrumPanelsImpl({
                 term="λ"
                 value={`${fmt(cp.wavelengthNm, 5)} nm (${fmt(fromNm(cp.wavelengthNm, xUnit), 5)} ${X_UNIT_LABEL[xUnit]})`}
               />
-              <Readout term="θ" value={`${fmt(rotationTo(cp.thetaRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="θe" value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="θm" value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="θx" value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("total", yMode)} value={`${fmt(rotationTo(cp.thetaRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("electric", yMode)} value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("magnetic", yMode)} value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("cross", yMode)} value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
               <Readout
-                term="Ellipticity angle"
+                term={curveSymbol("ellipticity", yMode)}
                 value={
                   `${fmt(rotationTo(cp.ellipticityAngleRad ?? cp.ellipticityRad, yMode, geometry))} ${yUnit}` +
                   `${Math.abs(cp.ellipticityRad) > 0.1 ? " (η large)" : ""}`
@@ -286,7 +288,7 @@ function SpectrumPanelsImpl({
                 value={`${formatTransmission(cp.transmissionPlus ?? null)} / ${formatTransmission(cp.transmissionMinus ?? null)}`}
               />
               <Readout term="Magnetic share" value={fmtPercent(cp.magneticShare)} />
-              <Readout term="V" value={`${fmt(cp.verdetRadPerTm)} rad/(T·m)`} />
+              {yMode === "verdet" ? null : <Readout term="V" value={`${fmt(cp.verdetRadPerTm)} rad/(T·m)`} />}
             </dl>
           ) : (
             <p className="text-ink-soft">

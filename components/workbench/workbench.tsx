@@ -167,7 +167,7 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
                 </Link>
               </>
             ) : (
-              "Starts from the terbium gallium garnet values (physics-model §9). Nothing here is stored until you save it as a set."
+              "Starts from the terbium gallium garnet reference values. Nothing here is stored until you save it as a set."
             )}
           </p>
           {set ? <p className="mt-1 text-xs text-ink-soft">Parameter edits here are what-ifs and do not change the stored set.</p> : null}

@@ -55,11 +55,15 @@ export function describeRelativeChange(before: number | undefined, after: number
   if (after === 0) return "to 0";
   if (Math.sign(before) !== Math.sign(after)) return "sign reversed";
   const ratio = after / before;
-  if (ratio >= 10 || ratio <= 0.1) return `×${formatNumberInput(Number(ratio.toPrecision(3)))}`;
+  // For negative values the ratio speaks of the size: −8 → −7.5 is 6.25 % smaller in size but a
+  // rise in value, so both are said ("size −6.25 %, value up"); for positive values they agree.
+  const way = before < 0 ? `, value ${after > before ? "up" : "down"}` : "";
+  const size = before < 0 ? "size " : "";
+  if (ratio >= 10 || ratio <= 0.1) return `${size}×${formatNumberInput(Number(ratio.toPrecision(3)))}${way}`;
   const percent = (ratio - 1) * 100;
   const shown =
     Math.abs(percent) >= 0.01 ? String(Number(Math.abs(percent).toPrecision(3))) : Math.abs(percent).toExponential(1).replace("e+", "e");
-  return `${signed(shown, percent < 0)} %`;
+  return `${size}${signed(shown, percent < 0)} %${way}`;
 }
 
 function normaliseTags(tags: readonly string[]): string[] {

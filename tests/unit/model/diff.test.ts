@@ -74,6 +74,13 @@ describe("describeRelativeChange", () => {
     expect(describeRelativeChange(5, 5)).toBeNull();
     expect(describeRelativeChange(5, undefined)).toBeNull();
   });
+
+  it("says which way a negative value moved, not only how its size changed", () => {
+    // −8 → −7.5: 6.25 % smaller in size, but the value rose.
+    expect(describeRelativeChange(-8, -7.5)).toBe("size \u22126.25 %, value up");
+    expect(describeRelativeChange(-8, -10)).toBe("size +25 %, value down");
+    expect(describeRelativeChange(-1, -20)).toBe("size ×20, value down");
+  });
 });
 
 describe("formatValue", () => {
