@@ -95,7 +95,14 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
         error={revoke.isError ? describeError(revoke.error) : null}
         onCancel={() => setRevoking(null)}
         onConfirm={() => {
-          if (revoking) revoke.mutate(revoking.id, { onSuccess: () => setRevoking(null) });
+          if (!revoking) return;
+          revoke.mutate(revoking.id, {
+            onSuccess: () => {
+              // The "copy the link now" box must not keep offering a link that no longer works.
+              if (create.data?.item.id === revoking.id) create.reset();
+              setRevoking(null);
+            },
+          });
         }}
       >
         Whoever has the link loses access at once. You can make a new link later.
