@@ -1,6 +1,7 @@
 "use client";
 
-import { useEffect, useRef, useState, type ReactNode } from "react";
+import { useCallback, useEffect, useRef, useState, type ReactNode } from "react";
+import { useEscape } from "@/components/ui/use-escape";
 
 /**
  * The workbench's inputs (range and parameters). On wide screens a sticky column beside the plots;
@@ -14,21 +15,13 @@ export function InputsDrawer({ children, problems }: { children: ReactNode; prob
   const closeRef = useRef<HTMLButtonElement>(null);
 
   useEffect(() => {
-    if (!open) return;
-    closeRef.current?.focus();
-    const onKeyDown = (event: KeyboardEvent) => {
-      if (event.key !== "Escape") return;
-      setOpen(false);
-      toggleRef.current?.focus();
-    };
-    document.addEventListener("keydown", onKeyDown);
-    return () => document.removeEventListener("keydown", onKeyDown);
+    if (open) closeRef.current?.focus();
   }, [open]);
-
-  const close = () => {
+  const close = useCallback(() => {
     setOpen(false);
     toggleRef.current?.focus();
-  };
+  }, []);
+  useEscape(open, close);
 
   return (
     <>

@@ -2,7 +2,7 @@ import { createRequire } from "node:module";
 import type { Page } from "playwright-core";
 import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_GARNET_SET_ID } from "@/db/demo-data";
-import { outputPath, useBrowser } from "./support";
+import { dataLoaded, outputPath, useBrowser } from "./support";
 
 /*
  * axe-core (from npm, injected into the page through playwright-core) over the main pages, each
@@ -36,18 +36,6 @@ interface AxeFinding {
   nodes: { target: string[] }[];
 }
 
-/** The page once its lists have arrived (no pulsing placeholder, no "Loading…" status left). */
-async function dataLoaded(page: Page): Promise<void> {
-  await page.waitForLoadState("networkidle", { timeout: 15_000 }).catch(() => undefined);
-  await page.waitForFunction(
-    () =>
-      !document.querySelector(".animate-pulse") &&
-      !Array.from(document.querySelectorAll("[role=status]")).some((el) => /loading/i.test(el.textContent ?? "")),
-    undefined,
-    { timeout: 60_000 },
-  );
-}
-
 async function axeFindings(page: Page): Promise<AxeFinding[]> {
   await page.addScriptTag({ content: AXE_SOURCE });
   const violations = await page.evaluate(async () => {
@@ -71,7 +59,7 @@ describe("accessibility (axe-core)", () => {
     for (const href of PAGES) {
       await page.goto(href, { timeout: 120_000 });
       await page.getByRole("heading", { level: 1 }).first().waitFor({ timeout: 60_000 });
-      await dataLoaded(page);
+      await dataLoaded(page, 60_000);
       for (const v of await axeFindings(page)) {
         problems.push(`${href}: ${v.id} (${v.impact}) ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
       }

@@ -89,7 +89,7 @@ describe("fit in the workbench", () => {
     // The printable report: the fit as tables (value ± σ with units, the correlation matrix), the
     // rotator and the model switches; printed to PDF on A4 and on Letter without half-empty pages.
     await page.goto(`/parameter-sets/${setId}/report`);
-    const fitTable = page.getByRole("table", { name: "Fitted parameters" });
+    const fitTable = page.getByRole("table", { name: "Fitted parameters", exact: true });
     await fitTable.waitFor({ timeout: TIMEOUT });
     expect(await fitTable.getByRole("row", { name: /Gyration κE/ }).textContent()).toMatch(/[\d.e-]+ ± [\d.e-]+T⁻¹/);
     await page.getByRole("table", { name: "Correlation of the fitted parameters" }).waitFor();

@@ -2,7 +2,7 @@ import type { Page } from "playwright-core";
 import { beforeAll, describe, expect, it } from "vitest";
 import { NAV_ITEMS } from "@/components/shell/nav-links";
 import { DEMO_GARNET_SET_ID } from "@/db/demo-data";
-import { outputPath, useBrowser } from "./support";
+import { dataLoaded, outputPath, useBrowser } from "./support";
 
 /*
  * The product on a 390 px wide phone: every rail page is reachable through the menu (by pointer
@@ -12,22 +12,6 @@ import { outputPath, useBrowser } from "./support";
 
 const WIDTH = 390;
 const PHONE = { viewport: { width: WIDTH, height: 844 }, isMobile: true, hasTouch: true };
-
-/**
- * Resolves once the page's data has arrived: the network is quiet and no loading placeholder
- * (SkeletonRows' pulsing bars, a "Loading…" status) is left. A table that arrives later can still
- * widen the page, so the width is measured only after this.
- */
-async function dataLoaded(page: Page): Promise<void> {
-  await page.waitForLoadState("networkidle", { timeout: 15_000 }).catch(() => undefined);
-  await page.waitForFunction(
-    () =>
-      !document.querySelector(".animate-pulse") &&
-      !Array.from(document.querySelectorAll("[role=status]")).some((el) => /loading/i.test(el.textContent ?? "")),
-    undefined,
-    { timeout: 30_000 },
-  );
-}
 
 /**
  * How far the document is wider than its layout viewport, measured as the browser lays it out:
