@@ -31,7 +31,7 @@ module.exports = {
       severity: "error",
       from: {
         path: [
-          "^lib/(analysis|api-docs|csv|fit|planner|measurements|model|workbench)/",
+          "^lib/(analysis|api-docs|csv|fit|text|planner|measurements|model|workbench)/",
           "^lib/lab-runs/(kinds|encoding|export|engine|compute-now|open-in-workbench)",
         ],
       },

@@ -121,6 +121,10 @@ export const parameterSetVersions = pgTable(
     // Where a version came from when it was not typed in (e.g. a fit to measurements: the data
     // used, the free parameters, values ± σ, correlation, χ²); null for ordinary edits.
     provenance: jsonb("provenance").$type<Record<string, unknown>>(),
+    // Why the version was saved, in the saver's words (the history shows it); empty when none was given.
+    note: text("note").notNull().default(""),
+    // The version a restore copied, so the history can say "restored from v2"; null otherwise.
+    restoredFrom: integer("restored_from"),
     createdById: uuid("created_by")
       .notNull()
       .references(() => users.id),

@@ -158,7 +158,7 @@ export const LabRunPanel = memo(function LabRunPanel({
       <p className="text-sm text-ink-soft">
         Fine maps (up to {MAX_MAP_COLUMNS} × {MAX_MAP_ROWS}) and long spectra (up to {MAX_RUN_WAVELENGTHS.toLocaleString("en")} wavelengths)
         are computed by the lab’s workers and kept on the{" "}
-        <Link href="/lab-runs" className="text-lux-dark underline-offset-4 hover:underline">
+        <Link href="/lab-runs" className="text-lux-dark underline underline-offset-4">
           Lab runs
         </Link>{" "}
         page for everyone in the lab. They use the parameters as they are on the left now.

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import type { FieldDiff } from "@/lib/model/diff";
+import { agree, countOf, noun } from "@/lib/text/plural";
 
 function withUnit(value: string, unit: string): string {
   return unit && value !== "—" && value !== "" ? `${value} ${unit}` : value || "—";
@@ -30,7 +31,9 @@ export function DiffTable({
   return (
     <div>
       <div className="mb-2 flex flex-wrap items-center justify-between gap-2 text-sm">
-        <p>{changedCount === 0 ? "No differences." : `${changedCount} field${changedCount === 1 ? "" : "s"} differ.`}</p>
+        <p>
+          {changedCount === 0 ? "No differences." : `${countOf(changedCount, noun("field"))} ${agree(changedCount, "differs", "differ")}.`}
+        </p>
         <label className="inline-flex items-center gap-2">
           <input type="checkbox" checked={onlyChanged} onChange={(event) => setOnlyChanged(event.target.checked)} className="accent-lux" />
           Only changed fields

@@ -2,6 +2,7 @@ import { DateTime } from "@/components/ui/date-time";
 import { asFitProvenance } from "@/lib/fit/provenance";
 import { PARAM_META } from "@/lib/model/param-meta";
 import { fmt, magneticScaleLabel } from "@/lib/workbench/format";
+import { countOf, noun } from "@/lib/text/plural";
 
 /*
  * "From a fit": what a version's provenance says about the fit that made it (measurement sets,
@@ -19,7 +20,8 @@ export function FitProvenanceSummary({ provenance }: { provenance: unknown }) {
     <div className="mt-2 rounded-md border border-lux/30 bg-lux-light/40 px-3 py-2 text-sm" data-testid="fit-provenance">
       <p>
         <span className="rounded bg-lux-dark px-1.5 py-0.5 text-xs font-semibold text-white">from a fit</span> to{" "}
-        {fit.measurementSets.map((m) => m.name).join(", ")} ({fit.pointCount} points), fitted <DateTime iso={fit.fittedAt} />
+        {fit.measurementSets.map((m) => m.name).join(", ")} ({countOf(fit.pointCount, noun("point"))}), fitted{" "}
+        <DateTime iso={fit.fittedAt} />
       </p>
       <ul className="mt-1 space-y-0.5">
         {fit.free.map(({ key, min, max }) => {

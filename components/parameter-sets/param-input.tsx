@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useController, type Control } from "react-hook-form";
 import type { ParamMeta } from "@/lib/model/param-meta";
-import { formatNumberInput, parseDecimal } from "@/lib/model/number-text";
+import { formatNumberInput, numberBoxText, parseDecimal } from "@/lib/model/number-text";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import type { ParamBoxValue, SetFormInput } from "./form-schema";
 
@@ -30,6 +30,8 @@ export function ParamInput({ meta, control }: { meta: ParamMeta; control: Contro
   const value = field.value as ParamBoxValue | undefined;
   const [text, setText] = useState(() => (typeof value === "string" ? value : formatNumberInput(value)));
   const [shown, setShown] = useState<unknown>(value);
+  // At display precision until focused; the stored value stays whole (the box edits it in full).
+  const [focused, setFocused] = useState(false);
   // The form was reset or loaded another version: show the new value (typing keeps `shown` in step).
   if (!sameBoxValue(shown, value)) {
     setShown(value);
@@ -53,14 +55,18 @@ export function ParamInput({ meta, control }: { meta: ParamMeta; control: Contro
           aria-invalid={error ? true : undefined}
           aria-describedby={describedBy}
           className={`${INPUT_CLASS} tabular-nums`}
-          value={text}
+          value={numberBoxText(text, focused)}
+          onFocus={() => setFocused(true)}
           onChange={(event) => {
             const next = boxValue(event.target.value);
             setText(event.target.value);
             setShown(next);
             field.onChange(next);
           }}
-          onBlur={field.onBlur}
+          onBlur={() => {
+            setFocused(false);
+            field.onBlur();
+          }}
         />
         <span id={`${id}-unit`} className="w-12 shrink-0 text-sm text-ink-soft">
           {meta.unit}

@@ -15,6 +15,7 @@ import { ConflictBanner, type MergePreview } from "./conflict-banner";
 import { setFormResolver, showServerError, toFormValues, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { SetFields } from "./set-fields";
 import { useGuardedRouter, useUnsavedGuard } from "./use-unsaved-guard";
+import { INPUT_CLASS } from "@/components/ui/text-field";
 
 function currentFromConflict(error: RequestError): ParameterSet | null {
   const body = error.body as { error?: { current?: ParameterSet }; current?: ParameterSet } | null;
@@ -33,6 +34,8 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
   const [generalError, setGeneralError] = useState<string | null>(null);
   const [savedVersion, setSavedVersion] = useState<number | null>(null);
   const [confirmDelete, setConfirmDelete] = useState(false);
+  // Why this save, stored with the version it makes and shown in the history; cleared once saved.
+  const [note, setNote] = useState("");
   const [preview, setPreview] = useState<(MergePreview & { params: SetFormOutput["params"] | null; error: string | null }) | null>(null);
 
   const form = useForm<SetFormInput, unknown, SetFormOutput>({
@@ -55,9 +58,17 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
     setGeneralError(null);
     setSavedVersion(null);
     update.mutate(
-      { version, name: values.name, description: values.description, tags: values.tags, params: values.params },
+      {
+        version,
+        name: values.name,
+        description: values.description,
+        tags: values.tags,
+        params: values.params,
+        note: note.trim() || undefined,
+      },
       {
         onSuccess: (item) => {
+          setNote("");
           loadServerVersion(item);
           setSavedVersion(item.version);
         },
@@ -132,7 +143,19 @@ export function SetEditor({ initial }: { initial: ParameterSet }) {
         <p className="text-sm text-ink-soft" aria-live="polite">
           {form.formState.isDirty ? "Unsaved changes" : `Showing version ${base.version}`}
         </p>
-        <div className="flex gap-2">
+        <div className="flex flex-wrap items-center gap-2">
+          <label htmlFor="version-note" className="sr-only">
+            Note for this version (optional)
+          </label>
+          <input
+            id="version-note"
+            type="text"
+            maxLength={500}
+            value={note}
+            onChange={(e) => setNote(e.target.value)}
+            placeholder="Note for this version (optional)"
+            className={`w-64 max-w-full ${INPUT_CLASS}`}
+          />
           <Button variant="danger" onClick={() => setConfirmDelete(true)}>
             Delete
           </Button>

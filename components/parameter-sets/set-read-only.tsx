@@ -1,4 +1,5 @@
 import { formatFlag, formatValue } from "@/lib/model/diff";
+import { formatNumberDisplay } from "@/lib/model/number-text";
 import { FLAG_META, PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
 import type { ParameterSet } from "@/lib/contracts/parameter-sets";
 
@@ -29,7 +30,8 @@ export function SetReadOnly({ item }: { item: ParameterSet }) {
               <div key={meta.key}>
                 <dt className="font-medium">{meta.label}</dt>
                 <dd className="tabular-nums">
-                  {formatValue(item.params[meta.key])} <span className="text-ink-soft">{meta.unit}</span>
+                  <span title={formatValue(item.params[meta.key])}>{formatNumberDisplay(item.params[meta.key]) || "—"}</span>{" "}
+                  <span className="text-ink-soft">{meta.unit}</span>
                 </dd>
               </div>
             ))}

@@ -86,8 +86,14 @@ export function RotatorPanel({ params }: { params: ModelParams }) {
       ) : null}
       {r ? (
         <dl className="grid grid-cols-1 gap-x-6 gap-y-2 text-sm sm:grid-cols-2" aria-label="Rotator figures">
-          <Figure term="Length for 45°" value={r.length45M !== null ? `${fmt(r.length45M * 1000, 4)} mm` : "– (no rotation)"} />
-          <Figure term={`Length for ${drafts.targetAngleDeg}°`} value={r.lengthM !== null ? `${fmt(r.lengthM * 1000, 4)} mm` : "–"} />
+          {/* The 45° line (the isolator's angle) is shown beside the target's only when the target is another angle. */}
+          {parsed.data?.targetAngleDeg !== 45 ? (
+            <Figure term="Length for 45°" value={r.length45M !== null ? `${fmt(r.length45M * 1000, 4)} mm` : "– (no rotation)"} />
+          ) : null}
+          <Figure
+            term={`Length for ${fmt(parsed.data?.targetAngleDeg, 6)}°`}
+            value={r.lengthM !== null ? `${fmt(r.lengthM * 1000, 4)} mm` : "– (no rotation)"}
+          />
           <Figure term="Verdet constant V" value={`${fmt(r.verdetRadPerTm, 4)} rad/(T·m)`} />
           <Figure
             term="Magnetic-dipole part of V"
@@ -109,6 +115,7 @@ export function RotatorPanel({ params }: { params: ModelParams }) {
       </p>
       <CautionsPanel
         headingLevel={3}
+        title="Safety cautions for the rotator"
         cautions={cautionsFor({
           lines: [],
           minTemperatureK: r ? (parsed.data?.temperatureK ?? null) : null,

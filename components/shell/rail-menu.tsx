@@ -1,7 +1,8 @@
 "use client";
 
 import { usePathname } from "next/navigation";
-import { useEffect, useRef, useState, type ReactNode } from "react";
+import { useCallback, useRef, useState, type ReactNode } from "react";
+import { useEscape } from "@/components/ui/use-escape";
 
 /**
  * On narrow screens the rail folds into a menu: a button under the wordmark opens the links and the
@@ -18,16 +19,11 @@ export function RailMenu({ brand, children }: { brand: ReactNode; children: Reac
     setOpen(false);
   }
 
-  useEffect(() => {
-    if (!open) return;
-    const onKeyDown = (event: KeyboardEvent) => {
-      if (event.key !== "Escape") return;
-      setOpen(false);
-      buttonRef.current?.focus();
-    };
-    document.addEventListener("keydown", onKeyDown);
-    return () => document.removeEventListener("keydown", onKeyDown);
-  }, [open]);
+  const close = useCallback(() => {
+    setOpen(false);
+    buttonRef.current?.focus();
+  }, []);
+  useEscape(open, close);
 
   return (
     <>

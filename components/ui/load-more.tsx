@@ -1,6 +1,7 @@
 "use client";
 
 import { Button } from "./button";
+import { countOf, type Noun } from "@/lib/text/plural";
 
 /** The foot of a paged list: how many are shown, and a button for the next page while there is one. */
 export function LoadMore({
@@ -14,16 +15,16 @@ export function LoadMore({
   hasMore: boolean;
   loading: boolean;
   onMore: () => void;
-  noun: string;
+  noun: Noun;
 }) {
   return (
     <div className="mt-3 flex flex-wrap items-center gap-3 text-sm text-ink-soft">
       <span role="status">
-        {shown} {noun} shown{hasMore ? "; more exist" : ""}.
+        {countOf(shown, noun)} shown{hasMore ? "; more exist" : ""}.
       </span>
       {hasMore ? (
         <Button variant="secondary" className="py-1" disabled={loading} onClick={onMore}>
-          {loading ? "Loading…" : `Show more ${noun}`}
+          {loading ? "Loading…" : `Show more ${noun.other}`}
         </Button>
       ) : null}
     </div>

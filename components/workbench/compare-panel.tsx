@@ -22,7 +22,7 @@ import {
   isVerdetQuantity,
   type CompareQuantity,
 } from "@/lib/workbench/compare";
-import { fmt, fmtDelta, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
+import { fmt, fmtDelta, fmtDifference, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
 import { COMPARE_COLORS, COMPARE_DASHES } from "@/lib/workbench/palette";
 import { fromNm, wavelengthGrid, X_AXIS_TITLE } from "@/lib/workbench/units";
 import { checkedSpectrumRequest, computableMarkers } from "@/lib/workbench/validate";
@@ -142,6 +142,7 @@ export function ComparePanel({
             : [];
         })}
         setId={setId}
+        setName={(sets.data ?? []).find((s) => s.id === setId)?.name ?? null}
         range={range}
         view={view}
         fileBase={fileBase}
@@ -192,6 +193,7 @@ function CompareResults({
   selected,
   setEntries,
   setId,
+  setName,
   range,
   view,
   fileBase,
@@ -202,6 +204,8 @@ function CompareResults({
   selected: readonly string[];
   setEntries: Entry[];
   setId: string | null;
+  /** This set's name, so its versions read "TGG v2", not a bare "Version 2". */
+  setName: string | null;
   range: WavelengthRange | null;
   view: ViewState;
   fileBase: string;
@@ -214,7 +218,7 @@ function CompareResults({
         if (!selected.includes(`version:${v.version}`)) return [];
         const parsed = modelParamsSchema.safeParse(v.params);
         return parsed.success
-          ? [{ key: `version:${v.version}`, label: entryLabel(`Version ${v.version}`, parsed.data), params: parsed.data }]
+          ? [{ key: `version:${v.version}`, label: entryLabel(`${setName ?? "This set"} v${v.version}`, parsed.data), params: parsed.data }]
           : [];
       })
     : [];
@@ -375,7 +379,7 @@ function CompareResults({
                         ) : null}
                         <td className="px-2 py-1">{c.entry.label}</td>
                         <td className="px-2 py-1">{fmt(qv)}</td>
-                        <td className="px-2 py-1">{i === 0 ? "—" : dQ === 0 ? "0" : fmt(dQ)}</td>
+                        <td className="px-2 py-1 whitespace-nowrap">{i === 0 ? "—" : fmtDifference(dQ, qb)}</td>
                         {isVerdetQuantity(quantity) ? null : <td className="px-2 py-1">{fmt(p?.verdetRadPerTm)}</td>}
                         <td className="px-2 py-1">{fmtPercent(p?.magneticShare, 2)}</td>
                         <td className="px-2 py-1">{i === 0 ? "—" : dS === null ? "–" : `${fmtDelta(dS * 100, 2)} pp`}</td>

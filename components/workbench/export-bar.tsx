@@ -5,6 +5,7 @@ import { downloadText } from "@/components/plots/export-image";
 import { buildSpectrumCsv, buildSpectrumJson, type ExportMeta } from "@/lib/workbench/export";
 import type { XUnit, YMode } from "@/lib/workbench/units";
 import type { ComputedSpectrum } from "./use-spectrum-run";
+import { countOf, noun } from "@/lib/text/plural";
 
 export function ExportBar({
   shown,
@@ -65,7 +66,7 @@ export function ExportBar({
       </Button>
       {shown ? (
         <span className="text-xs text-ink-soft">
-          {shown.result.points.length} wavelengths, {shown.method === "llg" ? "numerical LLG" : "analytic preview"}
+          {countOf(shown.result.points.length, noun("wavelength"))}, {shown.method === "llg" ? "numerical LLG" : "analytic preview"}
         </span>
       ) : null}
     </section>

@@ -17,6 +17,7 @@ import { fmt } from "@/lib/workbench/format";
 import type { WorkbenchPool } from "@/lib/workbench/engine";
 import { FitReport } from "./fit-report";
 import { useFitRun } from "./use-fit-run";
+import { countOf, noun } from "@/lib/text/plural";
 
 /*
  * The fit panel of the workbench: choose measurement sets of the set's lab, the free parameters
@@ -98,7 +99,7 @@ export const FitPanel = memo(function FitPanel({
   if (free.length === 0) problems.push("Free at least one parameter.");
   if (Object.keys(boundErrors).length > 0) problems.push("Fix the flagged bounds.");
   if (chosen.length > 0 && !pointsLoading && points.length > 0 && points.length <= free.length) {
-    problems.push(`${points.length} points cannot determine ${free.length} free parameters.`);
+    problems.push(`${countOf(points.length, noun("point"))} cannot determine ${countOf(free.length, noun("free parameter"))}.`);
   }
   const canRun = problems.length === 0 && !pointsLoading && !pointsError && run.status !== "running";
 
@@ -132,7 +133,7 @@ export const FitPanel = memo(function FitPanel({
         ) : (sets.data ?? []).length === 0 ? (
           <p className="text-sm text-ink-soft">
             This lab has no measurement sets yet.{" "}
-            <Link className="text-lux-dark underline-offset-4 hover:underline" href="/measurement-sets">
+            <Link className="text-lux-dark underline underline-offset-4" href="/measurement-sets">
               Upload one on the Measurements page
             </Link>
             .
@@ -149,8 +150,12 @@ export const FitPanel = memo(function FitPanel({
                   />
                   <span className="font-medium">{s.name}</span>
                   <span className="text-ink-soft">
-                    {s.sample} · {s.rowCount} points · {fmt(s.wavelengthSpanNm.min)}–{fmt(s.wavelengthSpanNm.max)} nm ·{" "}
-                    {s.quantity === "verdet" ? "Verdet constant" : "rotation"}
+                    {[
+                      s.sample,
+                      countOf(s.rowCount, noun("point")),
+                      `${fmt(s.wavelengthSpanNm.min)}–${fmt(s.wavelengthSpanNm.max)} nm`,
+                      s.quantity === "verdet" ? "Verdet constant" : "rotation",
+                    ].join(" · ")}
                   </span>
                 </label>
               </li>
@@ -259,7 +264,7 @@ export const FitPanel = memo(function FitPanel({
           </Button>
         ) : null}
         <span className="text-sm text-ink-soft" role="status">
-          {pointsLoading ? "Loading points…" : chosen.length > 0 ? `${points.length} points chosen` : ""}
+          {pointsLoading ? "Loading points…" : chosen.length > 0 ? `${countOf(points.length, noun("point"))} chosen` : ""}
         </span>
       </div>
       {problems.length > 0 && run.status !== "running" ? (

@@ -18,6 +18,7 @@ import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurem
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { Geometry, XUnit, YMode } from "@/lib/workbench/units";
+import { agree, countOf, noun } from "@/lib/text/plural";
 
 /*
  * Measured points with ±σ error bars on the spectrum plot: a picker of the caller's measurement
@@ -181,7 +182,7 @@ function ConditionLegend({ groups }: { groups: ConditionGroup[] }) {
 
 function setLabel(set: MeasurementSetSummary): string {
   const t = set.temperaturesK.map((v) => fmt(v, 5)).join(", ");
-  return `${set.rowCount} points, ${fmt(set.wavelengthSpanNm.min, 4)}–${fmt(set.wavelengthSpanNm.max, 4)} nm, ${t} K`;
+  return `${countOf(set.rowCount, noun("point"))}, ${fmt(set.wavelengthSpanNm.min, 4)}–${fmt(set.wavelengthSpanNm.max, 4)} nm, ${t} K`;
 }
 
 /**
@@ -221,7 +222,7 @@ export const MeasurementOverlayPicker = memo(function MeasurementOverlayPicker({
       ) : (sets.data ?? []).length === 0 ? (
         <p className="mt-2 text-ink-soft">
           No measurement sets in your labs yet.{" "}
-          <Link href="/measurement-sets" className="text-lux-dark underline-offset-4 hover:underline">
+          <Link href="/measurement-sets" className="text-lux-dark underline underline-offset-4">
             Upload one on the Measurements page
           </Link>
           .

@@ -1,6 +1,7 @@
 "use client";
 
-import { memo } from "react";
+import { memo, useState } from "react";
+import { numberBoxText } from "@/lib/model/number-text";
 import type { ModelParamKey } from "@/lib/physics/schema";
 import { FLAG_META, PARAM_GROUP_LABEL, PARAM_META, type ParamMeta } from "@/lib/model/param-meta";
 import { PARAM_RANGES } from "@/lib/workbench/param-ranges";
@@ -23,6 +24,8 @@ function ParameterPanelImpl({
   onChange: (key: ModelParamKey, text: string) => void;
   readOnlyNote?: string | null;
 }) {
+  // Boxes show values at display precision, the one being edited in full (numberBoxText).
+  const [focusedKey, setFocusedKey] = useState<ModelParamKey | null>(null);
   return (
     <div className="space-y-5">
       {readOnlyNote ? <p className="text-xs text-ink-soft">{readOnlyNote}</p> : null}
@@ -48,7 +51,9 @@ function ParameterPanelImpl({
                   autoComplete="off"
                   spellCheck={false}
                   className={`mt-1 ${INPUT}`}
-                  value={drafts[m.key]}
+                  value={numberBoxText(drafts[m.key], focusedKey === m.key)}
+                  onFocus={() => setFocusedKey(m.key)}
+                  onBlur={() => setFocusedKey(null)}
                   aria-invalid={error ? true : undefined}
                   aria-describedby={`${id}-help${error ? ` ${id}-error` : ""}`}
                   onChange={(e) => onChange(m.key, e.target.value)}

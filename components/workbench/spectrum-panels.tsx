@@ -21,6 +21,8 @@ import {
   Y_MODE_LABEL,
   Y_MODES,
   Y_UNIT_SHORT,
+  curveLabel,
+  curveSymbol,
   type Geometry,
   type YMode,
 } from "@/lib/workbench/units";
@@ -89,7 +91,7 @@ function SpectrumPanelsImpl({
       const s = SERIES_STYLE[k];
       return {
         key: k,
-        label: k === "ellipticity" ? "Ellipticity angle atan(tanh η)" : s.label,
+        label: curveLabel(k, yMode),
         color: s.color,
         dash: s.dash,
         width: s.width,
@@ -188,7 +190,8 @@ function SpectrumPanelsImpl({
   };
 
   return (
-    <section aria-label="Spectrum" className="space-y-3">
+    // On a narrow screen the plots come first and their controls follow (CSS order; wide screens keep the source order).
+    <section aria-label="Spectrum" className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-x-4 gap-y-2 text-sm">
         <AxisSelect
           label="x axis"
@@ -227,7 +230,7 @@ function SpectrumPanelsImpl({
                   strokeDasharray={SERIES_STYLE[k].dash}
                 />
               </svg>
-              {SERIES_STYLE[k].label}
+              {curveLabel(k, yMode)}
             </label>
           ))}
           <label className="flex items-center gap-1.5">
@@ -260,7 +263,7 @@ function SpectrumPanelsImpl({
         </span>
       </div>
 
-      <div ref={wrapRef} className="space-y-2">
+      <div ref={wrapRef} className="order-first space-y-2 lg:order-none">
         <LinePlot
           {...shared}
           title={`Faraday rotation and its parts (${methodLabel}) · ${caption}`}
@@ -280,12 +283,12 @@ function SpectrumPanelsImpl({
                 term="λ"
                 value={`${fmt(cp.wavelengthNm, 5)} nm (${fmt(fromNm(cp.wavelengthNm, xUnit), 5)} ${X_UNIT_LABEL[xUnit]})`}
               />
-              <Readout term="θ" value={`${fmt(rotationTo(cp.thetaRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="θe" value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="θm" value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
-              <Readout term="θx" value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("total", yMode)} value={`${fmt(rotationTo(cp.thetaRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("electric", yMode)} value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("magnetic", yMode)} value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
+              <Readout term={curveSymbol("cross", yMode)} value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
               <Readout
-                term="Ellipticity angle"
+                term={curveSymbol("ellipticity", yMode)}
                 value={
                   `${fmt(rotationTo(cp.ellipticityAngleRad ?? cp.ellipticityRad, yMode, geometry))} ${yUnit}` +
                   `${Math.abs(cp.ellipticityRad) > 0.1 ? " (η large)" : ""}`
@@ -296,7 +299,7 @@ function SpectrumPanelsImpl({
                 value={`${formatTransmission(cp.transmissionPlus ?? null)} / ${formatTransmission(cp.transmissionMinus ?? null)}`}
               />
               <Readout term="Magnetic share" value={fmtPercent(cp.magneticShare)} />
-              <Readout term="V" value={`${fmt(cp.verdetRadPerTm)} rad/(T·m)`} />
+              {yMode === "verdet" ? null : <Readout term="V" value={`${fmt(cp.verdetRadPerTm)} rad/(T·m)`} />}
             </dl>
           ) : (
             <p className="text-ink-soft">

@@ -13,6 +13,7 @@ import { COMPONENT_COLORS, SERIES_STYLE } from "@/lib/workbench/palette";
 import { checkedSpectrumRequest, parseNumber } from "@/lib/workbench/validate";
 import type { ViewState } from "@/lib/workbench/view-state";
 import { staleText, traceInputsOf, type TraceInputs } from "@/lib/workbench/spin-trace-view";
+import { formatNumberInput } from "@/lib/model/number-text";
 
 type TraceView = ViewState["spinTrace"];
 
@@ -52,9 +53,9 @@ export function SpinTracePanel({
   fileBase: string;
 }) {
   const [drafts, setDrafts] = useState({
-    wavelengthNm: String(view.wavelengthNm),
-    intensityWPerM2: String(view.intensityWPerM2),
-    periods: String(view.periods),
+    wavelengthNm: formatNumberInput(view.wavelengthNm),
+    intensityWPerM2: formatNumberInput(view.intensityWPerM2),
+    periods: formatNumberInput(view.periods),
   });
   // Each result keeps the magneticScale label of the parameters it was computed from (§4.3).
   // Each result also keeps the inputs it came from, so it can be marked stale when they change.
@@ -232,8 +233,8 @@ export function SpinTracePanel({
   return (
     <div ref={wrapRef} className="space-y-4">
       <p className="text-sm text-ink-soft">
-        The spins under the “+” circular drive after switch-on (smooth ramp, then lock-in; physics-model §7), and χ± demodulated from the
-        trace beside the Polder values. Intensity 0 uses the small linear-regime drive.
+        The spins under the “+” circular drive after switch-on (smooth ramp, then lock-in), and χ± demodulated from the trace beside the
+        Polder values. Intensity 0 uses the small linear-regime drive.
       </p>
       <div className="flex flex-wrap items-end gap-3">
         {input("wavelengthNm", "Trace wavelength (nm)")}
@@ -368,7 +369,7 @@ export function SpinTracePanel({
               axes={{ x: { type: "log", label: "Intensity in the medium (W/m²)" }, y: { type: "log", label: "|ΔMz| (A/m)" } }}
             />
             <p className="text-xs text-ink-soft">
-              ΔMz has the opposite sign to M0 (the cone shortens Mz, §4.5); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.
+              ΔMz has the opposite sign to M0 (the precession cone shortens Mz); magnitudes are shown. Slope 1 on this plot means ΔMz ∝ I.
             </p>
             <PlotExportButtons svgRef={svgC} fileBase={`${fileBase}-delta-mz`} plotName="ΔMz against intensity plot" />
           </div>

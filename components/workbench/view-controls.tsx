@@ -4,6 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { describeError } from "@/lib/query/fetcher";
+import { formatTimeOfDay } from "@/lib/text/date-time";
 import type { ViewSaveStatus } from "./use-view-state";
 
 /*
@@ -96,9 +97,7 @@ export function ViewControls({
         pending={sharing}
         error={asking === "share" ? actionError : null}
         onCancel={() => setAsking(null)}
-        onConfirm={() =>
-          run(onShare, `Shared with the lab at ${new Date().toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" })}.`)
-        }
+        onConfirm={() => run(onShare, `Shared with the lab at ${formatTimeOfDay(new Date())}.`)}
       >
         Everyone in the lab who has not saved a view of their own will start from this one (axes, units, markers, open panels, spin-trace
         inputs, range). Their own views are not changed.

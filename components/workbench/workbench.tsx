@@ -37,6 +37,7 @@ import { useSpectrumRun } from "./use-spectrum-run";
 import { useMarkerValues } from "./use-marker-values";
 import { useViewState, type ViewSource } from "./use-view-state";
 import { ViewControls } from "./view-controls";
+import { InputsDrawer } from "./inputs-drawer";
 import { useMarkersFromQuery } from "./use-markers-query";
 import type { LabRole } from "@/lib/contracts/roles";
 
@@ -170,12 +171,12 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
             ) : set ? (
               <>
                 {set.labName} · version {set.version} · your role: {set.role} ·{" "}
-                <Link className="text-lux-dark underline-offset-4 hover:underline" href={`/parameter-sets/${encodeURIComponent(set.id)}`}>
+                <Link className="text-lux-dark underline underline-offset-4" href={`/parameter-sets/${encodeURIComponent(set.id)}`}>
                   open the set
                 </Link>
               </>
             ) : (
-              "Starts from the terbium gallium garnet values (physics-model §9). Nothing here is stored until you save it as a set."
+              "Starts from the terbium gallium garnet reference values. Nothing here is stored until you save it as a set."
             )}
           </p>
           {set ? <p className="mt-1 text-xs text-ink-soft">Parameter edits here are what-ifs and do not change the stored set.</p> : null}
@@ -197,14 +198,11 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
         ) : null}
       </header>
 
-      <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
-        <aside
-          aria-label="Parameters"
-          className="space-y-6 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto lg:pr-2"
-        >
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
+        <InputsDrawer problems={invalid}>
           <RangeControls drafts={rangeDrafts} errors={rangeErrors} requestError={built.rangeError} onChange={onRange} />
           <ParameterPanel drafts={drafts} errors={errors} onChange={onParam} />
-        </aside>
+        </InputsDrawer>
 
         <div className="min-w-0 space-y-6">
           <RunStatusBar
@@ -345,7 +343,9 @@ function PanelFrame({ title, children }: { title: string; children: ReactNode })
 function EmptyResult({ invalid }: { invalid: boolean }) {
   return (
     <div role="status" className="rounded-lg border border-dashed border-ink/20 px-6 py-10 text-center text-sm text-ink-soft">
-      {invalid ? "Fix the flagged inputs on the left to compute a spectrum." : "Computing the first spectrum…"}
+      {invalid
+        ? "Fix the flagged inputs (beside the plots, or under Inputs on a narrow screen) to compute a spectrum."
+        : "Computing the first spectrum…"}
     </div>
   );
 }

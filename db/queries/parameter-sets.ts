@@ -250,6 +250,9 @@ async function saveNewVersion(
     skipIfUnchanged?: boolean;
     /** Where the new version came from (e.g. a fit), stored with its snapshot. */
     provenance?: Record<string, unknown>;
+    /** The saver's note and, for a restore, the version copied. */
+    note?: string;
+    restoredFrom?: number;
     audit: { action: AuditAction; details: (changed: (keyof Content)[]) => Record<string, unknown> };
   },
 ): Promise<ParameterSet> {
@@ -290,6 +293,8 @@ async function saveNewVersion(
     version,
     ...next,
     provenance: options.provenance ?? null,
+    note: options.note ?? "",
+    restoredFrom: options.restoredFrom ?? null,
     createdById: access.caller.id,
     createdAt: now,
   });
@@ -323,6 +328,7 @@ export async function updateParameterSet(
           params: input.params ?? current.params,
         }),
         skipIfUnchanged: true,
+        note: input.note,
         audit: { action: "parameter_set.update", details: (changed) => ({ changed }) },
       }),
     );
@@ -356,6 +362,7 @@ export async function restoreParameterSetVersion(
           restoredName = old.name;
           return old;
         },
+        restoredFrom: options.restoreVersion,
         audit: { action: "parameter_set.restore", details: () => ({ restoredVersion: options.restoreVersion }) },
       }),
     );
@@ -462,6 +469,8 @@ export async function listParameterSetVersions(
       tags: parameterSetVersions.tags,
       params: parameterSetVersions.params,
       provenance: parameterSetVersions.provenance,
+      note: parameterSetVersions.note,
+      restoredFrom: parameterSetVersions.restoredFrom,
       createdAt: parameterSetVersions.createdAt,
       createdById: users.id,
       createdByName: users.name,
@@ -488,6 +497,8 @@ export async function listParameterSetVersions(
       tags: row.tags,
       params: row.params,
       provenance: row.provenance ?? null,
+      note: row.note,
+      restoredFrom: row.restoredFrom,
       createdAt: row.createdAt.toISOString(),
       createdBy: { id: row.createdById, name: row.createdByName },
     }),

@@ -85,6 +85,8 @@ export const parameterSetVersionResponse: z.ZodType<ParameterSetVersion> = z.obj
   provenance: json.nullable().describe("Where the version came from when not typed in (a fit's summary); null otherwise."),
   createdAt: iso,
   createdBy: userRefResponse,
+  note: z.string().describe('Why it was saved ("" when no note was given).'),
+  restoredFrom: z.number().int().nullable().describe("The version this one restored, if it is a restore."),
 });
 
 export const measurementSetResponse: z.ZodType<MeasurementSetSummary> = z.object({
@@ -220,6 +222,8 @@ export const auditEntryResponse: z.ZodType<AuditEntry> = z.object({
   actor: userRefResponse.nullable(),
   targetType: z.string(),
   targetId: z.string(),
+  targetName: z.string().nullable().describe("The target's present name, or the one recorded with the entry."),
+  set: z.object({ id: z.string(), name: z.string().nullable() }).nullable().describe("The parameter set a plan belongs to."),
   details: json,
 });
 

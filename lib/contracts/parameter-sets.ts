@@ -52,12 +52,17 @@ export const createParameterSetSchema = z.object({
 });
 export type CreateParameterSetInput = z.infer<typeof createParameterSetSchema>;
 
+/** A save's note: one line or a few, stored with the version. */
+export const versionNoteSchema = safeString({ error: "The note must be text." }).trim().max(500, "At most 500 characters.");
+
 export const updateParameterSetSchema = z.object({
   version: setVersionSchema,
   name: setNameSchema.optional(),
   description: descriptionSchema.optional(),
   tags: tagsSchema.optional(),
   params: modelParamsSchema.optional(),
+  /** Why this save, in a few words; shown in the version history. */
+  note: versionNoteSchema.optional(),
 });
 export type UpdateParameterSetInput = z.infer<typeof updateParameterSetSchema>;
 
@@ -103,6 +108,10 @@ export interface ParameterSetVersion {
   params: ModelParams;
   /** Where the version came from when not typed in (a fit: lib/fit/provenance.ts FitProvenance); null otherwise. */
   provenance: Record<string, unknown> | null;
+  /** Why it was saved ("" when no note was given). */
+  note: string;
+  /** The version a restore copied into this one; null for every other save. */
+  restoredFrom: number | null;
   createdAt: string;
   createdBy: UserRef;
 }

@@ -21,3 +21,17 @@ export function roleAtLeast(role: LabRole | null | undefined, min: LabRole): boo
 }
 
 export const labRoleSchema = z.enum(LAB_ROLES, { error: 'Role must be "owner", "editor" or "viewer".' });
+
+/** How every screen and e-mail names each lab role, and what it may do (one wording for the lab page and the invitation mail). */
+export const ROLE_LABEL: Record<LabRole, string> = { owner: "Owner", editor: "Editor", viewer: "Viewer" };
+
+export const ROLE_MEANING: Record<LabRole, string> = {
+  owner: "manages members and edits sets",
+  editor: "creates, edits and deletes sets",
+  viewer: "reads sets",
+};
+
+/** "viewer (reads sets)": a role in running text. */
+export function roleInWords(role: LabRole): string {
+  return `${ROLE_LABEL[role].toLowerCase()} (${ROLE_MEANING[role]})`;
+}

@@ -1,18 +1,12 @@
-import type { LabRole } from "@/lib/contracts/roles";
+import { type LabRole, roleInWords } from "@/lib/contracts/roles";
 
 /* The texts of the e-mails Gyrolux sends; plain text, every link absolute and single-purpose. */
-
-const ROLE_TEXT: Record<LabRole, string> = {
-  owner: "owner (manages members and parameter sets)",
-  editor: "editor (creates and edits parameter sets)",
-  viewer: "viewer (reads parameter sets and uses the workbench)",
-};
 
 export function invitationMail(options: { labName: string; inviterName: string; role: LabRole; link: string; days: number }) {
   return {
     subject: `Invitation to ${options.labName} on Gyrolux`,
     text: [
-      `${options.inviterName} invites you to join ${options.labName} on Gyrolux as ${ROLE_TEXT[options.role]}.`,
+      `${options.inviterName} invites you to join ${options.labName} on Gyrolux as ${roleInWords(options.role)}.`,
       "",
       "Open this link to sign in or create an account, then accept:",
       options.link,

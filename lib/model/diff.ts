@@ -1,4 +1,4 @@
-import type { ModelFlagKey, ModelParamKey, NumericModelParamKey } from "@/lib/physics/schema";
+import type { ModelFlagKey, ModelParamKey, ModelParams, NumericModelParamKey } from "@/lib/physics/schema";
 import { formatNumberInput } from "./number-text";
 import { FLAG_META, PARAM_META } from "./param-meta";
 
@@ -55,11 +55,15 @@ export function describeRelativeChange(before: number | undefined, after: number
   if (after === 0) return "to 0";
   if (Math.sign(before) !== Math.sign(after)) return "sign reversed";
   const ratio = after / before;
-  if (ratio >= 10 || ratio <= 0.1) return `×${formatNumberInput(Number(ratio.toPrecision(3)))}`;
+  // For negative values the ratio speaks of the size: −8 → −7.5 is 6.25 % smaller in size but a
+  // rise in value, so both are said ("size −6.25 %, value up"); for positive values they agree.
+  const way = before < 0 ? `, value ${after > before ? "up" : "down"}` : "";
+  const size = before < 0 ? "size " : "";
+  if (ratio >= 10 || ratio <= 0.1) return `${size}×${formatNumberInput(Number(ratio.toPrecision(3)))}${way}`;
   const percent = (ratio - 1) * 100;
   const shown =
     Math.abs(percent) >= 0.01 ? String(Number(Math.abs(percent).toPrecision(3))) : Math.abs(percent).toExponential(1).replace("e+", "e");
-  return `${signed(shown, percent < 0)} %`;
+  return `${size}${signed(shown, percent < 0)} %${way}`;
 }
 
 function normaliseTags(tags: readonly string[]): string[] {
@@ -133,4 +137,40 @@ export function formatFlag(on: boolean | undefined): string {
 
 export function changedFields(before: SetSnapshot, after: SetSnapshot): FieldDiff[] {
   return diffSnapshots(before, after).filter((row) => row.changed);
+}
+
+export interface StaleQuote {
+  key: string;
+  label: string;
+  /** The number as the description writes it. */
+  quoted: string;
+}
+
+/** Numbers as people write them in a description: 0.005395, 5.395e-3, 6,218e-3, −134. */
+const NUMBER_IN_TEXT = /[-−]?\d+(?:[.,]\d+)?(?:[eE][-−+]?\d+)?/g;
+
+/**
+ * The model parameters whose old value the (unchanged) description still quotes, when the save
+ * changed them: a description written for the old values has gone stale. A quote matches a value
+ * when they agree to the digits written (5.395e-3 quotes 0.0053951…), at least three significant.
+ */
+export function staleDescriptionValues(description: string, before: ModelParams, after: ModelParams): StaleQuote[] {
+  const quotes = (description.match(NUMBER_IN_TEXT) ?? []).map((text) => {
+    const value = Number(text.replace("−", "-").replace(",", "."));
+    const digits = text.replace(/^[-−]/, "").split(/[eE]/)[0]!.replace(/[.,]/, "").replace(/^0+/, "").length;
+    return { text, value, digits };
+  });
+  const out: StaleQuote[] = [];
+  for (const meta of PARAM_META) {
+    const was = before[meta.key];
+    const now = after[meta.key];
+    if (typeof was !== "number" || typeof now !== "number" || was === now || was === 0) continue;
+    const quote = quotes.find(
+      (q) => q.digits >= 3 && Number.isFinite(q.value) && Number(was.toPrecision(q.digits)) === Number(q.value.toPrecision(q.digits)),
+    );
+    if (quote && Number(now.toPrecision(quote.digits)) !== Number(quote.value.toPrecision(quote.digits))) {
+      out.push({ key: meta.key, label: meta.label, quoted: quote.text });
+    }
+  }
+  return out;
 }

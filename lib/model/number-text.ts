@@ -40,3 +40,29 @@ export function formatNumberInput(value: number | undefined | null): string {
   if (value !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return value.toExponential().replace("e+", "e");
   return String(value);
 }
+
+/** Significant digits a value is shown with where it is read, not edited (a fit's κE, a scale). */
+export const DISPLAY_SIGNIFICANT_DIGITS = 5;
+
+/**
+ * A value as read-only views (and a number box not being edited) show it: at most five
+ * significant digits, trailing zeros dropped, scientific outside 1e-3…1e6 — 0.0064186413614499525
+ * reads 0.0064186, 1.9431431724417974 reads 1.9431, 1.2726e28 stays 1.2726e28. The stored value is
+ * untouched; a box shows it in full (formatNumberInput) while it is edited.
+ */
+export function formatNumberDisplay(value: number | undefined | null, significant = DISPLAY_SIGNIFICANT_DIGITS): string {
+  if (value === undefined || value === null || Number.isNaN(value)) return "";
+  if (!Number.isFinite(value)) return String(value);
+  return formatNumberInput(Number(value.toPrecision(significant)));
+}
+
+/**
+ * What a number box shows: while focused, the text as typed; otherwise, when the text is just the
+ * full form of a value (nothing typed over it), that value at display precision.
+ */
+export function numberBoxText(text: string, focused: boolean): string {
+  if (focused) return text;
+  const parsed = parseDecimal(text);
+  if (parsed.kind !== "number" || formatNumberInput(parsed.value) !== text.trim()) return text;
+  return formatNumberDisplay(parsed.value);
+}

@@ -168,7 +168,7 @@ export const FLAG_META: readonly FlagMeta[] = [
     label: "Diamagnetic (bound-electron) term",
     group: "optics",
     help:
-      "Adds the classical bound-electron gyration of every pole of ε (physics-model §5.5, the Becquerel form V = (e/2mₑc) λ |dn/dλ|). " +
+      "Adds the classical bound-electron gyration of every pole of ε (the Becquerel form V = (e/2mₑc) λ |dn/dλ|). " +
       "It follows the field, not the spins, so with it the share moves with temperature and field " +
       "and a set without spins still rotates. Off by default.",
   },

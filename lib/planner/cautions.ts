@@ -12,22 +12,60 @@ export interface Caution {
 
 const VISIBLE_NM = [400, 700] as const;
 
+/*
+ * Class 1 accessible emission limits of IEC 60825-1 for a continuous-wave beam viewed for a long
+ * time (t > T2, the small-source case), in W, from memory (not checked against the standard's
+ * tables; the laser's label and the laser safety officer decide):
+ *   400–700 nm     3.9e-4 W
+ *   700–1050 nm    3.9e-4 · C4 W, C4 = 10^(0.002 (λ − 700))
+ *   1050–1400 nm   3.9e-4 · 5 · C7 W, C7 = 1 below 1150 nm, 10^(0.018 (λ − 1150)) to 1200 nm,
+ *                  8 + 10^(0.04 (λ − 1250)) to 1400 nm
+ *   1400–4000 nm   1.0e-2 W (the eye's media absorb the beam before the retina)
+ * Class 2 (visible only) < 1 mW; Class 3R ≤ 5 × the Class 1 limit (5 × the Class 2 limit in the
+ * visible, i.e. 5 mW); Class 3B ≤ 0.5 W. Outside 400–4000 nm no indication is given.
+ */
+const VISIBLE_CLASS1_W = 3.9e-4;
+const CLASS2_W = 1e-3;
+const CLASS3B_W = 0.5;
+
+/** The Class 1 limit at a wavelength (W), or null where this table does not reach. From memory; see above. */
+export function class1LimitW(wavelengthNm: number): number | null {
+  const l = wavelengthNm;
+  if (l < VISIBLE_NM[0] || l > 4000) return null;
+  if (l <= VISIBLE_NM[1]) return VISIBLE_CLASS1_W;
+  if (l <= 1050) return VISIBLE_CLASS1_W * 10 ** (0.002 * (l - 700));
+  if (l <= 1400) {
+    const c7 = l <= 1150 ? 1 : l <= 1200 ? 10 ** (0.018 * (l - 1150)) : 8 + 10 ** (0.04 * (l - 1250));
+    return VISIBLE_CLASS1_W * 5 * c7;
+  }
+  return 1e-2;
+}
+
+/** Within this fraction below a class's upper limit, the label says the line is near it (beam size and tolerances move the class). */
+const NEAR_LIMIT = 0.8;
+
+function withNearNote(cls: string, powerW: number, limitW: number, next: string): string {
+  return powerW > NEAR_LIMIT * limitW ? `${cls} (near the Class ${next} limit)` : cls;
+}
+
 /**
- * An indicative hazard class for a continuous-wave line from its power alone, using the
- * accessible emission limits of IEC 60825-1 for long exposures as commonly quoted (Class 1
- * ≈ 0.39 mW and Class 2 < 1 mW in the visible, Class 3R < 5 mW in the visible, Class 3B ≤ 0.5 W;
- * from memory). The laser's label and the laser safety officer decide; beam size, pulsing and
- * wavelength move these limits.
+ * An indicative hazard class for a continuous-wave line from its wavelength and power alone,
+ * with the limits above (IEC 60825-1, from memory). 10 mW at 1550 nm is Class 1, at the edge of
+ * it; the same 10 mW at 633 nm is 3B. Pulsing, beam size (the "M" classes) and the measurement
+ * conditions move these limits: the laser's label and the laser safety officer decide.
  */
 export function indicativeLaserClass(wavelengthNm: number, powerW: number | null): string {
   if (powerW === null) return "unknown (no power given)";
+  const class1 = class1LimitW(wavelengthNm);
+  if (class1 === null) return powerW > CLASS3B_W ? "4" : "unknown at this wavelength — see the label";
   const visible = wavelengthNm >= VISIBLE_NM[0] && wavelengthNm <= VISIBLE_NM[1];
-  if (powerW > 0.5) return "4";
-  if (powerW > 0.005) return "3B";
-  if (!visible) return "1 to 3R, depending on wavelength — see the label";
-  if (powerW <= 0.00039) return "1";
-  if (powerW < 0.001) return "2";
-  return "3R";
+  const class3r = 5 * (visible ? CLASS2_W : class1);
+  if (powerW > CLASS3B_W) return "4";
+  if (powerW > class3r) return withNearNote("3B", powerW, CLASS3B_W, "4");
+  if (visible && powerW >= CLASS2_W) return withNearNote("3R", powerW, class3r, "3B");
+  if (visible && powerW > class1) return "2";
+  if (powerW > class1) return withNearNote("3R", powerW, class3r, "3B");
+  return withNearNote("1", powerW, class1, visible ? "2" : "3R");
 }
 
 export interface CautionContext {

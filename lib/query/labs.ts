@@ -22,9 +22,13 @@ export function useLabs() {
   return useQuery(labsQuery());
 }
 
-/** A lab's members, a page at a time; `data` is every member loaded so far. */
-export function useLabMembers(labId: string) {
-  const paged = usePagedList<MemberSummary>({ queryKey: labKeys.members(labId), path: `/api/labs/${encodeURIComponent(labId)}/members` });
+/** A lab's members, a page at a time; `data` is every member loaded so far. No request until a lab is chosen (null). */
+export function useLabMembers(labId: string | null) {
+  const paged = usePagedList<MemberSummary>({
+    queryKey: labKeys.members(labId ?? ""),
+    path: `/api/labs/${encodeURIComponent(labId ?? "")}/members`,
+    enabled: labId !== null && labId !== "",
+  });
   return { ...paged, data: paged.items };
 }
 

@@ -111,7 +111,7 @@ export function useCreateParameterSet() {
 export function useUpdateParameterSet(id: string) {
   const invalidate = useInvalidateSet();
   return useMutation({
-    mutationFn: (input: Partial<ParameterSetDraft> & { version: number }) =>
+    mutationFn: (input: Partial<ParameterSetDraft> & { version: number; note?: string }) =>
       apiFetch<ItemResponse<ParameterSet>>(`/api/parameter-sets/${encodeURIComponent(id)}`, { method: "PATCH", json: input }).then(
         (r) => r.item,
       ),

@@ -59,14 +59,48 @@ export function hasAbsorption(points: readonly SpectrumPoint[]): boolean {
   return points.length > 0 && points.every((p) => p.transmissionPlus !== undefined && p.transmissionMinus !== undefined);
 }
 
-/** The opaque runs of a computed spectrum. */
+/**
+ * Where between two computed wavelengths the better-transmitted mode crosses the opaque threshold.
+ * ln T = −αL is smooth in λ away from a line, so the crossing is interpolated linearly in ln T:
+ * the edge then moves by far less than a grid step when the grid changes (a band edge at the last
+ * opaque grid point moved with the grid, by up to one step).
+ */
+function crossingNm(a: SpectrumPoint, b: SpectrumPoint): number {
+  const lnT = (p: SpectrumPoint) => Math.log(Math.max(p.transmissionPlus!, p.transmissionMinus!, Number.MIN_VALUE));
+  const ya = lnT(a);
+  const yb = lnT(b);
+  const target = Math.log(OPAQUE_TRANSMISSION);
+  if (!Number.isFinite(ya) || !Number.isFinite(yb) || ya === yb) return (a.wavelengthNm + b.wavelengthNm) / 2;
+  const f = Math.min(1, Math.max(0, (target - ya) / (yb - ya)));
+  return a.wavelengthNm + f * (b.wavelengthNm - a.wavelengthNm);
+}
+
+/**
+ * Neighbours further apart than this fraction of the wavelength are no grid to interpolate on (a
+ * few marker wavelengths): there the edge stays at the last opaque point computed.
+ */
+const MAX_INTERPOLATION_GAP = 0.05;
+
+function edgeBetween(opaque: SpectrumPoint, clear: SpectrumPoint | undefined): number {
+  if (!clear || Math.abs(clear.wavelengthNm - opaque.wavelengthNm) > MAX_INTERPOLATION_GAP * opaque.wavelengthNm)
+    return opaque.wavelengthNm;
+  return crossingNm(opaque, clear);
+}
+
+/** The opaque runs of a computed spectrum, their inner edges interpolated between grid points (the grid's ends stay). */
 export function opaqueBandsOf(points: readonly SpectrumPoint[]): WavelengthBand[] {
   if (!hasAbsorption(points)) return [];
-  return opaqueBands(
-    points.map((p) => p.wavelengthNm),
+  const wavelengths = points.map((p) => p.wavelengthNm);
+  const bands = opaqueBands(
+    wavelengths,
     points.map((p) => p.transmissionPlus!),
     points.map((p) => p.transmissionMinus!),
   );
+  return bands.map((band) => {
+    const first = wavelengths.indexOf(band.fromNm);
+    const last = wavelengths.indexOf(band.toNm);
+    return { fromNm: edgeBetween(points[first]!, points[first - 1]), toNm: edgeBetween(points[last]!, points[last + 1]) };
+  });
 }
 
 /** The runs where |η| is beyond the small-dichroism form. */

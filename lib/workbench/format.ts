@@ -53,3 +53,42 @@ export function fmtDelta(value: number | null | undefined, digits = 2): string {
   if (rounded === 0) return (0).toFixed(digits);
   return `${rounded > 0 ? "+" : "−"}${Math.abs(rounded).toFixed(digits)}`;
 }
+
+const SUPERSCRIPT: Record<string, string> = {
+  "-": "⁻",
+  "0": "⁰",
+  "1": "¹",
+  "2": "²",
+  "3": "³",
+  "4": "⁴",
+  "5": "⁵",
+  "6": "⁶",
+  "7": "⁷",
+  "8": "⁸",
+  "9": "⁹",
+};
+
+/** "2.99 × 10⁻⁴" for a value outside 1e-3…1e5, plain otherwise; three significant digits, no sign. */
+function magnitudeText(abs: number, digits: number): string {
+  if (abs === 0) return "0";
+  if (abs >= 1e-3 && abs < 1e5) return String(Number(abs.toPrecision(digits)));
+  const [mantissa, exponent] = abs.toExponential(digits - 1).split("e");
+  const power = String(Number(exponent)).replace(/./g, (c) => SUPERSCRIPT[c] ?? c);
+  return `${Number(mantissa)} × 10${power}`;
+}
+
+/**
+ * A difference against a reference value as a reader takes it in: signed (typographic minus),
+ * three significant digits with a power of ten written out, and the relative change beside it —
+ * "−2.99 × 10⁻⁴ (−0.22 %)" rather than "-2.991e-4".
+ */
+export function fmtDifference(delta: number | null | undefined, reference: number | null | undefined, digits = 3): string {
+  if (delta === null || delta === undefined || !Number.isFinite(delta)) return "–";
+  if (delta === 0) return "0";
+  const sign = delta > 0 ? "+" : "−";
+  const relative =
+    reference !== null && reference !== undefined && Number.isFinite(reference) && reference !== 0
+      ? ` (${fmtDelta((delta / Math.abs(reference)) * 100, 2)} %)`
+      : "";
+  return `${sign}${magnitudeText(Math.abs(delta), digits)}${relative}`;
+}

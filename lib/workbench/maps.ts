@@ -416,7 +416,7 @@ export function axisIndependence(
       independent: true,
       reason:
         `In this model the magnetic share does not depend on ${axis}: ` +
-        "without the diamagnetic term both parts scale with the static magnetization M0 (physics-model §6.4), " +
+        "without the diamagnetic term both parts scale with the static magnetization M0, " +
         "so only wavelength separates them (to first order in the gyration and χ)." +
         `${measured} Shown against wavelength only; switch on the diamagnetic term for a part that does not follow M0.`,
     };

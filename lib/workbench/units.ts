@@ -122,3 +122,39 @@ export function wavelengthGrid(fromNm: number, toNm: number, points: number, spa
   out[n - 1] = toNm;
   return out;
 }
+
+/**
+ * The name of a curve as the y axis shows it. In Verdet mode every curve is divided by B·L, so
+ * the parts are Ve and Vm, not angles θ; the ellipticity divided by B·L is no angle at all but an
+ * ellipticity per unit field and length (rad/(T·m)).
+ */
+export function curveLabel(key: "total" | "electric" | "magnetic" | "cross" | "ellipticity", yMode: YMode): string {
+  if (yMode === "verdet") {
+    return {
+      total: "Verdet constant V",
+      electric: "Electric-dipole part Ve",
+      magnetic: "Magnetic-dipole part Vm",
+      cross: "Cross term Vx",
+      ellipticity: "Ellipticity per B·L",
+    }[key];
+  }
+  return {
+    total: "Total θ",
+    electric: "Electric-dipole θe",
+    magnetic: "Magnetic-dipole θm",
+    cross: "Cross term θx",
+    ellipticity: "Ellipticity angle atan(tanh η)",
+  }[key];
+}
+
+/** The short symbol of a curve in the hover readout: θ, θe … or V, Ve … in Verdet mode. */
+export function curveSymbol(key: "total" | "electric" | "magnetic" | "cross" | "ellipticity", yMode: YMode): string {
+  const verdet = yMode === "verdet";
+  return {
+    total: verdet ? "V" : "θ",
+    electric: verdet ? "Ve" : "θe",
+    magnetic: verdet ? "Vm" : "θm",
+    cross: verdet ? "Vx" : "θx",
+    ellipticity: verdet ? "Ellipticity per B·L" : "Ellipticity angle",
+  }[key];
+}

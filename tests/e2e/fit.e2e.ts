@@ -85,5 +85,38 @@ describe("fit in the workbench", () => {
     expect(text).toMatch(/Gyration κE: [\d.e-]+ ± /);
     expect(text).toMatch(/χ² = /);
     await page.screenshot({ path: outputPath("fit-history.png"), fullPage: true });
+
+    // The printable report: the fit as tables (value ± σ with units, the correlation matrix), the
+    // rotator and the model switches; printed to PDF on A4 and on Letter without half-empty pages.
+    await page.goto(`/parameter-sets/${setId}/report`);
+    const fitTable = page.getByRole("table", { name: "Fitted parameters", exact: true });
+    await fitTable.waitFor({ timeout: TIMEOUT });
+    expect(await fitTable.getByRole("row", { name: /Gyration κE/ }).textContent()).toMatch(/[\d.e-]+ ± [\d.e-]+T⁻¹/);
+    await page.getByRole("table", { name: "Correlation of the fitted parameters" }).waitFor();
+    await page.getByRole("heading", { name: "Rotator sizing" }).waitFor();
+    await page.getByRole("heading", { name: "Model switches" }).waitFor();
+    expect(await page.getByText(/free\[0\]|sigmaScaledByChi2|correlation\[0\]/).count()).toBe(0);
+    for (const paper of [
+      { option: "A4", widthMm: 210, heightMm: 297 },
+      { option: "letter", widthMm: 215.9, heightMm: 279.4 },
+    ]) {
+      await page.emulateMedia({ media: "screen" });
+      await page.getByLabel("Paper").selectOption(paper.option);
+      await page.emulateMedia({ media: "print" });
+      const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
+      expect(pdf.subarray(0, 4).toString()).toBe("%PDF");
+      const pages = pdf.toString("latin1").match(/\/Type\s*\/Page(?!s)/g)?.length ?? 0;
+      // The content as printed (14 mm margins, 96 px per inch): how many pages it needs when packed.
+      const mmToPx = 96 / 25.4;
+      await page.setViewportSize({ width: Math.round((paper.widthMm - 28) * mmToPx), height: 900 });
+      const contentPx = await page.locator("article.report").evaluate((el) => el.getBoundingClientRect().height);
+      const packed = Math.ceil(contentPx / ((paper.heightMm - 28) * mmToPx));
+      console.log(`report PDF on ${paper.option}: ${pages} pages for ${packed} pages of packed content`);
+      // Keeping headings with their text and rows whole costs at most one page over packed content.
+      expect(pages, `${paper.option}: ${pages} pages for ${packed} pages of content`).toBeGreaterThanOrEqual(1);
+      expect(pages, `${paper.option}: ${pages} pages for ${packed} pages of content`).toBeLessThanOrEqual(packed + 1);
+      await page.setViewportSize({ width: 1440, height: 900 });
+    }
+    await page.emulateMedia({ media: "screen" });
   }, 300_000);
 });

@@ -107,6 +107,8 @@ describe("invitations and share links in the browser", () => {
         .click();
       await editor.getByRole("button", { name: "Revoke link" }).click();
       await editor.getByText("No live share links.").waitFor({ timeout: 30_000 });
+      // The one-time copy box goes with the link it showed.
+      expect(await editor.getByLabel("New share link").count()).toBe(0);
       const gone = await guest.goto(sharedPath);
       expect(gone?.status()).toBe(404);
     } finally {

@@ -1,7 +1,8 @@
 import type { Page } from "playwright-core";
 import { beforeAll, describe, expect, it } from "vitest";
 import { NAV_ITEMS } from "@/components/shell/nav-links";
-import { outputPath, useBrowser } from "./support";
+import { DEMO_GARNET_SET_ID } from "@/db/demo-data";
+import { dataLoaded, outputPath, useBrowser } from "./support";
 
 /*
  * The product on a 390 px wide phone: every rail page is reachable through the menu (by pointer
@@ -10,15 +11,39 @@ import { outputPath, useBrowser } from "./support";
  */
 
 const WIDTH = 390;
+const PHONE = { viewport: { width: WIDTH, height: 844 }, isMobile: true, hasTouch: true };
 
 /**
- * How far the page is wider than the phone, once its lists have loaded (a table that arrives later
- * can still widen it). Against the phone's width, not innerWidth: a mobile browser widens its
- * layout viewport to fit wide content, so innerWidth grows with the overflow it should reveal.
+ * How far the document is wider than its layout viewport, measured as the browser lays it out:
+ * documentElement.scrollWidth against clientWidth (not innerWidth, which mobile emulation widens
+ * to fit wide content, hiding the overflow it should reveal). clientWidth itself must stay the
+ * phone's width, or the page has widened the viewport and the comparison would be void.
  */
-async function horizontalOverflow(page: Page): Promise<number> {
-  await page.waitForLoadState("networkidle", { timeout: 5_000 }).catch(() => undefined);
-  return page.evaluate((width) => document.documentElement.scrollWidth - width, WIDTH);
+async function horizontalOverflow(page: Page): Promise<{ clientWidth: number; overflow: number }> {
+  await dataLoaded(page);
+  return page.evaluate(() => {
+    const root = document.documentElement;
+    return { clientWidth: root.clientWidth, overflow: root.scrollWidth - root.clientWidth };
+  });
+}
+
+/** Every signed-in page that is not in the menu, with the demo's ids (db/demo-data.ts). */
+const OTHER_PAGES = [
+  `/parameter-sets/${DEMO_GARNET_SET_ID}`,
+  `/parameter-sets/${DEMO_GARNET_SET_ID}/history`,
+  `/parameter-sets/${DEMO_GARNET_SET_ID}/report`,
+  "/parameter-sets/new",
+  `/workbench/${DEMO_GARNET_SET_ID}`,
+];
+
+/** The signed-out pages. */
+const PUBLIC_PAGES = ["/sign-in", "/sign-up", "/forgot-password"];
+
+async function expectFits(page: Page, href: string): Promise<void> {
+  const { clientWidth, overflow } = await horizontalOverflow(page);
+  if (overflow > 0) await page.screenshot({ path: outputPath(`narrow-overflow${href.replaceAll("/", "-")}.png`), fullPage: true });
+  expect(clientWidth, `${href} widened the layout viewport`).toBe(WIDTH);
+  expect(overflow, `${href} is ${overflow} px wider than the screen`).toBeLessThanOrEqual(0);
 }
 
 describe("390 px wide", () => {
@@ -26,7 +51,7 @@ describe("390 px wide", () => {
   let page: Page;
 
   beforeAll(async () => {
-    page = await browser.signedInPage("owner", { context: { viewport: { width: WIDTH, height: 844 }, isMobile: true, hasTouch: true } });
+    page = await browser.signedInPage("owner", { context: PHONE });
   });
 
   it("reaches every rail page through the menu, and Escape closes it", async () => {
@@ -43,7 +68,7 @@ describe("390 px wide", () => {
         await page.waitForURL((url) => url.pathname === item.href, { timeout: 30_000 });
         await expect.poll(() => menu.getAttribute("aria-expanded")).toBe("false");
         await page.getByRole("heading", { level: 1 }).first().waitFor({ timeout: 30_000 });
-        expect(await horizontalOverflow(page), `${item.href} is wider than the screen`).toBeLessThanOrEqual(0);
+        await expectFits(page, item.href);
       }
 
       // Keyboard: open with Enter, reach a link with Tab, close with Escape (focus back on the button).
@@ -60,6 +85,23 @@ describe("390 px wide", () => {
       await page.screenshot({ path: outputPath("narrow-menu-failure.png"), fullPage: true });
       throw error;
     }
+  });
+
+  it("fits every other page, with its data loaded, into the screen's width", async () => {
+    const failures: string[] = [];
+    const check = async (target: Page, href: string) => {
+      await target.goto(href, { timeout: 120_000 });
+      await target.getByRole("heading", { level: 1 }).first().waitFor({ timeout: 60_000 });
+      try {
+        await expectFits(target, href);
+      } catch (error) {
+        failures.push(error instanceof Error ? error.message.split("\n")[0]! : String(error));
+      }
+    };
+    for (const href of OTHER_PAGES) await check(page, href);
+    const guest = await browser.guestPage({ context: PHONE });
+    for (const href of PUBLIC_PAGES) await check(guest, href);
+    expect(failures).toEqual([]);
   });
 
   it("keeps plot titles, y labels and x tick labels whole and apart", async () => {
@@ -95,6 +137,19 @@ describe("390 px wide", () => {
         return out;
       });
       expect(problems).toEqual([]);
+
+      // The plots come first: the first one starts on the first screen, and the inputs wait in a drawer.
+      const firstPlotTop = await plots.first().evaluate((svg) => svg.getBoundingClientRect().top + window.scrollY);
+      expect(firstPlotTop, "the first plot starts below the first screen").toBeLessThan(844);
+      const inputs = page.getByRole("complementary", { name: "Parameters" });
+      const toggle = page.getByRole("button", { name: /^Inputs/ });
+      expect(await inputs.isVisible()).toBe(false);
+      await toggle.click();
+      expect(await toggle.getAttribute("aria-expanded")).toBe("true");
+      await inputs.getByLabel(/^From/).first().waitFor();
+      await page.keyboard.press("Escape");
+      await expect.poll(() => inputs.isVisible()).toBe(false);
+      expect(await page.evaluate(() => document.activeElement?.getAttribute("aria-controls"))).toBe("workbench-inputs");
     } catch (error) {
       await page.screenshot({ path: outputPath("narrow-plots-failure.png"), fullPage: true });
       throw error;

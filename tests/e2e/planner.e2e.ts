@@ -23,7 +23,7 @@ class PlannerPage {
     return this.page.getByTestId("ranked-plan");
   }
   get cautions() {
-    return this.page.getByRole("region", { name: "Safety cautions" }).first();
+    return this.page.getByRole("region", { name: "Safety cautions", exact: true }).first();
   }
 }
 
@@ -38,6 +38,13 @@ describe("planner in the browser", () => {
       await page.getByText(/Planning for/).waitFor({ timeout: 30_000 });
       // The demo lab's lines are offered.
       await page.getByLabel(/Nd:YAG “Old Faithful” \(1064 nm\)/).waitFor({ timeout: 30_000 });
+      // The rotator's length for its default target, 45°, is printed once, not as "45°" and "target" twice.
+      const rotator = page.getByRole("region", { name: "Rotator sizing" });
+      await rotator.getByText("Verdet constant V").waitFor({ timeout: 30_000 });
+      expect(await rotator.getByText("Length for 45°", { exact: true }).count()).toBe(1);
+      await rotator.getByLabel(/Target angle/).fill("90");
+      await rotator.getByText("Length for 90°", { exact: true }).waitFor();
+      expect(await rotator.getByText("Length for 45°", { exact: true }).count()).toBe(1);
 
       // An impossible request first: zero points gets a specific message, and nothing runs.
       await page.getByLabel("Points you can afford").fill("0");
@@ -94,7 +101,7 @@ describe("planner in the browser", () => {
       await page.getByRole("heading", { name: "Saved measurement plan" }).waitFor({ timeout: 30_000 });
       await page.getByText(planName, { exact: false }).first().waitFor();
       await page.getByRole("heading", { name: "Verdet constant and its two parts" }).waitFor();
-      await page.getByRole("region", { name: "Safety cautions" }).waitFor();
+      await page.getByRole("region", { name: "Safety cautions", exact: true }).waitFor();
       // Print media hides the app rail and the controls.
       await page.emulateMedia({ media: "print" });
       expect(await page.getByRole("button", { name: "Print or save as PDF" }).isVisible()).toBe(false);

@@ -72,3 +72,19 @@ async function storedSession(browser: Browser, account: DemoAccount): Promise<st
   }
   return file;
 }
+
+/**
+ * Resolves once the page's data has arrived: the network is quiet and no loading placeholder
+ * (SkeletonRows' pulsing bars, a "Loading…" status) is left. A table that arrives later can still
+ * change the page, so width and accessibility checks run only after this.
+ */
+export async function dataLoaded(page: Page, timeoutMs = 30_000): Promise<void> {
+  await page.waitForLoadState("networkidle", { timeout: 15_000 }).catch(() => undefined);
+  await page.waitForFunction(
+    () =>
+      !document.querySelector(".animate-pulse") &&
+      !Array.from(document.querySelectorAll("[role=status]")).some((el) => /loading/i.test(el.textContent ?? "")),
+    undefined,
+    { timeout: timeoutMs },
+  );
+}

@@ -94,6 +94,16 @@ describe("parameter sets: lifecycle", () => {
     expect(tooBig.status).toBe(400);
     expect(tooBig.body.error.fields.viewState).toBeTruthy();
 
+    // The history says which version a restore copied, and keeps a save's note.
+    expect(history.body.items.map((v: { restoredFrom: number | null }) => v.restoredFrom)).toEqual([2, 1, null, null]);
+    const noted = await editor.patch(`/api/parameter-sets/${item.id}`, { version: 4, description: "noted", note: "  cooled to 77 K  " });
+    expect(noted.status).toBe(200);
+    const newest = await viewer.get(`/api/parameter-sets/${item.id}/versions?limit=1`);
+    expect(newest.body.items[0]).toMatchObject({ version: 5, restoredFrom: null, note: "cooled to 77 K" });
+    const tooLong = await editor.patch(`/api/parameter-sets/${item.id}`, { version: 5, description: "x", note: "n".repeat(501) });
+    expect(tooLong.status).toBe(400);
+    expect(tooLong.body.error.fields.note).toBeTruthy();
+
     expect((await editor.delete(`/api/parameter-sets/${item.id}`)).status).toBe(204);
     expect((await viewer.get(`/api/parameter-sets/${item.id}`)).status).toBe(404);
     expect((await editor.delete(`/api/parameter-sets/${item.id}`)).status).toBe(404);

@@ -189,6 +189,8 @@ describe("audit page API", () => {
       "parameter_set.create",
     ]);
     expect(bySet.body.items[0].actor.name).toBeTruthy();
+    // Each entry names its target: the share link's set, by its present name.
+    expect(bySet.body.items.map((e: { targetName: string }) => e.targetName)).toEqual([set.name, set.name, set.name]);
 
     const firstPage = await owner.get(`/api/labs/${DEMO_LAB_ID}/audit?setId=${set.id}&limit=2`);
     expect(firstPage.body.items).toHaveLength(2);
@@ -203,6 +205,31 @@ describe("audit page API", () => {
     expect(dated.body.items).toHaveLength(3);
     expect((await owner.get(`/api/labs/${DEMO_LAB_ID}/audit?from=yesterday`)).status).toBe(400);
     expect((await editor.get(`/api/labs/${DEMO_LAB_ID}/audit`)).status).toBe(403);
+  });
+});
+
+describe("audit entries about a person", () => {
+  it("name whose role changed, and the trail filters by that person", async () => {
+    const owner = await signUp({ name: "Audit Owner" });
+    const member = await signUp({ name: `Audit Member ${Date.now()}` });
+    await joinByInvitation({ owner: owner.client, labId: owner.labId, account: member, role: "editor" });
+    const changed = await owner.client.patch(`/api/labs/${owner.labId}/members/${member.userId}`, { role: "viewer" });
+    expect(changed.status).toBe(200);
+
+    const about = await owner.client.get(`/api/labs/${owner.labId}/audit?subjectId=${member.userId}`);
+    expect(about.status).toBe(200);
+    expect(about.body.items).toHaveLength(1);
+    expect(about.body.items[0]).toMatchObject({
+      action: "member.role",
+      targetType: "user",
+      targetId: member.userId,
+      targetName: expect.stringMatching(/^Audit Member /),
+      details: { from: "editor", to: "viewer" },
+    });
+    // The invitation's entries name the invited address.
+    const invitations = await owner.client.get(`/api/labs/${owner.labId}/audit?kind=invitation`);
+    expect(invitations.body.items.map((e: { targetName: string }) => e.targetName)).toEqual([member.email, member.email]);
+    expect((await owner.client.get(`/api/labs/${owner.labId}/audit?subjectId=nobody`)).status).toBe(400);
   });
 });
 

@@ -1,6 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
-import { changedFields, describeRelativeChange, diffSnapshots, formatValue, type SetSnapshot } from "@/lib/model/diff";
+import {
+  changedFields,
+  describeRelativeChange,
+  diffSnapshots,
+  formatValue,
+  staleDescriptionValues,
+  type SetSnapshot,
+} from "@/lib/model/diff";
 import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 
 const base: SetSnapshot = { name: "TGG 293 K", description: "Room temperature", tags: ["tgg", "garnet"], params: TERBIUM_GARNET_DEFAULTS };
@@ -74,6 +81,13 @@ describe("describeRelativeChange", () => {
     expect(describeRelativeChange(5, 5)).toBeNull();
     expect(describeRelativeChange(5, undefined)).toBeNull();
   });
+
+  it("says which way a negative value moved, not only how its size changed", () => {
+    // −8 → −7.5: 6.25 % smaller in size, but the value rose.
+    expect(describeRelativeChange(-8, -7.5)).toBe("size \u22126.25 %, value up");
+    expect(describeRelativeChange(-8, -10)).toBe("size +25 %, value down");
+    expect(describeRelativeChange(-1, -20)).toBe("size ×20, value down");
+  });
 });
 
 describe("formatValue", () => {
@@ -85,5 +99,20 @@ describe("formatValue", () => {
     expect(formatValue(0)).toBe("0");
     expect(formatValue(293.15)).toBe("293.15");
     expect(formatValue(Number.NaN)).toBe("—");
+  });
+});
+
+describe("staleDescriptionValues", () => {
+  const before = { ...TERBIUM_GARNET_DEFAULTS, gyrationPerT: 6.218e-3 };
+  const text = "Diamagnetic term on; κE recalibrated to 6.218e-3 /T so that V(632.8 nm) stays −134 rad/(T·m).";
+
+  it("flags a quoted value that a fit changed", () => {
+    const after = { ...before, gyrationPerT: 0.0064186413614499525 };
+    expect(staleDescriptionValues(text, before, after)).toEqual([{ key: "gyrationPerT", label: expect.any(String), quoted: "6.218e-3" }]);
+  });
+
+  it("says nothing when the quoted values still hold, or the change is below the digits written", () => {
+    expect(staleDescriptionValues(text, before, { ...before, temperatureK: 77 })).toEqual([]);
+    expect(staleDescriptionValues(text, before, { ...before, gyrationPerT: 6.2181e-3 })).toEqual([]);
   });
 });

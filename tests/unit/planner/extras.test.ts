@@ -26,8 +26,8 @@ describe("planner cautions", () => {
   it("indicative classes follow the usual power steps (from memory)", () => {
     expect(indicativeLaserClass(632.8, 0.0003)).toBe("1");
     expect(indicativeLaserClass(632.8, 0.0008)).toBe("2");
-    expect(indicativeLaserClass(632.8, 0.004)).toBe("3R");
-    expect(indicativeLaserClass(1550, 0.05)).toBe("3B");
+    expect(indicativeLaserClass(632.8, 0.003)).toBe("3R");
+    expect(indicativeLaserClass(1550, 0.1)).toBe("3B");
     expect(indicativeLaserClass(800, 1.5)).toBe("4");
     expect(indicativeLaserClass(800, null)).toMatch(/unknown/);
   });

@@ -83,3 +83,17 @@ describe("absorption beside the rotation", () => {
     ).toBe(false);
   });
 });
+
+describe("the opaque edge does not move with the grid", () => {
+  it("interpolates the threshold crossing, so grids of 97 to 1000 points agree within 0.1 nm", () => {
+    const edges = [97, 240, 401, 1000].map((n) => {
+      const grid = Array.from({ length: n }, (_, i) => 300 + ((1500 - 300) * i) / (n - 1));
+      const s = computeSpectrum({ ...TERBIUM_GARNET_DEFAULTS, wavelengthsNm: grid, method: "analytic" });
+      const bands = opaqueBandsOf(s.points);
+      expect(bands).toHaveLength(1);
+      return bands[0]!.toNm;
+    });
+    // Before, the edge was the last opaque grid point: 700, 696.7, 699 and 700 nm for these grids.
+    expect(Math.max(...edges) - Math.min(...edges)).toBeLessThan(0.1);
+  });
+});

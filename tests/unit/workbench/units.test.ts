@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { HC_EV_NM, fromNm, rotationTo, toNm, wavelengthGrid, X_UNITS } from "@/lib/workbench/units";
+import { HC_EV_NM, curveLabel, curveSymbol, fromNm, rotationTo, toNm, wavelengthGrid, X_UNITS } from "@/lib/workbench/units";
 
 describe("x-axis conversions", () => {
   it("uses hc = 1239.84198 eV·nm (CODATA 2018: h, c, e exact in the 2019 SI)", () => {
@@ -50,5 +50,22 @@ describe("wavelength grid", () => {
   it("can be linear", () => {
     const g = wavelengthGrid(400, 800, 5, "linear");
     expect(g).toEqual([400, 500, 600, 700, 800]);
+  });
+});
+
+describe("curve names follow the y axis quantity", () => {
+  it("names Verdet parts V, Ve, Vm and the ellipticity per B·L, not an angle", () => {
+    expect(curveLabel("total", "verdet")).toBe("Verdet constant V");
+    expect(curveLabel("electric", "verdet")).toBe("Electric-dipole part Ve");
+    expect(curveSymbol("ellipticity", "verdet")).toBe("Ellipticity per B·L");
+    expect(curveLabel("ellipticity", "verdet")).not.toMatch(/angle/);
+  });
+
+  it("names rotations θ and the ellipticity an angle", () => {
+    for (const mode of ["rad", "mrad", "deg"] as const) {
+      expect(curveLabel("total", mode)).toBe("Total θ");
+      expect(curveSymbol("magnetic", mode)).toBe("θm");
+      expect(curveSymbol("ellipticity", mode)).toBe("Ellipticity angle");
+    }
   });
 });

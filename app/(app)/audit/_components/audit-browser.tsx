@@ -9,53 +9,20 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { useLabMembers, useLabs } from "@/lib/query/labs";
 import { useParameterSets } from "@/lib/query/parameter-sets";
 import { useAudit } from "@/lib/query/sharing";
-import type { AuditEntry } from "@/lib/contracts/audit";
+import { AUDIT_KINDS, canReadAnyAudit } from "@/lib/contracts/audit";
+import { AUDIT_KIND_LABEL, auditDetailText, describeAuditEntry } from "@/lib/text/audit";
+import { noun } from "@/lib/text/plural";
 
-const KINDS = [
-  { value: "", label: "Everything" },
-  { value: "parameter_set", label: "Parameter sets" },
-  { value: "member", label: "Members" },
-  { value: "invitation", label: "Invitations" },
-  { value: "share_link", label: "Share links" },
-] as const;
-
-const ACTION_TEXT: Record<string, string> = {
-  "parameter_set.create": "created a parameter set",
-  "parameter_set.update": "changed a parameter set",
-  "parameter_set.restore": "restored a version",
-  "parameter_set.delete": "deleted a parameter set",
-  "parameter_set.view_state": "saved the workbench view",
-  "member.add": "added a member",
-  "member.role": "changed a role",
-  "member.remove": "removed a member",
-  "invitation.create": "invited someone",
-  "invitation.revoke": "withdrew an invitation",
-  "invitation.accept": "accepted an invitation",
-  "share_link.create": "made a share link",
-  "share_link.revoke": "revoked a share link",
-  "demo.seed": "seeded demo data",
-  "user.sign_up": "signed up",
-};
-
-function detailText(entry: AuditEntry): string {
-  const d = entry.details;
-  const parts: string[] = [];
-  for (const key of ["name", "email", "role", "from", "to", "version", "restoredVersion"]) {
-    const value = d[key];
-    if (typeof value === "string" || typeof value === "number") parts.push(`${key} ${value}`);
-  }
-  if (Array.isArray(d.changed) && d.changed.length > 0) parts.push(`changed ${d.changed.join(", ")}`);
-  return parts.join(" · ");
-}
+const KINDS = [{ value: "", label: "Everything" }, ...AUDIT_KINDS.map((k) => ({ value: k, label: AUDIT_KIND_LABEL[k] }))];
 
 export function AuditBrowser() {
   const labs = useLabs();
-  const owned = (labs.data ?? []).filter((lab) => lab.role === "owner");
+  const owned = (labs.data ?? []).filter((lab) => canReadAnyAudit([lab.role]));
   const [labId, setLabId] = useState("");
   const chosen = labId || owned[0]?.id || "";
-  const [filters, setFilters] = useState({ setId: "", actorId: "", kind: "", from: "", to: "" });
+  const [filters, setFilters] = useState({ setId: "", actorId: "", subjectId: "", kind: "", from: "", to: "" });
   const sets = useParameterSets({ labId: chosen || undefined });
-  const members = useLabMembers(chosen || "none");
+  const members = useLabMembers(chosen || null);
   const audit = useAudit(chosen, filters);
   const set = (key: keyof typeof filters) => (event: React.ChangeEvent<HTMLSelectElement | HTMLInputElement>) =>
     setFilters((f) => ({ ...f, [key]: event.target.value }));
@@ -86,10 +53,17 @@ export function AuditBrowser() {
         />
         <Select
           id="audit-person"
-          label="Person"
+          label="Done by"
           value={filters.actorId}
           onChange={set("actorId")}
           options={[{ value: "", label: "Everyone" }, ...members.items.map((m) => ({ value: m.userId, label: m.name }))]}
+        />
+        <Select
+          id="audit-subject"
+          label="About person"
+          value={filters.subjectId}
+          onChange={set("subjectId")}
+          options={[{ value: "", label: "Anyone" }, ...members.items.map((m) => ({ value: m.userId, label: m.name }))]}
         />
         <Select
           id="audit-kind"
@@ -134,8 +108,8 @@ export function AuditBrowser() {
                     <DateTime iso={entry.at} />
                   </td>
                   <td className="px-3 py-2">{entry.actor?.name ?? "Gyrolux"}</td>
-                  <td className="px-3 py-2">{ACTION_TEXT[entry.action] ?? entry.action}</td>
-                  <td className="px-3 py-2 text-ink-soft">{detailText(entry)}</td>
+                  <td className="px-3 py-2">{describeAuditEntry(entry)}</td>
+                  <td className="px-3 py-2 text-ink-soft">{auditDetailText(entry)}</td>
                 </tr>
               ))}
             </tbody>
@@ -146,7 +120,7 @@ export function AuditBrowser() {
               hasMore={audit.hasNextPage}
               loading={audit.isFetchingNextPage}
               onMore={() => void audit.fetchNextPage()}
-              noun="entries"
+              noun={noun("entry", "entries")}
             />
           </div>
         </div>

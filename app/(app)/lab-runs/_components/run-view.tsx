@@ -58,7 +58,7 @@ export function RunView({ id }: { id: string }) {
               setLabel
             )}
             {item.workerId ? ` · worker ${item.workerId}` : ""} ·{" "}
-            <Link href="/lab-runs" className="text-lux-dark underline-offset-4 hover:underline">
+            <Link href="/lab-runs" className="text-lux-dark underline underline-offset-4">
               all runs
             </Link>
           </>

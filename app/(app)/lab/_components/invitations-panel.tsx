@@ -10,7 +10,8 @@ import { INPUT_CLASS } from "@/components/ui/text-field";
 import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useInvitations, useInvite, useRevokeInvitation, type InvitationSummary } from "@/lib/query/sharing";
 import { type LabRole, LAB_ROLES } from "@/lib/contracts/roles";
-import { ROLE_LABEL, ROLE_MEANING } from "./role-text";
+import { ROLE_LABEL, ROLE_MEANING } from "@/lib/contracts/roles";
+import { noun } from "@/lib/text/plural";
 
 /** Owners invite people by e-mail; they join when they accept. Pending invitations can be withdrawn. */
 export function InvitationsPanel({ labId, labName }: { labId: string; labName: string }) {
@@ -126,7 +127,7 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
               hasMore={pending.hasNextPage}
               loading={pending.isFetchingNextPage}
               onMore={() => void pending.fetchNextPage()}
-              noun="invitations"
+              noun={noun("invitation")}
             />
           </>
         )}

@@ -12,7 +12,8 @@ import { roleAtLeast, type LabRole, LAB_ROLES } from "@/lib/contracts/roles";
 import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
 import { LoadMore } from "@/components/ui/load-more";
 import { InvitationsPanel } from "./invitations-panel";
-import { ROLE_LABEL, ROLE_MEANING } from "./role-text";
+import { ROLE_LABEL, ROLE_MEANING } from "@/lib/contracts/roles";
+import { noun } from "@/lib/text/plural";
 
 export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUserId: string }) {
   const members = useLabMembers(lab.id);
@@ -135,7 +136,7 @@ export function LabSection({ lab, currentUserId }: { lab: LabSummary; currentUse
           hasMore={members.hasNextPage}
           loading={members.isFetchingNextPage}
           onMore={() => void members.fetchNextPage()}
-          noun="members"
+          noun={noun("member")}
         />
       ) : null}
       {isOwner ? <InvitationsPanel labId={lab.id} labName={lab.name} /> : null}

@@ -19,6 +19,7 @@ import { parseSort, sortSets, type SortKey } from "./format";
 import { MeasurementsTable } from "./measurements-table";
 import { UploadPanel } from "./upload-panel";
 import { SearchBox } from "@/components/ui/search-box";
+import { countOf, noun } from "@/lib/text/plural";
 
 export function MeasurementsBrowser() {
   const searchParams = useSearchParams();
@@ -164,8 +165,9 @@ export function MeasurementsBrowser() {
       >
         {toDelete ? (
           <p>
-            “{toDelete.name}” ({toDelete.rowCount} rows) and its original file {toDelete.fileName} will be removed for everyone in{" "}
-            {toDelete.labName}. The lab’s audit log keeps a record. This cannot be undone: keep a copy of the file if you may need it.
+            “{toDelete.name}” ({countOf(toDelete.rowCount, noun("row"))}) and its original file {toDelete.fileName} will be removed for
+            everyone in {toDelete.labName}. The lab’s audit log keeps a record. This cannot be undone: keep a copy of the file if you may
+            need it.
           </p>
         ) : null}
       </ConfirmDialog>

@@ -14,6 +14,7 @@ import { UploadMappingFieldset } from "./upload-mapping-fieldset";
 import { UploadFormatFieldset } from "./upload-format-fieldset";
 import { UploadPreviewTable } from "./upload-preview-table";
 import { useUploadDraft } from "./use-upload-draft";
+import { countOf, noun } from "@/lib/text/plural";
 
 export function UploadPanel({
   labs,
@@ -197,7 +198,7 @@ function UploadProblems({ problems, fromServer }: { problems: string[]; fromServ
         title={
           fromServer
             ? "The server refused the file; nothing was stored."
-            : `${problems.length === 1 ? "One problem" : `${problems.length} problems`} to fix before the upload:`
+            : `${countOf(problems.length, noun("problem"))} to fix before the upload:`
         }
       >
         <ul className="max-h-60 list-disc overflow-y-auto pl-5">

@@ -15,6 +15,7 @@ import { roleAtLeast } from "@/lib/contracts/roles";
 import { SearchBox } from "@/components/ui/search-box";
 import { SetsTable } from "./sets-table";
 import { parseSort, sortSets, type SortKey } from "./sort";
+import { noun } from "@/lib/text/plural";
 
 export function SetsBrowser() {
   const searchParams = useSearchParams();
@@ -95,7 +96,7 @@ export function SetsBrowser() {
             hasMore={sets.hasNextPage}
             loading={sets.isFetchingNextPage}
             onMore={() => void sets.fetchNextPage()}
-            noun="sets"
+            noun={noun("set")}
           />
         </>
       )}

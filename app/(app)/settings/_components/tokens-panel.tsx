@@ -11,6 +11,7 @@ import { LoadMore } from "@/components/ui/load-more";
 import { useRevokeToken, useTokenPages } from "@/lib/query/tokens";
 import type { TokenSummary } from "@/lib/contracts/tokens";
 import { CreateTokenForm } from "./create-token-form";
+import { noun } from "@/lib/text/plural";
 
 export function TokensPanel() {
   const tokens = useTokenPages();
@@ -86,7 +87,7 @@ export function TokensPanel() {
                 hasMore={tokens.hasNextPage}
                 loading={tokens.isFetchingNextPage}
                 onMore={() => void tokens.fetchNextPage()}
-                noun="tokens"
+                noun={noun("token")}
               />
             </div>
           </div>

@@ -14,13 +14,13 @@ export function SetHeader({ item, current }: { item: ParameterSet; current: "det
   return (
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm">
-        <Link href="/parameter-sets" className="text-lux-dark underline-offset-4 hover:underline">
+        <Link href="/parameter-sets" className="text-lux-dark underline underline-offset-4">
           Parameter sets
         </Link>
         {current === "history" ? (
           <>
             {" / "}
-            <Link href={`/parameter-sets/${item.id}`} className="text-lux-dark underline-offset-4 hover:underline">
+            <Link href={`/parameter-sets/${item.id}`} className="text-lux-dark underline underline-offset-4">
               {item.name}
             </Link>
           </>

@@ -8,7 +8,9 @@ import { DateTime } from "@/components/ui/date-time";
 import { LoadMore } from "@/components/ui/load-more";
 import { INPUT_CLASS } from "@/components/ui/text-field";
 import { describeError } from "@/lib/query/fetcher";
+import { formatDateTime } from "@/lib/text/date-time";
 import { useCreateShareLink, useRevokeShareLink, useShareLinks, type ShareLinkSummary } from "@/lib/query/sharing";
+import { noun } from "@/lib/text/plural";
 
 /** Editors make read-only links to this set for people outside the lab, and revoke them. */
 export function ShareLinksPanel({ setId }: { setId: string }) {
@@ -68,7 +70,7 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
                     setRevoking(link);
                   }}
                 >
-                  Revoke<span className="sr-only"> the link made {link.createdAt}</span>
+                  Revoke<span className="sr-only"> the link made {formatDateTime(link.createdAt)}</span>
                 </Button>
               </li>
             ))}
@@ -78,7 +80,7 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
             hasMore={links.hasNextPage}
             loading={links.isFetchingNextPage}
             onMore={() => void links.fetchNextPage()}
-            noun="links"
+            noun={noun("link")}
           />
         </>
       ) : links.isSuccess ? (
@@ -93,7 +95,14 @@ export function ShareLinksPanel({ setId }: { setId: string }) {
         error={revoke.isError ? describeError(revoke.error) : null}
         onCancel={() => setRevoking(null)}
         onConfirm={() => {
-          if (revoking) revoke.mutate(revoking.id, { onSuccess: () => setRevoking(null) });
+          if (!revoking) return;
+          revoke.mutate(revoking.id, {
+            onSuccess: () => {
+              // The "copy the link now" box must not keep offering a link that no longer works.
+              if (create.data?.item.id === revoking.id) create.reset();
+              setRevoking(null);
+            },
+          });
         }}
       >
         Whoever has the link loses access at once. You can make a new link later.

@@ -2,11 +2,12 @@ import type { Metadata } from "next";
 import { notFound, redirect } from "next/navigation";
 import { db } from "@/db/client";
 import { getParameterSet } from "@/db/queries/parameter-sets";
+import { listLightSources } from "@/db/queries/light-sources";
 import { listPlans } from "@/db/queries/plans";
 import { latestProvenance } from "@/db/queries/report";
 import type { ResourceAccess } from "@/lib/contracts/access";
 import { DomainError } from "@/lib/contracts/errors";
-import { authorize, getCaller } from "@/lib/auth/access";
+import { authorize, authorizeLab, getCaller } from "@/lib/auth/access";
 import { ReportView } from "./_components/report-view";
 
 export const metadata: Metadata = { title: "Report" };
@@ -29,6 +30,8 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
     listPlans(db, { access }),
   ]);
   if (!set) notFound();
+  // The lab's light sources give the saved plan's lines their powers (the plan keeps names and wavelengths).
+  const lightSources = await listLightSources(db, { access: await authorizeLab(caller, access.labId, "viewer") });
   return (
     <ReportView
       set={{
@@ -43,6 +46,7 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
       }}
       fit={fit}
       plan={plans[0] ?? null}
+      lightSources={lightSources.map((l) => ({ name: l.name, wavelengthNm: l.wavelengthNm, powerW: l.powerW }))}
     />
   );
 }

@@ -16,7 +16,7 @@ export function NewSet({ initialLabId }: { initialLabId?: string }) {
   return (
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm">
-        <Link href="/parameter-sets" className="text-lux-dark underline-offset-4 hover:underline">
+        <Link href="/parameter-sets" className="text-lux-dark underline underline-offset-4">
           Parameter sets
         </Link>
       </nav>

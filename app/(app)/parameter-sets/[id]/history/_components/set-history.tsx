@@ -9,6 +9,7 @@ import { roleAtLeast } from "@/lib/contracts/roles";
 import { SetHeader } from "../../_components/set-header";
 import { VersionCompare } from "./version-compare";
 import { VersionList } from "./version-list";
+import { noun } from "@/lib/text/plural";
 
 export function SetHistory({ id }: { id: string }) {
   const set = useParameterSet(id);
@@ -30,8 +31,9 @@ export function SetHistory({ id }: { id: string }) {
           Restored: version {restored.to} now holds the content of version {restored.from}.
         </p>
       ) : null}
-      <div className="grid gap-8 xl:grid-cols-[22rem_1fr]">
-        <div>
+      {/* minmax(0,…) columns: a wide comparison table scrolls in its own box instead of widening the page. */}
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-8 xl:grid-cols-[22rem_minmax(0,1fr)]">
+        <div className="min-w-0">
           <VersionList
             setId={id}
             versions={versions.items}
@@ -44,7 +46,7 @@ export function SetHistory({ id }: { id: string }) {
             hasMore={versions.hasNextPage}
             loading={versions.isFetchingNextPage}
             onMore={() => void versions.fetchNextPage()}
-            noun="versions"
+            noun={noun("version")}
           />
         </div>
         <VersionCompare versions={versions.items} />

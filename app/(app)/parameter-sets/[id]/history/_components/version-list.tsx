@@ -8,6 +8,7 @@ import { DateTime } from "@/components/ui/date-time";
 import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useRestoreVersion } from "@/lib/query/parameter-sets";
 import type { ParameterSetVersion } from "@/lib/contracts/parameter-sets";
+import { staleDescriptionValues } from "@/lib/model/diff";
 
 interface VersionListProps {
   setId: string;
@@ -47,6 +48,9 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
             <p className="mt-0.5 text-sm text-ink-soft">
               <DateTime iso={v.createdAt} /> by {v.createdBy.name}
             </p>
+            {v.restoredFrom !== null ? <p className="mt-1 text-sm">Restored from version {v.restoredFrom}.</p> : null}
+            {v.note ? <p className="mt-1 text-sm whitespace-pre-line">“{v.note}”</p> : null}
+            <StaleDescriptionNote version={v} previous={versions.find((p) => p.version === v.version - 1) ?? null} />
             <FitProvenanceSummary provenance={v.provenance} />
             {canRestore && v.version !== currentVersion ? (
               <Button
@@ -86,5 +90,21 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
         This saves a new version {currentVersion + 1} with the content of version {pick}. No version is deleted, so you can go back again.
       </ConfirmDialog>
     </section>
+  );
+}
+
+/**
+ * A version whose description kept a number the save changed (a fit moved κE, the description
+ * still quotes the old κE): flagged, so the text is checked before someone trusts it.
+ */
+function StaleDescriptionNote({ version, previous }: { version: ParameterSetVersion; previous: ParameterSetVersion | null }) {
+  if (!previous || version.description !== previous.description) return null;
+  const stale = staleDescriptionValues(version.description, previous.params, version.params);
+  if (stale.length === 0) return null;
+  return (
+    <p className="mt-1 rounded border border-ember/40 bg-ember-light px-2 py-1 text-sm">
+      The description may be out of date: it still quotes {stale.map((s) => `${s.label} ${s.quoted}`).join(", ")}, which this version
+      changed.
+    </p>
   );
 }

@@ -1,19 +1,22 @@
 "use client";
 
 import { savedPlanSummary } from "@/lib/planner/summary";
-import { useMemo, useState } from "react";
+import { type ReactNode, useMemo, useState } from "react";
 import { CautionsPanel } from "@/components/planner/cautions-panel";
 import { LinePlot } from "@/components/plots/line-plot";
 import { Button, LinkButton } from "@/components/ui/button";
 import { DateTime } from "@/components/ui/date-time";
 import type { ProvenanceRecord } from "@/db/queries/report";
-import { PARAM_META } from "@/lib/model/param-meta";
+import { formatFlag } from "@/lib/model/diff";
+import { FLAG_META, PARAM_META } from "@/lib/model/param-meta";
 import { cautionsFor } from "@/lib/planner/cautions";
 import type { SavedPlan } from "@/lib/contracts/plans";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { computeSpectrum } from "@/lib/physics/spectrum";
 import { fmt, fmtPercent, magneticScaleLabel } from "@/lib/workbench/format";
 import { parseViewState } from "@/lib/workbench/view-state";
+import { ReportFit } from "./report-fit";
+import { ReportRotator } from "./report-rotator";
 
 type Paper = "A4" | "letter";
 
@@ -28,12 +31,36 @@ const printCss = (paper: Paper) => `
   aside, .no-print { display: none !important; }
   main { padding: 0 !important; }
   body { background: #fff !important; }
-  .report { max-width: 180mm; font-size: 10pt; }
-  .report section, .report .caution-block { break-inside: avoid; }
+  .report { max-width: 180mm; font-size: 10pt; gap: 5mm !important; }
+  /* Sections may run over a page break (keeping whole sections together left pages half empty);
+     what must not be split: a heading from what follows it, a table row, a figure, the cautions. */
+  .report h2, .report caption { break-after: avoid; }
+  .report tr, .report figure, .report .caution-block, .report .keep { break-inside: avoid; }
   .report svg { max-width: 100%; height: auto; }
 }`;
 
 const PLOT_WIDTH = 680;
+
+/** A lab light source as the report needs it: the power that sizes the laser caution. */
+export interface LineSource {
+  name: string;
+  wavelengthNm: number;
+  powerW: number | null;
+}
+
+function uniqueLines<T extends { lineName: string; wavelengthNm: number }>(points: readonly T[]): T[] {
+  const seen = new Set<string>();
+  return points.filter((p) => {
+    const key = `${p.lineName}@${p.wavelengthNm}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+
+function powerOf(sources: readonly LineSource[], line: { lineName: string; wavelengthNm: number }): number | null {
+  return sources.find((s) => s.name === line.lineName && s.wavelengthNm === line.wavelengthNm)?.powerW ?? null;
+}
 
 function logSpaced(from: number, to: number, n: number): number[] {
   const a = Math.log(from);
@@ -52,7 +79,17 @@ export interface ReportSet {
   viewState: Record<string, unknown> | null;
 }
 
-export function ReportView({ set, fit, plan }: { set: ReportSet; fit: ProvenanceRecord | null; plan: SavedPlan | null }) {
+export function ReportView({
+  set,
+  fit,
+  plan,
+  lightSources,
+}: {
+  set: ReportSet;
+  fit: ProvenanceRecord | null;
+  plan: SavedPlan | null;
+  lightSources: readonly LineSource[];
+}) {
   const [paper, setPaper] = useState<Paper>("A4");
   const parsed = modelParamsSchema.safeParse(set.params);
   const params = parsed.success ? parsed.data : null;
@@ -74,13 +111,21 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
 
   const scaleLabel = params ? magneticScaleLabel(params.magneticScale) : null;
   const cautions = cautionsFor({
-    lines: (plan?.plan.points ?? []).map((p) => ({ name: p.lineName, wavelengthNm: p.wavelengthNm, powerW: null })),
+    // The saved plan names its lines; their powers are the lab's light sources' (same name and wavelength).
+    lines: uniqueLines(plan?.plan.points ?? []).map((p) => ({
+      name: p.lineName,
+      wavelengthNm: p.wavelengthNm,
+      powerW: powerOf(lightSources, p),
+    })),
     minTemperatureK: plan ? Math.min(...plan.plan.points.map((p) => p.temperatureK)) : (params?.temperatureK ?? null),
     maxFieldT: plan ? Math.max(...plan.plan.points.map((p) => Math.abs(p.fieldT))) : params ? Math.abs(params.fieldT) : null,
   });
 
   return (
-    <article className="report mx-auto grid max-w-4xl gap-6 text-ink" aria-label="Printable report">
+    <article
+      className="report mx-auto grid max-w-4xl grid-cols-[minmax(0,1fr)] gap-6 text-ink [&_svg]:h-auto [&_svg]:max-w-full"
+      aria-label="Printable report"
+    >
       <style>{printCss(paper)}</style>
       <div className="no-print flex flex-wrap items-center gap-3 rounded-md border border-ink/15 bg-paper-raised px-3 py-2 text-sm">
         <label className="flex items-center gap-2">
@@ -113,34 +158,53 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
         <h2 id="report-params" className="text-lg font-semibold">
           Parameters
         </h2>
-        <table className="mt-2 w-full text-sm">
-          <thead className="text-left text-ink-soft">
-            <tr>
-              <th scope="col" className="py-1 font-medium">
-                Parameter
-              </th>
-              <th scope="col" className="font-medium">
-                Key
-              </th>
-              <th scope="col" className="text-right font-medium">
-                Value
-              </th>
-              <th scope="col" className="pl-2 font-medium">
-                Unit
-              </th>
-            </tr>
-          </thead>
-          <tbody className="tabular-nums">
-            {PARAM_META.map((m) => (
-              <tr key={m.key} className="border-t border-ink/10">
-                <td className="py-0.5">{m.label}</td>
-                <td className="font-mono text-xs">{m.key}</td>
-                <td className="text-right">{fmt((set.params as Record<string, unknown>)[m.key] as number | undefined, 6)}</td>
-                <td className="pl-2">{m.unit || "1"}</td>
+        <ScrollBox>
+          <table className="w-full text-sm">
+            <thead className="text-left text-ink-soft">
+              <tr>
+                <th scope="col" className="py-1 font-medium">
+                  Parameter
+                </th>
+                <th scope="col" className="font-medium">
+                  Key
+                </th>
+                <th scope="col" className="text-right font-medium">
+                  Value
+                </th>
+                <th scope="col" className="pl-2 font-medium">
+                  Unit
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody className="tabular-nums">
+              {PARAM_META.map((m) => (
+                <tr key={m.key} className="border-t border-ink/10">
+                  <td className="py-0.5">{m.label}</td>
+                  <td className="font-mono text-xs">{m.key}</td>
+                  <td className="text-right">{fmt((set.params as Record<string, unknown>)[m.key] as number | undefined, 6)}</td>
+                  <td className="pl-2">{m.unit || "1"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </ScrollBox>
+      </section>
+
+      <section aria-labelledby="report-switches">
+        <h2 id="report-switches" className="text-lg font-semibold">
+          Model switches
+        </h2>
+        <ul className="mt-1 text-sm">
+          {FLAG_META.map((f) => (
+            <li key={f.key}>
+              {f.label}:{" "}
+              <span className="font-medium">{formatFlag((set.params as Record<string, unknown>)[f.key] as boolean | undefined)}</span>
+            </li>
+          ))}
+          <li>
+            Magnetic-dipole scale: <span className="font-medium">{scaleLabel ?? "1 (first-principles)"}</span>
+          </li>
+        </ul>
       </section>
 
       <section aria-labelledby="report-split">
@@ -204,46 +268,57 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
           {computed.atMarkers.length === 0 ? (
             <p className="text-sm text-ink-soft">No markers.</p>
           ) : (
-            <table className="mt-2 w-full text-sm">
-              <thead className="text-left text-ink-soft">
-                <tr>
-                  <th scope="col" className="py-1 font-medium">
-                    λ (nm)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    V (rad/(T·m))
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    electric
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    magnetic
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    magnetic share
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    L for 45° (mm)
-                  </th>
-                </tr>
-              </thead>
-              <tbody className="tabular-nums">
-                {computed.atMarkers.map((p) => {
-                  const v = p.thetaRad / computed.fieldT;
-                  return (
-                    <tr key={p.wavelengthNm} className="border-t border-ink/10">
-                      <td className="py-0.5">{p.wavelengthNm}</td>
-                      <td className="text-right">{fmt(v, 4)}</td>
-                      <td className="text-right">{fmt(p.thetaElectricRad / computed.fieldT, 4)}</td>
-                      <td className="text-right">{fmt(p.thetaMagneticRad / computed.fieldT, 4)}</td>
-                      <td className="text-right">{fmtPercent(p.magneticShare)}</td>
-                      <td className="text-right">{v !== 0 ? fmt((Math.PI / 4 / Math.abs(v * computed.fieldT)) * 1000, 4) : "–"}</td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
+            <ScrollBox>
+              <table className="w-full text-sm">
+                <thead className="text-left text-ink-soft">
+                  <tr>
+                    <th scope="col" className="py-1 font-medium">
+                      λ (nm)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      V (rad/(T·m))
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      electric
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      magnetic
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      magnetic share
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      L for 45° (mm)
+                    </th>
+                  </tr>
+                </thead>
+                <tbody className="tabular-nums">
+                  {computed.atMarkers.map((p) => {
+                    const v = p.thetaRad / computed.fieldT;
+                    return (
+                      <tr key={p.wavelengthNm} className="border-t border-ink/10">
+                        <td className="py-0.5">{p.wavelengthNm}</td>
+                        <td className="text-right">{fmt(v, 4)}</td>
+                        <td className="text-right">{fmt(p.thetaElectricRad / computed.fieldT, 4)}</td>
+                        <td className="text-right">{fmt(p.thetaMagneticRad / computed.fieldT, 4)}</td>
+                        <td className="text-right">{fmtPercent(p.magneticShare)}</td>
+                        <td className="text-right">{v !== 0 ? fmt((Math.PI / 4 / Math.abs(v * computed.fieldT)) * 1000, 4) : "–"}</td>
+                      </tr>
+                    );
+                  })}
+                </tbody>
+              </table>
+            </ScrollBox>
           )}
+        </section>
+      ) : null}
+
+      {params ? (
+        <section aria-labelledby="report-rotator">
+          <h2 id="report-rotator" className="text-lg font-semibold">
+            Rotator sizing
+          </h2>
+          <ReportRotator params={params} wavelengthsNm={computed?.atMarkers.map((p) => p.wavelengthNm) ?? []} />
         </section>
       ) : null}
 
@@ -251,16 +326,7 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
         <h2 id="report-fit" className="text-lg font-semibold">
           Latest fit
         </h2>
-        {fit ? (
-          <>
-            <p className="text-sm text-ink-soft">
-              Recorded with version {fit.version} on <DateTime iso={fit.createdAt} />.
-            </p>
-            <ProvenanceTable value={fit.provenance} />
-          </>
-        ) : (
-          <p className="text-sm text-ink-soft">No fit recorded for this set.</p>
-        )}
+        <ReportFit record={fit} />
       </section>
 
       <section aria-labelledby="report-plan">
@@ -281,47 +347,49 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
                 <li key={line}>{line}</li>
               ))}
             </ul>
-            <table className="mt-2 w-full text-sm">
-              <thead className="text-left text-ink-soft">
-                <tr>
-                  <th scope="col" className="py-1 font-medium">
-                    Line
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    λ (nm)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    T (K)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    B (T)
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    ×
-                  </th>
-                  <th scope="col" className="text-right font-medium">
-                    predicted θ (mrad)
-                  </th>
-                </tr>
-              </thead>
-              <tbody className="tabular-nums">
-                {plan.plan.points.map((p, i) => (
-                  <tr key={i} className="border-t border-ink/10">
-                    <td className="py-0.5">
-                      {p.lineName}
-                      {p.belowNoise ? " (below noise)" : ""}
-                      {p.flags?.includes("phase-wrap") ? " (past π/2: unwrap with a field sweep)" : ""}
-                      {p.transmission !== undefined ? ` · transmission ${fmt(100 * p.transmission, 3)} %` : ""}
-                    </td>
-                    <td className="text-right">{p.wavelengthNm}</td>
-                    <td className="text-right">{p.temperatureK}</td>
-                    <td className="text-right">{p.fieldT}</td>
-                    <td className="text-right">{p.count}</td>
-                    <td className="text-right">{fmt(p.rotationRad * 1000, 4)}</td>
+            <ScrollBox>
+              <table className="w-full text-sm">
+                <thead className="text-left text-ink-soft">
+                  <tr>
+                    <th scope="col" className="py-1 font-medium">
+                      Line
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      λ (nm)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      T (K)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      B (T)
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      ×
+                    </th>
+                    <th scope="col" className="text-right font-medium">
+                      predicted θ (mrad)
+                    </th>
                   </tr>
-                ))}
-              </tbody>
-            </table>
+                </thead>
+                <tbody className="tabular-nums">
+                  {plan.plan.points.map((p, i) => (
+                    <tr key={i} className="border-t border-ink/10">
+                      <td className="py-0.5">
+                        {p.lineName}
+                        {p.belowNoise ? " (below noise)" : ""}
+                        {p.flags?.includes("phase-wrap") ? " (past π/2: unwrap with a field sweep)" : ""}
+                        {p.transmission !== undefined ? ` · transmission ${fmt(100 * p.transmission, 3)} %` : ""}
+                      </td>
+                      <td className="text-right">{p.wavelengthNm}</td>
+                      <td className="text-right">{p.temperatureK}</td>
+                      <td className="text-right">{p.fieldT}</td>
+                      <td className="text-right">{p.count}</td>
+                      <td className="text-right">{fmt(p.rotationRad * 1000, 4)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </ScrollBox>
             {plan.plan.notes.length > 0 ? (
               <ul className="mt-2 list-disc pl-5 text-sm">
                 {plan.plan.notes.map((n) => (
@@ -340,40 +408,7 @@ export function ReportView({ set, fit, plan }: { set: ReportSet; fit: Provenance
   );
 }
 
-/** A fit record of unknown shape: scalars as rows; objects with value and sigma as “value ± σ”. */
-function ProvenanceTable({ value }: { value: Record<string, unknown> }) {
-  const rows: [string, string][] = [];
-  const walk = (prefix: string, v: unknown, depth: number) => {
-    if (v === null || v === undefined) return;
-    if (typeof v === "number") rows.push([prefix, fmt(v, 5)]);
-    else if (typeof v === "string" || typeof v === "boolean") rows.push([prefix, String(v)]);
-    else if (Array.isArray(v)) {
-      if (v.every((x) => typeof x === "string" || typeof x === "number"))
-        rows.push([prefix, v.map((x) => (typeof x === "number" ? fmt(x, 5) : x)).join(", ")]);
-      else if (depth < 3) {
-        for (const [i, x] of v.slice(0, 20).entries()) walk(`${prefix}[${i}]`, x, depth + 1);
-      }
-    } else if (typeof v === "object") {
-      const o = v as Record<string, unknown>;
-      const sigma = o.sigma ?? o.stdError ?? o.standardError;
-      if (typeof o.value === "number" && typeof sigma === "number") rows.push([prefix, `${fmt(o.value, 5)} ± ${fmt(sigma, 3)}`]);
-      else if (depth < 3) for (const [k, x] of Object.entries(o)) walk(prefix ? `${prefix}.${k}` : k, x, depth + 1);
-    }
-  };
-  walk("", value, 0);
-  if (rows.length === 0) return <p className="text-sm text-ink-soft">The record holds no values to show.</p>;
-  return (
-    <table className="mt-2 w-full text-sm">
-      <tbody className="tabular-nums">
-        {rows.slice(0, 60).map(([k, v]) => (
-          <tr key={k} className="border-t border-ink/10">
-            <th scope="row" className="py-0.5 text-left font-normal text-ink-soft">
-              {k}
-            </th>
-            <td className="text-right">{v}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
-  );
+/** A table's own horizontal scroll box: a wide table scrolls inside it instead of widening the page. */
+function ScrollBox({ children }: { children: ReactNode }) {
+  return <div className="relative mt-2 overflow-x-auto">{children}</div>;
 }
