@@ -7,7 +7,7 @@ import { zodIssueFields } from "@/lib/contracts/validation";
 import { clientIp } from "./client-ip";
 import { signIn, signOut } from "./config";
 import { rateLimitMessage, signInWaitSeconds } from "./rate-limit";
-import { safeRedirectTarget } from "./redirect-target";
+import { afterSignInTarget } from "./after-sign-in";
 import { signInSchema, signUpSchema } from "@/lib/contracts/accounts";
 import { signUpNeutrally } from "./sign-up";
 
@@ -52,7 +52,7 @@ async function signInAndRedirect(options: { email: string; password: string; red
 export async function signInAction(_prev: AuthFormState, formData: FormData): Promise<AuthFormState> {
   const parsed = signInSchema.safeParse({ email: text(formData, "email"), password: text(formData, "password") });
   if (!parsed.success) return { error: "Check the highlighted fields.", fields: zodIssueFields(parsed.error.issues) };
-  const redirectTo = safeRedirectTarget(text(formData, "redirectTo"));
+  const redirectTo = afterSignInTarget(text(formData, "redirectTo"));
   try {
     const wait = await signInWaitSeconds({ email: parsed.data.email, ip: clientIp(await headers()) });
     if (wait > 0) return { error: rateLimitMessage(wait) };
@@ -83,7 +83,7 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
   const result = await signInAndRedirect({
     email: parsed.data.email,
     password: parsed.data.password,
-    redirectTo: safeRedirectTarget(text(formData, "redirectTo")),
+    redirectTo: afterSignInTarget(text(formData, "redirectTo")),
   });
   // The address already had an account with another password. Say no more than the API does.
   if (result.error === WRONG_CREDENTIALS) return { error: ALREADY_REGISTERED_HINT };
