@@ -38,7 +38,7 @@ const nextConfig = {
   // The physics command line and the workers import lib/physics directly; nothing to transpile.
   reactStrictMode: true,
   poweredByHeader: false,
-  serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "pg-boss"],
+  serverExternalPackages: ["pg", "@node-rs/bcrypt", "nodemailer", "pg-boss"],
   // `npm test` builds into its own folder (lib/settings/build.mjs).
   distDir: buildSettings.nextDistDir,
   // Server actions (sign-in and sign-up forms) get the API's body limit instead of Next's 1 MB.

@@ -176,7 +176,7 @@ export type ApiToken = typeof apiTokens.$inferSelect;
 export type NewApiToken = typeof apiTokens.$inferInsert;
 
 /**
- * Failed sign-ins per (e-mail, client address). Kept in the database rather than in memory so
+ * Failed sign-ins per (e-mail, client key: a known device or the client address). Kept in the database rather than in memory so
  * the limit holds across server restarts and several server processes.
  */
 export const signInFailures = pgTable(
@@ -187,7 +187,8 @@ export const signInFailures = pgTable(
     ip: text("ip").notNull(),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("sign_in_failures_key_idx").on(t.email, t.ip, t.at)],
+  // The second index serves the per-client count across e-mails (password spraying).
+  (t) => [index("sign_in_failures_key_idx").on(t.email, t.ip, t.at), index("sign_in_failures_client_idx").on(t.ip, t.at)],
 );
 export type SignInFailure = typeof signInFailures.$inferSelect;
 

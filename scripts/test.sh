@@ -63,7 +63,7 @@ node scripts/build-cli.mjs
 log "building the production app"
 npx next build
 log "serving it on $GYROLUX_TEST_BASE_URL"
-setsid node_modules/.bin/next start -p "$TEST_PORT" > "${TMPDIR:-/tmp}/gyrolux-test-server-$TEST_PORT.log" 2>&1 &
+setsid node scripts/serve.mjs --port "$TEST_PORT" > "${TMPDIR:-/tmp}/gyrolux-test-server-$TEST_PORT.log" 2>&1 &
 server_pid=$!
 wait_for_http "$GYROLUX_TEST_BASE_URL/api/health"
 

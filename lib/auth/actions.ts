@@ -4,9 +4,8 @@ import { AuthError, CredentialsSignin } from "next-auth";
 import { headers } from "next/headers";
 import { isDbUnavailable } from "@/db/errors";
 import { zodIssueFields } from "@/lib/contracts/validation";
-import { clientIp } from "./client-ip";
 import { signIn, signOut } from "./config";
-import { rateLimitMessage, signInWaitSeconds } from "./rate-limit";
+import { rateLimitMessage, signInClient, signInWaitSeconds } from "./rate-limit";
 import { afterSignInTarget } from "./after-sign-in";
 import { signInSchema, signUpSchema } from "@/lib/contracts/accounts";
 import { signUpNeutrally } from "./sign-up";
@@ -37,7 +36,7 @@ async function signInAndRedirect(options: { email: string; password: string; red
     await signIn("credentials", { ...options });
   } catch (error) {
     if (error instanceof CredentialsSignin && error.code === "rate_limited") {
-      const wait = await signInWaitSeconds({ email: options.email, ip: clientIp(await headers()) }).catch(() => 60);
+      const wait = await signInWaitSeconds(options.email, signInClient(await headers(), options.email)).catch(() => 60);
       return { error: rateLimitMessage(Math.max(wait, 1)) };
     }
     if (error instanceof CredentialsSignin) return { error: WRONG_CREDENTIALS };
@@ -54,7 +53,7 @@ export async function signInAction(_prev: AuthFormState, formData: FormData): Pr
   if (!parsed.success) return { error: "Check the highlighted fields.", fields: zodIssueFields(parsed.error.issues) };
   const redirectTo = afterSignInTarget(text(formData, "redirectTo"));
   try {
-    const wait = await signInWaitSeconds({ email: parsed.data.email, ip: clientIp(await headers()) });
+    const wait = await signInWaitSeconds(parsed.data.email, signInClient(await headers(), parsed.data.email));
     if (wait > 0) return { error: rateLimitMessage(wait) };
   } catch (error) {
     if (isDbUnavailable(error)) return { error: UNAVAILABLE };

@@ -4,9 +4,8 @@ import { DomainError } from "@/lib/contracts/errors";
 import { domainErrorResponse } from "@/lib/api/errors";
 import { errorResponse } from "@/lib/api/route";
 import { isStorableText } from "@/lib/contracts/validation";
-import { clientIp } from "@/lib/auth/client-ip";
 import { handlers } from "@/lib/auth/config";
-import { rateLimitMessage, signInWaitSeconds } from "@/lib/auth/rate-limit";
+import { rateLimitMessage, signInClient, signInWaitSeconds } from "@/lib/auth/rate-limit";
 
 export const GET = handlers.GET;
 
@@ -34,7 +33,7 @@ export async function POST(request: NextRequest): Promise<Response> {
     try {
       const email = form.get("email");
       if (email !== null && email.length <= 320) {
-        const wait = await signInWaitSeconds({ email, ip: clientIp(request.headers) });
+        const wait = await signInWaitSeconds(email, signInClient(request.headers, email));
         if (wait > 0) {
           return domainErrorResponse(new DomainError("rate_limited", rateLimitMessage(wait), { retryAfterS: wait }));
         }
