@@ -12,6 +12,8 @@ export NODE_ENV=production
 PORT="${PORT:-3000}"
 # The demo's passwords are public: serve on the loopback interface unless told otherwise.
 HOST="${GYROLUX_DEMO_HOST:-127.0.0.1}"
+# A demo deployment: the site admin may read the caught mail at /admin/mail.
+export GYROLUX_DEMO="${GYROLUX_DEMO:-1}"
 export GYROLUX_SMTP_PORT="${GYROLUX_SMTP_PORT:-2525}" GYROLUX_PUBLIC_URL="${GYROLUX_PUBLIC_URL:-http://localhost:$PORT}"
 
 ensure_node_modules

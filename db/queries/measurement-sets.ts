@@ -1,4 +1,6 @@
-import { and, asc, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
+import type { Page, PageQuery } from "@/lib/contracts/paging";
+import { decodeCursor, timeIdCursor, toPage } from "../paging";
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
@@ -63,11 +65,11 @@ function toSummary(row: SummaryRow, role: LabRole): MeasurementSetSummary {
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** Sets in the caller's labs (every lab for a site admin), newest first; `lab` narrows to one of them. */
+/** Sets in the caller's labs (every lab for a site admin), newest first, a page at a time; `lab` narrows to one of them. */
 export async function listMeasurementSets(
   db: Executor,
-  options: { caller: Caller; lab?: ResourceAccess<"lab">; q?: string },
-): Promise<MeasurementSetSummary[]> {
+  options: { caller: Caller; lab?: ResourceAccess<"lab">; q?: string; page: PageQuery },
+): Promise<Page<MeasurementSetSummary>> {
   const isAdmin = options.caller.siteRole === "admin";
   const conditions: (SQL | undefined)[] = [];
   if (!isAdmin) conditions.push(eq(labMemberships.userId, options.caller.id));
@@ -78,18 +80,25 @@ export async function listMeasurementSets(
       or(ilike(measurementSets.name, pattern), ilike(measurementSets.sample, pattern), ilike(measurementSets.fileName, pattern)),
     );
   }
+  const after = decodeCursor(options.page.cursor, timeIdCursor);
+  if (after) conditions.push(sql`(${measurementSets.createdAt}, ${measurementSets.id}) < (${after[0]}::timestamptz, ${after[1]}::uuid)`);
+  // Non-members' sets are filtered in SQL (not after the fetch), so every page is full.
+  if (!isAdmin) conditions.push(sql`${labMemberships.role} is not null`);
   const rows = await db
-    .select({ ...summaryColumns, memberRole: labMemberships.role })
+    .select({ ...summaryColumns, memberRole: labMemberships.role, cursorAt: sql<string>`${measurementSets.createdAt}::text` })
     .from(measurementSets)
     .innerJoin(labs, eq(labs.id, measurementSets.labId))
     .innerJoin(users, eq(users.id, measurementSets.createdById))
     .leftJoin(labMemberships, and(eq(labMemberships.labId, measurementSets.labId), eq(labMemberships.userId, options.caller.id)))
     .where(and(...conditions))
-    .orderBy(desc(measurementSets.createdAt), desc(measurementSets.id));
-  return rows.flatMap((row) => {
-    const role: LabRole | null = isAdmin ? "owner" : row.memberRole;
-    return role ? [toSummary(row, role)] : [];
-  });
+    .orderBy(desc(measurementSets.createdAt), desc(measurementSets.id))
+    .limit(options.page.limit + 1);
+  return toPage(
+    rows,
+    options.page.limit,
+    (row) => toSummary(row, isAdmin ? "owner" : (row.memberRole ?? "viewer")),
+    (row) => [row.cursorAt, row.id],
+  );
 }
 
 async function loadSummary(db: Executor, options: { id: string; labId: string; role: LabRole }): Promise<MeasurementSetSummary | null> {

@@ -114,9 +114,7 @@ export async function isPasswordResetLive(db: Executor, options: { tokenHash: st
   const [reset] = await db
     .select({ id: passwordResets.id })
     .from(passwordResets)
-    .where(
-      and(eq(passwordResets.tokenHash, options.tokenHash), isNull(passwordResets.usedAt), sql`${passwordResets.expiresAt} > now()`),
-    )
+    .where(and(eq(passwordResets.tokenHash, options.tokenHash), isNull(passwordResets.usedAt), sql`${passwordResets.expiresAt} > now()`))
     .limit(1);
   return reset !== undefined;
 }
@@ -143,7 +141,13 @@ export async function resetPasswordWithToken(
       .returning({ email: users.email });
     if (!user) return { ok: false as const };
     await recordAudit(tx, {
-      entry: { actorId: reset.userId, action: "user.password_reset", targetType: "user", targetId: reset.userId, details: { tokensRevoked } },
+      entry: {
+        actorId: reset.userId,
+        action: "user.password_reset",
+        targetType: "user",
+        targetId: reset.userId,
+        details: { tokensRevoked },
+      },
     });
     return { ok: true as const, email: user.email, tokensRevoked };
   });
