@@ -14,7 +14,7 @@ import type {
   CreateParameterSetInput,
   UpdateParameterSetInput,
 } from "@/lib/contracts/parameter-sets";
-import { type SaveFitInput } from "@/lib/contracts/fits";
+import type { SaveFitInput } from "@/lib/contracts/fits";
 import { fitProvenance } from "@/lib/fit/provenance";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import type { Executor, Tx } from "../executor";

@@ -8,7 +8,9 @@ import type { Caller, ResourceAccess, ResourceKind } from "@/lib/contracts/acces
 import { DomainError, forbidden, notFound, unauthenticated } from "@/lib/contracts/errors";
 import { type LabRole, roleAtLeast } from "@/lib/contracts/roles";
 import { isUuid } from "@/lib/contracts/validation";
+import { serverSettings } from "@/lib/settings/server";
 import { auth } from "./config";
+import { isSameOriginRequest } from "./same-origin";
 import { bearerToken, hashToken } from "./tokens";
 
 /*
@@ -50,29 +52,11 @@ export async function getSessionUser() {
   return user;
 }
 
-const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
-
-/**
- * A cookie rides along with any request the browser makes, including a form or fetch that
- * another page of the same site starts. Browsers send Origin (and Sec-Fetch-Site) with every
- * request that is not GET/HEAD, so a cookie-authenticated change must come from our own origin;
- * clients that send neither header (scripts) are not browsers and cannot be made to carry the
- * cookie by a page.
- */
+/** Refuses a cookie-authenticated change that did not come from our own origin (lib/auth/same-origin.ts). */
 export function requireSameOrigin(request: Request): void {
-  if (SAFE_METHODS.has(request.method.toUpperCase())) return;
-  const fetchSite = request.headers.get("sec-fetch-site");
-  if (fetchSite !== null && fetchSite !== "same-origin" && fetchSite !== "none") throw crossOrigin();
-  const origin = request.headers.get("origin");
-  if (origin === null) return;
-  const host = request.headers.get("host");
-  let originHost: string | null = null;
-  try {
-    originHost = new URL(origin).host;
-  } catch {
-    originHost = null;
+  if (!isSameOriginRequest({ method: request.method, headers: request.headers, publicUrl: serverSettings.site.publicUrl })) {
+    throw crossOrigin();
   }
-  if (!host || originHost !== host) throw crossOrigin();
 }
 
 const crossOrigin = () => new DomainError("forbidden", "This change must come from a Gyrolux page: the request came from another origin.");

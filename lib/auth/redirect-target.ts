@@ -7,6 +7,7 @@
  */
 
 // C0 and C1 controls, DEL, every Unicode space (\s covers U+3000 and friends) and backslashes.
+// biome-ignore lint/suspicious/noControlCharactersInRegex: finding control characters is the point
 const UNSAFE = /[\u0000-\u001f\u007f-\u009f\s\\]/u;
 const NEVER_AFTER_SIGN_IN = ["/sign-in", "/sign-up", "/api/"];
 

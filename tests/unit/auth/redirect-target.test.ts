@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { safeRedirectTarget } from "@/lib/auth/redirect-target";
+import { isSameOriginRequest } from "@/lib/auth/same-origin";
 
 const PUBLIC = "https://gyrolux.example.org";
 const FALLBACK = "/parameter-sets";
@@ -35,5 +36,22 @@ describe("the page after sign-in is a same-origin path only", () => {
   });
   it("resolves dot segments and still stays home", () => {
     expect(safeRedirectTarget("/a/../../workbench", PUBLIC)).toBe("/workbench");
+  });
+});
+
+describe("a cookie-authenticated change must come from the public origin, scheme included", () => {
+  const check = (headers: Record<string, string>, method = "POST") =>
+    isSameOriginRequest({ method, headers: new Headers(headers), publicUrl: PUBLIC });
+  it("accepts our own origin, reads, and scripts that send no Origin", () => {
+    expect(check({ origin: PUBLIC })).toBe(true);
+    expect(check({ origin: "http://evil.test" }, "GET")).toBe(true);
+    expect(check({})).toBe(true);
+  });
+  it("refuses another scheme, host or port, and cross-site fetches", () => {
+    expect(check({ origin: "http://gyrolux.example.org" })).toBe(false);
+    expect(check({ origin: "https://gyrolux.example.org:8443" })).toBe(false);
+    expect(check({ origin: "https://evil.test", host: "gyrolux.example.org" })).toBe(false);
+    expect(check({ origin: "null" })).toBe(false);
+    expect(check({ "sec-fetch-site": "cross-site" })).toBe(false);
   });
 });

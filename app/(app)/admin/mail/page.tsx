@@ -20,8 +20,8 @@ export default async function CaughtMailPage() {
         lead={`The newest 100 messages the local mail catcher stored in ${dir}. Nothing here was delivered.`}
       />
       <p role="note" className="mb-4 rounded-lg border border-amber-700/40 bg-amber-50 px-4 py-3 text-sm text-amber-950">
-        Demo deployment only. The links below are live: a reset or invitation link works for whoever opens it, until it is used
-        or expires. Do not share this page or copy links out of it.
+        Demo deployment only. The links below are live: a reset or invitation link works for whoever opens it, until it is used or expires.
+        Do not share this page or copy links out of it.
       </p>
       {items.length === 0 ? (
         <p className="rounded-lg border border-dashed border-ink/20 px-5 py-6">No mail caught yet.</p>

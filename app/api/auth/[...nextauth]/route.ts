@@ -1,4 +1,6 @@
-import { NextRequest } from "next/server";
+import { NextRequest, NextResponse } from "next/server";
+import { getSessionUser } from "@/lib/auth/access";
+import { isSessionCookieName } from "@/lib/auth/session-cookie";
 import { readText } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
 import { domainErrorResponse } from "@/lib/api/errors";
@@ -7,7 +9,39 @@ import { isStorableText } from "@/lib/contracts/validation";
 import { handlers } from "@/lib/auth/config";
 import { rateLimitMessage, signInClient, signInWaitSeconds } from "@/lib/auth/rate-limit";
 
-export const GET = handlers.GET;
+/*
+ * The session cookie is a JWT, which Auth.js alone would keep answering (and refreshing) until it
+ * expires. An ended session (sign-out elsewhere, a password change or reset, "sign out
+ * everywhere") has an older session version than the user's: it is answered as signed out and its
+ * cookie is cleared, instead of being handed a fresh expiry.
+ */
+export async function GET(request: NextRequest): Promise<Response> {
+  if (new URL(request.url).pathname.endsWith("/session") && hasSessionCookie(request)) {
+    try {
+      if (!(await getSessionUser())) return signedOut(request);
+    } catch (error) {
+      return errorResponse(error, request);
+    }
+  }
+  return handlers.GET(request);
+}
+
+function sessionCookieNames(request: NextRequest): string[] {
+  return request.cookies
+    .getAll()
+    .map(({ name }) => name)
+    .filter(isSessionCookieName);
+}
+
+const hasSessionCookie = (request: NextRequest) => sessionCookieNames(request).length > 0;
+
+function signedOut(request: NextRequest): Response {
+  const response = NextResponse.json(null, { headers: { "cache-control": "private, no-store" } });
+  for (const name of sessionCookieNames(request)) {
+    response.cookies.set(name, "", { path: "/", maxAge: 0, httpOnly: true, sameSite: "lax", secure: name.startsWith("__Secure-") });
+  }
+  return response;
+}
 
 /*
  * Every Auth.js POST (sign-in, sign-out) is read here first under the API's 64 KiB limit, so an
