@@ -42,6 +42,9 @@ export const users = pgTable(
     // Bumped by sign-out, a password change or reset and "end all sessions"; a session cookie
     // carrying an older number no longer signs anything in.
     sessionVersion: integer("session_version").notNull().default(0),
+    // False from sign-up until the mailed link is opened; an unconfirmed account may not invite.
+    // The default true covers accounts made before addresses were confirmed, and the seed.
+    emailVerified: boolean("email_verified").notNull().default(true),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -404,6 +407,47 @@ export const passwordResets = pgTable(
   },
   (t) => [uniqueIndex("password_resets_token_hash_unique").on(t.tokenHash), index("password_resets_user_idx").on(t.userId)],
 );
+
+/** A single-use link that confirms a new account's e-mail address. */
+export const emailVerifications = pgTable(
+  "email_verifications",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull(),
+    createdAt: createdAt(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+  },
+  (t) => [uniqueIndex("email_verifications_token_hash_unique").on(t.tokenHash), index("email_verifications_user_idx").on(t.userId)],
+);
+
+/**
+ * Mail waiting to be sent, written in the same transaction as what caused it (an invitation, a
+ * reset link, a sign-up), so mail is never lost when SMTP is down and never sent for a change
+ * that rolled back. lib/mail/outbox.ts sends it with retries; the body (which carries a secret
+ * link) is blanked once sent.
+ */
+export const mailOutbox = pgTable(
+  "mail_outbox",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    kind: text("kind").notNull(),
+    recipient: text("recipient").notNull(),
+    subject: text("subject").notNull(),
+    body: text("body").notNull(),
+    createdAt: createdAt(),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    gaveUpAt: timestamp("gave_up_at", { withTimezone: true }),
+    lastError: text("last_error"),
+  },
+  (t) => [index("mail_outbox_due_idx").on(t.nextAttemptAt).where(sql`${t.sentAt} is null and ${t.gaveUpAt} is null`)],
+);
+export type MailOutboxRow = typeof mailOutbox.$inferSelect;
 
 /** A read-only link to one parameter set; anyone holding it sees that set's workbench. */
 export const shareLinks = pgTable(

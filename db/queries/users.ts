@@ -2,7 +2,7 @@ import { and, eq, isNull, sql } from "drizzle-orm";
 import type { Caller } from "@/lib/contracts/access";
 import { uniqueViolation } from "../errors";
 import type { Executor } from "../executor";
-import { apiTokens, labMemberships, labs, passwordResets, type User, users } from "../schema";
+import { apiTokens, emailVerifications, labMemberships, labs, passwordResets, type User, users } from "../schema";
 import { recordAudit } from "./audit";
 
 export async function findUserByEmail(db: Executor, options: { email: string }): Promise<User | null> {
@@ -32,7 +32,7 @@ export async function createAccount(
     return await db.transaction(async (tx) => {
       const [user] = await tx
         .insert(users)
-        .values({ name: options.name, email: options.email.trim().toLowerCase(), passwordHash: options.passwordHash })
+        .values({ name: options.name, email: options.email.trim().toLowerCase(), passwordHash: options.passwordHash, emailVerified: false })
         .returning({ id: users.id, email: users.email, name: users.name });
       if (!user) throw new Error("insert into users returned no row");
       const [lab] = await tx
@@ -167,5 +167,38 @@ export async function changePassword(db: Executor, options: { userId: string; pa
     await recordAudit(tx, {
       entry: { actorId: options.userId, action: "user.password_change", targetType: "user", targetId: options.userId, details: {} },
     });
+  });
+}
+
+/** A new single-use link confirming the user's address; earlier unused ones stop working. */
+export async function createEmailVerification(db: Executor, options: { userId: string; tokenHash: string; ttlMs: number }): Promise<void> {
+  await db
+    .update(emailVerifications)
+    .set({ usedAt: new Date() })
+    .where(and(eq(emailVerifications.userId, options.userId), isNull(emailVerifications.usedAt)));
+  await db
+    .insert(emailVerifications)
+    .values({ userId: options.userId, tokenHash: options.tokenHash, expiresAt: new Date(Date.now() + options.ttlMs) });
+}
+
+/** Confirms the address of the link's user if the link is live; marks it used (row locked: works once). */
+export async function confirmEmailVerification(
+  db: Executor,
+  options: { tokenHash: string },
+): Promise<{ ok: true; email: string } | { ok: false }> {
+  return db.transaction(async (tx) => {
+    const [link] = await tx.select().from(emailVerifications).where(eq(emailVerifications.tokenHash, options.tokenHash)).for("update");
+    if (!link || link.usedAt || link.expiresAt.getTime() <= Date.now()) return { ok: false as const };
+    await tx.update(emailVerifications).set({ usedAt: new Date() }).where(eq(emailVerifications.id, link.id));
+    const [user] = await tx
+      .update(users)
+      .set({ emailVerified: true, updatedAt: new Date() })
+      .where(eq(users.id, link.userId))
+      .returning({ email: users.email });
+    if (!user) return { ok: false as const };
+    await recordAudit(tx, {
+      entry: { actorId: link.userId, action: "user.email_verified", targetType: "user", targetId: link.userId, details: {} },
+    });
+    return { ok: true as const, email: user.email };
   });
 }

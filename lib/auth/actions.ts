@@ -7,6 +7,7 @@ import { zodIssueFields } from "@/lib/contracts/validation";
 import { signIn, signOut } from "./config";
 import { rateLimitMessage, signInClient, signInWaitSeconds } from "./rate-limit";
 import { afterSignInTarget } from "./after-sign-in";
+import { clientIp } from "./client-ip";
 import { signInSchema, signUpSchema } from "@/lib/contracts/accounts";
 import { signUpNeutrally } from "./sign-up";
 
@@ -73,8 +74,8 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
   if (confirm !== undefined && confirm !== text(formData, "password")) fields.confirmPassword = "The passwords do not match.";
   if (!parsed.success || Object.keys(fields).length > 0) return { error: "Check the highlighted fields.", fields };
   try {
-    if ((await signUpNeutrally(parsed.data)) === "throttled")
-      return { error: "Too many sign-up attempts for this address. Try again in an hour." };
+    if ((await signUpNeutrally(parsed.data, { address: clientIp(await headers()) })) === "throttled")
+      return { error: "Too many sign-up attempts from here or for this address. Try again in an hour." };
   } catch (error) {
     if (isDbUnavailable(error)) return { error: "Signing up is unavailable right now (the database is not reachable). Try again shortly." };
     throw error;
