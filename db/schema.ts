@@ -103,7 +103,12 @@ export const parameterSets = pgTable(
       .references(() => users.id),
     updatedAt: updatedAt(),
   },
-  (t) => [unique("parameter_sets_lab_name_unique").on(t.labId, t.name), index("parameter_sets_lab_idx").on(t.labId)],
+  // The list's keyset order within a lab (newest change first), so a page reads its rows in order instead of sorting the lab.
+  (t) => [
+    unique("parameter_sets_lab_name_unique").on(t.labId, t.name),
+    index("parameter_sets_lab_idx").on(t.labId),
+    index("parameter_sets_lab_updated_idx").on(t.labId, t.updatedAt, t.id),
+  ],
 );
 export type ParameterSetRow = typeof parameterSets.$inferSelect;
 export type NewParameterSetRow = typeof parameterSets.$inferInsert;
@@ -284,7 +289,11 @@ export const measurementSets = pgTable(
       .references(() => users.id),
     createdAt: createdAt(),
   },
-  (t) => [unique("measurement_sets_lab_name_unique").on(t.labId, t.name), index("measurement_sets_lab_idx").on(t.labId)],
+  (t) => [
+    unique("measurement_sets_lab_name_unique").on(t.labId, t.name),
+    index("measurement_sets_lab_idx").on(t.labId),
+    index("measurement_sets_lab_created_idx").on(t.labId, t.createdAt, t.id),
+  ],
 );
 export type MeasurementSetRow = typeof measurementSets.$inferSelect;
 export type NewMeasurementSetRow = typeof measurementSets.$inferInsert;

@@ -1,7 +1,7 @@
 import "server-only";
 import { headers as nextHeaders } from "next/headers";
 import { db } from "@/db/client";
-import { findLabMembership, findResourceLabId } from "@/db/queries/resource-labs";
+import { findResourceMembership } from "@/db/queries/resource-labs";
 import { findUserByTokenHash } from "@/db/queries/tokens";
 import { findUserById } from "@/db/queries/users";
 import type { Caller, ResourceAccess, ResourceKind } from "@/lib/contracts/access";
@@ -9,8 +9,8 @@ import { DomainError, forbidden, notFound, unauthenticated } from "@/lib/contrac
 import { type LabRole, roleAtLeast } from "@/lib/contracts/roles";
 import { isUuid } from "@/lib/contracts/validation";
 import { serverSettings } from "@/lib/settings/server";
-import { auth } from "./config";
 import { isSameOriginRequest } from "./same-origin";
+import { sessionClaims } from "./session-token";
 import { bearerToken, hashToken } from "./tokens";
 
 /*
@@ -32,7 +32,7 @@ export async function getCaller(request?: Request): Promise<Caller | null> {
     if (!user) throw new DomainError("unauthenticated", "This API token is unknown or revoked.");
     return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "token" };
   }
-  const user = await getSessionUser();
+  const user = await getSessionUser(request);
   if (!user) return null;
   if (request) requireSameOrigin(request);
   return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "session" };
@@ -43,12 +43,12 @@ export async function getCaller(request?: Request): Promise<Caller | null> {
  * user's session version is checked on every request: sign-out, a password change or reset and
  * "end all sessions" move it on, and older cookies stop working at once.
  */
-export async function getSessionUser() {
-  const session = await auth();
-  const id = session?.user?.id;
-  if (!id || !isUuid(id)) return null;
-  const user = await findUserById(db, { id });
-  if (!user || user.sessionVersion !== session.user.sessionVersion) return null;
+export async function getSessionUser(request?: Request) {
+  const headers = request?.headers ?? (await nextHeaders());
+  const claims = await sessionClaims(headers.get("cookie"));
+  if (!claims || !isUuid(claims.id)) return null;
+  const user = await findUserById(db, { id: claims.id });
+  if (!user || user.sessionVersion !== claims.sv) return null;
   return user;
 }
 
@@ -96,10 +96,9 @@ export async function authorize<K extends ResourceKind>(
 ): Promise<ResourceAccess<K>> {
   const missing = () => notFound(NOT_FOUND[resource.kind]);
   if (!isUuid(resource.id)) throw missing();
-  const labId = await findResourceLabId(db, resource);
-  if (!labId) throw missing();
-  const membership = await findLabMembership(db, { labId, userId: caller.id });
+  const membership = await findResourceMembership(db, { kind: resource.kind, id: resource.id, userId: caller.id });
   if (!membership) throw missing();
+  const labId = membership.labId;
   const role: LabRole | null = caller.siteRole === "admin" ? "owner" : membership.role;
   if (!role) throw missing();
   if (!roleAtLeast(role, minRole)) throw forbidden(`This needs the ${minRole} role in ${membership.labName}; you are ${role}.`);

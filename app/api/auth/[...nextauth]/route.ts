@@ -18,7 +18,7 @@ import { rateLimitMessage, signInClient, signInWaitSeconds } from "@/lib/auth/ra
 export async function GET(request: NextRequest): Promise<Response> {
   if (new URL(request.url).pathname.endsWith("/session") && hasSessionCookie(request)) {
     try {
-      if (!(await getSessionUser())) return signedOut(request);
+      if (!(await getSessionUser(request))) return signedOut(request);
     } catch (error) {
       return errorResponse(error, request);
     }

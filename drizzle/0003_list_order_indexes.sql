@@ -1,0 +1,2 @@
+CREATE INDEX "measurement_sets_lab_created_idx" ON "measurement_sets" USING btree ("lab_id","created_at","id");--> statement-breakpoint
+CREATE INDEX "parameter_sets_lab_updated_idx" ON "parameter_sets" USING btree ("lab_id","updated_at","id");
