@@ -40,3 +40,8 @@ export function cookieValue(cookieHeader: string | null, name: string): string |
   }
   return null;
 }
+
+/** The Set-Cookie header value of a device cookie. */
+export function deviceSetCookie(value: string, secure: boolean): string {
+  return `${DEVICE_COOKIE}=${value}; Path=/; Max-Age=${DEVICE_COOKIE_MAX_AGE_S}; HttpOnly; SameSite=Lax${secure ? "; Secure" : ""}`;
+}

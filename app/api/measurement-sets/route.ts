@@ -1,7 +1,7 @@
 import { db } from "@/db/client";
 import { createMeasurementSet, listMeasurementSets } from "@/db/queries/measurement-sets";
 import { DomainError, validationError } from "@/lib/contracts/errors";
-import { cleanFileName } from "@/lib/contracts/validation";
+import { cleanFileName, isStorableText, TEXT_PROBLEM } from "@/lib/contracts/validation";
 import { withStorage } from "@/lib/api/storage";
 import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
 import { parseJsonText } from "@/lib/api/body";
@@ -71,6 +71,8 @@ export const POST = apiRoute(async (request) => {
   const file = form.get("file");
   if (!(file instanceof File)) throw new DomainError("validation", "Choose a CSV or TSV file.", { fields: { file: "Choose a file." } });
   if (file.size > MAX_FILE_BYTES) throw tooLarge(file.size);
+  if (!isStorableText(file.name))
+    throw new DomainError("validation", `The file name cannot be stored: ${TEXT_PROBLEM}`, { fields: { file: TEXT_PROBLEM } });
   const bytes = new Uint8Array(await file.arrayBuffer());
   let text: string;
   try {

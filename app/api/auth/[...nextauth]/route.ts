@@ -1,6 +1,8 @@
 import { NextRequest, NextResponse } from "next/server";
 import { getSessionUser } from "@/lib/auth/access";
 import { isSessionCookieName } from "@/lib/auth/session-cookie";
+import { DEVICE_COOKIE, deviceSetCookie, newDeviceCookie } from "@/lib/auth/device";
+import { serverSettings } from "@/lib/settings/server";
 import { readText } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
 import { domainErrorResponse } from "@/lib/api/errors";
@@ -78,5 +80,27 @@ export async function POST(request: NextRequest): Promise<Response> {
   }
   const headers = new Headers(request.headers);
   headers.delete("content-length");
-  return handlers.POST(new NextRequest(request.url, { method: "POST", headers, body: text }));
+  const response = await handlers.POST(new NextRequest(request.url, { method: "POST", headers, body: text }));
+  return withDeviceCookie(request, form, response);
+}
+
+/**
+ * After a successful credentials sign-in, the browser gets its device cookie for the account
+ * (lib/auth/device.ts), unless it already holds a valid one or authorize() set it.
+ */
+function withDeviceCookie(request: NextRequest, form: URLSearchParams, response: Response): Response {
+  const email = form.get("email");
+  const secret = serverSettings.auth.secret;
+  if (!new URL(request.url).pathname.endsWith("/callback/credentials") || !email || !secret) return response;
+  const setCookies = response.headers.getSetCookie();
+  const signedIn = setCookies.some((line) => isSessionCookieName(line.slice(0, line.indexOf("="))) && !/max-age=0/i.test(line));
+  if (!signedIn || setCookies.some((line) => line.startsWith(`${DEVICE_COOKIE}=`))) return response;
+  if (signInClient(request.headers, email).deviceId) return response;
+  // A copy: the answer Auth.js built may carry immutable headers.
+  const headers = new Headers(response.headers);
+  headers.append(
+    "set-cookie",
+    deviceSetCookie(newDeviceCookie(secret, email.trim().toLowerCase()), serverSettings.site.publicUrl.startsWith("https:")),
+  );
+  return new Response(response.body, { status: response.status, statusText: response.statusText, headers });
 }
