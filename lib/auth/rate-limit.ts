@@ -17,7 +17,8 @@ import { cookieValue, DEVICE_COOKIE, verifiedDeviceId } from "./device";
  *  - e-mail: this e-mail from every unknown client, 20 free, against guessing spread over many
  *    addresses; it applies only to a client that has itself failed recently, so strangers never
  *    block the owner signing in from a clean address, and never to a known device;
- *  - client: this address across every e-mail, 100 free, against password spraying.
+ *  - client: this address across every e-mail, 100 free (GYROLUX_SIGN_IN_FAILURES_PER_CLIENT),
+ *    against password spraying.
  * A browser that signed in to the account before carries a device cookie (lib/auth/device.ts):
  * strangers' failures never lock it out, only its own.
  */
@@ -25,6 +26,7 @@ import { cookieValue, DEVICE_COOKIE, verifiedDeviceId } from "./device";
 export const FAILURE_WINDOW_MS = 15 * 60 * 1000;
 export const FREE_FAILURES = 5;
 export const FREE_FAILURES_ANY_ADDRESS = 20;
+/** The default of GYROLUX_SIGN_IN_FAILURES_PER_CLIENT. */
 export const FREE_FAILURES_PER_CLIENT = 100;
 const BASE_DELAY_MS = 30 * 1000;
 
@@ -62,11 +64,11 @@ function waitMs(failures: Date[], free: number, now: number): number {
 }
 
 /** The decision itself, on the window's failures (newest first): milliseconds still to wait. */
-export function signInWaitMs(window: FailureWindow, options: { knownDevice: boolean; now: number }): number {
+export function signInWaitMs(window: FailureWindow, options: { knownDevice: boolean; now: number; freePerClient?: number }): number {
   const own = waitMs(window.own, FREE_FAILURES, options.now);
   if (options.knownDevice) return Math.max(own, 0);
   const email = window.own.length > 0 ? waitMs(window.emailWide, FREE_FAILURES_ANY_ADDRESS, options.now) : 0;
-  const client = waitMs(window.clientWide, FREE_FAILURES_PER_CLIENT, options.now);
+  const client = waitMs(window.clientWide, options.freePerClient ?? FREE_FAILURES_PER_CLIENT, options.now);
   return Math.max(own, email, client, 0);
 }
 
@@ -75,7 +77,8 @@ const seconds = (ms: number) => (ms > 0 ? Math.ceil(ms / 1000) : 0);
 /** Seconds the client must still wait, or 0 when an attempt is allowed (a read, nothing reserved). */
 export async function signInWaitSeconds(email: string, client: SignInClient): Promise<number> {
   const window = await failures.peekSignInFailures(db, key(email, client));
-  return seconds(signInWaitMs(window, { knownDevice: client.deviceId !== null, now: Date.now() }));
+  const freePerClient = serverSettings.auth.signInFailuresPerClient;
+  return seconds(signInWaitMs(window, { knownDevice: client.deviceId !== null, now: Date.now(), freePerClient }));
 }
 
 /**
@@ -88,7 +91,10 @@ export async function reserveSignInAttempt(
 ): Promise<{ allowed: false; waitS: number } | { allowed: true; succeeded: () => Promise<void> }> {
   const attemptKey = key(email, client);
   const knownDevice = client.deviceId !== null;
-  const outcome = await failures.reserveSignInAttempt(db, attemptKey, (window) => signInWaitMs(window, { knownDevice, now: Date.now() }));
+  const freePerClient = serverSettings.auth.signInFailuresPerClient;
+  const outcome = await failures.reserveSignInAttempt(db, attemptKey, (window) =>
+    signInWaitMs(window, { knownDevice, now: Date.now(), freePerClient }),
+  );
   if (!outcome.reserved) return { allowed: false, waitS: Math.max(1, seconds(outcome.waitMs)) };
   return {
     allowed: true,
