@@ -487,6 +487,19 @@ export const requestThrottle = pgTable(
   (t) => [index("request_throttle_key_idx").on(t.kind, t.key, t.at)],
 );
 
+/**
+ * Objects in the store that may have no row: written before an import's transaction (removed in
+ * it), or left by a delete while the store was down. db/queries/object-sweep.ts deletes each once
+ * no measurement set refers to its key, retrying while the store is down.
+ */
+export const pendingObjectDeletes = pgTable("pending_object_deletes", {
+  objectKey: text("object_key").primaryKey(),
+  reason: text("reason").$type<"upload" | "delete">().notNull(),
+  createdAt: createdAt(),
+  attempts: integer("attempts").notNull().default(0),
+  lastError: text("last_error"),
+});
+
 /* ---------- Lab runs: long computations on the job queue (workers/lab-runs) ---------- */
 
 export const labRunStateEnum = pgEnum("lab_run_state", LAB_RUN_STATES);

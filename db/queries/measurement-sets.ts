@@ -6,7 +6,8 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
 import type { Executor } from "../executor";
 import { importMeasurementSet, type MeasurementImport } from "../measurement-import";
-import { labMemberships, labs, measurementPoints, measurementSets, users } from "../schema";
+import { labMemberships, labs, measurementPoints, measurementSets, pendingObjectDeletes, users } from "../schema";
+import { sweepObjects } from "./object-sweep";
 import type { LabRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
 import type { Caller, ResourceAccess } from "@/lib/contracts/access";
@@ -196,6 +197,8 @@ export async function deleteMeasurementSet(db: Executor, options: { access: Meas
         objectKey: measurementSets.objectKey,
       });
     if (!row) return null;
+    // The object goes after the commit; recorded here so a store that is down cannot leave it for good.
+    await tx.insert(pendingObjectDeletes).values({ objectKey: row.objectKey, reason: "delete" }).onConflictDoNothing();
     await recordAudit(tx, {
       entry: {
         actorId: access.caller.id,
@@ -209,9 +212,9 @@ export async function deleteMeasurementSet(db: Executor, options: { access: Meas
     return row;
   });
   if (!deleted) return false;
-  await options.store.delete(deleted.objectKey).catch((error: unknown) => {
+  await sweepObjects(db, { store: options.store, keys: [deleted.objectKey] }).catch((error: unknown) => {
     console.error(
-      `[measurements] could not remove ${deleted.objectKey} after deleting its set:`,
+      `[measurements] could not remove ${deleted.objectKey} after deleting its set (left for the sweep):`,
       error instanceof Error ? error.message : error,
     );
   });
