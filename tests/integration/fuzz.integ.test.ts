@@ -354,7 +354,8 @@ async function fixedCases(options: { owner: Client; lab: string; setId: string }
   cases.push({ label: "upload NUL in file name", field: "file", send: post(uploadForm({ lab, fileName: "a\u0000b.csv" })) });
   cases.push({
     label: "upload NUL in a mapped header",
-    field: "mapping.wavelengthColumn",
+    // The mapping's JSON text holds the NUL, so the one JSON reader refuses the field as a whole.
+    field: "mapping",
     send: post(
       uploadForm({
         lab,
