@@ -4,8 +4,11 @@ const buildSettings = readBuildSettings();
 
 /*
  * Security headers on every answer. The Content-Security-Policy is what the app itself needs:
- * Next's inline bootstrap scripts and styles ('unsafe-inline', as Next does not nonce a static
- * build), module Web Workers from our own origin (worker-src 'self'), SVG/PNG exports through
+ * Next's inline bootstrap scripts and styles ('unsafe-inline': Next nonces its scripts only when a
+ * nonce is minted per request in the proxy and every page renders per request; our prerendered
+ * pages, the public ones, would lose their static build and the CDN-cacheable answer, so the
+ * nonce is not used; no page renders user text as HTML, which is what 'unsafe-inline' would
+ * expose), module Web Workers from our own origin (worker-src 'self'), SVG/PNG exports through
  * blob: and data: URLs (img-src), and no framing by anyone (frame-ancestors 'none'). The
  * development server also evaluates code for fast refresh, hence 'unsafe-eval' there only.
  */
@@ -31,6 +34,10 @@ const securityHeaders = [
   { key: "X-Content-Type-Options", value: "nosniff" },
   { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
   { key: "Permissions-Policy", value: "camera=(), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()" },
+  // Behind TLS only (GYROLUX_HSTS_MAX_AGE > 0): browsers then refuse plain http for this host.
+  ...(buildSettings.hstsMaxAgeS > 0
+    ? [{ key: "Strict-Transport-Security", value: `max-age=${buildSettings.hstsMaxAgeS}; includeSubDomains` }]
+    : []),
 ];
 
 /** @type {import('next').NextConfig} */
@@ -38,7 +45,7 @@ const nextConfig = {
   // The physics command line and the workers import lib/physics directly; nothing to transpile.
   reactStrictMode: true,
   poweredByHeader: false,
-  serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "pg-boss"],
+  serverExternalPackages: ["pg", "@node-rs/bcrypt", "nodemailer", "pg-boss"],
   // `npm test` builds into its own folder (lib/settings/build.mjs).
   distDir: buildSettings.nextDistDir,
   // Server actions (sign-in and sign-up forms) get the API's body limit instead of Next's 1 MB.

@@ -1,4 +1,5 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { isSessionCookieName } from "@/lib/auth/session-cookie";
 
 /*
  * Runs before routing. Two jobs:
@@ -10,11 +11,8 @@ import { NextResponse, type NextRequest } from "next/server";
  *   route handler and action still checks the session itself.
  */
 
-const SESSION_COOKIES = ["authjs.session-token", "__Secure-authjs.session-token"];
-
 function hasSessionCookie(request: NextRequest): boolean {
-  // Large JWTs are split into chunks named "<cookie>.0", "<cookie>.1", …
-  return request.cookies.getAll().some(({ name }) => SESSION_COOKIES.some((base) => name === base || name.startsWith(`${base}.`)));
+  return request.cookies.getAll().some(({ name }) => isSessionCookieName(name));
 }
 
 function decodesCleanly(path: string): boolean {

@@ -7,7 +7,7 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
 import type { Executor } from "./executor";
 import { recordAudit } from "./queries/audit";
-import { measurementPoints, measurementSets } from "./schema";
+import { measurementPoints, measurementSets, pendingObjectDeletes } from "./schema";
 
 /*
  * Importing a measurement set as one unit: the original file into object storage first, then the
@@ -76,6 +76,9 @@ export async function importMeasurementSet(options: {
 
   const id = options.id ?? randomUUID();
   const objectKey = objectKeyFor({ labId: input.labId, setId: id, fileName: input.fileName });
+  // Recorded before the object exists and removed in the import's own transaction: if the process
+  // dies in between, the sweep (db/queries/object-sweep.ts) removes the object no row names.
+  await db.insert(pendingObjectDeletes).values({ objectKey, reason: "upload" }).onConflictDoNothing();
   await store.put({ key: objectKey, bytes: input.bytes, contentType: input.contentType });
 
   const wavelengths = input.points.map((p) => p.wavelengthNm);
@@ -117,6 +120,7 @@ export async function importMeasurementSet(options: {
           })),
         );
       }
+      await tx.delete(pendingObjectDeletes).where(eq(pendingObjectDeletes.objectKey, objectKey));
       await recordAudit(tx, {
         entry: {
           actorId: options.actorId,
@@ -129,14 +133,17 @@ export async function importMeasurementSet(options: {
       });
     });
   } catch (error) {
-    // Undo the object so a failed import leaves nothing behind; if even that fails, the object is
-    // an orphan no row refers to.
-    await store.delete(objectKey).catch((cleanup: unknown) => {
-      console.error(
-        `[measurements] could not remove ${objectKey} after a failed import:`,
-        cleanup instanceof Error ? cleanup.message : cleanup,
-      );
-    });
+    // Undo the object so a failed import leaves nothing behind; if even that fails, its pending
+    // row stays and the sweep removes it later.
+    await store
+      .delete(objectKey)
+      .then(() => db.delete(pendingObjectDeletes).where(eq(pendingObjectDeletes.objectKey, objectKey)))
+      .catch((cleanup: unknown) => {
+        console.error(
+          `[measurements] could not remove ${objectKey} after a failed import (left for the sweep):`,
+          cleanup instanceof Error ? cleanup.message : cleanup,
+        );
+      });
     throw uniqueViolation(error) === "measurement_sets_lab_name_unique" ? duplicateMeasurementName(input.name) : error;
   }
   return id;

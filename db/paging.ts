@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { DomainError } from "@/lib/contracts/errors";
 import type { Page } from "@/lib/contracts/paging";
+import { INT4_MAX, timestampTextSchema } from "@/lib/contracts/validation";
 
 /*
  * Keyset paging shared by every list query: a page is `{ items, nextCursor }`; the cursor is the
@@ -36,7 +37,10 @@ export function decodeCursor<S extends z.ZodType>(cursor: string | undefined, sh
  * (microseconds): a JavaScript Date keeps only milliseconds and would skip rows saved within the
  * same millisecond.
  */
-export const timeIdCursor = z.tuple([z.string().regex(/^\d{4}-\d\d-\d\d[ T]\d\d:\d\d:\d\d(\.\d{1,6})?([+-]\d\d(:?\d\d)?|Z)?$/), z.uuid()]);
+export const timeIdCursor = z.tuple([timestampTextSchema, z.uuid()]);
+
+/** A version number sort key (a set's versions): an integer PostgreSQL holds. */
+export const versionCursor = z.tuple([z.number().int().min(1).max(INT4_MAX)]);
 
 /** An offset into a short list ordered by something other than a unique key (members). */
 export const offsetCursor = z.tuple([z.literal("o"), z.number().int().min(0).max(1_000_000)]);

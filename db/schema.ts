@@ -42,6 +42,9 @@ export const users = pgTable(
     // Bumped by sign-out, a password change or reset and "end all sessions"; a session cookie
     // carrying an older number no longer signs anything in.
     sessionVersion: integer("session_version").notNull().default(0),
+    // False from sign-up until the mailed link is opened; an unconfirmed account may not invite.
+    // The default true covers accounts made before addresses were confirmed, and the seed.
+    emailVerified: boolean("email_verified").notNull().default(true),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -100,7 +103,12 @@ export const parameterSets = pgTable(
       .references(() => users.id),
     updatedAt: updatedAt(),
   },
-  (t) => [unique("parameter_sets_lab_name_unique").on(t.labId, t.name), index("parameter_sets_lab_idx").on(t.labId)],
+  // The list's keyset order within a lab (newest change first), so a page reads its rows in order instead of sorting the lab.
+  (t) => [
+    unique("parameter_sets_lab_name_unique").on(t.labId, t.name),
+    index("parameter_sets_lab_idx").on(t.labId),
+    index("parameter_sets_lab_updated_idx").on(t.labId, t.updatedAt, t.id),
+  ],
 );
 export type ParameterSetRow = typeof parameterSets.$inferSelect;
 export type NewParameterSetRow = typeof parameterSets.$inferInsert;
@@ -180,7 +188,7 @@ export type ApiToken = typeof apiTokens.$inferSelect;
 export type NewApiToken = typeof apiTokens.$inferInsert;
 
 /**
- * Failed sign-ins per (e-mail, client address). Kept in the database rather than in memory so
+ * Failed sign-ins per (e-mail, client key: a known device or the client address). Kept in the database rather than in memory so
  * the limit holds across server restarts and several server processes.
  */
 export const signInFailures = pgTable(
@@ -191,7 +199,8 @@ export const signInFailures = pgTable(
     ip: text("ip").notNull(),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("sign_in_failures_key_idx").on(t.email, t.ip, t.at)],
+  // The second index serves the per-client count across e-mails (password spraying).
+  (t) => [index("sign_in_failures_key_idx").on(t.email, t.ip, t.at), index("sign_in_failures_client_idx").on(t.ip, t.at)],
 );
 export type SignInFailure = typeof signInFailures.$inferSelect;
 
@@ -287,7 +296,11 @@ export const measurementSets = pgTable(
       .references(() => users.id),
     createdAt: createdAt(),
   },
-  (t) => [unique("measurement_sets_lab_name_unique").on(t.labId, t.name), index("measurement_sets_lab_idx").on(t.labId)],
+  (t) => [
+    unique("measurement_sets_lab_name_unique").on(t.labId, t.name),
+    index("measurement_sets_lab_idx").on(t.labId),
+    index("measurement_sets_lab_created_idx").on(t.labId, t.createdAt, t.id),
+  ],
 );
 export type MeasurementSetRow = typeof measurementSets.$inferSelect;
 export type NewMeasurementSetRow = typeof measurementSets.$inferInsert;
@@ -438,6 +451,47 @@ export const passwordResets = pgTable(
   (t) => [uniqueIndex("password_resets_token_hash_unique").on(t.tokenHash), index("password_resets_user_idx").on(t.userId)],
 );
 
+/** A single-use link that confirms a new account's e-mail address. */
+export const emailVerifications = pgTable(
+  "email_verifications",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull(),
+    createdAt: createdAt(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+  },
+  (t) => [uniqueIndex("email_verifications_token_hash_unique").on(t.tokenHash), index("email_verifications_user_idx").on(t.userId)],
+);
+
+/**
+ * Mail waiting to be sent, written in the same transaction as what caused it (an invitation, a
+ * reset link, a sign-up), so mail is never lost when SMTP is down and never sent for a change
+ * that rolled back. lib/mail/outbox.ts sends it with retries; the body (which carries a secret
+ * link) is blanked once sent.
+ */
+export const mailOutbox = pgTable(
+  "mail_outbox",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    kind: text("kind").notNull(),
+    recipient: text("recipient").notNull(),
+    subject: text("subject").notNull(),
+    body: text("body").notNull(),
+    createdAt: createdAt(),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    gaveUpAt: timestamp("gave_up_at", { withTimezone: true }),
+    lastError: text("last_error"),
+  },
+  (t) => [index("mail_outbox_due_idx").on(t.nextAttemptAt).where(sql`${t.sentAt} is null and ${t.gaveUpAt} is null`)],
+);
+export type MailOutboxRow = typeof mailOutbox.$inferSelect;
+
 /** A read-only link to one parameter set; anyone holding it sees that set's workbench. */
 export const shareLinks = pgTable(
   "share_links",
@@ -466,6 +520,19 @@ export const requestThrottle = pgTable(
   },
   (t) => [index("request_throttle_key_idx").on(t.kind, t.key, t.at)],
 );
+
+/**
+ * Objects in the store that may have no row: written before an import's transaction (removed in
+ * it), or left by a delete while the store was down. db/queries/object-sweep.ts deletes each once
+ * no measurement set refers to its key, retrying while the store is down.
+ */
+export const pendingObjectDeletes = pgTable("pending_object_deletes", {
+  objectKey: text("object_key").primaryKey(),
+  reason: text("reason").$type<"upload" | "delete">().notNull(),
+  createdAt: createdAt(),
+  attempts: integer("attempts").notNull().default(0),
+  lastError: text("last_error"),
+});
 
 /* ---------- Lab runs: long computations on the job queue (workers/lab-runs) ---------- */
 

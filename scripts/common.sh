@@ -32,8 +32,10 @@ ensure_chromium() {
 # A long random secret kept beside the data dir of this checkout, so sessions survive restarts.
 ensure_auth_secret() {
   if [ -z "${AUTH_SECRET:-}" ]; then
-    mkdir -p .data
-    [ -s .data/auth-secret ] || node -e 'process.stdout.write(require("node:crypto").randomBytes(32).toString("base64url"))' > .data/auth-secret
+    # Readable by this user only: whoever holds the secret can forge any session cookie.
+    mkdir -p -m 700 .data
+    [ -s .data/auth-secret ] || (umask 077 && node -e 'process.stdout.write(require("node:crypto").randomBytes(32).toString("base64url"))' > .data/auth-secret)
+    chmod 600 .data/auth-secret
     AUTH_SECRET="$(cat .data/auth-secret)"
     export AUTH_SECRET
   fi

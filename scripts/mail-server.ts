@@ -13,7 +13,7 @@ import { scriptSettings } from "../lib/settings/scripts";
  */
 
 const settings = scriptSettings.mail;
-mkdirSync(settings.dir, { recursive: true });
+mkdirSync(settings.dir, { recursive: true, mode: 0o700 });
 
 const server = new SMTPServer({
   authOptional: true,
@@ -26,10 +26,10 @@ const server = new SMTPServer({
   onData(stream, session, callback) {
     const chunks: Buffer[] = [];
     stream.on("data", (chunk: Buffer) => chunks.push(chunk));
-    stream.on("end", () => {
+    stream.on("end", async () => {
       try {
-        const raw = Buffer.concat(chunks).toString("utf8");
-        const parsed = parseMessage(raw);
+        const raw = Buffer.concat(chunks);
+        const parsed = await parseMessage(raw);
         const receivedAt = new Date().toISOString();
         const id = `${receivedAt.replace(/[:.]/g, "-")}-${randomBytes(4).toString("hex")}`;
         const record: CaughtMail = {
@@ -40,10 +40,11 @@ const server = new SMTPServer({
           subject: parsed.subject,
           text: parsed.text,
         };
-        writeFileSync(path.join(settings.dir, `${id}.eml`), raw);
+        // Caught mail holds live reset and invitation links: readable by this user only.
+        writeFileSync(path.join(settings.dir, `${id}.eml`), raw, { mode: 0o600 });
         // Write then rename, so a reader never sees half a JSON file.
         const tmp = path.join(settings.dir, `.${id}.tmp`);
-        writeFileSync(tmp, JSON.stringify(record, null, 2));
+        writeFileSync(tmp, JSON.stringify(record, null, 2), { mode: 0o600 });
         renameSync(tmp, path.join(settings.dir, `${id}.json`));
         callback();
       } catch (error) {

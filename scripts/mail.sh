@@ -30,6 +30,8 @@ case "${1:-}" in
   start)
     mkdir -p "$DIR"
     if running; then log "already running on 127.0.0.1:$PORT ($DIR)"; exit 0; fi
+    # Another program (another checkout's catcher) holds the port: mail would land elsewhere.
+    if listening; then log "error: 127.0.0.1:$PORT is already in use by another program; set GYROLUX_SMTP_PORT"; exit 1; fi
     setsid node_modules/.bin/tsx scripts/mail-server.ts >"$LOGFILE" 2>&1 < /dev/null &
     echo $! >"$PIDFILE"
     for _ in $(seq 60); do

@@ -28,6 +28,9 @@ export AUTH_TRUST_HOST=true
 export GYROLUX_NEXT_DIST_DIR="${GYROLUX_TEST_NEXT_DIST_DIR:-.next-test}"
 export GYROLUX_SMTP_PORT="${GYROLUX_TEST_SMTP_PORT:-2535}" GYROLUX_MAIL_DIR="${GYROLUX_TEST_MAIL_DIR:-/tmp/gyrolux-mail-test-$$}"
 export GYROLUX_PUBLIC_URL="$GYROLUX_TEST_BASE_URL" GYROLUX_ADMIN_PASSWORD="admin-$(date +%s%N)-$$"
+# Every test client signs up from 127.0.0.1: the per-client sign-up limit would stop the run.
+export GYROLUX_SIGN_UPS_PER_CLIENT_HOUR="${GYROLUX_SIGN_UPS_PER_CLIENT_HOUR:-100000}"
+export GYROLUX_SIGN_IN_FAILURES_PER_CLIENT="${GYROLUX_SIGN_IN_FAILURES_PER_CLIENT:-100000}"
 # Lab-run queue timings short enough that the worker-fault test retries within seconds.
 export GYROLUX_RUN_STALE_S="${GYROLUX_RUN_STALE_S:-4}" GYROLUX_RUN_RETRY_DELAY_S="${GYROLUX_RUN_RETRY_DELAY_S:-1}" GYROLUX_RUN_POLL_S="${GYROLUX_RUN_POLL_S:-0.5}" GYROLUX_RUN_MAINTENANCE_S="${GYROLUX_RUN_MAINTENANCE_S:-2}"
 
@@ -66,7 +69,7 @@ node scripts/build-cli.mjs
 log "building the production app"
 npx next build
 log "serving it on $GYROLUX_TEST_BASE_URL"
-setsid node_modules/.bin/next start -p "$TEST_PORT" > "${TMPDIR:-/tmp}/gyrolux-test-server-$TEST_PORT.log" 2>&1 &
+setsid node scripts/serve.mjs --port "$TEST_PORT" > "${TMPDIR:-/tmp}/gyrolux-test-server-$TEST_PORT.log" 2>&1 &
 server_pid=$!
 wait_for_http "$GYROLUX_TEST_BASE_URL/api/health"
 

@@ -1,11 +1,11 @@
-import { and, asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { Caller, ResourceAccess } from "@/lib/contracts/access";
 import type { LabSummary, MemberSummary } from "@/lib/contracts/labs";
 import type { Page, PageQuery } from "@/lib/contracts/paging";
 import { LAB_ROLES, type LabRole } from "@/lib/contracts/roles";
 import type { Executor } from "../executor";
 import { decodeCursor, offsetCursor, toPage } from "../paging";
-import { labMemberships, labs, users } from "../schema";
+import { labMemberships, labs, parameterSets, shareLinks, users } from "../schema";
 import { recordAudit } from "./audit";
 
 /** The caller's labs; a site admin gets every lab, as owner. */
@@ -78,8 +78,22 @@ export async function changeMember(
       return { ok: false as const, reason: "last_owner" as const };
     }
     const where = and(eq(labMemberships.labId, labId), eq(labMemberships.userId, options.userId));
+    let shareLinksRevoked = 0;
     if (options.role === null) {
       await tx.delete(labMemberships).where(where);
+      // A share link speaks for its maker: once they leave the lab, the links they made stop working.
+      const revoked = await tx
+        .update(shareLinks)
+        .set({ revokedAt: new Date() })
+        .where(
+          and(
+            eq(shareLinks.createdById, options.userId),
+            isNull(shareLinks.revokedAt),
+            inArray(shareLinks.setId, tx.select({ id: parameterSets.id }).from(parameterSets).where(eq(parameterSets.labId, labId))),
+          ),
+        )
+        .returning({ id: shareLinks.id });
+      shareLinksRevoked = revoked.length;
     } else {
       await tx.update(labMemberships).set({ role: options.role }).where(where);
     }
@@ -90,7 +104,7 @@ export async function changeMember(
         targetType: "user",
         targetId: options.userId,
         labId,
-        details: { from: target.role, to: options.role },
+        details: { from: target.role, to: options.role, ...(options.role === null ? { shareLinksRevoked } : {}) },
       },
     });
     if (options.role === null) return { ok: true as const, member: null };

@@ -1,10 +1,13 @@
-import { and, asc, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import type { MeasurementSetSummary, PointsResponse, StoredPoint } from "@/lib/contracts/measurement-sets";
+import type { Page, PageQuery } from "@/lib/contracts/paging";
+import { decodeCursor, timeIdCursor, toPage } from "../paging";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ObjectStore } from "@/lib/storage/object-store";
 import type { Executor } from "../executor";
 import { importMeasurementSet, type MeasurementImport } from "../measurement-import";
-import { labMemberships, labs, measurementPoints, measurementSets, users } from "../schema";
+import { labMemberships, labs, measurementPoints, measurementSets, pendingObjectDeletes, users } from "../schema";
+import { sweepObjects } from "./object-sweep";
 import type { LabRole } from "@/lib/contracts/roles";
 import { recordAudit } from "./audit";
 import type { Caller, ResourceAccess } from "@/lib/contracts/access";
@@ -67,11 +70,11 @@ function toSummary(row: SummaryRow, role: LabRole): MeasurementSetSummary {
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** Sets in the caller's labs (every lab for a site admin), newest first; `lab` narrows to one of them. */
+/** Sets in the caller's labs (every lab for a site admin), newest first, a page at a time; `lab` narrows to one of them. */
 export async function listMeasurementSets(
   db: Executor,
-  options: { caller: Caller; lab?: ResourceAccess<"lab">; q?: string },
-): Promise<MeasurementSetSummary[]> {
+  options: { caller: Caller; lab?: ResourceAccess<"lab">; q?: string; page: PageQuery },
+): Promise<Page<MeasurementSetSummary>> {
   const isAdmin = options.caller.siteRole === "admin";
   const conditions: (SQL | undefined)[] = [];
   if (!isAdmin) conditions.push(eq(labMemberships.userId, options.caller.id));
@@ -82,18 +85,25 @@ export async function listMeasurementSets(
       or(ilike(measurementSets.name, pattern), ilike(measurementSets.sample, pattern), ilike(measurementSets.fileName, pattern)),
     );
   }
+  const after = decodeCursor(options.page.cursor, timeIdCursor);
+  if (after) conditions.push(sql`(${measurementSets.createdAt}, ${measurementSets.id}) < (${after[0]}::timestamptz, ${after[1]}::uuid)`);
+  // Non-members' sets are filtered in SQL (not after the fetch), so every page is full.
+  if (!isAdmin) conditions.push(sql`${labMemberships.role} is not null`);
   const rows = await db
-    .select({ ...summaryColumns, memberRole: labMemberships.role })
+    .select({ ...summaryColumns, memberRole: labMemberships.role, cursorAt: sql<string>`${measurementSets.createdAt}::text` })
     .from(measurementSets)
     .innerJoin(labs, eq(labs.id, measurementSets.labId))
     .innerJoin(users, eq(users.id, measurementSets.createdById))
     .leftJoin(labMemberships, and(eq(labMemberships.labId, measurementSets.labId), eq(labMemberships.userId, options.caller.id)))
     .where(and(...conditions))
-    .orderBy(desc(measurementSets.createdAt), desc(measurementSets.id));
-  return rows.flatMap((row) => {
-    const role: LabRole | null = isAdmin ? "owner" : row.memberRole;
-    return role ? [toSummary(row, role)] : [];
-  });
+    .orderBy(desc(measurementSets.createdAt), desc(measurementSets.id))
+    .limit(options.page.limit + 1);
+  return toPage(
+    rows,
+    options.page.limit,
+    (row) => toSummary(row, isAdmin ? "owner" : (row.memberRole ?? "viewer")),
+    (row) => [row.cursorAt, row.id],
+  );
 }
 
 async function loadSummary(db: Executor, options: { id: string; labId: string; role: LabRole }): Promise<MeasurementSetSummary | null> {
@@ -193,6 +203,8 @@ export async function deleteMeasurementSet(db: Executor, options: { access: Meas
         objectKey: measurementSets.objectKey,
       });
     if (!row) return null;
+    // The object goes after the commit; recorded here so a store that is down cannot leave it for good.
+    await tx.insert(pendingObjectDeletes).values({ objectKey: row.objectKey, reason: "delete" }).onConflictDoNothing();
     await recordAudit(tx, {
       entry: {
         actorId: access.caller.id,
@@ -206,9 +218,9 @@ export async function deleteMeasurementSet(db: Executor, options: { access: Meas
     return row;
   });
   if (!deleted) return false;
-  await options.store.delete(deleted.objectKey).catch((error: unknown) => {
+  await sweepObjects(db, { store: options.store, keys: [deleted.objectKey] }).catch((error: unknown) => {
     console.error(
-      `[measurements] could not remove ${deleted.objectKey} after deleting its set:`,
+      `[measurements] could not remove ${deleted.objectKey} after deleting its set (left for the sweep):`,
       error instanceof Error ? error.message : error,
     );
   });

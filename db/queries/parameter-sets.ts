@@ -1,5 +1,5 @@
 import { and, desc, eq, ilike, inArray, lt, or, sql, type SQL } from "drizzle-orm";
-import { decodeCursor, timeIdCursor, toPage } from "@/db/paging";
+import { decodeCursor, timeIdCursor, toPage, versionCursor } from "@/db/paging";
 import type { Page, PageQuery } from "@/lib/contracts/paging";
 import { z } from "zod";
 import { alias } from "drizzle-orm/pg-core";
@@ -449,8 +449,6 @@ export async function deleteParameterSet(db: Executor, options: { access: SetAcc
     return true;
   });
 }
-
-const versionCursor = z.tuple([z.number().int().min(1)]);
 
 /** The set's versions, newest first; null when the set was deleted since. */
 export async function listParameterSetVersions(

@@ -1,8 +1,8 @@
 import { and, desc, eq } from "drizzle-orm";
-import { notFound } from "@/lib/contracts/errors";
+import { DomainError, notFound } from "@/lib/contracts/errors";
 import type { SavePlanInput, SavedPlan, SavedPlanBody } from "@/lib/contracts/plans";
 import type { Executor } from "../executor";
-import { parameterSets, plans, users } from "../schema";
+import { parameterSets, parameterSetVersions, plans, users } from "../schema";
 import { recordAudit } from "./audit";
 import type { ResourceAccess } from "@/lib/contracts/access";
 
@@ -70,6 +70,17 @@ export async function savePlan(db: Executor, options: { access: SetAccess; input
   const { access, input } = options;
   const { caller, id: setId, labId } = access;
   const id = await db.transaction(async (tx) => {
+    // A plan names the version it was made for; one the set never had would mislead every reader.
+    const [version] = await tx
+      .select({ version: parameterSetVersions.version })
+      .from(parameterSetVersions)
+      .where(and(eq(parameterSetVersions.setId, setId), eq(parameterSetVersions.version, input.setVersion)))
+      .limit(1);
+    if (!version) {
+      throw new DomainError("validation", `This parameter set has no version ${input.setVersion}.`, {
+        fields: { setVersion: `No version ${input.setVersion} of this set.` },
+      });
+    }
     const [row] = await tx
       .insert(plans)
       .values({

@@ -16,24 +16,34 @@ const LAB_OF = {
   lab_run: { table: labRuns, id: labRuns.id, labId: labRuns.labId },
 } as const;
 
-/** The lab a resource belongs to; null when there is no such resource. */
-export async function findResourceLabId(db: Executor, options: { kind: ResourceKind; id: string }): Promise<string | null> {
-  if (options.kind === "lab") return options.id;
-  const of = LAB_OF[options.kind];
-  const [row] = await db.select({ labId: of.labId }).from(of.table).where(eq(of.id, options.id)).limit(1);
-  return row?.labId ?? null;
+export interface ResourceMembership {
+  labId: string;
+  labName: string;
+  /** The user's own role in the resource's lab; null when not a member. */
+  role: LabRole | null;
 }
 
-/** A lab and the user's own membership role in it (null when not a member); null when no such lab. */
-export async function findLabMembership(
+/**
+ * The resource's lab and the user's own membership role there, in one query (one round trip per
+ * authorization: this runs on every request of the API); null when there is no such resource.
+ */
+export async function findResourceMembership(
   db: Executor,
-  options: { labId: string; userId: string },
-): Promise<{ labId: string; labName: string; role: LabRole | null } | null> {
+  options: { kind: ResourceKind; id: string; userId: string },
+): Promise<ResourceMembership | null> {
+  const columns = { labId: labs.id, labName: labs.name, role: labMemberships.role };
+  const membership = and(eq(labMemberships.labId, labs.id), eq(labMemberships.userId, options.userId));
+  if (options.kind === "lab") {
+    const [row] = await db.select(columns).from(labs).leftJoin(labMemberships, membership).where(eq(labs.id, options.id)).limit(1);
+    return row ?? null;
+  }
+  const of = LAB_OF[options.kind];
   const [row] = await db
-    .select({ labId: labs.id, labName: labs.name, role: labMemberships.role })
-    .from(labs)
-    .leftJoin(labMemberships, and(eq(labMemberships.labId, labs.id), eq(labMemberships.userId, options.userId)))
-    .where(eq(labs.id, options.labId))
+    .select(columns)
+    .from(of.table)
+    .innerJoin(labs, eq(labs.id, of.labId))
+    .leftJoin(labMemberships, membership)
+    .where(eq(of.id, options.id))
     .limit(1);
   return row ?? null;
 }

@@ -59,18 +59,25 @@ function requireJsonContentType(request: Request): void {
   }
 }
 
-function parseJson(text: string): unknown {
+/**
+ * The one JSON reader of the API: request bodies and the JSON fields of multipart uploads alike
+ * get the same limits (storable text, at most MAX_JSON_DEPTH levels). `field` names the form field
+ * in the error; a body's problems are reported under "body".
+ */
+export function parseJsonText(text: string, field = "body"): unknown {
+  const what = field === "body" ? "The request body" : field;
+  let value: unknown;
   try {
     // JSON cannot carry NaN or Infinity, but 1e999 parses to Infinity; the schemas' finite checks
     // turn that into a validation error with a field, not a stored Infinity (which would become null).
-    const value: unknown = JSON.parse(text);
-    const problem = jsonProblem(value, MAX_JSON_DEPTH);
-    if (problem) throw new DomainError("validation", `The request body cannot be stored: ${problem}`, { fields: { body: problem } });
-    return value;
-  } catch (error) {
-    if (error instanceof DomainError) throw error;
-    throw new DomainError("bad_json", "The request body is not valid JSON.");
+    value = JSON.parse(text);
+  } catch {
+    if (field === "body") throw new DomainError("bad_json", "The request body is not valid JSON.");
+    throw new DomainError("validation", `${what} is not valid JSON.`, { fields: { [field]: "Not valid JSON." } });
   }
+  const problem = jsonProblem(value, MAX_JSON_DEPTH);
+  if (problem) throw new DomainError("validation", `${what} cannot be stored: ${problem}`, { fields: { [field]: problem } });
+  return value;
 }
 
 /** Parses and validates a required JSON body. */
@@ -78,7 +85,7 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S)
   requireJsonContentType(request);
   const text = await readText(request);
   if (text.trim() === "") throw new DomainError("bad_json", "The request body is empty; send a JSON object.");
-  const result = schema.safeParse(parseJson(text));
+  const result = schema.safeParse(parseJsonText(text));
   if (!result.success) throw validationError(result.error);
   return result.data;
 }

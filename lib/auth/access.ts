@@ -1,14 +1,16 @@
 import "server-only";
 import { headers as nextHeaders } from "next/headers";
 import { db } from "@/db/client";
-import { findLabMembership, findResourceLabId } from "@/db/queries/resource-labs";
+import { findResourceMembership } from "@/db/queries/resource-labs";
 import { findUserByTokenHash } from "@/db/queries/tokens";
 import { findUserById } from "@/db/queries/users";
 import type { Caller, ResourceAccess, ResourceKind } from "@/lib/contracts/access";
 import { DomainError, forbidden, notFound, unauthenticated } from "@/lib/contracts/errors";
 import { type LabRole, roleAtLeast } from "@/lib/contracts/roles";
 import { isUuid } from "@/lib/contracts/validation";
-import { auth } from "./config";
+import { serverSettings } from "@/lib/settings/server";
+import { isSameOriginRequest } from "./same-origin";
+import { sessionClaims } from "./session-token";
 import { bearerToken, hashToken } from "./tokens";
 
 /*
@@ -30,7 +32,7 @@ export async function getCaller(request?: Request): Promise<Caller | null> {
     if (!user) throw new DomainError("unauthenticated", "This API token is unknown or revoked.");
     return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "token" };
   }
-  const user = await getSessionUser();
+  const user = await getSessionUser(request);
   if (!user) return null;
   if (request) requireSameOrigin(request);
   return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, via: "session" };
@@ -41,38 +43,20 @@ export async function getCaller(request?: Request): Promise<Caller | null> {
  * user's session version is checked on every request: sign-out, a password change or reset and
  * "end all sessions" move it on, and older cookies stop working at once.
  */
-export async function getSessionUser() {
-  const session = await auth();
-  const id = session?.user?.id;
-  if (!id || !isUuid(id)) return null;
-  const user = await findUserById(db, { id });
-  if (!user || user.sessionVersion !== session.user.sessionVersion) return null;
+export async function getSessionUser(request?: Request) {
+  const headers = request?.headers ?? (await nextHeaders());
+  const claims = await sessionClaims(headers.get("cookie"));
+  if (!claims || !isUuid(claims.id)) return null;
+  const user = await findUserById(db, { id: claims.id });
+  if (!user || user.sessionVersion !== claims.sv) return null;
   return user;
 }
 
-const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
-
-/**
- * A cookie rides along with any request the browser makes, including a form or fetch that
- * another page of the same site starts. Browsers send Origin (and Sec-Fetch-Site) with every
- * request that is not GET/HEAD, so a cookie-authenticated change must come from our own origin;
- * clients that send neither header (scripts) are not browsers and cannot be made to carry the
- * cookie by a page.
- */
+/** Refuses a cookie-authenticated change that did not come from our own origin (lib/auth/same-origin.ts). */
 export function requireSameOrigin(request: Request): void {
-  if (SAFE_METHODS.has(request.method.toUpperCase())) return;
-  const fetchSite = request.headers.get("sec-fetch-site");
-  if (fetchSite !== null && fetchSite !== "same-origin" && fetchSite !== "none") throw crossOrigin();
-  const origin = request.headers.get("origin");
-  if (origin === null) return;
-  const host = request.headers.get("host");
-  let originHost: string | null = null;
-  try {
-    originHost = new URL(origin).host;
-  } catch {
-    originHost = null;
+  if (!isSameOriginRequest({ method: request.method, headers: request.headers, publicUrl: serverSettings.site.publicUrl })) {
+    throw crossOrigin();
   }
-  if (!host || originHost !== host) throw crossOrigin();
 }
 
 const crossOrigin = () => new DomainError("forbidden", "This change must come from a Gyrolux page: the request came from another origin.");
@@ -112,10 +96,9 @@ export async function authorize<K extends ResourceKind>(
 ): Promise<ResourceAccess<K>> {
   const missing = () => notFound(NOT_FOUND[resource.kind]);
   if (!isUuid(resource.id)) throw missing();
-  const labId = await findResourceLabId(db, resource);
-  if (!labId) throw missing();
-  const membership = await findLabMembership(db, { labId, userId: caller.id });
+  const membership = await findResourceMembership(db, { kind: resource.kind, id: resource.id, userId: caller.id });
   if (!membership) throw missing();
+  const labId = membership.labId;
   const role: LabRole | null = caller.siteRole === "admin" ? "owner" : membership.role;
   if (!role) throw missing();
   if (!roleAtLeast(role, minRole)) throw forbidden(`This needs the ${minRole} role in ${membership.labName}; you are ${role}.`);

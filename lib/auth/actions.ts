@@ -4,10 +4,10 @@ import { AuthError, CredentialsSignin } from "next-auth";
 import { headers } from "next/headers";
 import { isDbUnavailable } from "@/db/errors";
 import { zodIssueFields } from "@/lib/contracts/validation";
-import { clientIp } from "./client-ip";
 import { signIn, signOut } from "./config";
-import { rateLimitMessage, signInWaitSeconds } from "./rate-limit";
-import { safeRedirectTarget } from "./redirect-target";
+import { rateLimitMessage, signInClient, signInWaitSeconds } from "./rate-limit";
+import { afterSignInTarget } from "./after-sign-in";
+import { clientIp } from "./client-ip";
 import { signInSchema, signUpSchema } from "@/lib/contracts/accounts";
 import { signUpNeutrally } from "./sign-up";
 
@@ -37,7 +37,7 @@ async function signInAndRedirect(options: { email: string; password: string; red
     await signIn("credentials", { ...options });
   } catch (error) {
     if (error instanceof CredentialsSignin && error.code === "rate_limited") {
-      const wait = await signInWaitSeconds({ email: options.email, ip: clientIp(await headers()) }).catch(() => 60);
+      const wait = await signInWaitSeconds(options.email, signInClient(await headers(), options.email)).catch(() => 60);
       return { error: rateLimitMessage(Math.max(wait, 1)) };
     }
     if (error instanceof CredentialsSignin) return { error: WRONG_CREDENTIALS };
@@ -52,9 +52,9 @@ async function signInAndRedirect(options: { email: string; password: string; red
 export async function signInAction(_prev: AuthFormState, formData: FormData): Promise<AuthFormState> {
   const parsed = signInSchema.safeParse({ email: text(formData, "email"), password: text(formData, "password") });
   if (!parsed.success) return { error: "Check the highlighted fields.", fields: zodIssueFields(parsed.error.issues) };
-  const redirectTo = safeRedirectTarget(text(formData, "redirectTo"));
+  const redirectTo = afterSignInTarget(text(formData, "redirectTo"));
   try {
-    const wait = await signInWaitSeconds({ email: parsed.data.email, ip: clientIp(await headers()) });
+    const wait = await signInWaitSeconds(parsed.data.email, signInClient(await headers(), parsed.data.email));
     if (wait > 0) return { error: rateLimitMessage(wait) };
   } catch (error) {
     if (isDbUnavailable(error)) return { error: UNAVAILABLE };
@@ -74,8 +74,8 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
   if (confirm !== undefined && confirm !== text(formData, "password")) fields.confirmPassword = "The passwords do not match.";
   if (!parsed.success || Object.keys(fields).length > 0) return { error: "Check the highlighted fields.", fields };
   try {
-    if ((await signUpNeutrally(parsed.data)) === "throttled")
-      return { error: "Too many sign-up attempts for this address. Try again in an hour." };
+    if ((await signUpNeutrally(parsed.data, { address: clientIp(await headers()) })) === "throttled")
+      return { error: "Too many sign-up attempts from here or for this address. Try again in an hour." };
   } catch (error) {
     if (isDbUnavailable(error)) return { error: "Signing up is unavailable right now (the database is not reachable). Try again shortly." };
     throw error;
@@ -83,7 +83,7 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
   const result = await signInAndRedirect({
     email: parsed.data.email,
     password: parsed.data.password,
-    redirectTo: safeRedirectTarget(text(formData, "redirectTo")),
+    redirectTo: afterSignInTarget(text(formData, "redirectTo")),
   });
   // The address already had an account with another password. Say no more than the API does.
   if (result.error === WRONG_CREDENTIALS) return { error: ALREADY_REGISTERED_HINT };

@@ -4,9 +4,11 @@ import Credentials from "next-auth/providers/credentials";
 import type { SiteRole } from "@/lib/contracts/roles";
 import { db } from "@/db/client";
 import { bumpSessionVersion, findUserByEmail } from "@/db/queries/users";
-import { clientIp } from "./client-ip";
+import { cookies } from "next/headers";
+import { serverSettings } from "@/lib/settings/server";
+import { DEVICE_COOKIE, DEVICE_COOKIE_MAX_AGE_S, newDeviceCookie } from "./device";
 import { dummyVerify, verifyPassword } from "./password";
-import { clearSignInFailures, recordSignInFailure, signInWaitSeconds } from "./rate-limit";
+import { reserveSignInAttempt, signInClient } from "./rate-limit";
 import { signInSchema } from "@/lib/contracts/accounts";
 
 declare module "next-auth" {
@@ -33,6 +35,23 @@ export class RateLimitedSignin extends CredentialsSignin {
   code = "rate_limited";
 }
 
+/** Gives this browser a device cookie for the account (lib/auth/device.ts); harmless where cookies cannot be set. */
+async function rememberDevice(email: string): Promise<void> {
+  const secret = serverSettings.auth.secret;
+  if (!secret) return;
+  try {
+    (await cookies()).set(DEVICE_COOKIE, newDeviceCookie(secret, email), {
+      httpOnly: true,
+      sameSite: "lax",
+      secure: serverSettings.site.publicUrl.startsWith("https:"),
+      path: "/",
+      maxAge: DEVICE_COOKIE_MAX_AGE_S,
+    });
+  } catch {
+    // Outside a request that may set cookies; the sign-in itself stands.
+  }
+}
+
 export const { handlers, auth, signIn, signOut } = NextAuth({
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
   pages: { signIn: "/sign-in" },
@@ -52,16 +71,16 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         const parsed = signInSchema.safeParse(credentials);
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
-        const ip = clientIp(request.headers);
-        if ((await signInWaitSeconds({ email, ip })) > 0) throw new RateLimitedSignin();
+        const client = signInClient(request.headers, email);
+        const attempt = await reserveSignInAttempt(email, client);
+        if (!attempt.allowed) throw new RateLimitedSignin();
         const user = await findUserByEmail(db, { email });
-        // Unknown e-mail: same bcrypt cost and the same answer as a wrong password.
+        // Unknown e-mail: same bcrypt cost and the same answer as a wrong password. A failure stays
+        // recorded (the reservation was one).
         const valid = user ? await verifyPassword(password, user.passwordHash) : await dummyVerify(password);
-        if (!user || !valid) {
-          await recordSignInFailure({ email, ip });
-          return null;
-        }
-        await clearSignInFailures({ email, ip });
+        if (!user || !valid) return null;
+        await attempt.succeeded();
+        if (!client.deviceId) await rememberDevice(email);
         return { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole, sessionVersion: user.sessionVersion };
       },
     }),

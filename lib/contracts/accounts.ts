@@ -51,5 +51,11 @@ export const resetPasswordSchema = z.object({
   newPassword: newPasswordSchema(),
 });
 
+export const confirmEmailSchema = z.object({
+  token: safeString({ error: "The confirmation link is incomplete." })
+    .min(10, "The confirmation link is incomplete.")
+    .max(200, "The confirmation link is not valid."),
+});
+
 export type SignInInput = z.infer<typeof signInSchema>;
 export type SignUpInput = z.infer<typeof signUpSchema>;

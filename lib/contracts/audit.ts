@@ -35,6 +35,7 @@ export const AUDIT_ACTIONS = [
   "share_link.revoke",
   "token.create",
   "token.revoke",
+  "user.email_verified",
   "user.end_sessions",
   "user.password_change",
   "user.password_reset",

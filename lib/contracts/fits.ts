@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { FREEABLE_KEYS, type FreeableKey, freeParamSchema } from "@/lib/analysis/definition";
-import { finiteNumber, safeString } from "./validation";
+import { finiteNumber, INT4_MAX, safeString } from "./validation";
 
 /*
  * Fits saved as a new version of a parameter set: the request body of
@@ -44,7 +44,8 @@ export const saveFitSchema = z
     version: z
       .number({ error: "Send the version the fit started from (a whole number)." })
       .int("Must be a whole number.")
-      .min(1, "Must be ≥ 1."),
+      .min(1, "Must be ≥ 1.")
+      .max(INT4_MAX, `Must be at most ${INT4_MAX}.`),
     values: fittedValuesSchema,
     fit: fitSummarySchema,
   })

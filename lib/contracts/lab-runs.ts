@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { runSpecSchema } from "@/lib/lab-runs/kinds";
 import type { LabRole } from "./roles";
+import { queryInteger } from "./validation";
 
 /*
  * Lab runs: their states, the request schemas and the JSON shapes of the lab-run API, for both
@@ -78,5 +79,5 @@ export type SubmitRunInput = z.infer<typeof submitRunSchema>;
 
 export const listRunsQuery = z.object({
   labId: uuid.optional(),
-  limit: z.coerce.number().int().min(1).max(200).default(50),
+  limit: queryInteger("limit", { min: 1, max: 200 }).default(50),
 });

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { safeString } from "./validation";
+import { queryInteger, safeString } from "./validation";
 
 /*
  * Paging: every list takes `limit` (default 50, at most 200) and an opaque `cursor` from the
@@ -11,12 +11,7 @@ export const PAGE_DEFAULT = 50;
 export const PAGE_MAX = 200;
 
 export const pageQuerySchema = z.object({
-  limit: z.coerce
-    .number({ error: "limit must be a whole number." })
-    .int("limit must be a whole number.")
-    .min(1, "limit must be at least 1.")
-    .max(PAGE_MAX, `limit must be at most ${PAGE_MAX}.`)
-    .default(PAGE_DEFAULT),
+  limit: queryInteger("limit", { min: 1, max: PAGE_MAX }).default(PAGE_DEFAULT),
   cursor: safeString().max(200, "That cursor is not valid.").optional(),
 });
 export type PageQuery = z.infer<typeof pageQuerySchema>;

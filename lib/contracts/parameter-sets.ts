@@ -2,7 +2,7 @@ import { z } from "zod";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import type { UserRef } from "./common";
 import type { LabRole } from "./roles";
-import { safeString, searchTermSchema } from "./validation";
+import { INT4_MAX, safeString, searchTermSchema } from "./validation";
 
 /*
  * Parameter sets: request schemas and answer shapes. Pure zod, so forms use the same schemas as
@@ -41,7 +41,8 @@ export const tagsSchema = z
 export const setVersionSchema = z
   .number({ error: "Send the version you edited (a whole number)." })
   .int("Must be a whole number.")
-  .min(1, "Must be ≥ 1.");
+  .min(1, "Must be ≥ 1.")
+  .max(INT4_MAX, `Must be at most ${INT4_MAX}.`);
 
 export const createParameterSetSchema = z.object({
   labId: z.uuid({ error: "Choose a lab." }),

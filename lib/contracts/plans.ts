@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { planRequestSchema } from "@/lib/planner/schema";
 import { recordNameSchema } from "./light-sources";
-import { finiteNumber as finite, safeString } from "./validation";
+import { finiteNumber as finite, int4Field, safeString } from "./validation";
 
 /* Plans saved with a parameter set: the stored record, its request schema and answer shape. */
 
@@ -58,7 +58,7 @@ export type SavedPlanBody = z.infer<typeof savedPlanSchema>;
 
 export const savePlanSchema = z.strictObject({
   name: recordNameSchema,
-  setVersion: finite("set version").int().min(1),
+  setVersion: int4Field("set version", 1),
   request: planRequestSchema,
   plan: savedPlanSchema,
 });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { finiteNumber } from "@/lib/physics/number-fields";
 
 /*
  * Text that PostgreSQL can store unchanged and that round-trips through UTF-8. A NUL (U+0000) is
@@ -75,6 +76,78 @@ export function emailField(missing = "Enter an e-mail address.") {
 }
 
 export const emailSchema = emailField();
+
+/*
+ * Whole numbers. PostgreSQL's integer holds −2 147 483 648 … 2 147 483 647; a larger value bound to
+ * an integer column or compared with one is a database error (a 500), so every whole number that
+ * reaches a query is bounded here first.
+ */
+export const INT4_MAX = 2_147_483_647;
+
+/** A whole number that fits PostgreSQL's integer, at least `min`. */
+export function int4Field(what: string, min = 0) {
+  return finiteNumber(what)
+    .int(`${what} must be a whole number`)
+    .min(min, `${what} must be at least ${min}`)
+    .max(INT4_MAX, `${what} must be at most ${INT4_MAX}`);
+}
+
+/**
+ * A whole number written in a query string: decimal digits only, so "0x10", " 5", "5 ", "1e3" and
+ * "+5" are refused rather than coerced (Number() would take them all).
+ */
+export function queryInteger(what: string, range: { min: number; max: number }) {
+  const message = `${what} must be a whole number from ${range.min} to ${range.max}, written in digits.`;
+  return z
+    .string({ error: message })
+    .regex(/^[0-9]{1,10}$/, message)
+    .transform(Number)
+    .pipe(z.number().min(range.min, message).max(range.max, message));
+}
+
+/**
+ * A timestamp as PostgreSQL prints it (`2026-12-02 05:01:02.123456+00`), which names a real
+ * instant: month 1–12, a day the month has, hour < 24 and so on. "2026-99-99" or "0000-00-00"
+ * would match a pattern but make PostgreSQL fail the cast.
+ */
+const TIMESTAMP_TEXT = /^(\d{4})-(\d\d)-(\d\d)[ T](\d\d):(\d\d):(\d\d)(\.\d{1,6})?([+-](\d\d)(:?(\d\d))?|Z)?$/;
+
+export function isTimestampText(value: string): boolean {
+  const m = TIMESTAMP_TEXT.exec(value);
+  if (!m) return false;
+  const [year, month, day, hour, minute, second] = m.slice(1, 7).map(Number) as [number, number, number, number, number, number];
+  if (year < 1 || month < 1 || month > 12 || day < 1 || hour > 23 || minute > 59 || second > 59) return false;
+  const offsetHours = m[9] === undefined ? 0 : Number(m[9]);
+  const offsetMinutes = m[11] === undefined ? 0 : Number(m[11]);
+  if (offsetHours > 15 || offsetMinutes > 59) return false;
+  // Day 31 in a 30-day month (or 29 February in a common year) rolls over into the next month.
+  const date = new Date(Date.UTC(year, month - 1, day));
+  date.setUTCFullYear(year);
+  return date.getUTCMonth() === month - 1 && date.getUTCDate() === day;
+}
+
+export const timestampTextSchema = z.string().refine(isTimestampText, { message: "Not a timestamp." });
+
+/**
+ * Text of a file name as stored and sent back in Content-Disposition: control characters removed,
+ * at most 255 UTF-8 bytes (what file systems allow), cut on a character boundary.
+ */
+export const FILE_NAME_MAX_BYTES = 255;
+
+export function cleanFileName(name: string, fallback: string): string {
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: removing control characters is the point
+  const stripped = name.replace(/[\u0000-\u001f\u007f-\u009f]/g, "").trim();
+  const encoder = new TextEncoder();
+  let out = "";
+  let bytes = 0;
+  for (const char of stripped) {
+    const size = encoder.encode(char).length;
+    if (bytes + size > FILE_NAME_MAX_BYTES) break;
+    out += char;
+    bytes += size;
+  }
+  return isStorableText(out) && out !== "" ? out : fallback;
+}
 
 // The one formatter of zod issues lives beside the physics, which may import nothing from here.
 export { zodIssueFields, zodIssueLines } from "@/lib/physics/zod-issues";

@@ -2,7 +2,18 @@ import "server-only";
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
 import { caughtMailSchema, type CaughtMail } from "./caught-mail";
+import { serverSettings } from "@/lib/settings/server";
 import { mailSettings } from "./send";
+
+/**
+ * Whether the caught-mail page exists here: only in a demo deployment (GYROLUX_DEMO=1) whose mail
+ * goes to the local catcher. Caught mail holds live reset and invitation links of every user, so
+ * a real deployment never shows it, whatever its SMTP host.
+ */
+export function caughtMailVisible(): boolean {
+  const local = mailSettings.host === "127.0.0.1" || mailSettings.host === "localhost";
+  return serverSettings.site.demo && local;
+}
 
 /** Messages the local SMTP stand-in caught, newest first (the site-admin mail page). */
 export async function listCaughtMail(options: { limit: number }): Promise<{ dir: string; items: CaughtMail[] }> {

@@ -1,7 +1,7 @@
 import Papa from "papaparse";
 import { z } from "zod";
 import { finiteNumber, positiveNumber, safeString } from "@/lib/contracts/validation";
-import { measuredQuantitySchema, type MeasuredPoint, type MeasuredQuantity } from "./point";
+import { measuredQuantitySchema, type MeasuredPoint, type MeasuredQuantity, pointLimitProblem } from "./point";
 import {
   quantityOfUnit,
   valueToSi,
@@ -383,6 +383,18 @@ export function parseMeasurementTable(
 
     if (!Number.isFinite(valueSi) || !Number.isFinite(sigmaSi)) {
       report(row.line, "value or σ is out of range after conversion");
+      continue;
+    }
+    const outside = pointLimitProblem({
+      wavelengthNm,
+      value: valueSi,
+      sigma: sigmaSi,
+      temperatureK: temperatureK!,
+      fieldT: fieldT!,
+      lengthM: lengthM!,
+    });
+    if (outside) {
+      report(row.line, outside);
       continue;
     }
     // Every rule of measuredPointSchema was checked above, field by field with its own message;

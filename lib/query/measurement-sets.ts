@@ -12,6 +12,7 @@ import { type MeasuredPoint, toMeasuredPoint, usablePoints } from "@/lib/measure
 import { RequestError } from "@/lib/query/fetcher";
 import { apiFetch } from "./fetcher";
 import type { ItemResponse, ItemsResponse } from "@/lib/contracts/common";
+import type { Page } from "@/lib/contracts/paging";
 
 const LIST_ROOT = ["measurement-sets"] as const;
 
@@ -22,18 +23,32 @@ export const measurementKeys = {
   points: (id: string) => ["measurement-set", id, "points"] as const,
 };
 
-function listPath(filter: { labId?: string; q?: string }): string {
-  const search = new URLSearchParams();
+function listPath(filter: { labId?: string; q?: string }, cursor: string | null): string {
+  const search = new URLSearchParams({ limit: String(PICKER_PAGE) });
   if (filter.labId) search.set("labId", filter.labId);
   if (filter.q) search.set("q", filter.q);
-  const qs = search.toString();
-  return qs ? `/api/measurement-sets?${qs}` : "/api/measurement-sets";
+  if (cursor) search.set("cursor", cursor);
+  return `/api/measurement-sets?${search}`;
+}
+
+// The pickers (overlay, fit) offer every set, so the list follows the pages to the end.
+const PICKER_PAGE = 200;
+
+async function allMeasurementSets(filter: { labId?: string; q?: string }, signal: AbortSignal): Promise<MeasurementSetSummary[]> {
+  const items: MeasurementSetSummary[] = [];
+  let cursor: string | null = null;
+  do {
+    const page: Page<MeasurementSetSummary> = await apiFetch<Page<MeasurementSetSummary>>(listPath(filter, cursor), { signal });
+    items.push(...page.items);
+    cursor = page.nextCursor;
+  } while (cursor);
+  return items;
 }
 
 export const measurementSetsQuery = (filter: { labId?: string; q?: string }) =>
   queryOptions({
     queryKey: measurementKeys.list(filter),
-    queryFn: ({ signal }) => apiFetch<ItemsResponse<MeasurementSetSummary>>(listPath(filter), { signal }).then((r) => r.items),
+    queryFn: ({ signal }) => allMeasurementSets(filter, signal),
   });
 
 /** Every point of a set with its mask, note and edits, and the set's revision (the measurement-set page). */

@@ -30,7 +30,10 @@ export function useInvite(labId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: { email: string; role: LabRole }) =>
-      apiFetch<{ item: InvitationSummary }>(`/api/labs/${encodeURIComponent(labId)}/invitations`, { method: "POST", json: input }),
+      apiFetch<{ item: InvitationSummary; mail: "sent" | "queued" }>(`/api/labs/${encodeURIComponent(labId)}/invitations`, {
+        method: "POST",
+        json: input,
+      }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: sharingKeys.invitations(labId) }),
   });
 }

@@ -57,6 +57,7 @@ function sentence(entry: Entry): Record<AuditAction, () => string> {
     "share_link.revoke": () => `revoked a share link to ${setTarget}`,
     "token.create": () => `made the API token ${quoted(target, "")}`.trim(),
     "token.revoke": () => `revoked the API token ${quoted(target, "")}`.trim(),
+    "user.email_verified": () => "confirmed their e-mail address",
     "user.end_sessions": () => `ended every session of ${target ?? "an account"}`,
     "user.password_change": () => "changed their password",
     "user.password_reset": () => "reset their password",

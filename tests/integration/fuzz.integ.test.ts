@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { Client, createSet, signUp, uniqueEmail, validParams } from "./support";
+import { Client, createSet, type JsonBody, signUp, uniqueEmail, validParams } from "./support";
 import { seededRandom } from "@/lib/random";
+import { encodeCursor } from "@/db/paging";
 
 /*
  * Seeded fuzzing of every mutating route: each case is a valid request with one hostile change
@@ -260,6 +261,17 @@ describe("fuzzing the mutating routes", () => {
       }),
     );
 
+    // Fixed cases of the second trust review (impossible cursors, integers beyond PostgreSQL's
+    // integer, NUL in queries and uploads, physically impossible points, deep JSON inside a
+    // multipart field): each must be a 400 that names its field.
+    const fixed = await fixedCases({ owner, lab, setId: set.id });
+    for (const item of fixed) {
+      results.push({ route: item.label, status: item.status, request: { method: "FIXED", path: item.label } });
+      if (item.status === 400)
+        expect(item.field === undefined || item.fields.includes(item.field), `${item.label}: ${item.fields}`).toBe(true);
+    }
+    expect(fixed.filter((item) => item.status !== 400).map((item) => `${item.label} → ${item.status}`)).toEqual([]);
+
     const serverErrors = results.filter((result) => result.status >= 500 || result.status === 0);
     const accepted = results.filter((result) => result.status >= 200 && result.status < 300);
     console.log(
@@ -277,3 +289,134 @@ describe("fuzzing the mutating routes", () => {
     expect(await snapshot()).toEqual(before);
   });
 });
+
+const ZERO_ID = "00000000-0000-4000-8000-000000000000";
+
+/** A multipart upload of the demo's column layout, with one field made hostile. */
+function uploadForm(options: { lab: string; name?: string; sample?: string; fileName?: string; mapping?: string; csv?: string }): FormData {
+  const header = options.csv?.split("\n")[0] ?? "wavelength_nm,verdet,sigma";
+  const form = new FormData();
+  form.set("file", new File([options.csv ?? `${header}\n632.8,-134,2\n`], options.fileName ?? "fuzz.csv", { type: "text/csv" }));
+  form.set("labId", options.lab);
+  form.set("name", options.name ?? `fuzz upload ${Date.now()}`);
+  form.set("sample", options.sample ?? "");
+  form.set(
+    "mapping",
+    options.mapping ??
+      JSON.stringify({
+        wavelengthColumn: "wavelength_nm",
+        wavelengthUnit: "nm",
+        quantity: "verdet",
+        valueColumn: "verdet",
+        valueUnit: "rad/(T·m)",
+        sigmaColumn: "sigma",
+        temperatureColumn: null,
+        fieldColumn: null,
+        lengthColumn: null,
+      }),
+  );
+  form.set("defaults", JSON.stringify({ temperatureK: 4.2, fieldT: 1, lengthM: 0.01 }));
+  return form;
+}
+
+async function fixedCases(options: { owner: Client; lab: string; setId: string }) {
+  const { owner, lab, setId } = options;
+  const cases: { label: string; field?: string; send: () => Promise<Response> }[] = [];
+  for (const stamp of ["2026-99-99 00:00:00+00", "0000-00-00 00:00:00", "2026-02-30 12:00:00+00"]) {
+    const cursor = encodeCursor([stamp, ZERO_ID]);
+    for (const path of [
+      `/api/parameter-sets?labId=${lab}`,
+      `/api/measurement-sets?labId=${lab}`,
+      `/api/labs/${lab}/invitations?x=1`,
+      "/api/tokens?x=1",
+      `/api/labs/${lab}/audit?labId=${lab}`,
+      `/api/parameter-sets/${setId}/share-links?x=1`,
+    ]) {
+      cases.push({ label: `GET ${path} cursor ${stamp}`, field: "cursor", send: () => owner.raw("GET", `${path}&cursor=${cursor}`) });
+    }
+  }
+  cases.push({
+    label: "GET versions cursor beyond int4",
+    field: "cursor",
+    send: () => owner.raw("GET", `/api/parameter-sets/${setId}/versions?cursor=${encodeCursor([3_000_000_000])}`),
+  });
+  for (const limit of ["0x10", "%205", "1e1", "99999999999"]) {
+    cases.push({
+      label: `GET limit=${limit}`,
+      field: "limit",
+      send: () => owner.raw("GET", `/api/parameter-sets?labId=${lab}&limit=${limit}`),
+    });
+  }
+  cases.push({ label: "GET measurement-sets q with NUL", field: "q", send: () => owner.raw("GET", "/api/measurement-sets?q=a%00b") });
+  const post = (form: FormData) => () => owner.raw("POST", "/api/measurement-sets", { body: form });
+  cases.push({ label: "upload NUL in name", field: "name", send: post(uploadForm({ lab, name: "a\u0000b" })) });
+  cases.push({ label: "upload NUL in sample", field: "sample", send: post(uploadForm({ lab, sample: "a\u0000b" })) });
+  cases.push({ label: "upload NUL in file name", field: "file", send: post(uploadForm({ lab, fileName: "a\u0000b.csv" })) });
+  cases.push({
+    label: "upload NUL in a mapped header",
+    // The mapping's JSON text holds the NUL, so the one JSON reader refuses the field as a whole.
+    field: "mapping",
+    send: post(
+      uploadForm({
+        lab,
+        csv: "wave\u0000length,verdet,sigma\n632.8,-134,2\n",
+        mapping: JSON.stringify({
+          wavelengthColumn: "wave\u0000length",
+          wavelengthUnit: "nm",
+          quantity: "verdet",
+          valueColumn: "verdet",
+          valueUnit: "rad/(T·m)",
+          sigmaColumn: "sigma",
+          temperatureColumn: null,
+          fieldColumn: null,
+          lengthColumn: null,
+        }),
+      }),
+    ),
+  });
+  for (const [label, row] of [
+    ["wavelength 1e-300 nm", "1e-300,-134,2"],
+    ["wavelength 1e300 nm", "1e300,-134,2"],
+    ["σ 5e-324", "632.8,-134,5e-324"],
+  ] as const) {
+    cases.push({ label: `upload ${label}`, field: "file", send: post(uploadForm({ lab, csv: `wavelength_nm,verdet,sigma\n${row}\n` })) });
+  }
+  cases.push({
+    label: "upload mapping nested 200,000 deep",
+    field: "mapping",
+    send: post(uploadForm({ lab, mapping: `${"[".repeat(200_000)}1${"]".repeat(200_000)}` })),
+  });
+  cases.push({
+    label: "plan setVersion 3000000000",
+    field: "setVersion",
+    send: () =>
+      owner.raw("POST", `/api/parameter-sets/${setId}/plans`, {
+        body: JSON.stringify({ name: "p", setVersion: 3_000_000_000, request: {}, plan: {} }),
+        headers: { "content-type": "application/json" },
+      }),
+  });
+  cases.push({
+    label: "PATCH version 3000000000",
+    field: "version",
+    send: () =>
+      owner.raw("PATCH", `/api/parameter-sets/${setId}`, {
+        body: JSON.stringify({ version: 3_000_000_000, name: "x" }),
+        headers: { "content-type": "application/json" },
+      }),
+  });
+  const out: { label: string; status: number; field?: string; fields: string[] }[] = [];
+  for (const item of cases) {
+    let status = 0;
+    let fields: string[] = [];
+    try {
+      const response = await item.send();
+      status = response.status;
+      const body = (response.headers.get("content-type") ?? "").includes("json") ? ((await response.json()) as JsonBody) : null;
+      fields = Object.keys(body?.error?.fields ?? {});
+    } catch {
+      status = 0;
+    }
+    out.push({ label: item.label, status, field: item.field, fields });
+  }
+  return out;
+}

@@ -7,7 +7,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createDb, createPool } from "@/db/connection";
 import { DEMO_MEASUREMENT_SETS } from "@/db/demo-measurements";
 import { importMeasurementSet } from "@/db/measurement-import";
-import { auditLog, measurementSets, users } from "@/db/schema";
+import { auditLog, measurementSets, pendingObjectDeletes, users } from "@/db/schema";
+import { deleteMeasurementSet } from "@/db/queries/measurement-sets";
+import { sweepObjects } from "@/db/queries/object-sweep";
 import { parseMeasurementTable, proposeMapping, readTable } from "@/lib/measurements/parse";
 import { createObjectStore } from "@/lib/storage/object-store";
 import { storageEnvSchema } from "@/lib/settings/storage";
@@ -274,5 +276,22 @@ describe("measurement import as one unit", () => {
     await expect(importMeasurementSet({ db, store, actorId: editorId, input: input(name, labId) })).rejects.toThrow();
     expect(await store.list(`labs/${labId}/`)).toEqual([]);
     expect(await db.select().from(measurementSets).where(eq(measurementSets.name, name))).toEqual([]);
+  });
+
+  it("17: a delete while the store is down leaves a pending delete, and the sweep removes the object later", async () => {
+    const name = uniqueName("Sweep later");
+    const id = await importMeasurementSet({ db, store, actorId: editorId, input: input(name) });
+    const [row] = await db.select({ objectKey: measurementSets.objectKey }).from(measurementSets).where(eq(measurementSets.id, id));
+    const objectKey = row!.objectKey;
+    // The import's own pending row went with its transaction.
+    expect(await db.select().from(pendingObjectDeletes).where(eq(pendingObjectDeletes.objectKey, objectKey))).toEqual([]);
+    const brokenStore = createObjectStore({ ...storageEnvSchema.parse(process.env), endpoint: failingUrl });
+    const access = { caller: { id: editorId, siteRole: "member" }, kind: "measurement_set", id, labId: DEMO_LAB_ID } as never;
+    expect(await deleteMeasurementSet(db, { access, store: brokenStore })).toBe(true);
+    expect(await objectsNamed(objectKey.split("/").pop()!)).toHaveLength(1);
+    expect(await db.select().from(pendingObjectDeletes).where(eq(pendingObjectDeletes.objectKey, objectKey))).toHaveLength(1);
+    expect(await sweepObjects(db, { store, keys: [objectKey] })).toBe(1);
+    expect(await objectsNamed(objectKey.split("/").pop()!)).toEqual([]);
+    expect(await db.select().from(pendingObjectDeletes).where(eq(pendingObjectDeletes.objectKey, objectKey))).toEqual([]);
   });
 });

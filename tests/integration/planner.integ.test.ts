@@ -119,6 +119,12 @@ describe("light sources and plans through the API", () => {
         noise: result.noise,
       },
     };
+    // A plan names a version the set has: one it never had, or one beyond PostgreSQL's integer, is 400 with the field.
+    for (const setVersion of [set.version + 50, 3_000_000_000]) {
+      const refused = await editor.post(`/api/parameter-sets/${set.id}/plans`, { ...body, setVersion });
+      expect(refused.status, `setVersion ${setVersion}`).toBe(400);
+      expect(refused.body.error.fields.setVersion).toBeTruthy();
+    }
     expect((await viewer.post(`/api/parameter-sets/${set.id}/plans`, body)).status).toBe(403);
     expect((await outsider.post(`/api/parameter-sets/${set.id}/plans`, body)).status).toBe(404);
     const saved = await editor.post(`/api/parameter-sets/${set.id}/plans`, body);

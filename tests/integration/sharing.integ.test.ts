@@ -26,8 +26,10 @@ describe("invitations by e-mail", () => {
     const pending = await owner.get(`/api/labs/${DEMO_LAB_ID}/invitations`);
     expect(pending.body.items.map((i: { id: string }) => i.id)).toContain(invited.body.item.id);
 
-    const mail = await waitForMail(account.email);
-    expect(mail.subject).toContain("Lindqvist Moor Faraday Laboratory");
+    const mail = await waitForMail(account.email, { matching: /\/invite\// });
+    // The lab's and the inviter's names are user text: never in the Subject, quoted in the body.
+    expect(mail.subject).toBe("You are invited to a lab on Gyrolux");
+    expect(mail.text).toContain("“Lindqvist Moor Faraday Laboratory”");
     const token = linkSecret(mail, "/invite");
 
     // Not a member before accepting.
@@ -52,7 +54,7 @@ describe("invitations by e-mail", () => {
     const account = await signUp();
     const other = await signUp();
     const invited = await owner.post(`/api/labs/${DEMO_LAB_ID}/invitations`, { email: account.email, role: "viewer" });
-    const token = linkSecret(await waitForMail(account.email), "/invite");
+    const token = linkSecret(await waitForMail(account.email, { matching: /\/invite\// }), "/invite");
 
     const wrongPerson = await other.client.post("/api/invitations/accept", { token });
     expect(wrongPerson.status).toBe(403);
@@ -98,7 +100,7 @@ describe("password reset and change", () => {
     expect(unknown.status).toBe(202);
     expect(known.body).toEqual(unknown.body);
 
-    const token = linkSecret(await waitForMail(account.email), "/reset-password");
+    const token = linkSecret(await waitForMail(account.email, { matching: /\/reset-password\// }), "/reset-password");
     const weak = await new Client().post("/api/password-reset/confirm", { token, newPassword: "short" });
     expect(weak.status).toBe(400);
     const done = await new Client().post("/api/password-reset/confirm", { token, newPassword: "a brand new passphrase" });

@@ -173,11 +173,17 @@ export async function createApiToken(client: Client, name = uniqueName("integ to
  * A fresh account via the JSON sign-up endpoint (its own personal lab). Sign-up answers the same
  * for every address, so the new user's id and lab come from signing in.
  */
-export async function signUp(options: { name?: string; email?: string; password?: string } = {}) {
+export async function signUp(options: { name?: string; email?: string; password?: string; confirmEmail?: boolean } = {}) {
   const email = options.email ?? uniqueEmail("integ");
   const password = options.password ?? "correct horse battery";
   const response = await new Client().post("/api/sign-up", { name: options.name ?? "Integration Tester", email, password });
   if (response.status !== 202) throw new Error(`sign-up failed: ${response.status} ${JSON.stringify(response.body)}`);
+  // New accounts confirm their address through the mailed link before they may invite.
+  if (options.confirmEmail !== false) {
+    const token = linkSecret(await waitForMail(email, { matching: /\/verify-email\// }), "/verify-email");
+    const confirmed = await new Client().post("/api/email-verification/confirm", { token });
+    if (confirmed.status !== 200) throw new Error(`address confirmation failed: ${confirmed.status} ${JSON.stringify(confirmed.body)}`);
+  }
   const client = await signIn(email, password);
   const session = await client.get("/api/auth/session");
   const labs = await client.get("/api/labs");
@@ -213,11 +219,17 @@ export async function mailTo(address: string): Promise<CaughtMail[]> {
   return found;
 }
 
-/** Waits until `count` messages to the address have arrived; returns the newest. */
-export async function waitForMail(address: string, options: { count?: number; timeoutMs?: number } = {}): Promise<CaughtMail> {
+/**
+ * Waits until `count` messages to the address (those whose subject or text match `matching`, when
+ * given) have arrived; returns the newest.
+ */
+export async function waitForMail(
+  address: string,
+  options: { count?: number; timeoutMs?: number; matching?: RegExp } = {},
+): Promise<CaughtMail> {
   const deadline = Date.now() + (options.timeoutMs ?? 15_000);
   for (;;) {
-    const mails = await mailTo(address);
+    const mails = (await mailTo(address)).filter((m) => !options.matching || options.matching.test(`${m.subject}\n${m.text}`));
     if (mails.length >= (options.count ?? 1)) return mails[mails.length - 1]!;
     if (Date.now() > deadline) throw new Error(`no mail to ${address} in ${MAIL_DIR} (have ${mails.length})`);
     await new Promise((resolve) => setTimeout(resolve, 100));

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
 import { auth } from "@/lib/auth/config";
+import { EmailPanel } from "./_components/email-panel";
 import { PasswordPanel } from "./_components/password-panel";
 import { TokensPanel } from "./_components/tokens-panel";
 
@@ -11,6 +12,7 @@ export default async function SettingsPage() {
   return (
     <>
       <PageHeader title="Settings" />
+      <EmailPanel />
       <PasswordPanel userId={session?.user?.id ?? ""} />
       <TokensPanel />
     </>

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { db } from "@/db/client";
 import { DEMO_PASSWORD, DEMO_USERS } from "@/db/demo-data";
 import { isDemoSeeded } from "@/db/queries/demo";
-import { safeRedirectTarget } from "@/lib/auth/redirect-target";
+import { afterSignInTarget } from "@/lib/auth/after-sign-in";
 import { SignInForm, type DemoAccount } from "./_components/sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
@@ -25,7 +25,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       <section className="rounded-lg border border-ink/10 bg-paper-raised p-6 shadow-sm sm:p-8">
         <h1 className="text-xl font-semibold">Sign in to Gyrolux</h1>
         <SignInForm
-          redirectTo={safeRedirectTarget(first(params.callbackUrl) ?? first(params.redirectTo))}
+          redirectTo={afterSignInTarget(first(params.callbackUrl) ?? first(params.redirectTo))}
           demo={demo ? { accounts: DEMO_ACCOUNTS, password: DEMO_PASSWORD } : null}
         />
         <p className="mt-6 text-sm text-ink-soft">

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { safeRedirectTarget } from "@/lib/auth/redirect-target";
+import { afterSignInTarget } from "@/lib/auth/after-sign-in";
 import { SignUpForm } from "./_components/sign-up-form";
 
 export const metadata: Metadata = { title: "Create an account" };
@@ -17,7 +17,7 @@ export default async function SignUpPage({ searchParams }: { searchParams: Promi
       <h1 className="text-xl font-semibold">Create a Gyrolux account</h1>
       <p className="mt-1 text-sm text-ink-soft">A lab owner invites you to their lab by e-mail; you join when you accept.</p>
       <SignUpForm
-        redirectTo={redirectTo ? safeRedirectTarget(redirectTo) : undefined}
+        redirectTo={redirectTo ? afterSignInTarget(redirectTo) : undefined}
         initialEmail={(first(params.email) ?? "").slice(0, 320)}
       />
       <p className="mt-6 text-sm text-ink-soft">

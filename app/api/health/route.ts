@@ -1,6 +1,8 @@
 import { sql } from "drizzle-orm";
 import { connection } from "next/server";
 import { db } from "@/db/client";
+import { kickOutbox } from "@/lib/mail/outbox";
+import { startObjectSweep } from "@/lib/storage/sweep";
 
 const PROBE_TIMEOUT_MS = 3_000;
 
@@ -13,6 +15,9 @@ export async function GET(): Promise<Response> {
       db.execute(sql`select 1`),
       new Promise((_, reject) => setTimeout(() => reject(new Error("health probe timed out")), PROBE_TIMEOUT_MS)),
     ]);
+    // Mail queued before a restart waits for a sender, orphaned objects for the sweep: the first health check starts both.
+    kickOutbox();
+    startObjectSweep();
     return Response.json({ status: "ok", database: "up" }, { headers: { "Cache-Control": "no-store" } });
   } catch (error) {
     console.error("[api] GET /api/health: database down:", error instanceof Error ? error.message : error);

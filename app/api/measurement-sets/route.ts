@@ -1,15 +1,18 @@
 import { db } from "@/db/client";
 import { createMeasurementSet, listMeasurementSets } from "@/db/queries/measurement-sets";
 import { DomainError, validationError } from "@/lib/contracts/errors";
+import { cleanFileName, isStorableText, TEXT_PROBLEM } from "@/lib/contracts/validation";
 import { withStorage } from "@/lib/api/storage";
 import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
+import { parseJsonText } from "@/lib/api/body";
 import { readMultipart } from "@/lib/api/multipart";
+import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
 import { authorizeLab, requireCaller } from "@/lib/auth/access";
 import { MAX_FILE_BYTES, parseMeasurementTable } from "@/lib/measurements/parse";
 import { objectStore } from "@/lib/storage/server";
 
-/** GET /api/measurement-sets?labId=&q= → { items: MeasurementSetSummary[] } */
+/** GET /api/measurement-sets?labId=&q=&limit=&cursor= → { items: MeasurementSetSummary[], nextCursor } */
 export const GET = apiRoute(async (request) => {
   const caller = await requireCaller(request);
   const search = new URL(request.url).searchParams;
@@ -17,7 +20,7 @@ export const GET = apiRoute(async (request) => {
   if (!parsed.success) throw validationError(parsed.error);
   const { labId, q } = parsed.data;
   const lab = labId ? await authorizeLab(caller, labId, "viewer") : undefined;
-  return json({ items: await listMeasurementSets(db, { caller, lab, q }) });
+  return json(await listMeasurementSets(db, { caller, lab, q, page: readPage(request) }));
 });
 
 const MIB = 1024 * 1024;
@@ -35,11 +38,7 @@ function jsonField(form: FormData, key: string): unknown {
   if (raw === null) return undefined;
   if (typeof raw !== "string")
     throw new DomainError("validation", `${key} must be JSON text.`, { fields: { [key]: "Must be JSON text." } });
-  try {
-    return JSON.parse(raw);
-  } catch {
-    throw new DomainError("validation", `${key} is not valid JSON.`, { fields: { [key]: "Not valid JSON." } });
-  }
+  return parseJsonText(raw, key);
 }
 
 /** Served back on download: only plain-text types, so an upload can never come back as a page. */
@@ -74,6 +73,8 @@ export const POST = apiRoute(async (request) => {
   const file = form.get("file");
   if (!(file instanceof File)) throw new DomainError("validation", "Choose a CSV or TSV file.", { fields: { file: "Choose a file." } });
   if (file.size > MAX_FILE_BYTES) throw tooLarge(file.size);
+  if (!isStorableText(file.name))
+    throw new DomainError("validation", `The file name cannot be stored: ${TEXT_PROBLEM}`, { fields: { file: TEXT_PROBLEM } });
   const bytes = new Uint8Array(await file.arrayBuffer());
   let text: string;
   try {
@@ -98,7 +99,7 @@ export const POST = apiRoute(async (request) => {
       input: {
         name: meta.data.name,
         sample: meta.data.sample,
-        fileName: file.name || "measurements.csv",
+        fileName: cleanFileName(file.name, "measurements.csv"),
         contentType: safeContentType(file.type || "text/csv"),
         bytes,
         mapping: meta.data.mapping,

@@ -1,4 +1,5 @@
 import { readJson } from "@/lib/api/body";
+import { clientIp } from "@/lib/auth/client-ip";
 import { DomainError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
 import { signUpSchema } from "@/lib/contracts/accounts";
@@ -12,9 +13,9 @@ import { SIGN_UP_RECEIVED, signUpNeutrally } from "@/lib/auth/sign-up";
  */
 export const POST = apiRoute(async (request) => {
   const input = await readJson(request, signUpSchema);
-  const outcome = await signUpNeutrally(input);
+  const outcome = await signUpNeutrally(input, { address: clientIp(request.headers) });
   if (outcome === "throttled") {
-    throw new DomainError("rate_limited", "Too many sign-up attempts for this address. Try again in an hour.", {
+    throw new DomainError("rate_limited", "Too many sign-up attempts from here or for this address. Try again in an hour.", {
       retryAfterS: 3600,
     });
   }

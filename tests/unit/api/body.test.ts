@@ -71,3 +71,15 @@ describe("readJson refuses what cannot be stored", () => {
     await expect(readJson(request('{"a":"\\ud83d\\ude00"}'), loose)).resolves.toEqual({ a: "\u{1F600}" });
   });
 });
+
+describe("one JSON reader for bodies and upload fields", () => {
+  it("refuses a deeply nested multipart field with its name, like a deep body", async () => {
+    const { parseJsonText } = await import("@/lib/api/body");
+    const deep = `${"[".repeat(100_000)}1${"]".repeat(100_000)}`;
+    expect(() => parseJsonText(deep, "mapping")).toThrow(/mapping cannot be stored: Nested deeper/);
+    expect(() => parseJsonText(deep)).toThrow(/request body cannot be stored/);
+    expect(() => parseJsonText('{"a":"\\u0000"}', "defaults")).toThrow(/defaults cannot be stored/);
+    expect(() => parseJsonText("{", "mapping")).toThrow(/mapping is not valid JSON/);
+    expect(parseJsonText('{"wavelengthColumn":"nm"}', "mapping")).toEqual({ wavelengthColumn: "nm" });
+  });
+});

@@ -5,7 +5,8 @@ vi.mock("server-only", () => ({}));
 vi.mock("@/db/client", () => ({ db: {} }));
 
 const { clientIpFrom, DIRECT_CLIENT } = await import("@/lib/auth/client-ip");
-const { signInWaitFor, FREE_FAILURES, FREE_FAILURES_ANY_ADDRESS } = await import("@/lib/auth/rate-limit");
+const { signInWaitMs, FREE_FAILURES, FREE_FAILURES_ANY_ADDRESS, FREE_FAILURES_PER_CLIENT } = await import("@/lib/auth/rate-limit");
+const { newDeviceCookie, verifiedDeviceId, cookieValue } = await import("@/lib/auth/device");
 const { isStorableText, jsonProblem } = await import("@/lib/contracts/validation");
 const { decodeCursor, encodeCursor, timeIdCursor } = await import("@/db/paging");
 const { parseMessage } = await import("@/lib/mail/mime");
@@ -16,6 +17,11 @@ describe("client address (X-Forwarded-For is trusted only from configured proxie
   it("ignores the header without a configured proxy", () => {
     expect(clientIpFrom(headers, 0)).toBe(DIRECT_CLIENT);
   });
+  it("takes the socket peer from the web server's own header, only when the server set it", () => {
+    const withPeer = new Headers({ "x-forwarded-for": "203.0.113.9", "x-gyrolux-peer": "192.0.2.4" });
+    expect(clientIpFrom(withPeer, 0, true)).toBe("192.0.2.4");
+    expect(clientIpFrom(withPeer, 0, false)).toBe(DIRECT_CLIENT);
+  });
   it("takes the address the outermost trusted proxy saw", () => {
     expect(clientIpFrom(headers, 1)).toBe("10.0.0.2");
     expect(clientIpFrom(headers, 2)).toBe("198.51.100.7");
@@ -24,20 +30,49 @@ describe("client address (X-Forwarded-For is trusted only from configured proxie
 
 describe("sign-in slowing", () => {
   const now = Date.now();
-  const rows = (ip: string, n: number) => Array.from({ length: n }, (_, i) => ({ at: new Date(now - i * 1000), ip }));
-  it("slows an address after its own free failures", () => {
-    expect(signInWaitFor({ rows: rows("a", FREE_FAILURES - 1), ip: "a", now })).toBe(0);
-    expect(signInWaitFor({ rows: rows("a", FREE_FAILURES), ip: "a", now })).toBeGreaterThan(0);
+  const dates = (n: number, stepMs = 1000) => Array.from({ length: n }, (_, i) => new Date(now - i * stepMs));
+  const empty = { own: [] as Date[], emailWide: [] as Date[], clientWide: [] as Date[] };
+  const stranger = { knownDevice: false, now };
+  it("slows a client after its own free failures", () => {
+    expect(signInWaitMs({ ...empty, own: dates(FREE_FAILURES - 1) }, stranger)).toBe(0);
+    expect(signInWaitMs({ ...empty, own: dates(FREE_FAILURES) }, stranger)).toBeGreaterThan(0);
   });
   it("never blocks a clean address for the failures of others", () => {
-    expect(signInWaitFor({ rows: rows("attacker", FREE_FAILURES_ANY_ADDRESS + 10), ip: "owner", now })).toBe(0);
+    expect(signInWaitMs({ ...empty, emailWide: dates(FREE_FAILURES_ANY_ADDRESS + 10) }, stranger)).toBe(0);
   });
   it("slows an address that failed once when the e-mail is under attack from many", () => {
-    const spread = [
-      ...rows("a", 1),
-      ...Array.from({ length: FREE_FAILURES_ANY_ADDRESS }, (_, i) => ({ at: new Date(now - i * 10), ip: `x${i}` })),
-    ];
-    expect(signInWaitFor({ rows: spread, ip: "a", now })).toBeGreaterThan(0);
+    expect(signInWaitMs({ ...empty, own: dates(1), emailWide: dates(FREE_FAILURES_ANY_ADDRESS, 10) }, stranger)).toBeGreaterThan(0);
+  });
+  it("never locks out a browser that signed in before for strangers' failures", () => {
+    const attacked = { own: dates(1), emailWide: dates(200, 10), clientWide: dates(FREE_FAILURES_PER_CLIENT + 5, 10) };
+    expect(signInWaitMs(attacked, { knownDevice: true, now })).toBe(0);
+    expect(signInWaitMs({ ...attacked, own: dates(FREE_FAILURES) }, { knownDevice: true, now })).toBeGreaterThan(0);
+  });
+  it("slows one address spraying passwords over many e-mails", () => {
+    expect(signInWaitMs({ ...empty, clientWide: dates(FREE_FAILURES_PER_CLIENT - 1, 10) }, stranger)).toBe(0);
+    expect(signInWaitMs({ ...empty, clientWide: dates(FREE_FAILURES_PER_CLIENT, 10) }, stranger)).toBeGreaterThan(0);
+  });
+  it("doubles the wait per failure past the free ones, capped at 15 minutes", () => {
+    const wait = (n: number) => signInWaitMs({ ...empty, own: Array.from({ length: n }, () => new Date(now)) }, stranger);
+    expect(wait(FREE_FAILURES)).toBe(30_000);
+    expect(wait(FREE_FAILURES + 1)).toBe(60_000);
+    expect(wait(FREE_FAILURES + 20)).toBe(15 * 60_000);
+  });
+});
+
+describe("device cookie", () => {
+  const secret = "unit-test-secret-0123456789";
+  it("verifies only for the e-mail and secret it was made for", () => {
+    const value = newDeviceCookie(secret, "Ada@Lab.test");
+    expect(verifiedDeviceId(secret, "ada@lab.test", value)).toBe(value.split(".")[0]);
+    expect(verifiedDeviceId(secret, "eve@lab.test", value)).toBeNull();
+    expect(verifiedDeviceId(`${secret}x`, "ada@lab.test", value)).toBeNull();
+    expect(verifiedDeviceId(secret, "ada@lab.test", `${value}x`)).toBeNull();
+    expect(verifiedDeviceId(secret, "ada@lab.test", "garbage")).toBeNull();
+  });
+  it("reads one cookie out of a Cookie header", () => {
+    expect(cookieValue("a=1; glx_device=abc.def; b=2", "glx_device")).toBe("abc.def");
+    expect(cookieValue("a=1", "glx_device")).toBeNull();
   });
 });
 
@@ -71,12 +106,16 @@ describe("paging cursors", () => {
 });
 
 describe("caught mail", () => {
-  it("decodes quoted-printable bodies and encoded subjects (RFC 2045 §6.7, RFC 2047)", () => {
+  it("decodes quoted-printable bodies and encoded subjects (RFC 2045 §6.7, RFC 2047)", async () => {
     const raw =
       "Subject: =?UTF-8?Q?Einladung_=E2=80=93_=C3=BC?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\n" +
       "http://x/invite/abc=\r\ndef =C3=BC\r\n";
-    const parsed = parseMessage(raw);
+    const parsed = await parseMessage(raw);
     expect(parsed.subject).toBe("Einladung – ü");
     expect(parsed.text).toBe("http://x/invite/abcdef ü\n");
+  });
+  it("joins adjacent encoded words without a space (RFC 2047 §6.2)", async () => {
+    const raw = "Subject: =?UTF-8?Q?Atelier_magn=C3=A9t?=\r\n =?UTF-8?Q?o-optique?=\r\n\r\nbody\r\n";
+    expect((await parseMessage(raw)).subject).toBe("Atelier magnéto-optique");
   });
 });

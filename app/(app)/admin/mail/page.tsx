@@ -3,18 +3,15 @@ import { notFound } from "next/navigation";
 import { DateTime } from "@/components/ui/date-time";
 import { PageHeader } from "@/components/ui/page-header";
 import { getSessionUser } from "@/lib/auth/access";
-import { listCaughtMail } from "@/lib/mail/caught";
-import { mailSettings } from "@/lib/mail/send";
+import { caughtMailVisible, listCaughtMail } from "@/lib/mail/caught";
 
 export const metadata: Metadata = { title: "Caught mail" };
 export const dynamic = "force-dynamic";
 
-/** Site admins read what the local SMTP stand-in caught (demo and development only). */
+/** Site admins of a demo deployment read what the local SMTP stand-in caught. */
 export default async function CaughtMailPage() {
   const user = await getSessionUser();
-  // Only while mail goes to the local catcher: a real relay's messages are nobody's to read here.
-  const local = mailSettings.host === "127.0.0.1" || mailSettings.host === "localhost";
-  if (user?.siteRole !== "admin" || !local) notFound();
+  if (user?.siteRole !== "admin" || !caughtMailVisible()) notFound();
   const { dir, items } = await listCaughtMail({ limit: 100 });
   return (
     <>
@@ -22,6 +19,10 @@ export default async function CaughtMailPage() {
         title="Caught mail"
         lead={`The newest 100 messages the local mail catcher stored in ${dir}. Nothing here was delivered.`}
       />
+      <p role="note" className="mb-4 rounded-lg border border-amber-700/40 bg-amber-50 px-4 py-3 text-sm text-amber-950">
+        Demo deployment only. The links below are live: a reset or invitation link works for whoever opens it, until it is used or expires.
+        Do not share this page or copy links out of it.
+      </p>
       {items.length === 0 ? (
         <p className="rounded-lg border border-dashed border-ink/20 px-5 py-6">No mail caught yet.</p>
       ) : (

@@ -20,7 +20,7 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
   const revoke = useRevokeInvitation(labId);
   const [email, setEmail] = useState("");
   const [role, setRole] = useState<LabRole>("viewer");
-  const [sentTo, setSentTo] = useState<string | null>(null);
+  const [sentTo, setSentTo] = useState<{ email: string; mail: "sent" | "queued" } | null>(null);
   const [revoking, setRevoking] = useState<InvitationSummary | null>(null);
   const emailError = invite.error instanceof RequestError ? invite.error.fields?.email : undefined;
 
@@ -35,8 +35,8 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
           invite.mutate(
             { email: email.trim(), role },
             {
-              onSuccess: () => {
-                setSentTo(email.trim());
+              onSuccess: (answer) => {
+                setSentTo({ email: email.trim(), mail: answer.mail });
                 setEmail("");
               },
             },
@@ -88,7 +88,9 @@ export function InvitationsPanel({ labId, labName }: { labId: string; labName: s
         ) : null}
         {sentTo ? (
           <p role="status" className="mt-2 text-sm text-lux-dark">
-            Invitation sent to {sentTo}.
+            {sentTo.mail === "sent"
+              ? `Invitation sent to ${sentTo.email}.`
+              : `Invitation saved for ${sentTo.email}. The mail server has not taken the e-mail yet; it is retried automatically.`}
           </p>
         ) : null}
       </form>

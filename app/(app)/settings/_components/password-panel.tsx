@@ -95,7 +95,7 @@ export function PasswordPanel({ userId }: { userId: string }) {
         onCancel={() => setConfirmEnd(false)}
         onConfirm={() => endAll.mutate(undefined, { onSuccess: () => window.location.assign("/sign-in") })}
       >
-        Every session of your account ends, this one included. API tokens keep working; revoke them below if needed.
+        Every session of your account ends, this one included, and every API token is revoked (scripts need a new one).
       </ConfirmDialog>
     </section>
   );

@@ -8,7 +8,9 @@ export default async function ResetPasswordPage({ params }: { params: Promise<{ 
   return (
     <section className="rounded-lg border border-ink/10 bg-paper-raised p-6 shadow-sm sm:p-8">
       <h1 className="text-xl font-semibold">Choose a new password</h1>
-      <p className="mt-1 text-sm text-ink-soft">Saving it signs your account out everywhere; then sign in with the new password.</p>
+      <p className="mt-1 text-sm text-ink-soft">
+        Saving it signs your account out everywhere and revokes its API tokens; then sign in with the new password.
+      </p>
       <ResetPasswordForm token={token} />
     </section>
   );

@@ -4,10 +4,9 @@ import { readJson } from "@/lib/api/body";
 import { DomainError } from "@/lib/contracts/errors";
 import { apiRoute, json } from "@/lib/api/route";
 import { requireSessionCaller } from "@/lib/auth/access";
-import { clientIp } from "@/lib/auth/client-ip";
 import { signIn } from "@/lib/auth/config";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
-import { rateLimitMessage, recordSignInFailure, signInWaitSeconds } from "@/lib/auth/rate-limit";
+import { rateLimitMessage, reserveSignInAttempt, signInClient } from "@/lib/auth/rate-limit";
 import { changePasswordSchema } from "@/lib/contracts/accounts";
 
 /**
@@ -18,16 +17,15 @@ import { changePasswordSchema } from "@/lib/contracts/accounts";
 export const POST = apiRoute(async (request) => {
   const caller = await requireSessionCaller(request, "Changing the password");
   const { currentPassword, newPassword } = await readJson(request, changePasswordSchema);
-  const ip = clientIp(request.headers);
-  const wait = await signInWaitSeconds({ email: caller.email, ip });
-  if (wait > 0) throw new DomainError("rate_limited", rateLimitMessage(wait), { retryAfterS: wait });
+  const attempt = await reserveSignInAttempt(caller.email, signInClient(request.headers, caller.email));
+  if (!attempt.allowed) throw new DomainError("rate_limited", rateLimitMessage(attempt.waitS), { retryAfterS: attempt.waitS });
   const user = await findUserById(db, { id: caller.id });
   if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) {
-    await recordSignInFailure({ email: caller.email, ip });
     throw new DomainError("validation", "The current password is wrong.", {
       fields: { currentPassword: "The current password is wrong." },
     });
   }
+  await attempt.succeeded();
   await changePassword(db, { userId: caller.id, passwordHash: await hashPassword(newPassword) });
   // A fresh cookie carrying the new session version keeps this browser signed in.
   await signIn("credentials", { email: caller.email, password: newPassword, redirect: false });

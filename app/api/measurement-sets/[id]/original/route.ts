@@ -1,6 +1,7 @@
 import { db } from "@/db/client";
 import { getMeasurementOriginal } from "@/db/queries/measurement-sets";
 import { notFound } from "@/lib/contracts/errors";
+import { cleanFileName } from "@/lib/contracts/validation";
 import { apiRoute } from "@/lib/api/route";
 import { withStorage } from "@/lib/api/storage";
 import { authorize, requireCaller } from "@/lib/auth/access";
@@ -27,7 +28,8 @@ export const GET = apiRoute<Params>(async (request, { params }) => {
     headers: {
       "content-type": original.contentType,
       "content-length": String(original.bytes.byteLength),
-      "content-disposition": contentDisposition(original.fileName),
+      // Names stored before names were capped at 255 bytes are cut here, so the header always fits.
+      "content-disposition": contentDisposition(cleanFileName(original.fileName, "measurements.csv")),
       "cache-control": "private, no-store",
       "x-content-type-options": "nosniff",
     },

@@ -6,8 +6,8 @@ import { forbidden, notFound } from "@/lib/contracts/errors";
 import { isUuid } from "@/lib/contracts/validation";
 
 /**
- * POST /api/users/{id}/end-sessions (a site admin, or the user themself) → 204: every browser
- * session of that user ends at once (API tokens are revoked separately).
+ * POST /api/users/{id}/end-sessions (a site admin, or the user themself) → 204: "sign out
+ * everywhere": every browser session of that user ends at once and every API token is revoked.
  */
 export const POST = apiRoute<{ id: string }>(async (request, { params }) => {
   const { id } = await params;
