@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { changePasswordSchema, emailOnlySchema, resetPasswordSchema, signUpSchema } from "@/lib/contracts/accounts";
+import { changePasswordSchema, confirmEmailSchema, emailOnlySchema, resetPasswordSchema, signUpSchema } from "@/lib/contracts/accounts";
 import { auditQuerySchema } from "@/lib/contracts/audit";
 import { computeFitSchema, computeMapSchema, computeResultSchema, computeSpectrumSchema } from "@/lib/contracts/compute";
 import { saveFitSchema } from "@/lib/contracts/fits";
@@ -101,6 +101,33 @@ export const ROUTES: ApiRouteDoc[] = [
     description: "Ends every session of the account.",
     access: "public",
     body: resetPasswordSchema,
+    response: ok(z.object({ email: z.string() })),
+  },
+  {
+    method: "GET",
+    path: "/api/email-verification",
+    tag: "Accounts",
+    summary: "Whether your e-mail address is confirmed",
+    access: "session",
+    response: ok(z.object({ verified: z.boolean() })),
+  },
+  {
+    method: "POST",
+    path: "/api/email-verification",
+    tag: "Accounts",
+    summary: "Mail a new confirmation link",
+    description:
+      "At most 3 an hour; 200 when the address is already confirmed. A new account may invite only once its address is confirmed.",
+    access: "session",
+    response: { status: 202, description: "The link is on its way.", schema: z.object({ message: z.string() }) },
+  },
+  {
+    method: "POST",
+    path: "/api/email-verification/confirm",
+    tag: "Accounts",
+    summary: "Confirm an e-mail address with the mailed link's token",
+    access: "public",
+    body: confirmEmailSchema,
     response: ok(z.object({ email: z.string() })),
   },
   {
