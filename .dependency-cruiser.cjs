@@ -27,9 +27,10 @@ module.exports = {
     {
       name: "pure-areas-stay-pure",
       comment:
-        "The computations beside the physics (fit, planner, measurements, model, workbench, lab-run kinds) know no server, database or UI.",
+        "The computations beside the physics (fit, planner, measurements, model, workbench, materials, lab-run kinds) " +
+        "know no server, database or UI.",
       severity: "error",
-      from: { path: "^lib/(fit|planner|measurements|model|workbench|lab-runs/(kinds|encoding|export))" },
+      from: { path: "^lib/(fit|planner|measurements|model|workbench|materials|lab-runs/(kinds|encoding|export))" },
       to: { path: ["^db/", "^workers/", UI, SERVER_LIB, "^lib/query/", "^node_modules/(next|react|react-dom|drizzle-orm|pg|pg-boss)/"] },
     },
     {

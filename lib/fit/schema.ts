@@ -1,7 +1,14 @@
 import { z } from "zod";
 import { finiteNumber } from "@/lib/contracts/validation";
 import { measuredPointSchema } from "@/lib/measurements/point";
-import { MODEL_FLAG_KEYS, type ModelFlagKey, materialShape, modelParamsSchema } from "@/lib/physics/schema";
+import {
+  MODEL_FLAG_KEYS,
+  MODEL_OPTION_KEYS,
+  type ModelFlagKey,
+  type ModelOptionKey,
+  materialShape,
+  modelParamsSchema,
+} from "@/lib/physics/schema";
 
 /*
  * The one request schema of the fit, shared by the worker, the API and the command line.
@@ -14,8 +21,8 @@ type MaterialKey = keyof typeof materialShape;
  * totalJ is a quantum number (a multiple of 1/2), not a continuous parameter, and a switch such as
  * the diamagnetic term is not a number at all (physics-model.md §5.5): neither is ever fitted.
  */
-export type FreeableKey = Exclude<MaterialKey, "totalJ" | ModelFlagKey>;
-const NOT_FREEABLE: ReadonlySet<string> = new Set<string>(["totalJ", ...MODEL_FLAG_KEYS]);
+export type FreeableKey = Exclude<MaterialKey, "totalJ" | ModelFlagKey | ModelOptionKey>;
+const NOT_FREEABLE: ReadonlySet<string> = new Set<string>(["totalJ", ...MODEL_FLAG_KEYS, ...MODEL_OPTION_KEYS]);
 export const FREEABLE_KEYS = (Object.keys(materialShape) as MaterialKey[]).filter((k): k is FreeableKey => !NOT_FREEABLE.has(k));
 
 /** The default free parameters (the two amplitudes and the dispersion of the electric part). */
