@@ -5,6 +5,7 @@ import { usePathname } from "next/navigation";
 
 export const NAV_ITEMS = [
   { href: "/parameter-sets", label: "Parameter sets" },
+  { href: "/materials", label: "Materials" },
   { href: "/workbench", label: "Workbench" },
   { href: "/measurement-sets", label: "Measurements" },
   { href: "/planner", label: "Planner" },
