@@ -10,7 +10,7 @@ import type { SpectrumPoint } from "@/lib/physics/types";
 import { formatTransmission } from "@/lib/workbench/absorption-view";
 import { describeCrossing, shareCrossingsNm } from "@/lib/workbench/crossing";
 import { fmt, fmtPercent } from "@/lib/workbench/format";
-import { SERIES_STYLE, type SeriesKey } from "@/lib/workbench/palette";
+import { DIAMAGNETIC_STYLE, SERIES_STYLE, type SeriesKey } from "@/lib/workbench/palette";
 import {
   fromNm,
   rotationTo,
@@ -80,9 +80,10 @@ function SpectrumPanelsImpl({
 
   const xs = useMemo(() => points.map((p) => fromNm(p.wavelengthNm, xUnit)), [points, xUnit]);
 
+  const withDiamagnetic = points.some((p) => p.thetaDiamagneticRad !== undefined);
   const series = useMemo<PlotSeries[]>(() => {
     const keys: SeriesKey[] = [...TOGGLES.filter((k) => on[k]), ...(showEllipticity ? (["ellipticity"] as const) : [])];
-    return keys.map((k) => {
+    const curves: PlotSeries[] = keys.map((k) => {
       const s = SERIES_STYLE[k];
       return {
         key: k,
@@ -93,7 +94,11 @@ function SpectrumPanelsImpl({
         values: seriesValues(points, k, yMode, geometry),
       };
     });
-  }, [points, on, showEllipticity, yMode, geometry]);
+    if (withDiamagnetic && on.diamagnetic !== false) {
+      curves.push({ ...DIAMAGNETIC_STYLE, values: points.map((p) => rotationTo(p.thetaDiamagneticRad ?? 0, yMode, geometry)) });
+    }
+    return curves;
+  }, [points, on, showEllipticity, yMode, geometry, withDiamagnetic]);
 
   const shareSeries = useMemo<PlotSeries[]>(
     () => [
@@ -219,6 +224,27 @@ function SpectrumPanelsImpl({
               {SERIES_STYLE[k].label}
             </label>
           ))}
+          {withDiamagnetic ? (
+            <label className="flex items-center gap-1.5">
+              <input
+                type="checkbox"
+                checked={on.diamagnetic !== false}
+                onChange={(e) => onView({ series: { ...on, diamagnetic: e.target.checked } })}
+              />
+              <svg width="26" height="8" aria-hidden="true">
+                <line
+                  x1="1"
+                  x2="25"
+                  y1="4"
+                  y2="4"
+                  stroke={DIAMAGNETIC_STYLE.color}
+                  strokeWidth={DIAMAGNETIC_STYLE.width}
+                  strokeDasharray={DIAMAGNETIC_STYLE.dash}
+                />
+              </svg>
+              {DIAMAGNETIC_STYLE.label}
+            </label>
+          ) : null}
           <label className="flex items-center gap-1.5">
             <input type="checkbox" checked={showEllipticity} onChange={(e) => onView({ showEllipticity: e.target.checked })} />
             Ellipticity
@@ -273,6 +299,9 @@ function SpectrumPanelsImpl({
               <Readout term="θe" value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
               <Readout term="θm" value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
               <Readout term="θx" value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
+              {cp.thetaDiamagneticRad !== undefined ? (
+                <Readout term="θdia (in θe)" value={`${fmt(rotationTo(cp.thetaDiamagneticRad, yMode, geometry))} ${yUnit}`} />
+              ) : null}
               <Readout
                 term="Ellipticity angle"
                 value={
