@@ -1,6 +1,6 @@
 import { computeSpectrum } from "@/lib/physics/spectrum";
 import type { ModelParams } from "@/lib/physics/schema";
-import { type MaterialEntry, materialById } from "./library";
+import { MATERIALS, type MaterialEntry, materialById } from "./library";
 import { MATERIAL_SOURCES } from "./sources";
 
 /*
@@ -9,10 +9,23 @@ import { MATERIAL_SOURCES } from "./sources";
  * one) and of the free-ion Tb³⁺ description at low temperature (any set with g = 3/2, J = 6 spins).
  */
 
+/**
+ * The library material a set stands on: the one whose index background (ε∞, B, λS) the set shares
+ * exactly. A copied set keeps it through fits of κE, λE or the scale, so its ranges keep applying.
+ */
+export function materialOfParams(params: Pick<ModelParams, "epsInf" | "sellmeierB" | "sellmeierWavelengthNm">): MaterialEntry | undefined {
+  return MATERIALS.find(
+    (m) =>
+      m.params.epsInf === params.epsInf &&
+      m.params.sellmeierB === params.sellmeierB &&
+      m.params.sellmeierWavelengthNm === params.sellmeierWavelengthNm,
+  );
+}
+
 export interface LimitQuery {
-  /** The material the set was copied from (its version provenance), if any. */
+  /** The material the set was copied from; absent = found from the parameters (materialOfParams). */
   materialId?: string | null;
-  params: Pick<ModelParams, "ionDensityPerM3" | "landeG" | "totalJ">;
+  params: Pick<ModelParams, "ionDensityPerM3" | "landeG" | "totalJ" | "epsInf" | "sellmeierB" | "sellmeierWavelengthNm">;
   /** Every temperature the view computes at (one for a spectrum, a range for a map or a fit). */
   temperaturesK: readonly number[];
   fieldsT: readonly number[];
@@ -46,7 +59,7 @@ function outside(values: readonly number[], min: number, max: number): number[] 
 /** Warnings, one line each; empty when the view stays inside every range. */
 export function modelLimitWarnings(q: LimitQuery): string[] {
   const warnings: string[] = [];
-  const material = q.materialId ? materialById(q.materialId) : undefined;
+  const material = q.materialId ? materialById(q.materialId) : materialOfParams(q.params);
   const minT = q.temperaturesK.length > 0 ? Math.min(...q.temperaturesK) : Number.NaN;
   if (isTerbiumLike(q.params) && minT < TERBIUM_FREE_ION_MIN_K) {
     const garnet = materialById("tgg")!;
