@@ -132,7 +132,7 @@ describe("glasses: the diamagnetic term with γ against measured Verdet constant
     expect(relErr(spectrum(silica, [1550])[0]!.verdetRadPerTm!, 0.55)).toBeLessThan(0.1);
   });
 
-  it("with γ = 1 and the whole dispersion, fused silica gives Becquerel's 4.65 at 632.8 nm (materials-sources.md §1c)", () => {
+  it("with γ = 1 (host dispersion), fused silica gives Becquerel's 4.65 at 632.8 nm (materials-sources.md §1c)", () => {
     const v = spectrum(silica, [632.8], { diamagneticAnomaly: undefined, diamagneticDispersion: "host" })[0]!.verdetRadPerTm!;
     expect(v).toBeCloseTo(4.65, 1);
   });
