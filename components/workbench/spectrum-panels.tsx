@@ -210,17 +210,7 @@ function SpectrumPanelsImpl({
           {TOGGLES.map((k) => (
             <label key={k} className="flex items-center gap-1.5">
               <input type="checkbox" checked={on[k]} onChange={(e) => onView({ series: { ...on, [k]: e.target.checked } })} />
-              <svg width="26" height="8" aria-hidden="true">
-                <line
-                  x1="1"
-                  x2="25"
-                  y1="4"
-                  y2="4"
-                  stroke={SERIES_STYLE[k].color}
-                  strokeWidth={SERIES_STYLE[k].width}
-                  strokeDasharray={SERIES_STYLE[k].dash}
-                />
-              </svg>
+              <Swatch style={SERIES_STYLE[k]} />
               {SERIES_STYLE[k].label}
             </label>
           ))}
@@ -231,17 +221,7 @@ function SpectrumPanelsImpl({
                 checked={on.diamagnetic !== false}
                 onChange={(e) => onView({ series: { ...on, diamagnetic: e.target.checked } })}
               />
-              <svg width="26" height="8" aria-hidden="true">
-                <line
-                  x1="1"
-                  x2="25"
-                  y1="4"
-                  y2="4"
-                  stroke={DIAMAGNETIC_STYLE.color}
-                  strokeWidth={DIAMAGNETIC_STYLE.width}
-                  strokeDasharray={DIAMAGNETIC_STYLE.dash}
-                />
-              </svg>
+              <Swatch style={DIAMAGNETIC_STYLE} />
               {DIAMAGNETIC_STYLE.label}
             </label>
           ) : null}
@@ -387,3 +367,12 @@ function Readout({ term, value }: { term: string; value: string }) {
 }
 
 export const SpectrumPanels = memo(SpectrumPanelsImpl);
+
+/** A curve's line style beside its checkbox. */
+function Swatch({ style }: { style: { color: string; width: number; dash: string | undefined } }) {
+  return (
+    <svg width="26" height="8" aria-hidden="true">
+      <line x1="1" x2="25" y1="4" y2="4" stroke={style.color} strokeWidth={style.width} strokeDasharray={style.dash} />
+    </svg>
+  );
+}

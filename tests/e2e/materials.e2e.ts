@@ -26,9 +26,10 @@ describe("material library", () => {
     if ((await lab.count()) > 0) await lab.selectOption({ label: DEMO_LAB.name });
     await garnet.getByRole("button", { name: "New parameter set from Terbium gallium garnet" }).click();
     await page.waitForURL(/\/parameter-sets\/[0-9a-f-]{36}$/, { timeout: 30_000 });
-    await page
-      .getByText(/From material Terbium gallium garnet/)
-      .first()
-      .waitFor({ timeout: 30_000 });
+    const setId = new URL(page.url()).pathname.split("/").pop()!;
+    await page.goto(`/parameter-sets/${setId}/history`);
+    const provenance = page.getByTestId("material-provenance");
+    await provenance.waitFor({ timeout: 30_000 });
+    expect(await provenance.innerText()).toMatch(/from material Terbium gallium garnet, library version \d/);
   });
 });

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { FitProvenanceSummary } from "@/components/parameter-sets/fit-provenance";
+import { MaterialProvenanceSummary } from "@/components/parameter-sets/material-provenance";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { DateTime } from "@/components/ui/date-time";
@@ -48,6 +49,7 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
               <DateTime iso={v.createdAt} /> by {v.createdBy.name}
             </p>
             <FitProvenanceSummary provenance={v.provenance} />
+            <MaterialProvenanceSummary provenance={v.provenance} />
             {canRestore && v.version !== currentVersion ? (
               <Button
                 variant="secondary"
