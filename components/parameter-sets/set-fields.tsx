@@ -6,7 +6,6 @@ import { Field } from "@/components/ui/text-field";
 import type { LabSummary } from "@/lib/contracts/labs";
 import { parseTags, type SetFormInput, type SetFormOutput } from "./form-schema";
 import { FlagInput } from "./flag-input";
-import { RefinementFields } from "./refinement-fields";
 import { ParamInput } from "./param-input";
 
 const GROUPS: ParamMeta["group"][] = ["spins", "optics", "conditions"];
@@ -88,7 +87,6 @@ export function SetFields({ form, labs }: SetFieldsProps) {
           ))}
         </fieldset>
       ))}
-      <RefinementFields form={form} />
     </div>
   );
 }
