@@ -27,11 +27,11 @@ module.exports = {
     {
       name: "pure-areas-stay-pure",
       comment:
-        "Computations beside the physics (analysis, fit, planner, measurements, model, workbench, lab-run kinds): no server, db or UI.",
+        "Computations beside the physics (analysis, fit, planner, materials, model, workbench, lab-run kinds…): no server, db or UI.",
       severity: "error",
       from: {
         path: [
-          "^lib/(analysis|api-docs|csv|fit|text|planner|measurements|model|workbench)/",
+          "^lib/(analysis|api-docs|csv|fit|materials|text|planner|measurements|model|workbench)/",
           "^lib/lab-runs/(kinds|encoding|export|engine|compute-now|open-in-workbench)",
         ],
       },

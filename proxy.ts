@@ -46,6 +46,7 @@ export const config = {
   matcher: [
     "/api/:path*",
     "/parameter-sets/:path*",
+    "/materials/:path*",
     "/workbench/:path*",
     "/measurement-sets/:path*",
     "/lab-runs/:path*",

@@ -1,4 +1,6 @@
 import type { LabRole } from "@/lib/contracts/roles";
+import { materialCopy } from "@/lib/materials/copy";
+import { materialById } from "@/lib/materials/library";
 import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 import type { ModelParams } from "@/lib/physics/schema";
 
@@ -82,6 +84,8 @@ export interface DemoVersion {
   description: string;
   tags: string[];
   params: ModelParams;
+  /** Where the version came from when not typed in (a library material). */
+  provenance?: Record<string, unknown>;
 }
 
 export interface DemoSet {
@@ -147,6 +151,20 @@ const ceriumGlass: ModelParams = {
   gyrationPerT: 2e-3,
 };
 
+/** The terbium garnet as the material library gives it, saved today by the lead with its provenance. */
+function libraryGarnetVersion(): DemoVersion {
+  const copy = materialCopy(materialById("tgg")!, "Terbium gallium garnet — handbook values");
+  return {
+    by: "lead",
+    daysAgo: 0,
+    name: copy.name,
+    description: copy.description,
+    tags: ["TGG", "reference", "room-temperature", ...copy.tags],
+    params: copy.params,
+    provenance: { ...copy.provenance },
+  };
+}
+
 export const DEMO_SETS: DemoSet[] = [
   {
     id: DEMO_GARNET_SET_ID,
@@ -176,6 +194,8 @@ export const DEMO_SETS: DemoSet[] = [
         tags: ["TGG", "reference", "room-temperature", "diamagnetic term"],
         params: { ...TERBIUM_GARNET_DEFAULTS, ...WITH_DIAMAGNETIC },
       },
+      // The handbook set now comes from the material library: cited index, measured loss, fitted κE.
+      libraryGarnetVersion(),
     ],
   },
   {

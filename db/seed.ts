@@ -119,6 +119,7 @@ async function main(): Promise<void> {
             description: version.description,
             tags: version.tags,
             params: version.params,
+            provenance: version.provenance ?? null,
             createdById: idOf(version.by),
             createdAt: at(version.daysAgo),
           })),

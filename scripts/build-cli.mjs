@@ -23,6 +23,7 @@ export const TARGETS = {
   spectrum: { entry: "scripts/spectrum.ts", bundleDeps: true },
   fit: { entry: "scripts/fit.ts", bundleDeps: true },
   plan: { entry: "scripts/plan.ts", bundleDeps: true },
+  material: { entry: "scripts/material.ts", bundleDeps: true },
   "lab-worker": { entry: "workers/lab-runs/main.ts", bundleDeps: false },
   "lab-worker-thread": { entry: "workers/lab-runs/thread.ts", bundleDeps: true },
 };

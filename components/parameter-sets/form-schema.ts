@@ -98,6 +98,11 @@ export function formSnapshot(values: SetFormInput): SetSnapshot {
     if (typeof value === "number") params[meta.key] = value;
   }
   for (const meta of FLAG_META) params[meta.key] = values.params?.[meta.key] === true;
+  // The refinements have no boxes in the form: they ride along unchanged, and the diff must see them.
+  const carried = values.params as SetSnapshot["params"] | undefined;
+  if (carried?.diamagneticAnomaly !== undefined) params.diamagneticAnomaly = carried.diamagneticAnomaly;
+  if (carried?.diamagneticDispersion !== undefined) params.diamagneticDispersion = carried.diamagneticDispersion;
+  if (carried?.absorptionTable !== undefined) params.absorptionTable = carried.absorptionTable;
   return { name: values.name ?? "", description: values.description ?? "", tags: parseTags(values.tags ?? ""), params };
 }
 

@@ -8,6 +8,7 @@ import { useLabs } from "@/lib/query/labs";
 
 export const NAV_ITEMS = [
   { href: "/parameter-sets", label: "Parameter sets" },
+  { href: "/materials", label: "Materials" },
   { href: "/workbench", label: "Workbench" },
   { href: "/measurement-sets", label: "Measurements" },
   { href: "/planner", label: "Planner" },

@@ -16,6 +16,7 @@ import { useParameterSet } from "@/lib/query/parameter-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { WorkbenchPool } from "@/lib/workbench/engine";
 import { FitReport } from "./fit-report";
+import { ModelLimits } from "./model-limits";
 import { useFitRun } from "./use-fit-run";
 import { countOf, noun } from "@/lib/text/plural";
 
@@ -73,6 +74,20 @@ export const FitPanel = memo(function FitPanel({
   const points = useMemo<MeasuredPoint[]>(
     () => (pointQueries.every((q) => q.data) ? pointQueries.flatMap((q) => q.data ?? []) : []),
     [pointQueries],
+  );
+
+  // The fit computes at every measured point's conditions: the model's limits for those.
+  const limitQuery = useMemo(
+    () =>
+      params && points.length > 0
+        ? {
+            params,
+            temperaturesK: points.map((p) => p.temperatureK),
+            fieldsT: points.map((p) => p.fieldT),
+            wavelengthsNm: points.map((p) => p.wavelengthNm),
+          }
+        : null,
+    [params, points],
   );
 
   const { free, boundErrors } = useMemo(() => {
@@ -267,6 +282,7 @@ export const FitPanel = memo(function FitPanel({
           {pointsLoading ? "Loading points…" : chosen.length > 0 ? `${countOf(points.length, noun("point"))} chosen` : ""}
         </span>
       </div>
+      <ModelLimits query={limitQuery} where="the chosen points" />
       {problems.length > 0 && run.status !== "running" ? (
         <ul className="list-disc pl-5 text-sm text-ink-soft">
           {problems.map((p) => (

@@ -40,6 +40,8 @@ import {
 } from "@/lib/workbench/maps";
 import { checkedSpectrumRequest } from "@/lib/workbench/validate";
 import type { WavelengthRange } from "@/lib/workbench/view-state";
+import type { LimitQuery } from "@/lib/materials/limits";
+import { ModelLimits } from "./model-limits";
 
 /*
  * The magnetic share, θ, θe, θm or the Verdet constant over wavelength × temperature and
@@ -78,6 +80,8 @@ interface MapData {
   deviation: number | undefined;
   notes: string[];
   warnings: string[];
+  /** What the map computed at, for the model's validity warnings (lib/materials/limits.ts). */
+  limits: LimitQuery;
 }
 
 /** What differs between the two maps; everything else is drawn the same way. */
@@ -193,6 +197,12 @@ export function MapsPanel({
           deviation: plan.method === "llg" ? maxDeviation(deviations) : undefined,
           notes: plan.notes,
           warnings: arrays.warnings,
+          limits: {
+            params,
+            temperaturesK: kind === "temperature" ? plan.ys : [params.temperatureK],
+            fieldsT: kind === "field" ? plan.ys : [params.fieldT],
+            wavelengthsNm: plan.xs,
+          },
         },
       }));
     } catch (e) {
@@ -378,6 +388,7 @@ function MapPlot({ map, width, fileBase }: { map: MapData; width: number; fileBa
   const noLevelText = quantity === "share" ? undefined : `${qView.short} keeps one sign over this map`;
   return (
     <figure className="space-y-1" data-testid={`share-map-${map.kind}`} data-grid={`${nx}x${ny}`}>
+      <ModelLimits query={map.limits} where={`the ${map.kind} map`} />
       <label htmlFor={selectId} className="flex flex-wrap items-center gap-2 text-sm">
         <span className="font-medium">Show on the {view.plotName}</span>
         <select

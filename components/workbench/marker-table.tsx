@@ -40,7 +40,8 @@ function MarkerTableImpl({
 }) {
   const [draft, setDraft] = useState("");
   const [error, setError] = useState<string | null>(null);
-  const columns = useMemo(() => markerColumns(xUnit, yMode), [xUnit, yMode]);
+  const withDiamagnetic = rows.some((r) => r.point?.thetaDiamagneticRad !== undefined);
+  const columns = useMemo(() => markerColumns(xUnit, yMode, withDiamagnetic), [xUnit, yMode, withDiamagnetic]);
   const markersNm = rows.map((r) => r.nm);
   const anyInterpolated = rows.some((r) => r.source === "interpolated");
 

@@ -10,7 +10,7 @@ import type { SpectrumPoint } from "@/lib/physics/types";
 import { formatTransmission } from "@/lib/workbench/absorption-view";
 import { describeCrossing, shareCrossingsNm } from "@/lib/workbench/crossing";
 import { fmt, fmtPercent } from "@/lib/workbench/format";
-import { SERIES_STYLE, type SeriesKey } from "@/lib/workbench/palette";
+import { DIAMAGNETIC_STYLE, SERIES_STYLE, type SeriesKey } from "@/lib/workbench/palette";
 import {
   fromNm,
   rotationTo,
@@ -85,9 +85,10 @@ function SpectrumPanelsImpl({
 
   const xs = useMemo(() => points.map((p) => fromNm(p.wavelengthNm, xUnit)), [points, xUnit]);
 
+  const withDiamagnetic = points.some((p) => p.thetaDiamagneticRad !== undefined);
   const series = useMemo<PlotSeries[]>(() => {
     const keys: SeriesKey[] = [...TOGGLES.filter((k) => on[k]), ...(showEllipticity ? (["ellipticity"] as const) : [])];
-    return keys.map((k) => {
+    const curves: PlotSeries[] = keys.map((k) => {
       const s = SERIES_STYLE[k];
       return {
         key: k,
@@ -98,7 +99,11 @@ function SpectrumPanelsImpl({
         values: seriesValues(points, k, yMode, geometry),
       };
     });
-  }, [points, on, showEllipticity, yMode, geometry]);
+    if (withDiamagnetic && on.diamagnetic !== false) {
+      curves.push({ ...DIAMAGNETIC_STYLE, values: points.map((p) => rotationTo(p.thetaDiamagneticRad ?? 0, yMode, geometry)) });
+    }
+    return curves;
+  }, [points, on, showEllipticity, yMode, geometry, withDiamagnetic]);
 
   const shareSeries = useMemo<PlotSeries[]>(
     () => [
@@ -219,20 +224,21 @@ function SpectrumPanelsImpl({
           {TOGGLES.map((k) => (
             <label key={k} className="flex items-center gap-1.5">
               <input type="checkbox" checked={on[k]} onChange={(e) => onView({ series: { ...on, [k]: e.target.checked } })} />
-              <svg width="26" height="8" aria-hidden="true">
-                <line
-                  x1="1"
-                  x2="25"
-                  y1="4"
-                  y2="4"
-                  stroke={SERIES_STYLE[k].color}
-                  strokeWidth={SERIES_STYLE[k].width}
-                  strokeDasharray={SERIES_STYLE[k].dash}
-                />
-              </svg>
+              <Swatch style={SERIES_STYLE[k]} />
               {curveLabel(k, yMode)}
             </label>
           ))}
+          {withDiamagnetic ? (
+            <label className="flex items-center gap-1.5">
+              <input
+                type="checkbox"
+                checked={on.diamagnetic !== false}
+                onChange={(e) => onView({ series: { ...on, diamagnetic: e.target.checked } })}
+              />
+              <Swatch style={DIAMAGNETIC_STYLE} />
+              {DIAMAGNETIC_STYLE.label}
+            </label>
+          ) : null}
           <label className="flex items-center gap-1.5">
             <input type="checkbox" checked={showEllipticity} onChange={(e) => onView({ showEllipticity: e.target.checked })} />
             Ellipticity
@@ -287,6 +293,12 @@ function SpectrumPanelsImpl({
               <Readout term={curveSymbol("electric", yMode)} value={`${fmt(rotationTo(cp.thetaElectricRad, yMode, geometry))} ${yUnit}`} />
               <Readout term={curveSymbol("magnetic", yMode)} value={`${fmt(rotationTo(cp.thetaMagneticRad, yMode, geometry))} ${yUnit}`} />
               <Readout term={curveSymbol("cross", yMode)} value={`${fmt(rotationTo(cp.thetaCrossRad, yMode, geometry))} ${yUnit}`} />
+              {cp.thetaDiamagneticRad !== undefined ? (
+                <Readout
+                  term={curveSymbol("diamagnetic", yMode)}
+                  value={`${fmt(rotationTo(cp.thetaDiamagneticRad, yMode, geometry))} ${yUnit}`}
+                />
+              ) : null}
               <Readout
                 term={curveSymbol("ellipticity", yMode)}
                 value={
@@ -372,3 +384,12 @@ function Readout({ term, value }: { term: string; value: string }) {
 }
 
 export const SpectrumPanels = memo(SpectrumPanelsImpl);
+
+/** A curve's line style beside its checkbox. */
+function Swatch({ style }: { style: { color: string; width: number; dash: string | undefined } }) {
+  return (
+    <svg width="26" height="8" aria-hidden="true">
+      <line x1="1" x2="25" y1="4" y2="4" stroke={style.color} strokeWidth={style.width} strokeDasharray={style.dash} />
+    </svg>
+  );
+}

@@ -31,6 +31,7 @@ import { SpinTracePanel } from "./spin-trace-panel";
 import { MapsPanel } from "./maps-panel";
 import { ComparePanel } from "./compare-panel";
 import { AbsorptionPanel, OpaqueNote } from "./absorption-panel";
+import { ModelLimits } from "./model-limits";
 import { FitPanel } from "./fit-panel";
 import { LabRunPanel } from "@/components/lab-runs/lab-run-panel";
 import { useSpectrumRun } from "./use-spectrum-run";
@@ -143,6 +144,18 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
   const fileBase = figureFileBase(figureId);
   const methodLabel = run.shown?.method === "llg" ? "numerical LLG" : "analytic";
   const invalid = params === null || range === null || built.request === null;
+  const limitQuery = useMemo(
+    () =>
+      run.shown
+        ? {
+            params: run.shown.params,
+            temperaturesK: [run.shown.params.temperatureK],
+            fieldsT: [run.shown.params.fieldT],
+            wavelengthsNm: run.shown.result.points.map((p) => p.wavelengthNm),
+          }
+        : null,
+    [run.shown],
+  );
 
   const addMarker = useCallback(
     (nm: number) =>
@@ -233,6 +246,7 @@ export function Workbench({ set, initialParams, view, shared = false }: Workbenc
                 curveTemperatureK={shownParams.temperatureK}
               />
               <OpaqueNote points={run.shown.result.points} lengthM={geometry.lengthM} />
+              <ModelLimits query={limitQuery} where="this spectrum" />
               {shared ? null : (
                 <MeasurementOverlayPicker
                   selected={overlayIds}

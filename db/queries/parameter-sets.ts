@@ -161,10 +161,10 @@ function duplicateName(error: unknown, name: string): DomainError | null {
   });
 }
 
-/** A new set, version 1, in the lab the proof is for. */
+/** A new set, version 1, in the lab the proof is for; `provenance` says where version 1 came from (e.g. a library material). */
 export async function createParameterSet(
   db: Executor,
-  options: { access: ResourceAccess<"lab">; input: CreateParameterSetInput },
+  options: { access: ResourceAccess<"lab">; input: CreateParameterSetInput; provenance?: Record<string, unknown> },
 ): Promise<ParameterSet> {
   const { access, input } = options;
   const { caller, labId } = access;
@@ -191,6 +191,7 @@ export async function createParameterSet(
         description: input.description,
         tags: input.tags,
         params: input.params,
+        provenance: options.provenance ?? null,
         createdById: caller.id,
         createdAt: row.createdAt,
       });
@@ -201,7 +202,7 @@ export async function createParameterSet(
           targetType: "parameter_set",
           targetId: row.id,
           labId,
-          details: { name: input.name, version: 1 },
+          details: { name: input.name, version: 1, ...(options.provenance ? { from: options.provenance } : {}) },
         },
       });
       return requireItem(tx, { id: row.id, labId, role: access.role });

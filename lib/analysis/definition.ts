@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { finiteNumber } from "@/lib/contracts/validation";
-import { MODEL_FLAG_KEYS, type ModelFlagKey, materialShape } from "@/lib/physics/schema";
+import { MODEL_FLAG_KEYS, MODEL_OPTION_KEYS, type ModelFlagKey, type ModelOptionKey, materialShape } from "@/lib/physics/schema";
 
 /*
  * The analysis definition: what a fit frees, what it holds, which priors and calibration
@@ -12,10 +12,11 @@ import { MODEL_FLAG_KEYS, type ModelFlagKey, materialShape } from "@/lib/physics
 type MaterialKey = keyof typeof materialShape;
 /**
  * totalJ is a quantum number (a multiple of 1/2), not a continuous parameter, and a switch such as
- * the diamagnetic term is not a number at all: neither is ever fitted.
+ * the diamagnetic term, the choice of its dispersion or a measured absorption table is not a number
+ * at all: none is ever fitted.
  */
-export type FreeableKey = Exclude<MaterialKey, "totalJ" | ModelFlagKey>;
-const NOT_FREEABLE: ReadonlySet<string> = new Set<string>(["totalJ", ...MODEL_FLAG_KEYS]);
+export type FreeableKey = Exclude<MaterialKey, "totalJ" | ModelFlagKey | ModelOptionKey>;
+const NOT_FREEABLE: ReadonlySet<string> = new Set<string>(["totalJ", ...MODEL_FLAG_KEYS, ...MODEL_OPTION_KEYS]);
 export const FREEABLE_KEYS = (Object.keys(materialShape) as MaterialKey[]).filter((k): k is FreeableKey => !NOT_FREEABLE.has(k));
 
 /** The default free parameters of both the fit and the planner: the two amplitudes and the electric part's dispersion. */

@@ -12,6 +12,7 @@ import {
   pointHistoryQuery,
   uploadMeasurementMetaSchema,
 } from "@/lib/contracts/measurement-sets";
+import { copyMaterialSchema } from "@/lib/contracts/materials";
 import { pageQuerySchema } from "@/lib/contracts/paging";
 import {
   createParameterSetSchema,
@@ -596,6 +597,26 @@ export const ROUTES: ApiRouteDoc[] = [
     description: "404 not_found until the run is done.",
     access: "viewer",
     response: ok(r.labRunResultResponse),
+  },
+  /* ---- material library ---- */
+  {
+    method: "GET",
+    path: "/api/materials",
+    tag: "Materials",
+    summary: "The material library: cited materials that start a parameter set",
+    description: "Site-wide and read-only; each item carries a parameter file, the source of every value and validity ranges.",
+    access: "caller",
+    response: ok(z.object({ libraryVersion: z.string(), items: z.array(z.record(z.string(), z.unknown())) })),
+  },
+  {
+    method: "POST",
+    path: "/api/materials/{id}/parameter-sets",
+    tag: "Materials",
+    summary: "A new parameter set from a library material",
+    description: 'Version 1 records its provenance: { kind: "material", materialId, materialName, libraryVersion }.',
+    access: "editor",
+    body: copyMaterialSchema,
+    response: created(r.item(r.parameterSetResponse)),
   },
   /* ---- synchronous compute ---- */
   {

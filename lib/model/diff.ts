@@ -12,7 +12,11 @@ export interface SetSnapshot {
   name: string;
   description: string;
   tags: readonly string[];
-  params: Partial<Record<NumericModelParamKey, number> & Record<ModelFlagKey, boolean>>;
+  params: Partial<
+    Record<NumericModelParamKey, number> &
+      Record<ModelFlagKey, boolean> &
+      Pick<ModelParams, "diamagneticAnomaly" | "diamagneticDispersion" | "absorptionTable">
+  >;
 }
 
 export type DiffFieldKey = "name" | "description" | "tags" | ModelParamKey;
@@ -127,7 +131,37 @@ export function diffSnapshots(before: SetSnapshot, after: SetSnapshot): FieldDif
       relative: null,
     });
   }
+  // The diamagnetic refinements and the absorption table: absent means the default, so an old version shows no change.
+  for (const option of OPTION_ROWS) {
+    const a = option.show(before.params);
+    const b = option.show(after.params);
+    rows.push({ key: option.key, label: option.label, unit: option.unit, before: a, after: b, changed: a !== b, relative: null });
+  }
   return rows;
+}
+
+const OPTION_ROWS: { key: DiffFieldKey; label: string; unit: string; show: (p: SetSnapshot["params"]) => string }[] = [
+  {
+    key: "diamagneticAnomaly",
+    label: "Diamagnetic anomaly factor γ",
+    unit: "",
+    show: (p) => (p.diamagneticAnomaly === undefined ? "1 (default)" : formatValue(p.diamagneticAnomaly)),
+  },
+  {
+    key: "diamagneticDispersion",
+    label: "Diamagnetic dispersion",
+    unit: "",
+    show: (p) => (p.diamagneticDispersion === undefined ? "whole (default)" : p.diamagneticDispersion),
+  },
+  { key: "absorptionTable", label: "Measured absorption table", unit: "", show: (p) => describeAbsorptionTable(p.absorptionTable) },
+];
+
+/** "25 rows, 461.604–1620.02 nm" or "none", with a fingerprint of the values so any edit shows as a change. */
+export function describeAbsorptionTable(table: ModelParams["absorptionTable"]): string {
+  if (!table || table.length === 0) return "none";
+  const sum = table.reduce((s, r) => s + r.absorptionPerM * (1 + r.wavelengthNm), 0);
+  const span = `${formatValue(table[0]!.wavelengthNm)}–${formatValue(table[table.length - 1]!.wavelengthNm)} nm`;
+  return `${table.length} rows, ${span} (Σ ${sum.toPrecision(6)})`;
 }
 
 /** A model switch as the diff and the read-only view say it. */

@@ -92,3 +92,41 @@ export function opaqueBands(
   }
   return bands;
 }
+
+/** A measured absorption table row (the schema's absorptionTable, §2): wavelength in nm, α in 1/m. */
+export interface MeasuredAbsorptionRow {
+  wavelengthNm: number;
+  absorptionPerM: number;
+}
+
+/**
+ * α(λ) of a measured table by linear interpolation between its rows; null outside the table's
+ * range (no extrapolation: the product never invents a loss the table does not state).
+ */
+export function tableAbsorptionPerM(table: readonly MeasuredAbsorptionRow[], wavelengthNm: number): number | null {
+  const first = table[0];
+  const last = table[table.length - 1];
+  if (!first || !last || wavelengthNm < first.wavelengthNm || wavelengthNm > last.wavelengthNm) return null;
+  let lo = 0;
+  let hi = table.length - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (table[mid]!.wavelengthNm <= wavelengthNm) lo = mid;
+    else hi = mid;
+  }
+  const a = table[lo]!;
+  const b = table[hi]!;
+  if (b.wavelengthNm === a.wavelengthNm) return a.absorptionPerM;
+  const t = (wavelengthNm - a.wavelengthNm) / (b.wavelengthNm - a.wavelengthNm);
+  return a.absorptionPerM + t * (b.absorptionPerM - a.absorptionPerM);
+}
+
+/**
+ * The circular modes' α± with a measured isotropic loss: the table's α replaces the model's mean
+ * (α+ + α−)/2, and the model's circular dichroism (α− − α+, which an unpolarized table cannot tell)
+ * is kept, so α± = α_table ∓ (α− − α+)/2.
+ */
+export function withMeasuredLoss(alphaPlusPerM: number, alphaMinusPerM: number, measuredPerM: number): [number, number] {
+  const half = (alphaMinusPerM - alphaPlusPerM) / 2;
+  return [measuredPerM - half, measuredPerM + half];
+}

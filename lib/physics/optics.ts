@@ -42,15 +42,27 @@ export function gyration(p: DielectricParams, gyrationK: number, omega: number):
 }
 
 /**
+ * The two refinements of the diamagnetic term (§5.5). anomaly is the magneto-optic anomaly factor γ
+ * that multiplies G_dia (default 1); dispersion "host" keeps only the Sellmeier background's pole,
+ * so the paramagnetic ion's own transition (already carried by the spin gyration G) is not counted
+ * a second time as bound-electron dispersion (default "whole", every pole of ε).
+ */
+export interface DiamagneticOptions {
+  anomaly?: number;
+  dispersion?: "whole" | "host";
+}
+
+/**
  * Classical bound-electron (diamagnetic) gyration of §5.5:
  *   G_dia(ω) = −(e B0 / m_e) ω [ B ωS² / (ωS² − ω²)² + f ωE² / (ωE² − ω² + i ΓE ω)² ],
  * which for ΓE = 0 is −(e B0 / 2 m_e) dε/dω: each oscillator of ε shifted by the Larmor frequency
  * e B0 / 2 m_e in opposite senses for the two circular modes (the Becquerel picture, Larmor's
  * theorem; common practice, no source). It follows B0, not M0.
  */
-export function diamagneticGyration(p: DielectricParams, fieldT: number, omega: number): Complex {
+export function diamagneticGyration(p: DielectricParams, fieldT: number, omega: number, options: DiamagneticOptions = {}): Complex {
   if (fieldT === 0) return cx(0);
-  const pre = (-ELEMENTARY_CHARGE_C * fieldT * omega) / ELECTRON_MASS_KG;
+  const anomaly = options.anomaly ?? 1;
+  const pre = (-ELEMENTARY_CHARGE_C * fieldT * omega * anomaly) / ELECTRON_MASS_KG;
   let re = 0;
   let im = 0;
   if (p.sellmeierB !== 0) {
@@ -58,7 +70,7 @@ export function diamagneticGyration(p: DielectricParams, fieldT: number, omega: 
     const dS = omegaS * omegaS - omega * omega;
     re += (p.sellmeierB * omegaS * omegaS) / (dS * dS);
   }
-  if (p.oscillatorStrength !== 0) {
+  if (p.oscillatorStrength !== 0 && options.dispersion !== "host") {
     const omegaE = (2 * Math.PI * SPEED_OF_LIGHT_M_PER_S) / (p.oscillatorWavelengthNm * 1e-9);
     const d = oscillatorDenominator(p, omega);
     const osc = divReal(p.oscillatorStrength * omegaE * omegaE, mul(d, d));

@@ -8,6 +8,33 @@ import { zodIssueLines } from "./zod-issues";
  * Messages name the rule, so the command line can print "field: rule" on one line.
  */
 
+/** The two dispersions the diamagnetic term may follow (§5.5). */
+export const DIAMAGNETIC_DISPERSIONS = ["whole", "host"] as const;
+export type DiamagneticDispersion = (typeof DIAMAGNETIC_DISPERSIONS)[number];
+
+export const MAX_ABSORPTION_ROWS = 1000;
+
+/** One row of a measured absorption table: vacuum wavelength and intensity absorption coefficient. */
+export const absorptionRowSchema = z.strictObject({
+  wavelengthNm: finiteNumber("wavelength").gt(0, "must be > 0 nm").max(1e6, "must be ≤ 1e6 nm"),
+  absorptionPerM: finiteNumber("absorption coefficient").min(0, "must be ≥ 0 m⁻¹").max(1e9, "must be ≤ 1e9 m⁻¹"),
+});
+export type AbsorptionRow = z.infer<typeof absorptionRowSchema>;
+
+/** At least two rows, wavelengths strictly increasing (linear interpolation between them). */
+export const absorptionTableSchema = z
+  .array(absorptionRowSchema, { error: "absorptionTable must be a list of { wavelengthNm, absorptionPerM }" })
+  .min(2, "must hold at least two rows")
+  .max(MAX_ABSORPTION_ROWS, `must hold at most ${MAX_ABSORPTION_ROWS} rows`)
+  .superRefine((rows, ctx) => {
+    for (let i = 1; i < rows.length; i++) {
+      if (!(rows[i]!.wavelengthNm > rows[i - 1]!.wavelengthNm)) {
+        ctx.addIssue({ code: "custom", path: [i, "wavelengthNm"], message: "wavelengths must be strictly increasing" });
+        return;
+      }
+    }
+  });
+
 const isHalfInteger = (j: number) => Math.abs(j * 2 - Math.round(j * 2)) < 1e-9 && j >= 0.5;
 
 /** Material parameters of a paramagnet (no measurement conditions). */
@@ -32,6 +59,21 @@ export const materialShape = {
    * not a number, so it never appears among the numeric parameters a fit may free. Absent = off.
    */
   diamagneticTerm: z.boolean({ error: "diamagneticTerm must be true or false" }).optional(),
+  /**
+   * Magneto-optic anomaly factor γ of the diamagnetic term (§5.5): G_dia is multiplied by it.
+   * Becquerel's formula with γ = 1 overestimates glasses' Verdet constants; absent = 1 (today's term).
+   */
+  diamagneticAnomaly: finiteNumber("diamagnetic anomaly factor").min(0, "must be ≥ 0").max(10, "must be ≤ 10").optional(),
+  /**
+   * Which dispersion the diamagnetic term uses (§5.5): "whole" = every pole of ε (absent = this),
+   * "host" = the Sellmeier background only, without the paramagnetic ion's own transition.
+   */
+  diamagneticDispersion: z.enum(DIAMAGNETIC_DISPERSIONS, { error: 'must be "whole" or "host"' }).optional(),
+  /**
+   * A measured absorption table α(λ) (absorption.ts): where present it, not the oscillator's
+   * Lorentzian tail, sets the isotropic loss inside its wavelength range.
+   */
+  absorptionTable: absorptionTableSchema.optional(),
 } as const;
 
 /** Measurement conditions. */
@@ -60,9 +102,15 @@ export type ModelParamsInput = z.input<typeof modelParamsSchema>;
 export type ModelParamKey = keyof ModelParams;
 /** The on/off switches of the model (§5.5); never freed by a fit, never shown as a number box. */
 export type ModelFlagKey = "diamagneticTerm";
+/**
+ * Optional refinements that are not plain number boxes: the diamagnetic term's anomaly factor and
+ * dispersion (§5.5) and the measured absorption table. A fit never frees them; absent = today's model.
+ */
+export type ModelOptionKey = "diamagneticAnomaly" | "diamagneticDispersion" | "absorptionTable";
 /** The numeric model parameters: the ones a form shows as number boxes and a fit may vary. */
-export type NumericModelParamKey = Exclude<ModelParamKey, ModelFlagKey>;
+export type NumericModelParamKey = Exclude<ModelParamKey, ModelFlagKey | ModelOptionKey>;
 export const MODEL_FLAG_KEYS: readonly ModelFlagKey[] = ["diamagneticTerm"];
+export const MODEL_OPTION_KEYS: readonly ModelOptionKey[] = ["diamagneticAnomaly", "diamagneticDispersion", "absorptionTable"];
 
 export const MAX_WAVELENGTHS = 5000;
 

@@ -13,6 +13,8 @@ export const WAVELENGTH_FLAG_GAIN = 1;
 export const WAVELENGTH_FLAG_CONE = 2;
 /** The LLG transient could not be settled (§7). */
 export const WAVELENGTH_FLAG_UNSETTLED = 4;
+/** Outside the measured absorption table's range: the oscillator's Lorentzian tail gives the loss there. */
+export const WAVELENGTH_FLAG_OUTSIDE_TABLE = 8;
 
 /**
  * Passivity (§5.3): Im ε± = −ΓE ω ωE (f ωE ± 2Kω)/|D|², so one of ε± has gain where f·ωE < 2|K|ω;
@@ -32,7 +34,10 @@ export function hasGain(
  * the columns, so the pool can rebuild one set of warnings after merging chunks.
  */
 export function spectrumWarnings(
-  request: Pick<SpectrumRequest, "gyrationPerT" | "oscillatorStrength" | "oscillatorWavelengthNm" | "oscillatorDampingRadPerS">,
+  request: Pick<
+    SpectrumRequest,
+    "gyrationPerT" | "oscillatorStrength" | "oscillatorWavelengthNm" | "oscillatorDampingRadPerS" | "absorptionTable"
+  >,
   arrays: Pick<SpectrumArrays, "wavelengthNm" | "flags" | "magnetizationAPerM">,
 ): string[] {
   const warnings: string[] = [];
@@ -60,6 +65,14 @@ export function spectrumWarnings(
     warnings.push(
       "llg: the free-precession transient cannot be given time to decay (|ω0/ω| > 0.05 with small damping) " +
         `at (nm): ${listWavelengths(unsettled)}; the deviation from the analytic form may exceed 1e-4 there`,
+    );
+  }
+  const outside = pick(WAVELENGTH_FLAG_OUTSIDE_TABLE);
+  const table = request.absorptionTable;
+  if (outside.length > 0 && table && table.length > 0) {
+    warnings.push(
+      `absorption: the measured table covers ${formatNm(table[0]!.wavelengthNm)}–${formatNm(table[table.length - 1]!.wavelengthNm)} nm; ` +
+        `outside it the loss is the oscillator's Lorentzian tail, at (nm): ${listWavelengths(outside)}`,
     );
   }
   return warnings;

@@ -9,8 +9,9 @@ import { type Complex, abs, add, cx, rootDecaying, sub } from "./complex";
 import { MU0_N_PER_A2, angularFrequencyFromNm, gyromagneticRatio } from "./constants";
 import { deltaMzFromCone, llgSusceptibilities } from "./llg";
 import { staticMagnetization } from "./magnetization";
-import { absorptionCoefficientPerM, ellipticityAngleRad, transmissionOf } from "./absorption";
+import { absorptionCoefficientPerM, ellipticityAngleRad, tableAbsorptionPerM, transmissionOf, withMeasuredLoss } from "./absorption";
 import {
+  type DiamagneticOptions,
   type DielectricParams,
   diamagneticGyration,
   diamagneticRotationRad,
@@ -27,14 +28,27 @@ import {
   assertFiniteFigure,
   validSpectrumRequest,
 } from "./spectrum-errors";
-import { WAVELENGTH_FLAG_CONE, WAVELENGTH_FLAG_GAIN, WAVELENGTH_FLAG_UNSETTLED, hasGain, spectrumWarnings } from "./spectrum-flags";
+import {
+  WAVELENGTH_FLAG_CONE,
+  WAVELENGTH_FLAG_GAIN,
+  WAVELENGTH_FLAG_OUTSIDE_TABLE,
+  WAVELENGTH_FLAG_UNSETTLED,
+  hasGain,
+  spectrumWarnings,
+} from "./spectrum-flags";
 import { driveFieldAPerM, magneticShare, scaledDrive, verdetRadPerTm } from "./spectrum-units";
 import type { ProgressCallback, SpectrumArrays, SpectrumPoint, SpectrumResult } from "./types";
 
 export { rotatorLength45M, passivityLimitNm, verdetToGyration, gyrationToVerdet } from "./verdet";
 export type { VerdetReference, GyrationConversionParams, PassivityParams } from "./verdet";
 export { NonFiniteResultError, SpectrumCancelledError, SpectrumInputError } from "./spectrum-errors";
-export { WAVELENGTH_FLAG_CONE, WAVELENGTH_FLAG_GAIN, WAVELENGTH_FLAG_UNSETTLED, spectrumWarnings } from "./spectrum-flags";
+export {
+  WAVELENGTH_FLAG_CONE,
+  WAVELENGTH_FLAG_GAIN,
+  WAVELENGTH_FLAG_OUTSIDE_TABLE,
+  WAVELENGTH_FLAG_UNSETTLED,
+  spectrumWarnings,
+} from "./spectrum-flags";
 
 /** M0 in A/m for the parameters in force (§3.2, long rod); re-exported for the UI's one import. */
 export { staticMagnetization };
@@ -54,6 +68,8 @@ interface RunContext {
   gammaMu0: number;
   withIntensity: boolean;
   withDiamagnetic: boolean;
+  /** The diamagnetic term's refinements (§5.5); absent keys keep today's term bit for bit. */
+  diamagneticOptions: DiamagneticOptions;
   isLlg: boolean;
   hasSpins: boolean;
 }
@@ -73,6 +89,7 @@ function runContext(request: SpectrumRequest): RunContext {
     gammaMu0: gamma * MU0_N_PER_A2,
     withIntensity: request.intensityWPerM2 !== undefined,
     withDiamagnetic: request.diamagneticTerm === true,
+    diamagneticOptions: { anomaly: request.diamagneticAnomaly, dispersion: request.diamagneticDispersion },
     isLlg: request.method === "llg",
     hasSpins: m0 !== 0,
   };
@@ -157,7 +174,7 @@ function computeWavelength(ctx: RunContext, out: RunColumns, deviation: { max: n
   const omega = angularFrequencyFromNm(wavelengthNm);
   const eps = permittivity(ctx.dielectric, wavelengthNm, omega);
   // §5.5: with the diamagnetic term on, G is G + G_dia everywhere; off, G is untouched (bit for bit).
-  const gDia = ctx.withDiamagnetic ? diamagneticGyration(ctx.dielectric, fieldT, omega) : null;
+  const gDia = ctx.withDiamagnetic ? diamagneticGyration(ctx.dielectric, fieldT, omega, ctx.diamagneticOptions) : null;
   const gSpin = gyration(ctx.dielectric, ctx.gyrationK, omega);
   const g = gDia ? add(gSpin, gDia) : gSpin;
   const nIso = rootDecaying(eps).re;
@@ -171,8 +188,14 @@ function computeWavelength(ctx: RunContext, out: RunColumns, deviation: { max: n
   const share = magneticShare(rot.thetaElectricRad, rot.thetaMagneticRad);
   const verdet = verdetRadPerTm(rot.thetaRad, fieldT, lengthM);
   const thetaDia = gDia ? diamagneticRotationRad(omega, lengthM, eps, gDia) : null;
-  const alphaPlus = absorptionCoefficientPerM(omega, rot.nPlus.im);
-  const alphaMinus = absorptionCoefficientPerM(omega, rot.nMinus.im);
+  let alphaPlus = absorptionCoefficientPerM(omega, rot.nPlus.im);
+  let alphaMinus = absorptionCoefficientPerM(omega, rot.nMinus.im);
+  if (request.absorptionTable) {
+    // A measured table sets the isotropic loss where it has data; outside it the oscillator's tail stays, flagged.
+    const measured = tableAbsorptionPerM(request.absorptionTable, wavelengthNm);
+    if (measured === null) out.flags[i] = out.flags[i]! | WAVELENGTH_FLAG_OUTSIDE_TABLE;
+    else [alphaPlus, alphaMinus] = withMeasuredLoss(alphaPlus, alphaMinus, measured);
+  }
   assertFiniteColumns(i, wavelengthNm, [
     ["thetaDiamagneticRad", thetaDia],
     ["absorptionPlusPerM", alphaPlus],

@@ -22,6 +22,11 @@ export const CSV_COLUMNS = [
   "ellipticity_rad",
   "magnetic_share",
   "verdet_rad_per_T_m",
+  "theta_diamagnetic_rad",
+  "absorption_plus_per_m",
+  "absorption_minus_per_m",
+  "transmission_plus",
+  "transmission_minus",
 ] as const;
 
 /** Meaning and unit of each CSV column, written into the header so the file explains itself. */
@@ -34,6 +39,11 @@ export const CSV_COLUMN_MEANING: Record<(typeof CSV_COLUMNS)[number], string> = 
   ellipticity_rad: "ellipticity η (rad)",
   magnetic_share: "|θm| / (|θe| + |θm|) (fraction 0…1; empty when both parts are 0)",
   verdet_rad_per_T_m: "Verdet constant θ / (B0 L) (rad/(T·m); empty when B0 = 0)",
+  theta_diamagnetic_rad: "diamagnetic (bound-electron) part, a sub-part of θe (rad; empty when the term is off)",
+  absorption_plus_per_m: "intensity absorption coefficient α+ of the + circular mode (1/m; from the measured table where the set has one)",
+  absorption_minus_per_m: "intensity absorption coefficient α− of the − circular mode (1/m)",
+  transmission_plus: "internal one-pass transmission exp(−α+ L) of the + mode (fraction; surface reflections excluded)",
+  transmission_minus: "internal one-pass transmission exp(−α− L) of the − mode (fraction)",
 };
 
 export interface ExportMeta {
@@ -136,15 +146,15 @@ export function csvHeaderLines(meta: ExportMeta, params: ModelParams, result: Sp
     `# exported: ${meta.exportedAt}`,
     `# magnetization_A_per_m: ${cell(result.magnetizationAPerM)}`,
     `# parameters: ${Object.entries(params)
-      .map(([k, v]) => `${k}=${String(v)}`)
+      .map(([k, v]) => `${k}=${typeof v === "object" ? JSON.stringify(v) : String(v)}`)
       .join("; ")}`,
   ];
   const scale = magneticScaleLabel(params.magneticScale);
   if (scale) lines.push(`# label: ${scale}`);
   lines.push(`# geometry: L = ${cell(params.lengthM)} m, B0 = ${cell(params.fieldT)} T`);
   for (const column of CSV_COLUMNS) {
-    // Every column but the wavelength and the electric-dipole part (μ = 1, §6.1) depends on χ±.
-    const scaled = scale && column !== "wavelength_nm" && column !== "theta_electric_rad";
+    // Every column but the wavelength and the electric-dipole part and its diamagnetic sub-part (μ = 1, §6.1) depends on χ±.
+    const scaled = scale && column !== "wavelength_nm" && column !== "theta_electric_rad" && column !== "theta_diamagnetic_rad";
     lines.push(`# column ${column}: ${CSV_COLUMN_MEANING[column]}${scaled ? `; ${scale}` : ""}`);
   }
   for (const column of chosenUnitColumns(meta.display)) {
@@ -182,6 +192,11 @@ export function buildSpectrumCsv(
       p.ellipticityRad,
       p.magneticShare,
       p.verdetRadPerTm,
+      p.thetaDiamagneticRad,
+      p.absorptionPlusPerM,
+      p.absorptionMinusPerM,
+      p.transmissionPlus,
+      p.transmissionMinus,
       ...extra.map((c) => c.value(p, geometry)),
     ]),
   });

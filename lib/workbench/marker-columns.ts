@@ -20,7 +20,8 @@ export interface MarkerColumn {
 
 const X_SYMBOL: Record<XUnit, string> = { nm: "λ", um: "λ", eV: "E", "cm-1": "ν̃", THz: "f" };
 
-export function markerColumns(xUnit: XUnit, yMode: YMode): MarkerColumn[] {
+/** withDiamagnetic: the set has the diamagnetic term on, so its sub-part of the electric part gets a column. */
+export function markerColumns(xUnit: XUnit, yMode: YMode, withDiamagnetic = false): MarkerColumn[] {
   const cols: MarkerColumn[] = [];
   if (xUnit !== "nm") {
     cols.push({
@@ -36,8 +37,17 @@ export function markerColumns(xUnit: XUnit, yMode: YMode): MarkerColumn[] {
     { id: "total", header: `${sym[0]} (${unit})`, kind: "number", value: (p, g) => rotationTo(p.thetaRad, yMode, g) },
     { id: "electric", header: `${sym[1]} (${unit})`, kind: "number", value: (p, g) => rotationTo(p.thetaElectricRad, yMode, g) },
     { id: "magnetic", header: `${sym[2]} (${unit})`, kind: "number", value: (p, g) => rotationTo(p.thetaMagneticRad, yMode, g) },
-    { id: "share", header: "Magnetic share", kind: "percent", value: (p) => p.magneticShare },
   );
+  if (withDiamagnetic) {
+    const dia = yMode === "verdet" ? "Vdia" : "θdia";
+    cols.push({
+      id: "diamagnetic",
+      header: `${dia} (${unit})`,
+      kind: "number",
+      value: (p, g) => (p.thetaDiamagneticRad === undefined ? null : rotationTo(p.thetaDiamagneticRad, yMode, g)),
+    });
+  }
+  cols.push({ id: "share", header: "Magnetic share", kind: "percent", value: (p) => p.magneticShare });
   // In Verdet mode the first column already is V.
   if (yMode !== "verdet") cols.push({ id: "verdet", header: "V (rad/(T·m))", kind: "number", value: (p) => p.verdetRadPerTm });
   cols.push(

@@ -30,6 +30,18 @@ export const SERIES_STYLE: Record<SeriesKey, SeriesStyle> = {
 
 export const SERIES_ORDER: readonly SeriesKey[] = ["total", "electric", "magnetic", "cross", "ellipticity"];
 
+/**
+ * The diamagnetic (bound-electron) part, drawn only when a set has that term on. It is a sub-part of
+ * the electric-dipole part (physics-model §5.5), so it takes θe's violet with its own fine dots.
+ */
+export const DIAMAGNETIC_STYLE = {
+  key: "diamagnetic",
+  label: "Diamagnetic part θdia (within θe)",
+  color: "#7048c8",
+  dash: "1 3",
+  width: 1.6,
+};
+
 /** Overlay colours for comparing parameter sets (the same family, plus a steel blue and a mid grey). */
 export const COMPARE_COLORS = ["#1d2433", "#7048c8", "#c43a3a", "#d4a017", "#3a8fb7", "#9c9c9c"] as const;
 export const COMPARE_DASHES = [undefined, "8 4", "2 3", "10 3 2 3", "4 2 1 2 1 2", "12 4"] as const;

@@ -128,13 +128,16 @@ export function wavelengthGrid(fromNm: number, toNm: number, points: number, spa
  * the parts are Ve and Vm, not angles θ; the ellipticity divided by B·L is no angle at all but an
  * ellipticity per unit field and length (rad/(T·m)).
  */
-export function curveLabel(key: "total" | "electric" | "magnetic" | "cross" | "ellipticity", yMode: YMode): string {
+export type CurveKey = "total" | "electric" | "magnetic" | "cross" | "diamagnetic" | "ellipticity";
+
+export function curveLabel(key: CurveKey, yMode: YMode): string {
   if (yMode === "verdet") {
     return {
       total: "Verdet constant V",
       electric: "Electric-dipole part Ve",
       magnetic: "Magnetic-dipole part Vm",
       cross: "Cross term Vx",
+      diamagnetic: "Diamagnetic part Vdia (in Ve)",
       ellipticity: "Ellipticity per B·L",
     }[key];
   }
@@ -143,18 +146,20 @@ export function curveLabel(key: "total" | "electric" | "magnetic" | "cross" | "e
     electric: "Electric-dipole θe",
     magnetic: "Magnetic-dipole θm",
     cross: "Cross term θx",
+    diamagnetic: "Diamagnetic θdia (in θe)",
     ellipticity: "Ellipticity angle atan(tanh η)",
   }[key];
 }
 
 /** The short symbol of a curve in the hover readout: θ, θe … or V, Ve … in Verdet mode. */
-export function curveSymbol(key: "total" | "electric" | "magnetic" | "cross" | "ellipticity", yMode: YMode): string {
+export function curveSymbol(key: CurveKey, yMode: YMode): string {
   const verdet = yMode === "verdet";
   return {
     total: verdet ? "V" : "θ",
     electric: verdet ? "Ve" : "θe",
     magnetic: verdet ? "Vm" : "θm",
     cross: verdet ? "Vx" : "θx",
+    diamagnetic: verdet ? "Vdia (in Ve)" : "θdia (in θe)",
     ellipticity: verdet ? "Ellipticity per B·L" : "Ellipticity angle",
   }[key];
 }

@@ -34,6 +34,8 @@ const seriesSchema = z.strictObject({
   electric: z.boolean(),
   magnetic: z.boolean(),
   cross: z.boolean(),
+  // Shown only for sets with the diamagnetic term on; absent (older views) = shown.
+  diamagnetic: z.boolean().optional(),
 });
 
 export const PANEL_KEYS = ["share", "spinTrace", "maps", "compare"] as const;

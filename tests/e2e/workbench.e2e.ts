@@ -169,7 +169,8 @@ describe("workbench", () => {
     expect(header.some((l) => l.includes("Gyrolux model: one gyrotropic oscillator + LLG spins, physics-model §"))).toBe(true);
     expect(header.some((l) => l.startsWith("# method: llg"))).toBe(true);
     expect(body[0]).toBe(
-      "wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m",
+      "wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m," +
+        "theta_diamagnetic_rad,absorption_plus_per_m,absorption_minus_per_m,transmission_plus,transmission_minus",
     );
     expect(body.length - 1).toBe(256);
 

@@ -21,8 +21,34 @@ describe("diffSnapshots", () => {
       "tags",
       ...PARAM_META.map((m) => m.key),
       ...FLAG_META.map((m) => m.key),
+      "diamagneticAnomaly",
+      "diamagneticDispersion",
+      "absorptionTable",
     ]);
     expect(rows.some((r) => r.changed)).toBe(false);
+  });
+
+  it("shows the diamagnetic refinements and the absorption table, absent = the defaults", () => {
+    const table = [
+      { wavelengthNm: 500, absorptionPerM: 0.1 },
+      { wavelengthNm: 1000, absorptionPerM: 0.2 },
+    ];
+    const after = {
+      ...base,
+      params: { ...base.params, diamagneticAnomaly: 0.777, diamagneticDispersion: "host" as const, absorptionTable: table },
+    };
+    const changed = diffSnapshots(base, after).filter((r) => r.changed);
+    expect(changed.map((r) => [r.key, r.before, r.after.split(" (")[0]])).toEqual([
+      ["diamagneticAnomaly", "1 (default)", "0.777"],
+      ["diamagneticDispersion", "whole (default)", "host"],
+      ["absorptionTable", "none", "2 rows, 500–1000 nm"],
+    ]);
+    const edited = { ...after, params: { ...after.params, absorptionTable: [table[0]!, { wavelengthNm: 1000, absorptionPerM: 0.3 }] } };
+    expect(
+      diffSnapshots(after, edited)
+        .filter((r) => r.changed)
+        .map((r) => r.key),
+    ).toEqual(["absorptionTable"]);
   });
 
   it("marks a changed parameter with its unit and both values", () => {

@@ -16,6 +16,11 @@ const result: SpectrumResult = {
       ellipticityRad: 1e-5,
       magneticShare: 0.031,
       verdetRadPerTm: -134,
+      thetaDiamagneticRad: 0.15,
+      absorptionPlusPerM: 0.1,
+      absorptionMinusPerM: 0.12,
+      transmissionPlus: 0.999,
+      transmissionMinus: 0.9988,
     },
     {
       wavelengthNm: 1550,
@@ -56,13 +61,14 @@ describe("CSV export", () => {
 
   it("has a column row with units, then one row per wavelength", () => {
     expect(body[0]).toBe(
-      "wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m",
+      "wavelength_nm,theta_rad,theta_electric_rad,theta_magnetic_rad,theta_cross_rad,ellipticity_rad,magnetic_share,verdet_rad_per_T_m," +
+        "theta_diamagnetic_rad,absorption_plus_per_m,absorption_minus_per_m,transmission_plus,transmission_minus",
     );
     expect(body).toHaveLength(1 + result.points.length);
     expect(body[1]!.split(",")).toHaveLength(CSV_COLUMNS.length);
-    expect(body[1]).toBe("632.8,-1.34,-1.39,0.045,1e-10,0.00001,0.031,-134");
-    // Nulls are empty cells.
-    expect(body[2]).toBe("1550,0,0,0,0,0,,");
+    expect(body[1]).toBe("632.8,-1.34,-1.39,0.045,1e-10,0.00001,0.031,-134,0.15,0.1,0.12,0.999,0.9988");
+    // Nulls, and the parts a result does not carry (no diamagnetic term, a result saved before absorption), are empty cells.
+    expect(body[2]).toBe("1550,0,0,0,0,0,,,,,,,");
   });
 
   it("names every column with its meaning and unit in the header", () => {

@@ -23,6 +23,7 @@ import { type PlanRequest, planRequestSchema, rangeValues } from "@/lib/planner/
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { useParameterSet, useParameterSets } from "@/lib/query/parameter-sets";
 import { useLightSources, usePlans } from "@/lib/query/planner";
+import { ModelLimits } from "@/components/workbench/model-limits";
 import { fmt } from "@/lib/workbench/format";
 import { parseNumber } from "@/lib/workbench/validate";
 
@@ -282,6 +283,15 @@ function PlannerBody({
           Workbench
         </LinkButton>
       </div>
+      <ModelLimits
+        query={{
+          params,
+          temperaturesK: [num(drafts.tMin), num(drafts.tMax)].filter(Number.isFinite),
+          fieldsT: [num(drafts.bMin), num(drafts.bMax)].filter(Number.isFinite),
+          wavelengthsNm: chosenLines.map((l) => l.wavelengthNm),
+        }}
+        where="the planned grid"
+      />
       {sources.isError ? <ErrorPanel error={sources.error} retry={() => void sources.refetch()} /> : null}
       {sources.data ? (
         <LightSourcesPanel labId={set.labId} labName={set.labName} sources={sources.data} canEdit={canEdit} />

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { FitProvenanceSummary } from "@/components/parameter-sets/fit-provenance";
+import { MaterialProvenanceSummary } from "@/components/parameter-sets/material-provenance";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { DateTime } from "@/components/ui/date-time";
@@ -52,6 +53,7 @@ export function VersionList({ setId, versions, currentVersion, canRestore, onRes
             {v.note ? <p className="mt-1 text-sm whitespace-pre-line">“{v.note}”</p> : null}
             <StaleDescriptionNote version={v} previous={versions.find((p) => p.version === v.version - 1) ?? null} />
             <FitProvenanceSummary provenance={v.provenance} />
+            <MaterialProvenanceSummary provenance={v.provenance} />
             {canRestore && v.version !== currentVersion ? (
               <Button
                 variant="secondary"
