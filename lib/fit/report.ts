@@ -333,9 +333,11 @@ export function analyseFit(input: FitRequestInput, opts: ReportOptions = {}): Fi
   }
   const undetermined = shareProfiles.filter((s) => s.status === "undetermined");
   if (undetermined.length > 0) {
+    const [first] = undetermined;
+    const range = `${(100 * first!.interval68[0]).toFixed(0)}–${(100 * first!.interval68[1]).toFixed(0)} %`;
     reasons.push(
       `The magnetic share is undetermined at ${undetermined.length} condition(s): its 68 % interval covers most of [0, 1] ` +
-        `(e.g. ${(100 * undetermined[0]!.interval68[0]).toFixed(0)}–${(100 * undetermined[0]!.interval68[1]).toFixed(0)} % at ${undetermined[0]!.wavelengthNm} nm).`,
+        `(e.g. ${range} at ${first!.wavelengthNm} nm).`,
     );
   }
   const unique = [...new Set(reasons)];
