@@ -240,7 +240,7 @@ export function fitResultFrom(problem: PhysicsProblem, req: FitRequest, min: Min
   // Shares and their Jacobian at the optimum, over the varied model keys (scale factors leave shares unchanged).
   const fitted = problem.paramsAt(min.x);
   const shareKeys = problem.keys.filter((_, j) => min.varied.includes(j));
-  const final = modelJacobian(fitted, shareKeys, problem.conditions);
+  const final = modelJacobian(fitted, shareKeys, problem.conditions, problem.jacobianOptions);
   const keyIndex = shareKeys.map((k) => problem.keys.indexOf(k));
   const shareCovarianceAt = (a: number, b: number) => {
     let v = 0;

@@ -3,7 +3,7 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ModelParams } from "@/lib/physics/schema";
 import { type FreeableKey, NATURAL_LOWER, effectiveVariance, variedKeys } from "@/lib/analysis/definition";
 import type { ChiSquareProblem } from "./minimize";
-import { type ModelCondition, type NumericParamKey, evaluateModel, modelJacobian, withFreeValues } from "./model";
+import { type JacobianOptions, type ModelCondition, type NumericParamKey, evaluateModel, modelJacobian, withFreeValues } from "./model";
 import { type FitRequest, type FitSet, requestSets } from "./schema";
 
 /*
@@ -39,6 +39,8 @@ export interface PhysicsProblem extends ChiSquareProblem {
   paramsAt: (x: ArrayLike<number>) => ModelParams;
   /** The model's sign check at the starting values: how many values have the opposite sign. */
   oppositeSign: number;
+  /** Step scales and lower limits for the model's Jacobian (one-sided at a lower bound). */
+  jacobianOptions: JacobianOptions;
   /** The magnetic share at one condition and, with columns, its gradient over those parameter indices. */
   shareAt: (x: Float64Array, condition: ModelCondition, columns: readonly number[] | null) => { value: number; gradient?: number[] };
 }
@@ -185,6 +187,7 @@ export function buildPhysicsProblem(req: FitRequest, slopesAt: ModelParams = req
   };
 
   return {
+    jacobianOptions: { typicalScale, lower: lowerByKey },
     shareAt,
     names,
     x0,
