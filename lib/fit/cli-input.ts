@@ -2,8 +2,11 @@ import { z } from "zod";
 import type { MeasuredPoint } from "@/lib/measurements/point";
 import { type ColumnMapping, DEFAULT_COLUMNS, parseMeasurementTable, readTable } from "@/lib/measurements/parse";
 import { type ModelParams, conditionsShape, formatIssues, materialShape, modelParamsSchema } from "@/lib/physics/schema";
-import { FitError, type FitResult, fitMeasurements } from "./fit";
-import { DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeParam, type FreeableKey } from "@/lib/analysis/definition";
+import { zodIssueLines } from "@/lib/contracts/validation";
+import { DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeParam, type FreeableKey, type Prior, priorSchema } from "@/lib/analysis/definition";
+import { FitError } from "./least-squares";
+import { type FitReport, analyseFit } from "./report";
+import { MAX_FIT_STARTS } from "./schema";
 
 /*
  * The inputs of the fit's command line, pure so they can be tested without a process:
@@ -88,19 +91,54 @@ export function parseDataFile(text: string, params: ModelParams): MeasuredPoint[
 
 export interface FitArgs {
   paramsFile: string;
-  dataFile: string;
+  /** One or more data files: each is a measurement set of a global fit. */
+  dataFiles: string[];
   free: FreeParam[];
+  priors: Prior[];
+  starts: number;
+  seed: number;
   scaleByChi2: boolean;
+  /** The data are magnitudes: each value takes the model's sign. */
+  magnitudes: boolean;
+  /** Profile the magnetic share at every point (a few dozen refits each); off with --no-share-intervals. */
+  shareIntervals: boolean;
 }
 
-export const FIT_USAGE = "usage: npm run --silent fit -- --params P.json --data D.csv [--free a,b,c] [--scale-by-chi2]";
+export const FIT_USAGE =
+  "usage: npm run --silent fit -- --params P.json --data D.csv [--data E.csv …] [--free a,b,c] " +
+  "[--prior KEY=MEAN:SIGMA …] [--starts N] [--seed N] [--magnitudes] [--scale-by-chi2] [--no-share-intervals]";
+
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/** KEY=MEAN:SIGMA, e.g. oscillatorWavelengthNm=258:8. */
+export function parsePriorArg(text: string): Prior {
+  const m = /^([A-Za-z]+)=([^:]+):(.+)$/.exec(text);
+  if (!m || !NUMBER.test(m[2]!) || !NUMBER.test(m[3]!)) {
+    throw new FitInputError(`--prior: "${text}" is not KEY=MEAN:SIGMA (e.g. oscillatorWavelengthNm=258:8)`);
+  }
+  const parsed = priorSchema.safeParse({ key: m[1], mean: Number(m[2]), sigma: Number(m[3]) });
+  if (!parsed.success) throw new FitInputError(`--prior ${text}: ${zodIssueLines(parsed.error.issues)[0]}`);
+  return parsed.data;
+}
+
+function wholeNumber(flag: string, text: string, min: number, max: number): number {
+  const n = Number(text);
+  if (!Number.isInteger(n) || n < min || n > max)
+    throw new FitInputError(`${flag}: must be a whole number from ${min} to ${max} (got "${text}")`);
+  return n;
+}
 
 export function parseFitArgs(argv: readonly string[]): FitArgs {
   const args = argv.filter((a) => a !== "--");
   let paramsFile: string | undefined;
-  let dataFile: string | undefined;
+  const dataFiles: string[] = [];
+  const priors: Prior[] = [];
   let freeList: string | undefined;
   let scaleByChi2 = false;
+  let magnitudes = false;
+  let shareIntervals = true;
+  let starts = 4;
+  let seed = 1;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
     const [flag, inline] =
@@ -111,13 +149,20 @@ export function parseFitArgs(argv: readonly string[]): FitArgs {
       return v;
     };
     if (flag === "--params") paramsFile = value();
-    else if (flag === "--data") dataFile = value();
+    else if (flag === "--data") dataFiles.push(value());
     else if (flag === "--free") freeList = value();
+    else if (flag === "--prior") priors.push(parsePriorArg(value()));
+    else if (flag === "--starts") starts = wholeNumber("--starts", value(), 1, MAX_FIT_STARTS);
+    else if (flag === "--seed") seed = wholeNumber("--seed", value(), 0, 0xffffffff);
     else if (flag === "--scale-by-chi2" && inline === undefined) scaleByChi2 = true;
+    else if (flag === "--magnitudes" && inline === undefined) magnitudes = true;
+    else if (flag === "--no-share-intervals" && inline === undefined) shareIntervals = false;
     else throw new FitInputError(`${a}: unknown argument; ${FIT_USAGE}`);
   }
   if (!paramsFile) throw new FitInputError(`--params is required; ${FIT_USAGE}`);
-  if (!dataFile) throw new FitInputError(`--data is required; ${FIT_USAGE}`);
+  if (dataFiles.length === 0) throw new FitInputError(`--data is required; ${FIT_USAGE}`);
+  if (new Set(dataFiles).size !== dataFiles.length) throw new FitInputError("--data: a file is given twice");
+  if (new Set(priors.map((p) => p.key)).size !== priors.length) throw new FitInputError("--prior: a parameter has two priors");
   const keys = freeList === undefined ? DEFAULT_FREE_KEYS : freeList.split(",").map((k) => k.trim());
   const free = keys.map((key) => {
     if (!(FREEABLE_KEYS as readonly string[]).includes(key)) {
@@ -126,26 +171,60 @@ export function parseFitArgs(argv: readonly string[]): FitArgs {
     return { key: key as FreeableKey };
   });
   if (new Set(keys).size !== keys.length) throw new FitInputError("--free: a parameter is listed twice");
-  return { paramsFile, dataFile, free, scaleByChi2 };
+  return { paramsFile, dataFiles, free, priors, starts, seed, scaleByChi2, magnitudes, shareIntervals };
 }
 
+const pair = (v: [number, number] | undefined | null) => (v ? [v[0], v[1]] : null);
+
 /** The command line's JSON: exactly the documented keys. */
-export function fitOutput(result: FitResult) {
+export function fitOutput(report: FitReport) {
+  const ms = report.profile.magneticScale;
   return {
-    free: result.free,
-    values: result.values,
-    sigmas: result.sigmas,
-    correlation: result.correlation,
-    chi2: result.chi2,
-    dof: result.dof,
-    points: result.points.map((p) => ({
-      wavelengthNm: p.wavelengthNm,
-      measured: p.measured,
-      sigma: p.sigma,
-      model: p.model,
-      magneticShare: p.magneticShare,
-      magneticShareSigma: p.magneticShareSigma,
-    })),
+    free: report.free,
+    values: report.values,
+    sigmas: report.sigmas,
+    correlation: report.correlation,
+    chi2: report.chi2,
+    dof: report.dof,
+    assumptions: report.assumptions.map((a) => ({ key: a.key, value: a.value, source: a.source })),
+    ...(report.comparison.length > 0
+      ? {
+          comparison: report.comparison.map((c) => ({
+            hypothesis: c.hypothesis,
+            fixed: c.fixed,
+            chi2: c.chi2,
+            deltaChi2: c.deltaChi2,
+            pValue: c.pValue,
+            significanceSigma: c.significanceSigma,
+            aic: c.aic,
+            aicc: c.aicc,
+            bic: c.bic,
+            words: c.words,
+          })),
+        }
+      : {}),
+    informationCriteria: {
+      aic: report.informationCriteria.aic,
+      aicc: report.informationCriteria.aicc,
+      bic: report.informationCriteria.bic,
+    },
+    goodnessOfFit: report.goodnessOfFit,
+    profile: ms ? { magneticScale: { value: ms.value, interval68: pair(ms.interval68), interval95: pair(ms.interval95) } } : {},
+    verdict: report.verdict,
+    points: report.points.map((p, i) => {
+      const share = report.shareProfiles[report.pointShareProfile[i] ?? -1];
+      return {
+        set: p.set,
+        wavelengthNm: p.wavelengthNm,
+        measured: p.measured,
+        sigma: p.sigma,
+        model: p.model,
+        magneticShare: p.magneticShare,
+        magneticShareSigma: p.magneticShareSigma,
+        magneticShareInterval68: share ? pair(share.interval68) : null,
+      };
+    }),
+    shareCovariance: report.shareCovariance,
   };
 }
 
@@ -182,16 +261,25 @@ export function runFitCommand(argv: readonly string[], readText: (path: string) 
       throw new FitInputError(`${args.paramsFile}: malformed JSON (${(err as Error).message})`);
     }
     const params = parseParameterFile(json);
-    const points = parseDataFile(read(args.dataFile, "data file"), params);
-    const result = fitMeasurements({ params, free: args.free, points, scaleByChi2: args.scaleByChi2 });
-    const warnings = [
-      ...result.separation.reasons,
-      ...result.atBound.map((key) => `${key} ended on a bound; its σ is not a fair error`),
-      ...(result.converged ? [] : ["the fit stopped at its iteration limit before converging"]),
-    ];
+    const sets = args.dataFiles.map((f) => ({ name: f.split(/[\\/]/).pop() || f, points: parseDataFile(read(f, "data file"), params) }));
+    if (new Set(sets.map((s) => s.name)).size !== sets.length) throw new FitInputError("--data: two data files have the same name");
+    const report = analyseFit(
+      {
+        params,
+        free: args.free,
+        priors: args.priors,
+        ...(sets.length === 1 ? { points: sets[0]!.points } : { sets }),
+        starts: args.starts,
+        seed: args.seed,
+        scaleByChi2: args.scaleByChi2,
+        takeModelSign: args.magnitudes,
+      },
+      { shareProfiles: args.shareIntervals },
+    );
+    const warnings = [...report.verdict.reasons, ...report.notes];
     return {
       status: 0,
-      stdout: `${JSON.stringify(fitOutput(result), null, 2)}\n`,
+      stdout: `${JSON.stringify(fitOutput(report), null, 2)}\n`,
       stderr: warnings.map((w) => `warning: ${oneLine(w)}\n`).join(""),
     };
   } catch (err) {

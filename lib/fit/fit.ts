@@ -1,4 +1,3 @@
-import gammainc from "@stdlib/math-base-special-gammainc";
 import { Matrix } from "ml-matrix";
 import { zodIssueLines } from "@/lib/contracts/validation";
 import type { MeasuredQuantity } from "@/lib/measurements/point";
@@ -9,6 +8,7 @@ import { type MinimizeResult, minimize } from "./minimize";
 import { modelJacobian } from "./model";
 import { type PhysicsProblem, buildPhysicsProblem } from "./problem";
 import { type FitRequest, type FitRequestInput, fitRequestSchema } from "./schema";
+import { chiSquareSurvival } from "./statistics";
 
 /*
  * The fit of the model (physics-model.md, analytic path) to measured points of one or several
@@ -133,12 +133,6 @@ export const SHARE_COVARIANCE_MAX_POINTS = 2000;
 /** Below this many degrees of freedom χ²/dof is too uncertain to scale σ by (its relative σ is √(2/dof), common practice, no source). */
 export const MIN_DOF_FOR_SCALING = 3;
 
-/** P(χ²_k > x), the upper regularised incomplete gamma function Q(k/2, x/2) (Abramowitz & Stegun 26.4.2 with 6.5.3). */
-export function chiSquareSurvival(x: number, k: number): number {
-  if (!(x > 0)) return 1;
-  return gammainc(x / 2, k / 2, true, true);
-}
-
 export interface FitProgress {
   iteration: number;
   maxIterations: number;
@@ -246,7 +240,7 @@ export function fitResultFrom(problem: PhysicsProblem, req: FitRequest, min: Min
   // Shares and their Jacobian at the optimum, over the varied model keys (scale factors leave shares unchanged).
   const fitted = problem.paramsAt(min.x);
   const shareKeys = problem.keys.filter((_, j) => min.varied.includes(j));
-  const final = modelJacobian(fitted, shareKeys, problem.conditions);
+  const final = modelJacobian(fitted, shareKeys, problem.conditions, problem.jacobianOptions);
   const keyIndex = shareKeys.map((k) => problem.keys.indexOf(k));
   const shareCovarianceAt = (a: number, b: number) => {
     let v = 0;

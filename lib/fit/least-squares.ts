@@ -38,6 +38,12 @@ export interface LeastSquaresProblem {
   stepTolerance?: number;
   onProgress?: (progress: LeastSquaresProgress) => void;
   shouldCancel?: () => boolean;
+  /**
+   * Return a NaN covariance instead of failing when the normal equations are singular at the
+   * minimum: for callers that need only χ² (likelihood-ratio tests and profiles, where a flat
+   * direction is an answer, not an error).
+   */
+  allowSingular?: boolean;
 }
 
 export interface LeastSquaresProgress {
@@ -130,7 +136,13 @@ function dampedStep(a: Matrix, b: Matrix, lambda: number): Float64Array | null {
     for (let k = 0; k < p; k++) scaled.set(j, k, a.get(j, k) * d[j]! * d[k]!);
     scaled.set(j, j, scaled.get(j, j) * (1 + lambda));
   }
-  const z = solve(scaled, rhs);
+  let z: Matrix;
+  try {
+    z = solve(scaled, rhs);
+  } catch {
+    // A singular (undamped) system has no step: the caller treats it like a failed one.
+    return null;
+  }
   const step = new Float64Array(p);
   for (let j = 0; j < p; j++) step[j] = z.get(j, 0) * d[j]!;
   return step.every(Number.isFinite) ? step : null;
@@ -151,7 +163,14 @@ export function covarianceFromNormalMatrix(a: Matrix, names: readonly string[] =
   }
   const scaled = new Matrix(p, p);
   for (let j = 0; j < p; j++) for (let k = 0; k < p; k++) scaled.set(j, k, a.get(j, k) * d[j]! * d[k]!);
-  const inv = inverse(scaled);
+  let inv: Matrix;
+  try {
+    inv = inverse(scaled);
+  } catch {
+    throw new FitError(
+      "the free parameters are not independent at these points (singular normal equations); free fewer parameters or add data",
+    );
+  }
   const cov = new Matrix(p, p);
   for (let j = 0; j < p; j++) for (let k = 0; k < p; k++) cov.set(j, k, inv.get(j, k) * d[j]! * d[k]!);
   for (let j = 0; j < p; j++) {
@@ -189,8 +208,9 @@ export function leastSquares(problem: LeastSquaresProblem): LeastSquaresResult {
   };
 
   const start = clamp(Float64Array.from(problem.x0));
-  let state = evaluate(start, true);
-  if (!state) throw new FitError("the model cannot be evaluated at the starting values (check the fixed parameters against the data)");
+  const first = evaluate(start, true);
+  if (!first) throw new FitError("the model cannot be evaluated at the starting values (check the fixed parameters against the data)");
+  let state: State = first;
   let lambda = 1e-3;
   let iterations = 0;
   let converged = false;
@@ -212,7 +232,9 @@ export function leastSquares(problem: LeastSquaresProblem): LeastSquaresResult {
       converged = true;
       break;
     }
-    const trial = evaluate(trialX, true);
+    // The Jacobian (2p model calls) only for a step that is taken: a rejected trial costs one call.
+    const probe = evaluate(trialX, false);
+    const trial: State | null = probe && probe.chi2 <= state.chi2 ? evaluate(trialX, true) : null;
     if (trial && trial.chi2 <= state.chi2) {
       const moved = relStep(trialX, state.x);
       state = trial;
@@ -246,7 +268,13 @@ export function leastSquares(problem: LeastSquaresProblem): LeastSquaresResult {
   }
 
   const { a } = normalEquations(state, y, sigma);
-  const covariance = covarianceFromNormalMatrix(a, problem.names);
+  let covariance: Matrix;
+  try {
+    covariance = covarianceFromNormalMatrix(a, problem.names);
+  } catch (err) {
+    if (!(problem.allowSingular && err instanceof FitError)) throw err;
+    covariance = new Matrix(p, p).fill(Number.NaN);
+  }
   const atBound: number[] = [];
   for (let j = 0; j < p; j++) if (state.x[j] === lower[j] || state.x[j] === upper[j]) atBound.push(j);
   return { x: state.x, chi2: state.chi2, covariance, value: state.value, jacobian: state.jacobian, iterations, converged, atBound };

@@ -42,6 +42,10 @@ export interface MinimizeOptions {
   maxIterations?: number;
   onProgress?: (progress: LeastSquaresProgress) => void;
   shouldCancel?: () => boolean;
+  /** Relative step at which the solver stops (default 1e-10); profiles use a looser one. */
+  stepTolerance?: number;
+  /** Accept a singular minimum (NaN covariance): for tests and profiles, which need only χ². */
+  allowSingular?: boolean;
 }
 
 export interface MinimizeResult {
@@ -109,6 +113,8 @@ export function minimize(problem: ChiSquareProblem, opts: MinimizeOptions = {}):
         maxIterations: opts.maxIterations,
         onProgress: opts.onProgress,
         shouldCancel: opts.shouldCancel,
+        allowSingular: opts.allowSingular,
+        stepTolerance: opts.stepTolerance,
         model: (sub, withJacobian) => problem.model(full(sub), withJacobian ? varied : null),
       });
       startChi2.push(ls.chi2);

@@ -3,7 +3,7 @@ import type { MeasuredPoint } from "@/lib/measurements/point";
 import type { ModelParams } from "@/lib/physics/schema";
 import { type FreeableKey, NATURAL_LOWER, effectiveVariance, variedKeys } from "@/lib/analysis/definition";
 import type { ChiSquareProblem } from "./minimize";
-import { type ModelCondition, type NumericParamKey, evaluateModel, modelJacobian, withFreeValues } from "./model";
+import { type JacobianOptions, type ModelCondition, type NumericParamKey, evaluateModel, modelJacobian, withFreeValues } from "./model";
 import { type FitRequest, type FitSet, requestSets } from "./schema";
 
 /*
@@ -39,6 +39,10 @@ export interface PhysicsProblem extends ChiSquareProblem {
   paramsAt: (x: ArrayLike<number>) => ModelParams;
   /** The model's sign check at the starting values: how many values have the opposite sign. */
   oppositeSign: number;
+  /** Step scales and lower limits for the model's Jacobian (one-sided at a lower bound). */
+  jacobianOptions: JacobianOptions;
+  /** The magnetic share at one condition and, with columns, its gradient over those parameter indices. */
+  shareAt: (x: Float64Array, condition: ModelCondition, columns: readonly number[] | null) => { value: number; gradient?: number[] };
 }
 
 /** The name of a set's field × length scale factor among the fitted values. */
@@ -162,7 +166,29 @@ export function buildPhysicsProblem(req: FitRequest, slopesAt: ModelParams = req
     return { value, jacobian };
   };
 
+  const shareAt = (x: Float64Array, condition: ModelCondition, columns: readonly number[] | null) => {
+    const trial = paramsAt(x);
+    const physicsColumns = (columns ?? []).filter((c) => c < keys.length);
+    if (physicsColumns.length === 0) {
+      const value = evaluateModel(trial, [condition]).magneticShare[0]!;
+      return columns ? { value, gradient: columns.map(() => 0) } : { value };
+    }
+    const jac = modelJacobian(
+      trial,
+      physicsColumns.map((c) => keys[c]!),
+      [condition],
+      { typicalScale, lower: lowerByKey },
+    );
+    const gradient = (columns ?? []).map((c) => {
+      const k = physicsColumns.indexOf(c);
+      return k >= 0 ? jac.shareJacobian.get(0, k) : 0;
+    });
+    return { value: jac.magneticShare[0]!, gradient };
+  };
+
   return {
+    jacobianOptions: { typicalScale, lower: lowerByKey },
+    shareAt,
     names,
     x0,
     lower,

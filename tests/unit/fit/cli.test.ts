@@ -28,9 +28,10 @@ function run(args: string[]) {
 
 const params = { ...TGG, lengthM: 0.01, method: "analytic" };
 const truth = { ...TGG, lengthM: 0.01, gyrationPerT: 5.0e-3, oscillatorWavelengthNm: 270, magneticScale: 3 };
+// Few points: every point's share is profiled (a few dozen refits each).
 const conds = [
-  ...evenly(400, 1600, 24).map((w) => verdetAt(w)),
-  ...evenly(500, 1500, 8).map((w) => verdetAt(w, { temperatureK: 150, fieldT: 2 })),
+  ...evenly(400, 1600, 10).map((w) => verdetAt(w)),
+  ...evenly(500, 1500, 4).map((w) => verdetAt(w, { temperatureK: 150, fieldT: 2 })),
 ];
 const points = syntheticPoints(truth, conds, 0.5, seededGaussian(21));
 const csv =
@@ -45,19 +46,50 @@ describe("fit command line", () => {
     expect(r.status).toBe(0);
     expect(r.stderr).toBe("");
     const out = JSON.parse(r.stdout);
-    expect(Object.keys(out).sort()).toEqual(["chi2", "correlation", "dof", "free", "points", "sigmas", "values"]);
+    expect(Object.keys(out).sort()).toEqual([
+      "assumptions",
+      "chi2",
+      "comparison",
+      "correlation",
+      "dof",
+      "free",
+      "goodnessOfFit",
+      "informationCriteria",
+      "points",
+      "profile",
+      "shareCovariance",
+      "sigmas",
+      "values",
+      "verdict",
+    ]);
+    expect(out.comparison.map((c: { hypothesis: string }) => c.hypothesis)).toEqual(["noMagneticPart", "firstPrinciples"]);
+    expect(Object.keys(out.comparison[0]).sort()).toEqual(
+      ["aic", "aicc", "bic", "chi2", "deltaChi2", "fixed", "hypothesis", "pValue", "significanceSigma", "words"].sort(),
+    );
+    expect(out.comparison[1].fixed).toEqual({ magneticScale: 1 });
+    expect(out.goodnessOfFit.dof).toBe(out.dof);
+    const ms = out.profile.magneticScale;
+    expect(ms.interval68[0]).toBeLessThan(ms.value);
+    expect(ms.interval95[1]).toBeGreaterThan(ms.interval68[1]);
+    expect(out.assumptions.find((a: { key: string }) => a.key === "landeG").source).toMatch(/handbook/);
+    expect(out.shareCovariance).toHaveLength(points.length);
     expect(out.free).toEqual(["gyrationPerT", "oscillatorWavelengthNm", "magneticScale"]);
     expect(out.dof).toBe(points.length - 3);
     expect(out.correlation).toHaveLength(3);
     expect(out.points).toHaveLength(points.length);
     expect(Object.keys(out.points[0]).sort()).toEqual([
       "magneticShare",
+      "magneticShareInterval68",
       "magneticShareSigma",
       "measured",
       "model",
+      "set",
       "sigma",
       "wavelengthNm",
     ]);
+    const [lo, hi] = out.points[0].magneticShareInterval68;
+    expect(lo).toBeLessThan(out.points[0].magneticShare);
+    expect(hi).toBeGreaterThan(out.points[0].magneticShare);
     for (const key of out.free as string[])
       expect(Math.abs(out.values[key] - (truth as unknown as Record<string, number>)[key]!)).toBeLessThan(3 * out.sigmas[key]);
     // The temperature and field columns are used (the second block is at 150 K, 2 T).
@@ -83,7 +115,58 @@ describe("fit command line", () => {
     expect(r.stderrLines[0]).toMatch(/^warning: The split is not measured/);
   });
 
+  it("fits several --data files globally and takes repeated --prior flags as nuisance parameters", () => {
+    const warm = points.filter((p) => p.temperatureK > 200);
+    const cold = points.filter((p) => p.temperatureK < 200);
+    const toCsv = (list: typeof points) =>
+      "wavelength_nm,verdet_rad_per_T_m,sigma,temperature_K,field_T\n" +
+      `${list.map((p) => `${p.wavelengthNm},${p.value},${p.sigma},${p.temperatureK},${p.fieldT}`).join("\n")}\n`;
+    const a = file("warm.csv", toCsv(warm));
+    const b = file("cold.csv", toCsv(cold));
+    const free = ["--free", "gyrationPerT,magneticScale", "--no-share-intervals"];
+    const global = JSON.parse(run(["--params", paramsFile, "--data", a, "--data", b, ...free, "--starts", "1"]).stdout);
+    const joined = JSON.parse(run(["--params", paramsFile, "--data", dataFile, ...free, "--starts", "1"]).stdout);
+    expect(global.chi2).toBeCloseTo(joined.chi2, 8);
+    expect(new Set(global.points.map((p: { set: string }) => p.set)).size).toBe(2);
+    const withPrior = run([
+      "--params",
+      paramsFile,
+      "--data",
+      dataFile,
+      ...free,
+      "--prior",
+      "oscillatorWavelengthNm=258:8",
+      "--starts",
+      "1",
+    ]);
+    expect(withPrior.status).toBe(0);
+    const out = JSON.parse(withPrior.stdout);
+    expect(Object.keys(out.values)).toEqual(["gyrationPerT", "magneticScale", "oscillatorWavelengthNm"]);
+    expect(out.sigmas.oscillatorWavelengthNm).toBeLessThanOrEqual(8);
+    expect(out.assumptions.map((x: { key: string }) => x.key)).not.toContain("oscillatorWavelengthNm");
+  });
+
   const refusals: [string, () => string[], RegExp][] = [
+    [
+      "a malformed --prior",
+      () => ["--params", paramsFile, "--data", dataFile, "--prior", "oscillatorWavelengthNm=258"],
+      /^--prior: "oscillatorWavelengthNm=258" is not KEY=MEAN:SIGMA/,
+    ],
+    [
+      "a prior with σ ≤ 0",
+      () => ["--params", paramsFile, "--data", dataFile, "--prior", "oscillatorWavelengthNm=258:0"],
+      /^--prior oscillatorWavelengthNm=258:0: .*must be > 0/,
+    ],
+    [
+      "a prior on a key that cannot be freed",
+      () => ["--params", paramsFile, "--data", dataFile, "--prior", "fieldT=1:0.1"],
+      /^--prior fieldT=1:0.1: .*not a model parameter/,
+    ],
+    [
+      "a bad --starts",
+      () => ["--params", paramsFile, "--data", dataFile, "--starts", "0"],
+      /^--starts: must be a whole number from 1 to 32/,
+    ],
     ["no --data", () => ["--params", paramsFile], /^--data is required; usage: /],
     ["an unknown flag", () => ["--params", paramsFile, "--data", dataFile, "--fast"], /^--fast: unknown argument/],
     [
