@@ -10,7 +10,7 @@ import { TERBIUM_GARNET_DEFAULTS } from "@/lib/model/defaults";
 
 export interface Assumption {
   key: string;
-  value: number | boolean;
+  value: number | boolean | string;
   source: string;
 }
 
@@ -47,6 +47,8 @@ export const ASSUMPTION_KEYS: readonly (keyof ModelParams)[] = [
   "gyrationPerT",
   "magneticScale",
   "diamagneticTerm",
+  "diamagneticAnomaly",
+  "diamagneticDispersion",
 ];
 
 /** "From memory" and "illustrative" values: a result resting on one of them needs a prior or data that free it. */
@@ -64,7 +66,8 @@ export function heldAssumptions(
 ): Assumption[] {
   return ASSUMPTION_KEYS.filter((k) => !varied.includes(k)).flatMap((key) => {
     const value = params[key];
-    if (value === undefined) return [];
+    // A measured absorption table is data, not a held number: it is listed with the set, not here.
+    if (value === undefined || typeof value === "object") return [];
     const reference = TERBIUM_GARNET_DEFAULTS[key];
     const source =
       sources[key] ??
