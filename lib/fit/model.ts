@@ -43,12 +43,16 @@ export interface ModelEvaluation {
 const groupKey = (c: ModelCondition) => `${c.temperatureK}|${c.fieldT}|${c.lengthM}`;
 
 /**
- * Evaluates the analytic model at every point. Points sharing temperature, field and length are
- * computed in one spectrum call (their wavelengths sorted and de-duplicated, as the engine wants).
+ * Calls `visit` once per group of points that share temperature, field and length, with the
+ * analytic spectrum of that group (its wavelengths sorted and de-duplicated, as the engine wants)
+ * and, for each point of the group, its column in that spectrum. One home for the grouping that
+ * the fit's model and the planner's optics both need.
  */
-export function evaluateModel(params: ModelParams, points: readonly ModelCondition[]): ModelEvaluation {
-  const value = new Float64Array(points.length);
-  const magneticShare = new Float64Array(points.length);
+export function forEachConditionGroup(
+  params: ModelParams,
+  points: readonly ModelCondition[],
+  visit: (arrays: ReturnType<typeof computeSpectrumArrays>, members: { index: number; column: number }[]) => void,
+): void {
   const groups = new Map<string, number[]>();
   points.forEach((p, i) => {
     const key = groupKey(p);
@@ -67,15 +71,24 @@ export function evaluateModel(params: ModelParams, points: readonly ModelConditi
       wavelengthsNm,
       method: "analytic",
     });
-    const column = new Map<number, number>();
-    for (const [j, w] of wavelengthsNm.entries()) column.set(w, j);
-    for (const i of indices) {
-      const p = points[i]!;
-      const j = column.get(p.wavelengthNm)!;
-      value[i] = p.quantity === "verdet" ? arrays.verdetRadPerTm[j]! : arrays.thetaRad[j]!;
-      magneticShare[i] = arrays.magneticShare[j]!;
-    }
+    const column = new Map<number, number>(wavelengthsNm.map((w, j) => [w, j]));
+    visit(
+      arrays,
+      indices.map((index) => ({ index, column: column.get(points[index]!.wavelengthNm)! })),
+    );
   }
+}
+
+/** Evaluates the analytic model at every point, one spectrum call per group of shared conditions. */
+export function evaluateModel(params: ModelParams, points: readonly ModelCondition[]): ModelEvaluation {
+  const value = new Float64Array(points.length);
+  const magneticShare = new Float64Array(points.length);
+  forEachConditionGroup(params, points, (arrays, members) => {
+    for (const { index, column } of members) {
+      value[index] = points[index]!.quantity === "verdet" ? arrays.verdetRadPerTm[column]! : arrays.thetaRad[column]!;
+      magneticShare[index] = arrays.magneticShare[column]!;
+    }
+  });
   return { value, magneticShare };
 }
 

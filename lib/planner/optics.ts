@@ -1,6 +1,5 @@
-import { type ModelCondition, evaluateModel } from "@/lib/fit/model";
+import { type ModelCondition, evaluateModel, forEachConditionGroup } from "@/lib/fit/model";
 import type { ModelParams } from "@/lib/physics/schema";
-import { computeSpectrumArrays } from "@/lib/physics/spectrum";
 
 /*
  * What the light does at each candidate point, from the spectrum engine itself: the predicted
@@ -18,37 +17,17 @@ export interface CandidateOptics {
   transmission: Float64Array;
 }
 
-const groupKey = (c: ModelCondition) => `${c.temperatureK}|${c.fieldT}|${c.lengthM}`;
-
 /** Rotation and transmission of every point; points sharing T, B and L are one spectrum call. */
 export function candidateOptics(params: ModelParams, points: readonly ModelCondition[]): CandidateOptics {
   const thetaRad = new Float64Array(points.length);
   const transmission = new Float64Array(points.length);
-  const groups = new Map<string, number[]>();
-  points.forEach((p, i) => {
-    const list = groups.get(groupKey(p));
-    if (list) list.push(i);
-    else groups.set(groupKey(p), [i]);
-  });
-  for (const indices of groups.values()) {
-    const first = points[indices[0]!]!;
-    const wavelengthsNm = [...new Set(indices.map((i) => points[i]!.wavelengthNm))].sort((a, b) => a - b);
-    const arrays = computeSpectrumArrays({
-      ...params,
-      temperatureK: first.temperatureK,
-      fieldT: first.fieldT,
-      lengthM: first.lengthM,
-      wavelengthsNm,
-      method: "analytic",
-    });
-    const column = new Map<number, number>(wavelengthsNm.map((w, j) => [w, j]));
-    for (const i of indices) {
-      const j = column.get(points[i]!.wavelengthNm)!;
-      thetaRad[i] = arrays.thetaRad[j]!;
-      const t = 0.5 * (arrays.transmissionPlus[j]! + arrays.transmissionMinus[j]!);
-      transmission[i] = Number.isFinite(t) ? Math.min(1, Math.max(0, t)) : 1;
+  forEachConditionGroup(params, points, (arrays, members) => {
+    for (const { index, column } of members) {
+      thetaRad[index] = arrays.thetaRad[column]!;
+      const t = 0.5 * (arrays.transmissionPlus[column]! + arrays.transmissionMinus[column]!);
+      transmission[index] = Number.isFinite(t) ? Math.min(1, Math.max(0, t)) : 1;
     }
-  }
+  });
   return { thetaRad, transmission };
 }
 
