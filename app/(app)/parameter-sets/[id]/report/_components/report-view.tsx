@@ -58,8 +58,28 @@ function uniqueLines<T extends { lineName: string; wavelengthNm: number }>(point
   });
 }
 
-function powerOf(sources: readonly LineSource[], line: { lineName: string; wavelengthNm: number }): number | null {
-  return sources.find((s) => s.name === line.lineName && s.wavelengthNm === line.wavelengthNm)?.powerW ?? null;
+/** The lines of a saved plan's request, as stored (the request is kept as the planner sent it). */
+function requestLines(request: unknown): LineSource[] {
+  const lines = (request as { lines?: unknown } | null)?.lines;
+  if (!Array.isArray(lines)) return [];
+  return lines.flatMap((l) =>
+    typeof l?.name === "string" && typeof l?.wavelengthNm === "number"
+      ? [{ name: l.name, wavelengthNm: l.wavelengthNm, powerW: typeof l.powerW === "number" ? l.powerW : null }]
+      : [],
+  );
+}
+
+/**
+ * A line's power: the one the plan was made with (its request), else, for a plan saved before
+ * requests carried powers, the lab's light source of the same name and wavelength.
+ */
+function powerOf(
+  planned: readonly LineSource[],
+  sources: readonly LineSource[],
+  line: { lineName: string; wavelengthNm: number },
+): number | null {
+  const same = (s: LineSource) => s.name === line.lineName && s.wavelengthNm === line.wavelengthNm;
+  return planned.find(same)?.powerW ?? sources.find(same)?.powerW ?? null;
 }
 
 function logSpaced(from: number, to: number, n: number): number[] {
@@ -111,11 +131,10 @@ export function ReportView({
 
   const scaleLabel = params ? magneticScaleLabel(params.magneticScale) : null;
   const cautions = cautionsFor({
-    // The saved plan names its lines; their powers are the lab's light sources' (same name and wavelength).
     lines: uniqueLines(plan?.plan.points ?? []).map((p) => ({
       name: p.lineName,
       wavelengthNm: p.wavelengthNm,
-      powerW: powerOf(lightSources, p),
+      powerW: powerOf(requestLines(plan?.request), lightSources, p),
     })),
     minTemperatureK: plan ? Math.min(...plan.plan.points.map((p) => p.temperatureK)) : (params?.temperatureK ?? null),
     maxFieldT: plan ? Math.max(...plan.plan.points.map((p) => Math.abs(p.fieldT))) : params ? Math.abs(params.fieldT) : null,
