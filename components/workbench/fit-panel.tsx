@@ -6,46 +6,38 @@ import { memo, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { INPUT_CLASS } from "@/components/ui/text-field";
-import { DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeParam, type FreeableKey } from "@/lib/analysis/definition";
-import type { MeasuredPoint } from "@/lib/measurements/point";
-import { PARAM_META } from "@/lib/model/param-meta";
+import { type Calibration, DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeableKey } from "@/lib/analysis/definition";
+import type { FitSet } from "@/lib/fit/schema";
 import type { ModelParams } from "@/lib/physics/schema";
 import { describeError } from "@/lib/query/fetcher";
 import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurement-sets";
 import { useParameterSet } from "@/lib/query/parameter-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { WorkbenchPool } from "@/lib/workbench/engine";
+import {
+  type CalibrationDraft,
+  EMPTY_CALIBRATION,
+  type ParamDraft,
+  initialParamDrafts,
+  readCalibration,
+  readParamDrafts,
+  readStarts,
+  readWavelengths,
+} from "@/lib/workbench/fit-draft";
+import { fitProgressView } from "@/lib/workbench/fit-progress";
+import { FitCalibration } from "./fit-calibration";
+import { FitParameterTable } from "./fit-parameter-table";
 import { FitReport } from "./fit-report";
 import { ModelLimits } from "./model-limits";
 import { useFitRun } from "./use-fit-run";
 import { countOf, noun } from "@/lib/text/plural";
 
 /*
- * The fit panel of the workbench: choose measurement sets of the set's lab, the free parameters
- * and their bounds, run the fit in a worker (progress, Cancel), then read the report and save the
- * result as a new version. The fit starts from the workbench's current values.
+ * The fit panel of the workbench: choose measurement sets of the set's lab (several make one global
+ * fit, each with its own calibration), the free parameters, their bounds and priors, run the fit and
+ * its report in a worker (progress, Cancel), then read the report and save the result as a new
+ * version. The fit starts from the workbench's current values.
  */
-
-const META = new Map(PARAM_META.map((m) => [m.key, m]));
-
-interface BoundDraft {
-  free: boolean;
-  min: string;
-  max: string;
-}
-
-function initialBounds(): Record<FreeableKey, BoundDraft> {
-  return Object.fromEntries(
-    FREEABLE_KEYS.map((k) => [k, { free: DEFAULT_FREE_KEYS.includes(k), min: k === "magneticScale" ? "0" : "", max: "" }]),
-  ) as Record<FreeableKey, BoundDraft>;
-}
-
-function parseBound(text: string): number | undefined | null {
-  const t = text.trim();
-  if (t === "") return undefined;
-  const v = Number(t);
-  return Number.isFinite(v) ? v : null;
-}
 
 /** Memoized: the workbench re-renders on every progress step of its own runs, which this panel ignores. */
 export const FitPanel = memo(function FitPanel({
@@ -61,7 +53,12 @@ export const FitPanel = memo(function FitPanel({
   const labId = setQuery.data?.labId;
   const sets = useMeasurementSets(labId);
   const [chosen, setChosen] = useState<string[]>([]);
-  const [bounds, setBounds] = useState(initialBounds);
+  const [drafts, setDrafts] = useState(initialParamDrafts);
+  const [calibrations, setCalibrations] = useState<Record<string, CalibrationDraft>>({});
+  const [startsText, setStartsText] = useState("4");
+  const [magnitudes, setMagnitudes] = useState(false);
+  const [profileShares, setProfileShares] = useState(true);
+  const [shareWavelengthsText, setShareWavelengthsText] = useState("");
   const [scaleByChi2, setScaleByChi2] = useState(false);
   const [showAll, setShowAll] = useState(false);
   const run = useFitRun();
@@ -71,10 +68,8 @@ export const FitPanel = memo(function FitPanel({
   const pointQueries = useQueries({ queries: chosen.map((id) => measurementPointsQuery(id)) });
   const pointsLoading = pointQueries.some((q) => q.isPending);
   const pointsError = pointQueries.find((q) => q.isError)?.error ?? null;
-  const points = useMemo<MeasuredPoint[]>(
-    () => (pointQueries.every((q) => q.data) ? pointQueries.flatMap((q) => q.data ?? []) : []),
-    [pointQueries],
-  );
+  const loaded = pointQueries.every((q) => q.data);
+  const points = useMemo(() => (loaded ? pointQueries.flatMap((q) => q.data ?? []) : []), [loaded, pointQueries]);
 
   // The fit computes at every measured point's conditions: the model's limits for those.
   const limitQuery = useMemo(
@@ -90,43 +85,70 @@ export const FitPanel = memo(function FitPanel({
     [params, points],
   );
 
-  const { free, boundErrors } = useMemo(() => {
-    const list: FreeParam[] = [];
-    const errors: Partial<Record<FreeableKey, string>> = {};
-    for (const key of FREEABLE_KEYS) {
-      const b = bounds[key];
-      if (!b.free) continue;
-      const min = parseBound(b.min);
-      const max = parseBound(b.max);
-      const start = params?.[key];
-      if (min === null || max === null) errors[key] = "Bounds must be numbers (or empty for none).";
-      else if (min !== undefined && max !== undefined && !(min < max)) errors[key] = "The lower bound must be below the upper bound.";
-      else if (start !== undefined && ((min !== undefined && start < min) || (max !== undefined && start > max)))
-        errors[key] = `The starting value ${fmt(start)} lies outside the bounds.`;
-      list.push({ key, ...(min !== undefined && min !== null ? { min } : {}), ...(max !== undefined && max !== null ? { max } : {}) });
-    }
-    return { free: list, boundErrors: errors };
-  }, [bounds, params]);
+  const { free, priors, errors: paramErrors } = useMemo(() => readParamDrafts(drafts, params), [drafts, params]);
+  const calibrationReadings = chosen.map((id) => readCalibration(calibrations[id] ?? EMPTY_CALIBRATION));
+  const calibrationErrors = Object.fromEntries(
+    chosen.flatMap((id, i) => {
+      const r = calibrationReadings[i]!;
+      return "error" in r ? [[id, r.error]] : [];
+    }),
+  );
+  const starts = readStarts(startsText);
+  const shareWavelengths = readWavelengths(shareWavelengthsText);
 
   const problems: string[] = [];
   if (!params) problems.push("Fix the flagged inputs on the left: the fit starts from the workbench's values.");
   if (chosen.length === 0) problems.push("Choose at least one measurement set.");
   if (free.length === 0) problems.push("Free at least one parameter.");
-  if (Object.keys(boundErrors).length > 0) problems.push("Fix the flagged bounds.");
-  if (chosen.length > 0 && !pointsLoading && points.length > 0 && points.length <= free.length) {
-    problems.push(`${countOf(points.length, noun("point"))} cannot determine ${countOf(free.length, noun("free parameter"))}.`);
+  if (Object.keys(paramErrors).length > 0) problems.push("Fix the flagged bounds and priors.");
+  if (Object.keys(calibrationErrors).length > 0) problems.push("Fix the flagged calibration entries.");
+  if ("error" in starts) problems.push(starts.error);
+  if ("error" in shareWavelengths) problems.push(`Share wavelengths: ${shareWavelengths.error}`);
+  // A prior adds an observation, so a parameter carrying one does not use up a point (as the request schema counts).
+  const unconstrained = free.filter((f) => !priors.some((p) => p.key === f.key)).length;
+  if (chosen.length > 0 && !pointsLoading && points.length > 0 && points.length <= unconstrained) {
+    problems.push(`${countOf(points.length, noun("point"))} cannot determine ${countOf(unconstrained, noun("free parameter"))}.`);
   }
   const canRun = problems.length === 0 && !pointsLoading && !pointsError && run.status !== "running";
 
-  const chosenSets = (sets.data ?? []).filter((s) => chosen.includes(s.id)).map((s) => ({ id: s.id, name: s.name }));
+  const chosenSets = chosen.flatMap((id) => {
+    const meta = (sets.data ?? []).find((s) => s.id === id);
+    return meta ? [{ id, name: meta.name }] : [];
+  });
   const start = () => {
-    if (!params || !canRun) return;
+    if (!params || !canRun || "error" in starts || "error" in shareWavelengths) return;
+    // Set names label the results and must differ; two sets of one lab may share a name.
+    const used = new Map<string, number>();
+    const fitSets: FitSet[] = chosen.map((id, i) => {
+      const base = chosenSets.find((s) => s.id === id)?.name ?? `set ${i + 1}`;
+      const n = (used.get(base) ?? 0) + 1;
+      used.set(base, n);
+      const reading = calibrationReadings[i]!;
+      const calibration: Calibration =
+        "calibration" in reading ? reading.calibration : { scaleSigma: 0, relativeFloor: 0, temperatureSigmaK: 0 };
+      return { name: n > 1 ? `${base} (${n})` : base, points: pointQueries[i]?.data ?? [], calibration };
+    });
     setFittedSets(chosenSets);
-    run.start({ params, free, points, scaleByChi2 });
+    run.start(
+      { params, free, priors, sets: fitSets, scaleByChi2, starts: starts.starts, takeModelSign: magnitudes },
+      { shareProfiles: profileShares, shareWavelengthsNm: shareWavelengths.wavelengthsNm },
+    );
   };
 
-  const setBound = (key: FreeableKey, patch: Partial<BoundDraft>) => setBounds((b) => ({ ...b, [key]: { ...b[key], ...patch } }));
-  const listedKeys = showAll ? FREEABLE_KEYS : FREEABLE_KEYS.filter((k) => DEFAULT_FREE_KEYS.includes(k) || bounds[k].free);
+  // The same data and settings as the fit on screen, as magnitudes with the model's sign.
+  const refitAsMagnitudes = () => {
+    if (!run.request || !run.options) return;
+    setMagnitudes(true);
+    run.start({ ...run.request, takeModelSign: true }, run.options);
+  };
+
+  const setDraft = (key: FreeableKey, patch: Partial<ParamDraft>) => setDrafts((d) => ({ ...d, [key]: { ...d[key], ...patch } }));
+  const setCalibration = (id: string, patch: Partial<CalibrationDraft>) =>
+    setCalibrations((c) => ({ ...c, [id]: { ...(c[id] ?? EMPTY_CALIBRATION), ...patch } }));
+  const listedKeys = showAll
+    ? FREEABLE_KEYS
+    : FREEABLE_KEYS.filter((k) => DEFAULT_FREE_KEYS.includes(k) || drafts[k].free || drafts[k].priorSigma.trim() !== "");
+  const progress = fitProgressView(run.progress);
 
   return (
     <div className="space-y-4">
@@ -185,73 +207,8 @@ export const FitPanel = memo(function FitPanel({
       </fieldset>
 
       <fieldset className="space-y-2">
-        <legend className="text-sm font-semibold">Free parameters and bounds</legend>
-        <div className="relative overflow-x-auto">
-          <table className="w-full min-w-[22rem] text-sm">
-            <thead>
-              <tr className="text-left text-xs text-ink-soft">
-                <th className="py-1 pr-2 font-medium">Free</th>
-                <th className="py-1 pr-2 font-medium">Parameter</th>
-                <th className="py-1 pr-2 font-medium">Start</th>
-                <th className="py-1 pr-2 font-medium">Lower bound</th>
-                <th className="py-1 font-medium">Upper bound</th>
-              </tr>
-            </thead>
-            <tbody>
-              {listedKeys.map((key) => {
-                const meta = META.get(key);
-                const label = `${meta?.label ?? key}${meta?.unit ? ` (${meta.unit})` : ""}`;
-                const b = bounds[key];
-                const error = boundErrors[key];
-                return (
-                  <tr key={key} className="border-t border-ink/10 align-top">
-                    <td className="py-1 pr-2">
-                      <input
-                        type="checkbox"
-                        aria-label={`Free ${label}`}
-                        checked={b.free}
-                        onChange={(e) => setBound(key, { free: e.target.checked })}
-                      />
-                    </td>
-                    <td className="py-1 pr-2">
-                      {label}
-                      {error ? (
-                        <p className="text-xs text-ember" role="alert">
-                          {error}
-                        </p>
-                      ) : null}
-                    </td>
-                    <td className="py-1 pr-2 tabular-nums">{fmt(params?.[key])}</td>
-                    <td className="py-1 pr-2">
-                      <input
-                        className={`${INPUT_CLASS} w-24 py-1`}
-                        aria-label={`Lower bound of ${label}`}
-                        aria-invalid={error ? true : undefined}
-                        inputMode="decimal"
-                        disabled={!b.free}
-                        value={b.min}
-                        placeholder="none"
-                        onChange={(e) => setBound(key, { min: e.target.value })}
-                      />
-                    </td>
-                    <td className="py-1">
-                      <input
-                        className={`${INPUT_CLASS} w-24 py-1`}
-                        aria-label={`Upper bound of ${label}`}
-                        aria-invalid={error ? true : undefined}
-                        inputMode="decimal"
-                        disabled={!b.free}
-                        value={b.max}
-                        placeholder="none"
-                        onChange={(e) => setBound(key, { max: e.target.value })}
-                      />
-                    </td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
-        </div>
+        <legend className="text-sm font-semibold">Free parameters, bounds and priors</legend>
+        <FitParameterTable keys={listedKeys} drafts={drafts} params={params} errors={paramErrors} onChange={setDraft} />
         <Button variant="quiet" onClick={() => setShowAll((v) => !v)}>
           {showAll ? "Show only the usual free parameters" : "Show every model parameter"}
         </Button>
@@ -265,7 +222,41 @@ export const FitPanel = memo(function FitPanel({
         </label>
         <label className="flex items-center gap-2">
           <input type="radio" name="fit-sigma" checked={scaleByChi2} onChange={() => setScaleByChi2(true)} />σ scaled by √(χ²/dof) (when the
-          data&apos;s σ are only relative)
+          data&apos;s σ are only relative; never below 1, refused below 3 degrees of freedom)
+        </label>
+      </fieldset>
+
+      <FitCalibration sets={chosenSets} drafts={calibrations} errors={calibrationErrors} onChange={setCalibration} />
+
+      <fieldset className="space-y-2 text-sm">
+        <legend className="text-sm font-semibold">Fit options</legend>
+        <label className="flex flex-wrap items-center gap-2">
+          Starts of the optimiser (seeded, spread over the bounds)
+          <input
+            className={`${INPUT_CLASS} w-20 py-1`}
+            inputMode="numeric"
+            value={startsText}
+            aria-invalid={"error" in starts ? true : undefined}
+            onChange={(e) => setStartsText(e.target.value)}
+          />
+        </label>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" checked={magnitudes} onChange={(e) => setMagnitudes(e.target.checked)} />
+          The values are magnitudes (|V| from a vendor sheet): give each the model&apos;s sign
+        </label>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" checked={profileShares} onChange={(e) => setProfileShares(e.target.checked)} />
+          Profile the magnetic share at every measured condition (a few dozen refits each; up to 40 conditions)
+        </label>
+        <label className="flex flex-wrap items-center gap-2">
+          Also profile the share at these wavelengths (nm)
+          <input
+            className={`${INPUT_CLASS} w-40 py-1`}
+            value={shareWavelengthsText}
+            placeholder="e.g. 1064, 1550"
+            aria-invalid={"error" in shareWavelengths ? true : undefined}
+            onChange={(e) => setShareWavelengthsText(e.target.value)}
+          />
         </label>
       </fieldset>
 
@@ -297,20 +288,14 @@ export const FitPanel = memo(function FitPanel({
             role="progressbar"
             aria-label="Fit progress"
             aria-valuemin={0}
-            aria-valuemax={run.progress?.maxIterations ?? 200}
-            aria-valuenow={run.progress?.iteration ?? 0}
+            aria-valuemax={100}
+            aria-valuenow={Math.round(100 * progress.fraction)}
+            aria-valuetext={progress.text}
             className="h-2 overflow-hidden rounded bg-ink/10"
           >
-            {/* A fit has no known length: the bar fills ever more slowly with each iteration. */}
-            <div
-              className="h-full bg-lux transition-[width]"
-              style={{ width: `${(100 * (run.progress?.iteration ?? 0)) / ((run.progress?.iteration ?? 0) + 6)}%` }}
-            />
+            <div className="h-full bg-lux transition-[width]" style={{ width: `${100 * progress.fraction}%` }} />
           </div>
-          <p className="text-xs text-ink-soft">
-            {run.progress ? `Iteration ${run.progress.iteration}, χ² = ${fmt(run.progress.chi2)}` : "Starting the fit worker…"} (the page
-            stays usable; Cancel stops it)
-          </p>
+          <p className="text-xs text-ink-soft">{progress.text} (the page stays usable; Cancel stops it)</p>
         </div>
       ) : null}
       {run.status === "cancelled" ? <p className="text-sm text-ink-soft">Fit cancelled. Nothing was changed.</p> : null}
@@ -327,6 +312,7 @@ export const FitPanel = memo(function FitPanel({
           set={setQuery.data}
           measurementSets={fittedSets}
           pool={pool}
+          onFitAsMagnitudes={run.status === "done" && run.options ? refitAsMagnitudes : null}
         />
       ) : null}
     </div>

@@ -10,6 +10,9 @@ import { PlotFrame, frameTop } from "@/components/plots/plot-frame";
 import { makeScale, paddedExtent } from "@/components/plots/scale";
 import { useElementWidth } from "@/components/plots/use-element-size";
 import type { FitResult } from "@/lib/fit/fit";
+import { setOfScaleName } from "@/lib/fit/problem";
+import { type FitReport as FitReportData, type ShareProfile, UNDETERMINED_SHARE_WIDTH } from "@/lib/fit/report";
+import { AssumptionsTable, ComparisonTable, GoodnessOfFit, ScaleProfile } from "./fit-inference";
 import { saveFitBody } from "@/lib/fit/provenance";
 import { PARAM_META } from "@/lib/model/param-meta";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
@@ -29,7 +32,11 @@ import { numericalBadgeText } from "./run-status";
  */
 
 const META = new Map(PARAM_META.map((m) => [m.key, m]));
-const labelOf = (key: string) => META.get(key as never)?.label ?? key;
+/** A fitted name in words: a model key's label, or the field × length scale factor of a measurement set. */
+const labelOf = (key: string) => {
+  const set = setOfScaleName(key);
+  return set !== null ? `Field × length scale of ${set}` : (META.get(key as never)?.label ?? key);
+};
 const unitOf = (key: string) => META.get(key as never)?.unit ?? "";
 
 export function FitReport({
@@ -38,15 +45,19 @@ export function FitReport({
   set,
   measurementSets,
   pool,
+  onFitAsMagnitudes,
 }: {
-  result: FitResult;
+  result: FitReportData;
   startParams: ModelParams;
   set: ParameterSet;
   measurementSets: { id: string; name: string }[];
   pool: WorkbenchPool | null;
+  /** Fit the same data again as magnitudes with the model's sign (offered when every value has the opposite sign). */
+  onFitAsMagnitudes: (() => void) | null;
 }) {
   const scaleLabel = magneticScaleLabel(result.params.magneticScale);
   const chi2Factor = Math.sqrt(result.reducedChi2);
+  const signWarning = result.signCheck.allOpposite && !result.signCheck.tookModelSign;
   return (
     <section aria-label="Fit result" className="space-y-4 border-t border-ink/10 pt-4">
       <h3 className="text-base font-semibold">Fit result</h3>
@@ -58,24 +69,31 @@ export function FitReport({
           {scaleLabel}
         </p>
       ) : null}
-      {!result.separation.separable ? (
-        <Alert tone="warning" title="The data cannot separate the two parts">
-          {result.separation.reasons.map((r) => (
-            <p key={r}>{r}</p>
-          ))}
-          <p className="mt-1">
-            The split below is therefore not a measurement. The{" "}
-            <Link className="font-medium text-lux-dark underline underline-offset-4" href="/planner">
-              planner
-            </Link>{" "}
-            suggests wavelengths, temperatures and fields that would tell the parts apart.
+      {result.signCheck.tookModelSign ? (
+        <p className="text-sm text-ink-soft">The measured values were fitted as magnitudes, each with the model&apos;s sign.</p>
+      ) : null}
+      {signWarning ? (
+        <Alert tone="warning" title="Every value has the sign opposite to the model's">
+          <p>
+            All {result.signCheck.total} measured values have the sign opposite to what the model predicts for this material at the starting
+            values. Vendor sheets often quote |V|; fitted as they are, the electric gyration flips to the other sign.
           </p>
+          {onFitAsMagnitudes ? (
+            <Button variant="secondary" className="mt-2" onClick={onFitAsMagnitudes}>
+              These are magnitudes: fit again with the model&apos;s sign
+            </Button>
+          ) : null}
         </Alert>
       ) : null}
-      {!result.converged ? (
-        <Alert tone="warning" title="The fit stopped at its iteration limit">
-          The values are the best found, not a converged minimum.
-        </Alert>
+      <Verdict result={result} />
+      {result.notes.filter((n) => !signWarning || !n.startsWith("Every measured value")).length > 0 ? (
+        <ul className="list-disc space-y-1 pl-5 text-sm text-ember" aria-label="Fit notes">
+          {result.notes
+            .filter((n) => !signWarning || !n.startsWith("Every measured value"))
+            .map((n) => (
+              <li key={n}>{n}</li>
+            ))}
+        </ul>
       ) : null}
 
       <div className="relative overflow-x-auto">
@@ -83,33 +101,21 @@ export function FitReport({
           <caption className="pb-1 text-left text-xs text-ink-soft">
             Reported σ:{" "}
             {result.sigmaScaledByChi2 ? `scaled by √(χ²/dof) = ${fmt(chi2Factor, 3)}` : "from the data's σ as given, not scaled"}. Both are
-            listed.
+            listed. Parameters with a prior are fitted with it; their σ include it.
           </caption>
           <thead>
             <tr className="text-left text-xs text-ink-soft">
               <th className="py-1 pr-3 font-medium">Parameter</th>
               <th className="py-1 pr-3 font-medium">Start</th>
               <th className="py-1 pr-3 font-medium">Fitted ± σ (reported)</th>
+              <th className="py-1 pr-3 font-medium">68 % interval</th>
               <th className="py-1 pr-3 font-medium">σ as given</th>
               <th className="py-1 font-medium">σ scaled by √(χ²/dof)</th>
             </tr>
           </thead>
           <tbody>
-            {result.free.map((key) => (
-              <tr key={key} className="border-t border-ink/10">
-                <th scope="row" className="py-1 pr-3 text-left font-normal">
-                  {labelOf(key)} {unitOf(key) ? <span className="text-ink-soft">({unitOf(key)})</span> : null}
-                  {result.atBound.includes(key) ? (
-                    <span className="block text-xs text-ember">ended on a bound: its σ is not a fair error</span>
-                  ) : null}
-                </th>
-                <td className="py-1 pr-3 tabular-nums">{fmt(startParams[key] as number)}</td>
-                <td className="py-1 pr-3 font-medium tabular-nums" data-testid={`fit-value-${key}`}>
-                  {fmt(result.values[key], 5)} ± {fmt(result.sigmas[key], 2)}
-                </td>
-                <td className="py-1 pr-3 tabular-nums">{fmt(result.sigmasUnscaled[key], 2)}</td>
-                <td className="py-1 tabular-nums">{fmt(result.sigmasScaled[key], 2)}</td>
-              </tr>
+            {result.names.map((key) => (
+              <ValueRow key={key} name={key} result={result} startParams={startParams} />
             ))}
           </tbody>
         </table>
@@ -117,15 +123,125 @@ export function FitReport({
 
       <p className="text-sm" data-testid="fit-chi2">
         χ² = {fmt(result.chi2)} with {result.dof} degrees of freedom; reduced χ² = {fmt(result.reducedChi2, 3)} ({result.points.length}{" "}
-        points, {result.free.length} free parameters, {result.iterations} iterations).
+        points, {result.names.length} fitted parameters, {result.iterations} iterations, best of {result.startChi2.length}{" "}
+        {result.startChi2.length === 1 ? "start" : "starts"}).
       </p>
+      <GoodnessOfFit report={result} />
+      {result.sets.length > 1 || result.sets.some((s) => s.scaleSigma > 0 || s.relativeFloor > 0 || s.temperatureSigmaK > 0) ? (
+        <SetTable result={result} />
+      ) : null}
 
-      {result.free.length > 1 ? <CorrelationTable result={result} /> : null}
+      <h4 className="text-sm font-semibold">Does the data need a magnetic-dipole part?</h4>
+      <ComparisonTable report={result} />
+      <ScaleProfile report={result} />
+      <h4 className="text-sm font-semibold">Assumptions</h4>
+      <AssumptionsTable report={result} />
+
+      {result.names.length > 1 ? <CorrelationTable result={result} /> : null}
       <ResidualPlot result={result} />
       <ShareTable result={result} />
+      <ExtraShares result={result} />
       <LlgCheck result={result} pool={pool} />
       <SaveFit result={result} startParams={startParams} set={set} measurementSets={measurementSets} />
     </section>
+  );
+}
+
+/** The verdict on the split, with every reason that speaks against calling the parts separated. */
+function Verdict({ result }: { result: FitReportData }) {
+  if (!result.verdict.separable) {
+    return (
+      <Alert tone="warning" title="The data do not separate the two parts">
+        {result.verdict.reasons.map((r) => (
+          <p key={r}>{r}</p>
+        ))}
+        <p className="mt-1">
+          The split below is therefore not a measurement. The{" "}
+          <Link className="font-medium text-lux-dark underline underline-offset-4" href="/planner">
+            planner
+          </Link>{" "}
+          suggests wavelengths, temperatures and fields that would tell the parts apart.
+        </p>
+      </Alert>
+    );
+  }
+  const held = result.assumptions.filter((a) => a.key === "oscillatorWavelengthNm" || a.key === "sellmeierWavelengthNm");
+  return (
+    <p className="text-sm" data-testid="fit-verdict">
+      In this model{held.length > 0 ? `, with ${held.map((a) => `${labelOf(a.key)} held at ${a.value}`).join(" and ")},` : ""} the data
+      separate the electric-dipole and magnetic-dipole parts: the comparison, the intervals and the held values are below.
+    </p>
+  );
+}
+
+function ValueRow({ name, result, startParams }: { name: string; result: FitReportData; startParams: ModelParams }) {
+  const atBound = result.atBound.includes(name);
+  const prior = result.priors.find((p) => p.key === name);
+  const isModelKey = name in startParams;
+  const g = result.gaussianIntervals[name];
+  const profile = name === "magneticScale" ? result.profile.magneticScale : undefined;
+  const interval = profile ? profile.interval68 : (g?.interval68 ?? null);
+  return (
+    <tr className="border-t border-ink/10">
+      <th scope="row" className="py-1 pr-3 text-left font-normal">
+        {labelOf(name)} {unitOf(name) ? <span className="text-ink-soft">({unitOf(name)})</span> : null}
+        {prior ? (
+          <span className="block text-xs text-ink-soft">
+            prior {fmt(prior.mean)} ± {fmt(prior.sigma, 2)}
+          </span>
+        ) : null}
+        {atBound ? <span className="block text-xs text-ember">ended on a bound: no σ is given there</span> : null}
+      </th>
+      <td className="py-1 pr-3 tabular-nums">{isModelKey ? fmt(startParams[name as keyof ModelParams] as number) : "1"}</td>
+      <td className="py-1 pr-3 font-medium tabular-nums" data-testid={`fit-value-${name}`}>
+        {atBound ? `${fmt(result.values[name], 5)} (at a bound)` : `${fmt(result.values[name], 5)} ± ${fmt(result.sigmas[name], 2)}`}
+      </td>
+      <td className="py-1 pr-3 tabular-nums">
+        {interval ? `[${fmt(interval[0])}, ${fmt(interval[1])}]` : "–"}
+        <span className="block text-xs text-ink-soft">
+          {profile ? "profile likelihood" : g?.interval68 ? `Gaussian (${g.quantile})` : ""}
+        </span>
+      </td>
+      <td className="py-1 pr-3 tabular-nums">{atBound ? "–" : fmt(result.sigmasUnscaled[name], 2)}</td>
+      <td className="py-1 tabular-nums">{atBound ? "–" : fmt(result.sigmasScaled[name], 2)}</td>
+    </tr>
+  );
+}
+
+function SetTable({ result }: { result: FitReportData }) {
+  return (
+    <div className="relative overflow-x-auto">
+      <table className="w-full min-w-[26rem] text-sm" aria-label="Measurement sets of the fit">
+        <caption className="pb-1 text-left text-xs text-ink-soft">
+          One global fit: shared material parameters, each point at its own temperature, field and length; each set&apos;s calibration as
+          fitted.
+        </caption>
+        <thead>
+          <tr className="text-left text-xs text-ink-soft">
+            <th className="py-1 pr-3 font-medium">Set</th>
+            <th className="py-1 pr-3 font-medium">Points</th>
+            <th className="py-1 pr-3 font-medium">χ² of its points</th>
+            <th className="py-1 pr-3 font-medium">Field × length σ</th>
+            <th className="py-1 pr-3 font-medium">Error floor</th>
+            <th className="py-1 font-medium">Temperature σ</th>
+          </tr>
+        </thead>
+        <tbody className="tabular-nums">
+          {result.sets.map((s) => (
+            <tr key={s.name} className="border-t border-ink/10">
+              <th scope="row" className="py-1 pr-3 text-left font-normal">
+                {s.name}
+              </th>
+              <td className="py-1 pr-3">{s.pointCount}</td>
+              <td className="py-1 pr-3">{fmt(s.chi2)}</td>
+              <td className="py-1 pr-3">{s.scaleSigma > 0 ? fmtPercent(s.scaleSigma, 2) : "none"}</td>
+              <td className="py-1 pr-3">{s.relativeFloor > 0 ? fmtPercent(s.relativeFloor, 2) : "none"}</td>
+              <td className="py-1">{s.temperatureSigmaK > 0 ? `${fmt(s.temperatureSigmaK)} K` : "none"}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
   );
 }
 
@@ -139,7 +255,7 @@ function CorrelationTable({ result }: { result: FitResult }) {
         <thead>
           <tr>
             <td />
-            {result.free.map((k) => (
+            {result.names.map((k) => (
               <th key={k} scope="col" className="px-2 py-1 text-xs font-medium text-ink-soft">
                 {labelOf(k)}
               </th>
@@ -147,12 +263,12 @@ function CorrelationTable({ result }: { result: FitResult }) {
           </tr>
         </thead>
         <tbody>
-          {result.free.map((row, i) => (
+          {result.names.map((row, i) => (
             <tr key={row} className="border-t border-ink/10">
               <th scope="row" className="py-1 pr-2 text-left text-xs font-medium text-ink-soft">
                 {labelOf(row)}
               </th>
-              {result.free.map((col, j) => {
+              {result.names.map((col, j) => {
                 const r = result.correlation[i]![j]!;
                 return (
                   <td
@@ -206,28 +322,51 @@ function ResidualPlot({ result }: { result: FitResult }) {
   );
 }
 
-function ShareTable({ result }: { result: FitResult }) {
+/** A Gaussian share ± σ whose ±σ spans most of [0, 1] says nothing: it is named so rather than printed as "0.0 % ± 319 %". */
+function gaussianShareText(share: number | null, sigma: number | null): string {
+  if (share === null) return "–";
+  if (sigma === null || !Number.isFinite(sigma)) return fmtPercent(share);
+  return 2 * sigma > UNDETERMINED_SHARE_WIDTH
+    ? `undetermined (σ ${fmtPercent(sigma, 0)})`
+    : `${fmtPercent(share)} ± ${fmtPercent(sigma, 2)}`;
+}
+
+function profileShareText(p: ShareProfile | undefined): string {
+  if (!p) return "not profiled";
+  const range = `${fmtPercent(p.interval68[0])} – ${fmtPercent(p.interval68[1])}`;
+  return p.status === "undetermined" ? `undetermined (${range})` : range;
+}
+
+function ShareTable({ result }: { result: FitReportData }) {
   const unit = (q: string) => (q === "verdet" ? "rad/(T·m)" : "rad");
+  const profiled = result.shareProfiles.length > 0;
   return (
     <div className="max-h-80 overflow-auto rounded border border-ink/10">
-      <table className="w-full min-w-[30rem] text-sm" aria-label="Magnetic share at every point">
+      <table className="w-full min-w-[34rem] text-sm" aria-label="Magnetic share at every point">
         <caption className="px-2 py-1 text-left text-xs text-ink-soft">
-          Magnetic-dipole share |θm| / (|θe| + |θm|) at the fitted values, ± its standard error propagated from the covariance through the
-          model&apos;s Jacobian.
+          Magnetic-dipole share |θm| / (|θe| + |θm|) at the fitted values, in this model: ± its standard error propagated from the
+          covariance through the model&apos;s Jacobian
+          {profiled
+            ? ", and its 68 % profile interval (Δχ² = 1 with every parameter refitted, within [0, 1]); " +
+              "an interval over most of [0, 1] reads undetermined."
+            : "; share intervals were not profiled for this fit."}
         </caption>
         <thead className="sticky top-0 bg-paper-raised">
           <tr className="text-left text-xs text-ink-soft">
+            {result.sets.length > 1 ? <th className="px-2 py-1 font-medium">Set</th> : null}
             <th className="px-2 py-1 font-medium">λ (nm)</th>
             <th className="px-2 py-1 font-medium">T (K)</th>
             <th className="px-2 py-1 font-medium">B (T)</th>
             <th className="px-2 py-1 font-medium">Measured ± σ</th>
             <th className="px-2 py-1 font-medium">Model</th>
             <th className="px-2 py-1 font-medium">Magnetic share ± σ</th>
+            <th className="px-2 py-1 font-medium">68 % profile interval</th>
           </tr>
         </thead>
         <tbody>
           {result.points.map((p, i) => (
             <tr key={i} className="border-t border-ink/10 tabular-nums">
+              {result.sets.length > 1 ? <td className="px-2 py-1">{p.set}</td> : null}
               <td className="px-2 py-1">{fmt(p.wavelengthNm)}</td>
               <td className="px-2 py-1">{fmt(p.temperatureK)}</td>
               <td className="px-2 py-1">{fmt(p.fieldT)}</td>
@@ -236,8 +375,46 @@ function ShareTable({ result }: { result: FitResult }) {
               </td>
               <td className="px-2 py-1">{fmt(p.model)}</td>
               <td className="px-2 py-1" data-testid="fit-share">
-                {p.magneticShare === null ? "–" : `${fmtPercent(p.magneticShare)} ± ${fmtPercent(p.magneticShareSigma, 2)}`}
+                {gaussianShareText(p.magneticShare, p.magneticShareSigma)}
               </td>
+              <td className="px-2 py-1" data-testid="fit-share-interval">
+                {profileShareText(result.shareProfiles[result.pointShareProfile[i] ?? -1])}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** The share profiled at wavelengths the user asked for (at the first point's temperature and field). */
+function ExtraShares({ result }: { result: FitReportData }) {
+  const profiled = new Set(result.pointShareProfile);
+  const extra = result.shareProfiles.filter((_, i) => !profiled.has(i));
+  if (extra.length === 0) return null;
+  return (
+    <div className="relative overflow-x-auto">
+      <table className="w-full min-w-[22rem] text-sm" aria-label="Magnetic share at chosen wavelengths">
+        <caption className="pb-1 text-left text-xs text-ink-soft">
+          The magnetic share at the wavelengths asked for, in this model, at {fmt(extra[0]!.temperatureK)} K and {fmt(extra[0]!.fieldT)} T:
+          profile intervals.
+        </caption>
+        <thead>
+          <tr className="text-left text-xs text-ink-soft">
+            <th className="py-1 pr-3 font-medium">λ (nm)</th>
+            <th className="py-1 pr-3 font-medium">Share</th>
+            <th className="py-1 pr-3 font-medium">68 % interval</th>
+            <th className="py-1 font-medium">95 % interval</th>
+          </tr>
+        </thead>
+        <tbody className="tabular-nums">
+          {extra.map((p) => (
+            <tr key={p.wavelengthNm} className="border-t border-ink/10">
+              <td className="py-1 pr-3">{fmt(p.wavelengthNm)}</td>
+              <td className="py-1 pr-3">{fmtPercent(p.value)}</td>
+              <td className="py-1 pr-3">{profileShareText(p)}</td>
+              <td className="py-1">{`${fmtPercent(p.interval95[0])} – ${fmtPercent(p.interval95[1])}`}</td>
             </tr>
           ))}
         </tbody>

@@ -2,12 +2,12 @@
 
 import { type Remote, proxy, wrap } from "comlink";
 import { useCallback, useEffect, useRef, useState } from "react";
-import type { FitProgress, FitResult } from "@/lib/fit/fit";
+import type { FitReport } from "@/lib/fit/report";
 import type { FitRequestInput } from "@/lib/fit/schema";
-import type { FitWorkerApi } from "@/lib/fit/worker-api";
+import type { FitRunOptions, FitRunProgress, FitWorkerApi } from "@/lib/fit/worker-api";
 
 /*
- * Runs a fit in its own Web Worker, so the page never blocks. The fit is one synchronous loop in
+ * Runs a fit and its report in its own Web Worker, so the page never blocks. The fit is one synchronous loop in
  * the worker, so Cancel terminates the worker (nothing is lost: a fit stores nothing) and the
  * next fit starts a fresh one.
  */
@@ -16,12 +16,15 @@ export type FitStatus = "idle" | "running" | "done" | "cancelled" | "failed";
 
 export interface FitRunState {
   status: FitStatus;
-  progress: FitProgress | null;
-  result: FitResult | null;
+  /** The last iteration of the first fit, then the report's stage. */
+  progress: FitRunProgress | null;
+  result: FitReport | null;
   /** The request of the result on screen (what was fitted). */
   request: FitRequestInput | null;
+  /** The report options of the result on screen. */
+  options: FitRunOptions | null;
   error: string | null;
-  start: (request: FitRequestInput) => void;
+  start: (request: FitRequestInput, options: FitRunOptions) => void;
   cancel: () => void;
 }
 
@@ -32,9 +35,10 @@ interface Handle {
 
 export function useFitRun(): FitRunState {
   const [status, setStatus] = useState<FitStatus>("idle");
-  const [progress, setProgress] = useState<FitProgress | null>(null);
-  const [result, setResult] = useState<FitResult | null>(null);
+  const [progress, setProgress] = useState<FitRunProgress | null>(null);
+  const [result, setResult] = useState<FitReport | null>(null);
   const [request, setRequest] = useState<FitRequestInput | null>(null);
+  const [options, setOptions] = useState<FitRunOptions | null>(null);
   const [error, setError] = useState<string | null>(null);
   const handle = useRef<Handle | null>(null);
   const runId = useRef(0);
@@ -47,7 +51,7 @@ export function useFitRun(): FitRunState {
   useEffect(() => stopWorker, [stopWorker]);
 
   const start = useCallback(
-    (next: FitRequestInput) => {
+    (next: FitRequestInput, nextOptions: FitRunOptions) => {
       stopWorker();
       const id = ++runId.current;
       const worker = new Worker(new URL("../../workers/fit.worker.ts", import.meta.url), { type: "module" });
@@ -59,7 +63,8 @@ export function useFitRun(): FitRunState {
       api
         .fit(
           next,
-          proxy((p: FitProgress) => {
+          nextOptions,
+          proxy((p: FitRunProgress) => {
             if (runId.current === id) setProgress(p);
           }),
         )
@@ -67,6 +72,7 @@ export function useFitRun(): FitRunState {
           if (runId.current !== id) return;
           setResult(fitted);
           setRequest(next);
+          setOptions(nextOptions);
           setStatus("done");
         })
         .catch((err: unknown) => {
@@ -88,5 +94,5 @@ export function useFitRun(): FitRunState {
     setProgress(null);
   }, [stopWorker]);
 
-  return { status, progress, result, request, error, start, cancel };
+  return { status, progress, result, request, options, error, start, cancel };
 }

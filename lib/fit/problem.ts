@@ -47,6 +47,8 @@ export interface PhysicsProblem extends ChiSquareProblem {
 
 /** The name of a set's field × length scale factor among the fitted values. */
 export const scaleName = (setName: string) => `fieldLengthScale[${setName}]`;
+/** The set a scale factor's name belongs to, or null for a model key. */
+export const setOfScaleName = (name: string) => /^fieldLengthScale\[(.*)\]$/s.exec(name)?.[1] ?? null;
 
 /** How far extra starts range around a value with no finite bound on that side: ±50 % (±1 when it is 0). */
 function spreadOf(x0: number, lower: number, upper: number, prior: { mean: number; sigma: number } | undefined): [number, number] {

@@ -14,7 +14,7 @@ import { type MinimizeOptions, type MinimizeResult, minimize } from "./minimize"
 import type { ModelCondition } from "./model";
 import { type PhysicsProblem, buildPhysicsProblem } from "./problem";
 import type { FitRequest, FitRequestInput } from "./schema";
-import { COVERAGE_68, COVERAGE_95, normalHalfWidth, studentTHalfWidth } from "./statistics";
+import { COVERAGE_68, COVERAGE_95, formatSignificance, normalHalfWidth, studentTHalfWidth } from "./statistics";
 
 /*
  * The fit report: the fit (lib/fit/fit.ts) and everything a referee asks of it — the held values
@@ -89,7 +89,17 @@ export interface FitReport extends FitResult {
   verdict: { separable: boolean; reasons: string[] };
 }
 
+/** Where a report stands: the fit itself reports its iterations through onProgress; the steps after it report here. */
+export interface ReportStage {
+  stage: "comparison" | "nested" | "profile" | "share" | "restsOn";
+  /** Steps of this stage done and in all (share: conditions profiled). */
+  done: number;
+  total: number;
+}
+
 export interface ReportOptions extends FitOptions {
+  /** Called as each stage after the fit starts and as the share profiles progress. */
+  onStage?: (stage: ReportStage) => void;
   /** Sources of held values beyond the reference table (key → where the value comes from). */
   sources?: Partial<Record<string, string>>;
   /** Profile the share at every distinct point condition (default true up to MAX_SHARE_PROFILES conditions). */
@@ -107,18 +117,17 @@ const SHAPE_KEYS = ["oscillatorWavelengthNm", "sellmeierWavelengthNm", "curieWei
 
 const fmt = (v: number, digits = 3) =>
   Math.abs(v) >= 1e4 || (Math.abs(v) < 1e-3 && v !== 0) ? v.toExponential(digits - 1) : v.toPrecision(digits);
-const sigmaWords = (z: number) => (z >= 40 ? "> 40σ" : `${z.toFixed(1)}σ`);
 
 function comparisonWords(h: Hypothesis, z: number, condition: string): string {
   if (h === "noMagneticPart") {
-    if (z >= 5) return `In this model${condition}, the data need a magnetic-dipole part at ${sigmaWords(z)}.`;
-    if (z >= 3) return `In this model${condition}, the data favour a magnetic-dipole part at ${sigmaWords(z)}.`;
-    if (z >= 2) return `In this model${condition}, a magnetic-dipole part is hinted at (${sigmaWords(z)}), not established.`;
-    return `In this model${condition}, these data cannot tell whether there is a magnetic-dipole part (${sigmaWords(z)}).`;
+    if (z >= 5) return `In this model${condition}, the data need a magnetic-dipole part at ${formatSignificance(z)}.`;
+    if (z >= 3) return `In this model${condition}, the data favour a magnetic-dipole part at ${formatSignificance(z)}.`;
+    if (z >= 2) return `In this model${condition}, a magnetic-dipole part is hinted at (${formatSignificance(z)}), not established.`;
+    return `In this model${condition}, these data cannot tell whether there is a magnetic-dipole part (${formatSignificance(z)}).`;
   }
-  if (z >= 5) return `In this model${condition}, the first-principles value magneticScale = 1 is excluded at ${sigmaWords(z)}.`;
-  if (z >= 3) return `In this model${condition}, the first-principles value magneticScale = 1 is disfavoured at ${sigmaWords(z)}.`;
-  return `In this model${condition}, the data are consistent with the first-principles value magneticScale = 1 (${sigmaWords(z)}).`;
+  if (z >= 5) return `In this model${condition}, the first-principles value magneticScale = 1 is excluded at ${formatSignificance(z)}.`;
+  if (z >= 3) return `In this model${condition}, the first-principles value magneticScale = 1 is disfavoured at ${formatSignificance(z)}.`;
+  return `In this model${condition}, the data are consistent with the first-principles value magneticScale = 1 (${formatSignificance(z)}).`;
 }
 
 function conditionWords(assumptions: Assumption[]): string {
@@ -194,18 +203,21 @@ export function analyseFit(input: FitRequestInput, opts: ReportOptions = {}): Fi
     best = minimize(problem, { ...base, start: best.x });
   }
   const notes: string[] = [];
+  const stage = (name: ReportStage["stage"], done = 0, total = 1) => opts.onStage?.({ stage: name, done, total });
 
   // Nested models: each varied model key held at its starting value. The full fit must not end above any of them.
   const msIndex = problem.names.indexOf("magneticScale");
   const worseThan: NestedCheck["worseThan"] = [];
   let nestedBest: MinimizeResult | null = null;
   const condition = conditionWords(heldAssumptions(req.params, problem.names, opts.sources));
+  stage("comparison");
   const comparison = msIndex >= 0 ? compare(problem, best, req, msIndex, condition, base) : { rows: [], fits: [] };
   const nestedFits: { key: string; value: number; fit: MinimizeResult }[] = comparison.fits.map((fit, i) => ({
     key: "magneticScale",
     value: comparison.rows[i]!.fixed.magneticScale,
     fit,
   }));
+  stage("nested");
   problem.keys.forEach((key, j) => {
     if (key === "magneticScale" || problem.x0[j] === best.x[j]) return;
     try {
@@ -245,6 +257,7 @@ export function analyseFit(input: FitRequestInput, opts: ReportOptions = {}): Fi
   // Profiles.
   const profile: FitReport["profile"] = {};
   if (msIndex >= 0) {
+    stage("profile");
     profile.magneticScale = parameterProfile(problem, best, msIndex, base);
     const lm = profile.magneticScale.lowerMinimum;
     if (lm)
@@ -271,7 +284,8 @@ export function analyseFit(input: FitRequestInput, opts: ReportOptions = {}): Fi
     return i >= 0 ? (result.points[i]!.magneticShareSigma ?? Number.NaN) : Number.NaN;
   };
   if (problem.keys.includes("magneticScale") || problem.keys.includes("gyrationPerT")) {
-    for (const c of targets) {
+    for (const [k, c] of targets.entries()) {
+      stage("share", k, targets.length);
       const atBest = problem.shareAt(best.x, c, null).value;
       if (!Number.isFinite(atBest)) continue;
       const p = functionProfile(problem, best, (x, columns) => problem.shareAt(x, c, columns), shareSigma(c), 0, 1, base);
@@ -293,6 +307,7 @@ export function analyseFit(input: FitRequestInput, opts: ReportOptions = {}): Fi
   const restsOn: RestsOnHeldValue[] = [];
   const noPart = rows.find((r) => r.hypothesis === "noMagneticPart");
   if (noPart && noPart.significanceSigma >= 2) {
+    stage("restsOn");
     for (const key of SHAPE_KEYS) {
       if (problem.names.includes(key)) continue;
       const freed = { ...req, free: [...req.free, NATURAL_LOWER[key] === undefined ? { key } : { key, min: NATURAL_LOWER[key] }] };

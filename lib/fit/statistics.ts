@@ -34,3 +34,9 @@ export function normalHalfWidth(coverage: number): number {
 /** Coverage of ±1σ and ±2σ of a normal distribution: erf(1/√2) and erf(√2) (A&S 26.2.2). */
 export const COVERAGE_68 = 0.682689492137086;
 export const COVERAGE_95 = 0.954499736103642;
+
+/** A significance in σ as printed; beyond 40σ the tail probabilities underflow, so the figure is only a bound. */
+export function formatSignificance(z: number): string {
+  if (!Number.isFinite(z)) return "–";
+  return z >= 40 ? "> 40σ" : `${z.toFixed(1)}σ`;
+}

@@ -92,3 +92,10 @@ export function fmtDifference(delta: number | null | undefined, reference: numbe
       : "";
   return `${sign}${magnitudeText(Math.abs(delta), digits)}${relative}`;
 }
+
+/** A probability as a reader takes it: tiny ones in powers of ten rather than 0.000. */
+export function fmtProbability(p: number | null | undefined): string {
+  if (p === null || p === undefined || !Number.isFinite(p)) return "–";
+  if (p === 0) return "< 1e-300";
+  return p < 1e-3 ? p.toExponential(1).replace("e+", "e") : p.toFixed(3);
+}
