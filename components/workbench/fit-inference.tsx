@@ -2,7 +2,7 @@
 
 import { isUnverifiedSource } from "@/lib/fit/assumptions";
 import type { FitReport } from "@/lib/fit/report";
-import { PARAM_META } from "@/lib/model/param-meta";
+import { fitNameLabel } from "@/lib/fit/labels";
 import { formatSignificance as fmtSigma } from "@/lib/fit/statistics";
 import { fmt, fmtProbability as fmtP } from "@/lib/workbench/format";
 import { ProfilePlot } from "./fit-profile-plot";
@@ -14,8 +14,7 @@ import { ProfilePlot } from "./fit-profile-plot";
  * and the profile-likelihood intervals of magneticScale beside its Gaussian ones.
  */
 
-const META = new Map(PARAM_META.map((m) => [m.key, m]));
-const labelOf = (key: string) => META.get(key as never)?.label ?? key;
+const labelOf = fitNameLabel;
 
 const HYPOTHESIS_WORDS = {
   noMagneticPart: "No magnetic-dipole part",

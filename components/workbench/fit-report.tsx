@@ -10,11 +10,10 @@ import { PlotFrame, frameTop } from "@/components/plots/plot-frame";
 import { makeScale, paddedExtent } from "@/components/plots/scale";
 import { useElementWidth } from "@/components/plots/use-element-size";
 import type { FitResult } from "@/lib/fit/fit";
-import { setOfScaleName } from "@/lib/fit/problem";
+import { fitNameLabel, fitNameUnit } from "@/lib/fit/labels";
 import { type FitReport as FitReportData, type ShareProfile, UNDETERMINED_SHARE_WIDTH } from "@/lib/fit/report";
 import { AssumptionsTable, ComparisonTable, GoodnessOfFit, ScaleProfile } from "./fit-inference";
 import { saveFitBody } from "@/lib/fit/provenance";
-import { PARAM_META } from "@/lib/model/param-meta";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { RequestError, describeError } from "@/lib/query/fetcher";
 import { useSaveFit } from "@/lib/query/fits";
@@ -31,13 +30,8 @@ import { numericalBadgeText } from "./run-status";
  * and saving the result as a new version.
  */
 
-const META = new Map(PARAM_META.map((m) => [m.key, m]));
-/** A fitted name in words: a model key's label, or the field × length scale factor of a measurement set. */
-const labelOf = (key: string) => {
-  const set = setOfScaleName(key);
-  return set !== null ? `Field × length scale of ${set}` : (META.get(key as never)?.label ?? key);
-};
-const unitOf = (key: string) => META.get(key as never)?.unit ?? "";
+const labelOf = fitNameLabel;
+const unitOf = fitNameUnit;
 
 export function FitReport({
   result,
@@ -497,7 +491,7 @@ function SaveFit({
   set,
   measurementSets,
 }: {
-  result: FitResult;
+  result: FitReportData;
   startParams: ModelParams;
   set: ParameterSet;
   measurementSets: { id: string; name: string }[];
@@ -513,6 +507,7 @@ function SaveFit({
   const whatIfs = (Object.keys(startParams) as (keyof ModelParams)[]).filter(
     (k) => !result.free.includes(k as never) && !sameValue(startParams[k], stored[k]),
   );
+  const nuisances = result.names.filter((n) => !result.free.includes(n as never));
   if (!canEdit) return <p className="text-sm text-ink-soft">Viewers cannot save a fit; an editor of the lab can.</p>;
   if (save.isSuccess) {
     return (
@@ -535,6 +530,13 @@ function SaveFit({
   const stale = save.error instanceof RequestError && save.error.code === "stale_version";
   return (
     <div className="space-y-2">
+      {nuisances.length > 0 ? (
+        <p className="text-sm text-ink-soft">
+          Saving stores the free parameters&apos; fitted values. {nuisances.map(labelOf).join(", ")}{" "}
+          {nuisances.length === 1 ? "was" : "were"} fitted only within a prior or calibration and{" "}
+          {nuisances.length === 1 ? "keeps its" : "keep their"} stored value; the fitted values go into the version&apos;s provenance.
+        </p>
+      ) : null}
       {whatIfs.length > 0 ? (
         <p className="text-sm text-ember">
           The fit started from what-if values that differ from the stored set ({whatIfs.map(labelOf).join(", ")}). Saving would store the

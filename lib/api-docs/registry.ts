@@ -1,7 +1,13 @@
 import { z } from "zod";
 import { changePasswordSchema, confirmEmailSchema, emailOnlySchema, resetPasswordSchema, signUpSchema } from "@/lib/contracts/accounts";
 import { auditQuerySchema } from "@/lib/contracts/audit";
-import { computeFitSchema, computeMapSchema, computeResultSchema, computeSpectrumSchema } from "@/lib/contracts/compute";
+import {
+  computeFitQuerySchema,
+  computeFitSchema,
+  computeMapSchema,
+  computeResultSchema,
+  computeSpectrumSchema,
+} from "@/lib/contracts/compute";
 import { saveFitSchema } from "@/lib/contracts/fits";
 import { listRunsQuery, submitRunSchema } from "@/lib/contracts/lab-runs";
 import { acceptInvitationSchema, changeMemberSchema, createInvitationSchema } from "@/lib/contracts/labs";
@@ -646,8 +652,11 @@ export const ROUTES: ApiRouteDoc[] = [
     path: "/api/compute/fit",
     tag: "Compute",
     summary: "A small fit, computed at once",
-    description: "The body is the fit's request (as `npm run fit` builds it); up to 500 points, above that 413 payload_too_large.",
+    description:
+      "The body is the fit's request (as `npm run fit` builds it); up to 500 points, above that 413 payload_too_large. " +
+      "The answer's result is the fit's report as `npm run fit` prints it; `shareIntervals=true` also profiles the share at every point.",
     access: "caller",
+    query: computeFitQuerySchema,
     body: computeFitSchema,
     response: ok(
       z.object({

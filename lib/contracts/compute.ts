@@ -13,6 +13,13 @@ import { mapPayloadSchema, mapRun, spectrumPayloadSchema, spectrumRun } from "@/
 export const computeSpectrumSchema = spectrumPayloadSchema;
 export const computeMapSchema = mapPayloadSchema;
 export const computeFitSchema = fitRequestSchema;
+/** POST /api/compute/fit?shareIntervals=true also profiles the magnetic share at every distinct point condition. */
+export const computeFitQuerySchema = z.strictObject({
+  shareIntervals: z
+    .enum(["true", "false"], { error: 'shareIntervals must be "true" or "false"' })
+    .default("false")
+    .transform((v) => v === "true"),
+});
 
 /**
  * Cells one request may compute on the web server, by method: about a fifth of a second of one

@@ -5,7 +5,8 @@ import { type ModelParams, conditionsShape, formatIssues, materialShape, modelPa
 import { zodIssueLines } from "@/lib/contracts/validation";
 import { DEFAULT_FREE_KEYS, FREEABLE_KEYS, type FreeParam, type FreeableKey, type Prior, priorSchema } from "@/lib/analysis/definition";
 import { FitError } from "./least-squares";
-import { type FitReport, analyseFit } from "./report";
+import { fitOutput } from "./output";
+import { analyseFit } from "./report";
 import { MAX_FIT_STARTS } from "./schema";
 
 /*
@@ -172,60 +173,6 @@ export function parseFitArgs(argv: readonly string[]): FitArgs {
   });
   if (new Set(keys).size !== keys.length) throw new FitInputError("--free: a parameter is listed twice");
   return { paramsFile, dataFiles, free, priors, starts, seed, scaleByChi2, magnitudes, shareIntervals };
-}
-
-const pair = (v: [number, number] | undefined | null) => (v ? [v[0], v[1]] : null);
-
-/** The command line's JSON: exactly the documented keys. */
-export function fitOutput(report: FitReport) {
-  const ms = report.profile.magneticScale;
-  return {
-    free: report.free,
-    values: report.values,
-    sigmas: report.sigmas,
-    correlation: report.correlation,
-    chi2: report.chi2,
-    dof: report.dof,
-    assumptions: report.assumptions.map((a) => ({ key: a.key, value: a.value, source: a.source })),
-    ...(report.comparison.length > 0
-      ? {
-          comparison: report.comparison.map((c) => ({
-            hypothesis: c.hypothesis,
-            fixed: c.fixed,
-            chi2: c.chi2,
-            deltaChi2: c.deltaChi2,
-            pValue: c.pValue,
-            significanceSigma: c.significanceSigma,
-            aic: c.aic,
-            aicc: c.aicc,
-            bic: c.bic,
-            words: c.words,
-          })),
-        }
-      : {}),
-    informationCriteria: {
-      aic: report.informationCriteria.aic,
-      aicc: report.informationCriteria.aicc,
-      bic: report.informationCriteria.bic,
-    },
-    goodnessOfFit: report.goodnessOfFit,
-    profile: ms ? { magneticScale: { value: ms.value, interval68: pair(ms.interval68), interval95: pair(ms.interval95) } } : {},
-    verdict: report.verdict,
-    points: report.points.map((p, i) => {
-      const share = report.shareProfiles[report.pointShareProfile[i] ?? -1];
-      return {
-        set: p.set,
-        wavelengthNm: p.wavelengthNm,
-        measured: p.measured,
-        sigma: p.sigma,
-        model: p.model,
-        magneticShare: p.magneticShare,
-        magneticShareSigma: p.magneticShareSigma,
-        magneticShareInterval68: share ? pair(share.interval68) : null,
-      };
-    }),
-    shareCovariance: report.shareCovariance,
-  };
 }
 
 const oneLine = (s: string) => s.replace(/\s*[\r\n]+\s*/g, " ").trim();

@@ -1,5 +1,5 @@
 import { type FitSummary, type SaveFitInput, fitSummarySchema, fittedValuesSchema } from "@/lib/contracts/fits";
-import type { FitResult } from "./fit";
+import type { FitReport } from "./report";
 import type { FreeableKey } from "@/lib/analysis/definition";
 
 /*
@@ -26,29 +26,46 @@ export function asFitProvenance(value: unknown): FitProvenance | null {
   return summary.success && values.success ? { kind: "fit", ...summary.data, values: values.data } : null;
 }
 
-/** The save body for a finished fit. */
+/** The save body for a finished fit: the free keys' values become the new version; the report's findings go with them. */
 export function saveFitBody(options: {
   version: number;
-  result: FitResult;
+  result: FitReport;
   measurementSets: { id: string; name: string }[];
   fittedAt: Date;
 }): SaveFitInput {
   const { result } = options;
+  const free: string[] = result.free;
+  const index = free.map((k) => result.names.indexOf(k));
+  const pick = (record: Record<string, number>) => Object.fromEntries(free.map((k) => [k, record[k]!]));
+  const ms = result.profile.magneticScale;
   return {
     version: options.version,
-    values: result.values,
+    values: pick(result.values),
     fit: {
       measurementSets: options.measurementSets,
       pointCount: result.points.length,
       free: result.bounds,
-      sigmas: result.sigmas,
+      sigmas: pick(result.sigmas),
       sigmaScaledByChi2: result.sigmaScaledByChi2,
-      correlation: result.correlation,
+      correlation: index.map((i) => index.map((j) => result.correlation[i]![j]!)),
       chi2: result.chi2,
       dof: result.dof,
       reducedChi2: result.reducedChi2,
-      separable: result.separation.separable,
+      separable: result.verdict.separable,
       fittedAt: options.fittedAt.toISOString(),
+      assumptions: result.assumptions,
+      priors: result.priors,
+      nuisances: result.names
+        .filter((n) => !free.includes(n) && Number.isFinite(result.sigmas[n]))
+        .map((name) => ({ name, value: result.values[name]!, sigma: result.sigmas[name]! })),
+      sets: result.sets,
+      comparison: result.comparison,
+      goodnessOfFit: result.goodnessOfFit,
+      profile: ms ? { magneticScale: { value: ms.value, interval68: ms.interval68, interval95: ms.interval95 } } : {},
+      verdict: result.verdict,
+      notes: result.notes,
+      starts: result.startChi2.length,
+      tookModelSign: result.signCheck.tookModelSign,
     },
   };
 }

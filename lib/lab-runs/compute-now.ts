@@ -1,7 +1,7 @@
 import { type ComputeKind, type ComputeResultBody, SYNC_FIT_POINT_LIMIT, syncCells } from "@/lib/contracts/compute";
 import { DomainError } from "@/lib/contracts/errors";
-import type { FitResult } from "@/lib/fit/fit";
-import { fitMeasurements } from "@/lib/fit/fit";
+import { fitOutput } from "@/lib/fit/output";
+import { analyseFit } from "@/lib/fit/report";
 import { type FitRequest, requestSets } from "@/lib/fit/schema";
 import { columnsAsJson } from "./encoding";
 import { ENGINE_VERSION } from "./engine";
@@ -35,8 +35,15 @@ export function computeNow(kind: ComputeKind, payload: SpectrumPayload | MapPayl
   };
 }
 
-/** A fit, computed now; more points than the synchronous limit → payload_too_large. */
-export function fitNow(request: FitRequest): { engineVersion: string; computeMs: number; result: FitResult } {
+/**
+ * A fit and its report (comparison, profile intervals, held values, verdict), computed now, as the
+ * command line prints it; more points than the synchronous limit → payload_too_large. The per-point
+ * share intervals cost a few dozen refits per distinct condition, so they are computed only when asked.
+ */
+export function fitNow(
+  request: FitRequest,
+  options: { shareIntervals?: boolean } = {},
+): { engineVersion: string; computeMs: number; result: ReturnType<typeof fitOutput> } {
   const points = requestSets(request).reduce((n, set) => n + set.points.length, 0);
   if (points > SYNC_FIT_POINT_LIMIT) {
     throw new DomainError(
@@ -47,6 +54,6 @@ export function fitNow(request: FitRequest): { engineVersion: string; computeMs:
     );
   }
   const started = performance.now();
-  const result = fitMeasurements(request);
+  const result = fitOutput(analyseFit(request, { shareProfiles: options.shareIntervals ?? false }));
   return { engineVersion: ENGINE_VERSION, computeMs: Math.round(performance.now() - started), result };
 }

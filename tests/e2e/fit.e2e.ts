@@ -59,11 +59,29 @@ describe("fit in the workbench", () => {
       .poll(() => report.getByTestId("fit-magnetic-scale-label").textContent())
       .toMatch(/magnetic-dipole part × .*not first-principles/);
     expect(await report.getByTestId("fit-chi2").textContent()).toMatch(/χ² = [\d.]+ with 21 degrees of freedom/);
+    expect(await report.getByTestId("fit-goodness").textContent()).toMatch(/^Goodness of fit: P\(χ²21 > [\d.]+\) = 0\.\d{3}/);
+
+    // The comparison: the demo data were generated with a magnetic part × 2, so both the fit without
+    // it and the first-principles scale 1 must be rejected, in words that state the model's condition.
+    await report.getByRole("table", { name: "Model comparison" }).waitFor();
+    const words = (await report.getByTestId("fit-comparison-words").textContent()) ?? "";
+    expect(words).toMatch(/In this model( with [^,]+)?, the data need a magnetic-dipole part at [\d.]+σ/);
+    expect(words).toMatch(/the first-principles value magneticScale = 1 is excluded at [\d.]+σ/);
+    // The profile interval of magneticScale beside its Gaussian one, and the profile plot.
+    const [lo, hi] = ((await report.getByTestId("fit-profile-68").textContent()) ?? "").match(/[\d.]+/g)!.map(Number);
+    expect(lo).toBeLessThan(scale);
+    expect(hi).toBeGreaterThan(scale);
+    await report.getByRole("img", { name: /Profile of magneticScale/ }).waitFor();
+    // The held values with their sources.
+    const held = report.getByRole("table", { name: "Held values" });
+    expect(await held.getByRole("row", { name: /Landé g/ }).textContent()).toMatch(/physics-model\.md/);
 
     // The share at every point, with its σ.
     const shares = report.getByTestId("fit-share");
     expect(await shares.count()).toBe(24);
     for (const text of await shares.allTextContents()) expect(text).toMatch(/^\d+\.\d % ± \d+\.\d\d %$/);
+    // Each share's profile interval (every measured condition is profiled by default).
+    for (const text of await report.getByTestId("fit-share-interval").allTextContents()) expect(text).toMatch(/^\d+\.\d % – \d+\.\d %$/);
     await report.getByRole("table", { name: "Correlation matrix" }).waitFor();
     await report.getByRole("img", { name: /Normalized residuals/ }).waitFor();
 
@@ -84,6 +102,8 @@ describe("fit in the workbench", () => {
     expect(text).toMatch(/24 points/);
     expect(text).toMatch(/Gyration κE: [\d.e-]+ ± /);
     expect(text).toMatch(/χ² = /);
+    expect(text).toMatch(/the data need a magnetic-dipole part at/);
+    expect(text).toMatch(/magneticScale 68 % profile interval \[/);
     await page.screenshot({ path: outputPath("fit-history.png"), fullPage: true });
 
     // The printable report: the fit as tables (value ± σ with units, the correlation matrix), the
@@ -93,6 +113,8 @@ describe("fit in the workbench", () => {
     await fitTable.waitFor({ timeout: TIMEOUT });
     expect(await fitTable.getByRole("row", { name: /Gyration κE/ }).textContent()).toMatch(/[\d.e-]+ ± [\d.e-]+T⁻¹/);
     await page.getByRole("table", { name: "Correlation of the fitted parameters" }).waitFor();
+    await page.getByRole("table", { name: "Model comparison of the fit" }).waitFor();
+    await page.getByRole("table", { name: "Held values of the fit and their sources" }).waitFor();
     await page.getByRole("heading", { name: "Rotator sizing" }).waitFor();
     await page.getByRole("heading", { name: "Model switches" }).waitFor();
     expect(await page.getByText(/free\[0\]|sigmaScaledByChi2|correlation\[0\]/).count()).toBe(0);

@@ -84,5 +84,8 @@ describe("synchronous compute", () => {
     const fitted = fitNow(small);
     expect(fitted.result.free).toEqual(["magneticScale"]);
     expect(typeof fitted.result.converged).toBe("boolean");
+    // The answer is the fit's report: with magneticScale free, the comparison against 0 and 1.
+    expect(fitted.result.comparison?.map((c) => c.hypothesis)).toEqual(["noMagneticPart", "firstPrinciples"]);
+    expect(fitted.result.goodnessOfFit.dof).toBe(19);
   });
 });

@@ -5,12 +5,13 @@ import { PARAM_META } from "@/lib/model/param-meta";
 import { formatNumberDisplay } from "@/lib/model/number-text";
 import { countOf, noun } from "@/lib/text/plural";
 import { fmt } from "@/lib/workbench/format";
+import { ReportFitInference } from "./report-fit-inference";
 
 /*
  * The latest fit of the report as tables a reader can quote: each free parameter's value ± σ with
  * its unit and bounds, the fit's quality (χ², degrees of freedom), and the correlation matrix of
- * the free parameters. `more` takes the sections the inference work adds later (the model
- * comparison, the intervals): they render after the matrix, inside the same print block rules.
+ * the free parameters, then what the fit's report said (ReportFitInference). `more` takes further
+ * sections: they render last, inside the same print block rules.
  */
 
 const META = new Map(PARAM_META.map((m) => [m.key, m]));
@@ -107,6 +108,7 @@ export function ReportFit({
           </table>
         </div>
       ) : null}
+      <ReportFitInference fit={fit} />
       {more}
     </div>
   );
