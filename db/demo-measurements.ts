@@ -36,6 +36,15 @@ export const DEMO_MEASUREMENT_SETS: DemoMeasurementSet[] = [
     defaults: {},
   },
   {
+    id: "6a1f0c2e-5b1d-4c1e-9f00-00000000d003",
+    file: "generated-garnet-LM-T4-verdet-77K.csv",
+    name: "Garnet rod LM-T4 — Verdet spectrum, 77 K (generated)",
+    sample: "LM-T4 terbium gallium garnet rod, 10 mm, in a nitrogen cryostat",
+    contentType: "text/csv",
+    mapping: (headers) => proposeMapping(headers),
+    defaults: {},
+  },
+  {
     id: "6a1f0c2e-5b1d-4c1e-9f00-00000000d002",
     file: "generated-glass-LM-B7-rotation.tsv",
     name: "Borate glass LM-B7 — rotation at 77 K and 293 K (generated)",

@@ -21,19 +21,20 @@ const out = (name: string) => path.resolve(import.meta.dirname, "../db/demo", na
 // something to find. Invented "truth" for the demo.
 const GARNET_TRUTH: ModelParams = { ...TERBIUM_GARNET_DEFAULTS, gyrationPerT: 5.3e-3, magneticScale: 2 };
 
-function garnetFile(): string {
-  const normal = gaussianFrom(seededRandom(8_2026));
-  const wavelengthsNm = Array.from({ length: 24 }, (_, i) => Math.round(420 * (1600 / 420) ** (i / 23)));
+/** The garnet rod's Verdet spectrum at one temperature: `count` wavelengths spaced evenly in log from `fromNm` to 1600 nm. */
+function garnetFile(temperatureK: number, seed: number, count: number, fromNm: number): string {
+  const normal = gaussianFrom(seededRandom(seed));
+  const wavelengthsNm = Array.from({ length: count }, (_, i) => Math.round(fromNm * (1600 / fromNm) ** (i / (count - 1))));
   const conditions: ModelCondition[] = wavelengthsNm.map((wavelengthNm) => ({
     wavelengthNm,
-    temperatureK: 293.15,
+    temperatureK,
     fieldT: 1,
     lengthM: 0.01,
     quantity: "verdet",
   }));
   const model = evaluateModel(GARNET_TRUTH, conditions);
   const lines = [
-    "# GENERATED demo data (invented, not a measurement): garnet rod LM-T4, Lindqvist Moor Faraday Laboratory.",
+    `# GENERATED demo data (invented, not a measurement): garnet rod LM-T4 at ${temperatureK} K, Lindqvist Moor Faraday Laboratory.`,
     "# Made by scripts/generate-demo-measurements.ts: the analytic model at the handbook garnet set with",
     "# gyrationPerT = 5.3e-3 and magneticScale = 2, plus seeded Gaussian noise of the sigma column.",
     "wavelength_nm,verdet_rad_per_T_m,sigma,temperature_K,field_T,length_m",
@@ -71,6 +72,15 @@ function glassFile(): string {
   return `${lines.join("\n")}\n`;
 }
 
-writeFileSync(out("generated-garnet-LM-T4-verdet.csv"), garnetFile());
-writeFileSync(out("generated-glass-LM-B7-rotation.tsv"), glassFile());
-console.log("[demo] wrote db/demo/generated-garnet-LM-T4-verdet.csv and db/demo/generated-glass-LM-B7-rotation.tsv");
+const files = {
+  "generated-garnet-LM-T4-verdet.csv": garnetFile(293.15, 8_2026, 24, 420),
+  // The same rod cooled in a nitrogen cryostat: the temperature series a global fit needs.
+  "generated-garnet-LM-T4-verdet-77K.csv": garnetFile(77, 9_2026, 14, 500),
+  "generated-glass-LM-B7-rotation.tsv": glassFile(),
+};
+for (const [name, text] of Object.entries(files)) writeFileSync(out(name), text);
+console.log(
+  `[demo] wrote ${Object.keys(files)
+    .map((name) => `db/demo/${name}`)
+    .join(", ")}`,
+);

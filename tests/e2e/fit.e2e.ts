@@ -8,10 +8,12 @@ import { outputPath, useBrowser } from "./support";
  * The fit end to end, as an editor of the demo lab: on a parameter set of the test's own, choose
  * the demo garnet measurement set in the workbench's fit panel, fit, read the values ± σ and the
  * magnetic share at every point, see the numerical check, save the result as a new version and
- * find it in the version history as "from a fit".
+ * find it in the version history as "from a fit". Then the 293 K and 77 K spectra of the same rod
+ * as one global fit, one of them with a field × length calibration σ.
  */
 
-const GARNET_SET_NAME = /Garnet rod LM-T4/;
+const GARNET_SET_NAME = /Garnet rod LM-T4 — Verdet spectrum, 293 K/;
+const COLD_GARNET_SET_NAME = /Garnet rod LM-T4 — Verdet spectrum, 77 K/;
 const TIMEOUT = 120_000;
 
 describe("fit in the workbench", () => {
@@ -141,4 +143,38 @@ describe("fit in the workbench", () => {
     }
     await page.emulateMedia({ media: "screen" });
   }, 300_000);
+
+  it(
+    "fits the rod's 293 K and 77 K spectra together, with a calibration nuisance on one",
+    async () => {
+      await page.goto(`/workbench/${setId}`);
+      const panel = page.getByRole("region", { name: "Fit to measurements" });
+      await panel.getByRole("checkbox", { name: GARNET_SET_NAME }).check({ timeout: TIMEOUT });
+      await panel.getByRole("checkbox", { name: COLD_GARNET_SET_NAME }).check();
+      await expect.poll(() => panel.getByText("38 points chosen").isVisible(), { timeout: TIMEOUT }).toBe(true);
+      await panel.getByText("Calibration of each set (optional)").click();
+      await panel.getByLabel(/Field × length σ \(%\) of Garnet rod LM-T4 — Verdet spectrum, 77 K/).fill("80");
+      // Out of range: the field is flagged in per cent and the fit waits.
+      await panel.getByText("Field × length σ: must be ≤ 50 %").waitFor();
+      expect(await panel.getByRole("button", { name: "Fit", exact: true }).isDisabled()).toBe(true);
+      await panel.getByLabel(/Field × length σ \(%\) of Garnet rod LM-T4 — Verdet spectrum, 77 K/).fill("1");
+      // The per-point share profiles are skipped here to keep the run short; they are checked above.
+      await panel.getByRole("checkbox", { name: /Profile the magnetic share at every measured condition/ }).uncheck();
+      await panel.getByRole("button", { name: "Fit", exact: true }).click();
+
+      const report = panel.getByRole("region", { name: "Fit result" });
+      const sets = report.getByRole("table", { name: "Measurement sets of the fit" });
+      await sets.waitFor({ timeout: TIMEOUT });
+      expect(await sets.getByRole("row").count()).toBe(3);
+      expect(await sets.getByRole("row", { name: /77 K/ }).textContent()).toMatch(/14.*1\.00 %/);
+      // The set's scale factor is fitted beside the material parameters, within its prior.
+      expect(
+        await report.getByTestId("fit-value-fieldLengthScale[Garnet rod LM-T4 — Verdet spectrum, 77 K (generated)]").textContent(),
+      ).toMatch(/^[\d.]+ ± [\d.e-]+$/);
+      expect(await report.getByTestId("fit-chi2").textContent()).toMatch(/38 points, 4 fitted parameters/);
+      expect(await report.getByTestId("fit-share-interval").first().textContent()).toBe("not profiled");
+      await report.getByTestId("fit-comparison-words").waitFor();
+    },
+    TIMEOUT,
+  );
 });
