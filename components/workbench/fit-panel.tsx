@@ -109,6 +109,10 @@ export const FitPanel = memo(function FitPanel({
   if (chosen.length > 0 && !pointsLoading && points.length > 0 && points.length <= unconstrained) {
     problems.push(`${countOf(points.length, noun("point"))} cannot determine ${countOf(unconstrained, noun("free parameter"))}.`);
   }
+  // Degrees of freedom the fit will have: a prior on a free key adds a row; a prior-only key or a set's scale adds a row and a parameter.
+  const dof = points.length + priors.filter((p) => free.some((f) => f.key === p.key)).length - free.length;
+  const scalingOffered = points.length === 0 || dof >= 3;
+  if (scaleByChi2 && !scalingOffered) problems.push("σ scaled by √(χ²/dof) needs at least 3 degrees of freedom; these points give fewer.");
   const canRun = problems.length === 0 && !pointsLoading && !pointsError && run.status !== "running";
 
   const chosenSets = chosen.flatMap((id) => {
@@ -221,8 +225,14 @@ export const FitPanel = memo(function FitPanel({
           uncertainties as given (not scaled)
         </label>
         <label className="flex items-center gap-2">
-          <input type="radio" name="fit-sigma" checked={scaleByChi2} onChange={() => setScaleByChi2(true)} />σ scaled by √(χ²/dof) (when the
-          data&apos;s σ are only relative; never below 1, refused below 3 degrees of freedom)
+          <input
+            type="radio"
+            name="fit-sigma"
+            checked={scaleByChi2}
+            disabled={!scalingOffered && !scaleByChi2}
+            onChange={() => setScaleByChi2(true)}
+          />
+          σ scaled by √(χ²/dof) (when the data&apos;s σ are only relative; never below 1, refused below 3 degrees of freedom)
         </label>
       </fieldset>
 

@@ -13,6 +13,8 @@ import type { FitResult } from "@/lib/fit/fit";
 import { fitNameLabel, fitNameUnit } from "@/lib/fit/labels";
 import { type FitReport as FitReportData, type ShareProfile, UNDETERMINED_SHARE_WIDTH } from "@/lib/fit/report";
 import { AssumptionsTable, ComparisonTable, GoodnessOfFit, ScaleProfile } from "./fit-inference";
+import { downloadText } from "@/components/plots/export-image";
+import { fitPointsCsv, fitReportJson } from "@/lib/fit/export";
 import { saveFitBody } from "@/lib/fit/provenance";
 import { type ModelParams, modelParamsSchema } from "@/lib/physics/schema";
 import { RequestError, describeError } from "@/lib/query/fetcher";
@@ -136,8 +138,27 @@ export function FitReport({
       <ShareTable result={result} />
       <ExtraShares result={result} />
       <LlgCheck result={result} pool={pool} />
+      <FitExports result={result} setName={set.name} />
       <SaveFit result={result} startParams={startParams} set={set} measurementSets={measurementSets} />
     </section>
+  );
+}
+
+/** The report as JSON (as the command line prints it, with the share covariance) and the points as CSV. */
+function FitExports({ result, setName }: { result: FitReportData; setName: string }) {
+  const [fittedAt] = useState(() => new Date().toISOString());
+  const base = `${setName.replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "") || "fit"}-fit`;
+  const meta = { setName, fittedAt };
+  return (
+    <div className="flex flex-wrap items-center gap-2 text-sm">
+      <span className="font-semibold">Export the fit</span>
+      <Button variant="secondary" onClick={() => downloadText(fitReportJson(result, meta), `${base}.json`, "application/json")}>
+        Report (JSON)
+      </Button>
+      <Button variant="secondary" onClick={() => downloadText(fitPointsCsv(result, meta), `${base}-points.csv`, "text/csv")}>
+        Points with shares (CSV)
+      </Button>
+    </div>
   );
 }
 

@@ -18,7 +18,7 @@ import { measurementPointsQuery, useMeasurementSets } from "@/lib/query/measurem
 import type { MeasurementSetSummary } from "@/lib/contracts/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 import type { Geometry, XUnit, YMode } from "@/lib/workbench/units";
-import { agree, countOf, noun } from "@/lib/text/plural";
+import { countOf, noun } from "@/lib/text/plural";
 
 /*
  * Measured points with ±σ error bars on the spectrum plot: a picker of the caller's measurement

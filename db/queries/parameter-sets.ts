@@ -1,7 +1,6 @@
 import { and, desc, eq, ilike, inArray, lt, or, sql, type SQL } from "drizzle-orm";
 import { decodeCursor, timeIdCursor, toPage, versionCursor } from "@/db/paging";
 import type { Page, PageQuery } from "@/lib/contracts/paging";
-import { z } from "zod";
 import { alias } from "drizzle-orm/pg-core";
 import { uniqueViolation } from "@/db/errors";
 import type { AuditAction } from "@/lib/contracts/audit";
