@@ -161,7 +161,7 @@ export const FitPanel = memo(function FitPanel({
         starts from the values on the left; the parameters not freed are held there.
       </p>
 
-      <fieldset className="space-y-2">
+      <fieldset className="min-w-0 space-y-2">
         <legend className="text-sm font-semibold">Measurement sets of this lab</legend>
         {setQuery.isPending || sets.isPending ? (
           <p className="text-sm text-ink-soft" role="status">
@@ -210,7 +210,7 @@ export const FitPanel = memo(function FitPanel({
         ) : null}
       </fieldset>
 
-      <fieldset className="space-y-2">
+      <fieldset className="min-w-0 space-y-2">
         <legend className="text-sm font-semibold">Free parameters, bounds and priors</legend>
         <FitParameterTable keys={listedKeys} drafts={drafts} params={params} errors={paramErrors} onChange={setDraft} />
         <Button variant="quiet" onClick={() => setShowAll((v) => !v)}>
@@ -218,7 +218,7 @@ export const FitPanel = memo(function FitPanel({
         </Button>
       </fieldset>
 
-      <fieldset className="space-y-1 text-sm">
+      <fieldset className="min-w-0 space-y-1 text-sm">
         <legend className="text-sm font-semibold">Reported uncertainties</legend>
         <label className="flex items-center gap-2">
           <input type="radio" name="fit-sigma" checked={!scaleByChi2} onChange={() => setScaleByChi2(false)} />σ from the data&apos;s
@@ -238,7 +238,7 @@ export const FitPanel = memo(function FitPanel({
 
       <FitCalibration sets={chosenSets} drafts={calibrations} errors={calibrationErrors} onChange={setCalibration} />
 
-      <fieldset className="space-y-2 text-sm">
+      <fieldset className="min-w-0 space-y-2 text-sm">
         <legend className="text-sm font-semibold">Fit options</legend>
         <label className="flex flex-wrap items-center gap-2">
           Starts of the optimiser (seeded, spread over the bounds)
