@@ -5,7 +5,7 @@
  * relative deviation of χ±. Targets: numerical ≤ 100 ms at ≤ 1e-4, analytic ≤ 2 ms.
  */
 import { spawnSync } from "node:child_process";
-import { existsSync, mkdtempSync, writeFileSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { TERBIUM_GARNET_DEFAULTS } from "../lib/model/defaults";
@@ -86,7 +86,16 @@ function wallMs(args: string[], label?: string): number {
   }
   return ms;
 }
-const ROUNDS = 7;
+/** The 1-, 5- and 15-minute load averages (Linux): on a shared machine the cold figures move with them. */
+const loadAverage = (): string => {
+  try {
+    return readFileSync("/proc/loadavg", "utf8").split(" ").slice(0, 3).join(" ");
+  } catch {
+    return "unknown";
+  }
+};
+const loadBefore = loadAverage();
+const ROUNDS = 11;
 const med = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 const coldOne: number[] = [];
 const coldMany: number[] = [];
@@ -108,6 +117,7 @@ console.log(
   `one wavelength, whole command-line call (node dist/spectrum.mjs): ${med(coldOne).toFixed(0)} ms median, ` +
     `fastest ${Math.min(...coldOne).toFixed(0)} ms (target < 300 ms); bare \`node -e 0\` here: ${med(node0).toFixed(0)} ms`,
 );
+console.log(`load average (1, 5, 15 min) before the command-line rounds: ${loadBefore}; after: ${loadAverage()}`);
 if (cpuMs.one && cpuMs.many && cpuMs.node0) {
   const cpuDiff = cpuMs.many.map((m, i) => m - cpuMs.one![i]!);
   console.log(
