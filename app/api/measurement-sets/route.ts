@@ -84,8 +84,8 @@ async function withModelSigns(
 /**
  * POST /api/measurement-sets (editor), multipart: file, labId, name, sample, mapping (JSON),
  * defaults (JSON), format (JSON, optional: delimiter and decimal mark, detected when absent),
- * signsFrom (JSON, optional: the values are magnitudes, signed by that set's model) → 201 { item }. Every row is checked first; a file with problems answers 400
- * with `problems: ["line 14: wavelength is empty", …]` and stores nothing.
+ * signsFrom (JSON, optional: the values are magnitudes, signed by that set's model) → 201 { item }.
+ * Every row is checked first; a file with problems answers 400 with `problems: ["line 14: wavelength is empty", …]` and stores nothing.
  */
 export const POST = apiRoute(async (request) => {
   const caller = await requireCaller(request);
