@@ -99,8 +99,11 @@ export function UploadSignCheck({
       ) : signsFrom ? (
         <Alert tone="info" title={`Stored with the model's sign of ${setName}`}>
           <p>
-            The file&apos;s values are taken as magnitudes: {countOf(view.changes, VALUE)} of {view.result.total} will be stored with the
-            sign this model predicts at their own conditions
+            The file&apos;s values are taken as magnitudes:{" "}
+            {view.changes === view.result.total
+              ? `all ${countOf(view.changes, VALUE)}`
+              : `${countOf(view.changes, VALUE)} of ${view.result.total}`}{" "}
+            will be stored with the sign this model predicts at their own conditions
             {view.example ? ` (line ${view.example.line}: ${fmt(view.example.from, 6)} → ${fmt(view.example.to, 6)} ${unit})` : ""}. The
             file itself is kept as uploaded, and the set will say that its signs came from this parameter set.
           </p>
