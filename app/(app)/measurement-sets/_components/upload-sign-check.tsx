@@ -78,6 +78,7 @@ export function UploadSignCheck({
           </option>
         ))}
       </SelectField>
+      {sets.data?.length === 0 ? <p className="text-sm text-ink-soft">This lab has no parameter sets to check against yet.</p> : null}
       {sets.isError ? (
         <p role="alert" className="text-sm text-ember">
           The lab&apos;s parameter sets could not be loaded: {describeError(sets.error)}
