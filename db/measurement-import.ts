@@ -4,6 +4,7 @@ import { uniqueViolation } from "@/db/errors";
 import { DomainError } from "@/lib/contracts/errors";
 import type { ColumnMapping, FileDefaults, TableFormat } from "@/lib/measurements/parse";
 import type { MeasuredPoint } from "@/lib/measurements/point";
+import type { SignSource } from "@/lib/contracts/measurement-sets";
 import type { ObjectStore } from "@/lib/storage/object-store";
 import type { Executor } from "./executor";
 import { recordAudit } from "./queries/audit";
@@ -30,8 +31,10 @@ export interface MeasurementImport {
   defaults: FileDefaults;
   /** How the file was read (detected or chosen); absent for the seed's plain CSV files. */
   format?: TableFormat;
-  /** Already parsed and validated (lib/measurements/parse.ts). */
+  /** Already parsed and validated (lib/measurements/parse.ts), with their signs as stored. */
   points: MeasuredPoint[];
+  /** Set when the values took the model's sign (the file held magnitudes). */
+  signSource?: SignSource;
 }
 
 /** Rows per INSERT: 10 parameters each stays far below PostgreSQL's 65 535 bind parameters. */
@@ -102,6 +105,7 @@ export async function importMeasurementSet(options: {
         contentType: input.contentType,
         fileSha256: createHash("sha256").update(input.bytes).digest("hex"),
         objectKey,
+        signSource: input.signSource ?? null,
         createdById: options.actorId,
       });
       for (let start = 0; start < input.points.length; start += POINT_BATCH) {
@@ -128,7 +132,13 @@ export async function importMeasurementSet(options: {
           targetType: "measurement_set",
           targetId: id,
           labId: input.labId,
-          details: { name: input.name, rows: input.points.length, fileName: input.fileName, fileBytes: input.bytes.byteLength },
+          details: {
+            name: input.name,
+            rows: input.points.length,
+            fileName: input.fileName,
+            fileBytes: input.bytes.byteLength,
+            ...(input.signSource ? { signsFrom: input.signSource } : {}),
+          },
         },
       });
     });

@@ -16,6 +16,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { LAB_RUN_STATES } from "@/lib/contracts/lab-runs";
+import type { SignSource } from "@/lib/contracts/measurement-sets";
 import { LAB_ROLES, SITE_ROLES } from "@/lib/contracts/roles";
 import type { ModelParams } from "@/lib/physics/schema";
 
@@ -291,6 +292,8 @@ export const measurementSets = pgTable(
     /** 1 at import; every edit of its points (mask, note, value) makes the next revision. The file is never changed. */
     revision: integer("revision").notNull().default(1),
     maskedCount: integer("masked_count").notNull().default(0),
+    /** The model's parameter set version that gave the values their signs (the file held magnitudes); null: the file's signs. */
+    signSource: jsonb("sign_source").$type<SignSource>(),
     createdById: uuid("created_by")
       .notNull()
       .references(() => users.id),

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
-import type { MeasurementSetSummary, PointsResponse, StoredPoint } from "@/lib/contracts/measurement-sets";
+import type { MeasurementSetSummary, PointsResponse, SignSource, StoredPoint } from "@/lib/contracts/measurement-sets";
 import type { Page, PageQuery } from "@/lib/contracts/paging";
 import { decodeCursor, timeIdCursor, toPage } from "../paging";
 import type { MeasuredPoint } from "@/lib/measurements/point";
@@ -39,11 +39,15 @@ const summaryColumns = {
   createdAt: measurementSets.createdAt,
   revision: measurementSets.revision,
   maskedCount: measurementSets.maskedCount,
+  signSource: measurementSets.signSource,
   uploadedById: users.id,
   uploadedByName: users.name,
 };
 
-type SummaryRow = { [K in keyof typeof summaryColumns]: (typeof summaryColumns)[K]["_"]["data"] };
+type SummaryRow = { [K in Exclude<keyof typeof summaryColumns, "signSource">]: (typeof summaryColumns)[K]["_"]["data"] } & {
+  // The one nullable column: "_"["data"] is the type without its null.
+  signSource: SignSource | null;
+};
 
 function toSummary(row: SummaryRow, role: LabRole): MeasurementSetSummary {
   return {
@@ -64,6 +68,7 @@ function toSummary(row: SummaryRow, role: LabRole): MeasurementSetSummary {
     createdAt: row.createdAt.toISOString(),
     revision: row.revision,
     maskedCount: row.maskedCount,
+    signSource: row.signSource ?? null,
     role,
   };
 }

@@ -458,11 +458,13 @@ export const ROUTES: ApiRouteDoc[] = [
     tag: "Measurements",
     summary: "Upload a measurement file (CSV, TSV, semicolon or whitespace separated)",
     description:
-      "Multipart form: `file`, the text fields, and `mapping`, `defaults` (and `format`, when sent) as JSON text. Every row is checked " +
-      'first; a file with problems answers 400 with `problems: ["line 14: wavelength is empty", …]` and stores nothing.',
+      "Multipart form: `file`, the text fields, and `mapping`, `defaults` (and `format`, `signsFrom`, when sent) as JSON text. Every " +
+      'row is checked first; a file with problems answers 400 with `problems: ["line 14: wavelength is empty", …]` and stores nothing. ' +
+      "`signsFrom` ({ parameterSetId, version }: the set's current version) stores the values as magnitudes with the sign of that " +
+      "set's model at each point's conditions; the set records it as `signSource`.",
     access: "editor",
     body: uploadMeasurementMetaSchema,
-    bodyType: { kind: "multipart", files: ["file"], jsonFields: ["mapping", "defaults", "format"] },
+    bodyType: { kind: "multipart", files: ["file"], jsonFields: ["mapping", "defaults", "format", "signsFrom"] },
     response: created(r.item(r.measurementSetResponse)),
   },
   {

@@ -5,7 +5,13 @@ import { ERROR_CODES, type ErrorBody } from "@/lib/contracts/errors";
 import { LAB_RUN_STATES, type LabRunDetail, type LabRunResultBody, type LabRunSummary } from "@/lib/contracts/lab-runs";
 import type { InvitationSummary, LabSummary, MemberSummary } from "@/lib/contracts/labs";
 import type { LightSource } from "@/lib/contracts/light-sources";
-import type { MeasurementSetSummary, PointChangeEntry, PointsResponse, StoredPoint } from "@/lib/contracts/measurement-sets";
+import {
+  type MeasurementSetSummary,
+  type PointChangeEntry,
+  type PointsResponse,
+  signSourceSchema,
+  type StoredPoint,
+} from "@/lib/contracts/measurement-sets";
 import type { ParameterSet, ParameterSetSummary, ParameterSetVersion } from "@/lib/contracts/parameter-sets";
 import { savedPlanSchema, type SavedPlan } from "@/lib/contracts/plans";
 import { labRoleSchema } from "@/lib/contracts/roles";
@@ -107,6 +113,9 @@ export const measurementSetResponse: z.ZodType<MeasurementSetSummary> = z.object
   createdAt: iso,
   revision: z.number().int().describe("1 at import; each edit of the points makes the next."),
   maskedCount: z.number().int().describe("Points left out of fits and overlays."),
+  signSource: signSourceSchema
+    .nullable()
+    .describe("The parameter set version whose model gave the values their signs (the file held magnitudes); null: the file's signs."),
   role: labRoleSchema,
 });
 

@@ -2,14 +2,43 @@ import { z } from "zod";
 import { columnMappingSchema, fileDefaultsSchema, tableFormatSchema } from "@/lib/measurements/parse";
 import type { EDITABLE_POINT_FIELDS, MeasuredPoint } from "@/lib/measurements/point";
 import type { UserRef } from "./common";
+import { setVersionSchema } from "./parameter-sets";
 import type { LabRole } from "./roles";
 import { finiteNumber, nameSchema, safeString, searchTermSchema, textSchema } from "./validation";
 
 /*
  * Measurement sets: request schemas and answer shapes, shared by the upload form and the route.
- * The upload is multipart: the file under "file", the text fields below beside it, and "mapping"
- * and "defaults" as JSON text.
+ * The upload is multipart: the file under "file", the text fields below beside it, and "mapping",
+ * "defaults", "format" and "signsFrom" as JSON text.
  */
+
+/**
+ * "These are magnitudes: take the model's sign." The parameter set (at the version the upload
+ * checked against, its current one) whose model gives each value its sign
+ * (lib/measurements/sign-check.ts takeModelSigns).
+ */
+export const signsFromSchema = z.strictObject({
+  parameterSetId: z.uuid({ error: "Name the parameter set whose model gives the signs." }),
+  version: setVersionSchema,
+});
+export type SignsFrom = z.infer<typeof signsFromSchema>;
+
+/** Where a set's signs came from when not from its file: the model of one parameter set version. */
+export interface SignSource {
+  parameterSetId: string;
+  /** The set's name at upload, kept so the note still reads after a rename or delete. */
+  parameterSetName: string;
+  version: number;
+  /** Values whose sign the model changed. */
+  changedCount: number;
+}
+
+export const signSourceSchema: z.ZodType<SignSource> = z.object({
+  parameterSetId: z.string(),
+  parameterSetName: z.string(),
+  version: z.number().int(),
+  changedCount: z.number().int(),
+});
 
 export const MEASUREMENT_NAME_MAX = 120;
 export const SAMPLE_MAX = 200;
@@ -22,6 +51,8 @@ export const uploadMeasurementMetaSchema = z.object({
   defaults: fileDefaultsSchema.default({}),
   /** How the file is read; detected when absent (lib/measurements/parse.ts readTable). */
   format: tableFormatSchema.default({ delimiter: "auto", decimal: "auto" }),
+  /** Absent: the values are stored with the file's signs. */
+  signsFrom: signsFromSchema.optional(),
 });
 export type UploadMeasurementMeta = z.infer<typeof uploadMeasurementMetaSchema>;
 
@@ -55,6 +86,8 @@ export interface MeasurementSetSummary {
   revision: number;
   /** Points left out of fits and overlays. */
   maskedCount: number;
+  /** The file held magnitudes and the values took the model's sign at upload; null when the signs are the file's. */
+  signSource: SignSource | null;
   /** The caller's role in the set's lab (site admins: owner). */
   role: LabRole;
 }

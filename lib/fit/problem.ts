@@ -1,5 +1,6 @@
 import { Matrix } from "ml-matrix";
 import type { MeasuredPoint } from "@/lib/measurements/point";
+import { isOppositeSign, withModelSign } from "@/lib/measurements/sign-check";
 import type { ModelParams } from "@/lib/physics/schema";
 import { type FreeableKey, NATURAL_LOWER, effectiveVariance, variedKeys } from "@/lib/analysis/definition";
 import type { ChiSquareProblem } from "./minimize";
@@ -86,12 +87,12 @@ export function buildPhysicsProblem(req: FitRequest, slopesAt: ModelParams = req
   const predicted = evaluateModel(req.params, conditions).value;
   let oppositeSign = 0;
   points.forEach(({ point }, i) => {
-    if (point.value * predicted[i]! < 0) oppositeSign++;
+    if (isOppositeSign(point.value, predicted[i]!)) oppositeSign++;
   });
   const needSlopes = sets.some((s) => s.calibration.temperatureSigmaK > 0);
   const slopes = needSlopes ? temperatureSlopes(slopesAt, conditions) : null;
   const rows: FitRow[] = points.map(({ set, point }, i) => {
-    const value = req.takeModelSign ? Math.sign(predicted[i]!) * Math.abs(point.value) || point.value : point.value;
+    const value = req.takeModelSign ? withModelSign(point.value, predicted[i]!) : point.value;
     const calibration = sets[set]!.calibration;
     return { set, point, value, sigma: Math.sqrt(effectiveVariance(point.sigma, value, calibration, slopes?.[i] ?? 0)) };
   });

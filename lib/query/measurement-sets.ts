@@ -140,6 +140,7 @@ export function useUploadMeasurementSet() {
       form.set("mapping", JSON.stringify(input.meta.mapping));
       form.set("defaults", JSON.stringify(input.meta.defaults));
       form.set("format", JSON.stringify(input.meta.format));
+      if (input.meta.signsFrom) form.set("signsFrom", JSON.stringify(input.meta.signsFrom));
       return apiFetch<ItemResponse<MeasurementSetSummary>>("/api/measurement-sets", { method: "POST", form }).then((r) => r.item);
     },
     onSuccess: () => void queryClient.invalidateQueries({ queryKey: measurementKeys.lists() }),

@@ -1,19 +1,14 @@
-import { createRequire } from "node:module";
 import type { Page } from "playwright-core";
 import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_GARNET_SET_ID } from "@/db/demo-data";
+import { axeFindings, describeFindings } from "./axe";
 import { dataLoaded, outputPath, useBrowser } from "./support";
 
 /*
- * axe-core (from npm, injected into the page through playwright-core) over the main pages, each
- * with its data loaded: no serious or critical finding. Two rules of lesser impact are held at
- * zero as well because they were found on these pages before: landmarks that share a name
- * (landmark-unique) and links told from the text around them by colour alone (link-in-text-block).
- * Then the dates: shown in the browser's locale and time zone, with the zone named.
+ * axe-core over the main pages, each with its data loaded: no serious or critical finding, and
+ * none of the two lesser rules held at zero (tests/e2e/axe.ts). Then the dates: shown in the
+ * browser's locale and time zone, with the zone named.
  */
-
-const AXE_SOURCE: string = createRequire(import.meta.url)("axe-core").source;
-const ALWAYS_ZERO = new Set(["landmark-unique", "link-in-text-block"]);
 
 const PAGES = [
   "/parameter-sets",
@@ -29,23 +24,6 @@ const PAGES = [
   "/settings",
 ];
 
-interface AxeFinding {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: string[] }[];
-}
-
-async function axeFindings(page: Page): Promise<AxeFinding[]> {
-  await page.addScriptTag({ content: AXE_SOURCE });
-  const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document) => Promise<{ violations: AxeFinding[] }> } }).axe;
-    const result = await axe.run(document);
-    return result.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.map((n) => ({ target: n.target })) }));
-  });
-  return violations.filter((v) => v.impact === "serious" || v.impact === "critical" || ALWAYS_ZERO.has(v.id));
-}
-
 describe("accessibility (axe-core)", () => {
   const browser = useBrowser();
   let page: Page;
@@ -60,9 +38,7 @@ describe("accessibility (axe-core)", () => {
       await page.goto(href, { timeout: 120_000 });
       await page.getByRole("heading", { level: 1 }).first().waitFor({ timeout: 60_000 });
       await dataLoaded(page, 60_000);
-      for (const v of await axeFindings(page)) {
-        problems.push(`${href}: ${v.id} (${v.impact}) ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-      }
+      for (const line of describeFindings(await axeFindings(page))) problems.push(`${href}: ${line}`);
     }
     if (problems.length > 0) console.log(problems.join("\n"));
     expect(problems).toEqual([]);

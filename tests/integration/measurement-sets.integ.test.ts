@@ -13,7 +13,7 @@ import { sweepObjects } from "@/db/queries/object-sweep";
 import { parseMeasurementTable, proposeMapping, readTable } from "@/lib/measurements/parse";
 import { createObjectStore } from "@/lib/storage/object-store";
 import { storageEnvSchema } from "@/lib/settings/storage";
-import { Client, DEMO, DEMO_LAB_ID, type JsonBody, signIn, uniqueName } from "./support";
+import { Client, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, type JsonBody, OTHER_LAB_SET_ID, signIn, uniqueName } from "./support";
 
 /*
  * Measurement sets over HTTP against the running server, plus the import's failure paths run
@@ -42,6 +42,7 @@ async function upload(
     labId?: string;
     mapping?: unknown;
     defaults?: unknown;
+    signsFrom?: unknown;
     type?: string;
   },
 ) {
@@ -53,6 +54,7 @@ async function upload(
   form.set("sample", "integration sample");
   form.set("mapping", JSON.stringify(options.mapping ?? proposeMapping(readTable(new TextDecoder().decode(bytes)).headers)));
   form.set("defaults", JSON.stringify(options.defaults ?? {}));
+  if (options.signsFrom !== undefined) form.set("signsFrom", JSON.stringify(options.signsFrom));
   const response = await client.raw("POST", "/api/measurement-sets", { body: form });
   const body = (response.headers.get("content-type") ?? "").includes("json") ? await response.json() : await response.text();
   return { status: response.status, body: body as JsonBody };
@@ -65,6 +67,53 @@ describe("measurement sets", () => {
 
   beforeAll(async () => {
     [editor, viewer, outsider] = await Promise.all([signIn(DEMO.editor), signIn(DEMO.viewer), signIn(DEMO.outsider)]);
+  });
+
+  it("stores magnitudes with the sign of a parameter set's model and records which version gave it", async () => {
+    // The demo file with its minus signs dropped: magnitudes, as many vendor sheets print |V|.
+    const magnitudes = readFileSync(DEMO_FILE, "utf8").replace(/^(\d[^,]*),-/gm, "$1,");
+    const garnet = (await editor.get(`/api/parameter-sets/${DEMO_GARNET_SET_ID}`)).body.item;
+    const fileName = safeName("magnitudes");
+
+    // A version other than the set's current one is refused, and nothing is stored.
+    const stale = await upload(editor, {
+      bytes: magnitudes,
+      fileName,
+      signsFrom: { parameterSetId: DEMO_GARNET_SET_ID, version: garnet.version + 1 },
+    });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe("stale_version");
+    expect(stale.body.error.fields.signsFrom).toBe(`Now at version ${garnet.version}.`);
+    expect(await objectsNamed(fileName)).toEqual([]);
+    // A set the caller cannot see is not found; a malformed one is a field error.
+    const hidden = await upload(editor, { bytes: magnitudes, fileName, signsFrom: { parameterSetId: OTHER_LAB_SET_ID, version: 1 } });
+    expect(hidden.status).toBe(404);
+    const malformed = await upload(editor, { bytes: magnitudes, fileName, signsFrom: { parameterSetId: "garnet", version: 1 } });
+    expect(malformed.status).toBe(400);
+    expect(Object.keys(malformed.body.error.fields)).toEqual(["signsFrom.parameterSetId"]);
+
+    const created = await upload(editor, {
+      bytes: magnitudes,
+      fileName,
+      signsFrom: { parameterSetId: DEMO_GARNET_SET_ID, version: garnet.version },
+    });
+    expect(created.status).toBe(201);
+    expect(created.body.item.signSource).toEqual({
+      parameterSetId: DEMO_GARNET_SET_ID,
+      parameterSetName: garnet.name,
+      version: garnet.version,
+      changedCount: 24,
+    });
+    const points = (await viewer.get(`/api/measurement-sets/${created.body.item.id}/points`)).body.points;
+    // The garnet model's Verdet constant is negative over the file's 420–1600 nm (terbium garnets: V < 0, physics-model.md §1).
+    expect(points.map((p: JsonBody) => Math.sign(p.value))).toEqual(Array(24).fill(-1));
+    expect(points[0].value).toBe(-390.03);
+    // The file is kept as uploaded: its magnitudes.
+    const original = await viewer.raw("GET", `/api/measurement-sets/${created.body.item.id}/original`);
+    expect(await original.text()).toBe(magnitudes);
+    // A plain upload records no sign source.
+    const plain = await upload(editor, { bytes: readFileSync(DEMO_FILE), fileName: safeName("plain") });
+    expect(plain.body.item.signSource).toBeNull();
   });
 
   it("refuses a file with bad rows, names every line, and stores neither rows nor the object", async () => {

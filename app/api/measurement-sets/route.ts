@@ -1,15 +1,19 @@
 import { db } from "@/db/client";
 import { createMeasurementSet, listMeasurementSets } from "@/db/queries/measurement-sets";
+import { getParameterSet } from "@/db/queries/parameter-sets";
+import type { Caller } from "@/lib/contracts/access";
 import { DomainError, validationError } from "@/lib/contracts/errors";
 import { cleanFileName, isStorableText, TEXT_PROBLEM } from "@/lib/contracts/validation";
 import { withStorage } from "@/lib/api/storage";
-import { listMeasurementSetsQuery, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
+import { listMeasurementSetsQuery, type SignSource, type SignsFrom, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
 import { parseJsonText } from "@/lib/api/body";
 import { readMultipart } from "@/lib/api/multipart";
 import { readPage } from "@/lib/api/paging";
 import { apiRoute, json } from "@/lib/api/route";
-import { authorizeLab, requireCaller } from "@/lib/auth/access";
+import { authorize, authorizeLab, requireCaller } from "@/lib/auth/access";
 import { MAX_FILE_BYTES, parseMeasurementTable } from "@/lib/measurements/parse";
+import type { MeasuredPoint } from "@/lib/measurements/point";
+import { takeModelSigns } from "@/lib/measurements/sign-check";
 import { objectStore } from "@/lib/storage/server";
 
 /** GET /api/measurement-sets?labId=&q=&limit=&cursor= → { items: MeasurementSetSummary[], nextCursor } */
@@ -51,10 +55,37 @@ const textField = (form: FormData, key: string) => {
 };
 
 /**
+ * "These are magnitudes: take the model's sign": the points with the sign of the named parameter
+ * set's model at their conditions. The set must be readable by the caller and still at the version
+ * the upload was checked against, so the signs stored are the ones the person saw.
+ */
+async function withModelSigns(
+  caller: Caller,
+  signsFrom: SignsFrom,
+  points: MeasuredPoint[],
+): Promise<{ points: MeasuredPoint[]; signSource: SignSource }> {
+  const access = await authorize(caller, { kind: "parameter_set", id: signsFrom.parameterSetId }, "viewer");
+  const set = await getParameterSet(db, { access });
+  if (!set) throw new DomainError("not_found", "The parameter set for the signs was deleted; nothing was stored.");
+  if (set.version !== signsFrom.version)
+    throw new DomainError(
+      "stale_version",
+      `“${set.name}” was saved as version ${set.version} after the sign check against version ${signsFrom.version}; ` +
+        "nothing was stored. Check the signs again.",
+      { fields: { signsFrom: `Now at version ${set.version}.` } },
+    );
+  const signed = takeModelSigns(set.params, points);
+  return {
+    points: signed.values,
+    signSource: { parameterSetId: set.id, parameterSetName: set.name, version: set.version, changedCount: signed.changed },
+  };
+}
+
+/**
  * POST /api/measurement-sets (editor), multipart: file, labId, name, sample, mapping (JSON),
- * defaults (JSON), format (JSON, optional: delimiter and decimal mark, detected when absent)
- * → 201 { item }. Every row is checked first; a file with problems answers 400
- * with `problems: ["line 14: wavelength is empty", …]` and stores nothing.
+ * defaults (JSON), format (JSON, optional: delimiter and decimal mark, detected when absent),
+ * signsFrom (JSON, optional: the values are magnitudes, signed by that set's model) → 201 { item }.
+ * Every row is checked first; a file with problems answers 400 with `problems: ["line 14: wavelength is empty", …]` and stores nothing.
  */
 export const POST = apiRoute(async (request) => {
   const caller = await requireCaller(request);
@@ -66,6 +97,7 @@ export const POST = apiRoute(async (request) => {
     mapping: jsonField(form, "mapping"),
     defaults: jsonField(form, "defaults"),
     format: jsonField(form, "format"),
+    signsFrom: jsonField(form, "signsFrom"),
   });
   if (!meta.success) throw validationError(meta.error);
   const access = await authorizeLab(caller, meta.data.labId, "editor");
@@ -92,6 +124,7 @@ export const POST = apiRoute(async (request) => {
       extra: { problems: parsed.errors },
     });
   }
+  const signed = meta.data.signsFrom ? await withModelSigns(caller, meta.data.signsFrom, parsed.points) : null;
   const item = await withStorage("nothing was stored", () =>
     createMeasurementSet(db, {
       access,
@@ -105,7 +138,8 @@ export const POST = apiRoute(async (request) => {
         mapping: meta.data.mapping,
         defaults: meta.data.defaults,
         format: meta.data.format,
-        points: parsed.points,
+        points: signed?.points ?? parsed.points,
+        ...(signed ? { signSource: signed.signSource } : {}),
       },
     }),
   );

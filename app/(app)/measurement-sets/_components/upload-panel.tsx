@@ -13,6 +13,8 @@ import { formatBytes } from "./format";
 import { UploadMappingFieldset } from "./upload-mapping-fieldset";
 import { UploadFormatFieldset } from "./upload-format-fieldset";
 import { UploadPreviewTable } from "./upload-preview-table";
+import { UploadSignCheck } from "./upload-sign-check";
+import { useSignCheck } from "./use-sign-check";
 import { useUploadDraft } from "./use-upload-draft";
 import { countOf, noun } from "@/lib/text/plural";
 
@@ -32,6 +34,13 @@ export function UploadPanel({
   const draft = useUploadDraft(defaultLabId);
   const { loaded, mapping, checked, tried, metaErrors } = draft;
   const upload = useUploadMeasurementSet();
+  const rowsValid = checked !== null && checked.result.errors.length === 0;
+  const signCheck = useSignCheck({
+    labId: draft.labId,
+    setId: draft.signCheckSetId,
+    points: rowsValid ? checked.result.points : null,
+    modelSign: draft.modelSign,
+  });
 
   function accept(file: File | undefined) {
     if (!file) return;
@@ -43,7 +52,7 @@ export function UploadPanel({
   const problems = serverProblems.length > 0 ? serverProblems : (checked?.result.errors ?? []);
 
   const submit = () => {
-    const ready = draft.trySubmit();
+    const ready = draft.trySubmit(signCheck.signsFrom);
     if (!ready) {
       problemsRef.current?.focus();
       return;
@@ -112,12 +121,7 @@ export function UploadPanel({
               onChange={(event) => draft.setText("sample", event.target.value)}
               error={tried ? metaErrors.sample : undefined}
             />
-            <SelectField
-              id={`${id}-lab`}
-              label="LabSummary"
-              value={draft.labId}
-              onChange={(event) => draft.setText("labId", event.target.value)}
-            >
+            <SelectField id={`${id}-lab`} label="Lab" value={draft.labId} onChange={(event) => draft.setText("labId", event.target.value)}>
               {labs.map((lab) => (
                 <option key={lab.id} value={lab.id}>
                   {lab.name}
@@ -126,13 +130,25 @@ export function UploadPanel({
             </SelectField>
           </div>
 
+          <UploadSignCheck
+            id={id}
+            check={signCheck}
+            setId={draft.signCheckSetId}
+            modelSign={draft.modelSign}
+            unit={mapping.quantity === "verdet" ? "rad/(T·m)" : "rad"}
+            rowsValid={rowsValid}
+            onChooseSet={draft.chooseSignCheckSet}
+            onModelSign={draft.setModelSign}
+          />
+
           <div ref={problemsRef} tabIndex={-1} className="outline-none">
             {problems.length > 0 ? (
               <UploadProblems problems={problems} fromServer={serverProblems.length > 0} />
             ) : checked ? (
               <Alert tone="success">
                 All {checked.result.points.length} rows are valid ({mapping.quantity === "verdet" ? "Verdet constants" : "rotations"}{" "}
-                converted to {mapping.quantity === "verdet" ? "rad/(T·m)" : "rad"}).
+                converted to {mapping.quantity === "verdet" ? "rad/(T·m)" : "rad"}
+                {signCheck.signsFrom ? ", with the model's sign" : ""}).
               </Alert>
             ) : null}
             {upload.isError && serverProblems.length === 0 ? (

@@ -16,7 +16,8 @@ export function UploadPreviewTable({ table, mapping }: { table: Table; mapping: 
   );
   const kept = table.headers.filter((h) => h !== "" && !mapped.has(h));
   return (
-    <div className="relative overflow-x-auto rounded-md border border-ink/10">
+    // A region the keyboard can reach, so a preview wider than a phone can be scrolled without a pointer.
+    <div role="region" aria-label="Preview of the file" tabIndex={0} className="relative overflow-x-auto rounded-md border border-ink/10">
       <table className="w-full text-xs tabular-nums">
         <caption className="px-2 py-1 text-left text-xs text-ink-soft">
           Preview: the first {Math.min(PREVIEW_ROWS, table.rows.length)} of {table.rows.length} data rows (header on line {table.headerLine}

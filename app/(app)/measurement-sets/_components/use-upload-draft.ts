@@ -1,7 +1,7 @@
 "use client";
 
 import { useMemo, useReducer } from "react";
-import { uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
+import { type SignsFrom, uploadMeasurementMetaSchema } from "@/lib/contracts/measurement-sets";
 import {
   type ColumnMapping,
   type FileDefaults,
@@ -52,6 +52,10 @@ interface DraftState {
   sample: string;
   /** The user tried to store: the name and sample errors show from then on. */
   tried: boolean;
+  /** The parameter set whose model the signs are checked against; "" for no check. */
+  signCheckSetId: string;
+  /** "These are magnitudes": the set version whose model gives the signs; null keeps the file's signs. */
+  modelSign: SignsFrom | null;
 }
 
 type DraftAction =
@@ -62,6 +66,8 @@ type DraftAction =
   | { type: "format"; patch: Partial<TableFormat> }
   | { type: "default"; key: keyof DefaultDrafts; value: string }
   | { type: "text"; key: "labId" | "name" | "sample"; value: string }
+  | { type: "signCheckSet"; id: string }
+  | { type: "modelSign"; value: SignsFrom | null }
   | { type: "tried" };
 
 function reduce(state: DraftState, action: DraftAction): DraftState {
@@ -79,6 +85,8 @@ function reduce(state: DraftState, action: DraftAction): DraftState {
         mapping: proposeMapping(action.loaded.table.headers),
         drafts: EMPTY_DEFAULTS,
         name: action.proposedName ?? state.name,
+        // Another file: its signs are its own until the person says otherwise again.
+        modelSign: null,
       };
     case "format": {
       if (!state.loaded) return state;
@@ -92,7 +100,14 @@ function reduce(state: DraftState, action: DraftAction): DraftState {
     case "default":
       return { ...state, drafts: { ...state.drafts, [action.key]: action.value } };
     case "text":
+      // Parameter sets belong to a lab: another lab drops the set checked against.
+      if (action.key === "labId" && action.value !== state.labId)
+        return { ...state, labId: action.value, signCheckSetId: "", modelSign: null };
       return { ...state, [action.key]: action.value };
+    case "signCheckSet":
+      return { ...state, signCheckSetId: action.id, modelSign: null };
+    case "modelSign":
+      return { ...state, modelSign: action.value };
     case "tried":
       return { ...state, tried: true };
   }
@@ -151,6 +166,8 @@ export function useUploadDraft(defaultLabId: string) {
     name: "",
     sample: "",
     tried: false,
+    signCheckSetId: "",
+    modelSign: null,
   });
   const { loaded, mapping, format, drafts, labId, name, sample } = state;
 
@@ -180,12 +197,15 @@ export function useUploadDraft(defaultLabId: string) {
     dispatch({ type: "fileLoaded", loaded: read.loaded, proposedName: name.trim() === "" ? baseName(file.name) : null });
   }
 
-  /** Marks the draft as tried; returns what to upload when every row and field is valid. */
-  function trySubmit() {
+  /**
+   * Marks the draft as tried; returns what to upload when every row and field is valid. `signsFrom`
+   * is the model sign still in force (the sign check drops it when the set was saved again since).
+   */
+  function trySubmit(signsFrom: SignsFrom | null) {
     dispatch({ type: "tried" });
     if (!loaded || !checked || !meta?.success || checked.result.errors.length > 0 || Object.keys(checked.fieldErrors).length > 0)
       return null;
-    return { file: loaded.file, meta: meta.data };
+    return { file: loaded.file, meta: signsFrom ? { ...meta.data, signsFrom } : meta.data };
   }
 
   return {
@@ -198,5 +218,7 @@ export function useUploadDraft(defaultLabId: string) {
     patchFormat: (patch: Partial<TableFormat>) => dispatch({ type: "format", patch }),
     setDefault: (key: keyof DefaultDrafts, value: string) => dispatch({ type: "default", key, value }),
     setText: (key: "labId" | "name" | "sample", value: string) => dispatch({ type: "text", key, value }),
+    chooseSignCheckSet: (id: string) => dispatch({ type: "signCheckSet", id }),
+    setModelSign: (value: SignsFrom | null) => dispatch({ type: "modelSign", value }),
   };
 }

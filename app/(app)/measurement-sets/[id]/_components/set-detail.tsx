@@ -10,6 +10,7 @@ import type { PointChange, StoredPoint } from "@/lib/contracts/measurement-sets"
 import { roleAtLeast } from "@/lib/contracts/roles";
 import { undoOf } from "@/lib/measurements/point-table";
 import { describeError } from "@/lib/query/fetcher";
+import { countOf, noun } from "@/lib/text/plural";
 import { originalFileUrl, useEditPoints, useMeasurementSet, useStoredPoints } from "@/lib/query/measurement-sets";
 import { fmt } from "@/lib/workbench/format";
 import { PointEditor } from "./point-editor";
@@ -77,6 +78,17 @@ export function MeasurementSetDetail({ id }: { id: string }) {
           </a>
         }
       />
+
+      {item.signSource ? (
+        <p data-testid="sign-source" className="mb-4 rounded-md border border-ink/10 bg-paper-raised px-3 py-2 text-sm">
+          Signs taken from the model: the file held magnitudes, and at upload {countOf(item.signSource.changedCount, noun("value"))} took
+          the sign that the model of{" "}
+          <Link href={`/parameter-sets/${item.signSource.parameterSetId}`} className="text-lux-dark underline underline-offset-4">
+            “{item.signSource.parameterSetName}”
+          </Link>{" "}
+          (version {item.signSource.version}) predicts at their own conditions. The original file keeps the values as they were.
+        </p>
+      ) : null}
 
       {lastSave ? (
         <div role="status" className="mb-4 flex flex-wrap items-center gap-3 rounded-md bg-lux-light px-3 py-2 text-sm text-lux-dark">

@@ -1,0 +1,1 @@
+ALTER TABLE "measurement_sets" ADD COLUMN "sign_source" jsonb;
