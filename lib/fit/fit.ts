@@ -80,7 +80,7 @@ export interface SignCheck {
   /** Points whose measured value has the sign opposite to the model's prediction at the starting values. */
   opposite: number;
   total: number;
-  /** Every point has the opposite sign: the values are likely magnitudes (vendor sheets quote |V|). */
+  /** Every point that can be compared (non-zero value and prediction) has the opposite sign: likely magnitudes (vendor sheets quote |V|). */
   allOpposite: boolean;
   /** The values were fitted as magnitudes with the model's sign. */
   tookModelSign: boolean;
@@ -324,9 +324,9 @@ export function fitResultFrom(problem: PhysicsProblem, req: FitRequest, min: Min
     converged: min.converged,
     startChi2: min.startChi2,
     signCheck: {
-      opposite: problem.oppositeSign,
+      opposite: problem.signs.opposite,
       total: n,
-      allOpposite: problem.oppositeSign === n,
+      allOpposite: problem.signs.allOpposite,
       tookModelSign: req.takeModelSign,
     },
     params: fitted,

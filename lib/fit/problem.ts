@@ -1,6 +1,6 @@
 import { Matrix } from "ml-matrix";
 import type { MeasuredPoint } from "@/lib/measurements/point";
-import { isOppositeSign, withModelSign } from "@/lib/measurements/sign-check";
+import { type SignCheckResult, compareSigns, withModelSign } from "@/lib/measurements/sign-check";
 import type { ModelParams } from "@/lib/physics/schema";
 import { type FreeableKey, NATURAL_LOWER, effectiveVariance, variedKeys } from "@/lib/analysis/definition";
 import type { ChiSquareProblem } from "./minimize";
@@ -38,8 +38,8 @@ export interface PhysicsProblem extends ChiSquareProblem {
   dataCount: number;
   /** The parameter set at x. */
   paramsAt: (x: ArrayLike<number>) => ModelParams;
-  /** The model's sign check at the starting values: how many values have the opposite sign. */
-  oppositeSign: number;
+  /** The model's sign check at the starting values (the upload's rule, lib/measurements/sign-check.ts). */
+  signs: Omit<SignCheckResult, "predicted">;
   /** Step scales and lower limits for the model's Jacobian (one-sided at a lower bound). */
   jacobianOptions: JacobianOptions;
   /** The magnetic share at one condition and, with columns, its gradient over those parameter indices. */
@@ -85,10 +85,10 @@ export function buildPhysicsProblem(req: FitRequest, slopesAt: ModelParams = req
     quantity: p.quantity,
   }));
   const predicted = evaluateModel(req.params, conditions).value;
-  let oppositeSign = 0;
-  points.forEach(({ point }, i) => {
-    if (isOppositeSign(point.value, predicted[i]!)) oppositeSign++;
-  });
+  const signs = compareSigns(
+    points.map(({ point }) => point.value),
+    predicted,
+  );
   const needSlopes = sets.some((s) => s.calibration.temperatureSigmaK > 0);
   const slopes = needSlopes ? temperatureSlopes(slopesAt, conditions) : null;
   const rows: FitRow[] = points.map(({ set, point }, i) => {
@@ -207,6 +207,6 @@ export function buildPhysicsProblem(req: FitRequest, slopesAt: ModelParams = req
     scaleIndex,
     dataCount: n,
     paramsAt,
-    oppositeSign,
+    signs,
   };
 }

@@ -35,26 +35,37 @@ export interface SignCheckResult {
   predicted: Float64Array;
 }
 
-/** Counts the values with the sign opposite to the model's prediction for `params` on the analytic path the fit uses. */
-export function checkSigns(params: ModelParams, values: readonly SignedValue[]): SignCheckResult {
-  const predicted = evaluateModel(params, values).value;
+/** The sign comparison of values with the model's predictions for them: the one rule the upload and the fit share. */
+export function compareSigns(values: ArrayLike<number>, predicted: ArrayLike<number>): Omit<SignCheckResult, "predicted"> {
   let opposite = 0;
   let compared = 0;
   let positive = 0;
   let negative = 0;
-  values.forEach((v, i) => {
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
     const p = predicted[i]!;
-    if (v.value > 0) positive++;
-    else if (v.value < 0) negative++;
-    if (v.value !== 0 && p !== 0 && Number.isFinite(p)) compared++;
-    if (isOppositeSign(v.value, p)) opposite++;
-  });
+    if (v > 0) positive++;
+    else if (v < 0) negative++;
+    if (v !== 0 && p !== 0 && Number.isFinite(p)) compared++;
+    if (isOppositeSign(v, p)) opposite++;
+  }
   return {
     opposite,
     compared,
     total: values.length,
     allOpposite: compared > 0 && opposite === compared,
     oneSign: positive === 0 || negative === 0,
+  };
+}
+
+/** Counts the values with the sign opposite to the model's prediction for `params` on the analytic path the fit uses. */
+export function checkSigns(params: ModelParams, values: readonly SignedValue[]): SignCheckResult {
+  const predicted = evaluateModel(params, values).value;
+  return {
+    ...compareSigns(
+      values.map((v) => v.value),
+      predicted,
+    ),
     predicted,
   };
 }
