@@ -80,7 +80,9 @@ export interface SignCheck {
   /** Points whose measured value has the sign opposite to the model's prediction at the starting values. */
   opposite: number;
   total: number;
-  /** Every point that can be compared (non-zero value and prediction) has the opposite sign: likely magnitudes (vendor sheets quote |V|). */
+  /**
+   * Every point that can be compared (non-zero value and prediction) has the opposite sign:
+   * likely magnitudes (vendor sheets quote |V|). */
   allOpposite: boolean;
   /** The values were fitted as magnitudes with the model's sign. */
   tookModelSign: boolean;
