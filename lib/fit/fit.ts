@@ -82,7 +82,8 @@ export interface SignCheck {
   total: number;
   /**
    * Every point that can be compared (non-zero value and prediction) has the opposite sign:
-   * likely magnitudes (vendor sheets quote |V|). */
+   * likely magnitudes (vendor sheets quote |V|).
+   */
   allOpposite: boolean;
   /** The values were fitted as magnitudes with the model's sign. */
   tookModelSign: boolean;
