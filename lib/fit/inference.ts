@@ -36,7 +36,7 @@ export interface NestedTest {
   /** χ²(held) − χ²(free), ≥ 0 (a negative difference from round-off reads 0). */
   deltaChi2: number;
   pValue: number;
-  /** The Gaussian-equivalent significance: Φ⁻¹(1 − p) on the boundary, Φ⁻¹(1 − p/2) = √Δχ² inside. */
+  /** The Gaussian-equivalent significance: Φ⁻¹(1 − p) on the boundary, Φ⁻¹(1 − p/2) inside; both equal √Δχ². */
   significanceSigma: number;
   criteria: InformationCriteria;
   /** The held fit ended below the free one: the free fit missed its minimum. */
@@ -44,15 +44,16 @@ export interface NestedTest {
   fit: MinimizeResult;
 }
 
-/** The likelihood-ratio test of one parameter held at a value; onBoundary when the value is a bound of that parameter. */
+/**
+ * The likelihood-ratio test of one parameter held at a value; onBoundary when the value is a bound of that parameter.
+ * Both nulls give the same Gaussian-equivalent significance √Δχ²: on the boundary p = ½·P(χ²₁ > Δχ²) = Q(√Δχ²), inside
+ * p/2 = Q(√Δχ²), Q being the normal upper tail (P(χ²₁ > d) = 2Q(√d), A&S 26.4.4). Taking √Δχ² directly keeps the
+ * figure where p underflows (Δχ² above about 1400), where Φ⁻¹(1 − p) would be infinite.
+ */
 export function likelihoodRatio(deltaChi2: number, onBoundary: boolean): { pValue: number; significanceSigma: number } {
   const d = Math.max(0, deltaChi2);
-  if (onBoundary) {
-    const pValue = d > 0 ? 0.5 * chiSquareSurvival(d, 1) : 1;
-    return { pValue, significanceSigma: Math.max(0, normalUpperQuantile(pValue)) };
-  }
-  const pValue = chiSquareSurvival(d, 1);
-  return { pValue, significanceSigma: Math.max(0, normalUpperQuantile(pValue / 2)) };
+  const pValue = onBoundary ? (d > 0 ? 0.5 * chiSquareSurvival(d, 1) : 1) : chiSquareSurvival(d, 1);
+  return { pValue, significanceSigma: Math.sqrt(d) };
 }
 
 export function nestedTest(

@@ -35,8 +35,7 @@ export function normalHalfWidth(coverage: number): number {
 export const COVERAGE_68 = 0.682689492137086;
 export const COVERAGE_95 = 0.954499736103642;
 
-/** A significance in σ as printed; beyond 40σ the tail probabilities underflow, so the figure is only a bound. */
+/** A significance in σ as printed. */
 export function formatSignificance(z: number): string {
-  if (!Number.isFinite(z)) return "–";
-  return z >= 40 ? "> 40σ" : `${z.toFixed(1)}σ`;
+  return Number.isFinite(z) ? `${z.toFixed(1)}σ` : "–";
 }

@@ -60,6 +60,15 @@ describe("distribution functions against tables", () => {
     expect(edge.significanceSigma).toBeCloseTo(2, 10);
     expect(inside.significanceSigma).toBeCloseTo(2, 10);
     expect(likelihoodRatio(0, true)).toEqual({ pValue: 1, significanceSigma: 0 });
+    // The significance is the normal quantile of the p-value in each convention (where p does not underflow).
+    for (const d of [0.5, 9, 100, 900]) {
+      expect(likelihoodRatio(d, true).significanceSigma).toBeCloseTo(normalUpperQuantile(likelihoodRatio(d, true).pValue), 6);
+      expect(likelihoodRatio(d, false).significanceSigma).toBeCloseTo(normalUpperQuantile(likelihoodRatio(d, false).pValue / 2), 6);
+    }
+    // Past p's underflow (Δχ² ≈ 1520 in a global fit of the demo garnet) the figure stays finite.
+    const huge = likelihoodRatio(1520, true);
+    expect(huge.significanceSigma).toBeCloseTo(Math.sqrt(1520), 12);
+    expect(Number.isFinite(huge.pValue) && huge.pValue >= 0).toBe(true);
   });
 });
 
