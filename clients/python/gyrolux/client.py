@@ -183,7 +183,8 @@ class Client:
     # ---- measurements ----
 
     def measurement_sets(self, lab_id: Optional[str] = None, q: Optional[str] = None) -> List[JSON]:
-        return self.request("GET", "/api/measurement-sets", query={"labId": lab_id, "q": q})["items"]
+        """Measurement sets you can see (every page), each with its id, name and counts."""
+        return self._pages("/api/measurement-sets", {"labId": lab_id, "q": q})
 
     def points(self, set_id: str, include_masked: bool = False, arrays: bool = False) -> Union[List[JSON], JSON]:
         """The points in SI. Masked points are left out unless include_masked (as fits and overlays do).

@@ -27,7 +27,8 @@ class FakeServer:
                     "headers": dict(self.headers.items()),
                     "body": json.loads(raw) if raw else None,
                 })
-                status, body = fake.answers.get((self.command, url.path), (404, {"error": {"code": "not_found", "message": "No such route."}}))
+                missing = (404, {"error": {"code": "not_found", "message": "No such route."}})
+                status, body = fake.answers.get((self.command, url.path), missing)
                 data = json.dumps(body).encode("utf-8")
                 self.send_response(status)
                 self.send_header("Content-Type", "application/json")

@@ -204,7 +204,8 @@ class SaveFitBodyTest(unittest.TestCase):
         self.assertEqual(save_fit_body(fit, 1, [{"id": "m", "name": "x"}])["fit"]["profile"], {})
 
     def test_warnings_are_the_verdicts_reasons_and_the_notes_on_one_line_each(self):
-        self.assertEqual(warnings_of(self.fit), ["The data cannot tell the two parts apart.", "magneticScale ended on a bound of its range"])
+        lines = ["The data cannot tell the two parts apart.", "magneticScale ended on a bound of its range"]
+        self.assertEqual(warnings_of(self.fit), lines)
         self.assertEqual(self.fit["warnings"], warnings_of(self.fit))
 
 
