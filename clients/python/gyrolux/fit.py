@@ -247,6 +247,12 @@ def set_summaries(result: Mapping[str, Any], conditions: Mapping[str, Any]) -> O
     ]
 
 
+# The numbers of a comparison row the save contract needs finite (aicc may be null). A tail
+# probability that underflows to 0 makes the significance infinite, which JSON carries as null:
+# such a row stays in the fit() result but cannot be stored.
+_COMPARISON_NUMBERS = ("chi2", "deltaChi2", "pValue", "significanceSigma", "aic", "bic")
+
+
 def _profile(result: Mapping[str, Any]) -> JSON:
     ms = (result.get("profile") or {}).get("magneticScale")
     if not ms:
@@ -262,7 +268,8 @@ def save_fit_body(fit: Mapping[str, Any], version: int, measurement_sets: List[M
     """The body of POST /api/parameter-sets/{id}/fits for a fit() result: the free keys' values become
     the new version; σ and correlation of the free keys only (the report's values also hold keys
     that carry only a prior and the sets' scale factors, which go in as nuisances); the report's
-    findings and the request's conditions go with them."""
+    findings and the request's conditions go with them. A comparison row whose significance is not a
+    finite number (its p-value underflowed) is left out: the save contract takes finite numbers only."""
     free: List[str] = [f if isinstance(f, str) else f["key"] for f in fit["free"]]
     names = list(fit["values"].keys())  # the fitted names in the order of the correlation's rows (FitResult.names)
     index = [names.index(k) for k in free]
@@ -290,8 +297,9 @@ def save_fit_body(fit: Mapping[str, Any], version: int, measurement_sets: List[M
         for n in names
         if n not in free and _finite(fit["values"][n]) and _finite(fit["sigmas"].get(n))
     ]
-    if fit.get("comparison"):
-        summary["comparison"] = fit["comparison"]
+    comparison = [row for row in fit.get("comparison") or [] if all(_finite(row.get(k)) for k in _COMPARISON_NUMBERS)]
+    if comparison:
+        summary["comparison"] = comparison
     if fit.get("goodnessOfFit"):
         summary["goodnessOfFit"] = fit["goodnessOfFit"]
     summary["profile"] = _profile(fit)

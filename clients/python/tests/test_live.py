@@ -147,6 +147,9 @@ class LiveTest(unittest.TestCase):
         self.assertEqual([n["name"] for n in provenance["nuisances"]], ["oscillatorWavelengthNm", scale])
         self.assertEqual([(s["name"], s["scaleSigma"]) for s in provenance["sets"]], [(warm["name"], 0), (cold["name"], 0.02)])
         self.assertEqual(len(provenance["correlation"]), 2)
+        # A row whose p-value underflowed (its significance is null in JSON) is not stored; the others are.
+        self.assertEqual(provenance.get("comparison", []), [c for c in fit["comparison"] if c["significanceSigma"] is not None])
+        self.assertEqual(provenance["verdict"], fit["verdict"])
         self.assertEqual(provenance["pointCount"], len(sets[0]["points"]) + len(sets[1]["points"]))
 
     def test_a_fit_above_the_servers_limit_names_the_command_line(self):

@@ -199,6 +199,13 @@ class SaveFitBodyTest(unittest.TestCase):
         self.assertIsNone(set_summaries(fit, fit["request"]))
         self.assertNotIn("sets", save_fit_body(fit, 1, [{"id": "m", "name": "x"}])["fit"])
 
+    def test_a_comparison_row_with_an_infinite_significance_is_left_out(self):
+        beyond = dict(self.fit["comparison"][0], pValue=0, significanceSigma=None)  # JSON's null for Infinity
+        kept = dict(self.fit["comparison"][0], hypothesis="firstPrinciples", fixed={"magneticScale": 1})
+        summary = save_fit_body(dict(self.fit, comparison=[beyond, kept]), 1, [{"id": "m", "name": "x"}])["fit"]
+        self.assertEqual([c["hypothesis"] for c in summary["comparison"]], ["firstPrinciples"])
+        self.assertNotIn("comparison", save_fit_body(dict(self.fit, comparison=[beyond]), 1, [{"id": "m", "name": "x"}])["fit"])
+
     def test_a_profile_without_finite_ends_is_not_stored(self):
         fit = dict(self.fit, profile={"magneticScale": {"value": 2.1, "interval68": None, "interval95": [1.7, 2.5]}})
         self.assertEqual(save_fit_body(fit, 1, [{"id": "m", "name": "x"}])["fit"]["profile"], {})
