@@ -8,7 +8,8 @@ import { BASE_URL, createApiToken, DEMO, DEMO_GARNET_SET_ID, DEMO_LAB_ID, signIn
  * editor's fresh API token. Every live test must run (a skip here means the environment did not
  * reach Python) and pass. No browser: it sits with the browser tests because scripts/test.sh runs
  * them with a lab-run worker up (the API tier's lab-run test needs a queue without one), and the
- * client submits a lab run and waits for its result.
+ * client submits a lab run and waits for its result. The client's fits go to POST /api/compute/fit,
+ * one also to the fit command line (`npm run fit`, built by scripts/test.sh), so npm must be on PATH.
  */
 
 const CLIENT_DIR = path.resolve(import.meta.dirname, "../../clients/python");

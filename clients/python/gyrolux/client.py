@@ -6,16 +6,16 @@ points of a measurement set come back in rad/(T·m) (Verdet constants) or rad (r
 
 import json
 import os
-import subprocess
-import tempfile
 import time
 import uuid
-from datetime import datetime, timezone
 from pathlib import Path
-from typing import Any, Dict, Iterable, List, Optional, Union
+from typing import Any, Dict, Iterable, List, Mapping, Optional, Sequence, Union
 from urllib.error import HTTPError, URLError
 from urllib.parse import quote, urlencode
 from urllib.request import Request, urlopen
+
+from .errors import GyroluxError
+from .fit import SYNC_FIT_POINT_LIMIT, PriorsArg, fit_request, request_conditions, run_command_line, save_fit_body, with_client_keys
 
 try:  # numpy is optional: arrays when it is installed, lists always.
     import numpy as _np
@@ -35,23 +35,7 @@ DEFAULT_COLUMNS = {
     "length": "length_m",
 }
 
-# What the fit command line prints as warnings that are not about separating the two parts
-# (lib/fit/cli-input.ts): a parameter on a bound, a fit stopped at its iteration limit.
-_NOT_SEPARATION = ("ended on a bound", "stopped at its iteration limit")
-
 ACTIVE_STATES = ("queued", "running")
-
-
-class GyroluxError(Exception):
-    """A refused request: the HTTP status and the API's error code, message and per-field messages."""
-
-    def __init__(self, status: int, code: str, message: str, fields: Optional[Dict[str, str]] = None, body: Any = None):
-        super().__init__(f"{status} {code}: {message}" + (f" {fields}" if fields else ""))
-        self.status = status
-        self.code = code
-        self.message = message
-        self.fields = fields or {}
-        self.body = body
 
 
 class RunFailed(Exception):
@@ -136,7 +120,7 @@ class Client:
     # ---- HTTP ----
 
     def request(self, method: str, path: str, json_body: Any = None, query: Optional[JSON] = None,
-                body: Optional[bytes] = None, content_type: Optional[str] = None) -> Any:
+                body: Optional[bytes] = None, content_type: Optional[str] = None, timeout: Optional[float] = None) -> Any:
         """One API call; the parsed JSON answer (None for 204). Raises GyroluxError on an error answer."""
         url = self.base_url + path
         clean = {k: v for k, v in (query or {}).items() if v is not None}
@@ -150,7 +134,7 @@ class Client:
             headers["Content-Type"] = content_type
         req = Request(url, data=body, method=method, headers=headers)
         try:
-            with urlopen(req, timeout=self.timeout) as response:
+            with urlopen(req, timeout=timeout or self.timeout) as response:
                 raw = response.read()
                 if response.status == 204 or not raw:
                     return None
@@ -199,7 +183,8 @@ class Client:
     # ---- measurements ----
 
     def measurement_sets(self, lab_id: Optional[str] = None, q: Optional[str] = None) -> List[JSON]:
-        return self.request("GET", "/api/measurement-sets", query={"labId": lab_id, "q": q})["items"]
+        """Measurement sets you can see (every page), each with its id, name and counts."""
+        return self._pages("/api/measurement-sets", {"labId": lab_id, "q": q})
 
     def points(self, set_id: str, include_masked: bool = False, arrays: bool = False) -> Union[List[JSON], JSON]:
         """The points in SI. Masked points are left out unless include_masked (as fits and overlays do).
@@ -244,68 +229,88 @@ class Client:
 
     # ---- fits ----
 
-    def fit(self, params: JSON, points: List[JSON], free: Optional[List[str]] = None, scale_by_chi2: bool = False,
-            repo: Optional[Union[str, os.PathLike]] = None) -> JSON:
-        """Fits the model to points with the product's own fit command line (`npm run --silent fit`).
+    def fit(self, params: JSON, points: Optional[List[JSON]] = None, free: Optional[Sequence[Union[str, JSON]]] = None,
+            scale_by_chi2: bool = False, repo: Optional[Union[str, os.PathLike]] = None, *, priors: PriorsArg = None,
+            sets: Optional[Sequence[Mapping[str, Any]]] = None, calibration: Optional[Mapping[str, Any]] = None,
+            starts: int = 4, seed: int = 1, magnitudes: bool = False, share_intervals: bool = False,
+            local: bool = False, timeout: Optional[float] = None) -> JSON:
+        """Fits the model to measured points on the server (POST /api/compute/fit) and answers its report.
 
-        The server has no fit endpoint: fits run in the browser (the workbench's fit panel) or with
-        that command line, which needs Node and a checkout of the repository (`repo`, by default the
-        one this client lives in). Answers the command's JSON (free, values, sigmas, correlation,
-        chi2, dof, points) plus "warnings" (its stderr notes). Masked points should be left out
-        (points() does so by default).
+        The server fits the free parameters by weighted least squares from `starts` seeded starts,
+        and reports σ and correlation, χ² and its p-value, the comparison with magneticScale held at
+        0 and at 1 (when magneticScale is free), the profile-likelihood interval of magneticScale, the
+        held values with their sources, and a verdict on whether the electric- and magnetic-dipole
+        parts are separated in this model, with its reasons. It fits up to 500 points
+        (SYNC_FIT_POINT_LIMIT); above that it answers 413, raised here as a GyroluxError naming the
+        fallback: local=True (or repo=the checkout) runs the repository's fit command line
+        (`npm run --silent fit`, Node needed), which takes no bounds and no calibration.
+
+        params: a parameter set's params (parameter_set(id)["params"]).
+        points: one measurement set's points as points() answers them (masked ones left out), or
+            dicts with wavelengthNm, value, sigma and optionally line, quantity ("verdet" in
+            rad/(T·m) or "rotation" in rad), temperatureK, fieldT, lengthM (else the params' value).
+        sets: instead of points, several measurement sets fitted together with shared parameters:
+            [{"name", "points", "calibration"?, "id"?}]; calibration {"scaleSigma", "temperatureSigmaK",
+            "relativeFloor"} makes that set's field × length scale, temperature and error floor
+            nuisances; "id" (a measurement set's) lets save_fit name the sets by itself.
+        calibration: the calibration of `points`.
+        free: keys or {"key", "min"?, "max"?} (default gyrationPerT, oscillatorWavelengthNm, magneticScale).
+        priors: Gaussian priors, {key: (mean, sigma)} or [{"key", "mean", "sigma"}]; a key with a prior
+            that is not free is fitted as a nuisance.
+        magnitudes: the values are magnitudes; each takes the sign of the model at the starting values.
+        scale_by_chi2: σ multiplied by √(χ²/dof) when that exceeds 1 (refused below 3 degrees of freedom).
+        share_intervals: also profile the magnetic share at every distinct point condition (slower).
+
+        Answers the report as the fit command line prints it (free, values, sigmas, correlation over
+        the names of values in their order, chi2, dof, converged, notes, assumptions, comparison,
+        informationCriteria, goodnessOfFit, profile, verdict, points, shareCovariance), plus
+        "warnings" (the verdict's reasons and the notes, one line each), "scaledByChi2", "request"
+        (the request without its points, for save_fit) and, from the server, "engineVersion" and "computeMs".
         """
-        root = Path(repo) if repo else Path(__file__).resolve().parents[3]
-        parameter_keys = {k: v for k, v in params.items() if k not in ("wavelengthsNm",)}
-        with tempfile.TemporaryDirectory(prefix="gyrolux-fit-") as folder:
-            p_file = Path(folder, "params.json")
-            d_file = Path(folder, "data.csv")
-            p_file.write_text(json.dumps(parameter_keys), encoding="utf-8")
-            verdet = all(p.get("quantity", "verdet") == "verdet" for p in points)
-            value_column = "verdet_rad_per_T_m" if verdet else "rotation_rad"
-            rows = ["wavelength_nm,%s,sigma,temperature_K,field_T,length_m" % value_column]
-            for p in points:
-                rows.append(",".join(repr(float(p[k])) for k in ("wavelengthNm", "value", "sigma", "temperatureK", "fieldT", "lengthM")))
-            d_file.write_text("\n".join(rows) + "\n", encoding="utf-8")
-            args = ["npm", "run", "--silent", "fit", "--", "--params", str(p_file), "--data", str(d_file)]
-            if free:
-                args += ["--free", ",".join(free)]
-            if scale_by_chi2:
-                args.append("--scale-by-chi2")
-            run = subprocess.run(args, cwd=root, capture_output=True, text=True)
-        if run.returncode != 0:
-            raise GyroluxError(0, "fit_failed", (run.stderr or run.stdout).strip() or f"the fit exited with status {run.returncode}")
-        result = json.loads(run.stdout)
-        result["warnings"] = [line[len("warning: "):] for line in run.stderr.splitlines() if line.startswith("warning: ")]
-        result["scaledByChi2"] = scale_by_chi2
+        body = fit_request(params, points, free=free, priors=priors, sets=sets, calibration=calibration, starts=starts,
+                           seed=seed, magnitudes=magnitudes, scale_by_chi2=scale_by_chi2)
+        conditions = request_conditions(body, sets)
+        if local or repo is not None:
+            root = Path(repo) if repo else Path(__file__).resolve().parents[3]
+            return with_client_keys(run_command_line(body, root, share_intervals), conditions)
+        query = {"shareIntervals": "true"} if share_intervals else None
+        try:
+            answer = self.request("POST", "/api/compute/fit", json_body=body, query=query, timeout=timeout)
+        except GyroluxError as error:
+            if error.status != 413:
+                raise
+            raise GyroluxError(
+                413,
+                error.code,
+                f"{error.message} The server fits up to {SYNC_FIT_POINT_LIMIT} points at once; fit this one on this machine with "
+                "fit(..., local=True), which runs the repository's fit command line (npm run fit; needs Node and a checkout).",
+                error.fields,
+                error.body,
+            ) from None
+        result = with_client_keys(answer["result"], conditions)
+        result["engineVersion"] = answer.get("engineVersion")
+        result["computeMs"] = answer.get("computeMs")
         return result
 
-    def save_fit(self, set_id: str, fit: JSON, measurement_sets: List[JSON], version: Optional[int] = None) -> JSON:
-        """Saves a fit() result as a new version of the set, with the fit as its provenance.
+    def save_fit(self, set_id: str, fit: JSON, measurement_sets: Optional[List[JSON]] = None, version: Optional[int] = None) -> JSON:
+        """Saves a fit() result as a new version of the set, with the fit's report as its provenance.
 
-        measurement_sets: the sets the points came from, as measurement_sets() lists them (id and name).
-        version: the version the fit started from (default: the set's current version).
+        The version takes the free parameters' values; σ and correlation are stored for those keys
+        only, keys fitted through a prior alone and the sets' scale factors as nuisances, beside the
+        held values, priors, each set's χ² and calibration, comparison, goodness of fit, profile
+        interval, verdict, notes, starts and whether the model's sign was taken.
+        measurement_sets: the sets the points came from, as measurement_sets() lists them (id and
+        name); by default the sets given to fit() when each carried its "id".
+        version: the version the fit started from (default: the set's current version; a newer one answers 409).
         """
+        if measurement_sets is None:
+            listed = (fit.get("request") or {}).get("sets") or []
+            if not listed or not all(s.get("id") for s in listed):
+                raise ValueError("name the measurement sets the fit used: save_fit(set_id, fit, [measurement set, …])")
+            measurement_sets = [{"id": s["id"], "name": s["name"]} for s in listed]
         if version is None:
             version = self.parameter_set(set_id)["version"]
-        keys = [f if isinstance(f, str) else f["key"] for f in fit["free"]]
-        separable = not any(not any(mark in w for mark in _NOT_SEPARATION) for w in fit.get("warnings", []))
-        body = {
-            "version": version,
-            "values": {k: fit["values"][k] for k in keys},
-            "fit": {
-                "measurementSets": [{"id": m["id"], "name": m["name"]} for m in measurement_sets],
-                "pointCount": len(fit["points"]),
-                "free": [{"key": k} for k in keys],
-                "sigmas": {k: fit["sigmas"][k] for k in keys},
-                "sigmaScaledByChi2": bool(fit.get("scaledByChi2", False)),
-                "correlation": fit["correlation"],
-                "chi2": fit["chi2"],
-                "dof": fit["dof"],
-                "reducedChi2": fit["chi2"] / fit["dof"],
-                "separable": separable,
-                "fittedAt": datetime.now(timezone.utc).isoformat().replace("+00:00", "Z"),
-            },
-        }
+        body = save_fit_body(fit, version, measurement_sets)
         return self.request("POST", f"/api/parameter-sets/{quote(set_id)}/fits", json_body=body)["item"]
 
     # ---- lab runs ----
