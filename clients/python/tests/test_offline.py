@@ -8,7 +8,7 @@ from datetime import datetime, timezone
 
 from gyrolux import Client, GyroluxError
 from gyrolux.client import _header_cells, _multipart, default_mapping
-from gyrolux.fit import fit_request, request_conditions, save_fit_body, set_summaries, warnings_of, with_client_keys
+from gyrolux.fit import fit_request, request_conditions, save_fit_body, warnings_of, with_client_keys
 from tests.fake_server import FakeServer
 
 
@@ -140,6 +140,12 @@ def report_of_two_sets():
         "profile": {"magneticScale": {"value": 2.1, "interval68": [1.9, 2.3], "interval95": [1.7, 2.5]}},
         "verdict": {"separable": False, "reasons": ["The data cannot tell the two parts apart."]},
         "points": points,
+        "sets": [
+            {"name": "293 K", "pointCount": 2, "chi2": residual(points[0], 0.01) + residual(points[1], 0.01),
+             "scaleSigma": 0.0, "relativeFloor": 0.01, "temperatureSigmaK": 0.0},
+            {"name": "77 K", "pointCount": 2, "chi2": chi2_77, "scaleSigma": 0.02, "relativeFloor": 0.0, "temperatureSigmaK": 0.5},
+        ],
+        "sigmaScaledByChi2": False,
         "shareCovariance": None,
     }
     body = fit_request(
@@ -187,24 +193,12 @@ class SaveFitBodyTest(unittest.TestCase):
         self.assertEqual(s["assumptions"][1], {"key": "diamagneticTerm", "value": False, "source": "set"})
         self.assertEqual(s["goodnessOfFit"]["dof"], 1)
 
-    def test_each_sets_chi2_from_its_points_or_what_remains(self):
-        sets = self.summary["sets"]
-        self.assertEqual([(x["name"], x["pointCount"], x["scaleSigma"], x["temperatureSigmaK"]) for x in sets],
-                         [("293 K", 2, 0.0, 0.0), ("77 K", 2, 0.02, 0.5)])
-        self.assertAlmostEqual(sets[0]["chi2"], residual(self.fit["points"][0], 0.01) + residual(self.fit["points"][1], 0.01), places=12)
-        self.assertAlmostEqual(sets[1]["chi2"], self.chi2_77, places=9)
+    def test_each_sets_chi2_and_calibration_as_the_report_gives_them(self):
+        self.assertEqual(self.summary["sets"], self.fit["sets"])
 
-    def test_sets_left_out_when_two_chi2_cannot_be_told(self):
-        fit = dict(self.fit, request=dict(self.fit["request"], takeModelSign=True))
-        self.assertIsNone(set_summaries(fit, fit["request"]))
+    def test_sets_left_out_when_the_report_has_none(self):
+        fit = {k: v for k, v in self.fit.items() if k != "sets"}
         self.assertNotIn("sets", save_fit_body(fit, 1, [{"id": "m", "name": "x"}])["fit"])
-
-    def test_a_comparison_row_with_an_infinite_significance_is_left_out(self):
-        beyond = dict(self.fit["comparison"][0], pValue=0, significanceSigma=None)  # JSON's null for Infinity
-        kept = dict(self.fit["comparison"][0], hypothesis="firstPrinciples", fixed={"magneticScale": 1})
-        summary = save_fit_body(dict(self.fit, comparison=[beyond, kept]), 1, [{"id": "m", "name": "x"}])["fit"]
-        self.assertEqual([c["hypothesis"] for c in summary["comparison"]], ["firstPrinciples"])
-        self.assertNotIn("comparison", save_fit_body(dict(self.fit, comparison=[beyond]), 1, [{"id": "m", "name": "x"}])["fit"])
 
     def test_a_profile_without_finite_ends_is_not_stored(self):
         fit = dict(self.fit, profile={"magneticScale": {"value": 2.1, "interval68": None, "interval95": [1.7, 2.5]}})
