@@ -25,6 +25,15 @@ async function invite(owner: Client, labId: string, email: string, role: "owner"
   return { id: invited.body.item.id as string, token };
 }
 
+/** The JSON sign-up with an invitation link's secret. */
+const signUpWith = (options: { name: string; email: string; token: string; password?: string }) =>
+  new Client().post("/api/sign-up", {
+    name: options.name,
+    email: options.email,
+    password: options.password ?? PASSWORD,
+    invitationToken: options.token,
+  });
+
 const pendingIds = async (owner: Client, labId: string) =>
   (await owner.get(`/api/labs/${labId}/invitations`)).body.items.map((i: { id: string }) => i.id);
 
@@ -34,12 +43,7 @@ describe("signing up through an invitation", () => {
     const email = uniqueEmail("invited editor");
     const invitation = await invite(owner.client, owner.labId, email, "editor");
 
-    const answer = await new Client().post("/api/sign-up", {
-      name: "Invited Editor",
-      email,
-      password: PASSWORD,
-      invitationToken: invitation.token,
-    });
+    const answer = await signUpWith({ name: "Invited Editor", email, token: invitation.token });
     expect(answer.status).toBe(202);
     const invitee = await signIn(email, PASSWORD);
     expect((await invitee.get("/api/labs")).body.items).toEqual([{ id: owner.labId, name: "Inviting Owner's lab", role: "editor" }]);
@@ -49,12 +53,7 @@ describe("signing up through an invitation", () => {
     // The link is used up: accepting it again, or a second sign-up with it, is refused.
     expect((await invitee.post("/api/invitations/accept", { token: invitation.token })).status).toBe(409);
     const again = uniqueEmail("second taker");
-    const second = await new Client().post("/api/sign-up", {
-      name: "Second",
-      email: again,
-      password: PASSWORD,
-      invitationToken: invitation.token,
-    });
+    const second = await signUpWith({ name: "Second", email: again, token: invitation.token });
     expect(second.status).toBe(409);
     expect(second.body.error.message).toBe("This invitation has already been used.");
     expect(await signInFails(again)).toBe(true);
@@ -73,31 +72,16 @@ describe("signing up through an invitation", () => {
   it("an unknown, malformed, withdrawn or other-address link creates no account and leaves a pending link pending", async () => {
     const owner = await signUp({ name: "Careful Owner" });
     const unknownEmail = uniqueEmail("unknown link");
-    const unknown = await new Client().post("/api/sign-up", {
-      name: "U",
-      email: unknownEmail,
-      password: PASSWORD,
-      invitationToken: "A".repeat(43),
-    });
+    const unknown = await signUpWith({ name: "U", email: unknownEmail, token: "A".repeat(43) });
     expect(unknown.status).toBe(404);
-    const malformed = await new Client().post("/api/sign-up", {
-      name: "M",
-      email: unknownEmail,
-      password: PASSWORD,
-      invitationToken: "short",
-    });
+    const malformed = await signUpWith({ name: "M", email: unknownEmail, token: "short" });
     expect(malformed.status).toBe(404);
     expect(await signInFails(unknownEmail)).toBe(true);
 
     const withdrawnEmail = uniqueEmail("withdrawn");
     const withdrawn = await invite(owner.client, owner.labId, withdrawnEmail, "viewer");
     expect((await owner.client.delete(`/api/labs/${owner.labId}/invitations/${withdrawn.id}`)).status).toBe(204);
-    const late = await new Client().post("/api/sign-up", {
-      name: "W",
-      email: withdrawnEmail,
-      password: PASSWORD,
-      invitationToken: withdrawn.token,
-    });
+    const late = await signUpWith({ name: "W", email: withdrawnEmail, token: withdrawn.token });
     expect(late.status).toBe(409);
     expect(late.body.error.message).toMatch(/withdrawn/);
     expect(await signInFails(withdrawnEmail)).toBe(true);
@@ -105,24 +89,14 @@ describe("signing up through an invitation", () => {
     const invitedEmail = uniqueEmail("invited viewer");
     const invitation = await invite(owner.client, owner.labId, invitedEmail, "viewer");
     const otherEmail = uniqueEmail("someone else");
-    const other = await new Client().post("/api/sign-up", {
-      name: "O",
-      email: otherEmail,
-      password: PASSWORD,
-      invitationToken: invitation.token,
-    });
+    const other = await signUpWith({ name: "O", email: otherEmail, token: invitation.token });
     expect(other.status).toBe(400);
     expect(other.body.error.fields.email).toContain(invitedEmail);
     expect(await signInFails(otherEmail)).toBe(true);
     expect(await pendingIds(owner.client, owner.labId)).toContain(invitation.id);
 
     // The same link still works for the invited address.
-    const right = await new Client().post("/api/sign-up", {
-      name: "Invited Viewer",
-      email: invitedEmail,
-      password: PASSWORD,
-      invitationToken: invitation.token,
-    });
+    const right = await signUpWith({ name: "Invited Viewer", email: invitedEmail, token: invitation.token });
     expect(right.status).toBe(202);
     const invitee = await signIn(invitedEmail, PASSWORD);
     expect((await invitee.get("/api/labs")).body.items).toEqual([{ id: owner.labId, name: "Careful Owner's lab", role: "viewer" }]);
@@ -132,11 +106,11 @@ describe("signing up through an invitation", () => {
     const owner = await signUp({ name: "Neutral Owner" });
     const existing = await signUp({ name: "Existing Person" });
     const invitation = await invite(owner.client, owner.labId, existing.email, "editor");
-    const answer = await new Client().post("/api/sign-up", {
+    const answer = await signUpWith({
       name: "Impostor",
       email: existing.email,
+      token: invitation.token,
       password: "some other passphrase",
-      invitationToken: invitation.token,
     });
     expect(answer.status).toBe(202);
     expect(await signInFails(existing.email, "some other passphrase")).toBe(true);
@@ -152,10 +126,7 @@ describe("someone with no lab", () => {
     const owner = await signUp({ name: "Removing Owner" });
     const email = uniqueEmail("removed member");
     const invitation = await invite(owner.client, owner.labId, email, "editor");
-    expect(
-      (await new Client().post("/api/sign-up", { name: "Removed Member", email, password: PASSWORD, invitationToken: invitation.token }))
-        .status,
-    ).toBe(202);
+    expect((await signUpWith({ name: "Removed Member", email, token: invitation.token })).status).toBe(202);
     const member = await signIn(email, PASSWORD);
     const userId = (await member.get("/api/auth/session")).body.user.id as string;
     expect((await owner.client.delete(`/api/labs/${owner.labId}/members/${userId}`)).status).toBe(204);
