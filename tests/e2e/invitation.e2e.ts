@@ -41,6 +41,8 @@ describe("invitations and share links in the browser", () => {
 
   it("the owner invites, the invitee signs up from the e-mail into the lab; removed, they make a personal lab", async () => {
     const email = `invitee-${Date.now()}@e2e.gyrolux.test`;
+    // Unique: the integration tests add members of the same name to the demo lab.
+    const name = `Invited Viewer ${Date.now().toString(36)}`;
     const owner = await browser.signedInPage("owner");
     const invitee = await browser.guestPage();
     try {
@@ -58,7 +60,7 @@ describe("invitations and share links in the browser", () => {
       await invitee.getByRole("link", { name: "Create an account" }).click();
       await invitee.waitForURL("**/sign-up?**");
       expect(await invitee.getByLabel("E-mail").inputValue()).toBe(email);
-      await invitee.getByLabel("Name").fill("Invited Viewer");
+      await invitee.getByLabel("Name").fill(name);
       await invitee.getByLabel("Password", { exact: true }).fill("invited viewer passphrase");
       await invitee.getByLabel("Confirm password").fill("invited viewer passphrase");
       await invitee.getByRole("button", { name: "Create account" }).click();
@@ -77,13 +79,13 @@ describe("invitations and share links in the browser", () => {
 
       // Removed from the only lab, the person is offered a personal lab of their own.
       await owner.reload();
-      await owner.getByRole("button", { name: "Remove Invited Viewer" }).click();
+      await owner.getByRole("button", { name: `Remove ${name}` }).click();
       await owner.getByRole("button", { name: "Remove member" }).click();
-      await owner.getByRole("button", { name: "Remove Invited Viewer" }).waitFor({ state: "detached", timeout: 30_000 });
+      await owner.getByRole("button", { name: `Remove ${name}` }).waitFor({ state: "detached", timeout: 30_000 });
       await invitee.goto("/lab");
       await invitee.getByRole("heading", { name: "You are not a member of any lab" }).waitFor({ timeout: 30_000 });
       await invitee.getByRole("button", { name: "Create a personal lab" }).click();
-      await invitee.getByRole("heading", { name: "Invited Viewer's lab" }).waitFor({ timeout: 30_000 });
+      await invitee.getByRole("heading", { name: `${name}'s lab` }).waitFor({ timeout: 30_000 });
       await expect.poll(() => invitee.getByText("Your role: Owner").count()).toBeGreaterThan(0);
       await invitee.screenshot({ path: outputPath("personal-lab-after-removal.png"), fullPage: true });
     } finally {
