@@ -1,6 +1,6 @@
 import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
 import type { Caller, ResourceAccess } from "@/lib/contracts/access";
-import type { InvitationSummary } from "@/lib/contracts/labs";
+import type { InvitationRefusal, InvitationSummary } from "@/lib/contracts/labs";
 import type { Page, PageQuery } from "@/lib/contracts/paging";
 import type { LabRole } from "@/lib/contracts/roles";
 import type { Executor } from "../executor";
@@ -187,34 +187,58 @@ export async function findInvitationByToken(db: Executor, options: { tokenHash: 
 
 export type AcceptResult =
   | { ok: true; labId: string; labName: string; role: LabRole; alreadyMember: boolean }
-  | { ok: false; reason: "unknown" | "accepted" | "revoked" | "expired" | "other_email"; email?: string };
+  | ({ ok: false } & InvitationRefusal);
+
+type InvitationRow = typeof invitations.$inferSelect;
+
+/**
+ * The invitation of the link, row locked for the rest of the caller's transaction (a link works
+ * exactly once even when used twice at once), if it is pending and made out to the e-mail address.
+ */
+export async function lockPendingInvitation(
+  tx: Executor,
+  options: { tokenHash: string; email: string },
+): Promise<{ ok: true; invitation: InvitationRow } | ({ ok: false } & InvitationRefusal)> {
+  const [row] = await tx.select().from(invitations).where(eq(invitations.tokenHash, options.tokenHash)).for("update");
+  if (!row) return { ok: false, reason: "unknown" };
+  const state = stateOf(row);
+  if (state !== "pending") return { ok: false, reason: state };
+  if (row.email !== options.email.trim().toLowerCase()) return { ok: false, reason: "other_email", email: row.email };
+  return { ok: true, invitation: row };
+}
+
+/** The user joins the invitation's lab with its role and the invitation is used, in the caller's transaction (audited). */
+export async function joinByInvitation(
+  tx: Executor,
+  options: { invitation: InvitationRow; userId: string },
+): Promise<{ labId: string; labName: string; role: LabRole; alreadyMember: boolean }> {
+  const row = options.invitation;
+  const inserted = await tx
+    .insert(labMemberships)
+    .values({ labId: row.labId, userId: options.userId, role: row.role })
+    .onConflictDoNothing()
+    .returning({ role: labMemberships.role });
+  await tx.update(invitations).set({ acceptedAt: new Date(), acceptedById: options.userId }).where(eq(invitations.id, row.id));
+  await recordAudit(tx, {
+    entry: {
+      actorId: options.userId,
+      action: "invitation.accept",
+      targetType: "invitation",
+      targetId: row.id,
+      labId: row.labId,
+      details: { email: row.email, role: row.role, alreadyMember: inserted.length === 0 },
+    },
+  });
+  const [lab] = await tx.select({ name: labs.name }).from(labs).where(eq(labs.id, row.labId));
+  return { labId: row.labId, labName: lab?.name ?? "", role: row.role, alreadyMember: inserted.length === 0 };
+}
 
 /** The caller accepts, in one transaction with the invitation row locked, so a link works exactly once. */
 export async function acceptInvitation(db: Executor, options: { caller: Caller; tokenHash: string }): Promise<AcceptResult> {
   const { caller } = options;
   return db.transaction(async (tx) => {
-    const [row] = await tx.select().from(invitations).where(eq(invitations.tokenHash, options.tokenHash)).for("update");
-    if (!row) return { ok: false as const, reason: "unknown" as const };
-    const state = stateOf(row);
-    if (state !== "pending") return { ok: false as const, reason: state };
-    if (row.email !== caller.email.trim().toLowerCase()) return { ok: false as const, reason: "other_email" as const, email: row.email };
-    const inserted = await tx
-      .insert(labMemberships)
-      .values({ labId: row.labId, userId: caller.id, role: row.role })
-      .onConflictDoNothing()
-      .returning({ role: labMemberships.role });
-    await tx.update(invitations).set({ acceptedAt: new Date(), acceptedById: caller.id }).where(eq(invitations.id, row.id));
-    await recordAudit(tx, {
-      entry: {
-        actorId: caller.id,
-        action: "invitation.accept",
-        targetType: "invitation",
-        targetId: row.id,
-        labId: row.labId,
-        details: { email: row.email, role: row.role, alreadyMember: inserted.length === 0 },
-      },
-    });
-    const [lab] = await tx.select({ name: labs.name }).from(labs).where(eq(labs.id, row.labId));
-    return { ok: true as const, labId: row.labId, labName: lab?.name ?? "", role: row.role, alreadyMember: inserted.length === 0 };
+    const locked = await lockPendingInvitation(tx, { tokenHash: options.tokenHash, email: caller.email });
+    if (!locked.ok) return locked;
+    return { ok: true as const, ...(await joinByInvitation(tx, { invitation: locked.invitation, userId: caller.id })) };
   });
 }

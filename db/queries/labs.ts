@@ -112,3 +112,39 @@ export async function changeMember(
     return { ok: true as const, member: member ?? null };
   });
 }
+
+/** A personal lab with the user as its only owner, in the caller's transaction; its id. */
+export async function insertPersonalLab(tx: Executor, options: { userId: string; name: string }): Promise<string> {
+  const [lab] = await tx.insert(labs).values({ name: options.name, personal: true }).returning({ id: labs.id });
+  if (!lab) throw new Error("insert into labs returned no row");
+  await tx.insert(labMemberships).values({ labId: lab.id, userId: options.userId, role: "owner" });
+  return lab.id;
+}
+
+export type CreatePersonalLabResult = { ok: true; lab: LabSummary } | { ok: false; reason: "has_personal_lab" };
+
+/**
+ * The caller's own personal lab, for someone who joined through an invitation (no personal lab at
+ * sign-up) or was removed from every lab. One per person: the user's row is locked so two clicks
+ * at once make one lab. Named "<name>'s lab" unless a name is given.
+ */
+export async function createPersonalLab(db: Executor, options: { caller: Caller; name?: string }): Promise<CreatePersonalLabResult> {
+  const { caller } = options;
+  return db.transaction(async (tx) => {
+    const [user] = await tx.select({ name: users.name }).from(users).where(eq(users.id, caller.id)).for("update");
+    if (!user) throw new Error("the caller has no user row");
+    const [own] = await tx
+      .select({ id: labs.id })
+      .from(labMemberships)
+      .innerJoin(labs, eq(labs.id, labMemberships.labId))
+      .where(and(eq(labMemberships.userId, caller.id), eq(labMemberships.role, "owner"), eq(labs.personal, true)))
+      .limit(1);
+    if (own) return { ok: false as const, reason: "has_personal_lab" as const };
+    const name = options.name ?? `${user.name}'s lab`;
+    const labId = await insertPersonalLab(tx, { userId: caller.id, name });
+    await recordAudit(tx, {
+      entry: { actorId: caller.id, action: "lab.create", targetType: "user", targetId: caller.id, labId, details: { name } },
+    });
+    return { ok: true as const, lab: { id: labId, name, role: "owner" as const } };
+  });
+}

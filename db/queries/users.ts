@@ -2,8 +2,11 @@ import { and, eq, isNull, sql } from "drizzle-orm";
 import type { Caller } from "@/lib/contracts/access";
 import { uniqueViolation } from "../errors";
 import type { Executor } from "../executor";
-import { apiTokens, emailVerifications, labMemberships, labs, passwordResets, type User, users } from "../schema";
+import type { InvitationRefusal } from "@/lib/contracts/labs";
+import { apiTokens, emailVerifications, passwordResets, type User, users } from "../schema";
 import { recordAudit } from "./audit";
+import { joinByInvitation, lockPendingInvitation } from "./invitations";
+import { insertPersonalLab } from "./labs";
 
 export async function findUserByEmail(db: Executor, options: { email: string }): Promise<User | null> {
   const [row] = await db
@@ -21,30 +24,49 @@ export async function findUserById(db: Executor, options: { id: string }): Promi
 
 export type CreateAccountResult =
   | { ok: true; user: Pick<User, "id" | "email" | "name">; labId: string }
-  | { ok: false; reason: "email_taken" };
+  | { ok: false; reason: "email_taken" }
+  | { ok: false; reason: "invitation"; refusal: InvitationRefusal };
 
-/** Creates a user and their personal lab (the user owns it) in one transaction. */
+/**
+ * Creates a user in one transaction, with their personal lab (the user owns it), or, when the
+ * sign-up comes with an invitation link, in the invited lab with the invitation's role and no
+ * personal lab. The invitation is checked (row locked) before anything is written: an unusable
+ * link creates no account, and a taken address rolls the whole sign-up back, leaving the link pending.
+ */
 export async function createAccount(
   db: Executor,
-  options: { name: string; email: string; passwordHash: string },
+  options: { name: string; email: string; passwordHash: string; invitationTokenHash?: string },
 ): Promise<CreateAccountResult> {
+  const email = options.email.trim().toLowerCase();
   try {
     return await db.transaction(async (tx) => {
+      const locked =
+        options.invitationTokenHash === undefined
+          ? null
+          : await lockPendingInvitation(tx, { tokenHash: options.invitationTokenHash, email });
+      if (locked && !locked.ok) {
+        const { ok: _, ...refusal } = locked;
+        return { ok: false as const, reason: "invitation" as const, refusal };
+      }
       const [user] = await tx
         .insert(users)
-        .values({ name: options.name, email: options.email.trim().toLowerCase(), passwordHash: options.passwordHash, emailVerified: false })
+        .values({ name: options.name, email, passwordHash: options.passwordHash, emailVerified: false })
         .returning({ id: users.id, email: users.email, name: users.name });
       if (!user) throw new Error("insert into users returned no row");
-      const [lab] = await tx
-        .insert(labs)
-        .values({ name: `${options.name}'s lab`, personal: true })
-        .returning({ id: labs.id });
-      if (!lab) throw new Error("insert into labs returned no row");
-      await tx.insert(labMemberships).values({ labId: lab.id, userId: user.id, role: "owner" });
+      const labId = locked ? locked.invitation.labId : await insertPersonalLab(tx, { userId: user.id, name: `${options.name}'s lab` });
       await recordAudit(tx, {
-        entry: { actorId: user.id, action: "user.sign_up", targetType: "user", targetId: user.id, labId: lab.id, details: {} },
+        entry: {
+          actorId: user.id,
+          action: "user.sign_up",
+          targetType: "user",
+          targetId: user.id,
+          labId,
+          details: locked ? { invitationId: locked.invitation.id } : {},
+        },
       });
-      return { ok: true as const, user, labId: lab.id };
+      // After the sign-up entry, so the lab's trail reads in order: signed up, then accepted.
+      if (locked) await joinByInvitation(tx, { invitation: locked.invitation, userId: user.id });
+      return { ok: true as const, user, labId };
     });
   } catch (error) {
     if (uniqueViolation(error) === "users_email_lower_unique") return { ok: false, reason: "email_taken" };

@@ -10,7 +10,7 @@ import {
 } from "@/lib/contracts/compute";
 import { saveFitSchema } from "@/lib/contracts/fits";
 import { listRunsQuery, submitRunSchema } from "@/lib/contracts/lab-runs";
-import { acceptInvitationSchema, changeMemberSchema, createInvitationSchema } from "@/lib/contracts/labs";
+import { acceptInvitationSchema, changeMemberSchema, createInvitationSchema, createPersonalLabSchema } from "@/lib/contracts/labs";
 import { createLightSourceSchema, listLightSourcesQuery, updateLightSourceSchema } from "@/lib/contracts/light-sources";
 import {
   editPointsSchema,
@@ -86,7 +86,11 @@ export const ROUTES: ApiRouteDoc[] = [
     path: "/api/sign-up",
     tag: "Accounts",
     summary: "Create an account",
-    description: "The same answer whether or not the address already has an account (its owner gets an e-mail instead).",
+    description:
+      "The same answer whether or not the address already has an account (its owner gets an e-mail instead). " +
+      "With `invitationToken` (an invitation link's secret) the account joins the invited lab with the invitation's role and " +
+      "gets no personal lab; an unusable link creates nothing (404 unknown, 409 used, withdrawn or expired, 400 on `email` " +
+      "when the link is for another address).",
     access: "public",
     body: signUpSchema,
     response: { status: 202, description: "Accepted", schema: message },
@@ -210,6 +214,18 @@ export const ROUTES: ApiRouteDoc[] = [
     summary: "Your labs and your role in each",
     access: "caller",
     response: ok(r.items(r.labResponse)),
+  },
+  {
+    method: "POST",
+    path: "/api/labs",
+    tag: "Labs",
+    summary: "Create your personal lab",
+    description:
+      "For someone who joined through an invitation (no personal lab at sign-up) or was removed from every lab. " +
+      "One per person: 409 when you already own your personal lab. Named after you unless `name` is given.",
+    access: "caller",
+    body: createPersonalLabSchema,
+    response: created(r.item(r.labResponse)),
   },
   {
     method: "GET",

@@ -9,7 +9,7 @@ import { rateLimitMessage, signInClient, signInWaitSeconds } from "./rate-limit"
 import { afterSignInTarget } from "./after-sign-in";
 import { clientIp } from "./client-ip";
 import { signInSchema, signUpSchema } from "@/lib/contracts/accounts";
-import { signUpNeutrally } from "./sign-up";
+import { signUpNeutrally, signUpRefusalMessage } from "./sign-up";
 
 /** State of the sign-in/sign-up forms (useActionState). */
 export interface AuthFormState {
@@ -68,14 +68,20 @@ export async function signUpAction(_prev: AuthFormState, formData: FormData): Pr
     name: text(formData, "name"),
     email: text(formData, "email"),
     password: text(formData, "password"),
+    invitationToken: text(formData, "invitationToken") || undefined,
   });
   const fields = parsed.success ? {} : zodIssueFields(parsed.error.issues);
   const confirm = text(formData, "confirmPassword");
   if (confirm !== undefined && confirm !== text(formData, "password")) fields.confirmPassword = "The passwords do not match.";
   if (!parsed.success || Object.keys(fields).length > 0) return { error: "Check the highlighted fields.", fields };
   try {
-    if ((await signUpNeutrally(parsed.data, { address: clientIp(await headers()) })) === "throttled")
+    const signedUp = await signUpNeutrally(parsed.data, { address: clientIp(await headers()) });
+    if (signedUp.outcome === "throttled")
       return { error: "Too many sign-up attempts from here or for this address. Try again in an hour." };
+    if (signedUp.outcome === "refused") {
+      const { message, field } = signUpRefusalMessage(signedUp.refusal);
+      return { error: message, ...(field ? { fields: { [field]: message } } : {}) };
+    }
   } catch (error) {
     if (isDbUnavailable(error)) return { error: "Signing up is unavailable right now (the database is not reachable). Try again shortly." };
     throw error;

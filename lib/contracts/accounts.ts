@@ -33,6 +33,8 @@ export const signUpSchema = z.object({
   name: safeString({ error: "Enter your name." }).trim().min(1, "Enter your name.").max(120, "At most 120 characters."),
   email,
   password: newPasswordSchema(),
+  /** The secret of an invitation link: the new account joins that lab instead of getting a personal lab. */
+  invitationToken: safeString({ error: "The invitation link is incomplete." }).max(200, "The invitation link is not valid.").optional(),
 });
 
 export const emailOnlySchema = z.object({ email });

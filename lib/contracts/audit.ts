@@ -13,6 +13,7 @@ export const AUDIT_ACTIONS = [
   "invitation.accept",
   "invitation.create",
   "invitation.revoke",
+  "lab.create",
   "light_source.create",
   "light_source.delete",
   "light_source.update",

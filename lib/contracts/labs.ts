@@ -14,6 +14,25 @@ export const acceptInvitationSchema = z.object({
 
 export const changeMemberSchema = z.object({ role: labRoleSchema });
 
+/** POST /api/labs: the caller's personal lab (for someone left with no lab of their own). */
+export const createPersonalLabSchema = z.object({
+  name: safeString({ error: "Name the lab." }).trim().min(1, "Name the lab.").max(120, "At most 120 characters.").optional(),
+});
+
+/** Why an invitation link cannot be used (accepting it, or signing up with it). */
+export type InvitationRefusal = { reason: "unknown" | "accepted" | "revoked" | "expired" } | { reason: "other_email"; email: string };
+
+/** The error code of each refusal: an unknown link is not found; a used, withdrawn or expired one conflicts. */
+export const INVITATION_REFUSAL_CODE = { unknown: "not_found", accepted: "conflict", revoked: "conflict", expired: "conflict" } as const;
+
+/** One wording for every place that refuses an invitation link. */
+export const INVITATION_REFUSED: Record<Exclude<InvitationRefusal["reason"], "other_email">, string> = {
+  unknown: "This invitation link is not valid. Check that you copied all of it.",
+  accepted: "This invitation has already been used.",
+  revoked: "This invitation was withdrawn by the lab's owner.",
+  expired: "This invitation has expired. Ask the lab's owner to invite you again.",
+};
+
 /** A lab with the caller's role in it (GET /api/labs). */
 export interface LabSummary {
   id: string;

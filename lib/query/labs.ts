@@ -62,3 +62,12 @@ export function useRemoveMember(labId: string) {
     onSuccess: invalidate,
   });
 }
+
+/** The caller's personal lab (POST /api/labs), for someone left with no lab of their own. */
+export function useCreatePersonalLab() {
+  const invalidate = useInvalidateLab();
+  return useMutation({
+    mutationFn: () => apiFetch<{ item: LabSummary }>("/api/labs", { method: "POST", json: {} }).then((r) => r.item),
+    onSuccess: invalidate,
+  });
+}

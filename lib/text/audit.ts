@@ -25,6 +25,7 @@ function sentence(entry: Entry): Record<AuditAction, () => string> {
     "invitation.accept": () => `accepted the invitation${role ? ` as ${role}` : ""}`,
     "invitation.create": () => `invited ${target ?? "someone"}${role ? ` as ${role}` : ""}`,
     "invitation.revoke": () => `withdrew the invitation of ${target ?? "someone"}`,
+    "lab.create": () => `created the personal lab ${quoted(str(d.name), "")}`.trim(),
     "light_source.create": () =>
       `added the light source ${quoted(target, "")}${str(d.wavelengthNm) ? ` (${str(d.wavelengthNm)} nm)` : ""}`.trim(),
     "light_source.delete": () => `removed the light source ${quoted(target, "")}`.trim(),

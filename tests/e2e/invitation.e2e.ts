@@ -7,8 +7,9 @@ import { outputPath, useBrowser } from "./support";
 
 /*
  * Sharing through the browser: the lab owner invites someone by e-mail, the test opens the link
- * from the message the local mail catcher stored, signs up with the invited address, accepts and
- * sees the lab. Then an editor makes a read-only share link that works signed out.
+ * from the message the local mail catcher stored, signs up with the invited address and lands in
+ * the invited lab (its only lab); removed from it, the person creates a personal lab. Then an
+ * editor makes a read-only share link that works signed out.
  */
 
 const LAB_NAME = DEMO_LAB.name;
@@ -38,8 +39,10 @@ class LabPage {
 describe("invitations and share links in the browser", () => {
   const browser = useBrowser();
 
-  it("the owner invites, the invitee signs up from the e-mail, accepts and sees the lab", async () => {
+  it("the owner invites, the invitee signs up from the e-mail into the lab; removed, they make a personal lab", async () => {
     const email = `invitee-${Date.now()}@e2e.gyrolux.test`;
+    // Unique: the integration tests add members of the same name to the demo lab.
+    const name = `Invited Viewer ${Date.now().toString(36)}`;
     const owner = await browser.signedInPage("owner");
     const invitee = await browser.guestPage();
     try {
@@ -57,21 +60,34 @@ describe("invitations and share links in the browser", () => {
       await invitee.getByRole("link", { name: "Create an account" }).click();
       await invitee.waitForURL("**/sign-up?**");
       expect(await invitee.getByLabel("E-mail").inputValue()).toBe(email);
-      await invitee.getByLabel("Name").fill("Invited Viewer");
+      await invitee.getByLabel("Name").fill(name);
       await invitee.getByLabel("Password", { exact: true }).fill("invited viewer passphrase");
       await invitee.getByLabel("Confirm password").fill("invited viewer passphrase");
       await invitee.getByRole("button", { name: "Create account" }).click();
-      await invitee.waitForURL((url) => url.pathname === link, { timeout: 30_000 });
 
-      await invitee.getByRole("button", { name: `Accept and join ${LAB_NAME}` }).click();
+      // Signed up through the invitation: straight into the invited lab, the only one (no personal lab).
       await invitee.waitForURL("**/lab", { timeout: 30_000 });
       await invitee.getByRole("heading", { name: LAB_NAME }).waitFor({ timeout: 30_000 });
       await expect.poll(() => invitee.getByText("Your role: Viewer").count()).toBeGreaterThan(0);
+      // One heading per lab section (the hidden dialogs have headings of their own).
+      expect(await invitee.locator('main h2[id^="lab-"]').allTextContents()).toEqual([LAB_NAME]);
       await invitee.screenshot({ path: outputPath("invitation-accepted.png"), fullPage: true });
 
       // The link worked once.
       await invitee.goto(link);
       await invitee.getByText("This invitation has already been used.").waitFor();
+
+      // Removed from the only lab, the person is offered a personal lab of their own.
+      await owner.reload();
+      await owner.getByRole("button", { name: `Remove ${name}` }).click();
+      await owner.getByRole("button", { name: "Remove member" }).click();
+      await owner.getByRole("button", { name: `Remove ${name}` }).waitFor({ state: "detached", timeout: 30_000 });
+      await invitee.goto("/lab");
+      await invitee.getByRole("heading", { name: "You are not a member of any lab" }).waitFor({ timeout: 30_000 });
+      await invitee.getByRole("button", { name: "Create a personal lab" }).click();
+      await invitee.getByRole("heading", { name: `${name}'s lab` }).waitFor({ timeout: 30_000 });
+      await expect.poll(() => invitee.getByText("Your role: Owner").count()).toBeGreaterThan(0);
+      await invitee.screenshot({ path: outputPath("personal-lab-after-removal.png"), fullPage: true });
     } finally {
       await owner.context().close();
       await invitee.context().close();

@@ -58,6 +58,11 @@ describe("audit entries in words", () => {
     expect(describeAuditEntry(entry("invitation.revoke"))).toBe("withdrew the invitation of someone");
   });
 
+  it("names the personal lab someone created", () => {
+    expect(describeAuditEntry(entry("lab.create", { name: "Ada's lab" }))).toBe("created the personal lab “Ada's lab”");
+    expect(describeAuditEntry(entry("lab.create"))).toBe("created the personal lab");
+  });
+
   it("labels every kind of the filter", () => {
     for (const kind of AUDIT_KINDS) expect(AUDIT_KIND_LABEL[kind]).toBeTruthy();
   });

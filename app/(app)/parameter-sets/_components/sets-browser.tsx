@@ -87,7 +87,7 @@ export function SetsBrowser() {
       ) : sets.isError ? (
         <ErrorPanel error={sets.error} retry={() => void sets.refetch()} />
       ) : sorted.length === 0 ? (
-        <EmptyState filtered={filtered} canCreate={canCreate} onClear={clearFilters} />
+        <EmptyState filtered={filtered} canCreate={canCreate} noLab={labs.data?.length === 0} onClear={clearFilters} />
       ) : (
         <>
           <SetsTable items={sorted} sortKey={sort.key} sortDir={sort.dir} onSort={onSort} activeTag={tag} onTag={onTag} />
@@ -104,10 +104,29 @@ export function SetsBrowser() {
   );
 }
 
-function EmptyState({ filtered, canCreate, onClear }: { filtered: boolean; canCreate: boolean; onClear: () => void }) {
+function EmptyState({
+  filtered,
+  canCreate,
+  noLab,
+  onClear,
+}: {
+  filtered: boolean;
+  canCreate: boolean;
+  /** The caller belongs to no lab (removed from their only one, say): the way forward is the Lab page. */
+  noLab: boolean;
+  onClear: () => void;
+}) {
   return (
     <div className="rounded-lg border border-dashed border-ink/20 bg-paper-raised px-6 py-10 text-center">
-      {filtered ? (
+      {noLab && !filtered ? (
+        <>
+          <p className="font-medium">You are not a member of any lab</p>
+          <p className="mt-1 text-sm text-ink-soft">Create a personal lab on the Lab page, or ask a lab owner to invite you.</p>
+          <LinkButton href="/lab" className="mt-4">
+            Go to the Lab page
+          </LinkButton>
+        </>
+      ) : filtered ? (
         <>
           <p className="font-medium">No parameter set matches these filters.</p>
           <p className="mt-1 text-sm text-ink-soft">Try other words, another lab or no tag.</p>

@@ -6,16 +6,11 @@ import { db } from "@/db/client";
 import { findInvitationByToken } from "@/db/queries/invitations";
 import { getSessionUser } from "@/lib/auth/access";
 import { hashToken, isLinkSecret } from "@/lib/auth/tokens";
+import { INVITATION_REFUSED } from "@/lib/contracts/labs";
 import { AcceptInvitation } from "./_components/accept-invitation";
 
 export const metadata: Metadata = { title: "Invitation", robots: { index: false, follow: false } };
 export const dynamic = "force-dynamic";
-
-const STATE_TEXT = {
-  accepted: "This invitation has already been used.",
-  revoked: "The lab's owner withdrew this invitation.",
-  expired: "This invitation has expired. Ask the lab's owner to invite you again.",
-} as const;
 
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
@@ -29,10 +24,10 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     <section className="rounded-lg border border-ink/10 bg-paper-raised p-6 shadow-sm sm:p-8">
       <h1 className="text-xl font-semibold">Invitation to a lab</h1>
       {!invitation ? (
-        <p className="mt-4">This invitation link is not valid. Check that you copied all of it.</p>
+        <p className="mt-4">{INVITATION_REFUSED.unknown}</p>
       ) : invitation.state !== "pending" ? (
         <Alert tone="warning" title={`Invitation to ${invitation.labName}`}>
-          {STATE_TEXT[invitation.state]}
+          {INVITATION_REFUSED[invitation.state]}
         </Alert>
       ) : (
         <>
@@ -45,10 +40,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
           ) : (
             <div className="mt-6 flex flex-wrap gap-3">
               <LinkButton href={`/sign-in?redirectTo=${encodeURIComponent(here)}`}>Sign in to accept</LinkButton>
-              <LinkButton
-                variant="secondary"
-                href={`/sign-up?redirectTo=${encodeURIComponent(here)}&email=${encodeURIComponent(invitation.email)}`}
-              >
+              <LinkButton variant="secondary" href={`/sign-up?invitation=${encodeURIComponent(token)}`}>
                 Create an account
               </LinkButton>
             </div>

@@ -24,7 +24,16 @@ const FIELDS = [
   { name: "confirmPassword", id: "sign-up-confirm", type: "password", label: "Confirm password", autoComplete: "new-password" },
 ] as const;
 
-export function SignUpForm({ redirectTo, initialEmail = "" }: { redirectTo?: string; initialEmail?: string }) {
+export function SignUpForm({
+  redirectTo,
+  initialEmail = "",
+  invitationToken,
+}: {
+  redirectTo?: string;
+  initialEmail?: string;
+  /** The invitation link's secret: the account joins the invited lab instead of getting a personal one. */
+  invitationToken?: string;
+}) {
   const [state, formAction, pending] = useActionState(signUpAction, {});
   const [values, setValues] = useState({ name: "", email: initialEmail, password: "", confirmPassword: "" });
   const [localError, setLocalError] = useState<Record<string, string>>({});
@@ -60,8 +69,9 @@ export function SignUpForm({ redirectTo, initialEmail = "" }: { redirectTo?: str
         />
       ))}
       {redirectTo ? <input type="hidden" name="redirectTo" value={redirectTo} /> : null}
+      {invitationToken ? <input type="hidden" name="invitationToken" value={invitationToken} /> : null}
       <Button type="submit" className="w-full" disabled={pending}>
-        {pending ? "Creating account…" : "Create account"}
+        {pending ? "Creating account…" : invitationToken ? "Create account and join" : "Create account"}
       </Button>
     </form>
   );

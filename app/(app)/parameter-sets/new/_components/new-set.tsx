@@ -28,6 +28,14 @@ export function NewSet({ initialLabId }: { initialLabId?: string }) {
         <SkeletonRows label="Loading your labs" rows={6} />
       ) : labs.isError ? (
         <ErrorPanel error={labs.error} retry={() => void labs.refetch()} />
+      ) : labs.data.length === 0 ? (
+        <Alert tone="info" title="You are not a member of any lab">
+          A parameter set belongs to a lab.{" "}
+          <Link href="/lab" className="text-lux-dark underline underline-offset-4">
+            Create a personal lab on the Lab page
+          </Link>
+          , or ask a lab owner to invite you.
+        </Alert>
       ) : editable.length === 0 ? (
         <Alert tone="info" title="You cannot create parameter sets">
           Creating a set needs the editor or owner role in a lab. Ask your lab&apos;s owner to change your role.
