@@ -4,7 +4,7 @@ import { isUnverifiedSource } from "@/lib/fit/assumptions";
 import type { FitReport } from "@/lib/fit/report";
 import { fitNameLabel } from "@/lib/fit/labels";
 import { formatSignificance as fmtSigma } from "@/lib/fit/statistics";
-import { fmt, fmtProbability as fmtP } from "@/lib/workbench/format";
+import { fmt, fmtHeldValue, fmtProbability as fmtP } from "@/lib/workbench/format";
 import { ProfilePlot } from "./fit-profile-plot";
 
 /*
@@ -43,7 +43,7 @@ export function AssumptionsTable({ report }: { report: FitReport }) {
               <th scope="row" className="px-2 py-1 text-left font-normal">
                 {labelOf(a.key)}
               </th>
-              <td className="px-2 py-1 tabular-nums">{typeof a.value === "number" ? fmt(a.value, 5) : String(a.value)}</td>
+              <td className="px-2 py-1 tabular-nums">{fmtHeldValue(a.value)}</td>
               <td className={`px-2 py-1 ${isUnverifiedSource(a.source) ? "text-ember" : ""}`}>{a.source}</td>
             </tr>
           ))}

@@ -13,6 +13,11 @@ export function fmt(value: number | null | undefined, digits = 4): string {
  * A stored value as a person reads it: 12 significant digits, so the binary noise of a unit
  * conversion (0.6328 µm → 632.8000000000001 nm) is gone while every digit a file can carry stays.
  */
+/** A held value of a fit (a number at 5 significant digits, a switch or a word as it is). */
+export function fmtHeldValue(value: number | boolean | string): string {
+  return typeof value === "number" ? fmt(value, 5) : String(value);
+}
+
 export function fmtStored(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "–";
   return String(Number(value.toPrecision(12)));

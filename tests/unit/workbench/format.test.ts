@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { fmtDifference } from "@/lib/workbench/format";
+import { fmtDifference, fmtHeldValue } from "@/lib/workbench/format";
 
 describe("differences in the compare table", () => {
   it("are signed, written with a power of ten and say the relative change", () => {
@@ -13,5 +13,15 @@ describe("differences in the compare table", () => {
   it("takes the relative change against the size of a negative reference", () => {
     // −134 → −130: +4 against |−134|.
     expect(fmtDifference(4, -134)).toBe("+4 (+2.99 %)");
+  });
+});
+
+describe("held values of a fit", () => {
+  it("gives numbers five significant digits and switches or words as they are", () => {
+    expect(fmtHeldValue(135.83)).toBe("135.83");
+    expect(fmtHeldValue(1.2726e28)).toBe("1.2726e28");
+    expect(fmtHeldValue(258.00004)).toBe("258");
+    expect(fmtHeldValue(true)).toBe("true");
+    expect(fmtHeldValue("sellmeier")).toBe("sellmeier");
   });
 });

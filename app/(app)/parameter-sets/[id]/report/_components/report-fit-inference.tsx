@@ -1,7 +1,7 @@
 import { formatSignificance } from "@/lib/fit/statistics";
 import type { FitProvenance } from "@/lib/fit/provenance";
 import { fitNameLabel } from "@/lib/fit/labels";
-import { fmt, fmtProbability } from "@/lib/workbench/format";
+import { fmt, fmtHeldValue, fmtProbability } from "@/lib/workbench/format";
 
 /*
  * The printed report's part of a saved fit that says under which conditions its result holds: the
@@ -131,7 +131,7 @@ export function ReportFitInference({ fit }: { fit: FitProvenance }) {
                   <th scope="row" className="py-0.5 text-left font-normal">
                     {labelOf(a.key)}
                   </th>
-                  <td className="text-right tabular-nums">{typeof a.value === "number" ? fmt(a.value, 5) : String(a.value)}</td>
+                  <td className="text-right tabular-nums">{fmtHeldValue(a.value)}</td>
                   <td className="pl-2">{a.source}</td>
                 </tr>
               ))}
